@@ -1,0 +1,73 @@
+import { addDays, formatISO } from "date-fns";
+import { generateNKeysBetween } from "fractional-indexing";
+import { sql } from "drizzle-orm";
+import type { Role } from "../shared/access/roles";
+import { stages, type Stage } from "../shared/slate/stages";
+import type { Database } from "../server/db/client";
+import { addMember, createChannel, createUser } from "../tests/factories/accounts";
+import { createEpisode } from "../tests/factories/episodes";
+
+/** Demo-only sign-ins, printed by `npm start` and listed in the README. Never use them anywhere real. */
+export const DEMO_PASSWORD = "kerf-demo-only";
+
+export const demoAccounts: { role: Role; email: string; name: string }[] = [
+  { role: "owner", email: "owner@example.com", name: "Noor Halvorsen" },
+  { role: "producer", email: "producer@example.com", name: "Teodor Baptiste" },
+  { role: "editor", email: "editor@example.com", name: "Ilse Marchetti" },
+  { role: "crew", email: "crew@example.com", name: "Kwame Lindqvist" },
+];
+
+export const DEMO_CHANNEL = "Gantry Lane Workshop";
+
+// Invented episodes, two or so for each stage; every name and figure here is made up.
+const demoEpisodes: { stage: Stage; title: string; question: string; owner: Role; daysToPublish: number | null }[] = [
+  { stage: "challenge", title: "Leaf-blower hovercraft", question: "Can two garden leaf blowers carry a 70 kg rider?", owner: "owner", daysToPublish: 75 },
+  { stage: "challenge", title: "Paper glider from a desk fan", question: "Can a desk fan launch a glider across the workshop?", owner: "producer", daysToPublish: null },
+  { stage: "test_plan", title: "Case fans versus one big rotor", question: "Do twelve small fans out-lift one large rotor at the same power?", owner: "owner", daysToPublish: 48 },
+  { stage: "test_plan", title: "Solar-only espresso", question: "Can a folding solar panel pull a shot before lunch?", owner: "owner", daysToPublish: 60 },
+  { stage: "build", title: "Drill-motor skateboard", question: "Will two cordless drill motors push a board at 20 km/h?", owner: "owner", daysToPublish: 30 },
+  { stage: "build", title: "Mousetrap car distance record", question: "How far can one spring carry a car on a smooth floor?", owner: "editor", daysToPublish: 24 },
+  { stage: "shoot", title: "Thermal camera on a kite", question: "Can a kite hold a camera steady enough to map roof heat loss?", owner: "owner", daysToPublish: 16 },
+  { stage: "shoot", title: "Two-stage bottle rocket", question: "Does a second stage beat one bigger bottle?", owner: "producer", daysToPublish: 12 },
+  { stage: "edit", title: "Relay calculator", question: "Can 120 relays add two four-digit numbers?", owner: "editor", daysToPublish: 9 },
+  { stage: "edit", title: "Levitating water drops", question: "Can sound alone hold a drop of water in the air?", owner: "editor", daysToPublish: 6 },
+  { stage: "sponsor_read", title: "Cheap and dear soldering irons, measured", question: "Does a dearer iron heat a joint faster?", owner: "producer", daysToPublish: 4 },
+  { stage: "publish", title: "How strong are printed hinges?", question: "What load does a printed living hinge take before it tears?", owner: "owner", daysToPublish: 1 },
+];
+
+export async function isEmpty(db: Database): Promise<boolean> {
+  const result = await db.execute(sql`select count(*)::int as count from users`);
+  return (result.rows[0] as { count: number }).count === 0;
+}
+
+export async function seedDemo(db: Database, today = new Date()): Promise<void> {
+  const people = new Map<Role, { id: string }>();
+  for (const account of demoAccounts) {
+    people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: "Europe/Oslo" }));
+  }
+  const owner = people.get("owner")!;
+  const channel = await createChannel(db, owner, DEMO_CHANNEL);
+  for (const account of demoAccounts.filter((a) => a.role !== "owner")) await addMember(db, channel.id, people.get(account.role)!, account.role);
+
+  for (const stage of stages) {
+    const list = demoEpisodes.filter((e) => e.stage === stage);
+    const ranks = generateNKeysBetween(null, null, list.length);
+    for (const [i, episode] of list.entries()) {
+      await createEpisode(db, channel.id, {
+        stage,
+        title: episode.title,
+        question: episode.question,
+        rank: ranks[i],
+        ownerId: people.get(episode.owner)!.id,
+        targetPublishDate: episode.daysToPublish === null ? null : formatISO(addDays(today, episode.daysToPublish), { representation: "date" }),
+      });
+    }
+  }
+
+  // A second channel, where the demo owner is a producer: shows the channel switcher and keeps
+  // one channel's rows out of the other's sight.
+  const neighbour = await createUser(db, { email: "neighbour@example.com", name: "Ada Okonkwo", password: DEMO_PASSWORD });
+  const club = await createChannel(db, neighbour, "Tidewater Robot Club");
+  await addMember(db, club.id, owner, "producer");
+  await createEpisode(db, club.id, { title: "Beach-cleaning rover", question: "Can a rover sieve sand for bottle caps?", ownerId: neighbour.id });
+}

@@ -1,0 +1,139 @@
+import { execFileSync, spawnSync } from "node:child_process";
+import { accessSync, constants, existsSync, mkdirSync, readdirSync, symlinkSync, lstatSync, chownSync, rmSync } from "node:fs";
+import { createHash } from "node:crypto";
+import path from "node:path";
+import pg from "pg";
+
+/**
+ * A private PostgreSQL cluster for one checkout: loopback only, its own port, trust auth for the
+ * `kerf` role. initdb and pg_ctl refuse to run as root, so as root they run as the `postgres` user,
+ * which must be able to enter every parent folder of the data folder.
+ */
+export interface Cluster {
+  dataDir: string;
+  port: number;
+  url(database: string): string;
+  stop(): void;
+}
+
+const SUPERUSER = "kerf";
+
+export function postgresBinDir(): string {
+  const base = "/usr/lib/postgresql";
+  const versions = existsSync(base) ? readdirSync(base).filter((v) => existsSync(path.join(base, v, "bin", "initdb"))) : [];
+  const newest = versions.sort((a, b) => Number(b) - Number(a))[0];
+  if (!newest) {
+    throw new Error("PostgreSQL server binaries are missing: run `npm start` (it installs Debian's postgresql) or `apt-get install -y postgresql`.");
+  }
+  return path.join(base, newest, "bin");
+}
+
+const isRoot = () => process.getuid?.() === 0;
+
+function runPg(bin: string, args: string[], opts: { quiet?: boolean } = {}): void {
+  const [cmd, cmdArgs] = isRoot() ? ["runuser", ["-u", "postgres", "--", bin, ...args]] : [bin, args];
+  const result = spawnSync(cmd, cmdArgs, { stdio: opts.quiet ? "pipe" : "inherit", encoding: "utf8" });
+  if (result.status !== 0) {
+    throw new Error(`${path.basename(bin)} failed (${result.status}): ${result.stderr ?? ""}${result.stdout ?? ""}`);
+  }
+}
+
+function postgresUserCanEnter(dir: string): boolean {
+  if (!isRoot()) return true;
+  return spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", dir]).status === 0;
+}
+
+/**
+ * Keeps the cluster inside the checkout when the postgres user can reach it; otherwise (a clone
+ * under a private home folder) in /var/tmp, keyed by the checkout's path, linked back from .kerf/.
+ */
+function resolveDataDir(wanted: string): string {
+  const parent = path.dirname(wanted);
+  mkdirSync(parent, { recursive: true });
+  if (existsSync(wanted)) return lstatSync(wanted).isSymbolicLink() ? path.resolve(parent, readlinkTarget(wanted)) : wanted;
+  if (postgresUserCanEnter(parent)) return wanted;
+  const key = createHash("sha256").update(wanted).digest("hex").slice(0, 12);
+  const outside = path.join("/var/tmp", `kerf-pg-${key}-${path.basename(wanted)}`);
+  console.log(`[postgres] ${parent} is closed to the postgres user; keeping the cluster in ${outside} (linked from ${wanted}).`);
+  symlinkSync(outside, wanted);
+  return outside;
+}
+
+function readlinkTarget(link: string): string {
+  return execFileSync("readlink", [link], { encoding: "utf8" }).trim();
+}
+
+function initCluster(bin: string, dataDir: string): void {
+  mkdirSync(dataDir, { recursive: true, mode: 0o700 });
+  if (isRoot()) {
+    const uid = Number(execFileSync("id", ["-u", "postgres"], { encoding: "utf8" }));
+    const gid = Number(execFileSync("id", ["-g", "postgres"], { encoding: "utf8" }));
+    chownSync(dataDir, uid, gid);
+  }
+  runPg(path.join(bin, "initdb"), ["-D", dataDir, "-U", SUPERUSER, "--auth=trust", "--encoding=UTF8", "--locale=C.UTF-8", "--no-sync"], { quiet: true });
+}
+
+export function isPortOpen(port: number): boolean {
+  // pg_isready exits 0 when the server accepts connections.
+  return spawnSync(path.join(postgresBinDir(), "pg_isready"), ["-h", "127.0.0.1", "-p", String(port), "-q"]).status === 0;
+}
+
+export function startCluster(options: { dataDir: string; port: number; fresh?: boolean }): Cluster {
+  const bin = postgresBinDir();
+  const dataDir = resolveDataDir(options.dataDir);
+  if (options.fresh && existsSync(dataDir)) {
+    if (isPortOpen(options.port)) stopAt(bin, dataDir);
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+  if (!existsSync(path.join(dataDir, "PG_VERSION"))) initCluster(bin, dataDir);
+  accessSync(dataDir, constants.F_OK);
+
+  let startedHere = false;
+  if (!isPortOpen(options.port)) {
+    const settings = `-c listen_addresses=127.0.0.1 -p ${options.port} -c unix_socket_directories='' -c fsync=off -c max_connections=200`;
+    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-o", settings, "-l", path.join(dataDir, "server.log"), "-w", "-t", "60", "start"], { quiet: true });
+    startedHere = true;
+  }
+  const url = (database: string) => `postgres://${SUPERUSER}@127.0.0.1:${options.port}/${database}`;
+  return {
+    dataDir,
+    port: options.port,
+    url,
+    stop: () => {
+      if (startedHere) stopAt(bin, dataDir);
+    },
+  };
+}
+
+function stopAt(bin: string, dataDir: string): void {
+  try {
+    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-m", "fast", "-w", "stop"], { quiet: true });
+  } catch (error) {
+    console.error(`[postgres] stop failed: ${(error as Error).message}`);
+  }
+}
+
+export async function ensureDatabase(cluster: Cluster, name: string, template?: string): Promise<string> {
+  const admin = new pg.Client({ connectionString: cluster.url("postgres") });
+  await admin.connect();
+  try {
+    const found = await admin.query("select 1 from pg_database where datname = $1", [name]);
+    if (found.rowCount === 0) {
+      const from = template ? ` template "${template}"` : "";
+      await admin.query(`create database "${name}"${from}`);
+    }
+  } finally {
+    await admin.end();
+  }
+  return cluster.url(name);
+}
+
+export async function dropDatabase(cluster: Cluster, name: string): Promise<void> {
+  const admin = new pg.Client({ connectionString: cluster.url("postgres") });
+  await admin.connect();
+  try {
+    await admin.query(`drop database if exists "${name}" with (force)`);
+  } finally {
+    await admin.end();
+  }
+}

@@ -1,0 +1,51 @@
+import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process";
+import net from "node:net";
+
+/** A free loopback port, found by letting the kernel pick one. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.unref();
+    server.on("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      const port = typeof address === "object" && address ? address.port : 0;
+      server.close(() => resolve(port));
+    });
+  });
+}
+
+export async function waitForHttp(url: string, timeoutMs = 30_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    try {
+      const response = await fetch(url);
+      if (response.status < 500) return;
+    } catch {
+      // not up yet
+    }
+    if (Date.now() > deadline) throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** Runs a command to completion, streaming its output; resolves to its exit code. */
+export function run(command: string, args: string[], options: SpawnOptions = {}): Promise<number> {
+  return new Promise((resolve) => {
+    const child = spawn(command, args, { stdio: "inherit", ...options });
+    child.on("exit", (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+    child.on("error", () => resolve(127));
+  });
+}
+
+export function stopChild(child: ChildProcess | undefined): Promise<void> {
+  return new Promise((resolve) => {
+    if (!child || child.exitCode !== null || child.signalCode !== null) return resolve();
+    const timer = setTimeout(() => child.kill("SIGKILL"), 5_000);
+    child.once("exit", () => {
+      clearTimeout(timer);
+      resolve();
+    });
+    child.kill("SIGTERM");
+  });
+}

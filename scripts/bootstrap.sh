@@ -1,0 +1,30 @@
+#!/usr/bin/env bash
+# Installs what Kerf needs on a Debian machine when it is missing: npm packages, PostgreSQL's
+# server binaries and (with --browser) Debian's Chromium for the browser tests.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+
+as_root() {
+  if [ "$(id -u)" = 0 ]; then "$@"; elif command -v sudo >/dev/null; then sudo "$@"; else
+    echo "kerf: '$*' needs root; run it once as root, then try again." >&2; exit 1; fi
+}
+
+apt_updated=0
+apt_install() {
+  [ $apt_updated = 1 ] || { echo "kerf: apt-get update…"; as_root apt-get update -q >/dev/null; apt_updated=1; }
+  echo "kerf: installing Debian's $*…"
+  DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -q "$@" >/dev/null
+}
+
+if [ ! -d node_modules ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+  echo "kerf: installing npm packages…"
+  npm ci --no-audit --no-fund --loglevel=error
+fi
+
+if ! ls /usr/lib/postgresql/*/bin/initdb >/dev/null 2>&1; then
+  apt_install postgresql
+fi
+
+if [ "${1:-}" = "--browser" ] && ! command -v chromium >/dev/null; then
+  apt_install chromium
+fi

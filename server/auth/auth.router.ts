@@ -1,0 +1,52 @@
+import { signInSchema, signUpSchema } from "../../shared/auth/schemas";
+import type { Database } from "../db/client";
+import { AppError } from "../http/app-error";
+import { anyAccount, publicAccess, type RouteSpec } from "../http/route-table";
+import { parseBody } from "../http/validate";
+import { checkCredentials, describeMe, endSession, signUp, startSession } from "./auth.service";
+import { signInRateLimits, type SignInLimits } from "./rate-limits";
+
+export function authRoutes(db: Database, limits: SignInLimits): RouteSpec[] {
+  return [
+    {
+      method: "get",
+      path: "/api/auth/me",
+      access: publicAccess,
+      handler: async (req, res) => res.json(await describeMe(db, req)),
+    },
+    {
+      method: "post",
+      path: "/api/auth/sign-in",
+      access: publicAccess,
+      before: signInRateLimits(limits),
+      handler: async (req, res) => {
+        const input = parseBody(signInSchema, req.body);
+        const user = await checkCredentials(db, input.email, input.password);
+        if (!user) throw new AppError("unauthenticated", "That e-mail and password don't match an account.");
+        await startSession(req, user);
+        res.json(await describeMe(db, req));
+      },
+    },
+    {
+      method: "post",
+      path: "/api/auth/sign-up",
+      access: publicAccess,
+      handler: async (req, res) => {
+        const input = parseBody(signUpSchema, req.body);
+        const user = await signUp(db, input);
+        await startSession(req, user);
+        res.status(201).json(await describeMe(db, req));
+      },
+    },
+    {
+      method: "post",
+      path: "/api/auth/sign-out",
+      access: anyAccount,
+      body: "none",
+      handler: async (req, res) => {
+        await endSession(req);
+        res.json(await describeMe(db, req));
+      },
+    },
+  ];
+}

@@ -1,0 +1,17 @@
+import pg from "pg";
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+
+export type Database = NodePgDatabase;
+
+export interface DatabaseHandle {
+  pool: pg.Pool;
+  db: Database;
+  close(): Promise<void>;
+}
+
+export function connectDatabase(url: string): DatabaseHandle {
+  const pool = new pg.Pool({ connectionString: url, max: 10, connectionTimeoutMillis: 5_000 });
+  // An idle client that loses its server (a restart) must not crash the process.
+  pool.on("error", (error) => console.error(`[db] idle client error: ${error.message}`));
+  return { pool, db: drizzle(pool), close: () => pool.end() };
+}

@@ -1,0 +1,31 @@
+import { z } from "zod";
+
+/** Every setting the server reads, checked once at start. Nothing else reads process.env. */
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default("127.0.0.1"),
+  DATABASE_URL: z.string().url(),
+  SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters"),
+  APP_URL: z.string().url().default("http://127.0.0.1:3000"),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
+  SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().default("Kerf <kerf@example.com>"),
+  /** Set when the app sits behind a TLS-terminating proxy: cookies become Secure. */
+  TRUST_PROXY: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  CLIENT_DIST: z.string().default("dist/client"),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = envSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join(".")}: ${issue.message}`);
+    throw new Error(`Kerf cannot start; fix these settings:\n${lines.join("\n")}`);
+  }
+  return parsed.data;
+}

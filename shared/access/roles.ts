@@ -1,0 +1,57 @@
+/**
+ * Who may do what, by area. This is the spec's role table in code: the server's
+ * route table and the client's menus both read it, so they cannot disagree.
+ */
+export const roles = ["owner", "producer", "editor", "crew"] as const;
+export type Role = (typeof roles)[number];
+
+export const areas = [
+  "members",
+  "episodes",
+  "comments",
+  "testPlan",
+  "bench",
+  "shoot",
+  "footage",
+  "sponsors",
+  "fees",
+  "deliverables",
+  "publish",
+] as const;
+export type Area = (typeof areas)[number];
+
+/** R read, W create and change, "-" nothing. */
+export type Grant = "R" | "W" | "-";
+
+export const grants: Record<Area, Record<Role, Grant>> = {
+  members: { owner: "W", producer: "R", editor: "-", crew: "-" },
+  episodes: { owner: "W", producer: "W", editor: "W", crew: "R" },
+  comments: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  testPlan: { owner: "W", producer: "W", editor: "R", crew: "R" },
+  bench: { owner: "W", producer: "W", editor: "R", crew: "W" },
+  shoot: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  footage: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  sponsors: { owner: "W", producer: "W", editor: "R", crew: "R" },
+  fees: { owner: "W", producer: "W", editor: "-", crew: "-" },
+  deliverables: { owner: "W", producer: "W", editor: "R", crew: "R" },
+  publish: { owner: "W", producer: "W", editor: "W", crew: "R" },
+};
+
+export type Need = "R" | "W";
+
+export function roleMay(role: Role, area: Area, need: Need): boolean {
+  const grant = grants[area][role];
+  if (grant === "W") return true;
+  return grant === "R" && need === "R";
+}
+
+export function rolesAllowed(area: Area, need: Need): Role[] {
+  return roles.filter((role) => roleMay(role, area, need));
+}
+
+export const roleLabels: Record<Role, string> = {
+  owner: "Owner",
+  producer: "Producer",
+  editor: "Editor",
+  crew: "Crew",
+};

@@ -1,0 +1,62 @@
+import { z } from "zod";
+import { roles } from "../access/roles";
+
+export const emailSchema = z
+  .string({ error: "Enter an e-mail address." })
+  .trim()
+  .toLowerCase()
+  .max(254, "That address is too long.")
+  .pipe(z.email({ error: "Enter a valid e-mail address." }));
+
+export const passwordSchema = z
+  .string({ error: "Enter a password." })
+  .min(10, "Use at least 10 characters.")
+  .max(200, "Use at most 200 characters.");
+
+export const personNameSchema = z
+  .string({ error: "Enter your name." })
+  .trim()
+  .min(1, "Enter your name.")
+  .max(80, "Keep the name under 80 characters.");
+
+export const channelNameSchema = z
+  .string({ error: "Name the channel." })
+  .trim()
+  .min(2, "Name the channel (at least 2 characters).")
+  .max(80, "Keep the channel name under 80 characters.");
+
+export const signInSchema = z.strictObject({
+  email: emailSchema,
+  password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+export const signUpSchema = z.strictObject({
+  name: personNameSchema,
+  email: emailSchema,
+  password: passwordSchema,
+  channelName: channelNameSchema,
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const membershipSchema = z.object({
+  channelId: z.string(),
+  channelName: z.string(),
+  role: z.enum(roles),
+});
+export type Membership = z.infer<typeof membershipSchema>;
+
+export const userSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  email: z.string(),
+  timeZone: z.string(),
+});
+export type User = z.infer<typeof userSchema>;
+
+export const meSchema = z.object({
+  user: userSchema.nullable(),
+  memberships: z.array(membershipSchema),
+  csrfToken: z.string(),
+});
+export type Me = z.infer<typeof meSchema>;

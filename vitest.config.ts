@@ -1,0 +1,13 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+export default defineConfig({
+  resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
+  test: {
+    include: ["shared/**/*.test.ts", "server/**/*.test.ts", "tests/api/**/*.test.ts", "tests/unit/**/*.test.ts"],
+    environment: "node",
+    testTimeout: 20_000,
+    hookTimeout: 60_000,
+    pool: "forks",
+  },
+});
