@@ -1,0 +1,139 @@
+import { spawn } from "node:child_process";
+import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import path from "node:path";
+import PgBoss from "pg-boss";
+import { migrateDatabase } from "../server/db/migrate";
+import { startMailCatcher } from "./mail";
+import { repoRoot, stateDir } from "./paths";
+import { ensureDatabase, startCluster } from "./postgres";
+import { freePort, run, stopChild, waitForHttp } from "./processes";
+
+/**
+ * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter,
+ * the unit and API tests, the client build and the browser tests, each against its own database.
+ * The demo cluster of `npm start` is never touched.
+ */
+const outputDir = path.join(stateDir, "test-output");
+const bin = (name: string) => path.join(repoRoot, "node_modules", ".bin", name);
+
+interface Step {
+  name: string;
+  passed: boolean;
+}
+const steps: Step[] = [];
+const stops: (() => Promise<void> | void)[] = [];
+
+async function step(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<boolean> {
+  console.log(`\n── ${name} ──`);
+  const code = await run(command, args, { env: { ...process.env, ...env }, cwd: repoRoot });
+  steps.push({ name, passed: code === 0 });
+  return code === 0;
+}
+
+async function preparePostgres() {
+  const port = await freePort();
+  const cluster = startCluster({ dataDir: path.join(stateDir, "pg-test"), port, fresh: true });
+  stops.push(() => cluster.stop());
+  const templateUrl = await ensureDatabase(cluster, "kerf_template");
+  await migrateDatabase(templateUrl);
+  // pg-boss installs its own schema at first start; doing it once here lets every copy skip it.
+  const boss = new PgBoss({ connectionString: templateUrl, schema: "pgboss" });
+  await boss.start();
+  await boss.stop({ graceful: false, wait: true });
+  return { cluster, clusterUrl: `postgres://kerf@127.0.0.1:${port}` };
+}
+
+function countVitest(): { passed: number; failed: number } {
+  const file = path.join(outputDir, "vitest.json");
+  if (!existsSync(file)) return { passed: 0, failed: 0 };
+  const report = JSON.parse(readFileSync(file, "utf8")) as { numPassedTests: number; numFailedTests: number };
+  return { passed: report.numPassedTests, failed: report.numFailedTests };
+}
+
+function countPlaywright(): { passed: number; failed: number } {
+  const file = path.join(outputDir, "playwright.json");
+  if (!existsSync(file)) return { passed: 0, failed: 0 };
+  const report = JSON.parse(readFileSync(file, "utf8")) as { stats: { expected: number; unexpected: number; flaky: number } };
+  return { passed: report.stats.expected + report.stats.flaky, failed: report.stats.unexpected };
+}
+
+async function browserTests(clusterUrl: string, cluster: ReturnType<typeof startCluster>, mail: { smtpPort: number; webUrl: string }) {
+  const databaseUrl = await ensureDatabase(cluster, "kerf_e2e", "kerf_template");
+  const port = await freePort();
+  const appUrl = `http://127.0.0.1:${port}`;
+  const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+    cwd: repoRoot,
+    stdio: ["ignore", "inherit", "inherit"],
+    env: {
+      ...process.env,
+      NODE_ENV: "test",
+      PORT: String(port),
+      APP_URL: appUrl,
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: "browser-test-secret-browser-test-secret",
+      SMTP_PORT: String(mail.smtpPort),
+    },
+  });
+  stops.push(() => stopChild(server));
+  await waitForHttp(`${appUrl}/api/health`, 60_000);
+  return step("browser tests (Playwright, Debian's Chromium)", bin("playwright"), ["test"], {
+    KERF_E2E_URL: appUrl,
+    KERF_TEST_CLUSTER_URL: clusterUrl,
+    KERF_E2E_DATABASE_URL: databaseUrl,
+    KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+    PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(outputDir, "playwright.json"),
+  });
+}
+
+async function main(): Promise<number> {
+  rmSync(outputDir, { recursive: true, force: true });
+  mkdirSync(outputDir, { recursive: true });
+
+  // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
+  const filters = process.argv.slice(2);
+  if (filters.length === 0) {
+    await step("type check", bin("tsc"), ["--noEmit", "-p", "tsconfig.json"]);
+    await step("lint", bin("eslint"), ["--max-warnings", "0", "."]);
+  }
+
+  console.log("\n── test services ──");
+  const { cluster, clusterUrl } = await preparePostgres();
+  const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() });
+  stops.push(() => mail.stop());
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}`);
+
+  const testEnv = {
+    NO_COLOR: "1",
+    KERF_TEST_CLUSTER_URL: clusterUrl,
+    KERF_TEST_TEMPLATE_DB: "kerf_template",
+    KERF_TEST_SMTP_PORT: String(mail.smtpPort),
+    KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+  };
+  const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
+  await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+
+  if (filters.length === 0 && (await step("client build", bin("vite"), ["build", "--logLevel", "warn"]))) {
+    await browserTests(clusterUrl, cluster, mail);
+  }
+
+  const vitest = countVitest();
+  const browser = countPlaywright();
+  console.log("\n── summary ──");
+  for (const s of steps) console.log(`${s.passed ? "ok  " : "FAIL"}  ${s.name}`);
+  console.log(`vitest: ${vitest.passed} passed, ${vitest.failed} failed; browser: ${browser.passed} passed, ${browser.failed} failed`);
+  console.log(`screenshots and traces: ${path.relative(repoRoot, outputDir)}/`);
+  const failedSteps = steps.filter((s) => !s.passed).length;
+  // The closing line CI reads: every test and every check step counted together.
+  console.log(`${vitest.passed + browser.passed + steps.length - failedSteps} passed, ${vitest.failed + browser.failed + failedSteps} failed`);
+  return failedSteps === 0 ? 0 : 1;
+}
+
+let code = 1;
+try {
+  code = await main();
+} catch (error) {
+  console.error(`[test] ${(error as Error).stack ?? error}`);
+} finally {
+  for (const stop of stops.reverse()) await stop();
+}
+process.exit(code);

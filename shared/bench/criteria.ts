@@ -1,0 +1,172 @@
+import { z } from "zod";
+import {
+  type Figure,
+  type FigureName,
+  type MeasurementSymbol,
+  type RunMeasurements,
+  type CraftMasses,
+  NOT_MEASURED,
+  figureNames,
+  isFigureProblem,
+  isQuantity,
+  measurementDimensions,
+  measurementSymbols,
+  runFigures,
+} from "./figures";
+import {
+  type Quantity,
+  RATIO_UNIT,
+  UnitError,
+  areCompatible,
+  describeUnit,
+  isKnownUnit,
+  quantitySchema,
+  unitsByDimension,
+  valueIn,
+} from "./quantity";
+
+export const metricNames = [...measurementSymbols, ...figureNames] as const;
+export type MetricName = MeasurementSymbol | FigureName;
+
+const figureUnits: Record<FigureName, string> = {
+  electrical_power: "W",
+  power_per_gram: "W/g",
+  thrust_per_watt: "gf/W",
+  thrust_to_weight: RATIO_UNIT,
+};
+
+/** The unit a metric is naturally read in; a threshold must be convertible to it. */
+export function metricUnit(metric: MetricName): string {
+  if (metric in figureUnits) return figureUnits[metric as FigureName];
+  return unitsByDimension[measurementDimensions[metric as MeasurementSymbol]][0];
+}
+
+const criterionBase = {
+  metric: z.enum(metricNames),
+  required: z.boolean(),
+  note: z.string().max(500).optional(),
+};
+
+const compatibleWith = (a: string, b: string) => isKnownUnit(a) && isKnownUnit(b) && areCompatible(a, b);
+
+export const criterionSchema = z
+  .discriminatedUnion("comparator", [
+    z.object({ ...criterionBase, comparator: z.literal("gte"), threshold: quantitySchema }),
+    z.object({ ...criterionBase, comparator: z.literal("lte"), threshold: quantitySchema }),
+    z.object({
+      ...criterionBase,
+      comparator: z.literal("eq"),
+      threshold: quantitySchema,
+      tolerance: quantitySchema.refine((q) => q.value >= 0, { message: "tolerance cannot be negative" }),
+    }),
+    z.object({ ...criterionBase, comparator: z.literal("between"), low: quantitySchema, high: quantitySchema }),
+  ])
+  .superRefine((criterion, ctx) => {
+    for (const [field, bound] of Object.entries(bounds(criterion))) {
+      if (!compatibleWith(bound.unit, metricUnit(criterion.metric))) {
+        ctx.addIssue({ code: "custom", path: [field, "unit"], message: mismatch(field, bound.unit, criterion.metric) });
+      }
+    }
+    if (criterion.comparator === "between" && compatibleWith(criterion.low.unit, criterion.high.unit)) {
+      if (valueIn(criterion.low, criterion.high.unit) > criterion.high.value) {
+        ctx.addIssue({ code: "custom", path: ["high"], message: "the high bound is below the low bound" });
+      }
+    }
+  });
+export type Criterion = z.infer<typeof criterionSchema>;
+
+export type CriterionOutcome = "pass" | "fail" | NotMeasuredOutcome | { error: string; message: string };
+type NotMeasuredOutcome = typeof NOT_MEASURED;
+
+/** The measured values and derived figures a plan's criteria are judged against. */
+export type MetricValues = Partial<Record<MetricName, Figure>>;
+
+export function runMetricValues(measurements: RunMeasurements, craft?: CraftMasses): MetricValues {
+  return { ...measurements, ...runFigures(measurements, craft) };
+}
+
+function bounds(criterion: Criterion): Record<string, Quantity> {
+  switch (criterion.comparator) {
+    case "gte":
+    case "lte":
+      return { threshold: criterion.threshold };
+    case "eq":
+      return { threshold: criterion.threshold, tolerance: criterion.tolerance };
+    case "between":
+      return { low: criterion.low, high: criterion.high };
+  }
+}
+
+function mismatch(field: string, boundUnit: string, metric: string, metricValueUnit = metricUnit(metric as MetricName)) {
+  return `${field} is ${describeUnit(boundUnit)} but ${metric} is ${describeUnit(metricValueUnit)}`;
+}
+
+// Unit conversion in binary floating point can land a hair off (1 lb read back as
+// 453.59236999 g); a relative 1e-9 is far finer than any bench instrument (common practice).
+const closeEnough = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
+
+export function evaluateCriterion(criterion: Criterion, values: MetricValues): CriterionOutcome {
+  const measured = values[criterion.metric];
+  if (measured === undefined || measured === NOT_MEASURED) return NOT_MEASURED;
+  if (isFigureProblem(measured)) return measured;
+  if (!isQuantity(measured)) return NOT_MEASURED;
+
+  const inBoundUnits: Record<string, number> = {};
+  for (const [field, bound] of Object.entries(bounds(criterion))) {
+    if (!compatibleWith(bound.unit, measured.unit)) {
+      return { error: "incompatible_units", message: mismatch(field, bound.unit, criterion.metric, measured.unit) };
+    }
+    try {
+      inBoundUnits[field] = valueIn(measured, bound.unit);
+    } catch (error) {
+      if (error instanceof UnitError) return { error: error.code, message: error.message };
+      throw error;
+    }
+  }
+  return compare(criterion, inBoundUnits) ? "pass" : "fail";
+}
+
+function compare(criterion: Criterion, measuredIn: Record<string, number>): boolean {
+  const atLeast = (field: string, bound: number) => {
+    const v = measuredIn[field] ?? Number.NaN;
+    return v > bound || closeEnough(v, bound);
+  };
+  const atMost = (field: string, bound: number) => {
+    const v = measuredIn[field] ?? Number.NaN;
+    return v < bound || closeEnough(v, bound);
+  };
+  switch (criterion.comparator) {
+    case "gte":
+      return atLeast("threshold", criterion.threshold.value);
+    case "lte":
+      return atMost("threshold", criterion.threshold.value);
+    case "eq": {
+      const tolerance = valueIn(criterion.tolerance, criterion.threshold.unit);
+      return atLeast("threshold", criterion.threshold.value - tolerance) && atMost("threshold", criterion.threshold.value + tolerance);
+    }
+    case "between":
+      return atLeast("low", criterion.low.value) && atMost("high", criterion.high.value);
+  }
+}
+
+export type PlanVerdict = "pass" | "fail" | "incomplete";
+
+/**
+ * Pass only when every required criterion passes; fail when any required one fails; otherwise
+ * incomplete. A plan with no required criterion is incomplete: nothing in it decides the question.
+ */
+export function planVerdict(results: readonly { required: boolean; outcome: CriterionOutcome }[]): PlanVerdict {
+  const required = results.filter((result) => result.required);
+  if (required.some((result) => result.outcome === "fail")) return "fail";
+  if (required.length > 0 && required.every((result) => result.outcome === "pass")) return "pass";
+  return "incomplete";
+}
+
+export function evaluatePlan(criteria: readonly Criterion[], values: MetricValues) {
+  const results = criteria.map((criterion) => ({
+    criterion,
+    required: criterion.required,
+    outcome: evaluateCriterion(criterion, values),
+  }));
+  return { verdict: planVerdict(results), results };
+}

@@ -1,0 +1,130 @@
+import { z } from "zod";
+import {
+  type Dimension,
+  type Quantity,
+  RATIO_UNIT,
+  UnitError,
+  type UnitErrorCode,
+  quantityOfSchema,
+  valueIn,
+} from "./quantity";
+
+/** Standard acceleration of gravity in m/s², exact (3rd CGPM, 1901; NIST SP 811 (2008), Appendix B.8). */
+export const STANDARD_GRAVITY = 9.80665;
+
+export const measurementSymbols = ["mass", "voltage", "current", "thrust", "speed", "run_time"] as const;
+export type MeasurementSymbol = (typeof measurementSymbols)[number];
+
+export const measurementDimensions: Record<MeasurementSymbol, Dimension> = {
+  mass: "mass",
+  voltage: "voltage",
+  current: "current",
+  thrust: "force",
+  speed: "speed",
+  run_time: "time",
+};
+
+/** What one bench run measured; `mass` is the mass of the part under test. */
+export const runMeasurementsSchema = z.object({
+  mass: quantityOfSchema("mass", "mass").optional(),
+  voltage: quantityOfSchema("voltage", "voltage").optional(),
+  current: quantityOfSchema("current", "current").optional(),
+  thrust: quantityOfSchema("force", "thrust").optional(),
+  speed: quantityOfSchema("speed", "speed").optional(),
+  run_time: quantityOfSchema("time", "run time").optional(),
+});
+export type RunMeasurements = z.infer<typeof runMeasurementsSchema>;
+
+export const figureNames = ["electrical_power", "power_per_gram", "thrust_per_watt", "thrust_to_weight"] as const;
+export type FigureName = (typeof figureNames)[number];
+
+export const NOT_MEASURED = "not_measured";
+export type NotMeasured = typeof NOT_MEASURED;
+
+export type FigureProblem = { error: UnitErrorCode | "zero_divisor"; message: string };
+
+/** A derived figure: a quantity, "not measured" when an input is missing, or a problem to show. */
+export type Figure = Quantity | NotMeasured | FigureProblem;
+
+export function isQuantity(figure: Figure | undefined): figure is Quantity {
+  return typeof figure === "object" && "value" in figure;
+}
+
+export function isFigureProblem(figure: Figure | undefined): figure is FigureProblem {
+  return typeof figure === "object" && "error" in figure;
+}
+
+function computed(work: () => Figure): Figure {
+  try {
+    return work();
+  } catch (error) {
+    if (error instanceof UnitError) return { error: error.code, message: error.message };
+    throw error;
+  }
+}
+
+function zeroDivisor(figure: string, divisor: string): FigureProblem {
+  return { error: "zero_divisor", message: `${figure} has no value when ${divisor} is zero` };
+}
+
+/** For direct current P = V × I (BIPM SI Brochure: the watt is J/s and the volt is W/A). */
+export function electricalPower(voltage: Quantity | undefined, current: Quantity | undefined): Figure {
+  if (!voltage || !current) return NOT_MEASURED;
+  return computed(() => ({ value: valueIn(voltage, "V") * valueIn(current, "A"), unit: "W" }));
+}
+
+export function powerPerGram(power: Figure, partMass: Quantity | undefined): Figure {
+  if (!isQuantity(power)) return power;
+  if (!partMass) return NOT_MEASURED;
+  return computed(() => {
+    const grams = valueIn(partMass, "g");
+    if (grams === 0) return zeroDivisor("power per gram", "the part's mass");
+    return { value: valueIn(power, "W") / grams, unit: "W/g" };
+  });
+}
+
+export function thrustPerWatt(thrust: Quantity | undefined, power: Figure): Figure {
+  if (!thrust) return NOT_MEASURED;
+  if (!isQuantity(power)) return power;
+  return computed(() => {
+    const watts = valueIn(power, "W");
+    if (watts === 0) return zeroDivisor("thrust per watt", "the power");
+    return { value: valueIn(thrust, "gf") / watts, unit: "gf/W" };
+  });
+}
+
+/** All-up mass: the airframe plus every part on board; an unweighed part leaves it not measured. */
+export function allUpMass(airframe: Quantity | undefined, partsOnBoard: readonly (Quantity | undefined)[]): Figure {
+  if (!airframe || partsOnBoard.some((part) => !part)) return NOT_MEASURED;
+  return computed(() => {
+    const grams = [airframe, ...partsOnBoard].reduce((sum, part) => sum + (part ? valueIn(part, "g") : 0), 0);
+    return { value: grams, unit: "g" };
+  });
+}
+
+/**
+ * Thrust over weight, where weight = all-up mass × g_n. With thrust in gf and mass in g the
+ * g_n cancels, so 2000 gf lifting 1000 g is 2 whatever the unit each was written in.
+ */
+export function thrustToWeight(thrust: Quantity | undefined, craftMass: Figure): Figure {
+  if (!thrust) return NOT_MEASURED;
+  if (!isQuantity(craftMass)) return craftMass;
+  return computed(() => {
+    const weightNewtons = valueIn(craftMass, "kg") * STANDARD_GRAVITY;
+    if (weightNewtons === 0) return zeroDivisor("thrust-to-weight", "the all-up mass");
+    return { value: valueIn(thrust, "N") / weightNewtons, unit: RATIO_UNIT };
+  });
+}
+
+export type CraftMasses = { airframe?: Quantity; partsOnBoard: readonly (Quantity | undefined)[] };
+
+export function runFigures(measurements: RunMeasurements, craft?: CraftMasses): Record<FigureName, Figure> {
+  const power = electricalPower(measurements.voltage, measurements.current);
+  const craftMass = craft ? allUpMass(craft.airframe, craft.partsOnBoard) : NOT_MEASURED;
+  return {
+    electrical_power: power,
+    power_per_gram: powerPerGram(power, measurements.mass),
+    thrust_per_watt: thrustPerWatt(measurements.thrust, power),
+    thrust_to_weight: thrustToWeight(measurements.thrust, craftMass),
+  };
+}

@@ -1,0 +1,90 @@
+import type { Server } from "node:http";
+import request from "supertest";
+import { createApp, type AppDeps } from "../../server/app";
+import { readEnv } from "../../server/env";
+import { startJobs, type Jobs } from "../../server/jobs/queue";
+import { createMailer } from "../../server/mail/mailer";
+import type { SignInLimits } from "../../server/auth/rate-limits";
+import { CSRF_HEADER } from "../../server/http/csrf";
+import { createTestDatabase, type TestDatabase } from "./database";
+import { testEnv } from "./test-env";
+
+export interface TestApp {
+  server: Server;
+  database: TestDatabase;
+  db: TestDatabase["db"];
+  deps: AppDeps;
+  jobs: Jobs;
+  /** A visitor with its own cookie jar, holding a CSRF token. */
+  visitor(): Promise<Visitor>;
+  /** A visitor already signed in as this person. */
+  signedIn(person: { email: string; password: string }): Promise<Visitor>;
+  close(): Promise<void>;
+}
+
+export interface Visitor {
+  agent: request.Agent;
+  csrf: string;
+  get(path: string): request.Test;
+  send(method: "post" | "put" | "patch" | "delete", path: string, body?: unknown): request.Test;
+  refreshCsrf(): Promise<void>;
+}
+
+export async function startTestApp(options: { signInLimits?: SignInLimits } = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const env = readEnv({
+    NODE_ENV: "test",
+    DATABASE_URL: database.url,
+    SESSION_SECRET: "test-secret-test-secret-test-secret-0123",
+    SMTP_PORT: String(testEnv.smtpPort),
+    APP_URL: "http://kerf.test",
+  });
+  const mailer = createMailer(env);
+  const jobs = await startJobs({ databaseUrl: database.url, mailer, runWorkers: true, pollSeconds: 0.5 });
+  const deps: AppDeps = { env, database, mailer, jobs, signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } };
+  const app = createApp(deps);
+  const server = await new Promise<Server>((resolve) => {
+    const s = app.listen(0, "127.0.0.1", () => resolve(s));
+  });
+
+  async function visitor(): Promise<Visitor> {
+    const agent = request.agent(server);
+    const v: Visitor = {
+      agent,
+      csrf: "",
+      get: (path) => agent.get(path),
+      send: (method, path, body) => {
+        const test = agent[method](path).set(CSRF_HEADER, v.csrf);
+        return body === undefined ? test : test.send(body as object);
+      },
+      async refreshCsrf() {
+        v.csrf = (await agent.get("/api/auth/me").expect(200)).body.csrfToken;
+      },
+    };
+    await v.refreshCsrf();
+    return v;
+  }
+
+  return {
+    server,
+    database,
+    db: database.db,
+    deps,
+    jobs,
+    visitor,
+    async signedIn(person) {
+      const v = await visitor();
+      const response = await v.send("post", "/api/auth/sign-in", { email: person.email, password: person.password });
+      if (response.status !== 200) throw new Error(`sign-in failed: ${response.status} ${JSON.stringify(response.body)}`);
+      v.csrf = response.body.csrfToken;
+      return v;
+    },
+    async close() {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await jobs.stop();
+      mailer.close();
+      await database.drop();
+    },
+  };
+}

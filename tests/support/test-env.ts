@@ -1,0 +1,24 @@
+/**
+ * What `npm test` hands to every test process (dev-services/test-run.ts sets these): the test
+ * cluster, the migrated template database, and the mail stand-in.
+ */
+function required(name: string): string {
+  const value = process.env[name];
+  if (!value) throw new Error(`${name} is not set: run the tests through \`npm test\`, which starts the test services.`);
+  return value;
+}
+
+export const testEnv = {
+  get clusterUrl() {
+    return required("KERF_TEST_CLUSTER_URL");
+  },
+  get templateDatabase() {
+    return required("KERF_TEST_TEMPLATE_DB");
+  },
+  get smtpPort() {
+    return Number(required("KERF_TEST_SMTP_PORT"));
+  },
+  get mailWebUrl() {
+    return required("KERF_TEST_MAIL_WEB_URL");
+  },
+};
