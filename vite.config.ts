@@ -6,7 +6,7 @@ import tailwindcss from "@tailwindcss/vite";
 export default defineConfig({
   plugins: [react(), tailwindcss()],
   resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
-  build: { outDir: "dist/client", emptyOutDir: true },
+  build: { outDir: "dist/client", emptyOutDir: true, chunkSizeWarningLimit: 900 },
   server: {
     host: "127.0.0.1",
     port: 5173,

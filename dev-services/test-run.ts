@@ -1,5 +1,5 @@
 import { spawn } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, realpathSync, rmSync } from "node:fs";
 import path from "node:path";
 import PgBoss from "pg-boss";
 import { migrateDatabase } from "../server/db/migrate";
@@ -13,7 +13,10 @@ import { freePort, run, stopChild, waitForHttp } from "./processes";
  * the unit and API tests, the client build and the browser tests, each against its own database.
  * The demo cluster of `npm start` is never touched.
  */
-const outputDir = path.join(stateDir, "test-output");
+// `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
+const filters = process.argv.slice(2);
+// Each run has its own cluster and output, so two runs at once (two terminals, helpers) never collide.
+const outputDir = path.join(stateDir, filters.length === 0 ? "test-output" : `test-output-${process.pid}`);
 const bin = (name: string) => path.join(repoRoot, "node_modules", ".bin", name);
 
 interface Step {
@@ -32,8 +35,14 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
 
 async function preparePostgres() {
   const port = await freePort();
-  const cluster = startCluster({ dataDir: path.join(stateDir, "pg-test"), port, fresh: true });
-  stops.push(() => cluster.stop());
+  removeAbandonedClusters();
+  const dataDir = path.join(stateDir, `pg-test-${process.pid}`);
+  const cluster = startCluster({ dataDir, port, fresh: true });
+  stops.push(() => {
+    cluster.stop();
+    rmSync(cluster.dataDir, { recursive: true, force: true });
+    rmSync(dataDir, { force: true });
+  });
   const templateUrl = await ensureDatabase(cluster, "kerf_template");
   await migrateDatabase(templateUrl);
   // pg-boss installs its own schema at first start; doing it once here lets every copy skip it.
@@ -41,6 +50,28 @@ async function preparePostgres() {
   await boss.start();
   await boss.stop({ graceful: false, wait: true });
   return { cluster, clusterUrl: `postgres://kerf@127.0.0.1:${port}` };
+}
+
+/** Clusters left by runs that were killed; their process id no longer exists. */
+function removeAbandonedClusters(): void {
+  if (!existsSync(stateDir)) return;
+  for (const name of readdirSync(stateDir)) {
+    const pid = Number(/^pg-test-(\d+)$/.exec(name)?.[1]);
+    if (!pid || processAlive(pid)) continue;
+    const dir = path.join(stateDir, name);
+    const target = lstatSync(dir).isSymbolicLink() ? realpathSync(dir) : dir;
+    rmSync(target, { recursive: true, force: true });
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+function processAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 function countVitest(): { passed: number; failed: number } {
@@ -89,8 +120,6 @@ async function main(): Promise<number> {
   rmSync(outputDir, { recursive: true, force: true });
   mkdirSync(outputDir, { recursive: true });
 
-  // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
-  const filters = process.argv.slice(2);
   if (filters.length === 0) {
     await step("type check", bin("tsc"), ["--noEmit", "-p", "tsconfig.json"]);
     await step("lint", bin("eslint"), ["--max-warnings", "0", "."]);
@@ -135,5 +164,6 @@ try {
   console.error(`[test] ${(error as Error).stack ?? error}`);
 } finally {
   for (const stop of stops.reverse()) await stop();
+  if (filters.length > 0) rmSync(outputDir, { recursive: true, force: true });
 }
 process.exit(code);

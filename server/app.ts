@@ -61,12 +61,10 @@ export function createApp(deps: AppDeps): Express {
 
   const passport = configurePassport(database.db);
   const api = express.Router();
-  api.use(express.json({ limit: "100kb", strict: true }));
-  api.use(sessionMiddleware(database.pool, env.SESSION_SECRET));
-  api.use(passport.session());
-  api.use(csrfProtection);
+  // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
+  api.use("/api", express.json({ limit: "100kb", strict: true }), sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);
   mountRoutes(api, apiRoutes(deps), guardsFor(database.db));
-  api.use(apiNotFound);
+  api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));
   app.use(errorMiddleware);

@@ -2,6 +2,8 @@ import { z } from "zod";
 import {
   type Figure,
   type FigureName,
+  type FigureProblem,
+  type NotMeasured,
   type MeasurementSymbol,
   type RunMeasurements,
   type CraftMasses,
@@ -16,7 +18,6 @@ import {
 import {
   type Quantity,
   RATIO_UNIT,
-  UnitError,
   areCompatible,
   describeUnit,
   isKnownUnit,
@@ -62,9 +63,12 @@ export const criterionSchema = z
     z.object({ ...criterionBase, comparator: z.literal("between"), low: quantitySchema, high: quantitySchema }),
   ])
   .superRefine((criterion, ctx) => {
+    const naturalUnit = metricUnit(criterion.metric);
     for (const [field, bound] of Object.entries(bounds(criterion))) {
-      if (!compatibleWith(bound.unit, metricUnit(criterion.metric))) {
-        ctx.addIssue({ code: "custom", path: [field, "unit"], message: mismatch(field, bound.unit, criterion.metric) });
+      // An unknown unit already has its own issue from quantitySchema.
+      if (isKnownUnit(bound.unit) && !compatibleWith(bound.unit, naturalUnit)) {
+        const message = mismatch(field, bound.unit, criterion.metric, naturalUnit);
+        ctx.addIssue({ code: "custom", path: [field, "unit"], message });
       }
     }
     if (criterion.comparator === "between" && compatibleWith(criterion.low.unit, criterion.high.unit)) {
@@ -75,8 +79,7 @@ export const criterionSchema = z
   });
 export type Criterion = z.infer<typeof criterionSchema>;
 
-export type CriterionOutcome = "pass" | "fail" | NotMeasuredOutcome | { error: string; message: string };
-type NotMeasuredOutcome = typeof NOT_MEASURED;
+export type CriterionOutcome = "pass" | "fail" | NotMeasured | FigureProblem;
 
 /** The measured values and derived figures a plan's criteria are judged against. */
 export type MetricValues = Partial<Record<MetricName, Figure>>;
@@ -97,12 +100,13 @@ function bounds(criterion: Criterion): Record<string, Quantity> {
   }
 }
 
-function mismatch(field: string, boundUnit: string, metric: string, metricValueUnit = metricUnit(metric as MetricName)) {
-  return `${field} is ${describeUnit(boundUnit)} but ${metric} is ${describeUnit(metricValueUnit)}`;
+function mismatch(field: string, boundUnit: string, metric: MetricName, measuredUnit: string) {
+  return `${field} is ${describeUnit(boundUnit)} but ${metric} is ${describeUnit(measuredUnit)}`;
 }
 
-// Unit conversion in binary floating point can land a hair off (1 lb read back as
-// 453.59236999 g); a relative 1e-9 is far finer than any bench instrument (common practice).
+// A value converted between units in binary floating point can land a hair off the exact
+// amount, so 8 oz written as grams must still meet "at most 8 oz". A relative 1e-9 is far
+// finer than any bench instrument reads (common practice for comparing floating-point numbers).
 const closeEnough = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
 
 export function evaluateCriterion(criterion: Criterion, values: MetricValues): CriterionOutcome {
@@ -116,12 +120,7 @@ export function evaluateCriterion(criterion: Criterion, values: MetricValues): C
     if (!compatibleWith(bound.unit, measured.unit)) {
       return { error: "incompatible_units", message: mismatch(field, bound.unit, criterion.metric, measured.unit) };
     }
-    try {
-      inBoundUnits[field] = valueIn(measured, bound.unit);
-    } catch (error) {
-      if (error instanceof UnitError) return { error: error.code, message: error.message };
-      throw error;
-    }
+    inBoundUnits[field] = valueIn(measured, bound.unit);
   }
   return compare(criterion, inBoundUnits) ? "pass" : "fail";
 }
@@ -141,8 +140,9 @@ function compare(criterion: Criterion, measuredIn: Record<string, number>): bool
     case "lte":
       return atMost("threshold", criterion.threshold.value);
     case "eq": {
+      const { value } = criterion.threshold;
       const tolerance = valueIn(criterion.tolerance, criterion.threshold.unit);
-      return atLeast("threshold", criterion.threshold.value - tolerance) && atMost("threshold", criterion.threshold.value + tolerance);
+      return atLeast("threshold", value - tolerance) && atMost("threshold", value + tolerance);
     }
     case "between":
       return atLeast("low", criterion.low.value) && atMost("high", criterion.high.value);

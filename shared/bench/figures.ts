@@ -63,11 +63,14 @@ function computed(work: () => Figure): Figure {
   }
 }
 
-function zeroDivisor(figure: string, divisor: string): FigureProblem {
-  return { error: "zero_divisor", message: `${figure} has no value when ${divisor} is zero` };
+/** A quotient, or a problem when the divisor is zero (or so near it that the result overflows). */
+function quotient(figure: string, divisorLabel: string, numerator: number, divisor: number, unit: string): Figure {
+  const value = numerator / divisor;
+  if (Number.isFinite(value)) return { value, unit };
+  return { error: "zero_divisor", message: `${figure} has no value when ${divisorLabel} is zero` };
 }
 
-/** For direct current P = V × I (BIPM SI Brochure: the watt is J/s and the volt is W/A). */
+/** For direct current P = V × I (BIPM SI Brochure, 9th ed., section 2.3.4, Table 4: W = J/s, V = W/A). */
 export function electricalPower(voltage: Quantity | undefined, current: Quantity | undefined): Figure {
   if (!voltage || !current) return NOT_MEASURED;
   return computed(() => ({ value: valueIn(voltage, "V") * valueIn(current, "A"), unit: "W" }));
@@ -76,21 +79,15 @@ export function electricalPower(voltage: Quantity | undefined, current: Quantity
 export function powerPerGram(power: Figure, partMass: Quantity | undefined): Figure {
   if (!isQuantity(power)) return power;
   if (!partMass) return NOT_MEASURED;
-  return computed(() => {
-    const grams = valueIn(partMass, "g");
-    if (grams === 0) return zeroDivisor("power per gram", "the part's mass");
-    return { value: valueIn(power, "W") / grams, unit: "W/g" };
-  });
+  return computed(() =>
+    quotient("power per gram", "the part's mass", valueIn(power, "W"), valueIn(partMass, "g"), "W/g"),
+  );
 }
 
 export function thrustPerWatt(thrust: Quantity | undefined, power: Figure): Figure {
   if (!thrust) return NOT_MEASURED;
   if (!isQuantity(power)) return power;
-  return computed(() => {
-    const watts = valueIn(power, "W");
-    if (watts === 0) return zeroDivisor("thrust per watt", "the power");
-    return { value: valueIn(thrust, "gf") / watts, unit: "gf/W" };
-  });
+  return computed(() => quotient("thrust per watt", "the power", valueIn(thrust, "gf"), valueIn(power, "W"), "gf/W"));
 }
 
 /** All-up mass: the airframe plus every part on board; an unweighed part leaves it not measured. */
@@ -111,8 +108,7 @@ export function thrustToWeight(thrust: Quantity | undefined, craftMass: Figure):
   if (!isQuantity(craftMass)) return craftMass;
   return computed(() => {
     const weightNewtons = valueIn(craftMass, "kg") * STANDARD_GRAVITY;
-    if (weightNewtons === 0) return zeroDivisor("thrust-to-weight", "the all-up mass");
-    return { value: valueIn(thrust, "N") / weightNewtons, unit: RATIO_UNIT };
+    return quotient("thrust-to-weight", "the all-up mass", valueIn(thrust, "N"), weightNewtons, RATIO_UNIT);
   });
 }
 

@@ -1,8 +1,10 @@
-import { create, createUnitDependencies, unitDependencies } from "mathjs";
+import { type FactoryFunctionMap, create, createUnitDependencies, unitDependencies } from "mathjs";
 import { z } from "zod";
 
 // A private mathjs instance, so the units defined here never leak into anyone else's mathjs.
-const benchMath = create({ unitDependencies, createUnitDependencies });
+// The cast: mathjs types its dependency maps as a Record, which noUncheckedIndexedAccess reads
+// as possibly undefined; both exist at run time.
+const benchMath = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
 
 // Gram-force is not built into mathjs (kilogram-force is). 1 gf = g_n × 1 g with
 // g_n = 9.80665 m/s² exact (3rd CGPM, 1901; NIST SP 811 (2008), Appendix B.8).

@@ -1,0 +1,56 @@
+import { createBrowserRouter, Link } from "react-router-dom";
+import { AuthCard } from "../components/AuthCard";
+import { SignInPage } from "../features/auth/components/SignInPage";
+import { SignUpPage } from "../features/auth/components/SignUpPage";
+import { AcceptInvitePage } from "../features/channels/components/AcceptInvitePage";
+import { MembersPage } from "../features/channels/components/MembersPage";
+import { NewChannelPage } from "../features/channels/components/NewChannelPage";
+import { EpisodePage } from "../features/slate/components/EpisodePage";
+import { SlatePage } from "../features/slate/components/SlatePage";
+import { HomeRedirect, RedirectIfSignedIn, RequireMembership, RequireSignedIn } from "./guards";
+import { AppShell } from "./layouts/AppShell";
+
+function NotFound() {
+  return (
+    <AuthCard title="Nothing here">
+      <p className="mb-4 text-graphite-700">That page doesn't exist.</p>
+      <Link className="font-semibold text-rust-600 underline" to="/">
+        Back to Kerf
+      </Link>
+    </AuthCard>
+  );
+}
+
+export const router = createBrowserRouter([
+  {
+    element: <RedirectIfSignedIn />,
+    children: [
+      { path: "/sign-in", element: <SignInPage /> },
+      { path: "/sign-up", element: <SignUpPage /> },
+    ],
+  },
+  { path: "/invite/:token", element: <AcceptInvitePage /> },
+  {
+    element: <RequireSignedIn />,
+    children: [
+      { path: "/", element: <HomeRedirect /> },
+      {
+        element: <AppShell />,
+        children: [
+          { path: "/channels/new", element: <NewChannelPage /> },
+          {
+            path: "/c/:channelId",
+            element: <RequireMembership />,
+            children: [
+              { index: true, element: <HomeRedirect /> },
+              { path: "slate", element: <SlatePage /> },
+              { path: "episodes/:episodeId", element: <EpisodePage /> },
+              { path: "members", element: <MembersPage /> },
+            ],
+          },
+        ],
+      },
+    ],
+  },
+  { path: "*", element: <NotFound /> },
+]);

@@ -1,0 +1,42 @@
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Link, useNavigate, useSearchParams } from "react-router-dom";
+import { signInSchema, type SignInInput } from "@shared/auth/schemas";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { TextField } from "../../../components/TextField";
+import { applyServerErrors } from "../../../lib/forms";
+import { useSignIn } from "../api/session-mutations";
+import { AuthCard } from "../../../components/AuthCard";
+
+export function SignInPage() {
+  const navigate = useNavigate();
+  const [params] = useSearchParams();
+  const signIn = useSignIn();
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: "", password: "" } });
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setFormError(null);
+    try {
+      await signIn.mutateAsync(values);
+      navigate(params.get("next") ?? "/", { replace: true });
+    } catch (error) {
+      setFormError(applyServerErrors(error, form.setError, ["email", "password"]));
+    }
+  });
+
+  return (
+    <AuthCard title="Sign in" footer={<>New here? <Link className="font-semibold text-rust-600 underline" to="/sign-up">Start a channel</Link></>}>
+      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+        {formError && <Notice kind="error">{formError}</Notice>}
+        <TextField label="E-mail" type="email" autoComplete="email" autoFocus {...form.register("email")} error={form.formState.errors.email?.message} />
+        <TextField label="Password" type="password" autoComplete="current-password" {...form.register("password")} error={form.formState.errors.password?.message} />
+        <Button type="submit" busy={signIn.isPending}>
+          Sign in
+        </Button>
+      </form>
+    </AuthCard>
+  );
+}

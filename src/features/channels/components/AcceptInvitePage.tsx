@@ -1,0 +1,118 @@
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Link, useNavigate, useParams } from "react-router-dom";
+import { z } from "zod";
+import { roleLabels } from "@shared/access/roles";
+import { passwordSchema, personNameSchema } from "@shared/auth/schemas";
+import type { InvitationPreview } from "@shared/channels/schemas";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { Loading } from "../../../components/States";
+import { TextField } from "../../../components/TextField";
+import { ApiError } from "../../../lib/api-client";
+import { applyServerErrors } from "../../../lib/forms";
+import { useMe } from "../../../lib/session";
+import { AuthCard } from "../../../components/AuthCard";
+import { useAcceptInvitation, useInvitation } from "../api/invitation";
+
+const newcomerSchema = z.object({ name: personNameSchema, password: passwordSchema });
+type Newcomer = z.infer<typeof newcomerSchema>;
+
+const closedText: Record<Exclude<InvitationPreview["state"], "open">, string> = {
+  accepted: "This invitation has already been used.",
+  expired: "This invitation has expired.",
+  revoked: "This invitation was withdrawn.",
+};
+
+export function AcceptInvitePage() {
+  const { token = "" } = useParams();
+  const invitation = useInvitation(token);
+  const me = useMe();
+
+  if (invitation.isPending || me.isPending) return <AuthCard title="Invitation"><Loading /></AuthCard>;
+  if (invitation.isError) {
+    const missing = invitation.error instanceof ApiError && invitation.error.status === 404;
+    return (
+      <AuthCard title="Invitation">
+        <Notice kind="error">{missing ? "This invitation link is not valid. Check that you copied all of it, or ask for a new one." : invitation.error.message}</Notice>
+      </AuthCard>
+    );
+  }
+  const preview = invitation.data;
+  if (preview.state !== "open") {
+    return (
+      <AuthCard title="Invitation" footer={<Link className="font-semibold text-rust-600 underline" to="/sign-in">Go to sign-in</Link>}>
+        <Notice kind="error">{closedText[preview.state]} Ask the owner of {preview.channelName} for a new one.</Notice>
+      </AuthCard>
+    );
+  }
+  return (
+    <AuthCard title={`Join ${preview.channelName}`}>
+      <p className="mb-4 text-graphite-700">
+        {preview.invitedBy} invited <strong>{preview.email}</strong> to join as <strong>{roleLabels[preview.role].toLowerCase()}</strong>.
+      </p>
+      {me.data?.user ? <JoinAsSignedIn token={token} name={me.data.user.name} /> : preview.hasAccount ? <SignInFirst token={token} /> : <JoinAsNewcomer token={token} />}
+    </AuthCard>
+  );
+}
+
+function useJoin(token: string) {
+  const navigate = useNavigate();
+  const accept = useAcceptInvitation(token);
+  return {
+    accept,
+    join: async (input: Newcomer | Record<string, never>) => {
+      const { channelId } = await accept.mutateAsync(input);
+      navigate(`/c/${channelId}/slate`, { replace: true });
+    },
+  };
+}
+
+function JoinAsSignedIn({ token, name }: { token: string; name: string }) {
+  const { accept, join } = useJoin(token);
+  return (
+    <div className="flex flex-col gap-3">
+      {accept.isError && <Notice kind="error">{accept.error.message}</Notice>}
+      <Button busy={accept.isPending} onClick={() => void join({}).catch(() => undefined)}>
+        Join as {name}
+      </Button>
+    </div>
+  );
+}
+
+function SignInFirst({ token }: { token: string }) {
+  return (
+    <Notice>
+      An account with this address exists.{" "}
+      <Link className="font-semibold underline" to={`/sign-in?next=${encodeURIComponent(`/invite/${token}`)}`}>
+        Sign in
+      </Link>{" "}
+      and you'll come back here to join.
+    </Notice>
+  );
+}
+
+function JoinAsNewcomer({ token }: { token: string }) {
+  const { accept, join } = useJoin(token);
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<Newcomer>({ resolver: zodResolver(newcomerSchema), defaultValues: { name: "", password: "" } });
+  const onSubmit = form.handleSubmit(async (values) => {
+    setFormError(null);
+    try {
+      await join(values);
+    } catch (error) {
+      setFormError(applyServerErrors(error, form.setError, ["name", "password"]));
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      {formError && <Notice kind="error">{formError}</Notice>}
+      <TextField label="Your name" autoComplete="name" autoFocus {...form.register("name")} error={form.formState.errors.name?.message} />
+      <TextField label="Choose a password" type="password" autoComplete="new-password" hint="At least 10 characters." {...form.register("password")} error={form.formState.errors.password?.message} />
+      <Button type="submit" busy={accept.isPending}>
+        Create account and join
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,36 @@
+import { createHash, randomBytes, randomUUID } from "node:crypto";
+import { addDays } from "date-fns";
+import type { Role } from "../../shared/access/roles";
+import type { Database } from "../../server/db/client";
+import { invitations } from "../../server/db/schema/accounts";
+
+/** An address nobody else in the run uses, so tests never read each other's mail or rows. */
+export function uniqueEmail(label = "person"): string {
+  return `${label}-${randomUUID().slice(0, 8)}@example.com`;
+}
+
+export const sha256Hex = (text: string) => createHash("sha256").update(text).digest("hex");
+
+/**
+ * An open invitation made straight in the database, with the link token the mail would carry.
+ * Only the token's SHA-256 is stored, as the server does.
+ */
+export async function createInvitation(
+  db: Database,
+  input: { channelId: string; invitedBy: { id: string }; email?: string; role?: Role; expiresAt?: Date },
+) {
+  const token = randomBytes(32).toString("base64url");
+  const [row] = await db
+    .insert(invitations)
+    .values({
+      channelId: input.channelId,
+      email: input.email ?? uniqueEmail("invitee"),
+      role: input.role ?? "crew",
+      tokenHash: sha256Hex(token),
+      invitedBy: input.invitedBy.id,
+      expiresAt: input.expiresAt ?? addDays(new Date(), 7),
+    })
+    .returning();
+  if (!row) throw new Error("invitation insert returned nothing");
+  return { ...row, token };
+}
