@@ -132,6 +132,13 @@ describe("labels that do not belong to the clip", () => {
     expect(checkTimecode("00:00:00;00", { rate: frameRates["23.976"], dropFrame: true })).toMatchObject({ ok: false, code: "unsupported_format" });
   });
 
+  it("rejects a rate Kerf has no timecode for", () => {
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_invalid_rate_to_timecode_functions: 29.98 has no timecode.
+    const oddRate = { rate: { numerator: 2998, denominator: 100 }, dropFrame: false };
+    expect(checkTimecode("00:00:01:00", oddRate)).toMatchObject({ ok: false, code: "unsupported_format" });
+    expect(() => formatTimecode(100, oddRate)).toThrow(TimecodeError);
+  });
+
   it("rejects a separator that does not match the clip's form", () => {
     // check-values.md: drop-frame is written with ';' before the frames, non-drop-frame with ':'.
     expect(checkTimecode("00:10:00:00", df("29.97"))).toMatchObject({ ok: false, code: "wrong_separator" });

@@ -1,7 +1,15 @@
-import { type FrameRate, type TimecodeFormat, describeFormat, labelsDroppedPerMinute, labelsPerSecond } from "./rates";
+import {
+  type FrameRate,
+  type TimecodeFormat,
+  describeFormat,
+  frameRateName,
+  labelsDroppedPerMinute,
+  labelsPerSecond,
+} from "./rates";
 
 // Kerf counts frames from 0: frame 0 of a clip is labelled 00:00:00:00 (some libraries count from 1).
-// Labels run 00:00:00:00 to 23:59:59:FF, the 24-hour range of SMPTE ST 12-1.
+// Labels run 00:00:00:00 to 23:59:59:FF, the 24-hour range of SMPTE ST 12-1 (from memory: the
+// standard's text is not public).
 
 export type TimecodeErrorCode =
   | "malformed"
@@ -25,6 +33,9 @@ export class TimecodeError extends Error {
 type Counting = { perSecond: number; dropped: number; perMinute: number; perTenMinutes: number; perDay: number };
 
 function counting(format: TimecodeFormat): Counting {
+  if (frameRateName(format.rate) === undefined) {
+    throw new TimecodeError("unsupported_format", `Kerf has no timecode for ${describeFormat(format)}`);
+  }
   const perSecond = labelsPerSecond(format.rate);
   const droppedAtThisRate = labelsDroppedPerMinute(format.rate);
   if (format.dropFrame && droppedAtThisRate === undefined) {
@@ -52,12 +63,10 @@ export function parseTimecode(label: string, format: TimecodeFormat): number {
       `"${label}" is not a timecode: write HH:MM:SS:FF, or HH:MM:SS;FF for drop-frame`,
     );
   }
-  const [hours, minutes, seconds, frames] = [match[1], match[2], match[3], match[5]].map(Number) as [
-    number,
-    number,
-    number,
-    number,
-  ];
+  const hours = Number(match[1]);
+  const minutes = Number(match[2]);
+  const seconds = Number(match[3]);
+  const frames = Number(match[5]);
   const writtenAsDropFrame = match[4] === ";";
 
   if (writtenAsDropFrame !== format.dropFrame) {

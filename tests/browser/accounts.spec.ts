@@ -35,7 +35,7 @@ test("a newcomer starts a channel, signs out and signs back in", async ({ page }
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
-  await expect(page.getByLabel("Channel")).toHaveValue(/.+/);
+  await expect(page.getByLabel("Channel", { exact: true })).toHaveValue(/.+/);
 });
 
 test("an owner invites a crew member, who joins from the e-mailed link", async ({ page, browser }) => {
@@ -81,5 +81,5 @@ test("an owner invites a crew member, who joins from the e-mailed link", async (
   await crewContext.close();
 
   await page.reload();
-  await expect(page.getByText("Mina Sato")).toBeVisible();
+  await expect(page.getByLabel("Role of Mina Sato")).toHaveValue("crew");
 });
