@@ -1,5 +1,5 @@
 import { connectDatabase } from "../server/db/client";
-import { isEmpty, seedDemo } from "./demo";
+import { isEmpty, seedDemo } from "./demo/channel";
 
 const url = process.env.DATABASE_URL;
 if (!url) throw new Error("Set DATABASE_URL (npm start sets it for the local cluster).");

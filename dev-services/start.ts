@@ -3,7 +3,7 @@ import { connectDatabase } from "../server/db/client";
 import { migrateDatabase } from "../server/db/migrate";
 import { readEnv } from "../server/env";
 import { startServer } from "../server/index";
-import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo";
+import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
 import { startMailCatcher } from "./mail";
 import { stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";

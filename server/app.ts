@@ -11,6 +11,9 @@ import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
 import { channelRoutes } from "./channels/channels.router";
 import { healthRoutes } from "./health/health.router";
 import { slateRoutes } from "./slate/slate.router";
+import { benchRoutes } from "./bench/bench.router";
+import { rushesRoutes } from "./rushes/rushes.router";
+import { sponsorsRoutes } from "./sponsors/sponsors.router";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
@@ -33,6 +36,9 @@ export function apiRoutes(deps: AppDeps): RouteSpec[] {
     ...authRoutes(db, deps.signInLimits ?? defaultSignInLimits),
     ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
     ...slateRoutes(db),
+    ...benchRoutes(deps),
+    ...rushesRoutes(deps),
+    ...sponsorsRoutes(deps),
   ];
 }
 

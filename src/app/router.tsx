@@ -7,6 +7,11 @@ import { MembersPage } from "../features/channels/components/MembersPage";
 import { NewChannelPage } from "../features/channels/components/NewChannelPage";
 import { EpisodePage } from "../features/slate/components/EpisodePage";
 import { SlatePage } from "../features/slate/components/SlatePage";
+import { ShelfPage } from "../features/bench/components/ShelfPage";
+import { RushesPage } from "../features/rushes/components/RushesPage";
+import { DeskPage } from "../features/sponsors/components/DeskPage";
+import { SponsorsPage } from "../features/sponsors/components/SponsorsPage";
+import { episodeSections } from "./episode-sections";
 import { HomeRedirect, RedirectIfSignedIn, RequireMembership, RequireSignedIn } from "./guards";
 import { AppShell } from "./layouts/AppShell";
 
@@ -44,8 +49,12 @@ export const router = createBrowserRouter([
             children: [
               { index: true, element: <HomeRedirect /> },
               { path: "slate", element: <SlatePage /> },
-              { path: "episodes/:episodeId", element: <EpisodePage /> },
+              { path: "episodes/:episodeId", element: <EpisodePage sections={episodeSections} /> },
               { path: "members", element: <MembersPage /> },
+              { path: "shelf", element: <ShelfPage /> },
+              { path: "rushes", element: <RushesPage /> },
+              { path: "desk", element: <DeskPage /> },
+              { path: "sponsors", element: <SponsorsPage /> },
             ],
           },
         ],

@@ -4,6 +4,7 @@ import { Wordmark } from "../../components/Wordmark";
 import { useCurrentChannel, useMe } from "../../lib/session";
 import { useSignOut } from "../../features/auth/api/session-mutations";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
+import { channelNav } from "../nav";
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
@@ -25,15 +26,14 @@ export function AppShell() {
           <Wordmark className="text-lg" />
           <ChannelSwitcher />
           {channel && (
-            <nav aria-label="Channel pages" className="flex gap-1">
-              <NavLink to={`/c/${channel.channelId}/slate`} className={navClass}>
-                Slate
-              </NavLink>
-              {roleMay(channel.role, "members", "R") && (
-                <NavLink to={`/c/${channel.channelId}/members`} className={navClass}>
-                  Members
-                </NavLink>
-              )}
+            <nav aria-label="Channel pages" className="flex flex-wrap gap-1">
+              {channelNav
+                .filter((entry) => roleMay(channel.role, entry.area, "R"))
+                .map((entry) => (
+                  <NavLink key={entry.path} to={`/c/${channel.channelId}/${entry.path}`} className={navClass}>
+                    {entry.label}
+                  </NavLink>
+                ))}
             </nav>
           )}
           <div className="ml-auto flex items-center gap-3 text-sm">

@@ -4,15 +4,16 @@ import { PageHeader } from "../../../components/PageHeader";
 import { LoadError, Loading } from "../../../components/States";
 import { useCurrentChannel } from "../../../lib/session";
 import { useEpisode } from "../api/get-episode";
+import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
 
-export function EpisodePage() {
+export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
   const channel = useCurrentChannel();
   const { episodeId = "" } = useParams();
   if (!channel) return <Loading />;
-  return <Episode channelId={channel.channelId} episodeId={episodeId} />;
+  return <Episode channelId={channel.channelId} episodeId={episodeId} role={channel.role} sections={sections} />;
 }
 
-function Episode({ channelId, episodeId }: { channelId: string; episodeId: string }) {
+function Episode({ channelId, episodeId, role, sections }: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   const episode = useEpisode(channelId, episodeId);
   if (episode.isPending) return <Loading label="Loading the episode…" />;
   if (episode.isError) return <LoadError error={episode.error} retry={() => void episode.refetch()} />;
@@ -31,6 +32,14 @@ function Episode({ channelId, episodeId }: { channelId: string; episodeId: strin
         <dt className="text-graphite-500">Target publish date</dt>
         <dd>{e.targetPublishDate ?? "Not set"}</dd>
       </dl>
+      {sections.map(({ id, title, Component }) => (
+        <section key={id} id={id} aria-labelledby={`${id}-heading`} className="mt-8">
+          <h2 id={`${id}-heading`} className="mb-3 text-lg font-semibold">
+            {title}
+          </h2>
+          <Component channelId={channelId} episodeId={episodeId} role={role} />
+        </section>
+      ))}
     </article>
   );
 }

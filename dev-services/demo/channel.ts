@@ -1,11 +1,18 @@
 import { addDays, formatISO } from "date-fns";
 import { generateNKeysBetween } from "fractional-indexing";
 import { sql } from "drizzle-orm";
-import type { Role } from "../shared/access/roles";
-import { stages, type Stage } from "../shared/slate/stages";
-import type { Database } from "../server/db/client";
-import { addMember, createChannel, createUser } from "../tests/factories/accounts";
-import { createEpisode } from "../tests/factories/episodes";
+import type { Role } from "../../shared/access/roles";
+import { stages, type Stage } from "../../shared/slate/stages";
+import type { Database } from "../../server/db/client";
+import { addMember, createChannel, createUser } from "../../tests/factories/accounts";
+import { createEpisode } from "../../tests/factories/episodes";
+import { seedSlateDemo } from "./slate";
+import { seedBenchDemo } from "./bench";
+import { seedRushesDemo } from "./rushes";
+import { seedSponsorsDemo } from "./sponsors";
+
+/** Each feature's demo rows, in the order they depend on each other. */
+const featureDemos = [seedSlateDemo, seedBenchDemo, seedRushesDemo, seedSponsorsDemo];
 
 /** Demo-only sign-ins, printed by `npm start` and listed in the README. Never use them anywhere real. */
 export const DEMO_PASSWORD = "kerf-demo-only";
@@ -40,8 +47,18 @@ export async function isEmpty(db: Database): Promise<boolean> {
   return (result.rows[0] as { count: number }).count === 0;
 }
 
+/** What the feature demos build on: the channel, its people by role, and its episodes. */
+export interface DemoContext {
+  db: Database;
+  today: Date;
+  channelId: string;
+  people: Map<Role, { id: string; email: string; name: string }>;
+  episodes: { id: string; stage: Stage; title: string; targetPublishDate: string | null }[];
+}
+
 export async function seedDemo(db: Database, today = new Date()): Promise<void> {
-  const people = new Map<Role, { id: string }>();
+  const people: DemoContext["people"] = new Map();
+  const episodes: DemoContext["episodes"] = [];
   for (const account of demoAccounts) {
     people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: "Europe/Oslo" }));
   }
@@ -53,7 +70,7 @@ export async function seedDemo(db: Database, today = new Date()): Promise<void> 
     const list = demoEpisodes.filter((e) => e.stage === stage);
     const ranks = generateNKeysBetween(null, null, list.length);
     for (const [i, episode] of list.entries()) {
-      await createEpisode(db, channel.id, {
+      const made = await createEpisode(db, channel.id, {
         stage,
         title: episode.title,
         question: episode.question,
@@ -61,8 +78,12 @@ export async function seedDemo(db: Database, today = new Date()): Promise<void> 
         ownerId: people.get(episode.owner)!.id,
         targetPublishDate: episode.daysToPublish === null ? null : formatISO(addDays(today, episode.daysToPublish), { representation: "date" }),
       });
+      episodes.push({ id: made.id, stage, title: made.title, targetPublishDate: made.targetPublishDate });
     }
   }
+
+  const context: DemoContext = { db, today, channelId: channel.id, people, episodes };
+  for (const seedFeature of featureDemos) await seedFeature(context);
 
   // A second channel, where the demo owner is a producer: shows the channel switcher and keeps
   // one channel's rows out of the other's sight.

@@ -1,0 +1,17 @@
+import type { Area } from "@shared/access/roles";
+
+/** The channel's pages in the top bar; each shows only to roles that may read its area. */
+export interface NavEntry {
+  path: string;
+  label: string;
+  area: Area;
+}
+
+export const channelNav: NavEntry[] = [
+  { path: "slate", label: "Slate", area: "episodes" },
+  { path: "shelf", label: "Shelf", area: "bench" },
+  { path: "rushes", label: "Rushes", area: "footage" },
+  { path: "desk", label: "Desk", area: "deliverables" },
+  { path: "sponsors", label: "Sponsors", area: "sponsors" },
+  { path: "members", label: "Members", area: "members" },
+];
