@@ -4,6 +4,7 @@ import path from "node:path";
 import PgBoss from "pg-boss";
 import { migrateDatabase } from "../server/db/migrate";
 import { startMailCatcher } from "./mail";
+import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";
 import { freePort, run, stopChild, waitForHttp } from "./processes";
@@ -92,6 +93,9 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
   const databaseUrl = await ensureDatabase(cluster, "kerf_e2e", "kerf_template");
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
+  // The browser uploads straight to storage, so its stand-in must allow this app's origin (CORS).
+  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3-e2e"), origins: [appUrl] });
+  stops.push(() => s3.stop());
   const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "inherit", "inherit"],
@@ -103,6 +107,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       DATABASE_URL: databaseUrl,
       SESSION_SECRET: "browser-test-secret-browser-test-secret",
       SMTP_PORT: String(mail.smtpPort),
+      ...s3.env,
     },
   });
   stops.push(() => stopChild(server));
@@ -112,6 +117,8 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
     KERF_TEST_CLUSTER_URL: clusterUrl,
     KERF_E2E_DATABASE_URL: databaseUrl,
     KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+    KERF_TEST_S3_ENDPOINT: s3.endpoint,
+    KERF_TEST_S3_BUCKET: s3.bucket,
     PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(outputDir, "playwright.json"),
   });
 }
@@ -129,7 +136,9 @@ async function main(): Promise<number> {
   const { cluster, clusterUrl } = await preparePostgres();
   const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() });
   stops.push(() => mail.stop());
-  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}`);
+  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3"), origins: ["http://kerf.test"] });
+  stops.push(() => s3.stop());
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint}`);
 
   const testEnv = {
     NO_COLOR: "1",
@@ -137,6 +146,10 @@ async function main(): Promise<number> {
     KERF_TEST_TEMPLATE_DB: "kerf_template",
     KERF_TEST_SMTP_PORT: String(mail.smtpPort),
     KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+    KERF_TEST_S3_ENDPOINT: s3.endpoint,
+    KERF_TEST_S3_BUCKET: s3.bucket,
+    KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
+    KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
   };
   const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
   await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);

@@ -61,11 +61,6 @@ export async function insertChannelWithOwner(db: Database, name: string, ownerId
   });
 }
 
-export async function insertMembership(db: Database, channelId: string, userId: string, role: Role) {
-  const rows = await db.insert(memberships).values({ channelId, userId, role }).onConflictDoNothing().returning();
-  return rows.length > 0;
-}
-
 /**
  * Changes a role or removes a member unless that would leave the channel without an owner.
  * The owner count is read under a row lock on the channel so two owners demoting each other at once
@@ -129,8 +124,32 @@ export async function findInvitationByHash(db: Database, tokenHash: string) {
   return rows[0] ?? null;
 }
 
-/** Marks the invitation used; only one caller can win, so a link is single-use even under a race. */
-export async function claimInvitation(db: Database, invitationId: string, userId: string) {
+/**
+ * Marks the invitation used and adds the membership in one transaction: only one caller can claim a
+ * link (single use even under a race), and a person who is already a member doesn't burn it.
+ */
+export async function claimInvitation(
+  db: Database,
+  invitation: { id: string; channelId: string; role: Role },
+  userId: string,
+): Promise<"joined" | "used" | "already_member"> {
+  try {
+    return await db.transaction(async (tx) => {
+      if (!(await markInvitationUsed(tx, invitation.id, userId))) return "used";
+      const joined = await tx.insert(memberships).values({ channelId: invitation.channelId, userId, role: invitation.role }).onConflictDoNothing().returning();
+      // Throwing undoes the claim above, so the link stays open.
+      if (joined.length === 0) throw new AlreadyMember();
+      return "joined";
+    });
+  } catch (error) {
+    if (error instanceof AlreadyMember) return "already_member";
+    throw error;
+  }
+}
+
+class AlreadyMember extends Error {}
+
+async function markInvitationUsed(db: Pick<Database, "update">, invitationId: string, userId: string) {
   const rows = await db
     .update(invitations)
     .set({ acceptedAt: sql`now()`, acceptedBy: userId })

@@ -8,7 +8,7 @@ import { hashPassword } from "../auth/password";
 import { findUserWithHashByEmail, insertUser } from "../auth/users.repository";
 import { AppError } from "../http/app-error";
 import type { OutgoingMail } from "../mail/mailer";
-import { claimInvitation, findInvitationByHash, insertInvitation, insertMembership } from "./channels.repository";
+import { claimInvitation, findInvitationByHash, insertInvitation } from "./channels.repository";
 
 export const INVITATION_LIFETIME_DAYS = 7;
 
@@ -89,9 +89,9 @@ export async function acceptInvitation(db: Database, token: string, input: Accep
   if (state !== "open") throw new AppError("gone", closedMessages[state]);
 
   const user = signedIn ?? (await createInvitedAccount(db, invitation.email, input));
-  if (!(await claimInvitation(db, invitation.id, user.id))) throw new AppError("gone", closedMessages.accepted);
-  const joined = await insertMembership(db, invitation.channelId, user.id, invitation.role);
-  if (!joined) throw new AppError("conflict", "You are already a member of this channel.");
+  const outcome = await claimInvitation(db, invitation, user.id);
+  if (outcome === "used") throw new AppError("gone", closedMessages.accepted);
+  if (outcome === "already_member") throw new AppError("conflict", "You are already a member of this channel; the invitation is still open for its addressee.");
   return { user, channelId: invitation.channelId, newAccount: !signedIn };
 }
 

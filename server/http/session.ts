@@ -29,10 +29,12 @@ export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler
   });
 }
 
-export function configurePassport(db: Database): passport.PassportStatic {
-  passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((id: string, done) => {
+/** One authenticator per app, so two apps in one process (tests) never read each other's users. */
+export function configurePassport(db: Database): passport.Authenticator {
+  const authenticator = new passport.Passport();
+  authenticator.serializeUser((user, done) => done(null, user.id));
+  authenticator.deserializeUser((id: string, done) => {
     findUserById(db, id).then((user) => done(null, user ?? false), done);
   });
-  return passport;
+  return authenticator;
 }

@@ -150,6 +150,15 @@ describe("inviting by e-mail", () => {
     expect(me.body.memberships).toHaveLength(2);
   });
 
+  it("when someone who is already a member opens a link, then it answers 409 and the link stays open for its addressee", async () => {
+    const { owner, channel, agent } = await ownerWithChannel("Already Here");
+    const { token } = await invite(agent, channel.id, "editor");
+    await accept(token, {}, { as: await app.signedIn(owner), status: 409 });
+    const preview = await (await app.visitor()).get(`/api/invitations/${token}`).expect(200);
+    expect(preview.body.state).toBe("open");
+    await accept(token, NEWCOMER, { status: 200 });
+  });
+
   it("when a newcomer sends neither name nor password, then it answers 400 and the link stays open", async () => {
     const { channel, agent } = await ownerWithChannel();
     const { token } = await invite(agent, channel.id);

@@ -6,6 +6,7 @@ import { startJobs, type Jobs } from "../../server/jobs/queue";
 import { createMailer } from "../../server/mail/mailer";
 import type { SignInLimits } from "../../server/auth/rate-limits";
 import { CSRF_HEADER } from "../../server/http/csrf";
+import { createS3Storage, storageSettingsFrom, type Storage } from "../../server/storage/storage";
 import { createTestDatabase, type TestDatabase } from "./database";
 import { testEnv } from "./test-env";
 
@@ -30,7 +31,7 @@ export interface Visitor {
   refreshCsrf(): Promise<void>;
 }
 
-export async function startTestApp(options: { signInLimits?: SignInLimits } = {}): Promise<TestApp> {
+export async function startTestApp(options: { signInLimits?: SignInLimits; storage?: (real: Storage) => Storage } = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const env = readEnv({
     NODE_ENV: "test",
@@ -38,10 +39,17 @@ export async function startTestApp(options: { signInLimits?: SignInLimits } = {}
     SESSION_SECRET: "test-secret-test-secret-test-secret-0123",
     SMTP_PORT: String(testEnv.smtpPort),
     APP_URL: "http://kerf.test",
+    S3_ENDPOINT: testEnv.s3.endpoint,
+    S3_BUCKET: testEnv.s3.bucket,
+    S3_ACCESS_KEY_ID: testEnv.s3.accessKeyId,
+    S3_SECRET_ACCESS_KEY: testEnv.s3.secretAccessKey,
   });
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: database.url, mailer, runWorkers: true, pollSeconds: 0.5 });
-  const deps: AppDeps = { env, database, mailer, jobs, signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } };
+  const realStorage = createS3Storage(storageSettingsFrom(env));
+  // A test may wrap the real store (e.g. to take it down mid-request).
+  const storage = options.storage ? options.storage(realStorage) : realStorage;
+  const deps: AppDeps = { env, database, mailer, jobs, storage, signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } };
   const app = createApp(deps);
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));

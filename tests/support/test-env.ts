@@ -1,6 +1,6 @@
 /**
  * What `npm test` hands to every test process (dev-services/test-run.ts sets these): the test
- * cluster, the migrated template database, and the mail stand-in.
+ * cluster, the migrated template database, the mail stand-in and the S3 stand-in.
  */
 function required(name: string): string {
   const value = process.env[name];
@@ -20,5 +20,14 @@ export const testEnv = {
   },
   get mailWebUrl() {
     return required("KERF_TEST_MAIL_WEB_URL");
+  },
+  /** The S3 stand-in (dev-services/s3.ts): one bucket shared by every test file; keys never collide. */
+  get s3() {
+    return {
+      endpoint: required("KERF_TEST_S3_ENDPOINT"),
+      bucket: required("KERF_TEST_S3_BUCKET"),
+      accessKeyId: required("KERF_TEST_S3_ACCESS_KEY_ID"),
+      secretAccessKey: required("KERF_TEST_S3_SECRET_ACCESS_KEY"),
+    };
   },
 };

@@ -17,12 +17,12 @@ export function ChannelSwitcher() {
         id="channel-switcher"
         value={current?.channelId ?? ""}
         onChange={(event) => navigate(event.target.value === "new" ? "/channels/new" : `/c/${event.target.value}/slate`)}
-        className="max-w-64 rounded-md border border-graphite-700 bg-graphite-900 px-2 py-1 font-semibold text-ply-50"
+        className="max-w-80 rounded-md border border-graphite-700 bg-graphite-900 px-2 py-1 font-semibold text-ply-50"
       >
         {!current && <option value="">Pick a channel</option>}
         {memberships.map((m) => (
           <option key={m.channelId} value={m.channelId}>
-            {m.channelName} — {roleLabels[m.role]}
+            {m.channelName} ({roleLabels[m.role].toLowerCase()})
           </option>
         ))}
         <option value="new">+ New channel…</option>

@@ -1,0 +1,185 @@
+import type { Readable } from "node:stream";
+import {
+  AbortMultipartUploadCommand,
+  CompleteMultipartUploadCommand,
+  CreateMultipartUploadCommand,
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  HeadObjectCommand,
+  PutObjectCommand,
+  S3Client,
+  UploadPartCommand,
+} from "@aws-sdk/client-s3";
+import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import type { Env } from "../env";
+import { AppError } from "../http/app-error";
+
+/**
+ * Kerf's one seam to object storage. Everything goes through the S3 protocol with the SDK, configured
+ * only by environment, so AWS, any S3-compatible store and the local stand-in run the same code.
+ * The app server signs and records; file bytes go from the browser to the store directly, except the
+ * small photos that stream through (putStream) and the zip that streams out (getStream).
+ */
+export interface Storage {
+  readonly bucket: string;
+  /** The origin browsers upload to and read from (for the page's content security policy). */
+  readonly publicOrigin: string | null;
+  up(): Promise<boolean>;
+  createMultipart(key: string, contentType: string): Promise<string>;
+  presignPart(key: string, uploadId: string, partNumber: number, expiresInSeconds: number): Promise<string>;
+  completeMultipart(key: string, uploadId: string, parts: { partNumber: number; etag: string }[]): Promise<{ etag: string | null }>;
+  /** Best effort: some stores (the local stand-in) have no abort; the upload is marked cancelled anyway. */
+  abortMultipart(key: string, uploadId: string): Promise<"aborted" | "unsupported">;
+  head(key: string): Promise<{ size: number; etag: string | null; contentType: string | null } | null>;
+  presignGet(key: string, options: { expiresInSeconds: number; fileName?: string; contentType?: string }): Promise<string>;
+  putStream(key: string, body: Readable, options: { contentType: string; size: number }): Promise<void>;
+  getStream(key: string): Promise<Readable>;
+  remove(key: string): Promise<void>;
+}
+
+const networkCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ENOTFOUND", "ETIMEDOUT", "EHOSTUNREACH", "EPIPE", "EAI_AGAIN"]);
+
+/** A store that cannot be reached (or answers 5xx) is a clear 503; nothing else changes. */
+export function isStorageDown(error: unknown): boolean {
+  const e = error as { code?: string; name?: string; $metadata?: { httpStatusCode?: number }; cause?: unknown; errors?: unknown[] };
+  if (!e) return false;
+  if (e.code && networkCodes.has(e.code)) return true;
+  if (e.name === "TimeoutError" || e.name === "AbortError") return true;
+  const status = e.$metadata?.httpStatusCode;
+  if (status !== undefined && status >= 500 && status !== 501) return true;
+  if (Array.isArray(e.errors) && e.errors.some(isStorageDown)) return true;
+  return e.cause !== undefined && e.cause !== error && isStorageDown(e.cause);
+}
+
+export const storageDown = () => new AppError("unavailable", "Footage storage is not reachable right now; nothing was changed. Try again in a moment.");
+
+/** Runs a storage call; a store that is down becomes the 503 above. */
+export async function viaStorage<T>(work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (error) {
+    if (isStorageDown(error)) throw storageDown();
+    throw error;
+  }
+}
+
+export interface StorageSettings {
+  endpoint: string;
+  region: string;
+  bucket: string;
+  accessKeyId: string;
+  secretAccessKey: string;
+  forcePathStyle: boolean;
+}
+
+export const storageSettingsFrom = (env: Env): StorageSettings => ({
+  endpoint: env.S3_ENDPOINT,
+  region: env.S3_REGION,
+  bucket: env.S3_BUCKET,
+  accessKeyId: env.S3_ACCESS_KEY_ID,
+  secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+  forcePathStyle: env.S3_FORCE_PATH_STYLE,
+});
+
+export function makeS3Client(settings: StorageSettings): S3Client {
+  return new S3Client({
+    endpoint: settings.endpoint || undefined,
+    region: settings.region,
+    forcePathStyle: settings.forcePathStyle,
+    credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
+    // With the SDK's defaults a streamed PutObject is sent aws-chunked (the stand-in stores the framing
+    // as the object) and presigned URLs carry the checksum of an empty body: checksums only when required.
+    requestChecksumCalculation: "WHEN_REQUIRED",
+    responseChecksumValidation: "WHEN_REQUIRED",
+    maxAttempts: 2,
+  });
+}
+
+function quoteFree(etag: string | undefined): string | null {
+  return etag ? etag.replaceAll('"', "") : null;
+}
+
+/** `attachment; filename="…"` with an RFC 6266 / RFC 5987 form for names outside ASCII. */
+export function attachmentDisposition(fileName: string): string {
+  const ascii = fileName.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
+  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(fileName)}`;
+}
+
+export function createS3Storage(settings: StorageSettings): Storage & { client: S3Client } {
+  const client = makeS3Client(settings);
+  const Bucket = settings.bucket;
+  const publicOrigin = settings.endpoint ? new URL(settings.endpoint).origin : null;
+  return {
+    client,
+    bucket: Bucket,
+    publicOrigin,
+    async up() {
+      try {
+        await client.send(new HeadBucketCommand({ Bucket }), { abortSignal: AbortSignal.timeout(3_000) });
+        return true;
+      } catch {
+        return false;
+      }
+    },
+    async createMultipart(key, contentType) {
+      const out = await client.send(new CreateMultipartUploadCommand({ Bucket, Key: key, ContentType: contentType }));
+      if (!out.UploadId) throw new Error("storage gave no upload id");
+      return out.UploadId;
+    },
+    presignPart(key, uploadId, partNumber, expiresIn) {
+      return getSignedUrl(client, new UploadPartCommand({ Bucket, Key: key, UploadId: uploadId, PartNumber: partNumber }), { expiresIn });
+    },
+    async completeMultipart(key, uploadId, parts) {
+      const out = await client.send(
+        new CompleteMultipartUploadCommand({
+          Bucket,
+          Key: key,
+          UploadId: uploadId,
+          MultipartUpload: { Parts: parts.map((p) => ({ PartNumber: p.partNumber, ETag: `"${p.etag}"` })) },
+        }),
+      );
+      return { etag: quoteFree(out.ETag) };
+    },
+    async abortMultipart(key, uploadId) {
+      try {
+        await client.send(new AbortMultipartUploadCommand({ Bucket, Key: key, UploadId: uploadId }));
+        return "aborted";
+      } catch (error) {
+        const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+        // The local stand-in answers 405 (not implemented); an upload already gone answers 404.
+        if (status === 405 || status === 501 || status === 404) return "unsupported";
+        throw error;
+      }
+    },
+    async head(key) {
+      try {
+        const out = await client.send(new HeadObjectCommand({ Bucket, Key: key }));
+        return { size: Number(out.ContentLength ?? 0), etag: quoteFree(out.ETag), contentType: out.ContentType ?? null };
+      } catch (error) {
+        const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+        if (status === 404) return null;
+        throw error;
+      }
+    },
+    presignGet(key, options) {
+      const command = new GetObjectCommand({
+        Bucket,
+        Key: key,
+        ResponseContentDisposition: options.fileName ? attachmentDisposition(options.fileName) : undefined,
+        ResponseContentType: options.contentType,
+      });
+      return getSignedUrl(client, command, { expiresIn: options.expiresInSeconds });
+    },
+    async putStream(key, body, options) {
+      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.size }));
+    },
+    async getStream(key) {
+      const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));
+      return out.Body as Readable;
+    },
+    async remove(key) {
+      await client.send(new DeleteObjectCommand({ Bucket, Key: key }));
+    },
+  };
+}

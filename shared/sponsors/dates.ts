@@ -1,0 +1,42 @@
+import { addDays, differenceInCalendarDays, format, isValid, parseISO } from "date-fns";
+
+/**
+ * Calendar dates as ISO strings ("2027-03-02"), the way PostgreSQL's `date` columns arrive.
+ * date-fns works on local-time Date objects; parsing and formatting both in local time keeps a
+ * date a date, whatever the process's time zone and across daylight-saving changes.
+ */
+export type IsoDate = string;
+
+const isoDatePattern = /^\d{4}-\d{2}-\d{2}$/;
+
+export function isIsoDate(text: string): boolean {
+  if (!isoDatePattern.test(text)) return false;
+  const parsed = parseISO(text);
+  return isValid(parsed) && format(parsed, "yyyy-MM-dd") === text;
+}
+
+function toDate(date: IsoDate): Date {
+  if (!isIsoDate(date)) throw new RangeError(`"${date}" is not a calendar date (YYYY-MM-DD)`);
+  return parseISO(date);
+}
+
+export function shiftDate(date: IsoDate, days: number): IsoDate {
+  return format(addDays(toDate(date), days), "yyyy-MM-dd");
+}
+
+/** Whole calendar days from `from` to `to` (positive when `to` is later). */
+export function daysBetween(from: IsoDate, to: IsoDate): number {
+  return differenceInCalendarDays(toDate(to), toDate(from));
+}
+
+/** The calendar date it is at `instant` in an IANA time zone ("Europe/Oslo"); UTC when the zone is unknown. */
+export function dateInZone(instant: Date, timeZone: string): IsoDate {
+  let parts: Intl.DateTimeFormatPart[];
+  try {
+    parts = new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
+  } catch {
+    parts = new Intl.DateTimeFormat("en-CA", { timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
+  }
+  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? "";
+  return `${part("year")}-${part("month")}-${part("day")}`;
+}
