@@ -1,43 +1,17 @@
-import { randomUUID } from "node:crypto";
 import type request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiRoutes } from "../../server/app";
-import { addMember, createChannel, createCrewedChannel, createUser } from "../factories/accounts";
+import { createChannel, createCrewedChannel, createUser } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
-import { createInvitation, uniqueEmail } from "../factories/invitations";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+import { callers, ok, type AccessWorld, type Caller, type Cell, type FeatureAccess, type Recipe } from "./access/matrix";
 
-const callers = ["visitor", "owner", "producer", "editor", "crew", "outsider"] as const;
-type Caller = (typeof callers)[number];
-
-/** "ok": the route does its job; 401 signed out; 403 the role may not; 404 not a member of this channel. */
-type Cell = "ok" | 401 | 403 | 404;
-const ok = "ok";
-
-/*
- * Who may call what: the spec's "People and roles" table (members, invitations and channel settings:
- * owner W, producer R, editor and crew nothing; episodes: everyone reads), written out by hand per
- * route, deliberately not computed from shared/access/roles.ts, so a wrong grant there fails here.
- * "outsider" is the owner of another channel: it must learn nothing of this one (404, not 403).
- */
-const matrix: [route: string, visitor: Cell, owner: Cell, producer: Cell, editor: Cell, crew: Cell, outsider: Cell][] = [
-  // route                                                      visitor owner producer editor crew outsider
-  ["GET /api/health",                                            ok,   ok,   ok,   ok,   ok,   ok],
-  ["GET /api/auth/me",                                           ok,   ok,   ok,   ok,   ok,   ok],
-  ["POST /api/auth/sign-in",                                     ok,   ok,   ok,   ok,   ok,   ok],
-  ["POST /api/auth/sign-up",                                     ok,   ok,   ok,   ok,   ok,   ok],
-  ["POST /api/auth/sign-out",                                    401,  ok,   ok,   ok,   ok,   ok],
-  ["POST /api/channels",                                         401,  ok,   ok,   ok,   ok,   ok],
-  ["GET /api/channels/:channelId/members",                       401,  ok,   ok,   403,  403,  404],
-  ["POST /api/channels/:channelId/invitations",                  401,  ok,   403,  403,  403,  404],
-  ["DELETE /api/channels/:channelId/invitations/:invitationId",  401,  ok,   403,  403,  403,  404],
-  ["PATCH /api/channels/:channelId/members/:userId",             401,  ok,   403,  403,  403,  404],
-  ["DELETE /api/channels/:channelId/members/:userId",            401,  ok,   403,  403,  403,  404],
-  ["GET /api/invitations/:token",                                ok,   ok,   ok,   ok,   ok,   ok],
-  ["POST /api/invitations/:token/accept",                        ok,   ok,   ok,   ok,   ok,   ok],
-  ["GET /api/channels/:channelId/episodes",                      401,  ok,   ok,   ok,   ok,   404],
-  ["GET /api/channels/:channelId/episodes/:episodeId",           401,  ok,   ok,   ok,   ok,   404],
-];
+// Every feature's part of the matrix: a new file in tests/api/access/ joins by itself.
+const features = import.meta.glob<{ access: FeatureAccess }>("./access/*.ts", { eager: true });
+const featureAccess = Object.entries(features)
+  .filter(([file]) => !file.endsWith("/matrix.ts"))
+  .map(([file, module]) => ({ file, access: module.access }));
+const matrix = featureAccess.flatMap(({ access }) => access.rows);
 
 const callerNames: Record<Caller, string> = {
   visitor: "a signed-out visitor",
@@ -49,142 +23,19 @@ const callerNames: Record<Caller, string> = {
 };
 const errorCodes = { 401: "unauthenticated", 403: "forbidden", 404: "not_found" } as const;
 
-type Person = Awaited<ReturnType<typeof createUser>>;
-
 let app: TestApp;
-let world: Awaited<ReturnType<typeof makeWorld>>;
+let world: AccessWorld;
+let recipes: Record<string, Recipe> = {};
 let checked = 0;
 
-/** The channel every cell aims at, one account per role, and someone from elsewhere. */
-async function makeWorld() {
+async function makeWorld(): Promise<AccessWorld> {
   const crewed = await createCrewedChannel(app.db, "Matrix Channel");
   const outsider = await createUser(app.db, { name: "Ozzy Outsider" });
   await createChannel(app.db, outsider, "Elsewhere");
   const episode = await createEpisode(app.db, crewed.channel.id, { title: "Matrix episode" });
-  const readableInvitation = await createInvitation(app.db, { channelId: crewed.channel.id, invitedBy: crewed.owner });
   const { owner, producer, editor, crew } = crewed;
-  const people: Record<Exclude<Caller, "visitor">, Person> = { owner, producer, editor, crew, outsider };
-  return { channel: crewed.channel, owner: crewed.owner, people, episode, readableInvitation };
+  return { channel: crewed.channel, owner, people: { owner, producer, editor, crew, outsider }, episode };
 }
-
-interface Call {
-  caller: Caller;
-  /** The signed-in caller's account; null for the visitor. */
-  person: Person | null;
-}
-
-interface Prepared {
-  /** Path parameters besides :channelId, which is always the matrix channel. */
-  params?: Record<string, string>;
-  body?: object;
-  /** Run after a refusal: the refused write left its rows as they were. */
-  intact?: () => Promise<void>;
-}
-
-interface Recipe {
-  /** The status when the caller is let through. */
-  ok: number;
-  /** Fresh rows for this one call, so no cell depends on another's. */
-  prepare?: (call: Call) => Promise<Prepared>;
-}
-
-async function freshCrewMember() {
-  const member = await createUser(app.db, { name: "Fresh Crew" });
-  await addMember(app.db, world.channel.id, member, "crew");
-  return member;
-}
-
-async function roleOf(userId: string): Promise<string | null> {
-  const result = await app.database.pool.query<{ role: string }>("select role from memberships where channel_id = $1 and user_id = $2", [
-    world.channel.id,
-    userId,
-  ]);
-  return result.rows[0]?.role ?? null;
-}
-
-const recipes: Record<string, Recipe> = {
-  "GET /api/health": { ok: 200 },
-  "GET /api/auth/me": { ok: 200 },
-  "POST /api/auth/sign-in": {
-    ok: 200,
-    prepare: async ({ person }) => {
-      const who = person ?? (await createUser(app.db));
-      return { body: { email: who.email, password: who.password } };
-    },
-  },
-  "POST /api/auth/sign-up": {
-    ok: 201,
-    prepare: async () => ({ body: { name: "New Host", email: uniqueEmail("matrix-signup"), password: "a-long-enough-password", channelName: "New Rig" } }),
-  },
-  "POST /api/auth/sign-out": { ok: 200 },
-  "POST /api/channels": {
-    ok: 201,
-    prepare: async () => {
-      const name = `Side ${randomUUID().slice(0, 8)}`;
-      return {
-        body: { name },
-        intact: async () => expect((await app.database.pool.query("select 1 from channels where name = $1", [name])).rowCount).toBe(0),
-      };
-    },
-  },
-  "GET /api/channels/:channelId/members": { ok: 200 },
-  "POST /api/channels/:channelId/invitations": {
-    ok: 201,
-    prepare: async () => {
-      const email = uniqueEmail("matrix-invite");
-      return {
-        body: { email, role: "crew" },
-        intact: async () => expect((await app.database.pool.query("select 1 from invitations where email = $1", [email])).rowCount).toBe(0),
-      };
-    },
-  },
-  "DELETE /api/channels/:channelId/invitations/:invitationId": {
-    ok: 204,
-    prepare: async () => {
-      const invitation = await createInvitation(app.db, { channelId: world.channel.id, invitedBy: world.owner });
-      return {
-        params: { invitationId: invitation.id },
-        intact: async () => {
-          const row = await app.database.pool.query("select revoked_at from invitations where id = $1", [invitation.id]);
-          expect(row.rows).toEqual([{ revoked_at: null }]);
-        },
-      };
-    },
-  },
-  "PATCH /api/channels/:channelId/members/:userId": {
-    ok: 200,
-    prepare: async () => {
-      const member = await freshCrewMember();
-      return { params: { userId: member.id }, body: { role: "editor" }, intact: async () => expect(await roleOf(member.id)).toBe("crew") };
-    },
-  },
-  "DELETE /api/channels/:channelId/members/:userId": {
-    ok: 204,
-    prepare: async () => {
-      const member = await freshCrewMember();
-      return { params: { userId: member.id }, intact: async () => expect(await roleOf(member.id)).toBe("crew") };
-    },
-  },
-  "GET /api/invitations/:token": {
-    ok: 200,
-    prepare: async () => ({ params: { token: world.readableInvitation.token } }),
-  },
-  "POST /api/invitations/:token/accept": {
-    ok: 200,
-    // An invitation into a channel of its own, which no caller belongs to yet.
-    prepare: async ({ person }) => {
-      const host = await createUser(app.db, { name: "Other Host" });
-      const side = await createChannel(app.db, host, "Side Channel");
-      const invitation = await createInvitation(app.db, { channelId: side.id, invitedBy: host, email: person?.email });
-      return { params: { token: invitation.token }, body: person ? {} : { name: "Nia Newcomer", password: "a-long-enough-password" } };
-    },
-  },
-  "GET /api/channels/:channelId/episodes": { ok: 200 },
-  "GET /api/channels/:channelId/episodes/:episodeId": {
-    ok: 200,
-    prepare: async () => ({ params: { episodeId: world.episode.id } }),
-  },
-};
 
 function fill(template: string, params: Record<string, string>): string {
   return template.replace(/:(\w+)/g, (_match, name: string) => {
@@ -223,9 +74,10 @@ async function checkCell(route: string, caller: Caller, expected: Cell): Promise
 beforeAll(async () => {
   app = await startTestApp();
   world = await makeWorld();
+  recipes = Object.assign({}, ...featureAccess.map(({ access }) => access.recipes({ app, world })));
 });
 afterAll(async () => {
-  console.log(`access matrix: ${checked} cells`);
+  console.log(`access matrix: ${checked} cells over ${matrix.length} routes`);
   await app.close();
 });
 
