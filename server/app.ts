@@ -6,6 +6,7 @@ import type { DatabaseHandle } from "./db/client";
 import type { Env } from "./env";
 import type { Jobs } from "./jobs/queue";
 import type { Mailer } from "./mail/mailer";
+import type { Storage } from "./storage/storage";
 import { authRoutes } from "./auth/auth.router";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
 import { channelRoutes } from "./channels/channels.router";
@@ -25,6 +26,8 @@ export interface AppDeps {
   database: DatabaseHandle;
   mailer: Mailer;
   jobs: Pick<Jobs, "enqueueMail">;
+  /** Object storage (S3 protocol): footage, posters, photos. */
+  storage: Storage;
   signInLimits?: SignInLimits;
 }
 
@@ -32,7 +35,7 @@ export interface AppDeps {
 export function apiRoutes(deps: AppDeps): RouteSpec[] {
   const db = deps.database.db;
   return [
-    ...healthRoutes(db, deps.mailer),
+    ...healthRoutes(db, deps.mailer, deps.storage),
     ...authRoutes(db, deps.signInLimits ?? defaultSignInLimits),
     ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
     ...slateRoutes(db),
@@ -42,34 +45,40 @@ export function apiRoutes(deps: AppDeps): RouteSpec[] {
   ];
 }
 
-const contentSecurityPolicy = {
+// Pages upload to, preview from and show posters from the object store's own origin (presigned URLs);
+// mediainfo.js reads media metadata in WebAssembly, which needs 'wasm-unsafe-eval' (not 'unsafe-eval').
+const contentSecurityPolicy = (storageOrigin: string) => ({
   directives: {
     defaultSrc: ["'self'"],
-    scriptSrc: ["'self'"],
+    scriptSrc: ["'self'", "'wasm-unsafe-eval'"],
     styleSrc: ["'self'", "'unsafe-inline'"],
-    imgSrc: ["'self'", "data:", "blob:"],
+    imgSrc: ["'self'", "data:", "blob:", storageOrigin],
+    mediaSrc: ["'self'", "blob:", storageOrigin],
     fontSrc: ["'self'", "data:"],
-    connectSrc: ["'self'"],
+    connectSrc: ["'self'", storageOrigin],
     objectSrc: ["'none'"],
     frameAncestors: ["'none'"],
     formAction: ["'self'"],
     baseUri: ["'self'"],
     upgradeInsecureRequests: null,
   },
-};
+});
 
 export function createApp(deps: AppDeps): Express {
   const { env, database } = deps;
   const app = express();
   app.disable("x-powered-by");
   if (env.TRUST_PROXY) app.set("trust proxy", 1);
-  app.use(helmet({ contentSecurityPolicy, strictTransportSecurity: env.TRUST_PROXY }));
+  app.use(helmet({ contentSecurityPolicy: contentSecurityPolicy(deps.storage.publicOrigin), strictTransportSecurity: env.TRUST_PROXY }));
 
   const passport = configurePassport(database.db);
   const api = express.Router();
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
+  const routes = apiRoutes(deps);
+  const guards = guardsFor(database.db);
+  mountRoutes(api, routes.filter((route) => route.sessionless), guards);
   api.use("/api", express.json({ limit: "100kb", strict: true }), sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);
-  mountRoutes(api, apiRoutes(deps), guardsFor(database.db));
+  mountRoutes(api, routes.filter((route) => !route.sessionless), guards);
   api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));

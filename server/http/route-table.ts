@@ -25,6 +25,8 @@ export interface RouteSpec {
   access: Access;
   /** Body kind a write route takes; JSON unless it says otherwise. */
   body?: "json" | "multipart" | "none";
+  /** Served without loading the session (health checks must answer while the database is down). */
+  sessionless?: true;
   /** Extra middleware that runs after authorisation (e.g. rate limits). */
   before?: RequestHandler[];
   handler: Handler;

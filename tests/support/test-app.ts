@@ -31,13 +31,22 @@ export interface Visitor {
   refreshCsrf(): Promise<void>;
 }
 
-export async function startTestApp(options: { signInLimits?: SignInLimits; storage?: (real: Storage) => Storage } = {}): Promise<TestApp> {
-  const database = await createTestDatabase();
+export interface TestAppOptions {
+  signInLimits?: SignInLimits;
+  storage?: (real: Storage) => Storage;
+  /** Another app's database (two instances on one database) or one on a private cluster. */
+  database?: TestDatabase;
+  /** A mail server of the test's own (e.g. one it stops and starts). */
+  smtpPort?: number;
+}
+
+export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
+  const database = options.database ?? (await createTestDatabase());
   const env = readEnv({
     NODE_ENV: "test",
     DATABASE_URL: database.url,
     SESSION_SECRET: "test-secret-test-secret-test-secret-0123",
-    SMTP_PORT: String(testEnv.smtpPort),
+    SMTP_PORT: String(options.smtpPort ?? testEnv.smtpPort),
     APP_URL: "http://kerf.test",
     S3_ENDPOINT: testEnv.s3.endpoint,
     S3_BUCKET: testEnv.s3.bucket,
@@ -92,7 +101,8 @@ export async function startTestApp(options: { signInLimits?: SignInLimits; stora
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await jobs.stop();
       mailer.close();
-      await database.drop();
+      // A database handed in belongs to the caller, who drops it.
+      if (!options.database) await database.drop();
     },
   };
 }
