@@ -1,17 +1,11 @@
 import type request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiRoutes } from "../../server/app";
-import { createChannel, createCrewedChannel, createUser } from "../factories/accounts";
-import { createEpisode } from "../factories/episodes";
+import { allRecipes, featureAccess, fillPath, makeAccessWorld } from "../support/access-world";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
-import { callers, ok, type AccessWorld, type Caller, type Cell, type FeatureAccess, type Recipe } from "./access/matrix";
+import { callers, ok, type AccessWorld, type Caller, type Cell, type Recipe } from "./access/matrix";
 
-// Every feature's part of the matrix: a new file in tests/api/access/ joins by itself.
-const features = import.meta.glob<{ access: FeatureAccess }>("./access/*.ts", { eager: true });
-const featureAccess = Object.entries(features)
-  .filter(([file]) => !file.endsWith("/matrix.ts"))
-  .map(([file, module]) => ({ file, access: module.access }));
-const matrix = featureAccess.flatMap(({ access }) => access.rows);
+const matrix = featureAccess.flatMap((access) => access.rows);
 
 const callerNames: Record<Caller, string> = {
   visitor: "a signed-out visitor",
@@ -28,23 +22,6 @@ let world: AccessWorld;
 let recipes: Record<string, Recipe> = {};
 let checked = 0;
 
-async function makeWorld(): Promise<AccessWorld> {
-  const crewed = await createCrewedChannel(app.db, "Matrix Channel");
-  const outsider = await createUser(app.db, { name: "Ozzy Outsider" });
-  await createChannel(app.db, outsider, "Elsewhere");
-  const episode = await createEpisode(app.db, crewed.channel.id, { title: "Matrix episode" });
-  const { owner, producer, editor, crew } = crewed;
-  return { channel: crewed.channel, owner, people: { owner, producer, editor, crew, outsider }, episode };
-}
-
-function fill(template: string, params: Record<string, string>): string {
-  return template.replace(/:(\w+)/g, (_match, name: string) => {
-    const value = params[name];
-    if (value === undefined) throw new Error(`no value for :${name} in ${template}`);
-    return encodeURIComponent(value);
-  });
-}
-
 async function agentFor(caller: Caller): Promise<Visitor> {
   // A fresh session per cell: a sign-in, sign-up or sign-out in one cell must not change the next.
   return caller === "visitor" ? app.visitor() : app.signedIn(world.people[caller]);
@@ -56,7 +33,7 @@ async function checkCell(route: string, caller: Caller, expected: Cell): Promise
   const [method, template] = route.split(" ") as [string, string];
   const agent = await agentFor(caller);
   const prepared = (await recipe.prepare?.({ caller, person: caller === "visitor" ? null : world.people[caller] })) ?? {};
-  const path = fill(template, { channelId: world.channel.id, ...prepared.params });
+  const path = fillPath(template, { channelId: world.channel.id, ...prepared.params });
   const response: request.Response =
     method === "GET" ? await agent.get(path) : await agent.send(method.toLowerCase() as "post" | "put" | "patch" | "delete", path, prepared.body);
 
@@ -73,8 +50,8 @@ async function checkCell(route: string, caller: Caller, expected: Cell): Promise
 
 beforeAll(async () => {
   app = await startTestApp();
-  world = await makeWorld();
-  recipes = Object.assign({}, ...featureAccess.map(({ access }) => access.recipes({ app, world })));
+  world = await makeAccessWorld(app);
+  recipes = allRecipes(app, world);
 });
 afterAll(async () => {
   console.log(`access matrix: ${checked} cells over ${matrix.length} routes`);
