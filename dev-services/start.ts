@@ -5,6 +5,7 @@ import { readEnv } from "../server/env";
 import { startServer } from "../server/index";
 import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
 import { startMailCatcher } from "./mail";
+import { startS3StandIn } from "./s3";
 import { stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";
 import { run } from "./processes";
@@ -15,6 +16,7 @@ const PG_PORT = Number(process.env.KERF_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.KERF_SMTP_PORT ?? 1025);
 const MAIL_WEB_PORT = Number(process.env.KERF_MAIL_WEB_PORT ?? 1080);
 const APP_PORT = Number(process.env.PORT ?? 3000);
+const S3_PORT = Number(process.env.KERF_S3_PORT ?? 4568);
 
 const stops: (() => Promise<void> | void)[] = [];
 let stopping = false;
@@ -44,6 +46,12 @@ try {
   const mail = await startMailCatcher({ smtpPort: SMTP_PORT, webPort: MAIL_WEB_PORT });
   stops.push(() => mail.stop());
 
+  console.log("[kerf] starting the S3 stand-in…");
+  // Pages served by Kerf itself and by Vite's dev server (npm run dev) upload straight to it.
+  const appOrigin = new URL(process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`).origin;
+  const s3 = await startS3StandIn({ port: S3_PORT, dataDir: path.join(stateDir, "s3"), origins: [appOrigin, "http://127.0.0.1:5173", "http://localhost:5173"] });
+  stops.push(() => s3.stop());
+
   if (process.env.KERF_SKIP_BUILD !== "1") {
     console.log("[kerf] building the client…");
     if ((await run(process.execPath, [path.resolve("node_modules/vite/bin/vite.js"), "build", "--logLevel", "warn"])) !== 0) throw new Error("client build failed");
@@ -59,6 +67,7 @@ try {
     APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`,
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(SMTP_PORT),
+    ...(process.env.S3_ENDPOINT ? {} : s3.env),
   });
   const server = await startServer(env);
   stops.push(() => server.stop());
@@ -66,6 +75,7 @@ try {
   console.log(`
 Kerf is running at ${server.url}
   mail stand-in inbox: ${mail.webUrl}
+  S3 stand-in:         ${s3.endpoint} (bucket ${s3.bucket})
   database:            ${databaseUrl}${seeded ? "  (demo channel just seeded)" : ""}
   development secrets: ${secrets.file}
 

@@ -38,7 +38,7 @@ export function apiRoutes(deps: AppDeps): RouteSpec[] {
     ...healthRoutes(db, deps.mailer, deps.storage),
     ...authRoutes(db, deps.signInLimits ?? defaultSignInLimits),
     ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
-    ...slateRoutes(db),
+    ...slateRoutes(deps),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),

@@ -4,6 +4,9 @@ import { connectDatabase } from "./db/client";
 import { readEnv, type Env } from "./env";
 import { startJobs } from "./jobs/queue";
 import { createMailer } from "./mail/mailer";
+import { scheduleRushesJobs } from "./rushes/rushes.jobs";
+import { scheduleSponsorJobs } from "./sponsors/reminders";
+import { createS3Storage, storageSettingsFrom } from "./storage/storage";
 
 export interface RunningServer {
   url: string;
@@ -14,7 +17,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const database = connectDatabase(env.DATABASE_URL);
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, mailer, runWorkers: true });
-  const app = createApp({ env, database, mailer, jobs });
+  const storage = createS3Storage(storageSettingsFrom(env));
+  await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
+  await scheduleSponsorJobs(jobs.boss, { db: database.db, pool: database.pool, jobs, appUrl: env.APP_URL });
+  const app = createApp({ env, database, mailer, jobs, storage });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
   });

@@ -2,6 +2,7 @@ import { addDays, formatISO } from "date-fns";
 import { generateNKeysBetween } from "fractional-indexing";
 import { sql } from "drizzle-orm";
 import type { Role } from "../../shared/access/roles";
+import type { Origin } from "../../shared/slate/schemas";
 import { stages, type Stage } from "../../shared/slate/stages";
 import type { Database } from "../../server/db/client";
 import { addMember, createChannel, createUser } from "../../tests/factories/accounts";
@@ -27,19 +28,31 @@ export const demoAccounts: { role: Role; email: string; name: string }[] = [
 export const DEMO_CHANNEL = "Gantry Lane Workshop";
 
 // Invented episodes, two or so for each stage; every name and figure here is made up.
-const demoEpisodes: { stage: Stage; title: string; question: string; owner: Role; daysToPublish: number | null }[] = [
-  { stage: "challenge", title: "Leaf-blower hovercraft", question: "Can two garden leaf blowers carry a 70 kg rider?", owner: "owner", daysToPublish: 75 },
-  { stage: "challenge", title: "Paper glider from a desk fan", question: "Can a desk fan launch a glider across the workshop?", owner: "producer", daysToPublish: null },
-  { stage: "test_plan", title: "Case fans versus one big rotor", question: "Do twelve small fans out-lift one large rotor at the same power?", owner: "owner", daysToPublish: 48 },
-  { stage: "test_plan", title: "Solar-only espresso", question: "Can a folding solar panel pull a shot before lunch?", owner: "owner", daysToPublish: 60 },
-  { stage: "build", title: "Drill-motor skateboard", question: "Will two cordless drill motors push a board at 20 km/h?", owner: "owner", daysToPublish: 30 },
-  { stage: "build", title: "Mousetrap car distance record", question: "How far can one spring carry a car on a smooth floor?", owner: "editor", daysToPublish: 24 },
-  { stage: "shoot", title: "Thermal camera on a kite", question: "Can a kite hold a camera steady enough to map roof heat loss?", owner: "owner", daysToPublish: 16 },
-  { stage: "shoot", title: "Two-stage bottle rocket", question: "Does a second stage beat one bigger bottle?", owner: "producer", daysToPublish: 12 },
-  { stage: "edit", title: "Relay calculator", question: "Can 120 relays add two four-digit numbers?", owner: "editor", daysToPublish: 9 },
-  { stage: "edit", title: "Levitating water drops", question: "Can sound alone hold a drop of water in the air?", owner: "editor", daysToPublish: 6 },
-  { stage: "sponsor_read", title: "Cheap and dear soldering irons, measured", question: "Does a dearer iron heat a joint faster?", owner: "producer", daysToPublish: 4 },
-  { stage: "publish", title: "How strong are printed hinges?", question: "What load does a printed living hinge take before it tears?", owner: "owner", daysToPublish: 1 },
+type DemoEpisode = {
+  stage: Stage;
+  title: string;
+  question: string;
+  owner: Role;
+  daysToPublish: number | null;
+  tags?: string[];
+  origin?: Origin;
+  originLink?: string;
+  whyWorthIt?: string;
+  budget?: [amount: string, currency: string];
+};
+const demoEpisodes: DemoEpisode[] = [
+  { stage: "challenge", title: "Leaf-blower hovercraft", question: "Can two garden leaf blowers carry a 70 kg rider?", owner: "owner", daysToPublish: 75, tags: ["hover", "garden kit"], origin: "viewer", originLink: "https://example.com/comments/leaf-blower-hovercraft", whyWorthIt: "Asked for in the comments more than anything else this year.", budget: ["180", "EUR"] },
+  { stage: "challenge", title: "Paper glider from a desk fan", question: "Can a desk fan launch a glider across the workshop?", owner: "producer", daysToPublish: null, tags: ["flying"], origin: "idea" },
+  { stage: "test_plan", title: "Case fans versus one big rotor", question: "Do twelve small fans out-lift one large rotor at the same power?", owner: "owner", daysToPublish: 48, tags: ["flying", "batteries"], budget: ["240", "EUR"], whyWorthIt: "Settles the argument under every fan-lift video." },
+  { stage: "test_plan", title: "Solar-only espresso", question: "Can a folding solar panel pull a shot before lunch?", owner: "owner", daysToPublish: 60, tags: ["solar", "heat"], origin: "sponsor", budget: ["320", "EUR"] },
+  { stage: "build", title: "Drill-motor skateboard", question: "Will two cordless drill motors push a board at 20 km/h?", owner: "owner", daysToPublish: 30, tags: ["batteries", "vehicles"], budget: ["150", "EUR"] },
+  { stage: "build", title: "Mousetrap car distance record", question: "How far can one spring carry a car on a smooth floor?", owner: "editor", daysToPublish: 24, tags: ["vehicles"], origin: "viewer", originLink: "https://example.com/comments/mousetrap-record" },
+  { stage: "shoot", title: "Thermal camera on a kite", question: "Can a kite hold a camera steady enough to map roof heat loss?", owner: "owner", daysToPublish: 16, tags: ["flying", "heat"], budget: ["90", "EUR"] },
+  { stage: "shoot", title: "Two-stage bottle rocket", question: "Does a second stage beat one bigger bottle?", owner: "producer", daysToPublish: 12, tags: ["flying", "rockets"] },
+  { stage: "edit", title: "Relay calculator", question: "Can 120 relays add two four-digit numbers?", owner: "editor", daysToPublish: 9, tags: ["electronics"], budget: ["410", "EUR"] },
+  { stage: "edit", title: "Levitating water drops", question: "Can sound alone hold a drop of water in the air?", owner: "editor", daysToPublish: 6, tags: ["sound"] },
+  { stage: "sponsor_read", title: "Cheap and dear soldering irons, measured", question: "Does a dearer iron heat a joint faster?", owner: "producer", daysToPublish: 4, tags: ["electronics", "heat"], origin: "sponsor" },
+  { stage: "publish", title: "How strong are printed hinges?", question: "What load does a printed living hinge take before it tears?", owner: "owner", daysToPublish: 1, tags: ["printing"] },
 ];
 
 export async function isEmpty(db: Database): Promise<boolean> {
@@ -77,6 +90,12 @@ export async function seedDemo(db: Database, today = new Date()): Promise<void> 
         rank: ranks[i],
         ownerId: people.get(episode.owner)!.id,
         targetPublishDate: episode.daysToPublish === null ? null : formatISO(addDays(today, episode.daysToPublish), { representation: "date" }),
+        tags: episode.tags,
+        origin: episode.origin,
+        originLink: episode.originLink,
+        whyWorthIt: episode.whyWorthIt,
+        budgetAmount: episode.budget?.[0],
+        budgetCurrency: episode.budget?.[1],
       });
       episodes.push({ id: made.id, stage, title: made.title, targetPublishDate: made.targetPublishDate });
     }

@@ -1,6 +1,12 @@
 import type { AppDeps } from "../app";
 import type { RouteSpec } from "../http/route-table";
+import { buildLogRoutes } from "./build-log.router";
+import { runsRoutes } from "./runs.router";
+import { shelfRoutes } from "./shelf.router";
+import { testPlanRoutes } from "./test-plan.router";
 
-export function benchRoutes(_deps: AppDeps): RouteSpec[] {
-  return [];
+/** The test plan sheet, the bench shelf, bench runs and the build log. */
+export function benchRoutes(deps: AppDeps): RouteSpec[] {
+  const db = deps.database.db;
+  return [...testPlanRoutes(db), ...shelfRoutes(db), ...runsRoutes(db), ...buildLogRoutes(db)];
 }

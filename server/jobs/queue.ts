@@ -10,7 +10,8 @@ export const MAIL_QUEUE = "mail";
 
 export interface Jobs {
   boss: PgBoss;
-  enqueueMail(mail: OutgoingMail): Promise<void>;
+  /** `db` sends the job inside the caller's transaction (pg-boss's executor), so it exists only if that commits. */
+  enqueueMail(mail: OutgoingMail, options?: { db?: PgBoss.Db }): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -27,9 +28,9 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
   }
   return {
     boss,
-    async enqueueMail(mail) {
+    async enqueueMail(mail, sendOptions) {
       // Retries back off from 10 s, for about a day in all: long enough to outlast a mail outage.
-      await boss.send(MAIL_QUEUE, mail, { retryLimit: 14, retryDelay: 10, retryBackoff: true });
+      await boss.send(MAIL_QUEUE, mail, { retryLimit: 14, retryDelay: 10, retryBackoff: true, db: sendOptions?.db });
     },
     async stop() {
       await boss.stop({ graceful: true, timeout: 5_000 });

@@ -1,4 +1,77 @@
-import type { StageGate } from "../slate/gates";
+import { and, asc, eq, inArray, ne } from "drizzle-orm";
+import { daysBetween } from "../../shared/sponsors/dates";
+import { deliverableStatusLabels, isSettled } from "../../shared/sponsors/deliverables";
+import { checkDisclosure } from "../../shared/sponsors/disclosure";
+import type { GateProblem } from "../../shared/slate/gates";
+import { episodes } from "../db/schema/slate";
+import { deals, deliverables, sponsors } from "../db/schema/sponsors";
+import { entersStageForward, type GateContext, type StageGate } from "../slate/gates";
 
-/** Sponsor essentials checked when an episode enters publish (filled in by the sponsors feature). */
-export const sponsorGates: StageGate[] = [];
+async function liveDeals(context: GateContext) {
+  return context.db
+    .select({ id: deals.id, company: sponsors.company, script: deals.script, descriptionCopy: deals.descriptionCopy, disclosureText: deals.disclosureText, publishDate: episodes.targetPublishDate })
+    .from(deals)
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .where(and(eq(deals.channelId, context.channelId), eq(deals.episodeId, context.episodeId), ne(deals.state, "cancelled")))
+    .orderBy(asc(deals.createdAt));
+}
+
+/**
+ * Entering publish with a sponsor item still open that was due before the video goes out: every item
+ * counted back from the publish date (and any hand-dated item due by then) must be approved or done.
+ */
+const unapprovedItems: StageGate = {
+  name: "sponsors.unapproved_items",
+  applies: (from, to) => entersStageForward("publish", from, to),
+  async check(context) {
+    const found = await liveDeals(context);
+    if (found.length === 0) return [];
+    const items = await context.db
+      .select({ dealId: deliverables.dealId, title: deliverables.title, status: deliverables.status, anchor: deliverables.anchor, dueDate: deliverables.dueDate })
+      .from(deliverables)
+      .where(and(eq(deliverables.channelId, context.channelId), inArray(deliverables.dealId, found.map((d) => d.id))))
+      .orderBy(asc(deliverables.position));
+    const problems: GateProblem[] = [];
+    for (const deal of found) {
+      for (const item of items.filter((i) => i.dealId === deal.id)) {
+        if (isSettled(item.status)) continue;
+        const beforePublish =
+          item.anchor === "before_publish" ||
+          (item.anchor === "fixed" && item.dueDate !== null && deal.publishDate !== null && daysBetween(item.dueDate, deal.publishDate) >= 0);
+        if (!beforePublish) continue;
+        problems.push({
+          code: "sponsors.unapproved_item",
+          message: `${deal.company}: "${item.title}" is ${deliverableStatusLabels[item.status].toLowerCase()}, not approved or done.`,
+        });
+      }
+    }
+    return problems;
+  },
+};
+
+/**
+ * A paid episode (one with a deal that isn't cancelled) needs a disclosure both in the spoken segment
+ * and in the description: FTC Endorsement Guides, 16 CFR Part 255 (§ 255.5), and the UK CAP Code,
+ * section 2. A reminder, not legal advice: the law of the country where the video is seen governs.
+ */
+const disclosure: StageGate = {
+  name: "sponsors.disclosure",
+  applies: (from, to) => entersStageForward("publish", from, to),
+  async check(context) {
+    const problems: GateProblem[] = [];
+    for (const deal of await liveDeals(context)) {
+      const found = checkDisclosure({ script: deal.script, description: deal.descriptionCopy ?? "", wording: deal.disclosureText });
+      if (!found.inSegment) {
+        problems.push({ code: "sponsors.no_disclosure_in_segment", message: `${deal.company}: the segment's script has no disclosure (say it in the video, e.g. "this video is sponsored by…").` });
+      }
+      if (!found.inDescription) {
+        problems.push({ code: "sponsors.no_disclosure_in_description", message: `${deal.company}: the description text has no disclosure line.` });
+      }
+    }
+    return problems;
+  },
+};
+
+/** Sponsor essentials checked when an episode enters publish. */
+export const sponsorGates: StageGate[] = [unapprovedItems, disclosure];

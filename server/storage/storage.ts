@@ -24,7 +24,7 @@ import { AppError } from "../http/app-error";
 export interface Storage {
   readonly bucket: string;
   /** The origin browsers upload to and read from (for the page's content security policy). */
-  readonly publicOrigin: string | null;
+  readonly publicOrigin: string;
   up(): Promise<boolean>;
   createMultipart(key: string, contentType: string): Promise<string>;
   presignPart(key: string, uploadId: string, partNumber: number, expiresInSeconds: number): Promise<string>;
@@ -33,7 +33,7 @@ export interface Storage {
   abortMultipart(key: string, uploadId: string): Promise<"aborted" | "unsupported">;
   head(key: string): Promise<{ size: number; etag: string | null; contentType: string | null } | null>;
   presignGet(key: string, options: { expiresInSeconds: number; fileName?: string; contentType?: string }): Promise<string>;
-  putStream(key: string, body: Readable, options: { contentType: string; size: number }): Promise<void>;
+  putStream(key: string, body: Readable, options: { contentType: string; size: number; signal?: AbortSignal }): Promise<void>;
   getStream(key: string): Promise<Readable>;
   remove(key: string): Promise<void>;
 }
@@ -109,7 +109,12 @@ export function attachmentDisposition(fileName: string): string {
 export function createS3Storage(settings: StorageSettings): Storage & { client: S3Client } {
   const client = makeS3Client(settings);
   const Bucket = settings.bucket;
-  const publicOrigin = settings.endpoint ? new URL(settings.endpoint).origin : null;
+  // Without an endpoint the SDK talks to AWS itself, path-style or virtual-hosted.
+  const publicOrigin = settings.endpoint
+    ? new URL(settings.endpoint).origin
+    : settings.forcePathStyle
+      ? `https://s3.${settings.region}.amazonaws.com`
+      : `https://${Bucket}.s3.${settings.region}.amazonaws.com`;
   return {
     client,
     bucket: Bucket,
@@ -172,7 +177,9 @@ export function createS3Storage(settings: StorageSettings): Storage & { client: 
       return getSignedUrl(client, command, { expiresIn: options.expiresInSeconds });
     },
     async putStream(key, body, options) {
-      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.size }));
+      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.size }), {
+        abortSignal: options.signal,
+      });
     },
     async getStream(key) {
       const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));

@@ -51,16 +51,17 @@ const criterionBase = {
 const compatibleWith = (a: string, b: string) => isKnownUnit(a) && isKnownUnit(b) && areCompatible(a, b);
 
 export const criterionSchema = z
+  // Strict: a request carrying a field Kerf doesn't know is refused rather than silently trimmed.
   .discriminatedUnion("comparator", [
-    z.object({ ...criterionBase, comparator: z.literal("gte"), threshold: quantitySchema }),
-    z.object({ ...criterionBase, comparator: z.literal("lte"), threshold: quantitySchema }),
-    z.object({
+    z.strictObject({ ...criterionBase, comparator: z.literal("gte"), threshold: quantitySchema }),
+    z.strictObject({ ...criterionBase, comparator: z.literal("lte"), threshold: quantitySchema }),
+    z.strictObject({
       ...criterionBase,
       comparator: z.literal("eq"),
       threshold: quantitySchema,
       tolerance: quantitySchema.refine((q) => q.value >= 0, { message: "tolerance cannot be negative" }),
     }),
-    z.object({ ...criterionBase, comparator: z.literal("between"), low: quantitySchema, high: quantitySchema }),
+    z.strictObject({ ...criterionBase, comparator: z.literal("between"), low: quantitySchema, high: quantitySchema }),
   ])
   .superRefine((criterion, ctx) => {
     const naturalUnit = metricUnit(criterion.metric);

@@ -64,7 +64,7 @@ export const unitSchema = z.string().refine(isKnownUnit, {
   message: `Use one of ${simpleUnits.join(", ")}, a quotient of two of them (such as gf/W), or 1 for a ratio`,
 });
 
-export const quantitySchema = z.object({
+export const quantitySchema = z.strictObject({
   value: z.number().finite(),
   unit: unitSchema,
 });

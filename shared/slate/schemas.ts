@@ -1,5 +1,117 @@
 import { z } from "zod";
-import { stages } from "./stages";
+import { isIsoDate } from "./dates";
+import type { BoardFlag } from "./flags";
+import type { GateProblem } from "./gates";
+import type { RiskReason, ScheduledStage, StageLengths } from "./schedule";
+import { stages, type Stage } from "./stages";
+
+/** Where a challenge came from. */
+export const origins = ["viewer", "idea", "sponsor"] as const;
+export type Origin = (typeof origins)[number];
+export const originLabels: Record<Origin, string> = {
+  viewer: "A viewer's suggestion",
+  idea: "Our own idea",
+  sponsor: "A sponsor's request",
+};
+
+/** Offered in the form; any ISO 4217 code is accepted. */
+export const commonCurrencies = ["EUR", "USD", "GBP", "NOK", "SEK", "DKK", "CHF", "CAD", "AUD", "NZD", "JPY", "PLN"] as const;
+
+export const isoDateSchema = z
+  .string({ error: "Pick a date." })
+  .refine(isIsoDate, "Pick a real date (YYYY-MM-DD).")
+  .refine((d) => d >= "2000-01-01" && d <= "2100-12-31", "Pick a date between 2000 and 2100.");
+
+const blankOr = <S extends z.ZodType>(schema: S) => z.union([z.literal(""), z.null(), schema]);
+
+export const tagSchema = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .min(1, "A tag can't be empty.")
+  .max(24, "Keep each tag under 24 characters.")
+  .regex(/^[\p{L}\p{N}][\p{L}\p{N} -]*$/u, "Tags are words: letters, digits, spaces and dashes.");
+
+const episodeFieldsObject = z.strictObject({
+  title: z.string({ error: "Give the episode a working title." }).trim().min(1, "Give the episode a working title.").max(120, "Keep the title under 120 characters."),
+  question: z
+    .string()
+    .trim()
+    .max(200, "Keep the question to one line (200 characters).")
+    .refine((q) => !/[\r\n]/.test(q), "Keep the question to one line."),
+  origin: z.enum(origins, { error: "Say where the challenge came from." }),
+  originLink: blankOr(z.url({ protocol: /^https?$/, error: "Paste a full web address (https://…)." }).max(500, "That address is too long.")),
+  whyWorthIt: z.string().trim().max(2000, "Keep this under 2,000 characters."),
+  ownerId: blankOr(z.uuid({ error: "Pick a member of this channel." })),
+  tags: z.array(tagSchema).max(12, "Use at most 12 tags."),
+  budgetAmount: blankOr(z.string().trim().regex(/^\d{1,9}(\.\d{1,2})?$/, "Write the budget as a number, e.g. 250 or 249.99.")),
+  budgetCurrency: blankOr(z.string().regex(/^[A-Z]{3}$/, "Pick a currency (a three-letter code such as EUR).")),
+  targetPublishDate: blankOr(isoDateSchema),
+});
+
+type EpisodeFieldsShape = z.infer<typeof episodeFieldsObject>;
+
+function crossFieldChecks(fields: Partial<EpisodeFieldsShape>, ctx: z.RefinementCtx) {
+  if (fields.origin === "viewer" && !fields.originLink) ctx.addIssue({ code: "custom", path: ["originLink"], message: "Paste the link to the viewer's suggestion." });
+  if (fields.budgetAmount && !fields.budgetCurrency) ctx.addIssue({ code: "custom", path: ["budgetCurrency"], message: "Pick the budget's currency." });
+  if (fields.tags && new Set(fields.tags).size !== fields.tags.length) ctx.addIssue({ code: "custom", path: ["tags"], message: "Each tag once." });
+}
+
+/** Every field of an episode, as the form sends it and as a new episode is created. */
+export const episodeFieldsSchema = episodeFieldsObject.superRefine(crossFieldChecks);
+export type EpisodeFields = z.input<typeof episodeFieldsSchema>;
+
+export const emptyEpisodeFields: EpisodeFields = {
+  title: "",
+  question: "",
+  origin: "idea",
+  originLink: "",
+  whyWorthIt: "",
+  ownerId: "",
+  tags: [],
+  budgetAmount: "",
+  budgetCurrency: "",
+  targetPublishDate: "",
+};
+
+const versionSchema = z.number({ error: "Send the version you last saw." }).int().min(1);
+
+/** An edit: any subset of the fields, against the version the editor saw. */
+export const episodeChangesSchema = episodeFieldsObject.partial().extend({ version: versionSchema });
+export type EpisodeChanges = z.input<typeof episodeChangesSchema>;
+
+export const versionOnlySchema = z.strictObject({ version: versionSchema });
+
+/**
+ * A move: to a stage, placed right after `afterId` (or, without it, right before `beforeId`; with
+ * neither, at the end of the column). `reason` confirms a forward move past missing essentials.
+ */
+export const moveEpisodeSchema = z.strictObject({
+  version: versionSchema,
+  stage: z.enum(stages, { error: "Pick one of the seven stages." }),
+  afterId: z.uuid().nullable().optional(),
+  beforeId: z.uuid().nullable().optional(),
+  reason: z.string().trim().min(3, "Say in a few words why it moves on anyway.").max(500, "Keep the reason under 500 characters.").optional(),
+});
+export type MoveEpisodeInput = z.infer<typeof moveEpisodeSchema>;
+
+export const dueOverrideSchema = z.strictObject({ version: versionSchema, dueDate: isoDateSchema.nullable() });
+
+export const commentSchema = z.strictObject({
+  body: z.string({ error: "Write a comment first." }).trim().min(1, "Write a comment first.").max(4000, "Keep a comment under 4,000 characters."),
+});
+export type CommentInput = z.infer<typeof commentSchema>;
+
+/** The board's filters, as they appear in the page's URL and the API's query string. */
+export const boardFiltersSchema = z.object({
+  owner: z.union([z.literal("none"), z.uuid()], { error: "Pick a member, or none." }).optional(),
+  tag: z.string().max(24).optional(),
+  sponsor: z.string().max(100).optional(),
+  risk: z.literal("1").optional(),
+  archived: z.literal("1").optional(),
+});
+export type BoardFilters = z.infer<typeof boardFiltersSchema>;
+export const boardFilterKeys = ["owner", "tag", "sponsor", "risk", "archived"] as const;
 
 export const episodeSummarySchema = z.object({
   id: z.string(),
@@ -14,3 +126,98 @@ export const episodeSummarySchema = z.object({
   archivedAt: z.string().nullable(),
 });
 export type EpisodeSummary = z.infer<typeof episodeSummarySchema>;
+
+/**
+ * A card on the board: what matters at a glance, and no more (a board may hold thousands). The
+ * order of the list is the board's order; the rank itself stays on the server.
+ */
+export interface BoardCard {
+  id: string;
+  title: string;
+  stage: Stage;
+  version: number;
+  ownerId: string | null;
+  ownerName: string | null;
+  targetPublishDate: string | null;
+  archivedAt: string | null;
+  tags: string[];
+  daysInStage: number;
+  /** Due date of the current stage, when there is a publish date. */
+  stageDue: string | null;
+  flags: BoardFlag[];
+}
+
+export interface Board {
+  episodes: BoardCard[];
+  /** Flags other features raise, by episode id; shown after the card's own. */
+  flags: Record<string, BoardFlag[]>;
+  /** The viewer's today, in their time zone: what "overdue" was measured against. */
+  today: string;
+  sponsorOptions: { value: string; label: string }[];
+  /** Every tag on the channel's cards (before filters), for the tag filter. */
+  tags: string[];
+}
+
+export interface EpisodeRecord extends EpisodeSummary {
+  origin: Origin;
+  originLink: string | null;
+  whyWorthIt: string;
+  tags: string[];
+  budgetAmount: string | null;
+  budgetCurrency: string | null;
+  stageEnteredAt: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface EpisodeDetail {
+  episode: EpisodeRecord;
+  /** Null while the episode has no target publish date. */
+  schedule: ScheduledStage[] | null;
+  stageLengths: StageLengths;
+  risks: RiskReason[];
+  flags: BoardFlag[];
+  today: string;
+}
+
+export interface HistoryEntry {
+  id: string;
+  from: Stage | null;
+  to: Stage;
+  at: string;
+  byId: string | null;
+  byName: string | null;
+  reason: string | null;
+  skipped: GateProblem[];
+}
+
+export interface EpisodeHistory {
+  entries: HistoryEntry[];
+  timeInStage: { stage: Stage; ms: number; visits: number }[];
+}
+
+export interface EpisodeComment {
+  id: string;
+  authorId: string | null;
+  authorName: string | null;
+  body: string;
+  mentions: { id: string; name: string }[];
+  createdAt: string;
+}
+
+export interface SlatePerson {
+  id: string;
+  name: string;
+}
+
+/** The 409 answer: the episode as it is now, so the client can show what changed. */
+export interface ConflictBody {
+  error: { code: "conflict"; message: string };
+  current: EpisodeSummary;
+}
+
+/** The 422 answer to a forward move past missing essentials, until a reason confirms it. */
+export interface GateBody {
+  error: { code: "unprocessable"; message: string };
+  problems: GateProblem[];
+}

@@ -68,6 +68,13 @@ export const anchorLabels: Record<Anchor, string> = {
   fixed: "fixed date",
 };
 
+/** "3 days before publish", "1 day after go-live", "fixed date". */
+export function describeDating(anchor: Anchor, offsetDays: number): string {
+  if (anchor === "fixed") return anchorLabels.fixed;
+  const unit = offsetDays === 1 ? "day" : "days";
+  return `${offsetDays} ${unit} ${anchor === "before_publish" ? "before publish" : "after go-live"}`;
+}
+
 export interface ScheduleBasis {
   /** The episode's target publish date. */
   publishDate: IsoDate | null;

@@ -7,10 +7,14 @@ import { MembersPage } from "../features/channels/components/MembersPage";
 import { NewChannelPage } from "../features/channels/components/NewChannelPage";
 import { EpisodePage } from "../features/slate/components/EpisodePage";
 import { SlatePage } from "../features/slate/components/SlatePage";
+import { StageLengthsPage } from "../features/slate/components/StageLengthsPage";
 import { ShelfPage } from "../features/bench/components/ShelfPage";
+import { PartPage } from "../features/bench/components/PartPage";
 import { RushesPage } from "../features/rushes/components/RushesPage";
+import { ShootDayPage } from "../features/rushes/components/ShootDayPage";
 import { DeskPage } from "../features/sponsors/components/DeskPage";
 import { SponsorsPage } from "../features/sponsors/components/SponsorsPage";
+import { ReviewPage } from "../features/sponsors/components/ReviewPage";
 import { episodeSections } from "./episode-sections";
 import { HomeRedirect, RedirectIfSignedIn, RequireMembership, RequireSignedIn } from "./guards";
 import { AppShell } from "./layouts/AppShell";
@@ -35,6 +39,7 @@ export const router = createBrowserRouter([
     ],
   },
   { path: "/invite/:token", element: <AcceptInvitePage /> },
+  { path: "/review/:token", element: <ReviewPage /> },
   {
     element: <RequireSignedIn />,
     children: [
@@ -49,10 +54,13 @@ export const router = createBrowserRouter([
             children: [
               { index: true, element: <HomeRedirect /> },
               { path: "slate", element: <SlatePage /> },
+              { path: "slate/schedule", element: <StageLengthsPage /> },
               { path: "episodes/:episodeId", element: <EpisodePage sections={episodeSections} /> },
               { path: "members", element: <MembersPage /> },
               { path: "shelf", element: <ShelfPage /> },
+              { path: "shelf/:partId", element: <PartPage /> },
               { path: "rushes", element: <RushesPage /> },
+              { path: "shoot-days/:shootDayId", element: <ShootDayPage /> },
               { path: "desk", element: <DeskPage /> },
               { path: "sponsors", element: <SponsorsPage /> },
             ],

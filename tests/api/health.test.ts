@@ -11,6 +11,6 @@ describe("GET /api/health", () => {
   it("answers 200 with the database and mail up", async () => {
     const visitor = await app.visitor();
     const response = await visitor.get("/api/health").expect(200);
-    expect(response.body).toEqual({ status: "ok", database: "up", mail: "up" });
+    expect(response.body).toEqual({ status: "ok", database: "up", mail: "up", storage: "up" });
   });
 });

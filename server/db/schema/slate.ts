@@ -1,8 +1,13 @@
-import { date, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { bigint, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { origins } from "../../../shared/slate/schemas";
+import type { GateProblem } from "../../../shared/slate/gates";
+import type { StageLengths } from "../../../shared/slate/schedule";
 import { stages } from "../../../shared/slate/stages";
 import { channels, users } from "./accounts";
 
 export const stageEnum = pgEnum("stage", stages);
+export const originEnum = pgEnum("episode_origin", origins);
 
 export const episodes = pgTable(
   "episodes",
@@ -13,15 +18,96 @@ export const episodes = pgTable(
       .references(() => channels.id, { onDelete: "cascade" }),
     title: text("title").notNull(),
     question: text("question").notNull().default(""),
+    origin: originEnum("origin").notNull().default("idea"),
+    originLink: text("origin_link"),
+    whyWorthIt: text("why_worth_it").notNull().default(""),
+    tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
+    budgetAmount: numeric("budget_amount", { precision: 11, scale: 2 }),
+    budgetCurrency: text("budget_currency"),
     stage: stageEnum("stage").notNull().default("challenge"),
-    // Fractional index: a move rewrites one row, never the column (see shared/slate ordering).
+    // Fractional index, compared byte by byte (the column is COLLATE "C", set in the migration
+    // slate_board_revision): a move rewrites one row, never the column.
     rank: text("rank").notNull(),
     version: integer("version").notNull().default(1),
     ownerId: uuid("owner_id").references(() => users.id, { onDelete: "set null" }),
     targetPublishDate: date("target_publish_date"),
+    // When the current stage began; the history holds every stay, this is the board's shortcut.
+    stageEnteredAt: timestamp("stage_entered_at", { withTimezone: true }).notNull().defaultNow(),
     archivedAt: timestamp("archived_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [index("episodes_channel_stage_rank_idx").on(table.channelId, table.stage, table.rank)],
+);
+
+/** Every stage move: who, when, from, to, and the reason when it went past missing essentials. */
+export const stageMoves = pgTable(
+  "stage_moves",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    // Null for the entry that opens the episode in its first stage.
+    fromStage: stageEnum("from_stage"),
+    toStage: stageEnum("to_stage").notNull(),
+    movedBy: uuid("moved_by").references(() => users.id, { onDelete: "set null" }),
+    movedAt: timestamp("moved_at", { withTimezone: true }).notNull().defaultNow(),
+    reason: text("reason"),
+    skipped: jsonb("skipped").$type<GateProblem[]>().notNull().default([]),
+  },
+  (table) => [index("stage_moves_episode_idx").on(table.episodeId, table.movedAt)],
+);
+
+/** A due date set by hand for one stage of one episode, in place of the counted one. */
+export const dueOverrides = pgTable(
+  "due_overrides",
+  {
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    stage: stageEnum("stage").notNull(),
+    dueDate: date("due_date").notNull(),
+    setBy: uuid("set_by").references(() => users.id, { onDelete: "set null" }),
+    setAt: timestamp("set_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.episodeId, table.stage] }), index("due_overrides_channel_idx").on(table.channelId)],
+);
+
+/**
+ * The slate's per-channel row: stage lengths (null: Kerf's defaults) and the board's revision, which
+ * a trigger on episodes raises on every change (migration slate_board_revision), so a cached board
+ * is known stale without reading the episodes.
+ */
+export const slateChannels = pgTable("slate_channels", {
+  channelId: uuid("channel_id")
+    .primaryKey()
+    .references(() => channels.id, { onDelete: "cascade" }),
+  stageLengths: jsonb("stage_lengths").$type<StageLengths>(),
+  boardRevision: bigint("board_revision", { mode: "number" }).notNull().default(0),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const episodeComments = pgTable(
+  "episode_comments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id").references(() => users.id, { onDelete: "set null" }),
+    body: text("body").notNull(),
+    mentions: uuid("mentions").array().notNull().default(sql`'{}'::uuid[]`),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("episode_comments_episode_idx").on(table.episodeId, table.createdAt)],
 );

@@ -1,11 +1,17 @@
+import { roleMay } from "@shared/access/roles";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty } from "../../../components/States";
+import { Loading } from "../../../components/States";
+import { useCurrentChannel } from "../../../lib/session";
+import { FootageList } from "./FootageList";
 
+/** Every clip of the channel, for the editor: filter, sort, preview, mark and export. */
 export function RushesPage() {
+  const channel = useCurrentChannel();
+  if (!channel) return <Loading />;
   return (
     <div>
-      <PageHeader title="Rushes" />
-      <Empty title="Coming soon">This page is being built.</Empty>
+      <PageHeader title="Rushes" subtitle="Every clip of the channel. Upload from an episode's page; find, mark and export here." />
+      <FootageList channelId={channel.channelId} canDelete={roleMay(channel.role, "footage", "W") && channel.role !== "crew"} />
     </div>
   );
 }

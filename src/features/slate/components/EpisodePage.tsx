@@ -1,10 +1,17 @@
+import type { ReactNode } from "react";
 import { Link, useParams } from "react-router-dom";
+import { roleMay } from "@shared/access/roles";
 import { stageLabels } from "@shared/slate/stages";
 import { PageHeader } from "../../../components/PageHeader";
 import { LoadError, Loading } from "../../../components/States";
+import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useCurrentChannel } from "../../../lib/session";
 import { useEpisode } from "../api/get-episode";
-import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
+import { ActivitySection } from "./ActivitySection";
+import { Flag } from "./Flag";
+import { HistorySection } from "./HistorySection";
+import { OverviewSection } from "./OverviewSection";
+import { ScheduleSection } from "./ScheduleSection";
 
 export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
   const channel = useCurrentChannel();
@@ -13,33 +20,75 @@ export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
   return <Episode channelId={channel.channelId} episodeId={episodeId} role={channel.role} sections={sections} />;
 }
 
+function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
+  return (
+    <section id={id} aria-labelledby={`${id}-heading`} className="mt-8 scroll-mt-4">
+      <h2 id={`${id}-heading`} className="mb-3 text-lg font-semibold">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+/** One episode: the slate's overview, schedule and history, each feature's section, then the comments. */
 function Episode({ channelId, episodeId, role, sections }: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   const episode = useEpisode(channelId, episodeId);
   if (episode.isPending) return <Loading label="Loading the episode…" />;
   if (episode.isError) return <LoadError error={episode.error} retry={() => void episode.refetch()} />;
-  const e = episode.data;
+  const detail = episode.data;
+  const e = detail.episode;
+  const canEdit = roleMay(role, "episodes", "W");
+  const contents = [
+    { id: "overview", title: "Overview" },
+    { id: "schedule", title: "Schedule" },
+    { id: "history", title: "History" },
+    ...sections.map(({ id, title }) => ({ id, title })),
+    { id: "activity", title: "Activity" },
+  ];
   return (
-    <article className="mx-auto max-w-3xl">
+    <article className="mx-auto max-w-4xl">
       <Link to={`/c/${channelId}/slate`} className="text-sm text-rust-600 underline">
         ← Slate
       </Link>
-      <PageHeader title={e.title} subtitle={e.question} />
-      <dl className="grid grid-cols-[10rem_1fr] gap-y-2 rounded-lg border border-ply-300 bg-white p-5 text-sm">
-        <dt className="text-graphite-500">Stage</dt>
-        <dd className="font-medium">{stageLabels[e.stage]}</dd>
-        <dt className="text-graphite-500">Owner</dt>
-        <dd>{e.ownerName ?? "No owner yet"}</dd>
-        <dt className="text-graphite-500">Target publish date</dt>
-        <dd>{e.targetPublishDate ?? "Not set"}</dd>
-      </dl>
+      <PageHeader
+        title={e.title}
+        subtitle={
+          <>
+            {e.question && <span className="block">{e.question}</span>}
+            <span className="mt-2 flex flex-wrap items-center gap-1">
+              <span className="rounded bg-graphite-900 px-2 py-0.5 text-xs font-semibold text-ply-50">{stageLabels[e.stage]}</span>
+              {detail.flags.map((flag) => (
+                <Flag key={flag.code} flag={flag} />
+              ))}
+            </span>
+          </>
+        }
+      />
+      <nav aria-label="On this page" className="flex flex-wrap gap-3 text-sm">
+        {contents.map((c) => (
+          <a key={c.id} href={`#${c.id}`} className="text-rust-600 underline">
+            {c.title}
+          </a>
+        ))}
+      </nav>
+      <Section id="overview" title="Overview">
+        <OverviewSection channelId={channelId} detail={detail} canEdit={canEdit} />
+      </Section>
+      <Section id="schedule" title="Schedule">
+        <ScheduleSection channelId={channelId} detail={detail} canEdit={canEdit} />
+      </Section>
+      <Section id="history" title="History">
+        <HistorySection channelId={channelId} episodeId={episodeId} />
+      </Section>
       {sections.map(({ id, title, Component }) => (
-        <section key={id} id={id} aria-labelledby={`${id}-heading`} className="mt-8">
-          <h2 id={`${id}-heading`} className="mb-3 text-lg font-semibold">
-            {title}
-          </h2>
+        <Section key={id} id={id} title={title}>
           <Component channelId={channelId} episodeId={episodeId} role={role} />
-        </section>
+        </Section>
       ))}
+      <Section id="activity" title="Activity">
+        <ActivitySection channelId={channelId} episodeId={episodeId} />
+      </Section>
     </article>
   );
 }

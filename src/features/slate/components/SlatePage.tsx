@@ -1,63 +1,117 @@
-import { Link } from "react-router-dom";
-import { stageLabels, stages } from "@shared/slate/stages";
-import type { EpisodeSummary } from "@shared/slate/schemas";
+import { useDeferredValue, useState } from "react";
+import { Link, useSearchParams } from "react-router-dom";
+import { roleMay } from "@shared/access/roles";
+import { boardFilterKeys, boardFiltersSchema, emptyEpisodeFields, type BoardFilters } from "@shared/slate/schemas";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { useCurrentChannel } from "../../../lib/session";
-import { useEpisodes } from "../api/list-episodes";
+import { useBoard } from "../api/get-board";
+import { usePeople } from "../api/get-people";
+import { useCreateEpisode } from "../api/episode-mutations";
+import { Board } from "./Board";
+import { BoardFilterBar } from "./BoardFilterBar";
+import { Dialog } from "./Dialog";
+import { EpisodeForm } from "./EpisodeForm";
+import { formatDay } from "./format";
 
-/** Every live episode of the channel, one lane per stage. */
+/** Every episode of the channel, one column per stage. */
 export function SlatePage() {
   const channel = useCurrentChannel();
   if (!channel) return <Loading />;
-  return <Slate channelId={channel.channelId} channelName={channel.channelName} />;
-}
-
-function Slate({ channelId, channelName }: { channelId: string; channelName: string }) {
-  const episodes = useEpisodes(channelId);
   return (
-    <div>
-      <PageHeader title="Slate" subtitle={`${channelName}: every episode from challenge to publish.`} />
-      {episodes.isPending && <Loading label="Loading the slate…" />}
-      {episodes.isError && <LoadError error={episodes.error} retry={() => void episodes.refetch()} />}
-      {episodes.data && episodes.data.length === 0 && <Empty title="No episodes yet">A challenge becomes an episode here.</Empty>}
-      {episodes.data && episodes.data.length > 0 && (
-        <div className="flex gap-3 overflow-x-auto pb-4">
-          {stages.map((stage, index) => {
-            const inStage = episodes.data.filter((e) => e.stage === stage && !e.archivedAt);
-            return (
-              <section key={stage} aria-labelledby={`lane-${stage}`} className="flex w-64 shrink-0 flex-col rounded-lg bg-ply-200/70 p-2">
-                <h2 id={`lane-${stage}`} className="flex items-baseline justify-between px-2 py-1 text-sm font-semibold text-graphite-700">
-                  <span>
-                    <span className="mr-1 text-graphite-500">{index + 1}</span> {stageLabels[stage]}
-                  </span>
-                  <span className="text-xs text-graphite-500">{inStage.length}</span>
-                </h2>
-                <ul className="flex flex-col gap-2">
-                  {inStage.map((episode) => (
-                    <EpisodeTile key={episode.id} channelId={channelId} episode={episode} />
-                  ))}
-                </ul>
-              </section>
-            );
-          })}
-        </div>
-      )}
-    </div>
+    <Slate
+      channelId={channel.channelId}
+      channelName={channel.channelName}
+      canMove={roleMay(channel.role, "episodes", "W")}
+      canSeeSettings={roleMay(channel.role, "members", "R")}
+    />
   );
 }
 
-function EpisodeTile({ channelId, episode }: { channelId: string; episode: EpisodeSummary }) {
+/** Filters as the URL holds them; anything malformed there is dropped rather than failing the page. */
+function useBoardFilters(): [BoardFilters, (next: BoardFilters) => void] {
+  const [params, setParams] = useSearchParams();
+  const picked = Object.fromEntries(boardFilterKeys.flatMap((key) => (params.get(key) ? [[key, params.get(key)!]] : [])));
+  const parsed = boardFiltersSchema.safeParse(picked);
+  const filters = parsed.success ? parsed.data : {};
+  const setFilters = (next: BoardFilters) => {
+    const out = new URLSearchParams();
+    for (const key of boardFilterKeys) if (next[key]) out.set(key, next[key]!);
+    setParams(out, { replace: true });
+  };
+  return [filters, setFilters];
+}
+
+function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId: string; channelName: string; canMove: boolean; canSeeSettings: boolean }) {
+  const [filters, setFilters] = useBoardFilters();
+  const board = useBoard(channelId, filters);
+  // The first paint of a big board renders in the background (React yields between cards), so the
+  // page stays responsive; later changes (a drop) render at once from the live data.
+  const firstPaint = useDeferredValue(board.data);
+  const people = usePeople(channelId);
+  const [creating, setCreating] = useState(false);
+  const [created, setCreated] = useState<string | null>(null);
+  const create = useCreateEpisode(channelId);
+  const filtered = Object.values(filters).some(Boolean);
+
   return (
-    <li>
-      <Link to={`/c/${channelId}/episodes/${episode.id}`} className="block rounded-md border-l-4 border-amber-cut bg-white p-3 shadow-sm hover:shadow">
-        <p className="font-semibold leading-snug">{episode.title}</p>
-        <p className="mt-1 line-clamp-2 text-xs text-graphite-500">{episode.question}</p>
-        <p className="mt-2 flex justify-between text-xs text-graphite-700">
-          <span>{episode.ownerName ?? "No owner"}</span>
-          {episode.targetPublishDate && <span>{episode.targetPublishDate}</span>}
-        </p>
-      </Link>
-    </li>
+    <div>
+      <PageHeader
+        title="Slate"
+        subtitle={`${channelName}: every episode from challenge to publish.`}
+        actions={
+          <>
+            {canSeeSettings && (
+              <Link to={`/c/${channelId}/slate/schedule`} className="inline-flex items-center rounded-md border border-ply-300 bg-ply-50 px-4 py-2 text-sm font-semibold hover:bg-ply-200">
+                Stage lengths
+              </Link>
+            )}
+            {canMove && <Button onClick={() => setCreating(true)}>New episode</Button>}
+          </>
+        }
+      />
+      <BoardFilterBar filters={filters} onChange={setFilters} people={people.data ?? []} board={board.data} />
+      {created && (
+        <div className="mb-3">
+          <Notice kind="success">{created}</Notice>
+        </div>
+      )}
+      {board.isPending && <Loading label="Loading the slate…" />}
+      {board.isError && <LoadError error={board.error} retry={() => void board.refetch()} />}
+      {board.data && (
+        <>
+          {board.data.episodes.length === 0 &&
+            (filtered ? (
+              <Empty title="No episodes match these filters">
+                <button type="button" className="text-rust-600 underline" onClick={() => setFilters({})}>
+                  Clear filters
+                </button>
+              </Empty>
+            ) : (
+              <Empty title="No episodes yet">{canMove ? "A challenge becomes an episode here: start with “New episode”." : "The owner starts episodes here."}</Empty>
+            ))}
+          <p className="mb-2 text-xs text-graphite-500">
+            Due dates and days in stage as of {formatDay(board.data.today)}, in your time zone.
+            {!canMove && " Your role reads the board; moving cards is for owners, producers and editors."}
+          </p>
+          {firstPaint ? <Board channelId={channelId} board={board.data} filters={filters} canMove={canMove} /> : <Loading label="Laying out the board…" />}
+        </>
+      )}
+      <Dialog open={creating} title="New episode" onClose={() => setCreating(false)} wide>
+        <EpisodeForm
+          channelId={channelId}
+          initial={emptyEpisodeFields}
+          submitLabel="Create episode"
+          onCancel={() => setCreating(false)}
+          onSubmit={async (fields) => {
+            const episode = await create.mutateAsync(fields);
+            setCreating(false);
+            setCreated(`“${episode.title}” is on the board, at the top of Challenge.`);
+          }}
+        />
+      </Dialog>
+    </div>
   );
 }

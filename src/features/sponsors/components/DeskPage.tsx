@@ -1,11 +1,119 @@
+import { Link, useSearchParams } from "react-router-dom";
+import { deliverableKindLabels, deskGroupLabels, type DeskGroup } from "@shared/sponsors/deliverables";
+import type { DeskItem } from "@shared/sponsors/schemas";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty } from "../../../components/States";
+import { Empty, LoadError, Loading } from "../../../components/States";
+import { useCurrentChannel } from "../../../lib/session";
+import { useDesk } from "../api/get-desk";
+import { StatusTag } from "./labels";
 
+// The order the producer reads the desk in; each item sits in exactly one group (see deskGroupOf).
+const shownOrder: DeskGroup[] = ["overdue", "due_soon", "waiting", "later"];
+const groupAccent: Record<DeskGroup, string> = {
+  overdue: "border-alarm-600 text-alarm-600",
+  due_soon: "border-amber-cut text-graphite-900",
+  waiting: "border-graphite-500 text-graphite-700",
+  later: "border-ply-300 text-graphite-700",
+};
+
+/** The producer's desk: every open deliverable across episodes, by what needs doing first. */
 export function DeskPage() {
+  const channel = useCurrentChannel();
+  if (!channel) return <Loading />;
+  return <Desk channelId={channel.channelId} />;
+}
+
+function Desk({ channelId }: { channelId: string }) {
+  const [params, setParams] = useSearchParams();
+  const filter = { sponsorId: params.get("sponsor") ?? undefined, episodeId: params.get("episode") ?? undefined };
+  const desk = useDesk(channelId, filter);
+  const setFilter = (key: "sponsor" | "episode", value: string) => {
+    const next = new URLSearchParams(params);
+    if (value) next.set(key, value);
+    else next.delete(key);
+    setParams(next, { replace: true });
+  };
+
   return (
-    <div>
-      <PageHeader title="Desk" />
-      <Empty title="Coming soon">This page is being built.</Empty>
+    <div className="mx-auto max-w-5xl">
+      <PageHeader title="Desk" subtitle={desk.data ? `Every open sponsor item, as of ${desk.data.today}.` : "Every open sponsor item."} />
+      {desk.isPending && <Loading label="Loading the desk…" />}
+      {desk.isError && <LoadError error={desk.error} retry={() => void desk.refetch()} />}
+      {desk.data && (
+        <>
+          <ul aria-label="Counts" className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-4">
+            {shownOrder.map((group) => (
+              <li key={group} className={`rounded-lg border-l-4 bg-white p-3 shadow-sm ${groupAccent[group]}`}>
+                <a href={`#desk-${group}`} className="block">
+                  <span className="block text-2xl font-bold" data-testid={`count-${group}`}>
+                    {desk.data.counts[group]}
+                  </span>
+                  <span className="text-sm">{deskGroupLabels[group]}</span>
+                </a>
+              </li>
+            ))}
+          </ul>
+          <div className="mb-6 flex flex-wrap gap-4">
+            <FilterSelect label="Sponsor" value={filter.sponsorId ?? ""} onChange={(v) => setFilter("sponsor", v)} options={desk.data.sponsors.map((s) => ({ value: s.id, label: s.company }))} />
+            <FilterSelect label="Episode" value={filter.episodeId ?? ""} onChange={(v) => setFilter("episode", v)} options={desk.data.episodes.map((e) => ({ value: e.id, label: e.title }))} />
+          </div>
+          {desk.data.items.length === 0 ? (
+            <Empty title="Nothing open">{filter.sponsorId || filter.episodeId ? "No open items for this filter." : "Deals' deliverables appear here once a deal has items."}</Empty>
+          ) : (
+            shownOrder.map((group) => <Group key={group} channelId={channelId} group={group} items={desk.data.items.filter((i) => i.group === group)} />)
+          )}
+        </>
+      )}
     </div>
+  );
+}
+
+function FilterSelect({ label, value, onChange, options }: { label: string; value: string; onChange: (value: string) => void; options: { value: string; label: string }[] }) {
+  const id = `desk-filter-${label.toLowerCase()}`;
+  return (
+    <div className="flex items-center gap-2 text-sm">
+      <label htmlFor={id} className="font-medium text-graphite-700">
+        {label}
+      </label>
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className="rounded-md border border-ply-300 bg-white px-2 py-1">
+        <option value="">All</option>
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+function Group({ channelId, group, items }: { channelId: string; group: DeskGroup; items: DeskItem[] }) {
+  if (items.length === 0) return null;
+  return (
+    <section id={`desk-${group}`} aria-labelledby={`desk-${group}-heading`} className="mb-6">
+      <h2 id={`desk-${group}-heading`} className="mb-2 font-semibold">
+        {deskGroupLabels[group]} <span className="text-graphite-500">({items.length})</span>
+      </h2>
+      <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white">
+        {items.map((item) => (
+          <li key={item.id} className="grid gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
+            <span className={`text-sm font-semibold ${group === "overdue" ? "text-alarm-600" : ""}`}>
+              {item.dueDate ?? "No date"}
+              {item.daysLate > 0 && <span className="block text-xs font-normal">{item.daysLate} days late</span>}
+            </span>
+            <span>
+              <Link to={`/c/${channelId}/episodes/${item.episodeId}#sponsor-deals`} className="font-medium text-graphite-900 underline decoration-ply-300 hover:decoration-rust-600">
+                {item.title}
+              </Link>
+              <span className="block text-xs text-graphite-500">
+                {item.company} · {item.episodeTitle} · {deliverableKindLabels[item.kind]}
+              </span>
+            </span>
+            <span className="text-sm text-graphite-700">{item.ownerName ?? "No owner"}</span>
+            <StatusTag status={item.status} />
+          </li>
+        ))}
+      </ul>
+    </section>
   );
 }

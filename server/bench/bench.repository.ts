@@ -1,0 +1,39 @@
+import { and, eq } from "drizzle-orm";
+import type { Database } from "../db/client";
+import { episodes } from "../db/schema/slate";
+import { notFound } from "../http/app-error";
+
+export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+/** A repository function runs on the pool or inside a caller's transaction. */
+export type Queryable = Database | Tx;
+
+/** The episode, scoped by channel: an id from another channel answers 404 like a missing one. */
+export async function requireEpisode(db: Queryable, channelId: string, episodeId: string) {
+  const rows = await db
+    .select({ id: episodes.id, title: episodes.title, stage: episodes.stage })
+    .from(episodes)
+    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)))
+    .limit(1);
+  const episode = rows[0];
+  if (!episode) throw notFound("Episode");
+  return episode;
+}
+
+/** Postgres's unique_violation: two inserts raced for the same per-episode number. */
+export function isUniqueViolation(error: unknown): boolean {
+  const code = (error as { code?: string; cause?: { code?: string } })?.code ?? (error as { cause?: { code?: string } })?.cause?.code;
+  return code === "23505";
+}
+
+/** Runs an insert that takes the next number, again when a concurrent insert took it first. */
+export async function withNextNumber<T>(attempt: () => Promise<T>, tries = 5): Promise<T> {
+  for (let i = 1; ; i++) {
+    try {
+      return await attempt();
+    } catch (error) {
+      if (i >= tries || !isUniqueViolation(error)) throw error;
+    }
+  }
+}
+
+export const iso = (date: Date | null) => date?.toISOString() ?? null;

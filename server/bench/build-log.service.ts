@@ -1,0 +1,67 @@
+import type { IterationInput, IterationView } from "../../shared/bench/schemas";
+import { iterationThrustToWeight } from "../../shared/bench/runs";
+import type { Database } from "../db/client";
+import { AppError, notFound } from "../http/app-error";
+import type { MemberContext } from "../http/route-table";
+import { requireEpisode, withNextNumber } from "./bench.repository";
+import { deleteIteration, insertIteration, listIterations, updateIteration } from "./build-log.repository";
+import { findRunRow, listRunRows } from "./runs.repository";
+
+/** The log, each iteration's thrust-to-weight recomputed from its own all-up mass and its chosen run. */
+export async function buildLog(db: Database, channelId: string, episodeId: string): Promise<IterationView[]> {
+  await requireEpisode(db, channelId, episodeId);
+  const [iterations, runs] = await Promise.all([listIterations(db, channelId, episodeId), listRunRows(db, channelId, { episodeId })]);
+  const runsById = new Map(runs.map((run) => [run.id, run]));
+  return iterations.map((row) => {
+    const run = row.chosenRunId ? runsById.get(row.chosenRunId) : undefined;
+    const thrust = run?.measurements.thrust ?? null;
+    return {
+      id: row.id,
+      number: row.number,
+      change: row.change,
+      allUpMass: row.allUpMass ?? null,
+      outcome: row.outcome,
+      chosenRunId: row.chosenRunId,
+      notes: row.notes,
+      chosenRun: run ? { id: run.id, number: run.number, label: run.label, thrust } : null,
+      thrustToWeight: iterationThrustToWeight(thrust, row.allUpMass ?? null),
+      createdAt: row.createdAt.toISOString(),
+    };
+  });
+}
+
+/** The chosen run must be one of this episode's. */
+async function normalise(db: Database, channelId: string, episodeId: string, input: IterationInput): Promise<IterationInput> {
+  if (!input.chosenRunId) return input;
+  const chosenRunId = input.chosenRunId.toLowerCase();
+  if (!(await findRunRow(db, channelId, episodeId, chosenRunId))) {
+    throw new AppError("validation_failed", "Some fields need attention.", { chosenRunId: "Pick one of this episode's runs." });
+  }
+  return { ...input, chosenRunId };
+}
+
+async function iterationView(db: Database, channelId: string, episodeId: string, iterationId: string) {
+  const view = (await buildLog(db, channelId, episodeId)).find((iteration) => iteration.id === iterationId);
+  if (!view) throw notFound("Iteration");
+  return view;
+}
+
+export async function addIteration(db: Database, member: MemberContext, episodeId: string, raw: IterationInput) {
+  const { channelId } = member;
+  await requireEpisode(db, channelId, episodeId);
+  const input = await normalise(db, channelId, episodeId, raw);
+  const { id } = await withNextNumber(() => insertIteration(db, channelId, episodeId, input, member.userId));
+  return iterationView(db, channelId, episodeId, id);
+}
+
+export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, raw: IterationInput) {
+  await requireEpisode(db, channelId, episodeId);
+  const input = await normalise(db, channelId, episodeId, raw);
+  if (!(await updateIteration(db, channelId, episodeId, iterationId, input))) throw notFound("Iteration");
+  return iterationView(db, channelId, episodeId, iterationId);
+}
+
+export async function removeIteration(db: Database, channelId: string, episodeId: string, iterationId: string) {
+  await requireEpisode(db, channelId, episodeId);
+  if (!(await deleteIteration(db, channelId, episodeId, iterationId))) throw notFound("Iteration");
+}

@@ -1,0 +1,140 @@
+import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import type { Criterion } from "../../../shared/bench/criteria";
+import type { Quantity } from "../../../shared/bench/quantity";
+import { iterationOutcomes, partKinds, type PlannedQuantity, type RunInput, type Supply } from "../../../shared/bench/schemas";
+import { channels, users } from "./accounts";
+import { episodes } from "./slate";
+
+// Quantities are stored as the person entered them ({value, unit} as jsonb), never pre-converted:
+// the figures are derived on read, so "2.4 oz" stays 2.4 oz and every conversion is tested code.
+
+export const partKindEnum = pgEnum("part_kind", partKinds);
+export const iterationOutcomeEnum = pgEnum("build_outcome", iterationOutcomes);
+
+const episodeRef = () =>
+  uuid("episode_id")
+    .notNull()
+    .references(() => episodes.id, { onDelete: "cascade" });
+const channelRef = () =>
+  uuid("channel_id")
+    .notNull()
+    .references(() => channels.id, { onDelete: "cascade" });
+const stamps = {
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+};
+
+/** One sheet per episode; absent until first saved (the API answers an empty sheet). */
+export const testPlans = pgTable("test_plans", {
+  episodeId: uuid("episode_id")
+    .primaryKey()
+    .references(() => episodes.id, { onDelete: "cascade" }),
+  channelId: channelRef(),
+  hypothesis: text("hypothesis").notNull().default(""),
+  method: text("method").notNull().default(""),
+  quantities: jsonb("quantities").$type<PlannedQuantity[]>().notNull().default([]),
+  airframeMass: jsonb("airframe_mass").$type<Quantity>(),
+  updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+  ...stamps,
+});
+
+export const testCriteria = pgTable(
+  "test_criteria",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    position: integer("position").notNull(),
+    definition: jsonb("definition").$type<Criterion>().notNull(),
+    ...stamps,
+  },
+  (table) => [index("test_criteria_episode_idx").on(table.channelId, table.episodeId, table.position)],
+);
+
+export const safetyHazards = pgTable(
+  "safety_hazards",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    kind: text("kind").notNull(),
+    title: text("title"),
+    mitigation: text("mitigation").notNull(),
+    checkedBy: uuid("checked_by").references(() => users.id, { onDelete: "set null" }),
+    checkedAt: timestamp("checked_at", { withTimezone: true }),
+    ...stamps,
+  },
+  (table) => [index("safety_hazards_episode_idx").on(table.channelId, table.episodeId)],
+);
+
+export const benchParts = pgTable(
+  "bench_parts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: channelRef(),
+    name: text("name").notNull(),
+    kind: partKindEnum("kind").notNull(),
+    mass: jsonb("mass").$type<Quantity>(),
+    ratedVoltage: jsonb("rated_voltage").$type<Quantity>(),
+    ratedCurrent: jsonb("rated_current").$type<Quantity>(),
+    priceAmount: numeric("price_amount", { precision: 10, scale: 2 }),
+    priceCurrency: text("price_currency"),
+    supplier: text("supplier").notNull().default(""),
+    notes: text("notes").notNull().default(""),
+    ...stamps,
+  },
+  (table) => [index("bench_parts_channel_idx").on(table.channelId, table.name)],
+);
+
+export const benchRuns = pgTable(
+  "bench_runs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    // Numbered per episode and never reused, so "run 3" in a video note keeps meaning run 3.
+    number: integer("number").notNull(),
+    label: text("label").notNull(),
+    supply: jsonb("supply").$type<Supply>(),
+    measurements: jsonb("measurements").$type<RunInput["measurements"]>().notNull().default({}),
+    notes: text("notes").notNull().default(""),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    ...stamps,
+  },
+  (table) => [unique("bench_runs_episode_number_key").on(table.episodeId, table.number), index("bench_runs_channel_episode_idx").on(table.channelId, table.episodeId)],
+);
+
+export const benchRunParts = pgTable(
+  "bench_run_parts",
+  {
+    runId: uuid("run_id")
+      .notNull()
+      .references(() => benchRuns.id, { onDelete: "cascade" }),
+    // Restrict: a part that was measured keeps its runs; the API says so before the database has to.
+    partId: uuid("part_id")
+      .notNull()
+      .references(() => benchParts.id, { onDelete: "restrict" }),
+    channelId: channelRef(),
+    count: integer("count").notNull(),
+    position: integer("position").notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.runId, table.partId] }), index("bench_run_parts_part_idx").on(table.channelId, table.partId)],
+);
+
+export const buildIterations = pgTable(
+  "build_iterations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    number: integer("number").notNull(),
+    change: text("change").notNull(),
+    allUpMass: jsonb("all_up_mass").$type<Quantity>(),
+    outcome: iterationOutcomeEnum("outcome").notNull().default("pending"),
+    chosenRunId: uuid("chosen_run_id").references(() => benchRuns.id, { onDelete: "set null" }),
+    notes: text("notes").notNull().default(""),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    ...stamps,
+  },
+  (table) => [unique("build_iterations_episode_number_key").on(table.episodeId, table.number), index("build_iterations_channel_episode_idx").on(table.channelId, table.episodeId)],
+);

@@ -1,0 +1,214 @@
+import { sql } from "drizzle-orm";
+import { bigint, boolean, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { clipRatings, shotKinds, shotPriorities, shotStatuses, uploadStatuses } from "../../../shared/rushes/vocabulary";
+import type { ClipMetadata } from "../../../shared/rushes/schemas";
+import { channels, users } from "./accounts";
+import { episodes } from "./slate";
+
+export const shotKindEnum = pgEnum("shot_kind", shotKinds);
+export const shotPriorityEnum = pgEnum("shot_priority", shotPriorities);
+export const shotStatusEnum = pgEnum("shot_status", shotStatuses);
+export const clipRatingEnum = pgEnum("clip_rating", clipRatings);
+export const uploadStatusEnum = pgEnum("upload_status", uploadStatuses);
+
+const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+
+export const shootDays = pgTable(
+  "shoot_days",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    day: date("day").notNull(),
+    place: text("place").notNull().default(""),
+    /** Local wall-clock time at the place, "HH:MM". */
+    callTime: text("call_time"),
+    notes: text("notes").notNull().default(""),
+    createdAt: createdAt(),
+  },
+  (t) => [index("shoot_days_channel_episode_idx").on(t.channelId, t.episodeId, t.day)],
+);
+
+export const shootDayCrew = pgTable(
+  "shoot_day_crew",
+  {
+    shootDayId: uuid("shoot_day_id")
+      .notNull()
+      .references(() => shootDays.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+  },
+  (t) => [primaryKey({ columns: [t.shootDayId, t.userId] })],
+);
+
+export const shots = pgTable(
+  "shots",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    shootDayId: uuid("shoot_day_id").references(() => shootDays.id, { onDelete: "set null" }),
+    description: text("description").notNull(),
+    kind: shotKindEnum("kind").notNull(),
+    priority: shotPriorityEnum("priority").notNull().default("normal"),
+    status: shotStatusEnum("status").notNull().default("planned"),
+    position: integer("position").notNull().default(0),
+    createdAt: createdAt(),
+  },
+  (t) => [index("shots_channel_episode_idx").on(t.channelId, t.episodeId, t.position), index("shots_shoot_day_idx").on(t.shootDayId)],
+);
+
+/** One presigned multipart upload, from its start to completion, cancellation or abandonment. */
+export const uploads = pgTable(
+  "uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    fileName: text("file_name").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    partSize: integer("part_size").notNull(),
+    partCount: integer("part_count").notNull(),
+    /** channel/episode/uuid, made by the server; never from the file name. */
+    objectKey: text("object_key").notNull().unique(),
+    storageUploadId: text("storage_upload_id").notNull(),
+    status: uploadStatusEnum("status").notNull().default("uploading"),
+    /** What the browser read from the file before upload (mediainfo.js), kept until completion. */
+    metadata: jsonb("metadata").$type<ClipMetadata>(),
+    /** The browser's own fingerprint of the file (name, size, modified time) to find it again after a reload. */
+    fingerprint: text("fingerprint").notNull().default(""),
+    clipId: uuid("clip_id"),
+    createdAt: createdAt(),
+    lastActivityAt: timestamp("last_activity_at", { withTimezone: true }).notNull().defaultNow(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (t) => [
+    index("uploads_channel_episode_status_idx").on(t.channelId, t.episodeId, t.status),
+    index("uploads_open_activity_idx").on(t.lastActivityAt).where(sql`${t.status} = 'uploading'`),
+  ],
+);
+
+/** Each part as the browser reports it stored: the stand-in cannot list parts, so Kerf keeps them. */
+export const uploadParts = pgTable(
+  "upload_parts",
+  {
+    uploadId: uuid("upload_id")
+      .notNull()
+      .references(() => uploads.id, { onDelete: "cascade" }),
+    partNumber: integer("part_number").notNull(),
+    etag: text("etag").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    recordedAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.uploadId, t.partNumber] })],
+);
+
+/** A clip exists only for an object storage confirmed complete. */
+export const clips = pgTable(
+  "clips",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    shootDayId: uuid("shoot_day_id").references(() => shootDays.id, { onDelete: "set null" }),
+    shotId: uuid("shot_id").references(() => shots.id, { onDelete: "set null" }),
+    // Bench runs and build iterations belong to the bench feature; linked by id only.
+    benchRunId: uuid("bench_run_id"),
+    buildIterationId: uuid("build_iteration_id"),
+    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    objectKey: text("object_key").notNull().unique(),
+    posterKey: text("poster_key"),
+    fileName: text("file_name").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    /** The store's ETag of the whole object (for a multipart object: MD5 of the parts' MD5s, "-N"). */
+    storageEtag: text("storage_etag"),
+    /** SHA-256 of the file, when the browser computed it. */
+    sha256: text("sha256"),
+    durationMs: integer("duration_ms").notNull().default(0),
+    frameRateNumerator: integer("frame_rate_numerator"),
+    frameRateDenominator: integer("frame_rate_denominator"),
+    dropFrame: boolean("drop_frame").notNull().default(false),
+    width: integer("width"),
+    height: integer("height"),
+    codec: text("codec"),
+    startTimecode: text("start_timecode"),
+    camera: text("camera").notNull().default(""),
+    /** When the camera says it recorded the clip; the upload time when it does not say. */
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
+    kind: shotKindEnum("kind"),
+    rating: clipRatingEnum("rating"),
+    tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
+    notes: text("notes").notNull().default(""),
+    markCount: integer("mark_count").notNull().default(0),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("clips_channel_episode_recorded_idx").on(t.channelId, t.episodeId, t.recordedAt, t.id),
+    index("clips_channel_recorded_idx").on(t.channelId, t.recordedAt, t.id),
+    index("clips_channel_rating_idx").on(t.channelId, t.rating, t.recordedAt, t.id),
+    index("clips_shot_idx").on(t.shotId),
+    index("clips_shoot_day_idx").on(t.shootDayId),
+    index("clips_tags_idx").using("gin", t.tags),
+  ],
+);
+
+export const clipMarks = pgTable(
+  "clip_marks",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    clipId: uuid("clip_id")
+      .notNull()
+      .references(() => clips.id, { onDelete: "cascade" }),
+    /** Frames from 0 at the clip's own rate, in its timecode's count (labels as typed are kept too). */
+    inFrame: integer("in_frame").notNull(),
+    outFrame: integer("out_frame").notNull(),
+    inLabel: text("in_label").notNull(),
+    outLabel: text("out_label").notNull(),
+    note: text("note").notNull().default(""),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("clip_marks_clip_idx").on(t.clipId, t.inFrame)],
+);
+
+/** Small files that stream through the server (photos for the build log, a part's photo). */
+export const stills = pgTable(
+  "stills",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id").references(() => episodes.id, { onDelete: "cascade" }),
+    objectKey: text("object_key").notNull().unique(),
+    fileName: text("file_name").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("stills_channel_idx").on(t.channelId, t.createdAt)],
+);

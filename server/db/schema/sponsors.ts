@@ -1,0 +1,235 @@
+import { boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
+import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
+import { channels, users } from "./accounts";
+import { episodes } from "./slate";
+
+export const dealStateEnum = pgEnum("deal_state", dealStates);
+export const placementEnum = pgEnum("deal_placement", placements);
+export const paymentTermsFromEnum = pgEnum("payment_terms_from", paymentTermsFrom);
+export const deliverableKindEnum = pgEnum("deliverable_kind", deliverableKinds);
+export const deliverableStatusEnum = pgEnum("deliverable_status", deliverableStatuses);
+export const deliverableAnchorEnum = pgEnum("deliverable_anchor", anchors);
+export const reviewDecisionEnum = pgEnum("review_decision", reviewDecisions);
+
+const timestamps = {
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+};
+
+export const sponsors = pgTable(
+  "sponsors",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    company: text("company").notNull(),
+    website: text("website"),
+    notes: text("notes"),
+    ...timestamps,
+  },
+  (table) => [index("sponsors_channel_idx").on(table.channelId)],
+);
+
+export const sponsorContacts = pgTable(
+  "sponsor_contacts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    sponsorId: uuid("sponsor_id")
+      .notNull()
+      .references(() => sponsors.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    email: text("email").notNull(),
+    role: text("role"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("sponsor_contacts_sponsor_idx").on(table.sponsorId)],
+);
+
+export const dealTemplates = pgTable(
+  "deal_templates",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    // Checked by templateInputSchema on the way in; read whole, never queried inside.
+    items: jsonb("items").$type<DealTemplate["items"]>().notNull(),
+    ...timestamps,
+  },
+  (table) => [index("deal_templates_channel_idx").on(table.channelId)],
+);
+
+export const deals = pgTable(
+  "deals",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id")
+      .notNull()
+      .references(() => episodes.id, { onDelete: "cascade" }),
+    sponsorId: uuid("sponsor_id")
+      .notNull()
+      .references(() => sponsors.id, { onDelete: "restrict" }),
+    contactId: uuid("contact_id").references(() => sponsorContacts.id, { onDelete: "set null" }),
+    hostId: uuid("host_id").references(() => users.id, { onDelete: "set null" }),
+    state: dealStateEnum("state").notNull().default("negotiating"),
+    placement: placementEnum("placement").notNull(),
+    segmentSeconds: integer("segment_seconds").notNull(),
+    talkingPoints: jsonb("talking_points").$type<string[]>().notNull().default([]),
+    link: text("link"),
+    promoCode: text("promo_code"),
+    disclosureText: text("disclosure_text"),
+    exclusivityNotes: text("exclusivity_notes"),
+    descriptionCopy: text("description_copy"),
+    script: text("script").notNull().default(""),
+    goLiveDate: date("go_live_date"),
+    // The episode's publish date the open items were last dated from: lets a missed move be caught up.
+    publishBasis: date("publish_basis"),
+    // Money: only roles with the "fees" area ever receive these columns.
+    feeAmount: numeric("fee_amount", { precision: 14, scale: 2 }).notNull(),
+    currency: text("currency").notNull(),
+    paymentTermsDays: integer("payment_terms_days").notNull(),
+    paymentTermsFrom: paymentTermsFromEnum("payment_terms_from").notNull(),
+    invoiceNumber: text("invoice_number"),
+    invoicedOn: date("invoiced_on"),
+    paidOn: date("paid_on"),
+    // The cut sent for review: a clip of the episode's footage (rushes), linked by id only.
+    cutClipId: uuid("cut_clip_id"),
+    // The segment as measured in the cut (out exclusive), at the cut's frame rate.
+    cutIn: text("cut_in"),
+    cutOut: text("cut_out"),
+    cutFrameRate: text("cut_frame_rate"),
+    cutDropFrame: boolean("cut_drop_frame"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (table) => [index("deals_channel_episode_idx").on(table.channelId, table.episodeId), index("deals_sponsor_idx").on(table.sponsorId)],
+);
+
+export const deliverables = pgTable(
+  "deliverables",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    dealId: uuid("deal_id")
+      .notNull()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    kind: deliverableKindEnum("kind").notNull(),
+    title: text("title").notNull(),
+    anchor: deliverableAnchorEnum("anchor").notNull(),
+    offsetDays: integer("offset_days").notNull().default(0),
+    dueDate: date("due_date"),
+    status: deliverableStatusEnum("status").notNull().default("not_started"),
+    ownerId: uuid("owner_id").references(() => users.id, { onDelete: "set null" }),
+    position: integer("position").notNull().default(0),
+    ...timestamps,
+  },
+  (table) => [index("deliverables_deal_idx").on(table.dealId), index("deliverables_channel_due_idx").on(table.channelId, table.dueDate)],
+);
+
+export const deliverableEvents = pgTable(
+  "deliverable_events",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    deliverableId: uuid("deliverable_id")
+      .notNull()
+      .references(() => deliverables.id, { onDelete: "cascade" }),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    // Kept as written: a sponsor's contact has no account, and a member may later leave.
+    actorName: text("actor_name").notNull(),
+    actorKind: text("actor_kind").$type<"member" | "sponsor" | "system">().notNull(),
+    what: text("what")
+      .$type<"created" | "status" | "due_moved" | "owner" | "edited" | "note" | "review_sent" | "review_decision" | "reminder">()
+      .notNull(),
+    fromStatus: text("from_status"),
+    toStatus: text("to_status"),
+    fromDate: date("from_date"),
+    toDate: date("to_date"),
+    note: text("note"),
+  },
+  (table) => [index("deliverable_events_item_idx").on(table.deliverableId, table.at)],
+);
+
+export const reviewLinks = pgTable(
+  "review_links",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    dealId: uuid("deal_id")
+      .notNull()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    deliverableId: uuid("deliverable_id")
+      .notNull()
+      .references(() => deliverables.id, { onDelete: "cascade" }),
+    contactId: uuid("contact_id").references(() => sponsorContacts.id, { onDelete: "set null" }),
+    // Copied at sending: the decision is recorded under the name the link was sent to.
+    contactName: text("contact_name").notNull(),
+    contactEmail: text("contact_email").notNull(),
+    sentBy: uuid("sent_by").references(() => users.id, { onDelete: "set null" }),
+    sentByName: text("sent_by_name").notNull(),
+    sentByEmail: text("sent_by_email").notNull(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    decidedAt: timestamp("decided_at", { withTimezone: true }),
+    decision: reviewDecisionEnum("decision"),
+    comment: text("comment"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("review_links_deal_idx").on(table.dealId)],
+);
+
+/**
+ * One row per reminder ever sent: the unique key is what makes a reminder go out once, however many
+ * app instances scan at the same moment. A moved due date is a new key, so it earns fresh reminders.
+ */
+export const remindersSent = pgTable(
+  "reminders_sent",
+  {
+    deliverableId: uuid("deliverable_id")
+      .notNull()
+      .references(() => deliverables.id, { onDelete: "cascade" }),
+    kind: text("kind").$type<"before" | "late">().notNull(),
+    dueDate: date("due_date").notNull(),
+    sentTo: text("sent_to").notNull(),
+    sentAt: timestamp("sent_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.deliverableId, table.kind, table.dueDate] })],
+);
+
+export const sponsorSettings = pgTable("sponsor_settings", {
+  channelId: uuid("channel_id")
+    .primaryKey()
+    .references(() => channels.id, { onDelete: "cascade" }),
+  reminderDaysBefore: integer("reminder_days_before").notNull().default(2),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const speakingRates = pgTable(
+  "speaking_rates",
+  {
+    channelId: uuid("channel_id")
+      .notNull()
+      .references(() => channels.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    wordsPerMinute: integer("words_per_minute").notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.channelId, table.userId] })],
+);

@@ -1,0 +1,185 @@
+import type { z } from "zod";
+import { decodeCursor, encodeCursor, type FootageQuery } from "../../shared/rushes/footage-query";
+import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
+import type { ClipDetail, ClipView, FootagePage, MarkInput, MarkView, markInputSchema, updateClipSchema } from "../../shared/rushes/schemas";
+import { type TimecodeFormat, describeFormat } from "../../shared/timecode/rates";
+import { markRangeAt } from "../../shared/timecode/schemas";
+import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
+import { fieldMessages } from "../../shared/http/errors";
+import { AppError, notFound } from "../http/app-error";
+import type { MemberContext } from "../http/route-table";
+import { viaStorage } from "../storage/storage";
+import * as repo from "./clips.repository";
+import * as shootRepo from "./shoot.repository";
+import type { RushesContext } from "./uploads.service";
+
+type ClipRow = repo.ClipRow;
+type MarkRow = Awaited<ReturnType<typeof repo.marksOf>>[number];
+
+const POSTER_URL_SECONDS = 30 * 60;
+
+async function posterUrl(ctx: RushesContext, row: ClipRow): Promise<string | null> {
+  if (!row.posterKey) return null;
+  // Signing is local arithmetic (no call to the store), so a list of fifty costs nothing to sign.
+  return ctx.storage.presignGet(row.posterKey, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
+}
+
+export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<ClipView> {
+  return {
+    id: row.id,
+    episodeId: row.episodeId,
+    episodeTitle: row.episodeTitle,
+    shootDayId: row.shootDayId,
+    shotId: row.shotId,
+    shotDescription: row.shotDescription,
+    benchRunId: row.benchRunId,
+    buildIterationId: row.buildIterationId,
+    fileName: row.fileName,
+    contentType: row.contentType,
+    size: row.size,
+    storageEtag: row.storageEtag,
+    sha256: row.sha256,
+    durationMs: row.durationMs,
+    frameRate: row.frameRateNumerator && row.frameRateDenominator ? { numerator: row.frameRateNumerator, denominator: row.frameRateDenominator } : null,
+    dropFrame: row.dropFrame,
+    width: row.width,
+    height: row.height,
+    codec: row.codec,
+    startTimecode: row.startTimecode,
+    camera: row.camera,
+    recordedAt: row.recordedAt.toISOString(),
+    kind: row.kind,
+    rating: row.rating,
+    tags: row.tags,
+    notes: row.notes,
+    markCount: row.markCount,
+    posterUrl: await posterUrl(ctx, row),
+    uploadedBy: row.uploadedBy,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+const toMarkView = (m: MarkRow): MarkView => ({ id: m.id, in: m.inLabel, out: m.outLabel, inFrame: m.inFrame, outFrame: m.outFrame, note: m.note });
+
+export async function listFootage(ctx: RushesContext, member: MemberContext, q: FootageQuery): Promise<FootagePage> {
+  const cursor = q.cursor ? decodeCursor(q.cursor) : null;
+  if (q.cursor && !cursor) throw new AppError("validation_failed", "That page link is out of date; start from the first page.", { cursor: "Not a page of this list." });
+  const [rows, totals] = await Promise.all([repo.listClips(ctx.db, member.channelId, q, cursor), repo.footageTotals(ctx.db, member.channelId, q)]);
+  const page = rows.slice(0, q.limit);
+  const last = page.at(-1);
+  const nextCursor = rows.length > q.limit && last ? encodeCursor({ v: last.sortValue, id: last.id }) : null;
+  return { clips: await Promise.all(page.map((row) => toClipView(ctx, row))), nextCursor, totals };
+}
+
+async function clipOrNotFound(ctx: RushesContext, member: MemberContext, clipId: string): Promise<ClipRow> {
+  const row = await repo.findClip(ctx.db, member.channelId, clipId);
+  if (!row) throw notFound("Clip");
+  return row;
+}
+
+export async function getClip(ctx: RushesContext, member: MemberContext, clipId: string): Promise<ClipDetail> {
+  const row = await clipOrNotFound(ctx, member, clipId);
+  const marks = await repo.marksOf(ctx.db, [row.id]);
+  return { ...(await toClipView(ctx, row)), marks: marks.map(toMarkView) };
+}
+
+type ClipPatch = z.infer<typeof updateClipSchema>;
+
+/** Logging: links, tags, rating, notes. Linking a shot marks it captured; unlinking may plan it again. */
+export async function updateClip(ctx: RushesContext, member: MemberContext, clipId: string, patch: ClipPatch): Promise<ClipDetail> {
+  const row = await clipOrNotFound(ctx, member, clipId);
+  const values: Record<string, unknown> = { ...patch };
+  if (patch.shotId) {
+    const shot = await shootRepo.findShot(ctx.db, member.channelId, patch.shotId);
+    if (!shot || shot.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shotId: "Choose a shot of this clip's episode." });
+    // The shot says what kind of footage this is and which day it belongs to, unless the person says otherwise.
+    if (patch.kind === undefined && row.kind === null) values.kind = shot.kind;
+    if (patch.shootDayId === undefined && row.shootDayId === null && shot.shootDayId) values.shootDayId = shot.shootDayId;
+  }
+  const shootDayId = values.shootDayId as string | null | undefined;
+  if (shootDayId) {
+    const day = await shootRepo.findShootDay(ctx.db, member.channelId, shootDayId);
+    if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
+  }
+  await ctx.db.transaction(async (tx) => {
+    await repo.updateClip(tx, member.channelId, clipId, values);
+    if (patch.shotId !== undefined && patch.shotId !== row.shotId) {
+      if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
+      if (patch.shotId) await shootRepo.refreshShotStatus(tx, patch.shotId);
+    }
+  });
+  return getClip(ctx, member, clipId);
+}
+
+/** Deleting footage: never crew (the role table). The object goes first, so a store that is down changes nothing. */
+export async function deleteClip(ctx: RushesContext, member: MemberContext, clipId: string): Promise<void> {
+  if (member.role === "crew") throw new AppError("forbidden", "Crew can upload and log footage but not delete it.");
+  const row = await clipOrNotFound(ctx, member, clipId);
+  await viaStorage(() => ctx.storage.remove(row.objectKey));
+  if (row.posterKey) await ctx.storage.remove(row.posterKey).catch(() => undefined);
+  await ctx.db.transaction(async (tx) => {
+    await repo.deleteClip(tx, member.channelId, clipId);
+    if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
+  });
+}
+
+export function clipFormat(row: Pick<ClipRow, "frameRateNumerator" | "frameRateDenominator" | "dropFrame">): TimecodeFormat | null {
+  return row.frameRateNumerator && row.frameRateDenominator ? { rate: { numerator: row.frameRateNumerator, denominator: row.frameRateDenominator }, dropFrame: row.dropFrame } : null;
+}
+
+/** In and out at the clip's own rate and count, inside the clip, out after in. */
+function checkMark(row: ClipRow, input: { in: string; out: string }): { inFrame: number; outFrame: number; inLabel: string; outLabel: string } {
+  const format = clipFormat(row);
+  if (!format) throw new AppError("unprocessable", "This clip has no frame rate, so it can't take timecode marks.");
+  const parsed = markRangeAt(format).safeParse({ in: input.in, out: input.out });
+  if (!parsed.success) throw new AppError("validation_failed", "Check the in and out points.", fieldMessages(parsed.error.issues));
+  const inFrame = parseTimecode(input.in, format);
+  const outFrame = parseTimecode(input.out, format);
+  const start = row.startTimecode ? parseTimecode(row.startTimecode, format) : 0;
+  const length = Math.round((row.durationMs / 1000) * (format.rate.numerator / format.rate.denominator));
+  const fields: Record<string, string> = {};
+  const label = (f: number) => formatTimecode(f, format);
+  if (inFrame < start) fields.in = `The clip starts at ${label(start)}; the in point can't be before it.`;
+  if (row.durationMs > 0 && outFrame > start + length) fields.out = `The clip ends at ${label(start + length)} (${describeFormat(format)}); the out point can't be after it.`;
+  if (Object.keys(fields).length > 0) throw new AppError("validation_failed", "Check the in and out points.", fields);
+  // Stored as Kerf writes labels, so "1:00:00:00"-style spacing differences never show.
+  return { inFrame, outFrame, inLabel: label(inFrame), outLabel: label(outFrame) };
+}
+
+export async function addMark(ctx: RushesContext, member: MemberContext, clipId: string, input: z.infer<typeof markInputSchema>): Promise<MarkView> {
+  const row = await clipOrNotFound(ctx, member, clipId);
+  const range = checkMark(row, input);
+  const mark = await ctx.db.transaction(async (tx) => {
+    const made = await repo.insertMark(tx, { channelId: member.channelId, clipId, ...range, note: input.note, createdBy: member.userId });
+    await repo.refreshMarkCount(tx, clipId);
+    return made;
+  });
+  return toMarkView(mark);
+}
+
+export async function updateMark(ctx: RushesContext, member: MemberContext, clipId: string, markId: string, input: Partial<MarkInput>): Promise<MarkView> {
+  const row = await clipOrNotFound(ctx, member, clipId);
+  const mark = await repo.findMark(ctx.db, member.channelId, clipId, markId);
+  if (!mark) throw notFound("Mark");
+  const range = checkMark(row, { in: input.in ?? mark.inLabel, out: input.out ?? mark.outLabel });
+  return toMarkView(await repo.updateMark(ctx.db, markId, { ...range, note: input.note ?? mark.note }));
+}
+
+export async function deleteMark(ctx: RushesContext, member: MemberContext, clipId: string, markId: string): Promise<void> {
+  await clipOrNotFound(ctx, member, clipId);
+  const mark = await repo.findMark(ctx.db, member.channelId, clipId, markId);
+  if (!mark) throw notFound("Mark");
+  await ctx.db.transaction(async (tx) => {
+    await repo.deleteMark(tx, markId);
+    await repo.refreshMarkCount(tx, clipId);
+  });
+}
+
+/** A short-lived link to one object: the preview player streams straight from the store. */
+export async function previewUrl(ctx: RushesContext, member: MemberContext, clipId: string, download: boolean) {
+  const row = await clipOrNotFound(ctx, member, clipId);
+  const url = await viaStorage(() =>
+    ctx.storage.presignGet(row.objectKey, { expiresInSeconds: PREVIEW_URL_SECONDS, contentType: row.contentType, fileName: download ? row.fileName : undefined }),
+  );
+  return { url, expiresAt: new Date(Date.now() + PREVIEW_URL_SECONDS * 1000).toISOString() };
+}

@@ -1,0 +1,123 @@
+import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
+import type { Database } from "../db/client";
+import { clips, stills, uploadParts, uploads } from "../db/schema/rushes";
+import { episodes } from "../db/schema/slate";
+
+type Executor = Pick<Database, "select" | "insert" | "update" | "delete">;
+
+export async function episodeInChannel(db: Executor, channelId: string, episodeId: string) {
+  const rows = await db
+    .select({ id: episodes.id, title: episodes.title })
+    .from(episodes)
+    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+export type NewUpload = typeof uploads.$inferInsert;
+export type UploadRow = typeof uploads.$inferSelect;
+
+export async function insertUpload(db: Executor, values: NewUpload): Promise<UploadRow> {
+  const [row] = await db.insert(uploads).values(values).returning();
+  if (!row) throw new Error("upload insert returned nothing");
+  return row;
+}
+
+export async function findUpload(db: Executor, channelId: string, uploadId: string) {
+  const rows = await db
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.channelId, channelId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/** The same row, locked for the rest of the transaction (completion and cancel must not cross). */
+export async function lockUpload(db: Executor, channelId: string, uploadId: string) {
+  const rows = await db
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.channelId, channelId)))
+    .for("update")
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+export async function partsOf(db: Executor, uploadId: string) {
+  return db
+    .select({ partNumber: uploadParts.partNumber, etag: uploadParts.etag, size: uploadParts.sizeBytes })
+    .from(uploadParts)
+    .where(eq(uploadParts.uploadId, uploadId))
+    .orderBy(asc(uploadParts.partNumber));
+}
+
+export async function partsOfMany(db: Executor, uploadIds: string[]) {
+  if (uploadIds.length === 0) return [];
+  return db
+    .select({ uploadId: uploadParts.uploadId, partNumber: uploadParts.partNumber, etag: uploadParts.etag, size: uploadParts.sizeBytes })
+    .from(uploadParts)
+    .where(inArray(uploadParts.uploadId, uploadIds))
+    .orderBy(asc(uploadParts.uploadId), asc(uploadParts.partNumber));
+}
+
+/** A part stored again (a retry) replaces the first record: the store keeps the last one too. */
+export async function recordPart(db: Executor, uploadId: string, part: { partNumber: number; etag: string; size: number }) {
+  await db
+    .insert(uploadParts)
+    .values({ uploadId, partNumber: part.partNumber, etag: part.etag, sizeBytes: part.size })
+    .onConflictDoUpdate({ target: [uploadParts.uploadId, uploadParts.partNumber], set: { etag: part.etag, sizeBytes: part.size, recordedAt: sql`now()` } });
+  await db.update(uploads).set({ lastActivityAt: sql`now()` }).where(eq(uploads.id, uploadId));
+}
+
+export async function touchUpload(db: Executor, uploadId: string) {
+  await db.update(uploads).set({ lastActivityAt: sql`now()` }).where(eq(uploads.id, uploadId));
+}
+
+export async function openUploads(db: Executor, channelId: string, filter: { episodeId?: string; createdBy?: string }) {
+  return db
+    .select()
+    .from(uploads)
+    .where(
+      and(
+        eq(uploads.channelId, channelId),
+        eq(uploads.status, "uploading"),
+        filter.episodeId ? eq(uploads.episodeId, filter.episodeId) : undefined,
+        filter.createdBy ? eq(uploads.createdBy, filter.createdBy) : undefined,
+      ),
+    )
+    .orderBy(asc(uploads.createdAt));
+}
+
+export async function finishUpload(db: Executor, uploadId: string, status: "completed" | "cancelled" | "abandoned", clipId: string | null = null) {
+  await db.update(uploads).set({ status, clipId, finishedAt: sql`now()` }).where(eq(uploads.id, uploadId));
+}
+
+export async function insertClip(db: Executor, values: typeof clips.$inferInsert) {
+  const [row] = await db.insert(clips).values(values).returning({ id: clips.id });
+  if (!row) throw new Error("clip insert returned nothing");
+  return row;
+}
+
+/** Uploads with no part recorded (nor started) since the cut-off, across every channel. */
+export async function abandonedUploads(db: Executor, before: Date, limit = 200) {
+  return db
+    .select({ id: uploads.id, channelId: uploads.channelId, objectKey: uploads.objectKey, storageUploadId: uploads.storageUploadId })
+    .from(uploads)
+    .where(and(eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before)))
+    .orderBy(asc(uploads.lastActivityAt))
+    .limit(limit);
+}
+
+export async function insertStill(db: Executor, values: typeof stills.$inferInsert) {
+  const [row] = await db.insert(stills).values(values).returning();
+  return row!;
+}
+
+export async function findStill(db: Executor, channelId: string, stillId: string) {
+  const rows = await db
+    .select()
+    .from(stills)
+    .where(and(eq(stills.id, stillId), eq(stills.channelId, channelId)))
+    .limit(1);
+  return rows[0] ?? null;
+}

@@ -1,0 +1,238 @@
+import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
+import type { ClipMetadata, UploadView } from "../../shared/rushes/schemas";
+import type { Database } from "../db/client";
+import { AppError, notFound } from "../http/app-error";
+import type { MemberContext } from "../http/route-table";
+import { type Storage, isStorageDown, storageDown, viaStorage } from "../storage/storage";
+import { footageKey } from "./object-keys";
+import * as repo from "./uploads.repository";
+
+export interface RushesContext {
+  db: Database;
+  storage: Storage;
+}
+
+type UploadRow = repo.UploadRow;
+
+function toView(row: UploadRow, parts: { partNumber: number; etag: string; size: number }[]): UploadView {
+  return {
+    id: row.id,
+    episodeId: row.episodeId,
+    fileName: row.fileName,
+    contentType: row.contentType,
+    size: row.sizeBytes,
+    partSize: row.partSize,
+    partCount: row.partCount,
+    status: row.status,
+    fingerprint: row.fingerprint,
+    parts,
+    clipId: row.clipId,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+function fileRefusal(check: Exclude<ReturnType<typeof checkClipFile>, { ok: true }>): AppError {
+  const code = check.status === 413 ? "payload_too_large" : check.status === 415 ? "unsupported_media_type" : "validation_failed";
+  return new AppError(code, check.message, check.status === 400 ? { size: check.message } : undefined);
+}
+
+/** A person starts an upload: Kerf checks the file, makes the key, and opens a multipart upload. */
+export async function startUpload(
+  ctx: RushesContext,
+  member: MemberContext,
+  input: { episodeId: string; fileName: string; size: number; fingerprint: string; metadata?: ClipMetadata },
+): Promise<UploadView> {
+  const episode = await repo.episodeInChannel(ctx.db, member.channelId, input.episodeId);
+  if (!episode) throw new AppError("validation_failed", "Some fields need attention.", { episodeId: "That episode is not in this channel." });
+  const check = checkClipFile(input.fileName, input.size);
+  if (!check.ok) throw fileRefusal(check);
+  const { partSize, partCount } = planParts(input.size);
+  const objectKey = footageKey(member.channelId, episode.id);
+  // Storage first: if it is down nothing is written, and the 503 says so.
+  const storageUploadId = await viaStorage(() => ctx.storage.createMultipart(objectKey, check.contentType));
+  const row = await repo.insertUpload(ctx.db, {
+    channelId: member.channelId,
+    episodeId: episode.id,
+    createdBy: member.userId,
+    fileName: input.fileName,
+    contentType: check.contentType,
+    sizeBytes: input.size,
+    partSize,
+    partCount,
+    objectKey,
+    storageUploadId,
+    fingerprint: input.fingerprint,
+    metadata: input.metadata ?? null,
+  });
+  return toView(row, []);
+}
+
+async function openUpload(ctx: RushesContext, member: MemberContext, uploadId: string): Promise<UploadRow> {
+  const row = await repo.findUpload(ctx.db, member.channelId, uploadId);
+  if (!row) throw notFound("Upload");
+  return row;
+}
+
+function mustBeUploading(row: UploadRow): void {
+  if (row.status === "uploading") return;
+  const why = {
+    completed: "This upload is already complete.",
+    cancelled: "This upload was cancelled; start the file again.",
+    abandoned: "This upload was stopped after a day without progress; start the file again.",
+  }[row.status];
+  throw new AppError("conflict", why, undefined, { status: row.status });
+}
+
+function checkPartNumber(row: UploadRow, partNumber: number): void {
+  if (!Number.isInteger(partNumber) || partNumber < 1 || partNumber > row.partCount) {
+    throw new AppError("validation_failed", `This file has parts 1 to ${row.partCount}.`, { partNumber: `Part ${partNumber} is not one of this file's ${row.partCount} parts.` });
+  }
+}
+
+export async function getUpload(ctx: RushesContext, member: MemberContext, uploadId: string): Promise<UploadView> {
+  const row = await openUpload(ctx, member, uploadId);
+  return toView(row, await repo.partsOf(ctx.db, row.id));
+}
+
+/** The person's unfinished uploads with the parts already stored: what the page resumes after a reload. */
+export async function listOpenUploads(ctx: RushesContext, member: MemberContext, episodeId?: string): Promise<UploadView[]> {
+  const rows = await repo.openUploads(ctx.db, member.channelId, { episodeId, createdBy: member.userId });
+  const parts = await repo.partsOfMany(ctx.db, rows.map((r) => r.id));
+  return rows.map((row) => toView(row, parts.filter((p) => p.uploadId === row.id).map(({ partNumber, etag, size }) => ({ partNumber, etag, size }))));
+}
+
+/** Presigned URLs for some parts: each for one part of one upload, for a quarter of an hour. */
+export async function signParts(ctx: RushesContext, member: MemberContext, uploadId: string, partNumbers: number[]) {
+  const row = await openUpload(ctx, member, uploadId);
+  mustBeUploading(row);
+  for (const n of partNumbers) checkPartNumber(row, n);
+  const urls = await viaStorage(() =>
+    Promise.all(
+      [...new Set(partNumbers)].map(async (partNumber) => {
+        const { start, end } = partRange(partNumber, row.partSize, row.sizeBytes);
+        return { partNumber, start, end, url: await ctx.storage.presignPart(row.objectKey, row.storageUploadId, partNumber, PART_URL_SECONDS) };
+      }),
+    ),
+  );
+  await repo.touchUpload(ctx.db, row.id);
+  return { urls, expiresAt: new Date(Date.now() + PART_URL_SECONDS * 1000).toISOString() };
+}
+
+/** The browser reports a part stored (its number, its ETag from the store, its size). */
+export async function recordPart(ctx: RushesContext, member: MemberContext, uploadId: string, partNumber: number, part: { etag: string; size: number }) {
+  const row = await openUpload(ctx, member, uploadId);
+  mustBeUploading(row);
+  checkPartNumber(row, partNumber);
+  const { start, end } = partRange(partNumber, row.partSize, row.sizeBytes);
+  if (part.size !== end - start) {
+    throw new AppError("validation_failed", `Part ${partNumber} should be ${end - start} bytes, not ${part.size}.`, { size: `Part ${partNumber} should be ${end - start} bytes.` });
+  }
+  await repo.recordPart(ctx.db, row.id, { partNumber, etag: part.etag, size: part.size });
+  return { partNumber, etag: part.etag, size: part.size };
+}
+
+function missingParts(partCount: number, stored: { partNumber: number }[]): number[] {
+  const have = new Set(stored.map((p) => p.partNumber));
+  const missing: number[] = [];
+  for (let n = 1; n <= partCount; n++) if (!have.has(n)) missing.push(n);
+  return missing;
+}
+
+const listNumbers = (numbers: number[]) => (numbers.length > 8 ? `${numbers.slice(0, 8).join(", ")} and ${numbers.length - 8} more` : numbers.join(", "));
+
+function clipValues(row: UploadRow, metadata: ClipMetadata | null, storageEtag: string | null, sha256: string | undefined) {
+  return {
+    channelId: row.channelId,
+    episodeId: row.episodeId,
+    uploadedBy: row.createdBy,
+    objectKey: row.objectKey,
+    fileName: row.fileName,
+    contentType: row.contentType,
+    sizeBytes: row.sizeBytes,
+    storageEtag,
+    sha256: sha256 ?? null,
+    durationMs: metadata?.durationMs ?? 0,
+    frameRateNumerator: metadata?.frameRate?.numerator ?? null,
+    frameRateDenominator: metadata?.frameRate?.denominator ?? null,
+    dropFrame: metadata?.dropFrame ?? false,
+    width: metadata?.width ?? null,
+    height: metadata?.height ?? null,
+    codec: metadata?.codec ?? null,
+    startTimecode: metadata?.startTimecode ?? null,
+    camera: metadata?.camera ?? "",
+    recordedAt: metadata?.recordedAt ? new Date(metadata.recordedAt) : new Date(),
+  };
+}
+
+/**
+ * Completion: only when Kerf holds a record of every part, storage accepts the list, and the stored
+ * object has the file's size. Then, and only then, the clip row exists.
+ */
+export async function completeUpload(ctx: RushesContext, member: MemberContext, uploadId: string, body: { sha256?: string; metadata?: ClipMetadata }) {
+  return ctx.db.transaction(async (tx) => {
+    const row = await repo.lockUpload(tx, member.channelId, uploadId);
+    if (!row) throw notFound("Upload");
+    if (row.status === "completed" && row.clipId) return { clipId: row.clipId, alreadyComplete: true };
+    mustBeUploading(row);
+    const parts = await repo.partsOf(tx, row.id);
+    const missing = missingParts(row.partCount, parts);
+    if (missing.length > 0) {
+      throw new AppError("conflict", `Storage doesn't have every part yet: part ${listNumbers(missing)} of ${row.partCount} still to send.`, undefined, { missing });
+    }
+    const stored = parts.reduce((sum, p) => sum + p.size, 0);
+    if (stored !== row.sizeBytes) throw new AppError("conflict", `The parts add up to ${stored} bytes; the file is ${row.sizeBytes}.`);
+
+    let etag: string | null;
+    try {
+      ({ etag } = await ctx.storage.completeMultipart(row.objectKey, row.storageUploadId, parts));
+    } catch (error) {
+      if (isStorageDown(error)) throw storageDown();
+      // A completion that reached the store before (and whose answer was lost) leaves the object there.
+      const already = await viaStorage(() => ctx.storage.head(row.objectKey));
+      if (!already || already.size !== row.sizeBytes) {
+        throw new AppError("conflict", "Storage refused the parts as recorded; send the file again.", undefined, { storage: (error as Error).name });
+      }
+      etag = already.etag;
+    }
+    const object = await viaStorage(() => ctx.storage.head(row.objectKey));
+    if (!object || object.size !== row.sizeBytes) {
+      throw new AppError("conflict", `Storage holds ${object?.size ?? 0} bytes for this file, not ${row.sizeBytes}; send the file again.`);
+    }
+    const clip = await repo.insertClip(tx, clipValues(row, body.metadata ?? row.metadata, etag ?? object.etag, body.sha256));
+    await repo.finishUpload(tx, row.id, "completed", clip.id);
+    return { clipId: clip.id, alreadyComplete: false };
+  });
+}
+
+/** Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. */
+export async function cancelUpload(ctx: RushesContext, member: MemberContext, uploadId: string) {
+  const row = await openUpload(ctx, member, uploadId);
+  if (member.role === "crew" && row.createdBy !== member.userId) {
+    throw new AppError("forbidden", "Crew can cancel only their own uploads.");
+  }
+  if (row.status === "completed") throw new AppError("conflict", "This upload is already complete; the clip stays in the footage list.");
+  if (row.status !== "uploading") return { status: row.status, storage: "nothing to do" as const };
+  let storage: "aborted" | "unsupported" | "unreachable";
+  try {
+    storage = await ctx.storage.abortMultipart(row.objectKey, row.storageUploadId);
+  } catch {
+    storage = "unreachable";
+  }
+  await repo.finishUpload(ctx.db, row.id, "cancelled");
+  return { status: "cancelled" as const, storage };
+}
+
+/** The scheduled sweep: uploads with no progress for a day are aborted (best effort) and marked. */
+export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number }> {
+  const before = new Date(now.getTime() - ABANDONED_AFTER_HOURS * 3600 * 1000);
+  let abandoned = 0;
+  for (;;) {
+    const batch = await repo.abandonedUploads(ctx.db, before);
+    if (batch.length === 0) return { abandoned };
+    for (const upload of batch) {
+      await ctx.storage.abortMultipart(upload.objectKey, upload.storageUploadId).catch(() => "unreachable");
+      await repo.finishUpload(ctx.db, upload.id, "abandoned");
+      abandoned++;
+    }
+  }
+}

@@ -1,0 +1,222 @@
+import { localDate } from "../../shared/slate/dates";
+import type { GateProblem } from "../../shared/slate/gates";
+import { timeInStages } from "../../shared/slate/history";
+import {
+  episodeFieldsSchema,
+  type EpisodeChanges,
+  type EpisodeDetail,
+  type EpisodeFields,
+  type EpisodeHistory,
+  type EpisodeRecord,
+  type EpisodeSummary,
+  type MoveEpisodeInput,
+} from "../../shared/slate/schemas";
+import { countBack, type DueOverrides } from "../../shared/slate/schedule";
+import type { Stage } from "../../shared/slate/stages";
+import type { Database } from "../db/client";
+import { AppError, notFound } from "../http/app-error";
+import type { MemberContext } from "../http/route-table";
+import { parseBody } from "../http/validate";
+import {
+  findEpisode,
+  historyOf,
+  insertEpisode,
+  moveEpisode,
+  overridesOf,
+  setDueOverride,
+  skippingMoves,
+  updateEpisode,
+  type EpisodeRow,
+  type EpisodeValues,
+  type Versioned,
+} from "./episodes.repository";
+import { externalFlags } from "./flags";
+import { gateProblems } from "./gates";
+import { slateFlags } from "./slate-flags";
+import { followPublishDate } from "../sponsors/schedule.service";
+import { isMember, slateStateOf } from "./slate.repository";
+
+export const toSummary = (row: EpisodeRow): EpisodeSummary => ({
+  id: row.id,
+  title: row.title,
+  question: row.question,
+  stage: row.stage,
+  rank: row.rank,
+  version: row.version,
+  ownerId: row.ownerId,
+  ownerName: row.ownerName,
+  targetPublishDate: row.targetPublishDate,
+  archivedAt: row.archivedAt?.toISOString() ?? null,
+});
+
+export const toRecord = (row: EpisodeRow): EpisodeRecord => ({
+  ...toSummary(row),
+  origin: row.origin,
+  originLink: row.originLink,
+  whyWorthIt: row.whyWorthIt,
+  tags: row.tags,
+  budgetAmount: row.budgetAmount,
+  budgetCurrency: row.budgetCurrency,
+  stageEnteredAt: row.stageEnteredAt.toISOString(),
+  createdAt: row.createdAt.toISOString(),
+  updatedAt: row.updatedAt.toISOString(),
+});
+
+const conflict = (current: EpisodeRow) =>
+  new AppError("conflict", "Someone else changed this episode a moment ago. You now see their version; make your change again if it still applies.", undefined, {
+    current: toSummary(current),
+  });
+
+/** Turns a versioned write's outcome into the row, a 409 with the current state, or a 404. */
+async function settled(db: Database, channelId: string, episodeId: string, outcome: Versioned<unknown>): Promise<EpisodeRow> {
+  if (outcome.outcome === "missing") throw notFound("Episode");
+  if (outcome.outcome === "stale") throw conflict(outcome.current);
+  const row = await findEpisode(db, channelId, episodeId);
+  if (!row) throw notFound("Episode");
+  return row;
+}
+
+const blankToNull = (value: string | null | undefined) => (value === "" || value === undefined ? null : value);
+
+function toValues(fields: EpisodeFields): EpisodeValues {
+  return {
+    title: fields.title,
+    question: fields.question,
+    origin: fields.origin,
+    originLink: blankToNull(fields.originLink),
+    whyWorthIt: fields.whyWorthIt,
+    ownerId: blankToNull(fields.ownerId),
+    tags: fields.tags,
+    budgetAmount: blankToNull(fields.budgetAmount),
+    budgetCurrency: blankToNull(fields.budgetAmount) === null ? null : blankToNull(fields.budgetCurrency),
+    targetPublishDate: blankToNull(fields.targetPublishDate),
+  };
+}
+
+function fieldsOf(row: EpisodeRow): EpisodeFields {
+  return {
+    title: row.title,
+    question: row.question,
+    origin: row.origin,
+    originLink: row.originLink ?? "",
+    whyWorthIt: row.whyWorthIt,
+    ownerId: row.ownerId ?? "",
+    tags: row.tags,
+    budgetAmount: row.budgetAmount ?? "",
+    budgetCurrency: row.budgetCurrency ?? "",
+    targetPublishDate: row.targetPublishDate ?? "",
+  };
+}
+
+async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined): Promise<void> {
+  if (ownerId && !(await isMember(db, channelId, ownerId))) {
+    throw new AppError("validation_failed", "Some fields need attention.", { ownerId: "Pick a member of this channel." });
+  }
+}
+
+export async function createEpisode(db: Database, member: MemberContext, fields: EpisodeFields): Promise<EpisodeRow> {
+  const values = toValues(fields);
+  await checkOwner(db, member.channelId, values.ownerId);
+  const id = await insertEpisode(db, member.channelId, values, member.userId);
+  return (await findEpisode(db, member.channelId, id))!;
+}
+
+/** An edit of some fields: checked together with the fields it leaves as they are. */
+export async function editEpisode(db: Database, member: MemberContext, episodeId: string, changes: EpisodeChanges): Promise<EpisodeRow> {
+  const current = await findEpisode(db, member.channelId, episodeId);
+  if (!current) throw notFound("Episode");
+  if (current.version !== changes.version) throw conflict(current);
+  const { version, ...fields } = changes;
+  const merged = parseBody(episodeFieldsSchema, { ...fieldsOf(current), ...fields });
+  const values = toValues(merged);
+  if (values.ownerId !== current.ownerId) await checkOwner(db, member.channelId, values.ownerId);
+  const row = await settled(db, member.channelId, episodeId, await updateEpisode(db, member.channelId, episodeId, version, values));
+  // Open sponsor deliverables counted from the publish date move with it.
+  if (row.targetPublishDate !== current.targetPublishDate) await followPublishDate(db, { channelId: member.channelId, episodeId, actorId: member.userId });
+  return row;
+}
+
+export async function setArchived(db: Database, member: MemberContext, episodeId: string, version: number, archived: boolean): Promise<EpisodeRow> {
+  const outcome = await updateEpisode(db, member.channelId, episodeId, version, { archivedAt: archived ? new Date() : null });
+  return settled(db, member.channelId, episodeId, outcome);
+}
+
+/**
+ * A move: backward always; forward past missing essentials (the gates of every feature) only with a
+ * reason, which is recorded with what was missing.
+ */
+export async function move(db: Database, member: MemberContext, episodeId: string, input: MoveEpisodeInput): Promise<EpisodeRow> {
+  if (input.afterId === episodeId || input.beforeId === episodeId) {
+    throw new AppError("validation_failed", "Some fields need attention.", { afterId: "A card can't be placed next to itself." });
+  }
+  const current = await findEpisode(db, member.channelId, episodeId);
+  if (!current) throw notFound("Episode");
+  if (current.version !== input.version) throw conflict(current);
+  const problems: GateProblem[] = current.stage === input.stage ? [] : await gateProblems({ db, channelId: member.channelId, episodeId, from: current.stage, to: input.stage });
+  if (problems.length > 0 && !input.reason) {
+    throw new AppError("unprocessable", "This episode is missing essentials for that move. Give a reason to move it on anyway.", undefined, { problems });
+  }
+  const outcome = await moveEpisode(db, {
+    channelId: member.channelId,
+    episodeId,
+    version: input.version,
+    stage: input.stage,
+    afterId: input.afterId,
+    beforeId: input.beforeId,
+    movedBy: member.userId,
+    reason: current.stage === input.stage ? null : (input.reason ?? null),
+    skipped: problems,
+  });
+  return settled(db, member.channelId, episodeId, outcome);
+}
+
+export async function overrideDueDate(db: Database, member: MemberContext, episodeId: string, stage: Stage, input: { version: number; dueDate: string | null }) {
+  if (stage === "publish") {
+    throw new AppError("validation_failed", "Some fields need attention.", { stage: "The publish stage is due on the target publish date; change that date instead." });
+  }
+  const current = await findEpisode(db, member.channelId, episodeId);
+  if (!current) throw notFound("Episode");
+  if (current.version !== input.version) throw conflict(current);
+  if (current.targetPublishDate === null && input.dueDate !== null) {
+    throw new AppError("unprocessable", "Set a target publish date first: due dates count back from it.");
+  }
+  const outcome = await setDueOverride(db, { channelId: member.channelId, episodeId, stage, version: input.version, dueDate: input.dueDate, setBy: member.userId });
+  return settled(db, member.channelId, episodeId, outcome);
+}
+
+export async function episodeDetail(db: Database, channelId: string, episodeId: string, timeZone: string): Promise<EpisodeDetail> {
+  const row = await findEpisode(db, channelId, episodeId);
+  if (!row) throw notFound("Episode");
+  const today = localDate(new Date(), timeZone);
+  const [state, overrides, skips, external] = await Promise.all([
+    slateStateOf(db, channelId),
+    overridesOf(db, channelId, episodeId),
+    skippingMoves(db, channelId, episodeId),
+    externalFlags(db, channelId, [episodeId], { timeZone, today }),
+  ]);
+  const dueOverrides: DueOverrides = Object.fromEntries(overrides.map((o) => [o.stage, o.dueDate]));
+  const skipped = skips.find((s) => s.toStage === row.stage && s.movedAt.getTime() === row.stageEnteredAt.getTime());
+  const own = slateFlags({ stage: row.stage, targetPublishDate: row.targetPublishDate, dueOverrides }, state.stageLengths, {
+    enteredOn: localDate(row.stageEnteredAt, timeZone),
+    today,
+    skipped: skipped ? { problems: skipped.skipped, reason: skipped.reason } : null,
+  });
+  return {
+    episode: toRecord(row),
+    schedule: row.targetPublishDate ? countBack(row.targetPublishDate, state.stageLengths, dueOverrides) : null,
+    stageLengths: state.stageLengths,
+    risks: own.risks,
+    flags: [...own.flags, ...(external[episodeId] ?? [])],
+    today,
+  };
+}
+
+export async function episodeHistory(db: Database, channelId: string, episodeId: string): Promise<EpisodeHistory> {
+  const row = await findEpisode(db, channelId, episodeId);
+  if (!row) throw notFound("Episode");
+  const rows = await historyOf(db, channelId, episodeId);
+  const entries = rows.map((r) => ({ ...r, at: r.at.toISOString() }));
+  // Episodes made outside the app (imports, factories) may lack the opening entry; their stay starts when they entered.
+  const moves = entries.length > 0 ? entries : [{ from: null, to: row.stage, at: row.stageEnteredAt.toISOString() }];
+  return { entries, timeInStage: timeInStages(moves, new Date()) };
+}

@@ -1,0 +1,56 @@
+import { sql, type Column, type SQL } from "drizzle-orm";
+import type { BoardFlag } from "../../shared/slate/flags";
+import type { Database } from "../db/client";
+import { sponsorBoardFilter, sponsorFlagSources } from "../sponsors/sponsors.flags";
+
+/**
+ * Flags other features put on board cards ("Sponsor item due"), beside the slate's own (at risk,
+ * essentials skipped, no publish date), which the board computes with its cached rows.
+ * A source answers for every card of a board load in one query: never one query per card.
+ */
+export interface BoardFlagSource {
+  name: string;
+  /** `viewer` gives the viewer's time zone and today's date there, for sources that count days. */
+  flagsFor(db: Database, channelId: string, episodeIds: string[], viewer?: FlagViewer): Promise<Map<string, BoardFlag[]>>;
+}
+
+export interface FlagViewer {
+  timeZone: string;
+  /** YYYY-MM-DD in that zone. */
+  today: string;
+}
+
+/**
+ * A board filter another feature owns (the sponsor filter): the choices it offers and the episodes a
+ * choice keeps. Until the feature fills it in, the board accepts the URL parameter and ignores it.
+ */
+export interface BoardFilter {
+  param: "sponsor";
+  options(db: Database, channelId: string): Promise<{ value: string; label: string }[]>;
+  episodeIds(db: Database, channelId: string, value: string): Promise<Set<string>>;
+}
+
+/**
+ * `column = any($ids)`: one array parameter however long the board. drizzle's inArray writes one
+ * parameter per id, which for a 2,000-card board measured about 13 ms a query against about 3 ms
+ * for this (dev-services/bench/slate.ts prints the sources' share of a board load).
+ */
+export const episodeIdIn = (column: Column, episodeIds: string[]): SQL => sql`${column} = any(${sql.param(episodeIds)}::uuid[])`;
+
+/** Every feature's flag sources. A feature adds its own in its <feature>.flags.ts. */
+const boardFlagSources: BoardFlagSource[] = [...sponsorFlagSources];
+
+export const boardFilters: { sponsor: BoardFilter | null } = { sponsor: sponsorBoardFilter };
+
+/** All sources' flags for these episodes, by episode id; episodes without flags are left out. */
+export async function externalFlags(db: Database, channelId: string, episodeIds: string[], viewer?: FlagViewer): Promise<Record<string, BoardFlag[]>> {
+  const out: Record<string, BoardFlag[]> = {};
+  if (episodeIds.length === 0 || boardFlagSources.length === 0) return out;
+  const results = await Promise.all(boardFlagSources.map((source) => source.flagsFor(db, channelId, episodeIds, viewer)));
+  for (const result of results) {
+    for (const [episodeId, flags] of result) {
+      if (flags.length > 0) (out[episodeId] ??= []).push(...flags);
+    }
+  }
+  return out;
+}

@@ -1,0 +1,77 @@
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { defaultStageLengths, type StageLengths } from "../../shared/slate/schedule";
+import type { Database } from "../db/client";
+import { memberships, users } from "../db/schema/accounts";
+import { episodeComments, slateChannels } from "../db/schema/slate";
+
+/** The board's revision and the channel's stage lengths, in one read: what every board load checks first. */
+export async function slateStateOf(db: Database, channelId: string): Promise<{ revision: number; stageLengths: StageLengths; custom: boolean }> {
+  const [row] = await db
+    .select({ revision: slateChannels.boardRevision, stageLengths: slateChannels.stageLengths })
+    .from(slateChannels)
+    .where(eq(slateChannels.channelId, channelId));
+  const stageLengths = row?.stageLengths ? { ...defaultStageLengths, ...row.stageLengths } : defaultStageLengths;
+  return { revision: row?.revision ?? 0, stageLengths, custom: Boolean(row?.stageLengths) };
+}
+
+/** New lengths change every due date on the board, so the revision goes up with them. */
+export async function saveStageLengths(db: Database, channelId: string, stageLengths: StageLengths): Promise<void> {
+  await db
+    .insert(slateChannels)
+    .values({ channelId, stageLengths, boardRevision: 1 })
+    .onConflictDoUpdate({
+      target: slateChannels.channelId,
+      set: { stageLengths, boardRevision: sql`${slateChannels.boardRevision} + 1`, updatedAt: sql`now()` },
+    });
+}
+
+/** The channel's members by name: owners to pick, people to mention. No e-mails: crew may read this. */
+export async function peopleOf(db: Database, channelId: string) {
+  return db
+    .select({ id: users.id, name: users.name })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.channelId, channelId))
+    .orderBy(asc(users.name));
+}
+
+export async function isMember(db: Database, channelId: string, userId: string): Promise<boolean> {
+  const rows = await db
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
+    .limit(1);
+  return rows.length > 0;
+}
+
+/** Addresses of the people a comment mentions, limited to members of the channel. */
+export async function memberAddresses(db: Database, channelId: string, userIds: string[]) {
+  if (userIds.length === 0) return [];
+  return db
+    .select({ id: users.id, name: users.name, email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.channelId, channelId), inArray(users.id, userIds)));
+}
+
+export async function commentsOf(db: Database, channelId: string, episodeId: string) {
+  return db
+    .select({
+      id: episodeComments.id,
+      authorId: episodeComments.authorId,
+      authorName: users.name,
+      body: episodeComments.body,
+      mentions: episodeComments.mentions,
+      createdAt: episodeComments.createdAt,
+    })
+    .from(episodeComments)
+    .leftJoin(users, eq(users.id, episodeComments.authorId))
+    .where(and(eq(episodeComments.channelId, channelId), eq(episodeComments.episodeId, episodeId)))
+    .orderBy(asc(episodeComments.createdAt), asc(episodeComments.id));
+}
+
+export async function insertComment(db: Database, values: { channelId: string; episodeId: string; authorId: string; body: string; mentions: string[] }) {
+  const [row] = await db.insert(episodeComments).values(values).returning({ id: episodeComments.id, createdAt: episodeComments.createdAt });
+  if (!row) throw new Error("comment insert returned nothing");
+  return row;
+}

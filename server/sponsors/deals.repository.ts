@@ -1,0 +1,215 @@
+import { and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
+import type { Database } from "../db/client";
+import { channels, users } from "../db/schema/accounts";
+import { episodes } from "../db/schema/slate";
+import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors } from "../db/schema/sponsors";
+
+// Every query is scoped by channel: an id from another channel finds nothing and answers 404.
+
+/** A database or a transaction: repositories take either. */
+export type Db = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+export type DealRow = typeof deals.$inferSelect;
+export type DeliverableRow = typeof deliverables.$inferSelect;
+export type NewEvent = Omit<typeof deliverableEvents.$inferInsert, "id" | "at">;
+
+const dealColumns = {
+  deal: deals,
+  episodeTitle: episodes.title,
+  publishDate: episodes.targetPublishDate,
+  company: sponsors.company,
+};
+
+export async function findDeal(db: Db, channelId: string, dealId: string) {
+  const [row] = await db
+    .select(dealColumns)
+    .from(deals)
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)));
+  return row ?? null;
+}
+
+export async function listEpisodeDeals(db: Db, channelId: string, episodeId: string) {
+  return db
+    .select(dealColumns)
+    .from(deals)
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .where(and(eq(deals.channelId, channelId), eq(deals.episodeId, episodeId)))
+    .orderBy(asc(deals.createdAt));
+}
+
+export async function findEpisodeInChannel(db: Db, channelId: string, episodeId: string) {
+  const [row] = await db
+    .select({ id: episodes.id, title: episodes.title, publishDate: episodes.targetPublishDate })
+    .from(episodes)
+    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)));
+  return row ?? null;
+}
+
+export async function insertDeal(db: Db, values: typeof deals.$inferInsert) {
+  const [row] = await db.insert(deals).values(values).returning();
+  return row!;
+}
+
+export async function updateDealRow(db: Db, channelId: string, dealId: string, values: Partial<typeof deals.$inferInsert>) {
+  const [row] = await db
+    .update(deals)
+    .set({ ...values, updatedAt: new Date() })
+    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)))
+    .returning();
+  return row ?? null;
+}
+
+export async function listContactsOf(db: Db, channelId: string, sponsorId: string) {
+  return db
+    .select({ id: sponsorContacts.id, name: sponsorContacts.name, email: sponsorContacts.email, role: sponsorContacts.role })
+    .from(sponsorContacts)
+    .where(and(eq(sponsorContacts.channelId, channelId), eq(sponsorContacts.sponsorId, sponsorId)))
+    .orderBy(asc(sponsorContacts.name));
+}
+
+export async function findHost(db: Db, channelId: string, userId: string) {
+  const [row] = await db
+    .select({ id: users.id, name: users.name, wordsPerMinute: speakingRates.wordsPerMinute })
+    .from(users)
+    .leftJoin(speakingRates, and(eq(speakingRates.userId, users.id), eq(speakingRates.channelId, channelId)))
+    .where(eq(users.id, userId));
+  return row ?? null;
+}
+
+// ── Deliverables and their history ─────────────────────────────────────
+
+export async function listDeliverables(db: Db, channelId: string, dealIds: string[]) {
+  if (dealIds.length === 0) return [];
+  return db
+    .select({ item: deliverables, ownerName: users.name })
+    .from(deliverables)
+    .leftJoin(users, eq(users.id, deliverables.ownerId))
+    .where(and(eq(deliverables.channelId, channelId), inArray(deliverables.dealId, dealIds)))
+    .orderBy(asc(deliverables.position), asc(deliverables.createdAt));
+}
+
+export async function findDeliverable(db: Db, channelId: string, deliverableId: string) {
+  const [row] = await db
+    .select({ item: deliverables, episodeId: deals.episodeId })
+    .from(deliverables)
+    .innerJoin(deals, eq(deals.id, deliverables.dealId))
+    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)));
+  return row ?? null;
+}
+
+export async function insertDeliverables(db: Db, rows: (typeof deliverables.$inferInsert)[]) {
+  if (rows.length === 0) return [];
+  return db.insert(deliverables).values(rows).returning();
+}
+
+export async function updateDeliverableRow(db: Db, channelId: string, deliverableId: string, values: Partial<typeof deliverables.$inferInsert>) {
+  const [row] = await db
+    .update(deliverables)
+    .set({ ...values, updatedAt: new Date() })
+    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)))
+    .returning();
+  return row ?? null;
+}
+
+export async function deleteDeliverableRow(db: Db, channelId: string, deliverableId: string): Promise<boolean> {
+  const rows = await db
+    .delete(deliverables)
+    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)))
+    .returning({ id: deliverables.id });
+  return rows.length > 0;
+}
+
+export async function nextPosition(db: Db, dealId: string): Promise<number> {
+  const [row] = await db.select({ top: sql<number>`coalesce(max(${deliverables.position}), -1)::int` }).from(deliverables).where(eq(deliverables.dealId, dealId));
+  return (row?.top ?? -1) + 1;
+}
+
+export async function insertEvents(db: Db, events: NewEvent[]) {
+  if (events.length === 0) return;
+  await db.insert(deliverableEvents).values(events);
+}
+
+export async function listEvents(db: Db, channelId: string, deliverableIds: string[]) {
+  if (deliverableIds.length === 0) return [];
+  return db
+    .select()
+    .from(deliverableEvents)
+    .where(and(eq(deliverableEvents.channelId, channelId), inArray(deliverableEvents.deliverableId, deliverableIds)))
+    .orderBy(desc(deliverableEvents.at));
+}
+
+// ── Review links ───────────────────────────────────────────────────────
+
+export async function listReviewLinks(db: Db, channelId: string, dealIds: string[]) {
+  if (dealIds.length === 0) return [];
+  return db
+    .select({ link: reviewLinks, deliverableTitle: deliverables.title })
+    .from(reviewLinks)
+    .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
+    .where(and(eq(reviewLinks.channelId, channelId), inArray(reviewLinks.dealId, dealIds)))
+    .orderBy(desc(reviewLinks.createdAt));
+}
+
+export async function insertReviewLink(db: Db, values: typeof reviewLinks.$inferInsert) {
+  const [row] = await db.insert(reviewLinks).values(values).returning();
+  return row!;
+}
+
+export async function revokeReviewLink(db: Db, channelId: string, dealId: string, linkId: string) {
+  const [row] = await db
+    .update(reviewLinks)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(reviewLinks.id, linkId), eq(reviewLinks.dealId, dealId), eq(reviewLinks.channelId, channelId), sql`${reviewLinks.revokedAt} is null`))
+    .returning();
+  return row ?? null;
+}
+
+export async function findReviewLinkInDeal(db: Db, channelId: string, dealId: string, linkId: string) {
+  const [row] = await db
+    .select()
+    .from(reviewLinks)
+    .where(and(eq(reviewLinks.id, linkId), eq(reviewLinks.dealId, dealId), eq(reviewLinks.channelId, channelId)));
+  return row ?? null;
+}
+
+/** The link a token names, with what its page shows; found by id alone (the token's signature vouches for it). */
+export async function findReviewLinkForPage(db: Db, linkId: string) {
+  const [row] = await db
+    .select({ link: reviewLinks, deal: deals, channelName: channels.name, company: sponsors.company, episodeTitle: episodes.title, deliverableTitle: deliverables.title, deliverableStatus: deliverables.status })
+    .from(reviewLinks)
+    .innerJoin(deals, eq(deals.id, reviewLinks.dealId))
+    .innerJoin(channels, eq(channels.id, reviewLinks.channelId))
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
+    .where(eq(reviewLinks.id, linkId));
+  return row ?? null;
+}
+
+/** Records the decision only if the link is still open: the one place a second decision is refused. */
+export async function claimReviewDecision(db: Db, linkId: string, decision: "approved" | "changes_asked", comment: string | null) {
+  const [row] = await db
+    .update(reviewLinks)
+    .set({ decidedAt: new Date(), decision, comment })
+    .where(and(eq(reviewLinks.id, linkId), sql`${reviewLinks.revokedAt} is null`, sql`${reviewLinks.decidedAt} is null`, sql`${reviewLinks.expiresAt} > now()`))
+    .returning();
+  return row ?? null;
+}
+
+/** Deals whose open items were dated from a publish date the episode no longer has. */
+export async function dealsBehindPublishDate(db: Db, channelId: string | null) {
+  return db
+    .select({ dealId: deals.id, channelId: deals.channelId, episodeId: deals.episodeId })
+    .from(deals)
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .where(
+      and(
+        channelId === null ? undefined : eq(deals.channelId, channelId),
+        ne(deals.state, "cancelled"),
+        sql`${deals.publishBasis} is distinct from ${episodes.targetPublishDate}`,
+      ),
+    );
+}

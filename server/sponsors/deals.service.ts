@@ -1,0 +1,302 @@
+import { roleMay, type Role } from "../../shared/access/roles";
+import { dateInZone } from "../../shared/sponsors/dates";
+import { generateDeliverables, isCutKind, isMoneyKind, latenessOf, type TemplateItem } from "../../shared/sponsors/deliverables";
+import { checkDisclosure } from "../../shared/sponsors/disclosure";
+import { DEFAULT_WORDS_PER_MINUTE, analyseRead, measuredSeconds, mentionsCode, mentionsLink } from "../../shared/sponsors/read";
+import type { DealView, DeliverableEvent, DeliverableView, Money, ReviewLinkView } from "../../shared/sponsors/schemas";
+import type { createDealSchema, cutSchema, updateDealSchema } from "../../shared/sponsors/schemas";
+import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
+import type { z } from "zod";
+import type { Database } from "../db/client";
+import { AppError, notFound } from "../http/app-error";
+import { findCutClips, listEpisodeClips } from "./cut.repository";
+import {
+  findDeal,
+  findEpisodeInChannel,
+  findHost,
+  insertDeal,
+  insertDeliverables,
+  insertEvents,
+  listContactsOf,
+  listDeliverables,
+  listEvents,
+  listReviewLinks,
+  updateDealRow,
+  type DealRow,
+} from "./deals.repository";
+import { redateDeal, type Actor } from "./schedule.service";
+import { findSponsor, findTemplate, isMember, listMembersWithRates } from "./sponsors.repository";
+import { reviewStateOf } from "./review-token";
+
+/** The signed-in member a view is made for: what they may see depends on the role. */
+export interface Viewer {
+  channelId: string;
+  userId: string;
+  name: string;
+  role: Role;
+  timeZone: string;
+}
+
+export const seesFees = (role: Role) => roleMay(role, "fees", "R");
+export const runsDeliverables = (role: Role) => roleMay(role, "deliverables", "W");
+/** The editor delivers the cut: attaching it and measuring the segment are theirs as well. */
+export const deliversCut = (role: Role) => runsDeliverables(role) || role === "editor";
+
+export const actorOf = (viewer: Viewer): Actor => ({ id: viewer.userId, name: viewer.name, kind: "member" });
+
+type DealWithJoins = NonNullable<Awaited<ReturnType<typeof findDeal>>>;
+
+function moneyOf(deal: DealRow): Money {
+  return {
+    fee: Number(deal.feeAmount),
+    currency: deal.currency,
+    paymentTermsDays: deal.paymentTermsDays,
+    paymentTermsFrom: deal.paymentTermsFrom,
+    invoiceNumber: deal.invoiceNumber,
+    invoicedOn: deal.invoicedOn,
+    paidOn: deal.paidOn,
+  };
+}
+
+function cutTimingOf(deal: DealRow): DealView["cut"]["timing"] {
+  if (!deal.cutIn || !deal.cutOut || !deal.cutFrameRate) return null;
+  const rate = frameRates[deal.cutFrameRate as FrameRateName];
+  if (!rate) return null;
+  const format = { rate, dropFrame: deal.cutDropFrame ?? false };
+  return { inTimecode: deal.cutIn, outTimecode: deal.cutOut, frameRate: deal.cutFrameRate, dropFrame: format.dropFrame, measuredSeconds: measuredSeconds(deal.cutIn, deal.cutOut, format) };
+}
+
+/**
+ * The deals as this viewer may see them. Editor and crew get the segment's requirements and the
+ * items they may read; the fee, payment terms and the invoice and payment items are left out of the
+ * answer altogether (not blanked), and review links go only to the roles that send them.
+ */
+export async function dealViews(db: Database, viewer: Viewer, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
+  const dealIds = rows.map((r) => r.deal.id);
+  const today = dateInZone(now, viewer.timeZone);
+  const fees = seesFees(viewer.role);
+  const items = (await listDeliverables(db, viewer.channelId, dealIds)).filter((row) => fees || !isMoneyKind(row.item.kind));
+  const events = await listEvents(db, viewer.channelId, items.map((row) => row.item.id));
+  const links = runsDeliverables(viewer.role) ? await listReviewLinks(db, viewer.channelId, dealIds) : [];
+  const clipIds = rows.map((r) => r.deal.cutClipId).filter((id): id is string => id !== null);
+  const cutClips = await findCutClips(db, viewer.channelId, clipIds);
+  const choices = deliversCut(viewer.role) ? await listEpisodeClips(db, viewer.channelId, [...new Set(rows.map((r) => r.deal.episodeId))]) : [];
+
+  const views: DealView[] = [];
+  for (const row of rows) {
+    const deal = row.deal;
+    const contacts = await listContactsOf(db, viewer.channelId, deal.sponsorId);
+    const host = deal.hostId ? await findHost(db, viewer.channelId, deal.hostId) : null;
+    const wordsPerMinute = host?.wordsPerMinute ?? DEFAULT_WORDS_PER_MINUTE;
+    const description = deal.descriptionCopy ?? "";
+    const clip = cutClips.find((c) => c.id === deal.cutClipId);
+    const view: DealView = {
+      id: deal.id,
+      episodeId: deal.episodeId,
+      episodeTitle: row.episodeTitle,
+      publishDate: row.publishDate,
+      sponsor: { id: deal.sponsorId, company: row.company },
+      contact: contacts.find((c) => c.id === deal.contactId) ?? null,
+      contacts,
+      state: deal.state,
+      placement: deal.placement,
+      segmentSeconds: deal.segmentSeconds,
+      talkingPoints: deal.talkingPoints,
+      link: deal.link,
+      promoCode: deal.promoCode,
+      disclosureText: deal.disclosureText,
+      exclusivityNotes: deal.exclusivityNotes,
+      descriptionCopy: deal.descriptionCopy,
+      script: deal.script,
+      goLiveDate: deal.goLiveDate,
+      host: { id: host?.id ?? null, name: host?.name ?? null, wordsPerMinute },
+      read: analyseRead({ script: deal.script, wordsPerMinute, contractedSeconds: deal.segmentSeconds, talkingPoints: deal.talkingPoints, link: deal.link, promoCode: deal.promoCode }),
+      disclosure: {
+        ...checkDisclosure({ script: deal.script, description, wording: deal.disclosureText }),
+        linkInDescription: deal.link ? mentionsLink(description, deal.link) : null,
+        codeInDescription: deal.promoCode ? mentionsCode(description, deal.promoCode) : null,
+      },
+      cut: { clip: clip ? { id: clip.id, fileName: clip.fileName, durationSeconds: clip.durationMs / 1000 } : null, timing: cutTimingOf(deal) },
+      deliverables: items
+        .filter((i) => i.item.dealId === deal.id)
+        .map(({ item, ownerName }): DeliverableView => ({
+          id: item.id,
+          dealId: item.dealId,
+          kind: item.kind,
+          title: item.title,
+          anchor: item.anchor,
+          offsetDays: item.offsetDays,
+          dueDate: item.dueDate,
+          status: item.status,
+          ownerId: item.ownerId,
+          ownerName,
+          ...latenessOf(item, today),
+          canEdit: runsDeliverables(viewer.role) || (viewer.role === "editor" && isCutKind(item.kind)),
+          history: events
+            .filter((e) => e.deliverableId === item.id)
+            .map((e): DeliverableEvent => ({
+              id: e.id,
+              at: e.at.toISOString(),
+              actorName: e.actorName,
+              actorKind: e.actorKind,
+              what: e.what,
+              fromStatus: e.fromStatus,
+              toStatus: e.toStatus,
+              fromDate: e.fromDate,
+              toDate: e.toDate,
+              note: e.note,
+            })),
+        })),
+    };
+    if (runsDeliverables(viewer.role)) {
+      view.reviewLinks = links
+        .filter((l) => l.link.dealId === deal.id)
+        .map(({ link, deliverableTitle }): ReviewLinkView => ({
+          id: link.id,
+          deliverableId: link.deliverableId,
+          deliverableTitle,
+          contactName: link.contactName,
+          contactEmail: link.contactEmail,
+          sentByName: link.sentByName,
+          sentAt: link.createdAt.toISOString(),
+          expiresAt: link.expiresAt.toISOString(),
+          state: reviewStateOf(link, now),
+          decision: link.decision,
+          comment: link.comment,
+          decidedAt: link.decidedAt?.toISOString() ?? null,
+        }));
+    }
+    if (deliversCut(viewer.role)) view.cutChoices = choices.filter((c) => c.episodeId === deal.episodeId).map((c) => ({ id: c.id, fileName: c.fileName }));
+    if (fees) view.money = moneyOf(deal);
+    views.push(view);
+  }
+  return views;
+}
+
+export async function dealView(db: Database, viewer: Viewer, dealId: string): Promise<DealView> {
+  const row = await findDeal(db, viewer.channelId, dealId);
+  if (!row) throw notFound("Deal");
+  const [view] = await dealViews(db, viewer, [row]);
+  return view!;
+}
+
+async function checkReferences(db: Database, channelId: string, sponsorId: string, input: { contactId?: string | null; hostId?: string | null }) {
+  if (input.contactId) {
+    const contacts = await listContactsOf(db, channelId, sponsorId);
+    if (!contacts.some((c) => c.id === input.contactId)) throw new AppError("validation_failed", "Some fields need attention.", { contactId: "Pick one of this sponsor's contacts." });
+  }
+  if (input.hostId && !(await isMember(db, channelId, input.hostId))) {
+    throw new AppError("validation_failed", "Some fields need attention.", { hostId: "Pick a member of this channel as the host." });
+  }
+}
+
+/** Picks the member a template item names by role: the deal's maker if the role is theirs, else the longest-standing. */
+function ownerFor(item: TemplateItem, viewer: Viewer, members: { userId: string; role: Role }[]): string {
+  if (item.ownerRole === null || item.ownerRole === viewer.role) return viewer.userId;
+  return members.find((m) => m.role === item.ownerRole)?.userId ?? viewer.userId;
+}
+
+export async function createDeal(db: Database, viewer: Viewer, input: z.output<typeof createDealSchema>): Promise<DealView> {
+  const episode = await findEpisodeInChannel(db, viewer.channelId, input.episodeId);
+  if (!episode) throw new AppError("validation_failed", "Some fields need attention.", { episodeId: "Pick an episode of this channel." });
+  const sponsor = await findSponsor(db, viewer.channelId, input.sponsorId);
+  if (!sponsor) throw new AppError("validation_failed", "Some fields need attention.", { sponsorId: "Pick a sponsor of this channel." });
+  await checkReferences(db, viewer.channelId, sponsor.id, input);
+  const template = input.templateId ? await findTemplate(db, viewer.channelId, input.templateId) : null;
+  if (input.templateId && !template) throw new AppError("validation_failed", "Some fields need attention.", { templateId: "Pick one of the channel's templates." });
+  const members = await listMembersWithRates(db, viewer.channelId);
+
+  const dealId = await db.transaction(async (tx) => {
+    const { money, templateId: _templateId, ...segment } = input;
+    const deal = await insertDeal(tx, {
+      ...segment,
+      channelId: viewer.channelId,
+      publishBasis: episode.publishDate,
+      feeAmount: money.fee.toFixed(2),
+      currency: money.currency,
+      paymentTermsDays: money.paymentTermsDays,
+      paymentTermsFrom: money.paymentTermsFrom,
+      invoiceNumber: money.invoiceNumber,
+      invoicedOn: money.invoicedOn,
+      paidOn: money.paidOn,
+      createdBy: viewer.userId,
+    });
+    const generated = generateDeliverables(template?.items ?? [], { publishDate: episode.publishDate, goLiveDate: deal.goLiveDate });
+    const inserted = await insertDeliverables(
+      tx,
+      generated.map((item) => ({
+        channelId: viewer.channelId,
+        dealId: deal.id,
+        kind: item.kind,
+        title: item.title,
+        anchor: item.anchor,
+        offsetDays: item.offsetDays,
+        dueDate: item.dueDate,
+        position: item.position,
+        ownerId: ownerFor(item, viewer, members),
+      })),
+    );
+    await insertEvents(
+      tx,
+      inserted.map((item) => ({
+        channelId: viewer.channelId,
+        deliverableId: item.id,
+        actorId: viewer.userId,
+        actorName: viewer.name,
+        actorKind: "member" as const,
+        what: "created" as const,
+        toStatus: item.status,
+        toDate: item.dueDate,
+        note: template ? `From the template "${template.name}"` : null,
+      })),
+    );
+    return deal.id;
+  });
+  return dealView(db, viewer, dealId);
+}
+
+export async function updateDeal(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
+  const current = await findDeal(db, viewer.channelId, dealId);
+  if (!current) throw notFound("Deal");
+  await checkReferences(db, viewer.channelId, current.deal.sponsorId, input);
+  await db.transaction(async (tx) => {
+    const updated = await updateDealRow(tx, viewer.channelId, dealId, input);
+    if (updated && input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
+      const note = updated.goLiveDate ? `Go-live set to ${updated.goLiveDate}` : "Go-live follows the publish date again";
+      await redateDeal(tx, updated, current.publishDate, actorOf(viewer), note);
+    }
+  });
+  return dealView(db, viewer, dealId);
+}
+
+export async function updateMoney(db: Database, viewer: Viewer, dealId: string, money: Money): Promise<DealView> {
+  const updated = await updateDealRow(db, viewer.channelId, dealId, {
+    feeAmount: money.fee.toFixed(2),
+    currency: money.currency,
+    paymentTermsDays: money.paymentTermsDays,
+    paymentTermsFrom: money.paymentTermsFrom,
+    invoiceNumber: money.invoiceNumber,
+    invoicedOn: money.invoicedOn,
+    paidOn: money.paidOn,
+  });
+  if (!updated) throw notFound("Deal");
+  return dealView(db, viewer, dealId);
+}
+
+export async function updateCut(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
+  if (!deliversCut(viewer.role)) throw new AppError("forbidden", "Only the editor, a producer or an owner can set the cut.");
+  const current = await findDeal(db, viewer.channelId, dealId);
+  if (!current) throw notFound("Deal");
+  if (input.clipId) {
+    const [clip] = await findCutClips(db, viewer.channelId, [input.clipId]);
+    if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
+  }
+  await updateDealRow(db, viewer.channelId, dealId, {
+    cutClipId: input.clipId,
+    cutIn: input.timing?.inTimecode ?? null,
+    cutOut: input.timing?.outTimecode ?? null,
+    cutFrameRate: input.timing?.frameRate ?? null,
+    cutDropFrame: input.timing?.dropFrame ?? null,
+  });
+  return dealView(db, viewer, dealId);
+}

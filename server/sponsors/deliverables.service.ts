@@ -1,0 +1,93 @@
+import type { z } from "zod";
+import { dueDateFor, isCutKind, isMoneyKind } from "../../shared/sponsors/deliverables";
+import type { newDeliverableSchema, updateDeliverableSchema } from "../../shared/sponsors/schemas";
+import type { Database } from "../db/client";
+import { AppError, notFound } from "../http/app-error";
+import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type NewEvent } from "./deals.repository";
+import { runsDeliverables, seesFees, type Viewer } from "./deals.service";
+import { isMember } from "./sponsors.repository";
+
+async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
+  if (ownerId && !(await isMember(db, channelId, ownerId))) {
+    throw new AppError("validation_failed", "Some fields need attention.", { ownerId: "Pick a member of this channel." });
+  }
+}
+
+export async function addDeliverable(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof newDeliverableSchema>) {
+  const deal = await findDeal(db, viewer.channelId, dealId);
+  if (!deal) throw notFound("Deal");
+  await checkOwner(db, viewer.channelId, input.ownerId);
+  const dueDate = dueDateFor(input, { publishDate: deal.publishDate, goLiveDate: deal.deal.goLiveDate });
+  await db.transaction(async (tx) => {
+    const [item] = await insertDeliverables(tx, [
+      {
+        channelId: viewer.channelId,
+        dealId,
+        kind: input.kind,
+        title: input.title,
+        anchor: input.anchor,
+        offsetDays: input.anchor === "fixed" ? 0 : input.offsetDays,
+        dueDate,
+        ownerId: input.ownerId ?? viewer.userId,
+        position: await nextPosition(tx, dealId),
+      },
+    ]);
+    await insertEvents(tx, [
+      { channelId: viewer.channelId, deliverableId: item!.id, actorId: viewer.userId, actorName: viewer.name, actorKind: "member", what: "created", toStatus: item!.status, toDate: dueDate },
+    ]);
+  });
+}
+
+/**
+ * Owners and producers change anything on an item; an editor changes only the status (and adds a
+ * note) on the cut items they deliver; crew reads. Money items don't exist for roles that can't see fees.
+ */
+export async function updateDeliverable(db: Database, viewer: Viewer, deliverableId: string, input: z.output<typeof updateDeliverableSchema>) {
+  const found = await findDeliverable(db, viewer.channelId, deliverableId);
+  if (!found || (isMoneyKind(found.item.kind) && !seesFees(viewer.role))) throw notFound("Deliverable");
+  const item = found.item;
+  if (!runsDeliverables(viewer.role)) {
+    const onlyStatus = Object.keys(input).every((key) => key === "status" || key === "note");
+    if (!(viewer.role === "editor" && isCutKind(item.kind))) throw new AppError("forbidden", "Your role may read this item but not change it.");
+    if (!onlyStatus) throw new AppError("forbidden", "An editor can change the status of the cut items they deliver, not their dates, owner or title.");
+  }
+  await checkOwner(db, viewer.channelId, input.ownerId);
+
+  const deal = await findDeal(db, viewer.channelId, item.dealId);
+  const anchor = input.anchor ?? item.anchor;
+  const datingChanged = input.anchor !== undefined || input.offsetDays !== undefined || input.fixedDate !== undefined;
+  if (anchor === "fixed" && datingChanged && !input.fixedDate && item.anchor !== "fixed") {
+    throw new AppError("validation_failed", "Some fields need attention.", { fixedDate: "Enter the date." });
+  }
+  const offsetDays = anchor === "fixed" ? 0 : (input.offsetDays ?? item.offsetDays);
+  const dueDate = datingChanged
+    ? dueDateFor({ anchor, offsetDays, fixedDate: input.fixedDate ?? item.dueDate }, { publishDate: deal?.publishDate ?? null, goLiveDate: deal?.deal.goLiveDate ?? null })
+    : item.dueDate;
+
+  const base = { channelId: viewer.channelId, deliverableId, actorId: viewer.userId, actorName: viewer.name, actorKind: "member" as const };
+  const events: NewEvent[] = [];
+  if (input.status !== undefined && input.status !== item.status) events.push({ ...base, what: "status", fromStatus: item.status, toStatus: input.status, note: input.note ?? null });
+  if (input.ownerId !== undefined && input.ownerId !== item.ownerId) events.push({ ...base, what: "owner", note: null });
+  if (dueDate !== item.dueDate) events.push({ ...base, what: "due_moved", fromDate: item.dueDate, toDate: dueDate, note: null });
+  if (input.title !== undefined && input.title !== item.title) events.push({ ...base, what: "edited", note: `Renamed from "${item.title}"` });
+  if (input.note && !events.some((e) => e.what === "status")) events.push({ ...base, what: "note", note: input.note });
+
+  await db.transaction(async (tx) => {
+    await updateDeliverableRow(tx, viewer.channelId, deliverableId, {
+      title: input.title,
+      status: input.status,
+      ownerId: input.ownerId,
+      anchor,
+      offsetDays,
+      dueDate,
+    });
+    await insertEvents(tx, events);
+  });
+  return found.item.dealId;
+}
+
+export async function removeDeliverable(db: Database, viewer: Viewer, deliverableId: string) {
+  const found = await findDeliverable(db, viewer.channelId, deliverableId);
+  if (!found) throw notFound("Deliverable");
+  await deleteDeliverableRow(db, viewer.channelId, deliverableId);
+}

@@ -1,0 +1,46 @@
+import { createHmac, timingSafeEqual } from "node:crypto";
+import type { ReviewLinkState } from "../../shared/sponsors/schemas";
+
+/**
+ * A sponsor's review link carries `<link id>.<expiry>.<signature>`: the signature is an HMAC-SHA-256
+ * (RFC 2104) over the id and the expiry, keyed from the server's session secret with a label of its own
+ * (so a review signature can never stand in for anything else the secret signs). A forged or altered
+ * token fails before the database is asked; the row then says whether the link was revoked, used or
+ * has expired. The token is never stored: only the row's id is in it.
+ */
+const LABEL = "kerf/review-link/v1";
+
+export interface ReviewTokens {
+  sign(linkId: string, expiresAt: Date): string;
+  /** The link id and expiry a genuine token names; null for anything else. */
+  verify(token: string): { linkId: string; expiresAt: Date } | null;
+}
+
+export function reviewTokens(secret: string): ReviewTokens {
+  const key = createHmac("sha256", secret).update(LABEL).digest();
+  const signature = (payload: string) => createHmac("sha256", key).update(payload).digest("base64url");
+  return {
+    sign(linkId, expiresAt) {
+      const payload = `${linkId.replaceAll("-", "")}.${Math.floor(expiresAt.getTime() / 1000)}`;
+      return `${payload}.${signature(payload)}`;
+    },
+    verify(token) {
+      const match = /^([0-9a-f]{32})\.(\d{1,12})\.([A-Za-z0-9_-]{43})$/.exec(token);
+      if (!match) return null;
+      const [, hex, seconds, sent] = match as unknown as [string, string, string, string];
+      const expected = Buffer.from(signature(`${hex}.${seconds}`));
+      const given = Buffer.from(sent);
+      if (expected.length !== given.length || !timingSafeEqual(expected, given)) return null;
+      const linkId = `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+      return { linkId, expiresAt: new Date(Number(seconds) * 1000) };
+    },
+  };
+}
+
+/** A link's state from its row; revocation wins over a decision, a decision over expiry. */
+export function reviewStateOf(link: { revokedAt: Date | null; decidedAt: Date | null; expiresAt: Date }, now = new Date()): ReviewLinkState {
+  if (link.revokedAt) return "revoked";
+  if (link.decidedAt) return "decided";
+  if (link.expiresAt.getTime() <= now.getTime()) return "expired";
+  return "open";
+}

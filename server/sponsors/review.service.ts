@@ -1,0 +1,256 @@
+import { eq } from "drizzle-orm";
+import { addDays } from "date-fns";
+import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/sponsors/read";
+import { deliverableStatusLabels, isMoneyKind } from "../../shared/sponsors/deliverables";
+import type { ReviewDecision, ReviewLinkView, ReviewPage, reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
+import type { z } from "zod";
+import type { Database } from "../db/client";
+import { channels, users } from "../db/schema/accounts";
+import { AppError, notFound } from "../http/app-error";
+import type { OutgoingMail } from "../mail/mailer";
+import type { Storage } from "../storage/storage";
+import { findCutClips } from "./cut.repository";
+import {
+  claimReviewDecision,
+  findDeal,
+  findDeliverable,
+  findHost,
+  findReviewLinkForPage,
+  findReviewLinkInDeal,
+  insertEvents,
+  insertReviewLink,
+  listContactsOf,
+  revokeReviewLink,
+  updateDeliverableRow,
+} from "./deals.repository";
+import type { Viewer } from "./deals.service";
+import { reviewStateOf, type ReviewTokens } from "./review-token";
+
+export interface ReviewDeps {
+  db: Database;
+  appUrl: string;
+  tokens: ReviewTokens;
+  storage: Storage | null;
+  enqueueMail(mail: OutgoingMail): Promise<void>;
+}
+
+const invalidLink = () => new AppError("not_found", "This review link is not valid. Check that you copied all of it, or ask the channel for a new one.");
+
+const reviewUrl = (appUrl: string, token: string) => `${appUrl}/review/${token}`;
+
+const decisionWords: Record<ReviewDecision, string> = { approved: "approved", changes_asked: "asked for changes to" };
+
+/** Sends one deal's review link to one of the sponsor's contacts; the item under review waits on the sponsor. */
+export async function sendReviewLink(deps: ReviewDeps, viewer: Viewer, dealId: string, input: z.output<typeof sendReviewSchema>): Promise<{ link: ReviewLinkView; url: string }> {
+  const { db } = deps;
+  const deal = await findDeal(db, viewer.channelId, dealId);
+  if (!deal) throw notFound("Deal");
+  const target = await findDeliverable(db, viewer.channelId, input.deliverableId);
+  if (!target || target.item.dealId !== dealId || isMoneyKind(target.item.kind)) {
+    throw new AppError("validation_failed", "Some fields need attention.", { deliverableId: "Pick one of this deal's items for the sponsor to review." });
+  }
+  const contact = (await listContactsOf(db, viewer.channelId, deal.deal.sponsorId)).find((c) => c.id === input.contactId);
+  if (!contact) throw new AppError("validation_failed", "Some fields need attention.", { contactId: "Pick one of this sponsor's contacts." });
+  const [channel] = await db.select({ name: channels.name }).from(channels).where(eq(channels.id, viewer.channelId));
+  const sender = await findHost(db, viewer.channelId, viewer.userId);
+  // Whole seconds: the token carries the expiry in seconds and must match the row exactly.
+  const expiresAt = new Date(Math.floor(addDays(new Date(), input.expiresInDays).getTime() / 1000) * 1000);
+
+  const link = await db.transaction(async (tx) => {
+    const row = await insertReviewLink(tx, {
+      channelId: viewer.channelId,
+      dealId,
+      deliverableId: target.item.id,
+      contactId: contact.id,
+      contactName: contact.name,
+      contactEmail: contact.email,
+      sentBy: viewer.userId,
+      sentByName: sender?.name ?? viewer.name,
+      sentByEmail: await emailOf(tx, viewer.userId),
+      expiresAt,
+    });
+    await updateDeliverableRow(tx, viewer.channelId, target.item.id, { status: "sent" });
+    await insertEvents(tx, [
+      {
+        channelId: viewer.channelId,
+        deliverableId: target.item.id,
+        actorId: viewer.userId,
+        actorName: viewer.name,
+        actorKind: "member",
+        what: "review_sent",
+        fromStatus: target.item.status,
+        toStatus: "sent",
+        note: `Review link sent to ${contact.name} <${contact.email}>, open until ${expiresAt.toISOString().slice(0, 10)}`,
+      },
+    ]);
+    return row;
+  });
+
+  const url = reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt));
+  await deps.enqueueMail({
+    to: contact.email,
+    subject: `${channel?.name ?? "A channel"} asks you to review: ${target.item.title}`,
+    text: [
+      `Hello ${contact.name},`,
+      "",
+      `${viewer.name} of ${channel?.name ?? "the channel"} asks you to review "${target.item.title}" for ${deal.company}'s segment in "${deal.episodeTitle}".`,
+      ...(input.message ? ["", input.message] : []),
+      "",
+      "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
+      url,
+      "",
+      `The link is for this one deal, works for one decision, and expires on ${expiresAt.toUTCString()}.`,
+    ].join("\n"),
+  });
+  return {
+    url,
+    link: {
+      id: link.id,
+      deliverableId: link.deliverableId,
+      deliverableTitle: target.item.title,
+      contactName: link.contactName,
+      contactEmail: link.contactEmail,
+      sentByName: link.sentByName,
+      sentAt: link.createdAt.toISOString(),
+      expiresAt: link.expiresAt.toISOString(),
+      state: "open",
+      decision: null,
+      comment: null,
+      decidedAt: null,
+    },
+  };
+}
+
+async function emailOf(db: Parameters<typeof insertEvents>[0], userId: string): Promise<string> {
+  const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
+  return row?.email ?? "";
+}
+
+/** Withdraws a link not yet used; the item no longer waits on the sponsor. */
+export async function revokeLink(db: Database, viewer: Viewer, dealId: string, linkId: string): Promise<void> {
+  const link = await findReviewLinkInDeal(db, viewer.channelId, dealId, linkId);
+  if (!link) throw notFound("Review link");
+  if (link.decidedAt) throw new AppError("conflict", "This link has been used: the sponsor's decision stands. Send a new link for another round.");
+  if (link.revokedAt) return;
+  await db.transaction(async (tx) => {
+    await revokeReviewLink(tx, viewer.channelId, dealId, linkId);
+    const target = await findDeliverable(tx, viewer.channelId, link.deliverableId);
+    if (!target) return;
+    const backTo = target.item.status === "sent" ? "not_started" : target.item.status;
+    if (backTo !== target.item.status) await updateDeliverableRow(tx, viewer.channelId, target.item.id, { status: backTo });
+    await insertEvents(tx, [
+      {
+        channelId: viewer.channelId,
+        deliverableId: target.item.id,
+        actorId: viewer.userId,
+        actorName: viewer.name,
+        actorKind: "member",
+        what: backTo !== target.item.status ? "status" : "note",
+        fromStatus: target.item.status,
+        toStatus: backTo,
+        note: `Review link to ${link.contactName} withdrawn`,
+      },
+    ]);
+  });
+}
+
+async function openToken(deps: ReviewDeps, token: string) {
+  const claim = deps.tokens.verify(token);
+  if (!claim) throw invalidLink();
+  const row = await findReviewLinkForPage(deps.db, claim.linkId);
+  // The expiry in the token must be the row's: a token re-signed for another expiry is not this link.
+  if (!row || Math.floor(row.link.expiresAt.getTime() / 1000) !== Math.floor(claim.expiresAt.getTime() / 1000)) throw invalidLink();
+  return row;
+}
+
+/** What the contact sees. A link that can no longer be used shows only that, and which channel sent it. */
+export async function reviewPage(deps: ReviewDeps, token: string): Promise<ReviewPage> {
+  const row = await openToken(deps, token);
+  const state = reviewStateOf(row.link);
+  if (state === "decided") {
+    return { state, channelName: row.channelName, decision: row.link.decision!, decidedAt: row.link.decidedAt!.toISOString(), contactName: row.link.contactName };
+  }
+  if (state !== "open") return { state, channelName: row.channelName };
+  const deal = row.deal;
+  const host = deal.hostId ? await findHost(deps.db, deal.channelId, deal.hostId) : null;
+  return {
+    state,
+    channelName: row.channelName,
+    company: row.company,
+    contactName: row.link.contactName,
+    episodeTitle: row.episodeTitle,
+    deliverableTitle: row.deliverableTitle,
+    expiresAt: row.link.expiresAt.toISOString(),
+    script: deal.script,
+    segmentSeconds: deal.segmentSeconds,
+    estimatedSeconds: readSeconds(countWords(deal.script), host?.wordsPerMinute ?? DEFAULT_WORDS_PER_MINUTE),
+    talkingPoints: deal.talkingPoints,
+    link: deal.link,
+    promoCode: deal.promoCode,
+    disclosureText: deal.disclosureText,
+    placement: deal.placement,
+    cutUrl: await cutUrlFor(deps, deal.channelId, deal.cutClipId),
+  };
+}
+
+async function cutUrlFor(deps: ReviewDeps, channelId: string, clipId: string | null): Promise<string | null> {
+  if (!clipId || !deps.storage) return null;
+  const [clip] = await findCutClips(deps.db, channelId, [clipId]);
+  if (!clip) return null;
+  try {
+    // One object, one hour: long enough to watch a segment, short enough not to become a share link.
+    return await deps.storage.presignGet(clip.objectKey, { expiresInSeconds: 3600, contentType: clip.contentType });
+  } catch {
+    return null;
+  }
+}
+
+const closedMessages = {
+  decided: "This link has already been used: the decision was recorded. Ask the channel for a new link if something else needs review.",
+  expired: "This link has expired. Ask the channel for a new one.",
+  revoked: "This link was withdrawn by the channel. Ask them for a new one if you still need to review.",
+  open: "This link can't take a decision right now. Reload the page and try again.",
+};
+
+/** The contact approves or asks for changes: once per link, recorded under their name, and mailed to the sender. */
+export async function decide(deps: ReviewDeps, token: string, input: z.output<typeof reviewDecisionSchema>): Promise<ReviewPage> {
+  const row = await openToken(deps, token);
+  const decided = await deps.db.transaction(async (tx) => {
+    const claimed = await claimReviewDecision(tx, row.link.id, input.decision, input.comment);
+    if (!claimed) return null;
+    await updateDeliverableRow(tx, claimed.channelId, claimed.deliverableId, { status: input.decision });
+    await insertEvents(tx, [
+      {
+        channelId: claimed.channelId,
+        deliverableId: claimed.deliverableId,
+        actorId: null,
+        actorName: claimed.contactName,
+        actorKind: "sponsor",
+        what: "review_decision",
+        fromStatus: row.deliverableStatus,
+        toStatus: input.decision,
+        note: input.comment,
+      },
+    ]);
+    return claimed;
+  });
+  if (!decided) {
+    const state = reviewStateOf((await findReviewLinkForPage(deps.db, row.link.id))?.link ?? row.link);
+    throw new AppError("gone", closedMessages[state]);
+  }
+  if (decided.sentByEmail) {
+    await deps.enqueueMail({
+      to: decided.sentByEmail,
+      subject: `${decided.contactName} of ${row.company} ${decisionWords[input.decision]} "${row.deliverableTitle}"`,
+      text: [
+        `${decided.contactName} (${decided.contactEmail}) ${decisionWords[input.decision]} "${row.deliverableTitle}" for "${row.episodeTitle}" on ${decided.decidedAt!.toUTCString()}.`,
+        "",
+        input.comment ? `Their comment:\n${input.comment}` : "No comment was left.",
+        "",
+        `The item is now "${deliverableStatusLabels[input.decision]}". Open the episode's sponsor deals in Kerf:`,
+        `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}#sponsor-deals`,
+      ].join("\n"),
+    });
+  }
+  return { state: "decided", channelName: row.channelName, decision: input.decision, decidedAt: decided.decidedAt!.toISOString(), contactName: decided.contactName };
+}

@@ -1,0 +1,48 @@
+import { describe, expect, it } from "vitest";
+import { criterionSchema, metricUnit } from "./criteria";
+import { describeCriterion, formatFigure, formatNumber, outcomeLabel, unitsForMetric } from "./format";
+import { areCompatible } from "./quantity";
+
+const q = (value: number, unit: string) => ({ value, unit });
+
+describe("numbers and figures for people", () => {
+  it("shows about three significant figures without float noise", () => {
+    expect(formatNumber(3 * 3.7)).toBe("11.1");
+    expect(formatNumber(6.986578415)).toBe("6.99");
+    expect(formatNumber(108.78)).toBe("108.8");
+    expect(formatNumber(1180.4)).toBe("1180");
+    expect(formatNumber(0.00980665)).toBe("0.00981");
+    expect(formatNumber(0)).toBe("0");
+  });
+
+  it("writes ratios without a unit and says what is missing", () => {
+    expect(formatFigure(q(1.5139, "1"))).toBe("1.51");
+    expect(formatFigure(q(34.02, "g"))).toBe("34.02 g");
+    expect(formatFigure("not_measured")).toBe("not measured");
+    expect(formatFigure(undefined)).toBe("not measured");
+    expect(formatFigure({ error: "zero_divisor", message: "thrust per watt has no value when the power is zero" })).toBe("thrust per watt has no value when the power is zero");
+  });
+
+  it("describes each comparator", () => {
+    const c = (fields: Record<string, unknown>) => describeCriterion(criterionSchema.parse({ required: true, ...fields }));
+    expect(c({ metric: "thrust_to_weight", comparator: "gte", threshold: q(1.2, "1") })).toBe("Thrust-to-weight ≥ 1.2");
+    expect(c({ metric: "mass", comparator: "lte", threshold: q(8, "oz") })).toBe("Mass ≤ 8 oz");
+    expect(c({ metric: "voltage", comparator: "eq", threshold: q(11.1, "V"), tolerance: q(200, "mV") })).toBe("Voltage = 11.1 V ± 200 mV");
+    expect(c({ metric: "current", comparator: "between", low: q(10, "A"), high: q(20, "A") })).toBe("Current between 10 A and 20 A");
+  });
+
+  it("labels outcomes, errors with their message", () => {
+    expect(outcomeLabel("not_measured")).toBe("not measured");
+    expect(outcomeLabel({ error: "incompatible_units", message: "threshold is in g but thrust_per_watt is in gf/W" })).toBe("error: threshold is in g but thrust_per_watt is in gf/W");
+  });
+});
+
+describe("unit suggestions for a criterion", () => {
+  it("offers only units compatible with the metric's natural unit", () => {
+    for (const metric of ["mass", "thrust", "power_per_gram", "thrust_per_watt", "electrical_power", "run_time", "speed", "voltage", "current", "thrust_to_weight"] as const) {
+      const [natural, ...rest] = unitsForMetric(metric);
+      for (const unit of rest) expect(areCompatible(unit, natural!), `${metric}: ${unit}`).toBe(true);
+      expect(natural).toBe(metricUnit(metric));
+    }
+  });
+});

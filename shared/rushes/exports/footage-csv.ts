@@ -1,0 +1,49 @@
+import { describeFormat } from "../../timecode/rates";
+import { type ExportClip, formatOf } from "./clip-ranges";
+import { toCsv } from "./csv";
+
+export const footageCsvHeader = [
+  "file_name",
+  "episode",
+  "shoot_day",
+  "shot",
+  "kind",
+  "rating",
+  "tags",
+  "camera",
+  "recorded_at",
+  "duration_seconds",
+  "frame_rate",
+  "start_timecode",
+  "size_bytes",
+  "mark_in",
+  "mark_out",
+  "mark_note",
+  "notes",
+];
+
+/** One record per mark; a clip with no marks gets one record with the mark columns empty. */
+export function footageCsv(clips: ExportClip[]): string {
+  const rows: (string | number | null)[][] = [footageCsvHeader];
+  for (const clip of clips) {
+    const format = formatOf(clip);
+    const base = [
+      clip.fileName,
+      clip.episodeTitle,
+      clip.shootDay,
+      clip.shotDescription,
+      clip.kind,
+      clip.rating,
+      clip.tags.join(";"),
+      clip.camera,
+      clip.recordedAt,
+      (clip.durationMs / 1000).toFixed(3),
+      format ? describeFormat(format) : "",
+      clip.startTimecode,
+      clip.size,
+    ];
+    const marks = clip.marks.length > 0 ? clip.marks : [null];
+    for (const mark of marks) rows.push([...base, mark?.in ?? "", mark?.out ?? "", mark?.note ?? "", clip.notes]);
+  }
+  return toCsv(rows);
+}

@@ -1,0 +1,83 @@
+import { z } from "zod";
+import { clipRatings, shotKinds } from "./vocabulary";
+
+/**
+ * The editor's footage list: its filters, its sort and its page, as they travel in the page's URL
+ * and in the API's query string (the same names in both).
+ */
+export const footageSorts = ["recorded", "name", "duration", "size", "uploaded"] as const;
+export type FootageSort = (typeof footageSorts)[number];
+export const footageSortLabels: Record<FootageSort, string> = {
+  recorded: "Recorded",
+  name: "File name",
+  duration: "Duration",
+  size: "Size",
+  uploaded: "Uploaded",
+};
+
+const optionalId = z.uuid({ message: "That filter names nothing." }).optional();
+const blankToUndefined = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
+
+export const footageQuerySchema = z.object({
+  episodeId: z.preprocess(blankToUndefined, optionalId),
+  shootDayId: z.preprocess(blankToUndefined, optionalId),
+  shotId: z.preprocess(blankToUndefined, optionalId),
+  tag: z.preprocess(blankToUndefined, z.string().trim().toLowerCase().max(40).optional()),
+  rating: z.preprocess(blankToUndefined, z.enum([...clipRatings, "unrated"]).optional()),
+  kind: z.preprocess(blankToUndefined, z.enum(shotKinds).optional()),
+  hasMarks: z.preprocess(blankToUndefined, z.enum(["yes", "no"]).optional()),
+  camera: z.preprocess(blankToUndefined, z.string().trim().max(120).optional()),
+  q: z.preprocess(blankToUndefined, z.string().trim().max(200).optional()),
+  sort: z.preprocess(blankToUndefined, z.enum(footageSorts).default("recorded")),
+  dir: z.preprocess(blankToUndefined, z.enum(["asc", "desc"]).default("desc")),
+  cursor: z.preprocess(blankToUndefined, z.string().max(500).optional()),
+  limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(200).default(50)),
+});
+export type FootageQuery = z.infer<typeof footageQuerySchema>;
+export type FootageQueryInput = z.input<typeof footageQuerySchema>;
+
+export const filterKeys = ["episodeId", "shootDayId", "shotId", "tag", "rating", "kind", "hasMarks", "camera", "q"] as const;
+
+/** The query as URL search parameters, leaving out what is unset or the default. */
+export function footageSearchParams(query: Partial<Record<keyof FootageQuery, string | number | undefined>>): URLSearchParams {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value === undefined || value === "") continue;
+    if (key === "sort" && value === "recorded") continue;
+    if (key === "dir" && value === "desc") continue;
+    if (key === "limit" && Number(value) === 50) continue;
+    params.set(key, String(value));
+  }
+  return params;
+}
+
+/** A keyset cursor: the last row's sort value and id, so the next page starts right after it. */
+export type Cursor = { v: string | number; id: string };
+
+function toBase64Url(text: string): string {
+  const bytes = new TextEncoder().encode(text);
+  let binary = "";
+  for (const b of bytes) binary += String.fromCharCode(b);
+  return btoa(binary).replaceAll("+", "-").replaceAll("/", "_").replace(/=+$/, "");
+}
+
+function fromBase64Url(text: string): string {
+  const binary = atob(text.replaceAll("-", "+").replaceAll("_", "/"));
+  return new TextDecoder().decode(Uint8Array.from(binary, (c) => c.charCodeAt(0)));
+}
+
+export function encodeCursor(cursor: Cursor): string {
+  return toBase64Url(JSON.stringify([cursor.v, cursor.id]));
+}
+
+const cursorSchema = z.tuple([z.union([z.string().max(300), z.number()]), z.uuid()]);
+
+/** null for a cursor that isn't one of ours (tampered or stale): the caller answers 400. */
+export function decodeCursor(text: string): Cursor | null {
+  try {
+    const parsed = cursorSchema.safeParse(JSON.parse(fromBase64Url(text)));
+    return parsed.success ? { v: parsed.data[0], id: parsed.data[1] } : null;
+  } catch {
+    return null;
+  }
+}

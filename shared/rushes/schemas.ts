@@ -1,0 +1,268 @@
+import { z } from "zod";
+import { frameRateSchema, labelsDroppedPerMinute } from "../timecode/rates";
+import { checkTimecode } from "../timecode/timecode";
+import { clipRatings, shotKinds, shotPriorities, shotStatuses, type ClipRating, type ShotKind, type ShotPriority, type ShotStatus, type UploadStatus } from "./vocabulary";
+
+// Request bodies are strict: a key the schema doesn't name is refused, never silently dropped.
+const id = (what: string) => z.uuid({ message: `Choose a ${what}.` });
+
+/** What the browser (mediainfo.js) or the server (ffprobe) read from a clip. */
+export const clipMetadataSchema = z
+  .strictObject({
+    durationMs: z.number().int().min(0).max(7 * 24 * 3600 * 1000),
+    frameRate: frameRateSchema.nullable(),
+    dropFrame: z.boolean(),
+    width: z.number().int().positive().max(32_768).nullable(),
+    height: z.number().int().positive().max(32_768).nullable(),
+    codec: z.string().max(80).nullable(),
+    startTimecode: z.string().max(20).nullable(),
+    recordedAt: z.iso.datetime({ offset: true }).nullable(),
+    camera: z.string().max(120),
+  })
+  .superRefine((m, ctx) => {
+    if (m.dropFrame && (!m.frameRate || labelsDroppedPerMinute(m.frameRate) === undefined)) {
+      ctx.addIssue({ code: "custom", path: ["dropFrame"], message: "Drop-frame exists only at 29.97 and 59.94 fps" });
+    }
+    if (m.startTimecode !== null) {
+      if (!m.frameRate) ctx.addIssue({ code: "custom", path: ["startTimecode"], message: "A start timecode needs the clip's frame rate" });
+      else {
+        const check = checkTimecode(m.startTimecode, { rate: m.frameRate, dropFrame: m.dropFrame });
+        if (!check.ok) ctx.addIssue({ code: "custom", path: ["startTimecode"], message: check.message });
+      }
+    }
+  });
+export type ClipMetadata = z.infer<typeof clipMetadataSchema>;
+
+export const emptyMetadata: ClipMetadata = {
+  durationMs: 0,
+  frameRate: null,
+  dropFrame: false,
+  width: null,
+  height: null,
+  codec: null,
+  startTimecode: null,
+  recordedAt: null,
+  camera: "",
+};
+
+export const startUploadSchema = z.strictObject({
+  episodeId: id("episode"),
+  fileName: z.string().trim().min(1, "The file needs a name.").max(255, "File names can be at most 255 characters."),
+  size: z.number({ message: "Give the file's size in bytes." }).int().min(0),
+  fingerprint: z.string().max(300).default(""),
+  metadata: clipMetadataSchema.optional(),
+});
+export type StartUploadInput = z.input<typeof startUploadSchema>;
+
+export const partUrlsSchema = z.strictObject({
+  partNumbers: z.array(z.number().int().min(1).max(10_000)).min(1, "Ask for at least one part.").max(100, "Ask for at most 100 parts at once."),
+});
+
+export const recordPartSchema = z.strictObject({
+  etag: z
+    .string()
+    .trim()
+    .min(1, "The part's ETag is missing.")
+    .max(200)
+    .transform((v) => v.replaceAll('"', "")),
+  size: z.number().int().min(1),
+});
+
+export const completeUploadSchema = z.strictObject({
+  sha256: z
+    .string()
+    .regex(/^[0-9a-f]{64}$/, "A SHA-256 is 64 hexadecimal digits.")
+    .optional(),
+  metadata: clipMetadataSchema.optional(),
+});
+
+export interface UploadPart {
+  partNumber: number;
+  etag: string;
+  size: number;
+}
+
+export interface UploadView {
+  id: string;
+  episodeId: string;
+  fileName: string;
+  contentType: string;
+  size: number;
+  partSize: number;
+  partCount: number;
+  status: UploadStatus;
+  fingerprint: string;
+  parts: UploadPart[];
+  clipId: string | null;
+  createdAt: string;
+}
+
+const dayPattern = /^\d{4}-\d{2}-\d{2}$/;
+export const shootDaySchema = z.strictObject({
+  day: z
+    .string()
+    .regex(dayPattern, "Write the date as YYYY-MM-DD.")
+    .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), "That date doesn't exist."),
+  place: z.string().trim().max(200, "Keep the place under 200 characters.").default(""),
+  callTime: z
+    .string()
+    .regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Write the call time as HH:MM, 24-hour.")
+    .nullable()
+    .default(null),
+  crewIds: z.array(z.uuid()).max(50).default([]),
+  notes: z.string().max(2000).default(""),
+});
+export type ShootDayInput = z.input<typeof shootDaySchema>;
+/** A change names only what changes: no defaults here, or a patch would reset the fields it leaves out. */
+export const shootDayPatchSchema = z.strictObject({
+  day: shootDaySchema.shape.day.optional(),
+  place: z.string().trim().max(200, "Keep the place under 200 characters.").optional(),
+  callTime: z
+    .string()
+    .regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Write the call time as HH:MM, 24-hour.")
+    .nullable()
+    .optional(),
+  crewIds: z.array(z.uuid()).max(50).optional(),
+  notes: z.string().max(2000).optional(),
+});
+
+export const shotSchema = z.strictObject({
+  description: z.string().trim().min(1, "Describe the shot.").max(500, "Keep the description under 500 characters."),
+  kind: z.enum(shotKinds, { message: "Choose the kind of shot." }),
+  priority: z.enum(shotPriorities).default("normal"),
+  shootDayId: z.uuid().nullable().default(null),
+  /** "captured" is Kerf's to set: a shot is captured when a clip is linked to it. */
+  status: z.enum(["planned", "dropped"], { message: "A shot is planned or dropped; it is captured when a clip is linked to it." }).default("planned"),
+});
+export type ShotInput = z.input<typeof shotSchema>;
+export const shotPatchSchema = z.strictObject({
+  description: shotSchema.shape.description.optional(),
+  kind: shotSchema.shape.kind.optional(),
+  priority: z.enum(shotPriorities).optional(),
+  shootDayId: z.uuid().nullable().optional(),
+  status: z.enum(["planned", "dropped"], { message: "A shot is planned or dropped; it is captured when a clip is linked to it." }).optional(),
+});
+
+const tag = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .min(1, "A tag can't be empty.")
+  .max(40, "Keep each tag under 40 characters.")
+  .regex(/^[^,]+$/, "A tag can't hold a comma.");
+
+export const updateClipSchema = z
+  .strictObject({
+    shootDayId: z.uuid().nullable(),
+    shotId: z.uuid().nullable(),
+    benchRunId: z.uuid().nullable(),
+    buildIterationId: z.uuid().nullable(),
+    tags: z
+      .array(tag)
+      .max(30, "At most 30 tags on a clip.")
+      .transform((tags) => [...new Set(tags)]),
+    rating: z.enum(clipRatings).nullable(),
+    notes: z.string().max(5000, "Keep notes under 5,000 characters."),
+    camera: z.string().trim().max(120),
+    kind: z.enum(shotKinds).nullable(),
+  })
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, "Change at least one thing.");
+export type UpdateClipInput = z.input<typeof updateClipSchema>;
+
+/** The in/out labels are checked against the clip's own format on the server (shared/timecode). */
+export const markInputSchema = z.strictObject({
+  in: z.string().trim().min(1, "Enter the in point."),
+  out: z.string().trim().min(1, "Enter the out point."),
+  note: z.string().trim().max(500, "Keep the note under 500 characters.").default(""),
+});
+export type MarkInput = z.input<typeof markInputSchema>;
+export const markPatchSchema = z.strictObject({
+  in: markInputSchema.shape.in.optional(),
+  out: markInputSchema.shape.out.optional(),
+  note: z.string().trim().max(500, "Keep the note under 500 characters.").optional(),
+});
+
+export interface MarkView {
+  id: string;
+  in: string;
+  out: string;
+  inFrame: number;
+  outFrame: number;
+  note: string;
+}
+
+export interface ClipView {
+  id: string;
+  episodeId: string;
+  episodeTitle: string;
+  shootDayId: string | null;
+  shotId: string | null;
+  shotDescription: string | null;
+  benchRunId: string | null;
+  buildIterationId: string | null;
+  fileName: string;
+  contentType: string;
+  size: number;
+  storageEtag: string | null;
+  sha256: string | null;
+  durationMs: number;
+  frameRate: { numerator: number; denominator: number } | null;
+  dropFrame: boolean;
+  width: number | null;
+  height: number | null;
+  codec: string | null;
+  startTimecode: string | null;
+  camera: string;
+  recordedAt: string;
+  kind: ShotKind | null;
+  rating: ClipRating | null;
+  tags: string[];
+  notes: string;
+  markCount: number;
+  posterUrl: string | null;
+  uploadedBy: string | null;
+  createdAt: string;
+}
+
+export interface ClipDetail extends ClipView {
+  marks: MarkView[];
+}
+
+export interface ShootDayView {
+  id: string;
+  episodeId: string;
+  day: string;
+  place: string;
+  callTime: string | null;
+  notes: string;
+  crew: { userId: string; name: string }[];
+  shotCount: number;
+  missingCount: number;
+}
+
+export interface ShotView {
+  id: string;
+  episodeId: string;
+  shootDayId: string | null;
+  description: string;
+  kind: ShotKind;
+  priority: ShotPriority;
+  status: ShotStatus;
+  clipCount: number;
+  position: number;
+}
+
+export interface FootageTotals {
+  clips: number;
+  durationMs: number;
+  bytes: number;
+}
+
+export interface FootagePage {
+  clips: ClipView[];
+  nextCursor: string | null;
+  totals: FootageTotals;
+}
+
+export { shotStatuses };

@@ -1,0 +1,440 @@
+import { z } from "zod";
+import { type FrameRateName, frameRateNames, frameRates, labelsDroppedPerMinute } from "../timecode/rates";
+import { checkTimecode } from "../timecode/timecode";
+import { emailSchema } from "../auth/schemas";
+import { isIsoDate } from "./dates";
+import { deliverableKinds, deliverableStatuses, anchors, templateAnchors, deskGroups } from "./deliverables";
+import { MAX_WORDS_PER_MINUTE, MIN_WORDS_PER_MINUTE, type ReadReport } from "./read";
+import type { DisclosureCheck } from "./disclosure";
+
+const id = (what: string) => z.uuid({ error: `Pick a ${what}.` });
+
+// PostgreSQL text cannot hold a NUL character: refuse it with a message instead of failing on insert.
+const noNul = (v: string | null) => v === null || !v.includes("\u0000");
+const NUL_MESSAGE = "Remove the invisible NUL character from this text.";
+
+/** Optional free text: blank becomes null. */
+const optionalText = (max: number, what: string) =>
+  z
+    .string()
+    .trim()
+    .max(max, `Keep the ${what} under ${max} characters.`)
+    .refine(noNul, NUL_MESSAGE)
+    .transform((v) => (v === "" ? null : v))
+    .nullable();
+
+const requiredText = (max: number, message: string) =>
+  z.string({ error: message }).trim().min(1, message).max(max, `Use at most ${max} characters.`).refine(noNul, NUL_MESSAGE);
+
+export const isoDateSchema = z.string().refine(isIsoDate, { message: "Enter a date as YYYY-MM-DD." });
+const optionalDate = z
+  .string()
+  .trim()
+  .transform((v) => (v === "" ? null : v))
+  .nullable()
+  .refine((v) => v === null || isIsoDate(v), { message: "Enter a date as YYYY-MM-DD." });
+
+const webAddress = z
+  .string()
+  .trim()
+  .max(500, "Keep the address under 500 characters.")
+  .transform((v) => (v === "" ? null : v))
+  .nullable()
+  .refine((v) => v === null || (noNul(v) && /^https?:\/\/[^\s/]+\.[^\s]+$/i.test(v)), { message: "Enter a web address starting with https://" });
+
+// ── Sponsors and contacts ───────────────────────────────────────────────
+
+export const sponsorInputSchema = z.strictObject({
+  company: requiredText(120, "Name the company."),
+  website: webAddress,
+  notes: optionalText(2000, "notes"),
+});
+export type SponsorInput = z.input<typeof sponsorInputSchema>;
+
+export const contactInputSchema = z.strictObject({
+  name: requiredText(80, "Enter the contact's name."),
+  email: emailSchema,
+  role: optionalText(80, "role"),
+});
+export type ContactInput = z.input<typeof contactInputSchema>;
+
+export interface Contact {
+  id: string;
+  name: string;
+  email: string;
+  role: string | null;
+}
+
+export interface SponsorSummary {
+  id: string;
+  company: string;
+  website: string | null;
+  notes: string | null;
+  contacts: Contact[];
+  dealCount: number;
+}
+
+export interface SponsorDealRow {
+  id: string;
+  episodeId: string;
+  episodeTitle: string;
+  state: DealState;
+  placement: Placement;
+  publishDate: string | null;
+  /** Only for roles that see fees. */
+  money?: { fee: number; currency: string };
+}
+
+export interface SponsorDetail extends SponsorSummary {
+  deals: SponsorDealRow[];
+}
+
+// ── Templates ──────────────────────────────────────────────────────────
+
+export const templateItemSchema = z.strictObject({
+  kind: z.enum(deliverableKinds, { error: "Pick what the item is." }),
+  title: requiredText(120, "Name the item."),
+  anchor: z.enum(templateAnchors, { error: "Count the date before publish or after go-live." }),
+  offsetDays: z
+    .number({ error: "Enter a number of days." })
+    .int("Use whole days.")
+    .min(0, "Use 0 or more days.")
+    .max(365, "Use at most 365 days."),
+  ownerRole: z.enum(["owner", "producer", "editor"]).nullable(),
+});
+
+export const templateInputSchema = z.strictObject({
+  name: requiredText(80, "Name the template."),
+  items: z.array(templateItemSchema).min(1, "Add at least one item.").max(30, "Keep a template to 30 items."),
+});
+export type TemplateInput = z.input<typeof templateInputSchema>;
+
+export interface DealTemplate {
+  id: string;
+  name: string;
+  items: z.infer<typeof templateItemSchema>[];
+}
+
+// ── Deals ──────────────────────────────────────────────────────────────
+
+export const dealStates = ["negotiating", "signed", "live", "wrapped", "cancelled"] as const;
+export type DealState = (typeof dealStates)[number];
+export const dealStateLabels: Record<DealState, string> = {
+  negotiating: "Negotiating",
+  signed: "Signed",
+  live: "Live",
+  wrapped: "Wrapped",
+  cancelled: "Cancelled",
+};
+
+export const placements = ["opening", "middle", "end"] as const;
+export type Placement = (typeof placements)[number];
+export const placementLabels: Record<Placement, string> = { opening: "Opening", middle: "Middle", end: "End" };
+
+export const paymentTermsFrom = ["go_live", "invoice"] as const;
+export const paymentTermsLabels: Record<(typeof paymentTermsFrom)[number], string> = { go_live: "after go-live", invoice: "after the invoice" };
+
+const talkingPointsSchema = z
+  .array(z.string().trim().min(1, "A talking point can't be blank.").max(200, "Keep each talking point under 200 characters.").refine(noNul, NUL_MESSAGE))
+  .max(20, "Keep it to 20 talking points.");
+
+const segmentFields = {
+  state: z.enum(dealStates, { error: "Pick the deal's state." }),
+  placement: z.enum(placements, { error: "Pick opening, middle or end." }),
+  segmentSeconds: z
+    .number({ error: "Enter the contracted length in seconds." })
+    .int("Use whole seconds.")
+    .min(5, "A segment is at least 5 seconds.")
+    .max(900, "A segment is at most 900 seconds (15 minutes)."),
+  talkingPoints: talkingPointsSchema,
+  link: webAddress,
+  promoCode: optionalText(40, "promo code").refine((v) => v === null || /^\S+$/.test(v), { message: "A promo code has no spaces." }),
+  disclosureText: optionalText(300, "disclosure"),
+  exclusivityNotes: optionalText(1000, "exclusivity notes"),
+  descriptionCopy: optionalText(3000, "description text"),
+  script: z.string().max(20000, "Keep the script under 20,000 characters.").refine(noNul, NUL_MESSAGE),
+  contactId: id("contact").nullable(),
+  hostId: id("host").nullable(),
+  goLiveDate: optionalDate,
+};
+
+export const moneySchema = z.strictObject({
+  fee: z
+    .number({ error: "Enter the fee." })
+    .min(0, "The fee can't be negative.")
+    .max(1_000_000_000, "That fee is too large.")
+    .refine((v) => Math.abs(v * 100 - Math.round(v * 100)) < 1e-6, { message: "Use at most two decimals." }),
+  currency: z
+    .string({ error: "Enter a currency code." })
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Use a three-letter currency code (ISO 4217), e.g. EUR."),
+  paymentTermsDays: z.number({ error: "Enter the payment terms in days." }).int("Use whole days.").min(0, "Use 0 or more days.").max(365, "Use at most 365 days."),
+  paymentTermsFrom: z.enum(paymentTermsFrom, { error: "Count the terms from go-live or the invoice." }),
+  invoiceNumber: optionalText(60, "invoice number"),
+  invoicedOn: optionalDate,
+  paidOn: optionalDate,
+});
+export type MoneyInput = z.input<typeof moneySchema>;
+export type Money = z.infer<typeof moneySchema>;
+
+export const createDealSchema = z.strictObject({
+  episodeId: id("episode"),
+  sponsorId: id("sponsor"),
+  templateId: id("template").nullable(),
+  ...segmentFields,
+  script: segmentFields.script.default(""),
+  talkingPoints: talkingPointsSchema.default([]),
+  money: moneySchema,
+});
+export type CreateDealInput = z.input<typeof createDealSchema>;
+
+export const updateDealSchema = z
+  .strictObject(segmentFields)
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, { message: "Change at least one field." });
+export type UpdateDealInput = z.input<typeof updateDealSchema>;
+
+export const cutTimingSchema = z
+  .strictObject({
+    inTimecode: z.string().trim().min(1, "Enter the segment's in point."),
+    outTimecode: z.string().trim().min(1, "Enter the segment's out point."),
+    frameRate: z.enum(frameRateNames as [FrameRateName, ...FrameRateName[]], { error: "Pick the cut's frame rate." }),
+    dropFrame: z.boolean(),
+  })
+  .superRefine((v, ctx) => {
+    const format = { rate: frameRates[v.frameRate], dropFrame: v.dropFrame };
+    if (v.dropFrame && labelsDroppedPerMinute(format.rate) === undefined) {
+      ctx.addIssue({ code: "custom", path: ["dropFrame"], message: "Drop-frame exists only at 29.97 and 59.94 fps." });
+      return;
+    }
+    const first = checkTimecode(v.inTimecode, format);
+    const end = checkTimecode(v.outTimecode, format);
+    if (!first.ok) ctx.addIssue({ code: "custom", path: ["inTimecode"], message: first.message });
+    if (!end.ok) ctx.addIssue({ code: "custom", path: ["outTimecode"], message: end.message });
+    if (first.ok && end.ok && end.frame <= first.frame) ctx.addIssue({ code: "custom", path: ["outTimecode"], message: "The out point must come after the in point." });
+  });
+export type CutTimingInput = z.input<typeof cutTimingSchema>;
+
+/** The editor's part of a deal: the clip sent for review and the segment's in and out in the cut. */
+export const cutSchema = z.strictObject({
+  clipId: z.uuid({ error: "Pick a clip." }).nullable(),
+  timing: cutTimingSchema.nullable(),
+});
+export type CutInput = z.input<typeof cutSchema>;
+
+// ── Deliverables ───────────────────────────────────────────────────────
+
+export const newDeliverableSchema = z
+  .strictObject({
+    kind: z.enum(deliverableKinds, { error: "Pick what the item is." }),
+    title: requiredText(120, "Name the item."),
+    anchor: z.enum(anchors, { error: "Pick how the date is counted." }),
+    offsetDays: templateItemSchema.shape.offsetDays.default(0),
+    fixedDate: optionalDate.default(null),
+    ownerId: id("owner").nullable().default(null),
+  })
+  .refine((v) => v.anchor !== "fixed" || v.fixedDate !== null, { message: "Enter the date.", path: ["fixedDate"] });
+export type NewDeliverableInput = z.input<typeof newDeliverableSchema>;
+
+export const updateDeliverableSchema = z
+  .strictObject({
+    title: requiredText(120, "Name the item."),
+    status: z.enum(deliverableStatuses, { error: "Pick a status." }),
+    ownerId: id("owner").nullable(),
+    anchor: z.enum(anchors, { error: "Pick how the date is counted." }),
+    offsetDays: templateItemSchema.shape.offsetDays,
+    fixedDate: optionalDate,
+    note: optionalText(1000, "note"),
+  })
+  .partial()
+  .refine((v) => Object.keys(v).some((k) => k !== "note") || v.note, { message: "Change at least one field." })
+  .refine((v) => v.anchor !== "fixed" || (v.fixedDate !== undefined && v.fixedDate !== null), { message: "Enter the date.", path: ["fixedDate"] });
+export type UpdateDeliverableInput = z.input<typeof updateDeliverableSchema>;
+
+export interface DeliverableEvent {
+  id: string;
+  at: string;
+  actorName: string;
+  /** "member" or "sponsor" (a decision made through a review link). */
+  actorKind: "member" | "sponsor" | "system";
+  what: "created" | "status" | "due_moved" | "owner" | "edited" | "note" | "review_sent" | "review_decision" | "reminder";
+  fromStatus: string | null;
+  toStatus: string | null;
+  fromDate: string | null;
+  toDate: string | null;
+  note: string | null;
+}
+
+export interface DeliverableView {
+  id: string;
+  dealId: string;
+  kind: (typeof deliverableKinds)[number];
+  title: string;
+  anchor: (typeof anchors)[number];
+  offsetDays: number;
+  dueDate: string | null;
+  status: (typeof deliverableStatuses)[number];
+  ownerId: string | null;
+  ownerName: string | null;
+  late: boolean;
+  daysLate: number;
+  /** May the caller change this item (status at least)? */
+  canEdit: boolean;
+  history: DeliverableEvent[];
+}
+
+// ── Review links ───────────────────────────────────────────────────────
+
+export const REVIEW_LINK_DEFAULT_DAYS = 7;
+export const sendReviewSchema = z.strictObject({
+  deliverableId: id("item to review"),
+  contactId: id("contact"),
+  expiresInDays: z.number({ error: "Enter how many days the link works." }).int("Use whole days.").min(1, "At least 1 day.").max(30, "At most 30 days.").default(REVIEW_LINK_DEFAULT_DAYS),
+  message: optionalText(1000, "message").default(null),
+});
+export type SendReviewInput = z.input<typeof sendReviewSchema>;
+
+export const reviewLinkStates = ["open", "decided", "expired", "revoked"] as const;
+export type ReviewLinkState = (typeof reviewLinkStates)[number];
+export const reviewDecisions = ["approved", "changes_asked"] as const;
+export type ReviewDecision = (typeof reviewDecisions)[number];
+
+export interface ReviewLinkView {
+  id: string;
+  deliverableId: string;
+  deliverableTitle: string;
+  contactName: string;
+  contactEmail: string;
+  sentByName: string;
+  sentAt: string;
+  expiresAt: string;
+  state: ReviewLinkState;
+  decision: ReviewDecision | null;
+  comment: string | null;
+  decidedAt: string | null;
+}
+
+export const reviewDecisionSchema = z
+  .strictObject({
+    decision: z.enum(reviewDecisions, { error: "Approve, or ask for changes." }),
+    comment: optionalText(2000, "comment").default(null),
+  })
+  .refine((v) => v.decision !== "changes_asked" || v.comment !== null, { message: "Say what should change.", path: ["comment"] });
+export type ReviewDecisionInput = z.input<typeof reviewDecisionSchema>;
+
+/** What the sponsor's contact sees through a link: one deal's segment, never its fee. */
+export type ReviewPage =
+  | {
+      state: "open";
+      channelName: string;
+      company: string;
+      contactName: string;
+      episodeTitle: string;
+      deliverableTitle: string;
+      expiresAt: string;
+      script: string;
+      segmentSeconds: number;
+      estimatedSeconds: number;
+      talkingPoints: string[];
+      link: string | null;
+      promoCode: string | null;
+      disclosureText: string | null;
+      placement: Placement;
+      /** A presigned address of the attached cut, when there is one and storage is configured. */
+      cutUrl: string | null;
+    }
+  | { state: "decided"; channelName: string; decision: ReviewDecision; decidedAt: string; contactName: string }
+  | { state: "expired" | "revoked"; channelName: string };
+
+// ── Deal view ──────────────────────────────────────────────────────────
+
+export interface CutTiming {
+  inTimecode: string;
+  outTimecode: string;
+  frameRate: string;
+  dropFrame: boolean;
+  measuredSeconds: number;
+}
+
+export interface DealView {
+  id: string;
+  episodeId: string;
+  episodeTitle: string;
+  publishDate: string | null;
+  sponsor: { id: string; company: string };
+  contact: Contact | null;
+  contacts: Contact[];
+  state: DealState;
+  placement: Placement;
+  segmentSeconds: number;
+  talkingPoints: string[];
+  link: string | null;
+  promoCode: string | null;
+  disclosureText: string | null;
+  exclusivityNotes: string | null;
+  descriptionCopy: string | null;
+  script: string;
+  goLiveDate: string | null;
+  host: { id: string | null; name: string | null; wordsPerMinute: number };
+  read: ReadReport;
+  disclosure: DisclosureCheck & { linkInDescription: boolean | null; codeInDescription: boolean | null };
+  cut: { clip: { id: string; fileName: string; durationSeconds: number } | null; timing: CutTiming | null };
+  /** Clips of the episode that can be attached as the cut; only for roles that deliver the cut. */
+  cutChoices?: { id: string; fileName: string }[];
+  deliverables: DeliverableView[];
+  /** Only for roles that run deliverables (owner, producer). */
+  reviewLinks?: ReviewLinkView[];
+  /** Only for roles that see fees (owner, producer): the API leaves it out for everyone else. */
+  money?: Money;
+}
+
+// ── Desk and settings ─────────────────────────────────────────────────
+
+export const deskFilterSchema = z.strictObject({
+  sponsorId: z.uuid().optional(),
+  episodeId: z.uuid().optional(),
+});
+
+export interface DeskItem {
+  id: string;
+  dealId: string;
+  episodeId: string;
+  episodeTitle: string;
+  sponsorId: string;
+  company: string;
+  kind: (typeof deliverableKinds)[number];
+  title: string;
+  dueDate: string | null;
+  status: (typeof deliverableStatuses)[number];
+  ownerName: string | null;
+  group: (typeof deskGroups)[number];
+  daysLate: number;
+}
+
+export interface DeskView {
+  today: string;
+  counts: Record<(typeof deskGroups)[number], number>;
+  items: DeskItem[];
+  sponsors: { id: string; company: string }[];
+  episodes: { id: string; title: string }[];
+}
+
+export const settingsInputSchema = z.strictObject({
+  reminderDaysBefore: z.number({ error: "Enter a number of days." }).int("Use whole days.").min(0, "Use 0 or more days.").max(30, "Use at most 30 days."),
+});
+export type SettingsInput = z.input<typeof settingsInputSchema>;
+
+export const speakingRateSchema = z.strictObject({
+  wordsPerMinute: z
+    .number({ error: "Enter words per minute." })
+    .int("Use a whole number.")
+    .min(MIN_WORDS_PER_MINUTE, `Use at least ${MIN_WORDS_PER_MINUTE} words a minute.`)
+    .max(MAX_WORDS_PER_MINUTE, `Use at most ${MAX_WORDS_PER_MINUTE} words a minute.`),
+});
+export type SpeakingRateInput = z.input<typeof speakingRateSchema>;
+
+export interface SponsorSettings {
+  reminderDaysBefore: number;
+  hosts: { userId: string; name: string; role: string; wordsPerMinute: number; isDefault: boolean }[];
+}

@@ -1,0 +1,8 @@
+import type { CriterionInput, CriterionView } from "@shared/bench/schemas";
+import { api } from "../../../lib/api-client";
+import { episodeBase, useBenchMutation } from "./bench-mutation";
+
+export const useUpdateCriterion = (channelId: string, episodeId: string) =>
+  useBenchMutation(channelId, ({ id, input }: { id: string; input: CriterionInput }) =>
+    api<{ criterion: CriterionView }>(`${episodeBase(channelId, episodeId)}/test-plan/criteria/${id}`, { method: "PUT", body: input }).then((r) => r.criterion),
+  );

@@ -1,0 +1,8 @@
+import type { RunInput, RunView } from "@shared/bench/schemas";
+import { api } from "../../../lib/api-client";
+import { episodeBase, useBenchMutation } from "./bench-mutation";
+
+export const useUpdateRun = (channelId: string, episodeId: string) =>
+  useBenchMutation(channelId, ({ id, input }: { id: string; input: RunInput }) =>
+    api<{ run: RunView }>(`${episodeBase(channelId, episodeId)}/bench-runs/${id}`, { method: "PUT", body: input }).then((r) => r.run),
+  );

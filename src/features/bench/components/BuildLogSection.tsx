@@ -1,0 +1,183 @@
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { roleMay } from "@shared/access/roles";
+import { formatFigure } from "@shared/bench/format";
+import { unitsByDimension } from "@shared/bench/quantity";
+import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { SelectField } from "../../../components/SelectField";
+import { Empty, LoadError, Loading } from "../../../components/States";
+import { TextField } from "../../../components/TextField";
+import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { applyServerErrors } from "../../../lib/forms";
+import { useAddIteration } from "../api/add-iteration";
+import { useDeleteIteration } from "../api/delete-iteration";
+import { useBuildLog } from "../api/get-build-log";
+import { useRuns } from "../api/list-runs";
+import { useUpdateIteration } from "../api/update-iteration";
+import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
+import { asEntered, Panel } from "./marks";
+
+const outcomeStyles: Record<IterationOutcome, string> = {
+  pending: "bg-ply-200 text-graphite-700",
+  worked: "bg-moss-600 text-white",
+  partly: "bg-amber-cut text-graphite-900",
+  failed: "bg-alarm-600 text-white",
+};
+
+/** Numbered iterations of the build, each with its own all-up mass and the thrust-to-weight that mass gives. */
+export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionProps) {
+  const log = useBuildLog(channelId, episodeId);
+  const runs = useRuns(channelId, episodeId);
+  const [editing, setEditing] = useState<string | null>(null);
+  const canWrite = roleMay(role, "bench", "W");
+  if (log.isPending || runs.isPending) return <Loading label="Loading the build log…" />;
+  if (log.isError) return <LoadError error={log.error} retry={() => void log.refetch()} />;
+  if (runs.isError) return <LoadError error={runs.error} retry={() => void runs.refetch()} />;
+
+  return (
+    <div className="flex flex-col gap-4">
+      {log.data.length === 0 ? (
+        <Empty title="No iterations yet">{canWrite ? "Log the first build below: what it is, what it weighs, how it went." : "Iterations appear here as the build goes."}</Empty>
+      ) : (
+        <ol className="flex flex-col gap-3" aria-label="Build iterations">
+          {log.data.map((iteration) =>
+            editing === iteration.id ? (
+              <li key={iteration.id}>
+                <Panel>
+                  <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} iteration={iteration} onDone={() => setEditing(null)} />
+                </Panel>
+              </li>
+            ) : (
+              <IterationItem key={iteration.id} channelId={channelId} episodeId={episodeId} iteration={iteration} canWrite={canWrite} onEdit={() => setEditing(iteration.id)} />
+            ),
+          )}
+        </ol>
+      )}
+      {canWrite && editing === null && (
+        <Panel>
+          <h3 className="mb-3 font-semibold">Log an iteration</h3>
+          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} />
+        </Panel>
+      )}
+    </div>
+  );
+}
+
+function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { channelId: string; episodeId: string; iteration: IterationView; canWrite: boolean; onEdit: () => void }) {
+  const remove = useDeleteIteration(channelId, episodeId);
+  return (
+    <li aria-label={`Iteration ${iteration.number}`} className="grid grid-cols-[3rem_1fr] gap-3 rounded-lg border border-ply-300 bg-white p-4">
+      <span className="flex size-10 items-center justify-center rounded-full bg-graphite-900 text-lg font-bold text-amber-cut" aria-hidden>
+        {iteration.number}
+      </span>
+      <div>
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <p className="font-semibold">
+            <span className="sr-only">Iteration {iteration.number}: </span>
+            {iteration.change}
+          </p>
+          <span className={`rounded px-2 py-0.5 text-xs font-semibold ${outcomeStyles[iteration.outcome]}`}>{iterationOutcomeLabels[iteration.outcome]}</span>
+        </div>
+        <dl className="mt-2 grid gap-x-6 gap-y-1 text-sm sm:grid-cols-3">
+          <div>
+            <dt className="text-xs text-graphite-500">All-up mass</dt>
+            <dd>{iteration.allUpMass ? asEntered(iteration.allUpMass, "g") : "not weighed"}</dd>
+          </div>
+          <div>
+            <dt className="text-xs text-graphite-500">Chosen run</dt>
+            <dd>{iteration.chosenRun ? `Run ${iteration.chosenRun.number}: ${iteration.chosenRun.label}` : "none"}</dd>
+          </div>
+          <div>
+            <dt className="text-xs text-graphite-500">Thrust-to-weight</dt>
+            <dd className="text-base font-semibold">{formatFigure(iteration.thrustToWeight)}</dd>
+          </div>
+        </dl>
+        {iteration.notes && <p className="mt-2 whitespace-pre-wrap text-sm text-graphite-700">{iteration.notes}</p>}
+        {canWrite && (
+          <div className="mt-2 flex gap-2">
+            <Button tone="quiet" onClick={onEdit}>
+              Edit
+            </Button>
+            <Button tone="danger" busy={remove.isPending} onClick={() => window.confirm(`Delete iteration ${iteration.number}?`) && remove.mutate(iteration.id)}>
+              Delete
+            </Button>
+          </div>
+        )}
+      </div>
+    </li>
+  );
+}
+
+interface IterationFormValues {
+  change: string;
+  allUpMass: QuantityText;
+  outcome: IterationOutcome;
+  chosenRunId: string;
+  notes: string;
+}
+
+const toValues = (iteration?: IterationView): IterationFormValues => ({
+  change: iteration?.change ?? "",
+  allUpMass: quantityText(iteration?.allUpMass, "g"),
+  outcome: iteration?.outcome ?? "pending",
+  chosenRunId: iteration?.chosenRunId ?? "",
+  notes: iteration?.notes ?? "",
+});
+
+function toInput(values: IterationFormValues) {
+  const read = converter();
+  const input = { change: values.change, allUpMass: read.quantity(values.allUpMass, "allUpMass"), outcome: values.outcome, chosenRunId: values.chosenRunId || null, notes: values.notes };
+  return { input, errors: read.errors };
+}
+
+function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { channelId: string; episodeId: string; runs: RunView[]; iteration?: IterationView; onDone?: () => void }) {
+  const add = useAddIteration(channelId, episodeId);
+  const update = useUpdateIteration(channelId, episodeId);
+  const [problem, setProblem] = useState<string | null>(null);
+  const form = useForm<IterationFormValues>({ resolver: sharedSchemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
+  const errors = form.formState.errors;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setProblem(null);
+    try {
+      const input = iterationInputSchema.parse(toInput(values).input);
+      if (iteration) await update.mutateAsync({ id: iteration.id, input });
+      else await add.mutateAsync(input);
+      form.reset(toValues());
+      onDone?.();
+    } catch (error) {
+      const message = applyServerErrors(error, form.setError, ["change", "allUpMass", "allUpMass.value", "allUpMass.unit", "outcome", "chosenRunId", "notes"]);
+      if (message) setProblem(message);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label={iteration ? `Edit iteration ${iteration.number}` : "New iteration"} className="flex flex-col gap-3">
+      <TextField label="What changed" placeholder="e.g. printed arms instead of aluminium" {...form.register("change")} error={errors.change?.message} />
+      <div className="grid items-start gap-3 sm:grid-cols-3">
+        <QuantityField label="All-up mass" valueProps={form.register("allUpMass.value")} unitProps={form.register("allUpMass.unit")} units={unitsByDimension.mass} error={errorAt(errors, "allUpMass")} hint="Weighed with everything on board." />
+        <SelectField label="Outcome" options={iterationOutcomes.map((outcome) => ({ value: outcome, label: iterationOutcomeLabels[outcome] }))} {...form.register("outcome")} error={errors.outcome?.message} />
+        <SelectField
+          label="Thrust from run"
+          options={[{ value: "", label: "No run chosen" }, ...runs.map((run) => ({ value: run.id, label: `Run ${run.number}: ${run.label}` }))]}
+          {...form.register("chosenRunId")}
+          error={errors.chosenRunId?.message}
+        />
+      </div>
+      <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
+      {problem && <Notice kind="error">{problem}</Notice>}
+      <div className="flex gap-2">
+        <Button type="submit" busy={add.isPending || update.isPending}>
+          {iteration ? "Save iteration" : "Log iteration"}
+        </Button>
+        {onDone && (
+          <Button type="button" tone="quiet" onClick={onDone}>
+            Cancel
+          </Button>
+        )}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,105 @@
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { unitsByDimension } from "@shared/bench/quantity";
+import { partInputSchema, partKindLabels, partKinds, type PartInput, type PartKind, type PartView } from "@shared/bench/schemas";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { SelectField } from "../../../components/SelectField";
+import { TextField } from "../../../components/TextField";
+import { applyServerErrors } from "../../../lib/forms";
+import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
+
+interface PartFormValues {
+  name: string;
+  kind: PartKind;
+  mass: QuantityText;
+  ratedVoltage: QuantityText;
+  ratedCurrent: QuantityText;
+  price: { amount: string; currency: string };
+  supplier: string;
+  notes: string;
+}
+
+const toValues = (part?: PartView): PartFormValues => ({
+  name: part?.name ?? "",
+  kind: part?.kind ?? "motor",
+  mass: quantityText(part?.mass, "g"),
+  ratedVoltage: quantityText(part?.ratedVoltage, "V"),
+  ratedCurrent: quantityText(part?.ratedCurrent, "A"),
+  price: { amount: part?.price?.amount ?? "", currency: part?.price?.currency ?? "EUR" },
+  supplier: part?.supplier ?? "",
+  notes: part?.notes ?? "",
+});
+
+function toInput(values: PartFormValues) {
+  const read = converter();
+  const amount = values.price.amount.trim().replace(/^(\d+),(\d{1,2})$/, "$1.$2");
+  const input = {
+    name: values.name,
+    kind: values.kind,
+    mass: read.quantity(values.mass, "mass"),
+    ratedVoltage: read.quantity(values.ratedVoltage, "ratedVoltage"),
+    ratedCurrent: read.quantity(values.ratedCurrent, "ratedCurrent"),
+    price: amount ? { amount, currency: values.price.currency.trim().toUpperCase() } : null,
+    supplier: values.supplier,
+    notes: values.notes,
+  };
+  return { input, errors: read.errors };
+}
+
+const fields = ["name", "kind", "mass", "mass.value", "ratedVoltage", "ratedVoltage.value", "ratedCurrent", "ratedCurrent.value", "price.amount", "price.currency", "supplier", "notes"] as const;
+
+export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput) => Promise<unknown>; onCancel?: () => void }) {
+  const [problem, setProblem] = useState<string | null>(null);
+  const form = useForm<PartFormValues>({ resolver: sharedSchemaResolver(partInputSchema, toInput), defaultValues: toValues(part) });
+  const errors = form.formState.errors;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setProblem(null);
+    try {
+      await onSave(partInputSchema.parse(toInput(values).input));
+      if (!part) form.reset(toValues());
+    } catch (error) {
+      const message = applyServerErrors(error, form.setError, fields);
+      if (message) setProblem(message);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label={part ? `Edit ${part.name}` : "New part"} className="flex flex-col gap-3">
+      <div className="grid gap-3 sm:grid-cols-[2fr_1fr]">
+        <TextField label="Name" placeholder="e.g. 2216 outrunner, 880 kV" {...form.register("name")} error={errors.name?.message} />
+        <SelectField label="Kind" options={partKinds.map((kind) => ({ value: kind, label: partKindLabels[kind] }))} {...form.register("kind")} error={errors.kind?.message} />
+      </div>
+      <div className="grid items-start gap-3 sm:grid-cols-3">
+        <QuantityField label="Mass" valueProps={form.register("mass.value")} unitProps={form.register("mass.unit")} units={unitsByDimension.mass} error={errorAt(errors, "mass")} />
+        <QuantityField
+          label="Rated voltage"
+          valueProps={form.register("ratedVoltage.value")}
+          unitProps={form.register("ratedVoltage.unit")}
+          units={unitsByDimension.voltage}
+          error={errorAt(errors, "ratedVoltage")}
+          hint="The maker's maximum; runs above it are flagged."
+        />
+        <QuantityField label="Rated current" valueProps={form.register("ratedCurrent.value")} unitProps={form.register("ratedCurrent.unit")} units={unitsByDimension.current} error={errorAt(errors, "ratedCurrent")} />
+      </div>
+      <div className="grid items-start gap-3 sm:grid-cols-[1fr_6rem_2fr]">
+        <TextField label="Price" inputMode="decimal" {...form.register("price.amount")} error={errorAt(errors, "price.amount")} />
+        <TextField label="Currency" maxLength={3} {...form.register("price.currency")} error={errorAt(errors, "price.currency")} />
+        <TextField label="Supplier" {...form.register("supplier")} error={errors.supplier?.message} />
+      </div>
+      <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
+      {problem && <Notice kind="error">{problem}</Notice>}
+      <div className="flex gap-2">
+        <Button type="submit" busy={busy}>
+          {part ? "Save part" : "Add to the shelf"}
+        </Button>
+        {onCancel && (
+          <Button type="button" tone="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        )}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,14 @@
+/** One key factory for the rushes feature: general to specific, so invalidation can aim at any level. */
+export const rushesKeys = {
+  all: ["rushes"] as const,
+  channel: (channelId: string) => [...rushesKeys.all, channelId] as const,
+  footage: (channelId: string) => [...rushesKeys.channel(channelId), "footage"] as const,
+  footageList: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "list", query] as const,
+  clip: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "clip", clipId] as const,
+  preview: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "preview", clipId] as const,
+  shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
+  shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
+  shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,
+  shootDay: (channelId: string, shootDayId: string) => [...rushesKeys.channel(channelId), "shoot-day", shootDayId] as const,
+  openUploads: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "uploads", episodeId] as const,
+};

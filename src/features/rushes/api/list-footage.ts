@@ -1,0 +1,17 @@
+import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
+import type { FootagePage } from "@shared/rushes/schemas";
+import { api } from "../../../lib/api-client";
+import { rushesKeys } from "./keys";
+
+/** `query` is the list's search string (filters, sort, cursor), the same one the page's URL holds. */
+export const footageQueryOptions = (channelId: string, query: string) =>
+  queryOptions({
+    queryKey: rushesKeys.footageList(channelId, query),
+    queryFn: ({ signal }) => api<FootagePage>(`/api/channels/${channelId}/clips?${query}`, { signal }),
+    placeholderData: keepPreviousData,
+  });
+
+export const useFootage = (channelId: string, query: string) => useQuery(footageQueryOptions(channelId, query));
+
+export const exportUrl = (channelId: string, kind: "csv" | "edl" | "otio", query: string) => `/api/channels/${channelId}/exports/footage.${kind}?${query}`;
+export const zipUrl = (channelId: string, ids: string[]) => `/api/channels/${channelId}/exports/footage.zip?ids=${ids.join(",")}`;

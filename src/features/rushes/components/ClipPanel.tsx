@@ -1,0 +1,214 @@
+import { useEffect, useRef, useState, type FormEvent } from "react";
+import { formatBytes } from "@shared/rushes/limits";
+import type { ClipDetail } from "@shared/rushes/schemas";
+import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { LoadError, Loading } from "../../../components/States";
+import { api, ApiError } from "../../../lib/api-client";
+import { useClip, usePreview } from "../api/get-clip";
+import { useShootDays, useShots } from "../api/shoot";
+import { useDeleteClip, useUpdateClip } from "../api/update-clip";
+import { clipFormatText, formatDuration, formatWhen } from "./format";
+import { MarksEditor } from "./MarksEditor";
+
+/** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks). */
+export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId: string; clipId: string; canDelete: boolean; onClose: () => void }) {
+  const clip = useClip(channelId, clipId);
+  const heading = useRef<HTMLHeadingElement>(null);
+  useEffect(() => heading.current?.focus(), [clipId]);
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => e.key === "Escape" && onClose();
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [onClose]);
+  return (
+    <aside role="dialog" aria-modal="false" aria-labelledby="clip-heading" className="fixed inset-y-0 right-0 z-20 w-full max-w-xl overflow-x-hidden overflow-y-auto border-l border-ply-300 bg-white p-5 shadow-xl">
+      <div className="mb-3 flex items-start justify-between gap-3">
+        <h2 id="clip-heading" ref={heading} tabIndex={-1} className="text-lg font-bold break-all">
+          {clip.data?.fileName ?? "Clip"}
+        </h2>
+        <Button tone="quiet" onClick={onClose}>
+          Close
+        </Button>
+      </div>
+      {clip.isPending && <Loading label="Loading the clip…" />}
+      {clip.isError && <LoadError error={clip.error} retry={() => void clip.refetch()} />}
+      {clip.data && <ClipBody channelId={channelId} clip={clip.data} canDelete={canDelete} onDeleted={onClose} />}
+    </aside>
+  );
+}
+
+function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string; clip: ClipDetail; canDelete: boolean; onDeleted: () => void }) {
+  const preview = usePreview(channelId, clip.id);
+  const remove = useDeleteClip(channelId);
+  const [unplayable, setUnplayable] = useState(false);
+  const download = async () => {
+    const { url } = await api<{ url: string }>(`/api/channels/${channelId}/clips/${clip.id}/preview?download=1`);
+    window.location.assign(url);
+  };
+  return (
+    <div className="flex flex-col gap-5">
+      <div className="overflow-hidden rounded-md bg-graphite-900">
+        {preview.data && !unplayable ? (
+          <video
+            key={preview.data.url}
+            src={preview.data.url}
+            poster={clip.posterUrl ?? undefined}
+            controls
+            preload="metadata"
+            onError={() => setUnplayable(true)}
+            className="aspect-video w-full"
+            aria-label={`Preview of ${clip.fileName}`}
+          />
+        ) : unplayable ? (
+          <div className="flex aspect-video items-center justify-center p-6 text-center text-sm text-ply-200">
+            This browser can't play this file here (a camera codec it doesn't decode, or no file in storage behind a demo clip). Download the original to view it.
+          </div>
+        ) : (
+          <div className="flex aspect-video items-center justify-center text-sm text-ply-200">{preview.isError ? "Storage is not reachable; no preview right now." : "Loading preview…"}</div>
+        )}
+      </div>
+      <div>
+        <Button tone="quiet" onClick={() => void download()}>
+          Download original
+        </Button>
+      </div>
+      <dl className="grid grid-cols-[8rem_1fr] gap-x-3 gap-y-1 text-sm" aria-label="Clip facts">
+        <dt className="text-graphite-500">Duration</dt>
+        <dd>{formatDuration(clip.durationMs)}</dd>
+        <dt className="text-graphite-500">Timecode</dt>
+        <dd>
+          <span className="font-mono">{clip.startTimecode ?? "none"}</span> · {clipFormatText(clip)}
+        </dd>
+        <dt className="text-graphite-500">Picture</dt>
+        <dd>{clip.width && clip.height ? `${clip.width}×${clip.height}` : "unknown"} · {clip.codec ?? "codec unknown"}</dd>
+        <dt className="text-graphite-500">Recorded</dt>
+        <dd>{formatWhen(clip.recordedAt)}</dd>
+        <dt className="text-graphite-500">Size</dt>
+        <dd>{formatBytes(clip.size)}</dd>
+        <dt className="text-graphite-500">Checksum</dt>
+        <dd className="font-mono text-xs break-all">{clip.sha256 ? `SHA-256 ${clip.sha256}` : clip.storageEtag ? `storage ETag ${clip.storageEtag}` : "none"}</dd>
+      </dl>
+      <LogForm channelId={channelId} clip={clip} />
+      <MarksEditor channelId={channelId} clip={clip} />
+      {canDelete && (
+        <div className="border-t border-ply-200 pt-4">
+          <Button
+            tone="danger"
+            busy={remove.isPending}
+            onClick={() => {
+              if (window.confirm(`Delete ${clip.fileName} from storage and from Kerf? This can't be undone.`)) remove.mutate(clip.id, { onSuccess: onDeleted });
+            }}
+          >
+            Delete clip
+          </Button>
+          {remove.error && <p className="mt-2 text-sm text-alarm-600">{remove.error.message}</p>}
+        </div>
+      )}
+    </div>
+  );
+}
+
+const select = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
+
+function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+  const update = useUpdateClip(channelId, clip.id);
+  const days = useShootDays(channelId, clip.episodeId);
+  const shots = useShots(channelId, clip.episodeId);
+  const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
+  const submit = async (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    const text = (k: string) => String(data.get(k) ?? "");
+    setNotice(null);
+    try {
+      await update.mutateAsync({
+        shootDayId: text("shootDayId") || null,
+        shotId: text("shotId") || null,
+        rating: (text("rating") || null) as ClipDetail["rating"],
+        kind: (text("kind") || null) as ClipDetail["kind"],
+        tags: text("tags")
+          .split(",")
+          .map((t) => t.trim())
+          .filter(Boolean),
+        notes: text("notes"),
+        camera: text("camera"),
+      });
+      setNotice({ kind: "success", text: "Log saved." });
+    } catch (error) {
+      const fields = error instanceof ApiError ? Object.values(error.fields) : [];
+      setNotice({ kind: "error", text: fields.length ? fields.join(" ") : (error as Error).message });
+    }
+  };
+  return (
+    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
+      <h3 className="font-semibold sm:col-span-2">Log</h3>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Shot
+        <select name="shotId" defaultValue={clip.shotId ?? ""} className={select}>
+          <option value="">No shot</option>
+          {shots.data?.map((s) => (
+            <option key={s.id} value={s.id}>
+              {s.description}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Shoot day
+        <select name="shootDayId" defaultValue={clip.shootDayId ?? ""} className={select}>
+          <option value="">No day</option>
+          {days.data?.map((d) => (
+            <option key={d.id} value={d.id}>
+              {d.day} {d.place}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Rating
+        <select name="rating" defaultValue={clip.rating ?? ""} className={select}>
+          <option value="">Not rated</option>
+          {clipRatings.map((r) => (
+            <option key={r} value={r}>
+              {clipRatingLabels[r]}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Kind
+        <select name="kind" defaultValue={clip.kind ?? ""} className={select}>
+          <option value="">Not set</option>
+          {shotKinds.map((k) => (
+            <option key={k} value={k}>
+              {shotKindLabels[k]}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Tags (comma between)
+        <input name="tags" defaultValue={clip.tags.join(", ")} className={select} />
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium">
+        Camera
+        <input name="camera" defaultValue={clip.camera} className={select} />
+      </label>
+      <label className="flex flex-col gap-1 text-sm font-medium sm:col-span-2">
+        Notes
+        <textarea name="notes" defaultValue={clip.notes} rows={3} className={select} />
+      </label>
+      <p className="text-xs text-graphite-500 sm:col-span-2">
+        Bench runs and build iterations: {clip.benchRunId || clip.buildIterationId ? "linked" : "none linked"}.
+      </p>
+      <div className="flex items-center gap-3 sm:col-span-2">
+        <Button type="submit" busy={update.isPending}>
+          Save log
+        </Button>
+        {notice && <Notice kind={notice.kind}>{notice.text}</Notice>}
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,23 @@
+import { roleMay } from "@shared/access/roles";
+import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { FootageList } from "./FootageList";
+import { ShootPlan } from "./ShootPlan";
+import { Uploader } from "./Uploader";
+
+/** The episode page's shoot and footage section: the plan, the uploads, and this episode's footage. */
+export function EpisodeRushes({ channelId, episodeId, role }: EpisodeSectionProps) {
+  return (
+    <div className="grid gap-6">
+      {roleMay(role, "shoot", "R") && <ShootPlan channelId={channelId} episodeId={episodeId} />}
+      {roleMay(role, "footage", "W") && <Uploader channelId={channelId} episodeId={episodeId} />}
+      {roleMay(role, "footage", "R") && (
+        <section aria-labelledby="episode-footage-heading">
+          <h3 id="episode-footage-heading" className="mb-2 font-semibold">
+            This episode's footage
+          </h3>
+          <FootageList channelId={channelId} episodeId={episodeId} canDelete={roleMay(role, "footage", "W") && role !== "crew"} />
+        </section>
+      )}
+    </div>
+  );
+}

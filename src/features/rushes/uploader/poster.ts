@@ -1,0 +1,52 @@
+import { api } from "../../../lib/api-client";
+
+/**
+ * A poster frame from the chosen file itself: the browser decodes it in a hidden <video>, draws one
+ * frame to a canvas, and the JPEG streams through Kerf's server into storage. Files the browser can't
+ * decode (many camera codecs) simply get no poster.
+ */
+export async function posterFrom(file: File): Promise<Blob | null> {
+  const url = URL.createObjectURL(file);
+  const video = document.createElement("video");
+  video.muted = true;
+  video.preload = "auto";
+  video.src = url;
+  try {
+    await within(new Promise<void>((resolve, reject) => {
+      video.onloadeddata = () => resolve();
+      video.onerror = () => reject(new Error("not decodable"));
+    }), 8_000);
+    const at = Math.min(1, (video.duration || 0) / 2);
+    if (at > 0) {
+      await within(new Promise<void>((resolve) => {
+        video.onseeked = () => resolve();
+        video.currentTime = at;
+      }), 8_000);
+    }
+    const width = 480;
+    const height = Math.round((width * (video.videoHeight || 9)) / (video.videoWidth || 16));
+    const canvas = document.createElement("canvas");
+    canvas.width = width;
+    canvas.height = height;
+    canvas.getContext("2d")!.drawImage(video, 0, 0, width, height);
+    return await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, "image/jpeg", 0.8));
+  } catch {
+    return null;
+  } finally {
+    URL.revokeObjectURL(url);
+  }
+}
+
+function within<T>(work: Promise<T>, ms: number): Promise<T> {
+  return Promise.race([work, new Promise<T>((_, reject) => setTimeout(() => reject(new Error("timed out")), ms))]);
+}
+
+let csrf = "";
+/** The multipart form the poster route takes: the size first, then the file. */
+export async function sendPoster(channelId: string, clipId: string, poster: Blob): Promise<void> {
+  if (!csrf) csrf = (await api<{ csrfToken: string }>("/api/auth/me")).csrfToken;
+  const form = new FormData();
+  form.append("size", String(poster.size));
+  form.append("file", poster, "poster.jpg");
+  await fetch(`/api/channels/${channelId}/clips/${clipId}/poster`, { method: "POST", body: form, headers: { "x-csrf-token": csrf }, credentials: "same-origin" });
+}

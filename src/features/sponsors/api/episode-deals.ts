@@ -1,0 +1,12 @@
+import { queryOptions, useQuery } from "@tanstack/react-query";
+import type { DealView } from "@shared/sponsors/schemas";
+import { api } from "../../../lib/api-client";
+import { channelBase, sponsorKeys } from "./keys";
+
+export const episodeDealsQueryOptions = (channelId: string, episodeId: string) =>
+  queryOptions({
+    queryKey: sponsorKeys.episodeDeals(channelId, episodeId),
+    queryFn: () => api<{ deals: DealView[] }>(`${channelBase(channelId)}/episodes/${episodeId}/deals`).then((r) => r.deals),
+  });
+
+export const useEpisodeDeals = (channelId: string, episodeId: string) => useQuery(episodeDealsQueryOptions(channelId, episodeId));

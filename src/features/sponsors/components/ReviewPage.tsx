@@ -1,0 +1,180 @@
+import { useState, type ReactNode } from "react";
+import { useParams } from "react-router-dom";
+import { formatSeconds } from "@shared/sponsors/read";
+import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
+import { fieldMessages } from "@shared/http/errors";
+import { Button } from "../../../components/Button";
+import { Notice } from "../../../components/Notice";
+import { Loading } from "../../../components/States";
+import { Wordmark } from "../../../components/Wordmark";
+import { ApiError } from "../../../lib/api-client";
+import { useMe } from "../../../lib/session";
+import { useDecide, useReview } from "../api/review";
+import { TextArea } from "./form-tools";
+
+function Frame({ children }: { children: ReactNode }) {
+  return (
+    <main className="min-h-screen bg-ply-100 px-4 py-8">
+      <div className="mx-auto flex max-w-3xl flex-col gap-6">
+        <Wordmark className="text-xl" />
+        {children}
+        <p className="text-xs text-graphite-500">This page was sent to you by a channel that plans its videos with Kerf. You don't need an account to use it.</p>
+      </div>
+    </main>
+  );
+}
+
+function Closed({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <section className="rounded-xl border border-ply-300 bg-white p-8 shadow-sm">
+      <h1 className="mb-3 text-xl font-bold">{title}</h1>
+      <div className="text-graphite-700">{children}</div>
+    </section>
+  );
+}
+
+const decisionText: Record<ReviewDecision, string> = { approved: "approved", changes_asked: "asked for changes" };
+
+/** The sponsor's contact, without an account: read the script (and watch the cut), then decide once. */
+export function ReviewPage() {
+  const { token = "" } = useParams();
+  // The page's CSRF token comes from /api/auth/me, like every page's.
+  const me = useMe();
+  const review = useReview(token);
+  if (review.isPending || me.isPending) {
+    return (
+      <Frame>
+        <Loading label="Opening the review…" />
+      </Frame>
+    );
+  }
+  if (review.isError) {
+    const invalid = review.error instanceof ApiError && review.error.status === 404;
+    return (
+      <Frame>
+        <Closed title={invalid ? "This review link isn't valid" : "This review didn't open"}>
+          <p>{invalid ? "Check that you copied the whole link from the e-mail, or ask the channel for a new one." : review.error.message}</p>
+          {!invalid && (
+            <Button tone="quiet" className="mt-4" onClick={() => void review.refetch()}>
+              Try again
+            </Button>
+          )}
+        </Closed>
+      </Frame>
+    );
+  }
+  return (
+    <Frame>
+      <Body token={token} page={review.data} />
+    </Frame>
+  );
+}
+
+function Body({ token, page }: { token: string; page: ReviewPageData }) {
+  switch (page.state) {
+    case "decided":
+      return (
+        <Closed title="Thank you: your decision is recorded">
+          <p>
+            {page.contactName} {decisionText[page.decision]} on {new Date(page.decidedAt).toLocaleString()}. {page.channelName} has been told by e-mail.
+          </p>
+          <p className="mt-2 text-sm text-graphite-500">This link works for one decision only. For another round, the channel will send a new link.</p>
+        </Closed>
+      );
+    case "expired":
+      return (
+        <Closed title="This review link has expired">
+          <p>Ask {page.channelName} to send a new one.</p>
+        </Closed>
+      );
+    case "revoked":
+      return (
+        <Closed title="This review link was withdrawn">
+          <p>{page.channelName} withdrew it. If you still need to review, ask them for a new link.</p>
+        </Closed>
+      );
+    case "open":
+      return <OpenReview token={token} page={page} />;
+  }
+}
+
+function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageData, { state: "open" }> }) {
+  const decide = useDecide(token);
+  const [decision, setDecision] = useState<ReviewDecision | null>(null);
+  const [comment, setComment] = useState("");
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const submit = async () => {
+    const parsed = reviewDecisionSchema.safeParse({ decision, comment });
+    if (!parsed.success) return setErrors(fieldMessages(parsed.error.issues));
+    setErrors({});
+    await decide.mutateAsync(parsed.data).catch((error: unknown) => {
+      if (error instanceof ApiError) setErrors(error.fields);
+    });
+  };
+  return (
+    <>
+      <header className="rounded-xl border border-ply-300 bg-white p-6 shadow-sm">
+        <p className="text-sm text-graphite-500">
+          {page.channelName} · for {page.contactName} of {page.company}
+        </p>
+        <h1 className="mt-1 text-2xl font-bold">Review: {page.deliverableTitle}</h1>
+        <p className="mt-1 text-graphite-700">
+          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {new Date(page.expiresAt).toLocaleString()}.
+        </p>
+      </header>
+      <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+        <h2 id="script-heading" className="mb-2 text-lg font-semibold">
+          The script
+        </h2>
+        <p className="mb-3 text-sm text-graphite-500">
+          Reads in about {formatSeconds(page.estimatedSeconds)}; the contract asks for {formatSeconds(page.segmentSeconds)}.
+        </p>
+        <p className="whitespace-pre-wrap rounded-md bg-ply-50 p-4 leading-relaxed">{page.script || "The script isn't written yet."}</p>
+        <dl className="mt-4 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[10rem_1fr]">
+          <dt className="text-graphite-500">Talking points</dt>
+          <dd>{page.talkingPoints.length ? page.talkingPoints.join(" · ") : "None listed"}</dd>
+          <dt className="text-graphite-500">Link</dt>
+          <dd>{page.link ?? "None"}</dd>
+          <dt className="text-graphite-500">Promo code</dt>
+          <dd>{page.promoCode ?? "None"}</dd>
+          <dt className="text-graphite-500">Disclosure</dt>
+          <dd>{page.disclosureText ?? "A plain label such as “Sponsored”"}</dd>
+        </dl>
+      </section>
+      {page.cutUrl && (
+        <section aria-labelledby="cut-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+          <h2 id="cut-heading" className="mb-2 text-lg font-semibold">
+            The cut
+          </h2>
+          <video controls preload="metadata" src={page.cutUrl} className="w-full rounded-md bg-graphite-900">
+            Your browser can't play this video here.
+          </video>
+        </section>
+      )}
+      <section aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+        <h2 id="decision-heading" className="mb-3 text-lg font-semibold">
+          Your decision
+        </h2>
+        <fieldset className="mb-3 flex flex-wrap gap-4">
+          <legend className="sr-only">Decision</legend>
+          <label className="flex items-center gap-2">
+            <input type="radio" name="decision" checked={decision === "approved"} onChange={() => setDecision("approved")} /> Approve
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" name="decision" checked={decision === "changes_asked"} onChange={() => setDecision("changes_asked")} /> Ask for changes
+          </label>
+        </fieldset>
+        {errors.decision && <p className="mb-2 text-sm text-alarm-600">{errors.decision}</p>}
+        <TextArea label="Comment" rows={4} value={comment} onChange={(e) => setComment(e.target.value)} hint="Needed when you ask for changes: say what should change." error={errors.comment} />
+        {decide.isError && !(decide.error instanceof ApiError && Object.keys(decide.error.fields).length) && (
+          <div className="mt-3">
+            <Notice kind="error">{decide.error.message}</Notice>
+          </div>
+        )}
+        <Button className="mt-4" busy={decide.isPending} onClick={() => void submit()}>
+          Send decision
+        </Button>
+      </section>
+    </>
+  );
+}

@@ -1,0 +1,282 @@
+import { randomUUID } from "node:crypto";
+import { addDays } from "date-fns";
+import { expect } from "vitest";
+import { reviewLinks } from "../../../server/db/schema/sponsors";
+import { reviewTokens } from "../../../server/sponsors/review-token";
+import { suggestedTemplateItems } from "../../../shared/sponsors/deliverables";
+import { createContact, createDeal, createSponsor, createTemplate } from "../../factories/sponsors";
+import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matrix";
+
+/*
+ * Sponsors and deals (segment requirements): owner and producer W, editor and crew R.
+ * Deals' fee, payment terms and invoices: owner and producer W, editor and crew nothing.
+ * Deliverables: owner and producer W, editor R (W on the cut items they deliver), crew R.
+ * The sponsor's review page is public: its signed token is the only key.
+ */
+const c = "/api/channels/:channelId";
+export const access: FeatureAccess = {
+  rows: [
+    // route                                                    visitor owner producer editor crew outsider
+    [`GET ${c}/sponsors`,                                        401, ok, ok, ok,  ok,  404],
+    [`POST ${c}/sponsors`,                                       401, ok, ok, 403, 403, 404],
+    [`GET ${c}/sponsors/:sponsorId`,                             401, ok, ok, ok,  ok,  404],
+    [`PATCH ${c}/sponsors/:sponsorId`,                           401, ok, ok, 403, 403, 404],
+    [`POST ${c}/sponsors/:sponsorId/contacts`,                   401, ok, ok, 403, 403, 404],
+    [`PATCH ${c}/sponsors/:sponsorId/contacts/:contactId`,       401, ok, ok, 403, 403, 404],
+    [`DELETE ${c}/sponsors/:sponsorId/contacts/:contactId`,      401, ok, ok, 403, 403, 404],
+    [`GET ${c}/deal-templates`,                                  401, ok, ok, ok,  ok,  404],
+    [`POST ${c}/deal-templates`,                                 401, ok, ok, 403, 403, 404],
+    [`PUT ${c}/deal-templates/:templateId`,                      401, ok, ok, 403, 403, 404],
+    [`DELETE ${c}/deal-templates/:templateId`,                   401, ok, ok, 403, 403, 404],
+    [`GET ${c}/episodes/:episodeId/deals`,                       401, ok, ok, ok,  ok,  404],
+    [`POST ${c}/deals`,                                          401, ok, ok, 403, 403, 404],
+    [`GET ${c}/deals/:dealId`,                                   401, ok, ok, ok,  ok,  404],
+    [`PATCH ${c}/deals/:dealId`,                                 401, ok, ok, 403, 403, 404],
+    [`PUT ${c}/deals/:dealId/money`,                             401, ok, ok, 403, 403, 404],
+    [`PUT ${c}/deals/:dealId/cut`,                               401, ok, ok, ok,  403, 404],
+    [`POST ${c}/deals/:dealId/deliverables`,                     401, ok, ok, 403, 403, 404],
+    [`PATCH ${c}/deliverables/:deliverableId`,                   401, ok, ok, ok,  403, 404],
+    [`DELETE ${c}/deliverables/:deliverableId`,                  401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/review-links`,                     401, ok, ok, 403, 403, 404],
+    [`DELETE ${c}/deals/:dealId/review-links/:linkId`,           401, ok, ok, 403, 403, 404],
+    ["GET /api/review/:token",                                   ok,  ok, ok, ok,  ok,  ok],
+    ["POST /api/review/:token/decision",                         ok,  ok, ok, ok,  ok,  ok],
+    [`GET ${c}/desk`,                                            401, ok, ok, ok,  ok,  404],
+    [`GET ${c}/sponsor-settings`,                                401, ok, ok, ok,  ok,  404],
+    [`PUT ${c}/sponsor-settings`,                                401, ok, ok, 403, 403, 404],
+    [`PUT ${c}/speaking-rates/:userId`,                          401, ok, ok, 403, 403, 404],
+  ],
+  recipes: sponsorRecipes,
+};
+
+const money = { fee: 1200, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null };
+
+function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
+  const channelId = world.channel.id;
+  const one = async (sql: string, params: unknown[]) => (await app.database.pool.query(sql, params)).rows[0];
+
+  async function freshDeal() {
+    const sponsor = await createSponsor(app.db, channelId, { company: `Matrix ${randomUUID().slice(0, 6)}` });
+    const contact = await createContact(app.db, channelId, sponsor.id);
+    const made = await createDeal(app.db, channelId, world.episode.id, { sponsorId: sponsor.id, contactId: contact.id, items: suggestedTemplateItems });
+    return { sponsor, contact, deal: made.deal, items: made.items, item: (kind: string) => made.items.find((i) => i.kind === kind)! };
+  }
+
+  async function openLink() {
+    const { deal, contact, item } = await freshDeal();
+    const expiresAt = new Date(Math.floor(addDays(new Date(), 7).getTime() / 1000) * 1000);
+    const [link] = await app.db
+      .insert(reviewLinks)
+      .values({ channelId, dealId: deal.id, deliverableId: item("script_approval").id, contactId: contact.id, contactName: contact.name, contactEmail: contact.email, sentByName: "Matrix", sentByEmail: "", expiresAt })
+      .returning();
+    return { link: link!, token: reviewTokens(app.deps.env.SESSION_SECRET).sign(link!.id, expiresAt) };
+  }
+
+  let calls = 0;
+  const sponsorCompany = async (id: string) => (await one("select company from sponsors where id = $1", [id]))?.company;
+
+  return {
+    [`GET ${c}/sponsors`]: { ok: 200 },
+    [`POST ${c}/sponsors`]: {
+      ok: 201,
+      prepare: async () => {
+        const company = `Refused ${randomUUID().slice(0, 8)}`;
+        return { body: { company, website: null, notes: null }, intact: async () => expect(await one("select 1 from sponsors where company = $1", [company])).toBeUndefined() };
+      },
+    },
+    [`GET ${c}/sponsors/:sponsorId`]: {
+      ok: 200,
+      prepare: async () => ({ params: { sponsorId: (await createSponsor(app.db, channelId)).id } }),
+    },
+    [`PATCH ${c}/sponsors/:sponsorId`]: {
+      ok: 200,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId, { company: "Before" });
+        return { params: { sponsorId: sponsor.id }, body: { company: "After", website: null, notes: null }, intact: async () => expect(await sponsorCompany(sponsor.id)).toBe("Before") };
+      },
+    },
+    [`POST ${c}/sponsors/:sponsorId/contacts`]: {
+      ok: 201,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId);
+        return {
+          params: { sponsorId: sponsor.id },
+          body: { name: "New Contact", email: "new-contact@example.com", role: null },
+          intact: async () => expect(await one("select count(*)::int as n from sponsor_contacts where sponsor_id = $1", [sponsor.id])).toEqual({ n: 0 }),
+        };
+      },
+    },
+    [`PATCH ${c}/sponsors/:sponsorId/contacts/:contactId`]: {
+      ok: 200,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId);
+        const contact = await createContact(app.db, channelId, sponsor.id, { name: "Before" });
+        return {
+          params: { sponsorId: sponsor.id, contactId: contact.id },
+          body: { name: "After", email: contact.email, role: null },
+          intact: async () => expect((await one("select name from sponsor_contacts where id = $1", [contact.id])).name).toBe("Before"),
+        };
+      },
+    },
+    [`DELETE ${c}/sponsors/:sponsorId/contacts/:contactId`]: {
+      ok: 204,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId);
+        const contact = await createContact(app.db, channelId, sponsor.id);
+        return { params: { sponsorId: sponsor.id, contactId: contact.id }, intact: async () => expect(await one("select 1 as kept from sponsor_contacts where id = $1", [contact.id])).toEqual({ kept: 1 }) };
+      },
+    },
+    [`GET ${c}/deal-templates`]: { ok: 200 },
+    [`POST ${c}/deal-templates`]: {
+      ok: 201,
+      prepare: async () => {
+        const name = `Refused ${randomUUID().slice(0, 8)}`;
+        return { body: { name, items: suggestedTemplateItems.slice(0, 2) }, intact: async () => expect(await one("select 1 from deal_templates where name = $1", [name])).toBeUndefined() };
+      },
+    },
+    [`PUT ${c}/deal-templates/:templateId`]: {
+      ok: 200,
+      prepare: async () => {
+        const template = await createTemplate(app.db, channelId, suggestedTemplateItems, "Before");
+        return {
+          params: { templateId: template.id },
+          body: { name: "After", items: suggestedTemplateItems.slice(0, 1) },
+          intact: async () => expect((await one("select name from deal_templates where id = $1", [template.id])).name).toBe("Before"),
+        };
+      },
+    },
+    [`DELETE ${c}/deal-templates/:templateId`]: {
+      ok: 204,
+      prepare: async () => {
+        const template = await createTemplate(app.db, channelId);
+        return { params: { templateId: template.id }, intact: async () => expect(await one("select 1 as kept from deal_templates where id = $1", [template.id])).toEqual({ kept: 1 }) };
+      },
+    },
+    [`GET ${c}/episodes/:episodeId/deals`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
+    [`POST ${c}/deals`]: {
+      ok: 201,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId);
+        return {
+          body: {
+            episodeId: world.episode.id,
+            sponsorId: sponsor.id,
+            templateId: null,
+            state: "signed",
+            placement: "opening",
+            segmentSeconds: 45,
+            talkingPoints: [],
+            link: null,
+            promoCode: null,
+            disclosureText: null,
+            exclusivityNotes: null,
+            descriptionCopy: null,
+            contactId: null,
+            hostId: null,
+            goLiveDate: null,
+            money,
+          },
+          intact: async () => expect(await one("select count(*)::int as n from deals where sponsor_id = $1", [sponsor.id])).toEqual({ n: 0 }),
+        };
+      },
+    },
+    [`GET ${c}/deals/:dealId`]: { ok: 200, prepare: async () => ({ params: { dealId: (await freshDeal()).deal.id } }) },
+    [`PATCH ${c}/deals/:dealId`]: {
+      ok: 200,
+      prepare: async () => {
+        const { deal } = await freshDeal();
+        return { params: { dealId: deal.id }, body: { script: "Changed" }, intact: async () => expect((await one("select script from deals where id = $1", [deal.id])).script).toBe("") };
+      },
+    },
+    [`PUT ${c}/deals/:dealId/money`]: {
+      ok: 200,
+      prepare: async () => {
+        const { deal } = await freshDeal();
+        return { params: { dealId: deal.id }, body: { ...money, fee: 1 }, intact: async () => expect((await one("select fee_amount from deals where id = $1", [deal.id])).fee_amount).toBe("4321.00") };
+      },
+    },
+    [`PUT ${c}/deals/:dealId/cut`]: {
+      ok: 200,
+      prepare: async () => {
+        const { deal } = await freshDeal();
+        return {
+          params: { dealId: deal.id },
+          body: { clipId: null, timing: { inTimecode: "00:00:10:00", outTimecode: "00:01:10:00", frameRate: "25", dropFrame: false } },
+          intact: async () => expect((await one("select cut_in from deals where id = $1", [deal.id])).cut_in).toBeNull(),
+        };
+      },
+    },
+    [`POST ${c}/deals/:dealId/deliverables`]: {
+      ok: 201,
+      prepare: async () => {
+        const { deal, items } = await freshDeal();
+        return {
+          params: { dealId: deal.id },
+          body: { kind: "other", title: "Extra item", anchor: "fixed", fixedDate: "2027-05-01" },
+          intact: async () => expect(await one("select count(*)::int as n from deliverables where deal_id = $1", [deal.id])).toEqual({ n: items.length }),
+        };
+      },
+    },
+    [`PATCH ${c}/deliverables/:deliverableId`]: {
+      ok: 200,
+      // The draft cut: the one kind of item the editor may move.
+      prepare: async () => {
+        const { item } = await freshDeal();
+        const cut = item("draft_cut");
+        return { params: { deliverableId: cut.id }, body: { status: "sent" }, intact: async () => expect((await one("select status::text from deliverables where id = $1", [cut.id])).status).toBe("not_started") };
+      },
+    },
+    [`DELETE ${c}/deliverables/:deliverableId`]: {
+      ok: 204,
+      prepare: async () => {
+        const { item } = await freshDeal();
+        const target = item("report");
+        return { params: { deliverableId: target.id }, intact: async () => expect(await one("select 1 as kept from deliverables where id = $1", [target.id])).toEqual({ kept: 1 }) };
+      },
+    },
+    [`POST ${c}/deals/:dealId/review-links`]: {
+      ok: 201,
+      prepare: async () => {
+        const { deal, contact, item } = await freshDeal();
+        return {
+          params: { dealId: deal.id },
+          body: { deliverableId: item("script_approval").id, contactId: contact.id },
+          intact: async () => expect(await one("select count(*)::int as n from review_links where deal_id = $1", [deal.id])).toEqual({ n: 0 }),
+        };
+      },
+    },
+    [`DELETE ${c}/deals/:dealId/review-links/:linkId`]: {
+      ok: 204,
+      prepare: async () => {
+        const { link } = await openLink();
+        return { params: { dealId: link.dealId, linkId: link.id }, intact: async () => expect((await one("select revoked_at from review_links where id = $1", [link.id])).revoked_at).toBeNull() };
+      },
+    },
+    ["GET /api/review/:token"]: { ok: 200, prepare: async () => ({ params: { token: (await openLink()).token } }) },
+    ["POST /api/review/:token/decision"]: {
+      ok: 200,
+      prepare: async () => ({ params: { token: (await openLink()).token }, body: { decision: "approved", comment: null } }),
+    },
+    [`GET ${c}/desk`]: { ok: 200 },
+    [`GET ${c}/sponsor-settings`]: { ok: 200 },
+    [`PUT ${c}/sponsor-settings`]: {
+      ok: 200,
+      // A value no earlier cell used, so a refusal can be seen to have left it unsaved.
+      prepare: async () => {
+        const days = 5 + (calls++ % 20);
+        return { body: { reminderDaysBefore: days }, intact: async () => expect(await one("select 1 from sponsor_settings where channel_id = $1 and reminder_days_before = $2", [channelId, days])).toBeUndefined() };
+      },
+    },
+    [`PUT ${c}/speaking-rates/:userId`]: {
+      ok: 200,
+      prepare: async () => {
+        const rate = 100 + (calls++ % 100);
+        return {
+          params: { userId: world.owner.id },
+          body: { wordsPerMinute: rate },
+          intact: async () => expect(await one("select 1 from speaking_rates where user_id = $1 and words_per_minute = $2", [world.owner.id, rate])).toBeUndefined(),
+        };
+      },
+    },
+  };
+}

@@ -1,0 +1,120 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { MiB } from "../../shared/rushes/limits";
+import type { Storage } from "../../server/storage/storage";
+import { startTestApp, type TestApp } from "../support/test-app";
+import { patternBytes, rushesWorld, sendPart, uploadFile } from "./rushes-helpers";
+
+/** The real stand-in, with a switch that makes every call fail as an unreachable store does. */
+const faults = { down: false, refuseParts: false };
+const unreachable = () => Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:9"), { code: "ECONNREFUSED" });
+
+function switchable(real: Storage): Storage {
+  const wrap =
+    <A extends unknown[], R>(call: (...args: A) => Promise<R>) =>
+    async (...args: A): Promise<R> => {
+      if (faults.down) throw unreachable();
+      return call(...args);
+    };
+  return {
+    bucket: real.bucket,
+    publicOrigin: real.publicOrigin,
+    up: async () => !faults.down && real.up(),
+    createMultipart: wrap(real.createMultipart),
+    presignPart: wrap(real.presignPart),
+    completeMultipart: async (key, uploadId, parts) => {
+      if (faults.down) throw unreachable();
+      // What AWS answers for a list naming a part it doesn't hold (the stand-in checks no ETags).
+      if (faults.refuseParts) throw Object.assign(new Error("One or more of the specified parts could not be found."), { name: "InvalidPart", $metadata: { httpStatusCode: 400 } });
+      return real.completeMultipart(key, uploadId, parts);
+    },
+    abortMultipart: wrap(real.abortMultipart),
+    head: wrap(real.head),
+    presignGet: wrap(real.presignGet),
+    putStream: wrap(real.putStream),
+    getStream: wrap(real.getStream),
+    remove: wrap(real.remove),
+  };
+}
+
+let app: TestApp;
+let world: Awaited<ReturnType<typeof rushesWorld>>;
+beforeAll(async () => {
+  app = await startTestApp({ storage: switchable });
+  world = await rushesWorld(app);
+});
+afterAll(() => app.close());
+
+const count = async (table: string) => (await app.database.pool.query(`select count(*)::int as n from ${table}`)).rows[0].n as number;
+
+describe("when storage is down", () => {
+  it("then health says storage is down while Kerf itself stays up", async () => {
+    faults.down = true;
+    const response = await world.as.editor.get("/api/health").expect(200);
+    faults.down = false;
+    expect(response.body).toMatchObject({ status: "ok", database: "up", storage: "down" });
+  });
+
+  it("then starting an upload answers a clear 503 and writes no upload row", async () => {
+    const before = await count("uploads");
+    faults.down = true;
+    const response = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "down.mov", size: 9 * MiB });
+    faults.down = false;
+    expect(response.status).toBe(503);
+    expect(response.body.error).toEqual({ code: "unavailable", message: "Footage storage is not reachable right now; nothing was changed. Try again in a moment." });
+    expect(await count("uploads")).toBe(before);
+  });
+
+  it("then completing answers 503, makes no clip, and the upload can complete once storage is back", async () => {
+    const bytes = patternBytes(8 * MiB + 99);
+    const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "later.mov", size: bytes.length }).expect(201);
+    const upload = started.body.upload;
+    await sendPart(world.as.editor, world.base, upload, bytes, 1);
+    await sendPart(world.as.editor, world.base, upload, bytes, 2);
+    const clipsBefore = await count("clips");
+    faults.down = true;
+    const response = await world.as.editor.send("post", `${world.base}/uploads/${upload.id}/complete`, {});
+    faults.down = false;
+    expect(response.status).toBe(503);
+    expect(await count("clips")).toBe(clipsBefore);
+    expect((await app.database.pool.query("select status from uploads where id = $1", [upload.id])).rows).toEqual([{ status: "uploading" }]);
+    await world.as.editor.send("post", `${world.base}/uploads/${upload.id}/complete`, {}).expect(201);
+  });
+
+  it("then deleting a clip answers 503 and the clip stays", async () => {
+    const done = await uploadFile(world.as.editor, world.base, world.episode.id, "keep.mov", patternBytes(1000));
+    faults.down = true;
+    const response = await world.as.editor.send("delete", `${world.base}/clips/${done.body.clip.id}`);
+    faults.down = false;
+    expect(response.status).toBe(503);
+    await world.as.editor.get(`${world.base}/clips/${done.body.clip.id}`).expect(200);
+  });
+
+  it("then a photo upload answers 503 and records no photo", async () => {
+    const before = await count("stills");
+    faults.down = true;
+    const response = await world.as.crew.agent
+      .post(`${world.base}/stills`)
+      .set("x-csrf-token", world.as.crew.csrf)
+      .field("size", "4")
+      .attach("file", Buffer.from([0xff, 0xd8, 0xff, 0xd9]), { filename: "joint.jpg", contentType: "image/jpeg" });
+    faults.down = false;
+    expect(response.status).toBe(503);
+    expect(await count("stills")).toBe(before);
+  });
+});
+
+describe("when storage refuses the recorded parts", () => {
+  it("then completion answers 409, no clip exists, and the upload stays open", async () => {
+    const bytes = patternBytes(8 * MiB + 10);
+    const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "refused.mov", size: bytes.length }).expect(201);
+    const upload = started.body.upload;
+    await sendPart(world.as.editor, world.base, upload, bytes, 1);
+    await sendPart(world.as.editor, world.base, upload, bytes, 2);
+    faults.refuseParts = true;
+    const response = await world.as.editor.send("post", `${world.base}/uploads/${upload.id}/complete`, {});
+    faults.refuseParts = false;
+    expect(response.status).toBe(409);
+    expect(response.body.error.message).toBe("Storage refused the parts as recorded; send the file again.");
+    expect((await app.database.pool.query("select 1 from clips where file_name = 'refused.mov'")).rows).toEqual([]);
+  });
+});

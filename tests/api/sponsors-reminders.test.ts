@@ -1,0 +1,113 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { startMailCatcher, type MailCatcher } from "../../dev-services/mail";
+import { freePort } from "../../dev-services/processes";
+import { connectDatabase, type DatabaseHandle } from "../../server/db/client";
+import { REMINDER_QUEUE, scanReminders, scheduleSponsorJobs, type ReminderDeps } from "../../server/sponsors/reminders";
+import { dateInZone, shiftDate } from "../../shared/sponsors/dates";
+import { createCrewedChannel } from "../factories/accounts";
+import { createEpisode } from "../factories/episodes";
+import { createDeal, createSponsor } from "../factories/sponsors";
+import { createTestDatabase, type TestDatabase } from "../support/database";
+import { startTestApp, type TestApp } from "../support/test-app";
+
+/*
+ * Two app instances on one database, each with its own connection pool and its own pg-boss workers,
+ * sending through a mail server of this test's own that starts out stopped.
+ */
+let database: TestDatabase;
+let smtpPort: number;
+let webPort: number;
+let mail: MailCatcher | null = null;
+const instances: { app: TestApp; handle: DatabaseHandle; deps: ReminderDeps }[] = [];
+
+async function inbox(address: string): Promise<{ subject: string; text: string }[]> {
+  const all = (await (await fetch(`${mail!.webUrl}/api/email`)).json()) as { subject: string; text: string; to: { address: string }[] }[];
+  return all.filter((m) => m.to.some((t) => t.address === address));
+}
+
+async function waitForCount(address: string, count: number, timeoutMs: number) {
+  const deadline = Date.now() + timeoutMs;
+  while ((await inbox(address)).length < count && Date.now() < deadline) await new Promise((r) => setTimeout(r, 500));
+  return inbox(address);
+}
+
+beforeAll(async () => {
+  database = await createTestDatabase();
+  smtpPort = await freePort();
+  webPort = await freePort();
+  for (let i = 0; i < 2; i++) {
+    const app = await startTestApp({ database, smtpPort });
+    const handle = connectDatabase(database.url);
+    instances.push({ app, handle, deps: { db: handle.db, pool: handle.pool, jobs: app.jobs, appUrl: "http://kerf.test" } });
+  }
+});
+afterAll(async () => {
+  for (const { app, handle } of instances) {
+    await app.close();
+    await handle.close();
+  }
+  await mail?.stop();
+  await database.drop();
+});
+
+describe("deliverable reminders", () => {
+  it("when two instances scan at once with the mail server down, then each reminder is queued once and delivered once after it comes back", async () => {
+    const world = await createCrewedChannel(instances[0]!.app.db, "Reminder Bench");
+    const owner = world.producer;
+    const today = dateInZone(new Date(), owner.timeZone);
+    const episode = await createEpisode(instances[0]!.app.db, world.channel.id, { title: "Reminder episode", targetPublishDate: shiftDate(today, 30) });
+    const sponsor = await createSponsor(instances[0]!.app.db, world.channel.id, { company: "Alder Optics" });
+    const fixed = (title: string) => ({ kind: "other" as const, title, anchor: "before_publish" as const, offsetDays: 0, ownerRole: null });
+    const made = await createDeal(instances[0]!.app.db, world.channel.id, episode.id, {
+      sponsorId: sponsor.id,
+      ownerId: owner.id,
+      publishDate: shiftDate(today, 30),
+      items: [fixed("Due in two days"), fixed("Was due yesterday"), fixed("Due in ten days"), fixed("Done, and was due yesterday")],
+      statuses: { 3: "done" },
+    });
+    const due = [shiftDate(today, 2), shiftDate(today, -1), shiftDate(today, 10), shiftDate(today, -1)];
+    for (const [i, item] of made.items.entries()) {
+      await database.pool.query("update deliverables set anchor = 'fixed', due_date = $2 where id = $1", [item.id, due[i]]);
+    }
+
+    // Both instances scan, twice each, at the same moment: the unique key lets one insert win per reminder.
+    const results = await Promise.all(instances.flatMap(({ deps }) => [scanReminders(deps), scanReminders(deps)]));
+    expect(results.reduce((sum, r) => sum + r.sent, 0)).toBe(2);
+    const recorded = await database.pool.query("select kind, due_date::text from reminders_sent order by kind");
+    expect(recorded.rows).toEqual([
+      { kind: "before", due_date: shiftDate(today, 2) },
+      { kind: "late", due_date: shiftDate(today, -1) },
+    ]);
+    const queued = await database.pool.query("select count(*)::int as n from pgboss.job where name = 'mail'");
+    expect(queued.rows[0].n).toBe(2);
+
+    // The scheduled path too: both instances' workers take scan jobs from pg-boss; nothing new is due.
+    for (const { app, deps } of instances) await scheduleSponsorJobs(app.jobs.boss, deps, { pollSeconds: 0.5 });
+    for (const { app } of instances) await app.jobs.boss.send(REMINDER_QUEUE, {});
+    await new Promise((r) => setTimeout(r, 2_500));
+    expect((await database.pool.query("select count(*)::int as n from reminders_sent")).rows[0].n).toBe(2);
+
+    // The mail server comes up: the queued mail goes out on the next retry, once each.
+    mail = await startMailCatcher({ smtpPort, webPort });
+    const arrived = await waitForCount(owner.email, 2, 60_000);
+    expect(arrived.map((m) => m.subject).sort()).toEqual(["Due soon: Due in two days (Alder Optics)", "Late: Was due yesterday (Alder Optics)"]);
+    expect(arrived.find((m) => m.subject.startsWith("Late"))!.text).toContain("is 1 day late");
+
+    await Promise.all(instances.map(({ deps }) => scanReminders(deps)));
+    await new Promise((r) => setTimeout(r, 3_000));
+    expect(await inbox(owner.email)).toHaveLength(2);
+
+    // The mail server stops and starts again; a moved due date earns one fresh reminder, no repeats.
+    await mail.stop();
+    await database.pool.query("update deliverables set due_date = $2 where id = $1", [made.items[0]!.id, shiftDate(today, 1)]);
+    const afterMove = await Promise.all(instances.map(({ deps }) => scanReminders(deps)));
+    expect(afterMove.reduce((sum, r) => sum + r.sent, 0)).toBe(1);
+    await new Promise((r) => setTimeout(r, 1_500));
+    mail = await startMailCatcher({ smtpPort, webPort });
+    const fresh = await waitForCount(owner.email, 1, 60_000);
+    expect(fresh.map((m) => m.subject)).toEqual(["Due soon: Due in two days (Alder Optics)"]);
+    expect(fresh[0]!.text).toContain(`is due in 1 day, on ${shiftDate(today, 1)}`);
+    await new Promise((r) => setTimeout(r, 3_000));
+    expect(await inbox(owner.email)).toHaveLength(1);
+  }, 150_000);
+});

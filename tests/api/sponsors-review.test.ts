@@ -1,0 +1,229 @@
+import { randomUUID } from "node:crypto";
+import { Readable } from "node:stream";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { reviewTokens } from "../../server/sponsors/review-token";
+import { createCrewedChannel } from "../factories/accounts";
+import { createEpisode } from "../factories/episodes";
+import { uniqueEmail } from "../factories/invitations";
+import { createContact, createDeal, createSponsor } from "../factories/sponsors";
+import { linkIn, mailTo, waitForMail } from "../support/mailbox";
+import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+import type { DealView } from "../../shared/sponsors/schemas";
+
+let app: TestApp;
+let world: Awaited<ReturnType<typeof createCrewedChannel>>;
+let producer: Visitor;
+
+beforeAll(async () => {
+  app = await startTestApp();
+  world = await createCrewedChannel(app.db, "Review Bench");
+  producer = await app.signedIn(world.producer);
+});
+afterAll(async () => {
+  await app.close();
+});
+
+const api = (path: string) => `/api/channels/${world.channel.id}${path}`;
+const SCRIPT = "This video is sponsored by Northbeam Tools. Their supply holds 0.1 mV ripple. Use code GANTRY10.";
+
+/** A deal with a contact, and a review link for its script approval sent through the API. */
+async function sentLink(options: { contactEmail?: string } = {}) {
+  const episode = await createEpisode(app.db, world.channel.id, { title: "Ripple test", targetPublishDate: "2027-07-15" });
+  const sponsor = await createSponsor(app.db, world.channel.id, { company: "Northbeam Tools" });
+  const contact = await createContact(app.db, world.channel.id, sponsor.id, { name: "Rosa Lindgren", email: options.contactEmail ?? uniqueEmail("rosa") });
+  const made = await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, contactId: contact.id, publishDate: "2027-07-15", script: SCRIPT, fee: "9876.00" });
+  const item = made.items.find((i) => i.kind === "script_approval")!;
+  const sent = await producer.send("post", api(`/deals/${made.deal.id}/review-links`), { deliverableId: item.id, contactId: contact.id, expiresInDays: 7, message: "Here is the read." }).expect(201);
+  const token = (sent.body.url as string).split("/review/")[1]!;
+  return { episode, sponsor, contact, deal: made.deal, items: made.items, item, link: sent.body.link, url: sent.body.url as string, token };
+}
+
+async function itemStatus(id: string): Promise<string> {
+  return (await app.database.pool.query("select status::text from deliverables where id = $1", [id])).rows[0].status;
+}
+
+describe("sending a review link", () => {
+  it("when the producer sends it, then the contact gets the link by e-mail and the item waits on the sponsor", async () => {
+    const email = uniqueEmail("rosa");
+    const sent = await sentLink({ contactEmail: email });
+    const mail = await waitForMail(email);
+    expect(mail.subject).toBe("Review Bench asks you to review: Sponsor approves the script");
+    expect(linkIn(mail, /https?:\/\/\S+\/review\/\S+/)).toBe(sent.url);
+    expect(await itemStatus(sent.item.id)).toBe("sent");
+    const deal = (await producer.get(api(`/deals/${sent.deal.id}`)).expect(200)).body.deal as DealView;
+    expect(deal.reviewLinks![0]).toMatchObject({ state: "open", contactName: "Rosa Lindgren", deliverableTitle: "Sponsor approves the script" });
+    expect(deal.deliverables.find((d) => d.id === sent.item.id)!.history[0]).toMatchObject({ what: "review_sent", toStatus: "sent" });
+  });
+
+  it("when the item is a money item or the contact is someone else's, then it is refused and nothing is sent", async () => {
+    const sent = await sentLink();
+    const invoice = sent.items.find((i) => i.kind === "invoice")!;
+    const money = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: invoice.id, contactId: sent.contact.id }).expect(400);
+    expect(money.body.error.fields).toEqual({ deliverableId: expect.any(String) });
+    const other = await createSponsor(app.db, world.channel.id);
+    const stranger = await createContact(app.db, world.channel.id, other.id);
+    const wrong = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: stranger.id }).expect(400);
+    expect(wrong.body.error.fields).toEqual({ contactId: "Pick one of this sponsor's contacts." });
+    expect(await mailTo(stranger.email)).toHaveLength(0);
+  });
+
+  it("when the editor or crew try to send one, then it is refused", async () => {
+    const sent = await sentLink();
+    for (const person of [world.editor, world.crew]) {
+      const agent = await app.signedIn(person);
+      await agent.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: sent.contact.id }).expect(403);
+    }
+  });
+});
+
+describe("the sponsor's review page", () => {
+  it("when the contact opens the link without an account, then they see the script and the segment, never the fee", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const page = await visitor.get(`/api/review/${sent.token}`).expect(200);
+    expect(page.body).toMatchObject({
+      state: "open",
+      company: "Northbeam Tools",
+      contactName: "Rosa Lindgren",
+      episodeTitle: "Ripple test",
+      deliverableTitle: "Sponsor approves the script",
+      script: SCRIPT,
+      segmentSeconds: 60,
+      talkingPoints: ["Holds 0.1 mV ripple"],
+      promoCode: "GANTRY10",
+      cutUrl: null,
+    });
+    const text = JSON.stringify(page.body);
+    expect(text).not.toMatch(/9876|fee|currency|paymentTerms|invoice/i);
+  });
+
+  it("when the contact asks for changes, then it needs the page's CSRF token, moves the item, records their name and mails the producer", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const noToken = await visitor.agent.post(`/api/review/${sent.token}/decision`).send({ decision: "changes_asked", comment: "Mention the warranty." });
+    expect(noToken.status).toBe(403);
+    expect(noToken.body.error.code).toBe("csrf_failed");
+    expect(await itemStatus(sent.item.id)).toBe("sent");
+
+    const blank = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "" }).expect(400);
+    expect(blank.body.error.fields).toEqual({ comment: "Say what should change." });
+
+    const decided = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Please mention the two-year warranty." }).expect(200);
+    expect(decided.body).toMatchObject({ state: "decided", decision: "changes_asked", contactName: "Rosa Lindgren" });
+    expect(await itemStatus(sent.item.id)).toBe("changes_asked");
+
+    const deal = (await producer.get(api(`/deals/${sent.deal.id}`)).expect(200)).body.deal as DealView;
+    const event = deal.deliverables.find((d) => d.id === sent.item.id)!.history[0]!;
+    expect(event).toMatchObject({ what: "review_decision", actorKind: "sponsor", actorName: "Rosa Lindgren", fromStatus: "sent", toStatus: "changes_asked", note: "Please mention the two-year warranty." });
+    expect(Date.now() - new Date(event.at).getTime()).toBeLessThan(60_000);
+
+    const mail = await waitForMail(world.producer.email);
+    expect(mail.subject).toBe('Rosa Lindgren of Northbeam Tools asked for changes to "Sponsor approves the script"');
+    expect(mail.text).toContain("Please mention the two-year warranty.");
+  });
+
+  it("when a used link is opened or decided again, then it says it was used and changes nothing", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(200);
+    expect(await itemStatus(sent.item.id)).toBe("approved");
+    const again = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Actually, no." }).expect(410);
+    expect(again.body.error.message).toMatch(/already been used/);
+    expect(await itemStatus(sent.item.id)).toBe("approved");
+    expect((await visitor.get(`/api/review/${sent.token}`).expect(200)).body).toMatchObject({ state: "decided", decision: "approved" });
+  });
+
+  it("when two decisions arrive at once, then exactly one is recorded", async () => {
+    const sent = await sentLink();
+    const [a, b] = await Promise.all([app.visitor(), app.visitor()]);
+    const answers = await Promise.all([
+      a.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }),
+      b.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Shorter, please." }),
+    ]);
+    expect(answers.map((r) => r.status).sort()).toEqual([200, 410]);
+    const events = await app.database.pool.query("select count(*)::int as n from deliverable_events where deliverable_id = $1 and what = 'review_decision'", [sent.item.id]);
+    expect(events.rows[0].n).toBe(1);
+  });
+
+  it("when the link is revoked, then its page says so and no decision is taken", async () => {
+    const sent = await sentLink();
+    await producer.send("delete", api(`/deals/${sent.deal.id}/review-links/${sent.link.id}`)).expect(204);
+    expect(await itemStatus(sent.item.id)).toBe("not_started");
+    const visitor = await app.visitor();
+    expect((await visitor.get(`/api/review/${sent.token}`).expect(200)).body).toEqual({ state: "revoked", channelName: "Review Bench" });
+    const refused = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(410);
+    expect(refused.body.error.message).toMatch(/withdrawn/);
+    expect(await itemStatus(sent.item.id)).toBe("not_started");
+  });
+
+  it("when a used link is revoked, then the decision stands", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(200);
+    await producer.send("delete", api(`/deals/${sent.deal.id}/review-links/${sent.link.id}`)).expect(409);
+    expect(await itemStatus(sent.item.id)).toBe("approved");
+  });
+
+  it("when the link has expired, then its page says so and no decision is taken", async () => {
+    const sent = await sentLink();
+    const past = new Date(Math.floor(Date.now() / 1000) * 1000 - 60_000);
+    await app.database.pool.query("update review_links set expires_at = $2 where id = $1", [sent.link.id, past]);
+    // The expiry is signed into the token too: re-sign for the row's new expiry, as the server would have.
+    const token = reviewTokens(app.deps.env.SESSION_SECRET).sign(sent.link.id, past);
+    const visitor = await app.visitor();
+    expect((await visitor.get(`/api/review/${token}`).expect(200)).body).toEqual({ state: "expired", channelName: "Review Bench" });
+    const refused = await visitor.send("post", `/api/review/${token}/decision`, { decision: "approved", comment: null }).expect(410);
+    expect(refused.body.error.message).toMatch(/expired/);
+    expect(await itemStatus(sent.item.id)).toBe("sent");
+    // And the old token, whose signed expiry no longer matches the row, is not a link at all.
+    await visitor.get(`/api/review/${sent.token}`).expect(404);
+  });
+
+  it("when the token is altered, forged or made up, then it is not a link", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const [id, expiry, signature] = sent.token.split(".") as [string, string, string];
+    const flipped = signature.slice(0, -1) + (signature.endsWith("A") ? "B" : "A");
+    const laterExpiry = `${id}.${Number(expiry) + 86_400}.${signature}`;
+    const forged = reviewTokens("some-other-secret-some-other-secret-0000").sign(sent.link.id, new Date(Number(expiry) * 1000));
+    const otherId = `${randomUUID().replaceAll("-", "")}.${expiry}.${signature}`;
+    for (const token of [`${id}.${expiry}.${flipped}`, laterExpiry, forged, otherId, "nonsense", ""]) {
+      const answer = await visitor.get(`/api/review/${encodeURIComponent(token)}`);
+      expect(answer.status, token).toBe(404);
+      const decision = await visitor.send("post", `/api/review/${encodeURIComponent(token)}/decision`, { decision: "approved", comment: null });
+      expect(decision.status, token).toBe(404);
+    }
+    expect(await itemStatus(sent.item.id)).toBe("sent");
+  });
+
+  it("when a cut is attached, then the page plays it from a short-lived presigned address", async () => {
+    const sent = await sentLink();
+    const key = `${world.channel.id}/${sent.episode.id}/${randomUUID()}`;
+    const bytes = Buffer.from("not really a video, but bytes the store keeps");
+    await app.deps.storage.putStream(key, Readable.from(bytes), { contentType: "video/mp4", size: bytes.length });
+    const clip = await app.database.pool.query(
+      `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, duration_ms, recorded_at)
+       values ($1, $2, $3, 'segment-v2.mp4', 'video/mp4', $4, 62000, now()) returning id`,
+      [world.channel.id, sent.episode.id, key, bytes.length],
+    );
+    const editor = await app.signedIn(world.editor);
+    const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null }).expect(200);
+    expect(set.body.deal.cut.clip).toEqual({ id: clip.rows[0].id, fileName: "segment-v2.mp4", durationSeconds: 62 });
+
+    const page = await (await app.visitor()).get(`/api/review/${sent.token}`).expect(200);
+    const url = new URL(page.body.cutUrl);
+    expect(url.searchParams.get("X-Amz-Expires")).toBe("3600");
+    expect(url.searchParams.get("X-Amz-Signature")).toMatch(/^[0-9a-f]{64}$/);
+    const fetched = await fetch(url);
+    expect(fetched.status).toBe(200);
+    expect(Buffer.from(await fetched.arrayBuffer()).toString()).toBe(bytes.toString());
+
+    const elsewhere = await createEpisode(app.db, world.channel.id);
+    const otherClip = await app.database.pool.query(
+      `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, recorded_at) values ($1, $2, $3, 'x.mp4', 'video/mp4', 1, now()) returning id`,
+      [world.channel.id, elsewhere.id, `${key}-other`],
+    );
+    const wrong = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: otherClip.rows[0].id, timing: null }).expect(400);
+    expect(wrong.body.error.fields).toEqual({ clipId: "Pick a clip of this episode's footage." });
+  });
+});

@@ -1,0 +1,199 @@
+import { createHash } from "node:crypto";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { expect, test, type Page } from "@playwright/test";
+import pg from "pg";
+import { parseCsv } from "../../shared/rushes/exports/csv";
+import { parseEdl } from "../../shared/rushes/exports/edl";
+import { snap, uniqueEmail } from "./support";
+
+const PASSWORD = "a-long-enough-password";
+const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
+const storage = process.env.KERF_TEST_S3_ENDPOINT ?? "http://127.0.0.1:4568";
+
+/** A new host (through the sign-up page) with one episode (the slate's API, or straight into the database). */
+async function hostWithEpisode(page: Page) {
+  await page.goto("/sign-up");
+  await page.getByLabel("Your name").fill("Oda Tveit");
+  await page.getByLabel("E-mail").fill(uniqueEmail("rushes-host"));
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByLabel("Channel name").fill("Slipway Rocketry");
+  await page.getByRole("button", { name: "Create account and channel" }).click();
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
+  const me = await (await page.request.get("/api/auth/me")).json();
+  const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
+    headers: { "x-csrf-token": me.csrfToken },
+    data: { title: "Two-stage water rocket", question: "Does a second stage beat one bigger bottle?", origin: "idea", originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: "" },
+  });
+  const episodeId = created.status() === 201 ? ((await created.json()).episode.id as string) : await insertEpisode(channelId);
+  return { channelId, episodeId };
+}
+
+async function insertEpisode(channelId: string): Promise<string> {
+  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
+  await client.connect();
+  try {
+    const result = await client.query<{ id: string }>(
+      "insert into episodes (channel_id, title, question, stage, rank) values ($1, 'Two-stage water rocket', 'Does a second stage beat one bigger bottle?', 'shoot', 'a0') returning id",
+      [channelId],
+    );
+    return result.rows[0]!.id;
+  } finally {
+    await client.end();
+  }
+}
+
+/** A file the browser can't decode, big enough for five 8 MiB parts. */
+function largeFile(): string {
+  const dir = mkdtempSync(path.join(os.tmpdir(), "kerf-rushes-"));
+  const file = path.join(dir, "C003_WIDE.mov");
+  const bytes = Buffer.alloc(36 * 1024 * 1024);
+  for (let i = 0; i < bytes.length; i += 4096) bytes[i] = i & 0xff;
+  writeFileSync(file, bytes);
+  return file;
+}
+
+const upload = (page: Page, name: string) => page.getByRole("listitem", { name: `Upload of ${name}` });
+
+test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page }) => {
+  test.setTimeout(240_000);
+  const { channelId, episodeId } = await hostWithEpisode(page);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await expect(page.getByRole("heading", { name: "Shoot and footage" })).toBeVisible();
+
+  // The shoot plan: one day, two shots on it.
+  const dayForm = page.getByRole("form", { name: "Add a shoot day" });
+  await dayForm.getByLabel("Call time").fill("7 am");
+  await dayForm.getByRole("button", { name: "Add day" }).click();
+  await expect(dayForm.getByText("Write the date as YYYY-MM-DD.")).toBeVisible();
+  await expect(dayForm.getByText("Write the call time as HH:MM, 24-hour.")).toBeVisible();
+  await snap(page, "rushes-01-shoot-day-errors");
+  await dayForm.getByLabel("Date").fill("2026-12-12");
+  await dayForm.getByLabel("Place").fill("Harbour slipway");
+  await dayForm.getByLabel("Call time").fill("07:00");
+  await dayForm.getByRole("button", { name: "Add day" }).click();
+  await expect(page.getByRole("link", { name: "2026-12-12 · Harbour slipway" })).toBeVisible();
+
+  const shotForm = page.getByRole("form", { name: "Add a shot" });
+  for (const [description, kind] of [
+    ["Stage separation in slow motion", "slow_motion"],
+    ["Host explains the coupler", "talking_head"],
+  ] as const) {
+    await shotForm.getByLabel("Shot", { exact: true }).fill(description);
+    await shotForm.getByLabel("Kind").selectOption(kind);
+    await shotForm.getByLabel("Shoot day").selectOption({ label: "2026-12-12 Harbour slipway" });
+    await shotForm.getByRole("button", { name: "Add shot" }).click();
+    await expect(page.getByRole("list", { name: "Shots" }).getByText(description)).toBeVisible();
+  }
+  await snap(page, "rushes-02-shot-list");
+
+  // Storage answers slowly enough to pause; part 2 of the large file fails three times, then works on retry.
+  let failuresLeft = 3;
+  await page.route(`${storage}/**`, async (route) => {
+    const url = new URL(route.request().url());
+    if (route.request().method() === "PUT") {
+      await new Promise((r) => setTimeout(r, 400));
+      if (url.searchParams.get("partNumber") === "2" && (route.request().postDataBuffer()?.length ?? 0) > 1e6 && failuresLeft > 0) {
+        failuresLeft--;
+        return route.abort("connectionreset");
+      }
+    }
+    await route.continue();
+  });
+
+  const big = largeFile();
+  await page.getByLabel("Camera files").setInputFiles([path.join(fixtures, "A001_C001.mov"), path.join(fixtures, "B002_C004.mp4"), big]);
+  await expect(upload(page, "A001_C001.mov").getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
+  await expect(upload(page, "B002_C004.mp4").getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
+
+  // The large one: it stops on the failing part; Retry sends just that part.
+  await expect(upload(page, "C003_WIDE.mov").getByText("Some parts didn't reach storage. Retry sends just those.")).toBeVisible({ timeout: 60_000 });
+  await snap(page, "rushes-03-part-failed");
+  await upload(page, "C003_WIDE.mov").getByRole("button", { name: "Retry" }).click();
+  await upload(page, "C003_WIDE.mov").getByRole("button", { name: "Pause" }).click();
+  await expect(upload(page, "C003_WIDE.mov").getByText(/^Paused/)).toBeVisible();
+  await snap(page, "rushes-04-paused");
+
+  // Reload mid-upload: the server remembers the parts; choosing the file again carries on from them.
+  await page.reload();
+  await expect(upload(page, "C003_WIDE.mov").getByText(/Unfinished: choose this file again/)).toBeVisible();
+  const stored = Number((await upload(page, "C003_WIDE.mov").textContent())!.match(/(\d) of 5 parts stored/)![1]);
+  expect(stored).toBeGreaterThan(0);
+  expect(stored).toBeLessThan(5);
+  await snap(page, "rushes-05-after-reload");
+  await page.getByLabel("Camera files").setInputFiles(big);
+  await expect(upload(page, "C003_WIDE.mov").getByText(/^Stored/)).toBeVisible({ timeout: 60_000 });
+  await expect(page.getByRole("progressbar", { name: "All files" })).toHaveAttribute("aria-valuenow", "100");
+  await page.unroute(`${storage}/**`);
+
+  // Metadata and poster frames in the episode's footage list.
+  const footage = page.getByRole("table");
+  await expect(footage.getByRole("row", { name: /A001_C001\.mov/ })).toContainText("01:00:00;00");
+  await expect(footage.getByRole("row", { name: /B002_C004\.mp4/ })).toContainText("10:00:00:00");
+  await expect(page.getByTestId("footage-totals")).toContainText("3 clips");
+  await expect(footage.getByRole("row", { name: /A001_C001\.mov/ }).locator("img")).toBeVisible({ timeout: 15_000 });
+  await snap(page, "rushes-06-footage");
+
+  // Link the drop-frame clip to its shot, rate it, and mark the separation.
+  await footage.getByRole("button", { name: "A001_C001.mov" }).click();
+  const panel = page.getByRole("dialog");
+  await expect(panel.getByLabel("Clip facts")).toContainText("01:00:00;00 · 29.97 fps drop-frame");
+  // The browser hashed the file beside the upload (shared/rushes/sha256.ts in a worker).
+  const sha256 = createHash("sha256").update(readFileSync(path.join(fixtures, "A001_C001.mov"))).digest("hex");
+  await expect(panel.getByLabel("Clip facts")).toContainText(`SHA-256 ${sha256}`);
+  const log = panel.getByRole("form", { name: "Log this clip" });
+  await log.getByLabel("Shot").selectOption({ label: "Stage separation in slow motion" });
+  await log.getByLabel("Rating").selectOption("select");
+  await log.getByLabel("Tags (comma between)").fill("separation, water");
+  await log.getByRole("button", { name: "Save log" }).click();
+  await expect(log.getByText("Log saved.")).toBeVisible();
+
+  const marks = panel.getByRole("form", { name: "Add a mark" });
+  await marks.getByLabel("In", { exact: true }).fill("01:00:01;00");
+  await marks.getByLabel("Out", { exact: true }).fill("01:01:00;00");
+  await marks.getByRole("button", { name: "Add mark" }).click();
+  await expect(marks.getByText(/01:01:00;00 does not exist in 29.97 fps drop-frame/)).toBeVisible();
+  await marks.getByLabel("Out", { exact: true }).fill("01:00:00;10");
+  await marks.getByRole("button", { name: "Add mark" }).click();
+  await expect(marks.getByText("The out point 01:00:00;10 must come after the in point 01:00:01;00")).toBeVisible();
+  await snap(page, "rushes-07-mark-errors");
+  await marks.getByLabel("Out", { exact: true }).fill("01:00:02;15");
+  await marks.getByLabel("Note", { exact: true }).fill("the upper stage lets go");
+  await marks.getByRole("button", { name: "Add mark" }).click();
+  await expect(panel.getByRole("list", { name: "Marks on this clip" })).toContainText("01:00:01;00 → 01:00:02;15");
+  await snap(page, "rushes-08-marked");
+  await panel.getByRole("button", { name: "Close" }).click();
+
+  // Filter by rating: the URL holds the filter.
+  const filters = page.getByRole("form", { name: "Filter footage" });
+  await filters.getByLabel("Rating").selectOption("select");
+  await filters.getByRole("button", { name: "Apply filters" }).click();
+  await expect(page).toHaveURL(/rating=select/);
+  await expect(page.getByTestId("footage-totals")).toContainText("1 clip");
+  await snap(page, "rushes-09-filtered");
+
+  // Exports of the current filter, read back.
+  const read = async (name: RegExp) => {
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name }).click()]);
+    return readFileSync((await download.path())!, "utf8");
+  };
+  const csv = parseCsv(await read(/^CSV$/));
+  expect(csv).toHaveLength(2);
+  expect(csv[1]!.slice(13, 16)).toEqual(["01:00:01;00", "01:00:02;15", "the upper stage lets go"]);
+  const edl = parseEdl(await read(/EDL/));
+  expect(edl.dropFrame).toBe(true);
+  expect(edl.events[0]).toMatchObject({ sourceIn: "01:00:01;00", sourceOut: "01:00:02;15", recordIn: "01:00:00;00", recordOut: "01:00:01;15" });
+  const otio = JSON.parse(await read(/OpenTimelineIO/));
+  expect(otio.tracks.children[0].children[0].source_range.duration.value).toBe(45);
+
+  // The crew's view of the day: the linked shot is captured, the other still missing.
+  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await page.getByRole("link", { name: "2026-12-12 · Harbour slipway" }).click();
+  const missing = page.getByRole("region", { name: /Still to get/ });
+  await expect(page.getByRole("heading", { name: "Still to get (1)" })).toBeVisible();
+  await expect(missing.getByText("Host explains the coupler")).toBeVisible();
+  await expect(page.getByText("Stage separation in slow motion")).toBeVisible();
+  await snap(page, "rushes-10-crew-day");
+});

@@ -1,0 +1,128 @@
+import { expect, test, type Page } from "@playwright/test";
+import { snap, uniqueEmail } from "./support";
+
+const PASSWORD = "a-long-enough-password";
+const TITLE = "Kite-lifted thermal camera";
+
+const column = (page: Page, stage: string) => page.locator(`section[aria-labelledby='lane-${stage}']`);
+const cardIn = (page: Page, stage: string) => column(page, stage).getByRole("link", { name: TITLE });
+
+async function signUp(page: Page, email: string) {
+  await page.goto("/sign-up");
+  await page.getByLabel("Your name").fill("Tamsin Okafor");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByLabel("Channel name").fill("Marsh Lane Rigs");
+  await page.getByRole("button", { name: "Create account and channel" }).click();
+  await expect(page.getByRole("heading", { name: "Slate", exact: true })).toBeVisible();
+}
+
+/** A mouse drag of the card onto another column, in small steps as a hand would. */
+async function dragByMouse(page: Page, from: string, to: string) {
+  const card = await column(page, from).locator("li", { has: page.getByRole("link", { name: TITLE }) }).boundingBox();
+  const target = await column(page, to).boundingBox();
+  if (!card || !target) throw new Error("card or column not on screen");
+  await page.mouse.move(card.x + card.width / 2, card.y + card.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(card.x + card.width / 2 + 8, card.y + card.height / 2 + 8, { steps: 4 });
+  await page.mouse.move(target.x + target.width / 2, target.y + 120, { steps: 20 });
+  await page.mouse.up();
+}
+
+/** Space picks the card up from its handle, an arrow key takes it one column over, Space drops it. */
+async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft") {
+  await page.getByRole("button", { name: `Move ${TITLE}` }).focus();
+  await page.keyboard.press("Space");
+  await page.keyboard.press(key);
+  await page.keyboard.press("Space");
+}
+
+test("the owner makes an episode and moves it along the board by mouse and by keyboard", async ({ page }) => {
+  await signUp(page, uniqueEmail("slate-owner"));
+  await page.getByRole("button", { name: "New episode" }).click();
+  await page.getByRole("button", { name: "Create episode" }).click();
+  await expect(page.getByText("Give the episode a working title.")).toBeVisible();
+  await snap(page, "slate-01-new-episode-errors");
+
+  await page.getByLabel("Working title").fill(TITLE);
+  await page.getByLabel("The question, in one line").fill("Can a kite hold a camera steady enough to map roof heat loss?");
+  await page.getByLabel("Target publish date").fill("2027-03-05");
+  await page.getByRole("button", { name: "Create episode" }).click();
+  await expect(cardIn(page, "challenge")).toBeVisible();
+  await snap(page, "slate-02-on-the-board");
+
+  await dragByMouse(page, "challenge", "test_plan");
+  await expect(cardIn(page, "test_plan")).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: `${TITLE} is now in Test plan.` })).toBeAttached();
+  await snap(page, "slate-03-dragged-to-test-plan");
+  await dragByMouse(page, "test_plan", "challenge");
+  await expect(cardIn(page, "challenge")).toBeVisible();
+
+  await dragByKeyboard(page, "ArrowRight");
+  await expect(cardIn(page, "test_plan")).toBeVisible();
+  await page.reload();
+  await expect(cardIn(page, "test_plan")).toBeVisible();
+  await snap(page, "slate-04-kept-after-reload");
+
+  await dragByKeyboard(page, "ArrowLeft");
+  await expect(cardIn(page, "challenge")).toBeVisible();
+  await page.reload();
+  await expect(cardIn(page, "challenge")).toBeVisible();
+
+  // The history on the episode page has every stage move.
+  await cardIn(page, "challenge").click();
+  await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
+  await expect(page.locator("#history").getByText("moved it from Challenge to Test plan")).toHaveCount(2);
+  await expect(page.locator("#history").getByText("moved it from Test plan to Challenge")).toHaveCount(2);
+});
+
+test("when two sessions move the same card, the second is told and sees the first one's move", async ({ page, browser }) => {
+  const email = uniqueEmail("slate-two");
+  await signUp(page, email);
+  await page.getByRole("button", { name: "New episode" }).click();
+  await page.getByLabel("Working title").fill(TITLE);
+  await page.getByRole("button", { name: "Create episode" }).click();
+  await expect(cardIn(page, "challenge")).toBeVisible();
+
+  const otherContext = await browser.newContext();
+  const other = await otherContext.newPage();
+  await other.goto("/sign-in");
+  await other.getByLabel("E-mail").fill(email);
+  await other.getByLabel("Password").fill(PASSWORD);
+  await other.getByRole("button", { name: "Sign in" }).click();
+  await expect(cardIn(other, "challenge")).toBeVisible();
+
+  await dragByKeyboard(page, "ArrowRight");
+  await expect(cardIn(page, "test_plan")).toBeVisible();
+
+  // The second session still shows the card in challenge, at the version it loaded.
+  await dragByMouse(other, "challenge", "test_plan");
+  await expect(other.getByRole("alert")).toContainText("Someone else moved or changed");
+  await expect(other.getByRole("alert")).toContainText("it is in Test plan now");
+  await expect(cardIn(other, "test_plan")).toBeVisible();
+  await snap(other, "slate-05-conflict-message");
+  await otherContext.close();
+});
+
+test("when the publish date moves a week, the episode's due dates move with it", async ({ page }) => {
+  await signUp(page, uniqueEmail("slate-dates"));
+  await page.getByRole("button", { name: "New episode" }).click();
+  await page.getByLabel("Working title").fill(TITLE);
+  await page.getByLabel("Target publish date").fill("2027-03-05");
+  await page.getByRole("button", { name: "Create episode" }).click();
+  await cardIn(page, "challenge").click();
+
+  // Check values derived by hand in shared/slate/schedule.test.ts (default lengths, Fri 5 Mar 2027).
+  await expect(page.getByTestId("due-build")).toHaveText("Mon 15 Feb");
+  await expect(page.getByTestId("due-edit")).toHaveText("Mon 1 Mar");
+  await snap(page, "slate-06-schedule");
+
+  await page.getByRole("button", { name: "Edit details" }).click();
+  await page.getByLabel("Target publish date").fill("2027-03-12");
+  await page.getByRole("button", { name: "Save changes" }).click();
+  // Five working days are one calendar week: every date is seven days later.
+  await expect(page.getByTestId("due-build")).toHaveText("Mon 22 Feb");
+  await expect(page.getByTestId("due-edit")).toHaveText("Mon 8 Mar");
+  await expect(page.getByTestId("due-publish")).toHaveText("Fri 12 Mar");
+  await snap(page, "slate-07-schedule-moved");
+});

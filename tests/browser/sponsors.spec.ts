@@ -1,0 +1,194 @@
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import pg from "pg";
+import { hashPassword } from "../../server/auth/password";
+import { latestMailTo, snap, uniqueEmail } from "./support";
+
+const PASSWORD = "a-long-enough-password";
+
+async function sql<T extends pg.QueryResultRow>(text: string, values: unknown[]): Promise<T[]> {
+  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
+  await client.connect();
+  try {
+    return (await client.query<T>(text, values)).rows;
+  } finally {
+    await client.end();
+  }
+}
+
+/** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
+async function member(channelId: string, name: string, role: "producer" | "editor") {
+  const email = uniqueEmail(role);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, name, await hashPassword(PASSWORD)]);
+  await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
+  return { email, name };
+}
+
+async function signIn(browser: Browser, email: string): Promise<Page> {
+  const page = await (await browser.newContext()).newPage();
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  return page;
+}
+
+/** An owner's channel (through sign-up) with one episode due out on 2 March 2027 (through the slate's API). */
+async function channelWithEpisode(page: Page) {
+  await page.goto("/sign-up");
+  await page.getByLabel("Your name").fill("Ingrid Vass");
+  await page.getByLabel("E-mail").fill(uniqueEmail("sponsor-host"));
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByLabel("Channel name").fill("Millrace Bench Works");
+  await page.getByRole("button", { name: "Create account and channel" }).click();
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
+  const me = await (await page.request.get("/api/auth/me")).json();
+  const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
+    headers: { "x-csrf-token": me.csrfToken },
+    data: { title: "Bench supplies under load", question: "Which supply holds its voltage at 5 A?", origin: "sponsor", originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: "2027-03-02" },
+  });
+  let episodeId: string;
+  if (created.status() === 201) episodeId = (await created.json()).episode.id;
+  else {
+    const [row] = await sql<{ id: string }>(
+      "insert into episodes (channel_id, title, question, stage, rank, target_publish_date) values ($1, 'Bench supplies under load', 'Which supply holds its voltage at 5 A?', 'sponsor_read', 'a0', '2027-03-02') returning id",
+      [channelId],
+    );
+    episodeId = row!.id;
+  }
+  return { channelId, episodeId };
+}
+
+const dueOf = (page: Page, kind: string) => page.getByTestId(`item-${kind}`).getByTestId("due-date");
+
+test.setTimeout(180_000);
+
+test("a producer runs a deal from template to the sponsor's review, and the editor sees the segment but no fee", async ({ page, browser }) => {
+  const { channelId, episodeId } = await channelWithEpisode(page);
+  const producerPerson = await member(channelId, "Otto Brandvik", "producer");
+  const editorPerson = await member(channelId, "Ylva Kaur", "editor");
+  const contactEmail = uniqueEmail("sponsor-contact");
+
+  // The producer sets up the sponsor, its contact and a template.
+  const producer = await signIn(browser, producerPerson.email);
+  await producer.getByRole("link", { name: "Sponsors" }).click();
+  await expect(producer.getByText("No sponsors yet")).toBeVisible();
+  await snap(producer, "sponsors-01-empty");
+  const addSponsor = producer.getByRole("form", { name: "Add a sponsor" });
+  await addSponsor.getByRole("button", { name: "Add sponsor" }).click();
+  await expect(addSponsor.getByText("Name the company.")).toBeVisible();
+  await addSponsor.getByLabel("Company").fill("Halvard Power Supplies");
+  await addSponsor.getByLabel("Website").fill("https://halvard.example");
+  await addSponsor.getByRole("button", { name: "Add sponsor" }).click();
+  const addContact = producer.getByRole("form", { name: "Add a contact" });
+  await addContact.getByLabel("Contact name").fill("Rosa Lindgren");
+  await addContact.getByLabel("Contact e-mail").fill(contactEmail);
+  await addContact.getByRole("button", { name: "Add contact" }).click();
+  await expect(producer.getByText(contactEmail)).toBeVisible();
+
+  await producer.getByRole("button", { name: "New template" }).click();
+  const templateForm = producer.getByRole("form", { name: "New template" });
+  await templateForm.getByLabel("Template name").fill("Mid-roll read");
+  await templateForm.getByRole("button", { name: "Save template" }).click();
+  await expect(producer.getByRole("heading", { name: "Mid-roll read" })).toBeVisible();
+  await snap(producer, "sponsors-02-sponsor-and-template");
+
+  // A deal on the episode, from the template: its items are dated from the publish date.
+  await producer.goto(`/c/${channelId}/episodes/${episodeId}`);
+  const deals = producer.locator("#sponsor-deals");
+  await deals.getByRole("button", { name: "New deal" }).click();
+  const dealForm = producer.getByRole("form", { name: "New deal" });
+  await dealForm.getByLabel("Sponsor", { exact: true }).selectOption({ label: "Halvard Power Supplies" });
+  await dealForm.getByLabel("Contact").selectOption({ label: `Rosa Lindgren (${contactEmail})` });
+  await dealForm.getByLabel("Deliverables from template").selectOption({ label: "Mid-roll read" });
+  await dealForm.getByLabel("Required talking points").fill("Holds 0.1 mV ripple\nFree shipping over 50 euros");
+  await dealForm.getByLabel("Link").fill("https://halvard.example/millrace");
+  await dealForm.getByLabel("Promo code").fill("MILLRACE10");
+  await dealForm.getByLabel("Fee").fill("-3");
+  await dealForm.getByRole("button", { name: "Create deal" }).click();
+  await expect(dealForm.getByText("The fee can't be negative.")).toBeVisible();
+  await snap(producer, "sponsors-03-deal-form-errors");
+  await dealForm.getByLabel("Fee").fill("2750");
+  await dealForm.getByRole("button", { name: "Create deal" }).click();
+  await expect(deals.getByRole("heading", { name: "Halvard Power Supplies" })).toBeVisible();
+  // 2 March 2027 − 7 days = 23 February (2027 has no 29 February); + 30 days after go-live = 1 April.
+  await expect(dueOf(producer, "draft_cut")).toHaveText("2027-02-23");
+  await expect(dueOf(producer, "report")).toHaveText("2027-04-01");
+  await expect(deals.getByTestId("deal-fee")).toContainText("2,750");
+  await snap(producer, "sponsors-04-deal-with-items");
+
+  // The publish date moves on the slate's own form; the open items follow.
+  const edit = producer.getByRole("button", { name: "Edit details" });
+  if (await edit.count()) {
+    await edit.click();
+    await producer.getByLabel("Target publish date").fill("2027-04-05");
+    await producer.getByRole("button", { name: "Save changes" }).click();
+  } else {
+    await sql("update episodes set target_publish_date = '2027-04-05' where id = $1", [episodeId]);
+    await producer.reload();
+  }
+  // 5 April − 7 = 29 March; 5 April + 30 = 5 May.
+  await expect(dueOf(producer, "draft_cut")).toHaveText("2027-03-29");
+  await expect(dueOf(producer, "report")).toHaveText("2027-05-05");
+  await snap(producer, "sponsors-05-dates-followed");
+
+  // The read: a script with the disclosure, then a review link for the script approval.
+  await deals.getByLabel("Script of the segment").fill("This video is sponsored by Halvard. Their supply holds 0.1 mV ripple. Shipping is free on orders over 50 euros at halvard.example/millrace with code MILLRACE10.");
+  // 6 + 6 + 13 words (a link or a code counts as one word).
+  await expect(deals.getByTestId("read-words")).toHaveText("25");
+  await deals.getByRole("button", { name: "Save the read" }).click();
+  await expect(deals.getByText("Saved.")).toBeVisible();
+  await deals.getByLabel("Item to review").selectOption({ label: "Sponsor approves the script" });
+  await deals.getByRole("button", { name: "Send review link" }).click();
+  await expect(deals.getByText(`Review link e-mailed to Rosa Lindgren <${contactEmail}>`)).toBeVisible();
+  await snap(producer, "sponsors-06-review-link-sent");
+
+  // The sponsor's contact opens the e-mailed link in a private window, without an account.
+  const invite = await latestMailTo(contactEmail);
+  const link = invite.text.match(/https?:\/\/\S+\/review\/\S+/)![0];
+  const sponsorContext = await browser.newContext();
+  const sponsor = await sponsorContext.newPage();
+  await sponsor.goto(link);
+  await expect(sponsor.getByRole("heading", { name: "Review: Sponsor approves the script" })).toBeVisible();
+  await expect(sponsor.getByText("Their supply holds 0.1 mV ripple")).toBeVisible();
+  await expect(sponsor.getByText("2,750")).toHaveCount(0);
+  await sponsor.getByLabel("Ask for changes").check();
+  await sponsor.getByRole("button", { name: "Send decision" }).click();
+  await expect(sponsor.getByText("Say what should change.")).toBeVisible();
+  await sponsor.getByLabel("Comment").fill("Please mention the three-year warranty.");
+  await snap(sponsor, "sponsors-07-sponsor-review");
+  await sponsor.getByRole("button", { name: "Send decision" }).click();
+  await expect(sponsor.getByText("your decision is recorded")).toBeVisible();
+  await sponsor.reload();
+  await expect(sponsor.getByText("your decision is recorded")).toBeVisible();
+  await snap(sponsor, "sponsors-08-sponsor-decided");
+  await sponsorContext.close();
+
+  // The producer sees the status change and gets the e-mail at the mail stand-in.
+  await producer.reload();
+  await expect(producer.getByLabel("Status of Sponsor approves the script")).toHaveValue("changes_asked");
+  await expect(deals.getByTestId("review-link").first()).toContainText("Please mention the three-year warranty.");
+  const told = await latestMailTo(producerPerson.email);
+  expect(told.subject).toBe('Rosa Lindgren of Halvard Power Supplies asked for changes to "Sponsor approves the script"');
+  expect(told.text).toContain("Please mention the three-year warranty.");
+  await snap(producer, "sponsors-09-changes-asked");
+
+  // The editor opens the same deal: length, talking points, link and code; no fee, on the page or from the API.
+  const editor = await signIn(browser, editorPerson.email);
+  await editor.goto(`/c/${channelId}/episodes/${episodeId}`);
+  const editorDeals = editor.locator("#sponsor-deals");
+  await expect(editorDeals.getByTestId("segment-length")).toContainText("60 s");
+  await expect(editorDeals.getByTestId("talking-points")).toContainText("Holds 0.1 mV ripple");
+  await expect(editorDeals.getByTestId("segment-link")).toHaveText("https://halvard.example/millrace");
+  await expect(editorDeals.getByTestId("segment-code")).toHaveText("MILLRACE10");
+  await expect(editorDeals.getByTestId("deal-fee")).toHaveCount(0);
+  await expect(editorDeals.getByText("2,750")).toHaveCount(0);
+  await expect(editorDeals.getByText("Invoice the sponsor")).toHaveCount(0);
+  await snap(editor, "sponsors-10-editor-no-fee");
+  const answer = await editor.request.get(`/api/channels/${channelId}/episodes/${episodeId}/deals`);
+  expect(answer.status()).toBe(200);
+  const text = await answer.text();
+  expect(text).toContain("MILLRACE10");
+  expect(text).not.toMatch(/"money"|"fee"|paymentTerms|2750|"kind":"invoice"/);
+});

@@ -1,0 +1,96 @@
+import { randomUUID } from "node:crypto";
+import { generateDeliverables, suggestedTemplateItems, type TemplateItem } from "../../shared/sponsors/deliverables";
+import type { DeliverableStatus } from "../../shared/sponsors/deliverables";
+import type { Database } from "../../server/db/client";
+import { dealTemplates, deals, deliverables, sponsorContacts, sponsors } from "../../server/db/schema/sponsors";
+
+export async function createSponsor(db: Database, channelId: string, overrides: { company?: string; website?: string | null } = {}) {
+  const [sponsor] = await db
+    .insert(sponsors)
+    .values({ channelId, company: overrides.company ?? `Sponsor ${randomUUID().slice(0, 6)}`, website: overrides.website ?? null })
+    .returning();
+  return sponsor!;
+}
+
+export async function createContact(db: Database, channelId: string, sponsorId: string, overrides: { name?: string; email?: string } = {}) {
+  const [contact] = await db
+    .insert(sponsorContacts)
+    .values({ channelId, sponsorId, name: overrides.name ?? "Casey Contact", email: overrides.email ?? `contact-${randomUUID().slice(0, 8)}@example.com`, role: "Partnerships" })
+    .returning();
+  return contact!;
+}
+
+export async function createTemplate(db: Database, channelId: string, items: TemplateItem[] = suggestedTemplateItems, name = "Standard read") {
+  const [template] = await db.insert(dealTemplates).values({ channelId, name, items }).returning();
+  return template!;
+}
+
+interface DealOverrides {
+  sponsorId: string;
+  contactId?: string | null;
+  createdBy?: string | null;
+  publishDate?: string | null;
+  items?: TemplateItem[];
+  ownerId?: string | null;
+  statuses?: Partial<Record<number, DeliverableStatus>>;
+  fee?: string;
+  currency?: string;
+  script?: string;
+  descriptionCopy?: string | null;
+  state?: "negotiating" | "signed" | "live" | "wrapped" | "cancelled";
+  segmentSeconds?: number;
+  talkingPoints?: string[];
+  link?: string | null;
+  promoCode?: string | null;
+  disclosureText?: string | null;
+}
+
+/** A deal with its items dated from the episode's publish date, straight in the database. */
+export async function createDeal(db: Database, channelId: string, episodeId: string, overrides: DealOverrides) {
+  const publishDate = overrides.publishDate ?? null;
+  const [deal] = await db
+    .insert(deals)
+    .values({
+      channelId,
+      episodeId,
+      sponsorId: overrides.sponsorId,
+      contactId: overrides.contactId ?? null,
+      state: overrides.state ?? "signed",
+      placement: "middle",
+      segmentSeconds: overrides.segmentSeconds ?? 60,
+      talkingPoints: overrides.talkingPoints ?? ["Holds 0.1 mV ripple"],
+      link: overrides.link === undefined ? "https://northbeam.example/gantry" : overrides.link,
+      promoCode: overrides.promoCode === undefined ? "GANTRY10" : overrides.promoCode,
+      disclosureText: overrides.disclosureText ?? null,
+      script: overrides.script ?? "",
+      descriptionCopy: overrides.descriptionCopy ?? null,
+      publishBasis: publishDate,
+      feeAmount: overrides.fee ?? "4321.00",
+      currency: overrides.currency ?? "EUR",
+      paymentTermsDays: 30,
+      paymentTermsFrom: "invoice",
+      createdBy: overrides.createdBy ?? null,
+    })
+    .returning();
+  const generated = generateDeliverables(overrides.items ?? suggestedTemplateItems, { publishDate, goLiveDate: null });
+  const items = generated.length
+    ? await db
+        .insert(deliverables)
+        .values(
+          generated.map((item, index) => ({
+            channelId,
+            dealId: deal!.id,
+            kind: item.kind,
+            title: item.title,
+            anchor: item.anchor,
+            offsetDays: item.offsetDays,
+            dueDate: item.dueDate,
+            position: item.position,
+            ownerId: overrides.ownerId ?? null,
+            status: overrides.statuses?.[index] ?? "not_started",
+          })),
+        )
+        .returning()
+    : [];
+  return { deal: deal!, items };
+}
