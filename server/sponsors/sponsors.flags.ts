@@ -1,4 +1,5 @@
-import { and, asc, eq, inArray, isNotNull, ne, notInArray } from "drizzle-orm";
+import { and, asc, eq, isNotNull, ne, notInArray } from "drizzle-orm";
+import { episodeIdIn } from "../slate/flags";
 import { dateInZone, shiftDate } from "../../shared/sponsors/dates";
 import { DUE_SOON_DAYS, deskGroupOf, moneyKinds } from "../../shared/sponsors/deliverables";
 import type { BoardFlag } from "../../shared/slate/flags";
@@ -26,7 +27,7 @@ const dueAndLate: BoardFlagSource = {
       .where(
         and(
           eq(deliverables.channelId, channelId),
-          inArray(deals.episodeId, episodeIds),
+          episodeIdIn(deals.episodeId, episodeIds),
           ne(deals.state, "cancelled"),
           notInArray(deliverables.status, ["approved", "done"]),
           notInArray(deliverables.kind, [...moneyKinds]),
