@@ -15,9 +15,14 @@ import { freePort, run, stopChild, waitForHttp } from "./processes";
  * The demo cluster of `npm start` is never touched.
  */
 // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
-const filters = process.argv.slice(2);
+// `npm test -- --browser [playwright filters]` builds the client and runs just the browser tests.
+const args = process.argv.slice(2);
+const browserOnly = args[0] === "--browser";
+const filters = browserOnly ? [] : args;
+const browserFilters = browserOnly ? args.slice(1) : [];
+const partial = args.length > 0;
 // Each run has its own cluster and output, so two runs at once (two terminals, helpers) never collide.
-const outputDir = path.join(stateDir, filters.length === 0 ? "test-output" : `test-output-${process.pid}`);
+const outputDir = path.join(stateDir, partial ? `test-output-${process.pid}` : "test-output");
 const bin = (name: string) => path.join(repoRoot, "node_modules", ".bin", name);
 
 interface Step {
@@ -112,7 +117,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
   });
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/health`, 60_000);
-  return step("browser tests (Playwright, Debian's Chromium)", bin("playwright"), ["test"], {
+  return step("browser tests (Playwright, Debian's Chromium)", bin("playwright"), ["test", ...browserFilters], {
     KERF_E2E_URL: appUrl,
     KERF_TEST_CLUSTER_URL: clusterUrl,
     KERF_E2E_DATABASE_URL: databaseUrl,
@@ -127,7 +132,7 @@ async function main(): Promise<number> {
   rmSync(outputDir, { recursive: true, force: true });
   mkdirSync(outputDir, { recursive: true });
 
-  if (filters.length === 0) {
+  if (!partial) {
     await step("type check", bin("tsc"), ["--noEmit", "-p", "tsconfig.json"]);
     await step("lint", bin("eslint"), ["--max-warnings", "0", "."]);
   }
@@ -152,7 +157,7 @@ async function main(): Promise<number> {
     KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
   };
   const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
-  await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+  if (!browserOnly) await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
 
   if (filters.length === 0 && (await step("client build", bin("vite"), ["build", "--logLevel", "warn"]))) {
     await browserTests(clusterUrl, cluster, mail);

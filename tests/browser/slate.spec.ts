@@ -29,12 +29,22 @@ async function dragByMouse(page: Page, from: string, to: string) {
   await page.mouse.up();
 }
 
-/** Space picks the card up from its handle, an arrow key takes it one column over, Space drops it. */
-async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft") {
-  await page.getByRole("button", { name: `Move ${TITLE}` }).focus();
+/**
+ * Space picks the card up from its handle, an arrow key takes it one column over, Space drops it.
+ * Each key waits for the board's screen-reader announcement of the step before it, as a person
+ * listening would. The sensor starts listening for arrows a task after the pick-up, and Chromium
+ * runs input before timers, so an arrow pressed blind right after Space can be lost.
+ */
+async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft", from: string, to: string) {
+  const handle = page.getByRole("button", { name: `Move ${TITLE}` });
+  await handle.focus();
   await page.keyboard.press("Space");
+  await expect(handle).toHaveAttribute("aria-pressed", "true");
+  await expect(page.getByText(new RegExp(`${TITLE} is in ${from}, position`))).toBeAttached();
   await page.keyboard.press(key);
+  await expect(page.getByText(new RegExp(`${TITLE} is (in|at the end of) ${to}`))).toBeAttached();
   await page.keyboard.press("Space");
+  await expect(page.getByRole("status").filter({ hasText: `${TITLE} is now in ${to}.` })).toBeAttached();
 }
 
 test("the owner makes an episode and moves it along the board by mouse and by keyboard", async ({ page }) => {
@@ -57,14 +67,15 @@ test("the owner makes an episode and moves it along the board by mouse and by ke
   await snap(page, "slate-03-dragged-to-test-plan");
   await dragByMouse(page, "test_plan", "challenge");
   await expect(cardIn(page, "challenge")).toBeVisible();
+  await expect(page.getByRole("status").filter({ hasText: `${TITLE} is now in Challenge.` })).toBeAttached();
 
-  await dragByKeyboard(page, "ArrowRight");
+  await dragByKeyboard(page, "ArrowRight", "Challenge", "Test plan");
   await expect(cardIn(page, "test_plan")).toBeVisible();
   await page.reload();
   await expect(cardIn(page, "test_plan")).toBeVisible();
   await snap(page, "slate-04-kept-after-reload");
 
-  await dragByKeyboard(page, "ArrowLeft");
+  await dragByKeyboard(page, "ArrowLeft", "Test plan", "Challenge");
   await expect(cardIn(page, "challenge")).toBeVisible();
   await page.reload();
   await expect(cardIn(page, "challenge")).toBeVisible();
@@ -92,7 +103,7 @@ test("when two sessions move the same card, the second is told and sees the firs
   await other.getByRole("button", { name: "Sign in" }).click();
   await expect(cardIn(other, "challenge")).toBeVisible();
 
-  await dragByKeyboard(page, "ArrowRight");
+  await dragByKeyboard(page, "ArrowRight", "Challenge", "Test plan");
   await expect(cardIn(page, "test_plan")).toBeVisible();
 
   // The second session still shows the card in challenge, at the version it loaded.
@@ -100,6 +111,7 @@ test("when two sessions move the same card, the second is told and sees the firs
   await expect(other.getByRole("alert")).toContainText("Someone else moved or changed");
   await expect(other.getByRole("alert")).toContainText("it is in Test plan now");
   await expect(cardIn(other, "test_plan")).toBeVisible();
+  await expect(cardIn(other, "challenge")).toHaveCount(0);
   await snap(other, "slate-05-conflict-message");
   await otherContext.close();
 });
