@@ -6,7 +6,9 @@ import { sponsorBoardFilter, sponsorFlagSources } from "../sponsors/sponsors.fla
 /**
  * Flags other features put on board cards ("Sponsor item due"), beside the slate's own (at risk,
  * essentials skipped, no publish date), which the board computes with its cached rows.
- * A source answers for every card of a board load in one query: never one query per card.
+ * A source answers for every card of a board load in one query: never one query per card. The board
+ * answer is kept until the board revision changes, so the tables a source reads carry the
+ * `slate_bump_board_revision` trigger (drizzle/0004_sponsors_board_revision.sql for the sponsors').
  */
 export interface BoardFlagSource {
   name: string;

@@ -39,11 +39,12 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       access: channelAccess("episodes", "R"),
       handler: async (req, res) => {
         const filters = boardFilters(req.query as Record<string, unknown>);
-        const gzip = req.acceptsEncodings("gzip", "identity") === "gzip";
-        const board = await loadBoard(db, memberOf(req).channelId, signedInUser(req), filters, { gzip });
+        // Our preference, not the header's order: browsers list gzip first but brotli is smaller.
+        const encoding = (["br", "gzip"] as const).find((name) => req.acceptsEncodings(name) === name) ?? null;
+        const board = await loadBoard(db, memberOf(req).channelId, signedInUser(req), filters, { encoding });
         res.set({ ETag: board.etag, "Cache-Control": "private, no-cache", Vary: "Accept-Encoding" }).type("json");
         if (req.fresh) return res.status(304).end();
-        if ("gzip" in board) return res.set({ "Content-Encoding": "gzip", "Content-Length": String(board.gzip.length) }).end(board.gzip);
+        if ("encoding" in board) return res.set({ "Content-Encoding": board.encoding, "Content-Length": String(board.body.length) }).end(board.body);
         res.set("Content-Length", String(board.head.length + board.tail.length));
         res.write(board.head);
         res.end(board.tail);

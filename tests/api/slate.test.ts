@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { addMember, createCrewedChannel, createUser } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
+import { createDeal, createSponsor } from "../factories/sponsors";
+import { shiftDate } from "../../shared/sponsors/dates";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { board, cardOf, column, fields, newEpisode } from "./slate-support";
 
@@ -180,6 +182,44 @@ describe("the board", () => {
     await app.database.pool.query("update episodes set title = 'Renamed by hand' where id = $1", [made.id]);
     const after = await agent.get(`/api/channels/${channel.id}/episodes`).set("If-None-Match", etag).expect(200);
     expect(after.body.episodes[0].title).toBe("Renamed by hand");
+  });
+
+  it("when a client accepts brotli or gzip, then the same board comes compressed that way", async () => {
+    const { channel, owner } = await createCrewedChannel(app.db);
+    const agent = await app.signedIn(owner);
+    for (let i = 0; i < 5; i++) await newEpisode(agent, channel.id, { title: `Compressed ${i}` });
+    const plain = await agent.get(`/api/channels/${channel.id}/episodes`).set("Accept-Encoding", "identity").expect(200);
+    expect(plain.headers["content-encoding"]).toBeUndefined();
+    for (const [accept, encoding] of [["gzip, deflate, br", "br"], ["gzip", "gzip"]] as const) {
+      const response = await agent.get(`/api/channels/${channel.id}/episodes`).set("Accept-Encoding", accept).expect(200);
+      expect(response.headers["content-encoding"]).toBe(encoding);
+      expect(response.headers.vary).toContain("Accept-Encoding");
+      expect(response.headers.etag).toBe(plain.headers.etag);
+      expect(response.body).toEqual(plain.body); // superagent decodes both
+    }
+  });
+
+  it("when a sponsor item of an episode changes, then the next board load shows it, though the answer is kept", async () => {
+    const { channel, owner } = await createCrewedChannel(app.db);
+    const agent = await app.signedIn(owner);
+    const episode = await createEpisode(app.db, channel.id, { title: "Sponsored one", targetPublishDate: shiftDate(new Date().toISOString().slice(0, 10), 3) });
+    const before = await board(agent, channel.id);
+    expect(before.flags[episode.id]).toBeUndefined();
+    expect(before.sponsorOptions).toEqual([]);
+
+    // Rows written straight to the tables, as a script would: the triggers on the sponsor tables raise the revision.
+    const sponsor = await createSponsor(app.db, channel.id, { company: "Quillon Fasteners" });
+    const made = await createDeal(app.db, channel.id, episode.id, { sponsorId: sponsor.id, publishDate: shiftDate(new Date().toISOString().slice(0, 10), 3) });
+    const flagged = await board(agent, channel.id);
+    expect(flagged.flags[episode.id]!.map((f) => f.code)).toEqual(expect.arrayContaining(["sponsors.item_due"]));
+    expect(flagged.sponsorOptions).toEqual([{ value: sponsor.id, label: "Quillon Fasteners" }]);
+    expect((await board(agent, channel.id, `?sponsor=${sponsor.id}`)).episodes.map((e) => e.id)).toEqual([episode.id]);
+
+    await app.database.pool.query("update deliverables set status = 'done' where deal_id = $1", [made.deal.id]);
+    expect((await board(agent, channel.id)).flags[episode.id]).toBeUndefined();
+    await app.database.pool.query("update deals set state = 'cancelled' where id = $1", [made.deal.id]);
+    expect((await board(agent, channel.id)).sponsorOptions).toEqual([]);
+    expect((await board(agent, channel.id, `?sponsor=${sponsor.id}`)).episodes).toEqual([]);
   });
 
   it("when a member of one channel asks for another's board or episode, then it answers 404", async () => {
