@@ -29,15 +29,46 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   return {
     url: `http://${env.HOST}:${port}`,
     async stop() {
-      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
-      server.closeAllConnections();
-      await closed;
+      await drain(server);
+      await quiet(database.pool);
       await jobs.stop();
       mailer.close();
       await database.close();
     },
   };
 }
+
+const DRAIN_MS = 5_000;
+
+/**
+ * Stops taking connections and lets the requests already running finish (up to five seconds) before
+ * the database goes: cutting them off would leave handlers querying a closed pool.
+ */
+async function drain(server: Server): Promise<void> {
+  const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+  // Keep-alive connections go idle as their last answer is sent; close each as it does.
+  const sweep = setInterval(() => server.closeIdleConnections(), 50);
+  const deadline = new Promise<void>((resolve) => setTimeout(resolve, DRAIN_MS).unref());
+  await Promise.race([closed, deadline]);
+  clearInterval(sweep);
+  server.closeAllConnections();
+  await closed;
+}
+
+/**
+ * A client that went away mid-request leaves its handler running: wait (up to two seconds) until no
+ * query has been running for a tenth of a second, so those handlers finish before the pool closes.
+ */
+async function quiet(pool: RunningPool): Promise<void> {
+  const until = Date.now() + 2_000;
+  let idleSince = Date.now();
+  while (Date.now() < until && Date.now() - idleSince < 100) {
+    if (pool.totalCount - pool.idleCount > 0 || pool.waitingCount > 0) idleSince = Date.now();
+    await new Promise((resolve) => setTimeout(resolve, 10));
+  }
+}
+
+type RunningPool = ReturnType<typeof connectDatabase>["pool"];
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   const running = await startServer();

@@ -1,5 +1,6 @@
 import { spawn } from "node:child_process";
 import { rmSync } from "node:fs";
+import os from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import { connectDatabase } from "../../server/db/client";
@@ -15,10 +16,17 @@ import { startS3StandIn } from "../s3";
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
  * the board, an episode page, the footage list and the producer's desk, and a write (a comment) every
- * tenth request — against a Kerf server of its own on throwaway services. Last line: one JSON object.
+ * tenth request — against a Kerf server of its own on throwaway services. Bounded: each client keeps
+ * to a set pace (RATE). A short flat-out run after it shows the ceiling. Last line: one JSON object.
  */
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
+/**
+ * Requests a second from each client, sent together like the calls of one page load: a page a second
+ * from each of fifty people is far busier than a team at work. BENCH_RATE=0 drives flat out.
+ */
+const RATE = Number(process.env.BENCH_RATE ?? 4);
+const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
 
@@ -69,7 +77,9 @@ async function main() {
   const appUrl = `http://127.0.0.1:${appPort}`;
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(work, "s3"), origins: [appUrl] });
   stops.push(() => s3.stop());
-  const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+  // BENCH_PROFILE=<dir> writes the server's CPU profile there when it stops (open it in Chromium's devtools).
+  const profile = process.env.BENCH_PROFILE ? ["--cpu-prof", "--cpu-prof-dir", path.resolve(process.env.BENCH_PROFILE)] : [];
+  const server = spawn(process.execPath, [...profile, "--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "ignore", "inherit"],
     env: { ...process.env, ...s3.env, NODE_ENV: "production", PORT: String(appPort), APP_URL: appUrl, DATABASE_URL: databaseUrl, SESSION_SECRET: "load-bench-secret-load-bench-secret-00", SMTP_PORT: String(mail.smtpPort) },
@@ -82,7 +92,8 @@ async function main() {
   const episodeIds = episodes.rows.map((r) => r.id);
   const reads = [`${base}/episodes`, `${base}/episodes/${episodeIds[0]}`, `${base}/clips?limit=50`, `${base}/desk`];
   const requestsFor = (client: Client, index: number) => {
-    const headers = { cookie: client.cookie, accept: "application/json" };
+    // As a browser asks: compressed answers accepted.
+    const headers = { cookie: client.cookie, accept: "application/json", "accept-encoding": "gzip, deflate, br" };
     const sequence: autocannon.Request[] = Array.from({ length: 9 }, (_, i) => ({ method: "GET", path: reads[i % reads.length]!, headers }));
     const episodeId = episodeIds[index % episodeIds.length];
     sequence.push({
@@ -100,43 +111,99 @@ async function main() {
     if (!response.ok) throw new Error(`${request.method} ${request.path} answered ${response.status}: ${(await response.text()).slice(0, 200)}`);
   }
 
-  const latencies: number[] = [];
-  let nextClient = 0;
-  console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}…`);
-  const result = await new Promise<autocannon.Result>((resolve, reject) => {
-    const instance = autocannon(
-      {
-        url: appUrl,
-        connections: CONNECTIONS,
-        duration: SECONDS,
-        requests: requestsFor(clients[0]!, 0),
-        setupClient: (client) => {
-          const index = nextClient++ % clients.length;
-          client.setRequests(requestsFor(clients[index]!, index));
-        },
-      },
-      (error, finished) => (error ? reject(error) : resolve(finished)),
-    );
-    instance.on("response", (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
-  });
+  console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}, each at ${RATE} requests a second…`);
+  const paced = summary(RATE > 0 ? await drivePaced(appUrl, clients, requestsFor, { seconds: SECONDS, rate: RATE }) : await driveFlatOut(appUrl, clients, requestsFor, { seconds: SECONDS }));
+  console.log(`Then flat out for ${SATURATION_SECONDS} s, each client sending its next request as soon as the last is answered…`);
+  const flatOut = summary(await driveFlatOut(appUrl, clients, requestsFor, { seconds: SATURATION_SECONDS }));
 
-  latencies.sort((a, b) => a - b);
-  const errors = result.errors + result.timeouts + result.non2xx;
   const figures = {
     connections: CONNECTIONS,
     seconds: SECONDS,
-    requests: result.requests.total,
-    requests_per_second: Math.round(result.requests.average),
-    errors,
-    p50_ms: Math.round(percentile(latencies, 50) * 10) / 10,
-    p95_ms: Math.round(percentile(latencies, 95) * 10) / 10,
-    p99_ms: Math.round(percentile(latencies, 99) * 10) / 10,
+    rate_per_client: RATE,
+    requests: paced.requests,
+    requests_per_second: paced.perSecond,
+    errors: paced.errors,
+    p50_ms: paced.p50,
+    p95_ms: paced.p95,
+    p99_ms: paced.p99,
+    flat_out_requests_per_second: flatOut.perSecond,
+    flat_out_errors: flatOut.errors,
+    flat_out_p50_ms: flatOut.p50,
+    flat_out_p95_ms: flatOut.p95,
+    load_average_1min: Math.round(os.loadavg()[0]! * 100) / 100,
   };
   console.log(`
-requests:   ${figures.requests} in ${SECONDS} s (${figures.requests_per_second}/s), ${errors} errors (${result.non2xx} non-2xx, ${result.timeouts} timeouts)
-latency:    p50 ${figures.p50_ms} ms, p95 ${figures.p95_ms} ms, p99 ${figures.p99_ms} ms
-target:     zero errors and p95 under 100 ms — ${errors === 0 && figures.p95_ms < 100 ? "met" : "NOT met"}`);
+paced (${CONNECTIONS} clients × ${RATE}/s):
+  requests:   ${paced.requests} in ${SECONDS} s (${paced.perSecond}/s), ${paced.errors} errors (${paced.non2xx} non-2xx, ${paced.timeouts} timeouts)
+  latency:    p50 ${paced.p50} ms, p95 ${paced.p95} ms, p99 ${paced.p99} ms
+  target:     zero errors and p95 under 100 ms — ${paced.errors === 0 && paced.p95 < 100 ? "met" : "NOT met"}
+flat out (the ceiling of this machine, server, database and load generator together):
+  requests:   ${flatOut.requests} in ${SATURATION_SECONDS} s (${flatOut.perSecond}/s), ${flatOut.errors} errors
+  latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)
+machine: ${os.cpus().length} CPUs, load average ${figures.load_average_1min}`);
   console.log(JSON.stringify(figures));
+}
+
+type RequestsFor = (client: Client, index: number) => autocannon.Request[];
+
+interface Run {
+  requests: number;
+  perSecond: number;
+  errors: number;
+  non2xx: number;
+  timeouts: number;
+  latencies: number[];
+}
+
+function oneRun(options: autocannon.Options, onResponse: (ms: number) => void): Promise<autocannon.Result> {
+  return new Promise((resolve, reject) => {
+    const instance = autocannon(options, (error, finished) => (error ? reject(error) : resolve(finished)));
+    instance.on("response", (_client, _status, _bytes, responseTime) => onResponse(responseTime));
+  });
+}
+
+/**
+ * Paced: one autocannon instance per client. autocannon's rate sends a connection's allowance for the
+ * second back to back when the second starts (here: a page's few requests at once, as a browser does),
+ * so the clients start spread across one second, or all fifty would send on the same tick.
+ */
+async function drivePaced(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number; rate: number }): Promise<Run> {
+  const latencies: number[] = [];
+  const results = await Promise.all(
+    clients.map(async (client, index) => {
+      await new Promise((resolve) => setTimeout(resolve, (index * 1000) / clients.length));
+      return oneRun({ url: appUrl, connections: 1, duration: options.seconds, connectionRate: options.rate, requests: requestsFor(client, index) }, (ms) => latencies.push(ms));
+    }),
+  );
+  const sum = (pick: (r: autocannon.Result) => number) => results.reduce((total, r) => total + pick(r), 0);
+  const requests = sum((r) => r.requests.total);
+  return { requests, perSecond: Math.round(requests / options.seconds), errors: sum((r) => r.errors + r.timeouts + r.non2xx), non2xx: sum((r) => r.non2xx), timeouts: sum((r) => r.timeouts), latencies };
+}
+
+/** Flat out: every client sends its next request as soon as the last is answered. */
+async function driveFlatOut(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number }): Promise<Run> {
+  const latencies: number[] = [];
+  let nextClient = 0;
+  const result = await oneRun(
+    {
+      url: appUrl,
+      connections: clients.length,
+      duration: options.seconds,
+      requests: requestsFor(clients[0]!, 0),
+      setupClient: (client) => {
+        const index = nextClient++ % clients.length;
+        client.setRequests(requestsFor(clients[index]!, index));
+      },
+    },
+    (ms) => latencies.push(ms),
+  );
+  return { requests: result.requests.total, perSecond: Math.round(result.requests.average), errors: result.errors + result.timeouts + result.non2xx, non2xx: result.non2xx, timeouts: result.timeouts, latencies };
+}
+
+function summary(run: Run) {
+  const sorted = [...run.latencies].sort((a, b) => a - b);
+  const at = (p: number) => Math.round(percentile(sorted, p) * 10) / 10;
+  return { ...run, p50: at(50), p95: at(95), p99: at(99) };
 }
 
 try {

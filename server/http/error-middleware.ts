@@ -15,7 +15,7 @@ function fromFramework(error: unknown): AppError | null {
 function isDatabaseDown(error: unknown): boolean {
   const code = (error as { code?: string })?.code ?? "";
   const message = (error as Error)?.message ?? "";
-  return ["ECONNREFUSED", "57P01", "57P03", "08006", "08001", "ECONNRESET"].includes(code) || /Connection terminated|timeout exceeded when trying to connect/i.test(message);
+  return ["ECONNREFUSED", "57P01", "57P03", "08006", "08001", "ECONNRESET"].includes(code) || /Connection terminated|timeout exceeded when trying to connect|Cannot use a pool after calling end/i.test(message);
 }
 
 export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {

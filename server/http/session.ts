@@ -8,6 +8,29 @@ import { findUserById } from "../auth/users.repository";
 
 const PgStore = connectPgSimple(session);
 
+/** How long a session's expiry may lag its last request on this instance (out of fourteen days). */
+const TOUCH_EVERY_MS = 10 * 60 * 1000;
+const TOUCHES_REMEMBERED = 20_000;
+
+/**
+ * The store moves a session's expiry forward on every request (rolling sessions), which is a write
+ * for every read. This one writes it at most once per ten minutes per session on each instance:
+ * a session may end up to ten minutes early after fourteen idle days, and most requests write nothing.
+ */
+class SessionStore extends PgStore {
+  readonly #touchedAt = new Map<string, number>();
+
+  override touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {
+    const now = Date.now();
+    const last = this.#touchedAt.get(sid);
+    if (last !== undefined && now - last < TOUCH_EVERY_MS) return callback?.();
+    this.#touchedAt.delete(sid);
+    this.#touchedAt.set(sid, now);
+    if (this.#touchedAt.size > TOUCHES_REMEMBERED) this.#touchedAt.delete(this.#touchedAt.keys().next().value!);
+    super.touch(sid, sess, callback);
+  }
+}
+
 export const SESSION_COOKIE = "kerf.sid";
 
 /** Sessions live in PostgreSQL so any app instance can serve any signed-in person. */
@@ -15,7 +38,7 @@ export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler
   return session({
     name: SESSION_COOKIE,
     secret,
-    store: new PgStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: new SessionStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
     resave: false,
     saveUninitialized: false,
     rolling: true,

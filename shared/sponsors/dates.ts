@@ -1,4 +1,5 @@
 import { addDays, differenceInCalendarDays, format, isValid, parseISO } from "date-fns";
+import { localDate } from "../slate/dates";
 
 /**
  * Calendar dates as ISO strings ("2027-03-02"), the way PostgreSQL's `date` columns arrive.
@@ -30,13 +31,4 @@ export function daysBetween(from: IsoDate, to: IsoDate): number {
 }
 
 /** The calendar date it is at `instant` in an IANA time zone ("Europe/Oslo"); UTC when the zone is unknown. */
-export function dateInZone(instant: Date, timeZone: string): IsoDate {
-  let parts: Intl.DateTimeFormatPart[];
-  try {
-    parts = new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
-  } catch {
-    parts = new Intl.DateTimeFormat("en-CA", { timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
-  }
-  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? "";
-  return `${part("year")}-${part("month")}-${part("day")}`;
-}
+export const dateInZone = (instant: Date, timeZone: string): IsoDate => localDate(instant, timeZone);

@@ -143,6 +143,24 @@ describe("signing up, in and out", () => {
   });
 });
 
+describe("session expiry", () => {
+  it("when a signed-in person makes requests in a row, then the session's expiry is written once, not on every read", async () => {
+    const person = await createUser(app.db);
+    const visitor = await app.visitor();
+    const signIn = await visitor.send("post", "/api/auth/sign-in", { email: person.email, password: person.password }).expect(200);
+    const sid = sidOf(sessionCookieOf(signIn).pair);
+    const expiry = async () => (await app.database.pool.query<{ expire: Date }>("select expire from session where sid = $1", [sid])).rows[0]!.expire.getTime();
+    const atSignIn = await expiry();
+    await new Promise((resolve) => setTimeout(resolve, 1100)); // expiry is stored to the second
+    await visitor.get("/api/auth/me").expect(200);
+    const afterFirst = await expiry();
+    expect(afterFirst).toBeGreaterThan(atSignIn);
+    await new Promise((resolve) => setTimeout(resolve, 1100));
+    for (let i = 0; i < 3; i++) await visitor.get("/api/auth/me").expect(200);
+    expect(await expiry()).toBe(afterFirst);
+  });
+});
+
 describe("forged requests (CSRF)", () => {
   it("when a sign-up carries no token, then it answers 403 csrf_failed and makes no account", async () => {
     const visitor = await app.visitor();
