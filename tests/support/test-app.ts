@@ -38,6 +38,8 @@ export interface TestAppOptions {
   database?: TestDatabase;
   /** A mail server of the test's own (e.g. one it stops and starts). */
   smtpPort?: number;
+  /** A storage stand-in of the test's own (e.g. one it stops and starts). */
+  s3?: { endpoint: string; bucket: string; accessKeyId: string; secretAccessKey: string };
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
@@ -48,10 +50,10 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     SESSION_SECRET: "test-secret-test-secret-test-secret-0123",
     SMTP_PORT: String(options.smtpPort ?? testEnv.smtpPort),
     APP_URL: "http://kerf.test",
-    S3_ENDPOINT: testEnv.s3.endpoint,
-    S3_BUCKET: testEnv.s3.bucket,
-    S3_ACCESS_KEY_ID: testEnv.s3.accessKeyId,
-    S3_SECRET_ACCESS_KEY: testEnv.s3.secretAccessKey,
+    S3_ENDPOINT: (options.s3 ?? testEnv.s3).endpoint,
+    S3_BUCKET: (options.s3 ?? testEnv.s3).bucket,
+    S3_ACCESS_KEY_ID: (options.s3 ?? testEnv.s3).accessKeyId,
+    S3_SECRET_ACCESS_KEY: (options.s3 ?? testEnv.s3).secretAccessKey,
   });
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: database.url, mailer, runWorkers: true, pollSeconds: 0.5 });
