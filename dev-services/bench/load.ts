@@ -26,6 +26,7 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
  * from each of fifty people is far busier than a team at work. BENCH_RATE=0 drives flat out.
  */
 const RATE = Number(process.env.BENCH_RATE ?? 4);
+const WARMUP_SECONDS = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
 const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
@@ -111,6 +112,9 @@ async function main() {
     if (!response.ok) throw new Error(`${request.method} ${request.path} answered ${response.status}: ${(await response.text()).slice(0, 200)}`);
   }
 
+  // A fresh server runs its code cold (not yet optimised by V8) and its pools empty: warm it first.
+  console.log(`Warming up for ${WARMUP_SECONDS} s (not counted)…`);
+  await drivePaced(appUrl, clients, requestsFor, { seconds: WARMUP_SECONDS, rate: Math.max(1, RATE) });
   console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}, each at ${RATE} requests a second…`);
   const paced = summary(RATE > 0 ? await drivePaced(appUrl, clients, requestsFor, { seconds: SECONDS, rate: RATE }) : await driveFlatOut(appUrl, clients, requestsFor, { seconds: SECONDS }));
   console.log(`Then flat out for ${SATURATION_SECONDS} s, each client sending its next request as soon as the last is answered…`);
