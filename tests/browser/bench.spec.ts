@@ -1,44 +1,5 @@
 import { expect, test, type Locator, type Page } from "@playwright/test";
-import pg from "pg";
-import { snap, uniqueEmail } from "./support";
-
-const PASSWORD = "a-long-enough-password";
-
-/** A new host with a channel (through the sign-up page) and one episode (through the slate's API). */
-async function hostWithEpisode(page: Page) {
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill("Saga Ellingsen");
-  await page.getByLabel("E-mail").fill(uniqueEmail("bench-host"));
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill("Wharf Street Lift Lab");
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
-  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())?.[1];
-  expect(channelId).toBeTruthy();
-
-  const me = await (await page.request.get("/api/auth/me")).json();
-  const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
-    headers: { "x-csrf-token": me.csrfToken },
-    data: { title: "Can one rotor lift the frame?", question: "Which motor lifts a 400 g frame best?", origin: "idea", originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: "" },
-  });
-  const episodeId = created.status() === 201 ? ((await created.json()).episode.id as string) : await insertEpisode(channelId!);
-  return { channelId: channelId!, episodeId };
-}
-
-/** Should the slate's creation route change shape, the episode goes straight into the test database instead. */
-async function insertEpisode(channelId: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
-  await client.connect();
-  try {
-    const result = await client.query<{ id: string }>(
-      "insert into episodes (channel_id, title, question, stage, rank) values ($1, 'Can one rotor lift the frame?', 'Which motor lifts a 400 g frame best?', 'test_plan', 'a0') returning id",
-      [channelId],
-    );
-    return result.rows[0]!.id;
-  } finally {
-    await client.end();
-  }
-}
+import { hostWithEpisode, snap } from "./support";
 
 /** The new-part form stays open after each part, ready for the next. */
 async function addPart(page: Page, part: { name: string; kind: string; mass: string; massUnit: string; volts: string }) {
@@ -81,7 +42,10 @@ async function enterRun(
 test("a host plans a test, measures three candidates in mixed units and sees the plan pick one", async ({ page }) => {
   // One long journey through four screens.
   test.setTimeout(120_000);
-  const { channelId, episodeId } = await hostWithEpisode(page);
+  const { channelId, episodeId } = await hostWithEpisode(page, {
+    host: { name: "Saga Ellingsen", channel: "Wharf Street Lift Lab" },
+    episode: { title: "Can one rotor lift the frame?", question: "Which motor lifts a 400 g frame best?", origin: "idea", stage: "test_plan" },
+  });
 
   // The shelf: three candidates, weighed in grams and ounces.
   await page.goto(`/c/${channelId}/shelf`);

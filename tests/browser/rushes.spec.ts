@@ -3,47 +3,12 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
-import pg from "pg";
 import { parseCsv } from "../../shared/rushes/exports/csv";
 import { parseEdl } from "../../shared/rushes/exports/edl";
-import { snap, uniqueEmail } from "./support";
+import { hostWithEpisode, snap } from "./support";
 
-const PASSWORD = "a-long-enough-password";
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
 const storage = process.env.KERF_TEST_S3_ENDPOINT ?? "http://127.0.0.1:4568";
-
-/** A new host (through the sign-up page) with one episode (the slate's API, or straight into the database). */
-async function hostWithEpisode(page: Page) {
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill("Oda Tveit");
-  await page.getByLabel("E-mail").fill(uniqueEmail("rushes-host"));
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill("Slipway Rocketry");
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
-  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
-  const me = await (await page.request.get("/api/auth/me")).json();
-  const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
-    headers: { "x-csrf-token": me.csrfToken },
-    data: { title: "Two-stage water rocket", question: "Does a second stage beat one bigger bottle?", origin: "idea", originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: "" },
-  });
-  const episodeId = created.status() === 201 ? ((await created.json()).episode.id as string) : await insertEpisode(channelId);
-  return { channelId, episodeId };
-}
-
-async function insertEpisode(channelId: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
-  await client.connect();
-  try {
-    const result = await client.query<{ id: string }>(
-      "insert into episodes (channel_id, title, question, stage, rank) values ($1, 'Two-stage water rocket', 'Does a second stage beat one bigger bottle?', 'shoot', 'a0') returning id",
-      [channelId],
-    );
-    return result.rows[0]!.id;
-  } finally {
-    await client.end();
-  }
-}
 
 /** A file the browser can't decode, big enough for five 8 MiB parts. */
 function largeFile(): string {
@@ -59,7 +24,10 @@ const upload = (page: Page, name: string) => page.getByRole("listitem", { name: 
 
 test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page }) => {
   test.setTimeout(240_000);
-  const { channelId, episodeId } = await hostWithEpisode(page);
+  const { channelId, episodeId } = await hostWithEpisode(page, {
+    host: { name: "Oda Tveit", channel: "Slipway Rocketry" },
+    episode: { title: "Two-stage water rocket", question: "Does a second stage beat one bigger bottle?", origin: "idea", stage: "shoot" },
+  });
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
   await expect(page.getByRole("heading", { name: "Shoot and footage" })).toBeVisible();
 

@@ -1,19 +1,6 @@
 import { expect, test, type Browser, type Page } from "@playwright/test";
-import pg from "pg";
 import { hashPassword } from "../../server/auth/password";
-import { latestMailTo, snap, uniqueEmail } from "./support";
-
-const PASSWORD = "a-long-enough-password";
-
-async function sql<T extends pg.QueryResultRow>(text: string, values: unknown[]): Promise<T[]> {
-  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
-  await client.connect();
-  try {
-    return (await client.query<T>(text, values)).rows;
-  } finally {
-    await client.end();
-  }
-}
+import { hostWithEpisode, latestMailTo, PASSWORD, snap, sql, uniqueEmail } from "./support";
 
 /** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
 async function member(channelId: string, name: string, role: "producer" | "editor") {
@@ -33,39 +20,15 @@ async function signIn(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
-/** An owner's channel (through sign-up) with one episode due out on 2 March 2027 (through the slate's API). */
-async function channelWithEpisode(page: Page) {
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill("Ingrid Vass");
-  await page.getByLabel("E-mail").fill(uniqueEmail("sponsor-host"));
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill("Millrace Bench Works");
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
-  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
-  const me = await (await page.request.get("/api/auth/me")).json();
-  const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
-    headers: { "x-csrf-token": me.csrfToken },
-    data: { title: "Bench supplies under load", question: "Which supply holds its voltage at 5 A?", origin: "sponsor", originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: "2027-03-02" },
-  });
-  let episodeId: string;
-  if (created.status() === 201) episodeId = (await created.json()).episode.id;
-  else {
-    const [row] = await sql<{ id: string }>(
-      "insert into episodes (channel_id, title, question, stage, rank, target_publish_date) values ($1, 'Bench supplies under load', 'Which supply holds its voltage at 5 A?', 'sponsor_read', 'a0', '2027-03-02') returning id",
-      [channelId],
-    );
-    episodeId = row!.id;
-  }
-  return { channelId, episodeId };
-}
-
 const dueOf = (page: Page, kind: string) => page.getByTestId(`item-${kind}`).getByTestId("due-date");
 
 test.setTimeout(180_000);
 
 test("a producer runs a deal from template to the sponsor's review, and the editor sees the segment but no fee", async ({ page, browser }) => {
-  const { channelId, episodeId } = await channelWithEpisode(page);
+  const { channelId, episodeId } = await hostWithEpisode(page, {
+    host: { name: "Ingrid Vass", channel: "Millrace Bench Works" },
+    episode: { title: "Bench supplies under load", question: "Which supply holds its voltage at 5 A?", origin: "sponsor", stage: "sponsor_read", targetPublishDate: "2027-03-02" },
+  });
   const producerPerson = await member(channelId, "Otto Brandvik", "producer");
   const editorPerson = await member(channelId, "Ylva Kaur", "editor");
   const contactEmail = uniqueEmail("sponsor-contact");

@@ -256,8 +256,10 @@ function Column({ stage, number, ids, byId, channelId, flags, canMove }: { stage
         <span>
           <span className="mr-1 text-graphite-500">{number}</span> {stageLabels[stage]}
         </span>
-        <span className="text-xs text-graphite-500" aria-label={`${ids.length} episodes`}>
-          {ids.length}
+        {/* A bare span's aria-label is not read out; the count's words are hidden text instead. */}
+        <span className="text-xs text-graphite-500">
+          <span aria-hidden="true">{ids.length}</span>
+          <span className="sr-only">{ids.length === 1 ? "1 episode" : `${ids.length} episodes`}</span>
         </span>
       </h2>
       <SortableContext id={stage} items={visible} strategy={verticalListSortingStrategy}>
