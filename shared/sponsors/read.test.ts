@@ -107,8 +107,8 @@ describe("link and code presence", () => {
 
 describe("the segment's measured length in the cut", () => {
   it("takes real time from drop-frame timecode", () => {
-    // check-values.md (SMPTE ST 12-1 as restated by OpenTimelineIO's tests): at 29.97 DF, frame 1800
-    // is labelled 00:01:00;02. 1800 frames × 1001 / 30000 s = 60.06 s.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: at 29.97 DF, frame
+    // 30 × 59 + 30 = 1800 is labelled 00:01:00;02. 1800 frames × 1001 / 30000 s = 60.06 s.
     expect(measuredSeconds("00:00:00;00", "00:01:00;02", { rate: frameRates["29.97"], dropFrame: true })).toBeCloseTo(60.06, 9);
   });
 

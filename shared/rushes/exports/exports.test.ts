@@ -58,7 +58,8 @@ describe("CMX 3600 edit decision list", () => {
 
   it("when a 29.97 drop-frame mark crosses a minute, then record times count the skipped labels", () => {
     // Frames 1798 to 1802: 59;28, 59;29, then 01:00;02 and ;03, since 29.97 DF skips ;00 and ;01 at minute 1
-    // (check-values.md: frame 1800 = 00:01:00;02). Four frames, ending before 00:01:00;04.
+    // (OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: frame 30 × 59 + 29 = 1799 is
+    // 00:00:59;29, 1800 is 00:01:00;02, 1802 is 00:01:00;04). Four frames, ending before 00:01:00;04.
     const marks = [{ in: "00:00:59;28", out: "00:01:00;04", inFrame: 1798, outFrame: 1802, note: "" }];
     const edl = parseEdl(footageEdl("DF", [clip({ frameRate: { numerator: 30000, denominator: 1001 }, dropFrame: true, startTimecode: "00:00:00;00", durationMs: 120_000, marks })]));
     expect(edl.dropFrame).toBe(true);
