@@ -51,6 +51,8 @@ describe("CMX 3600 edit decision list", () => {
   it("when a 25 fps clip is used whole, then source and record times are its own and the out point is exclusive", () => {
     const edl = footageEdl("Test", [clip()]);
     expect(edl).toContain("FCM: NON-DROP FRAME\r\n");
+    // The event line's columns and spacing as OpenTimelineIO's CMX 3600 adapter writes them
+    // (OpenTimelineIO/otio-cmx3600-adapter, tests/test_cmx_3600_adapter.py, test_reelname_length).
     // 10 s at 25 fps: 250 frames; the out point is the first frame after the event.
     expect(edl).toContain("001  A001_C00 V     C        10:00:00:00 10:00:10:00 01:00:00:00 01:00:10:00");
     expect(parseEdl(edl).events[0]!.comments).toEqual(["FROM CLIP NAME: A001_C007.mov"]);
@@ -77,6 +79,9 @@ describe("CMX 3600 edit decision list", () => {
   });
 
   it("keeps reel names to 8 characters of letters, digits and underscores", () => {
+    // OpenTimelineIO/otio-cmx3600-adapter, tests/test_cmx_3600_adapter.py, test_reelname_length: reels are cut to
+    // 8 characters by default; its writer (src/otio_cmx3600_adapter) falls back to "AX". It also drops underscores; Kerf keeps
+    // them, as camera reel names use them (own choice, common practice).
     expect(reelName("cam-b take 3.MOV")).toBe("CAMBTAKE");
     expect(reelName("....mov")).toBe("AX");
   });
