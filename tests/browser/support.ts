@@ -59,15 +59,19 @@ export async function member(channelId: string, name: string, role: "producer" |
   return { email, name };
 }
 
-/** A fresh browser context, signed in through the sign-in page; answers its page on the slate. */
-export async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext()).newPage();
+/** Signs in through the sign-in page, on a page whose context holds nobody's session yet. */
+export async function signInOn(page: Page, email: string): Promise<Page> {
   await page.goto("/sign-in");
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
   return page;
+}
+
+/** A fresh browser context, signed in; answers its page on the slate. */
+export async function signIn(browser: Browser, email: string): Promise<Page> {
+  return signInOn(await (await browser.newContext()).newPage(), email);
 }
 
 export interface HostAndEpisode {
