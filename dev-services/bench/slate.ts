@@ -6,7 +6,8 @@ import autocannon from "autocannon";
 import { generateNKeysBetween } from "fractional-indexing";
 import { connectDatabase } from "../../server/db/client";
 import { migrateDatabase } from "../../server/db/migrate";
-import { externalFlags } from "../../server/slate/flags";
+import { slatePlugs } from "../../server/app";
+import { collectFlags } from "../../server/seams/board-flags";
 import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
@@ -144,7 +145,7 @@ async function main() {
   const flagTimes: number[] = [];
   for (let i = 0; i < 25; i++) {
     const start = performance.now();
-    await externalFlags(handle.db, big.channel.id, ids, { timeZone: "UTC", today: new Date().toISOString().slice(0, 10) });
+    await collectFlags(slatePlugs.boardFlags, handle.db, big.channel.id, ids, { timeZone: "UTC", today: new Date().toISOString().slice(0, 10) });
     if (i >= 5) flagTimes.push(performance.now() - start);
   }
   flagTimes.sort((a, b) => a - b);

@@ -35,15 +35,6 @@ export async function peopleOf(db: Database, channelId: string) {
     .orderBy(asc(users.name));
 }
 
-export async function isMember(db: Database, channelId: string, userId: string): Promise<boolean> {
-  const rows = await db
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
-    .limit(1);
-  return rows.length > 0;
-}
-
 /** Addresses of the people a comment mentions, limited to members of the channel. */
 export async function memberAddresses(db: Database, channelId: string, userIds: string[]) {
   if (userIds.length === 0) return [];

@@ -2,13 +2,16 @@ import { z } from "zod";
 import { boardFilterKeys, boardFiltersSchema, commentSchema, dueOverrideSchema, episodeChangesSchema, episodeFieldsSchema, moveEpisodeSchema, versionOnlySchema } from "../../shared/slate/schemas";
 import { stageLengthsSchema } from "../../shared/slate/schedule";
 import { stages } from "../../shared/slate/stages";
-import type { AppDeps } from "../app";
+import type { EpisodeTitles } from "../../shared/slate/schemas";
 import { AppError } from "../http/app-error";
-import { memberOf, signedInUser } from "../http/guards";
+import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
+import type { AppDeps } from "../seams/app-deps";
+import type { SlatePlugs } from "../seams/slate-plugs";
 import { loadBoard } from "./board.service";
 import { addComment, listComments } from "./comments.service";
+import { episodeTitles } from "./episodes.repository";
 import { createEpisode, editEpisode, episodeDetail, episodeHistory, move, overrideDueDate, setArchived, toRecord } from "./episodes.service";
 import { peopleOf, saveStageLengths, slateStateOf } from "./slate.repository";
 
@@ -27,11 +30,11 @@ function boardFilters(query: Record<string, unknown>) {
   return parseBody(boardFiltersSchema, picked);
 }
 
-/** The board, the episode page and its schedule, history and comments. */
-export function slateRoutes(deps: AppDeps): RouteSpec[] {
+/** The board, the episode page and its schedule, history and comments; `plugs` are what other features add to them. */
+export function slateRoutes(deps: AppDeps, plugs: SlatePlugs): RouteSpec[] {
   const db = deps.database.db;
   const commentDeps = { db, appUrl: deps.env.APP_URL, enqueueMail: deps.jobs.enqueueMail.bind(deps.jobs) };
-  const episodeIdOf = (req: Parameters<RouteSpec["handler"]>[0]) => parseId(req.params.episodeId, "Episode");
+  const episodeIdOf = (req: Parameters<RouteSpec["handler"]>[0]) => idOf(req, "episodeId");
   return [
     {
       method: "get",
@@ -41,7 +44,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
         const filters = boardFilters(req.query as Record<string, unknown>);
         // Our preference, not the header's order: browsers list gzip first but brotli is smaller.
         const encoding = (["br", "gzip"] as const).find((name) => req.acceptsEncodings(name) === name) ?? null;
-        const board = await loadBoard(db, memberOf(req).channelId, signedInUser(req), filters, { encoding });
+        const board = await loadBoard(db, plugs, callerOf(req).channelId, callerOf(req), filters, { encoding });
         res.set({ ETag: board.etag, "Cache-Control": "private, no-cache", Vary: "Accept-Encoding" }).type("json");
         if (req.fresh) return res.status(304).end();
         if ("encoding" in board) return res.set({ "Content-Encoding": board.encoding, "Content-Length": String(board.body.length) }).end(board.body);
@@ -56,8 +59,17 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       access: channelAccess("episodes", "W"),
       handler: async (req, res) => {
         const fields = parseBody(episodeFieldsSchema, req.body);
-        const row = await createEpisode(db, memberOf(req), fields);
+        const row = await createEpisode(db, callerOf(req), fields);
         res.status(201).json({ episode: toRecord(row) });
+      },
+    },
+    {
+      method: "get",
+      path: "/api/channels/:channelId/episode-titles",
+      access: channelAccess("episodes", "R"),
+      handler: async (req, res) => {
+        const answer: EpisodeTitles = { episodes: await episodeTitles(db, callerOf(req).channelId) };
+        res.json(answer);
       },
     },
     {
@@ -65,7 +77,8 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       path: episodePath,
       access: channelAccess("episodes", "R"),
       handler: async (req, res) => {
-        res.json(await episodeDetail(db, memberOf(req).channelId, episodeIdOf(req), signedInUser(req).timeZone));
+        const caller = callerOf(req);
+        res.json(await episodeDetail(db, plugs.boardFlags, caller.channelId, episodeIdOf(req), caller.timeZone));
       },
     },
     {
@@ -75,7 +88,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const changes = parseBody(episodeChangesSchema, req.body);
-        res.json({ episode: toRecord(await editEpisode(db, memberOf(req), episodeId, changes)) });
+        res.json({ episode: toRecord(await editEpisode(db, plugs.publishDateFollowers, callerOf(req), episodeId, changes)) });
       },
     },
     {
@@ -85,7 +98,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const input = parseBody(moveEpisodeSchema, req.body);
-        res.json({ episode: toRecord(await move(db, memberOf(req), episodeId, input)) });
+        res.json({ episode: toRecord(await move(db, plugs.stageGates, callerOf(req), episodeId, input)) });
       },
     },
     {
@@ -95,7 +108,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const { version } = parseBody(versionOnlySchema, req.body);
-        res.json({ episode: toRecord(await setArchived(db, memberOf(req), episodeId, version, true)) });
+        res.json({ episode: toRecord(await setArchived(db, callerOf(req), episodeId, version, true)) });
       },
     },
     {
@@ -105,19 +118,20 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const { version } = parseBody(versionOnlySchema, req.body);
-        res.json({ episode: toRecord(await setArchived(db, memberOf(req), episodeId, version, false)) });
+        res.json({ episode: toRecord(await setArchived(db, callerOf(req), episodeId, version, false)) });
       },
     },
     {
       method: "put",
       path: `${episodePath}/due-dates/:stage`,
       access: channelAccess("episodes", "W"),
+      valueParams: ["stage"],
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const stage = stageParam.safeParse(req.params.stage);
         if (!stage.success) throw new AppError("not_found", "No such stage.");
         const input = parseBody(dueOverrideSchema, req.body);
-        res.json({ episode: toRecord(await overrideDueDate(db, memberOf(req), episodeId, stage.data, input)) });
+        res.json({ episode: toRecord(await overrideDueDate(db, callerOf(req), episodeId, stage.data, input)) });
       },
     },
     {
@@ -125,7 +139,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       path: `${episodePath}/history`,
       access: channelAccess("episodes", "R"),
       handler: async (req, res) => {
-        res.json(await episodeHistory(db, memberOf(req).channelId, episodeIdOf(req)));
+        res.json(await episodeHistory(db, callerOf(req).channelId, episodeIdOf(req)));
       },
     },
     {
@@ -133,7 +147,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       path: `${episodePath}/comments`,
       access: channelAccess("comments", "R"),
       handler: async (req, res) => {
-        res.json({ comments: await listComments(db, memberOf(req).channelId, episodeIdOf(req)) });
+        res.json({ comments: await listComments(db, callerOf(req).channelId, episodeIdOf(req)) });
       },
     },
     {
@@ -143,7 +157,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = episodeIdOf(req);
         const { body } = parseBody(commentSchema, req.body);
-        const comment = await addComment(commentDeps, memberOf(req), signedInUser(req), episodeId, body);
+        const comment = await addComment(commentDeps, callerOf(req), episodeId, body);
         res.status(201).json({ comment });
       },
     },
@@ -152,7 +166,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       path: "/api/channels/:channelId/slate/people",
       access: channelAccess("episodes", "R"),
       handler: async (req, res) => {
-        res.json({ people: await peopleOf(db, memberOf(req).channelId) });
+        res.json({ people: await peopleOf(db, callerOf(req).channelId) });
       },
     },
     {
@@ -161,7 +175,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       path: "/api/channels/:channelId/slate/settings",
       access: channelAccess("members", "R"),
       handler: async (req, res) => {
-        const { stageLengths, custom } = await slateStateOf(db, memberOf(req).channelId);
+        const { stageLengths, custom } = await slateStateOf(db, callerOf(req).channelId);
         res.json({ stageLengths, custom });
       },
     },
@@ -171,7 +185,7 @@ export function slateRoutes(deps: AppDeps): RouteSpec[] {
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
         const { stageLengths } = parseBody(stageLengthsBody, req.body);
-        await saveStageLengths(db, memberOf(req).channelId, stageLengths);
+        await saveStageLengths(db, callerOf(req).channelId, stageLengths);
         res.json({ stageLengths, custom: true });
       },
     },
