@@ -1,8 +1,8 @@
-import { and, eq, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { PgColumn } from "drizzle-orm/pg-core";
 import type { Role } from "../../shared/access/roles";
 import type { Database } from "./client";
-import { channels, invitations, memberships } from "./schema/accounts";
+import { channels, invitations, memberships, users } from "./schema/accounts";
 import { benchParts, benchRuns, buildIterations, safetyHazards, testCriteria } from "./schema/bench";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
 import { episodes } from "./schema/slate";
@@ -74,14 +74,28 @@ export async function channelScope(db: Database, channelId: string, userId: stri
   };
 }
 
-/** Whether this person belongs to the channel: what a field naming a member (owner, host) is checked against. */
-export async function isMember(db: Database, channelId: string, userId: string): Promise<boolean> {
+/** Which of these people belong to the channel: what a field naming members (owner, host, crew) is checked against. */
+export async function membersAmong(db: Pick<Database, "select">, channelId: string, userIds: string[]): Promise<string[]> {
+  if (userIds.length === 0) return [];
   const rows = await db
     .select({ userId: memberships.userId })
     .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
-    .limit(1);
-  return rows.length > 0;
+    .where(and(eq(memberships.channelId, channelId), inArray(memberships.userId, userIds)));
+  return rows.map((row) => row.userId);
+}
+
+export async function isMember(db: Pick<Database, "select">, channelId: string, userId: string): Promise<boolean> {
+  return (await membersAmong(db, channelId, [userId])).length > 0;
+}
+
+/** The channel's members by name, with their roles and no e-mail addresses: every role may read this. */
+export async function channelPeople(db: Pick<Database, "select">, channelId: string) {
+  return db
+    .select({ userId: users.id, name: users.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.channelId, channelId))
+    .orderBy(asc(users.name));
 }
 
 export async function channelName(db: Database, channelId: string): Promise<string | null> {

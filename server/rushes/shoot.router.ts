@@ -1,10 +1,10 @@
 import { shootDayPatchSchema, shootDaySchema, shotPatchSchema, shotSchema } from "../../shared/rushes/schemas";
+import { channelPeople } from "../db/channel-scope";
 import { AppError } from "../http/app-error";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import type { RushesContext } from "./rushes.context";
-import { channelPeople } from "./shoot.repository";
 import * as shoot from "./shoot.service";
 
 const C = "/api/channels/:channelId";

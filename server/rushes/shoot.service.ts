@@ -1,5 +1,6 @@
 import type { z } from "zod";
 import type { shootDayPatchSchema, shootDaySchema, shotPatchSchema, shotSchema, ShootDayView, ShotView } from "../../shared/rushes/schemas";
+import { membersAmong } from "../db/channel-scope";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import * as repo from "./shoot.repository";
@@ -13,7 +14,7 @@ type ShotPatch = z.infer<typeof shotPatchSchema>;
 
 async function checkCrew(ctx: RushesContext, caller: Caller, crewIds: string[]): Promise<string[]> {
   const unique = [...new Set(crewIds)];
-  const found = await repo.membersAmong(ctx.db, caller.channelId, unique);
+  const found = await membersAmong(ctx.db, caller.channelId, unique);
   if (found.length !== unique.length) {
     throw new AppError("validation_failed", "Some fields need attention.", { crewIds: "Everyone on a shoot day must be a member of this channel." });
   }

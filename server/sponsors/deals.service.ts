@@ -37,6 +37,21 @@ export const deliversCut = (role: Role) => roleMay(role, "cut", "W");
 
 export const actorOf = (caller: Caller): Actor => ({ id: caller.userId, name: caller.name, kind: "member" });
 
+/** The start of a history entry the caller made on an item. */
+export const eventBy = (caller: Caller, deliverableId: string) =>
+  ({ channelId: caller.channelId, deliverableId, actorId: caller.userId, actorName: caller.name, actorKind: "member" }) as const;
+
+/** A deal's money as its columns. */
+const moneyColumns = (money: Money) => ({
+  feeAmount: money.fee.toFixed(2),
+  currency: money.currency,
+  paymentTermsDays: money.paymentTermsDays,
+  paymentTermsFrom: money.paymentTermsFrom,
+  invoiceNumber: money.invoiceNumber,
+  invoicedOn: money.invoicedOn,
+  paidOn: money.paidOn,
+});
+
 type DealWithJoins = NonNullable<Awaited<ReturnType<typeof findDeal>>>;
 
 function moneyOf(deal: DealRow): Money {
@@ -205,13 +220,7 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
       ...segment,
       channelId: caller.channelId,
       publishBasis: episode.publishDate,
-      feeAmount: money.fee.toFixed(2),
-      currency: money.currency,
-      paymentTermsDays: money.paymentTermsDays,
-      paymentTermsFrom: money.paymentTermsFrom,
-      invoiceNumber: money.invoiceNumber,
-      invoicedOn: money.invoicedOn,
-      paidOn: money.paidOn,
+      ...moneyColumns(money),
       createdBy: caller.userId,
     });
     const generated = generateDeliverables(template?.items ?? [], { publishDate: episode.publishDate, goLiveDate: deal.goLiveDate });
@@ -232,11 +241,7 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
     await insertEvents(
       tx,
       inserted.map((item) => ({
-        channelId: caller.channelId,
-        deliverableId: item.id,
-        actorId: caller.userId,
-        actorName: caller.name,
-        actorKind: "member" as const,
+        ...eventBy(caller, item.id),
         what: "created" as const,
         toStatus: item.status,
         toDate: item.dueDate,
@@ -263,15 +268,7 @@ export async function updateDeal(db: Database, caller: Caller, dealId: string, i
 }
 
 export async function updateMoney(db: Database, caller: Caller, dealId: string, money: Money): Promise<DealView> {
-  const updated = await updateDealRow(db, caller.channelId, dealId, {
-    feeAmount: money.fee.toFixed(2),
-    currency: money.currency,
-    paymentTermsDays: money.paymentTermsDays,
-    paymentTermsFrom: money.paymentTermsFrom,
-    invoiceNumber: money.invoiceNumber,
-    invoicedOn: money.invoicedOn,
-    paidOn: money.paidOn,
-  });
+  const updated = await updateDealRow(db, caller.channelId, dealId, moneyColumns(money));
   if (!updated) throw notFound("Deal");
   return dealView(db, caller, dealId);
 }

@@ -6,7 +6,7 @@ import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type NewEvent } from "./deals.repository";
-import { deliversCut, runsDeliverables, seesFees } from "./deals.service";
+import { deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
 
 async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
   if (ownerId && !(await isMember(db, channelId, ownerId))) {
@@ -34,7 +34,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
       },
     ]);
     await insertEvents(tx, [
-      { channelId: caller.channelId, deliverableId: item!.id, actorId: caller.userId, actorName: caller.name, actorKind: "member", what: "created", toStatus: item!.status, toDate: dueDate },
+      { ...eventBy(caller, item!.id), what: "created", toStatus: item!.status, toDate: dueDate },
     ]);
   });
 }
@@ -66,7 +66,7 @@ export async function updateDeliverable(db: Database, caller: Caller, deliverabl
     ? dueDateFor({ anchor, offsetDays, fixedDate: input.fixedDate ?? item.dueDate }, { publishDate: deal?.publishDate ?? null, goLiveDate: deal?.deal.goLiveDate ?? null })
     : item.dueDate;
 
-  const base = { channelId: caller.channelId, deliverableId, actorId: caller.userId, actorName: caller.name, actorKind: "member" as const };
+  const base = eventBy(caller, deliverableId);
   const events: NewEvent[] = [];
   if (input.status !== undefined && input.status !== item.status) events.push({ ...base, what: "status", fromStatus: item.status, toStatus: input.status, note: input.note ?? null });
   if (input.ownerId !== undefined && input.ownerId !== item.ownerId) events.push({ ...base, what: "owner", note: null });

@@ -23,6 +23,7 @@ import {
   updateDeliverableRow,
 } from "./deals.repository";
 import type { Caller } from "../http/route-table";
+import { eventBy } from "./deals.service";
 import { reviewStateOf, type ReviewTokens } from "./review-token";
 
 export interface ReviewDeps {
@@ -71,11 +72,7 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
     await updateDeliverableRow(tx, caller.channelId, target.item.id, { status: "sent" });
     await insertEvents(tx, [
       {
-        channelId: caller.channelId,
-        deliverableId: target.item.id,
-        actorId: caller.userId,
-        actorName: caller.name,
-        actorKind: "member",
+        ...eventBy(caller, target.item.id),
         what: "review_sent",
         fromStatus: target.item.status,
         toStatus: "sent",
@@ -134,11 +131,7 @@ export async function revokeLink(db: Database, caller: Caller, dealId: string, l
     if (backTo !== target.item.status) await updateDeliverableRow(tx, caller.channelId, target.item.id, { status: backTo });
     await insertEvents(tx, [
       {
-        channelId: caller.channelId,
-        deliverableId: target.item.id,
-        actorId: caller.userId,
-        actorName: caller.name,
-        actorKind: "member",
+        ...eventBy(caller, target.item.id),
         what: backTo !== target.item.status ? "status" : "note",
         fromStatus: target.item.status,
         toStatus: backTo,
