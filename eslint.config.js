@@ -90,6 +90,12 @@ export default tseslint.config(
       // No module may reach itself again through its imports (type-only imports leave nothing at run time).
       "import-x/no-cycle": ["error", { ignoreExternal: true }],
       "import-x/no-restricted-paths": ["error", { zones: boundaries }],
+      // What runs in production (server/, src/, shared/) imports only dependencies: test oracles such as
+      // smpte-timecode and csv-parse are devDependencies and stay in tests and development services.
+      "import-x/no-extraneous-dependencies": [
+        "error",
+        { devDependencies: ["tests/**", "dev-services/**", "**/*.test.ts", "*.config.{ts,js}", "eslint.config.js"], optionalDependencies: false, peerDependencies: false },
+      ],
     },
   },
   {

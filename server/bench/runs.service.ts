@@ -1,4 +1,4 @@
-import { runsCsv } from "../../shared/bench/comparison";
+import { runsCsv } from "../../shared/bench/runs-csv";
 import type { PartRunView, RunInput, RunPartView, RunView } from "../../shared/bench/schemas";
 import { evaluateRun, isOverRated, type PlanForRuns } from "../../shared/bench/runs";
 import type { Database } from "../db/client";
