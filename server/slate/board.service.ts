@@ -1,5 +1,6 @@
 import { createHash } from "node:crypto";
 import { brotliCompressSync, constants as zlibConstants, gzipSync } from "node:zlib";
+import { LRUCache } from "lru-cache";
 import { calendarDaysBetween, localDate } from "../../shared/slate/dates";
 import { isAtRisk } from "../../shared/slate/flags";
 import type { BoardCard, BoardFilters } from "../../shared/slate/schemas";
@@ -30,26 +31,17 @@ interface Answer {
 }
 
 interface Built {
-  at: number;
   cards: BoardCard[];
   tagsJson: string;
   sponsorOptionsJson: string;
-  /** The answer for each filter combination asked for so far, the most recent last. */
-  answers: Map<string, Answer>;
+  /** The answer for each filter combination asked for so far. */
+  answers: LRUCache<string, Answer>;
 }
 
-const KEEP_MS = 60_000; // names of people and other rows outside the revision may lag this long
-const KEEP_BOARDS = 32;
 const KEEP_FILTERS = 16;
-const built = new Map<string, Built>();
-
-/** Keeps `value` as the most recent entry of `map`, dropping the oldest beyond `limit`. */
-function remember<K, V>(map: Map<K, V>, key: K, value: V, limit: number): V {
-  map.delete(key);
-  map.set(key, value);
-  while (map.size > limit) map.delete(map.keys().next().value!);
-  return value;
-}
+// The 32 boards used last, each for a minute at most: names of people and other rows outside the
+// revision may lag that long.
+const built = new LRUCache<string, Built>({ max: 32, ttl: 60_000 });
 
 const inFlight = new Map<string, Promise<unknown>>();
 
@@ -94,22 +86,27 @@ export async function loadBoard(
   const state = await slateStateOf(db, channelId);
   const withArchived = filters.archived === "1";
   const key = `${channelId}|${state.revision}|${viewer.timeZone}|${today}|${withArchived}`;
-  let entry = built.get(key);
-  if (!entry || Date.now() - entry.at > KEEP_MS) {
-    entry = await shared(`build|${key}`, async () => {
+  const entry =
+    built.get(key) ??
+    (await shared(`build|${key}`, async () => {
       const [cards, sponsorOptions] = await Promise.all([
         buildCards(db, channelId, state.stageLengths, viewer.timeZone, today, withArchived),
         plugs.boardFilters.sponsor ? plugs.boardFilters.sponsor.options(db, channelId) : [],
       ]);
       const tagsJson = JSON.stringify([...new Set(cards.flatMap((c) => c.tags))].sort());
-      return remember(built, key, { at: Date.now(), cards, tagsJson, sponsorOptionsJson: JSON.stringify(sponsorOptions), answers: new Map() }, KEEP_BOARDS);
-    });
-  }
+      const made: Built = { cards, tagsJson, sponsorOptionsJson: JSON.stringify(sponsorOptions), answers: new LRUCache({ max: KEEP_FILTERS }) };
+      built.set(key, made);
+      return made;
+    }));
 
   const filterKey = `${filters.owner ?? ""}|${filters.tag ?? ""}|${filters.risk ?? ""}|${filters.sponsor ?? ""}`;
-  const kept = entry;
-  const answer = kept.answers.get(filterKey) ?? (await shared(`answer|${key}|${filterKey}`, () => answerFor(db, plugs, channelId, kept, filters, { ...viewer, today, revision: state.revision, filterKey })));
-  remember(kept.answers, filterKey, answer, KEEP_FILTERS);
+  const answer =
+    entry.answers.get(filterKey) ??
+    (await shared(`answer|${key}|${filterKey}`, async () => {
+      const made = await answerFor(db, plugs, channelId, entry, filters, { ...viewer, today, revision: state.revision, filterKey });
+      entry.answers.set(filterKey, made);
+      return made;
+    }));
   const { encoding } = options;
   if (!encoding) return { etag: answer.etag, head: answer.head, tail: answer.tail };
   const body = (answer.encoded[encoding] ??= compressors[encoding](Buffer.concat([answer.head, answer.tail])));
