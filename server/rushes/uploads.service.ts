@@ -1,3 +1,4 @@
+import { roleMay } from "../../shared/access/roles";
 import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
 import type { ClipMetadata, UploadView } from "../../shared/rushes/schemas";
 import { AppError, notFound } from "../http/app-error";
@@ -199,10 +200,13 @@ export async function completeUpload(ctx: RushesContext, caller: Caller, uploadI
   });
 }
 
-/** Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. */
+/**
+ * Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. A role
+ * that may not remove footage (crew) cancels only its own uploads.
+ */
 export async function cancelUpload(ctx: RushesContext, caller: Caller, uploadId: string) {
   const row = await openUpload(ctx, caller, uploadId);
-  if (caller.role === "crew" && row.createdBy !== caller.userId) {
+  if (!roleMay(caller.role, "footageRemoval", "W") && row.createdBy !== caller.userId) {
     throw new AppError("forbidden", "Crew can cancel only their own uploads.");
   }
   if (row.status === "completed") throw new AppError("conflict", "This upload is already complete; the clip stays in the footage list.");
