@@ -1,5 +1,6 @@
 import type { Request, RequestHandler } from "express";
 import { roleMay } from "../../shared/access/roles";
+import { isUuid } from "../../shared/http/ids";
 import { channelChildren, channelScope, isChildParam, type ChildParam } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "./app-error";
@@ -37,8 +38,6 @@ export function childParamsOf(spec: RouteSpec): ChildParam[] {
   return names as ChildParam[];
 }
 
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /**
  * Signed out 401; not a member of the route's channel 404; a role without the grant 403; a row the
  * path names that isn't the channel's (or a malformed id) 404 — all from one query.
@@ -52,13 +51,13 @@ function authorise(spec: RouteSpec, db: Database): RequestHandler {
     if (access.kind === "account") return next();
     const channelId = parseId(req.params.channelId, "Channel");
     const named = children.map((param) => ({ param, id: String(req.params[param] ?? "").toLowerCase() }));
-    const wellFormed = named.filter((row) => uuidPattern.test(row.id));
+    const wellFormed = named.filter((row) => isUuid(row.id));
     const scope = await channelScope(db, channelId, req.user.id, wellFormed);
     if (!scope.role) throw new AppError("not_found", "Channel not found.");
     if (!roleMay(scope.role, access.area, access.need)) {
       throw new AppError("forbidden", access.refusal ?? "Your role in this channel does not allow that.");
     }
-    const absent = named.find((row) => !uuidPattern.test(row.id) || scope.missing.includes(row.param));
+    const absent = named.find((row) => !isUuid(row.id) || scope.missing.includes(row.param));
     if (absent) throw notFound(channelChildren[absent.param].what);
     const { id: userId, name, email, timeZone } = req.user;
     req.channelScope = { caller: { userId, name, email, timeZone, channelId, role: scope.role }, ids: Object.fromEntries(named.map((row) => [row.param, row.id])) };

@@ -1,10 +1,9 @@
+import { isUuid } from "../../shared/http/ids";
 import { dateInZone, shiftDate } from "../../shared/sponsors/dates";
 import { DUE_SOON_DAYS, deskGroupOf } from "../../shared/sponsors/deliverables";
 import type { BoardFlag } from "../../shared/slate/flags";
 import type { BoardFilter, BoardFlagSource } from "../seams/board-flags";
 import { datedOpenItems, episodesSponsoredBy, sponsorsWithLiveDeals } from "./board.repository";
-
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * "Sponsor item late" when an open item of a live deal is past its date, "Sponsor item due" when one
@@ -47,6 +46,6 @@ export const sponsorFlagSources: BoardFlagSource[] = [dueAndLate];
 export const sponsorBoardFilter: BoardFilter = {
   options: sponsorsWithLiveDeals,
   async episodeIds(db, channelId, value) {
-    return uuidPattern.test(value) ? episodesSponsoredBy(db, channelId, value) : new Set<string>();
+    return isUuid(value) ? episodesSponsoredBy(db, channelId, value) : new Set<string>();
   },
 };
