@@ -9,6 +9,3 @@ export interface SlatePlugs {
   boardFilters: BoardFilters;
   publishDateFollowers: readonly PublishDateFollower[];
 }
-
-/** A slate with nothing plugged in: what a test or a bench uses when it wants the slate alone. */
-export const noPlugs: SlatePlugs = { stageGates: [], boardFlags: [], boardFilters: { sponsor: null }, publishDateFollowers: [] };
