@@ -25,6 +25,8 @@ export interface RouteSpec {
   access: Access;
   /** Body kind a write route takes; JSON unless it says otherwise. */
   body?: "json" | "multipart" | "none";
+  /** Largest JSON body in bytes; by default 16 kB for public routes and 100 kB for the rest (server/http/json-body.ts). */
+  bodyLimit?: number;
   /** Served without loading the session (health checks must answer while the database is down). */
   sessionless?: true;
   /** Extra middleware that runs after authorisation (e.g. rate limits). */

@@ -2,13 +2,32 @@ import type { z } from "zod";
 import { fieldMessages } from "../../shared/http/errors";
 import { AppError } from "./app-error";
 
-/** PostgreSQL can store no NUL character in text or JSON; find one before it turns into a 500. */
-function pathOfNul(value: unknown, path: string[] = []): string[] | null {
-  if (typeof value === "string") return value.includes("\u0000") ? path : null;
-  if (typeof value !== "object" || value === null) return null;
-  for (const [key, inner] of Object.entries(value)) {
-    const found = pathOfNul(inner, [...path, key]);
-    if (found) return found;
+interface Visit {
+  value: unknown;
+  key: string;
+  parent: Visit | null;
+}
+
+function pathTo(visit: Visit): string[] {
+  const path: string[] = [];
+  for (let at: Visit = visit; at.parent; at = at.parent) path.push(at.key);
+  return path.reverse();
+}
+
+/**
+ * PostgreSQL can store no NUL character in text or JSON; find one before it turns into a 500.
+ * Iterative, and the path is built only for the one string found, so any shape costs one pass.
+ */
+export function pathOfNul(body: unknown): string[] | null {
+  const pending: Visit[] = [{ value: body, key: "", parent: null }];
+  while (pending.length > 0) {
+    const visit = pending.pop()!;
+    const { value } = visit;
+    if (typeof value === "string") {
+      if (value.includes("\u0000")) return pathTo(visit);
+    } else if (typeof value === "object" && value !== null) {
+      for (const [key, inner] of Object.entries(value)) pending.push({ value: inner, key, parent: visit });
+    }
   }
   return null;
 }
