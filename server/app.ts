@@ -77,7 +77,7 @@ export function createApp(deps: AppDeps): Express {
   const routes = apiRoutes(deps);
   const guards = guardsFor(database.db);
   mountRoutes(api, routes.filter((route) => route.sessionless), guards);
-  api.use("/api", sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);
+  api.use("/api", sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection(env.SESSION_SECRET));
   mountRoutes(api, routes.filter((route) => !route.sessionless), guards);
   api.use("/api", apiNotFound);
   app.use(api);

@@ -12,6 +12,7 @@ import { repoRoot, stateDir } from "../paths";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
+import { signInOverHttp, type SignedInClient as Client } from "./sign-in";
 
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
@@ -30,24 +31,6 @@ const WARMUP_SECONDS = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
 const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
-
-interface Client {
-  cookie: string;
-  csrf: string;
-}
-
-async function signIn(appUrl: string, email: string, password: string): Promise<Client> {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  const anonymous = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const { csrfToken } = (await me.json()) as { csrfToken: string };
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
-    method: "POST",
-    headers: { cookie: anonymous, "content-type": "application/json", "x-csrf-token": csrfToken },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!signed.ok) throw new Error(`sign-in failed: ${signed.status}`);
-  return { cookie: (signed.headers.get("set-cookie") ?? "").split(";")[0]!, csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
-}
 
 const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 
@@ -88,7 +71,7 @@ async function main() {
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/health`, 60_000);
 
-  const clients = await Promise.all(people.map((p) => signIn(appUrl, p.email, password)));
+  const clients = await Promise.all(people.map((p) => signInOverHttp(appUrl, p.email, password)));
   const base = `/api/channels/${channelId}`;
   const episodeIds = episodes.rows.map((r) => r.id);
   const reads = [`${base}/episodes`, `${base}/episodes/${episodeIds[0]}`, `${base}/clips?limit=50`, `${base}/desk`];

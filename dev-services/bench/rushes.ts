@@ -15,6 +15,7 @@ import { freePort, stopChild, waitForHttp } from "../processes";
 import { repoRoot, stateDir } from "../paths";
 import { ensureDatabase, startCluster } from "../postgres";
 import { startS3StandIn } from "../s3";
+import { signInOverHttp } from "./sign-in";
 
 /**
  * `npm run bench:rushes`: (a) the footage list over 50,000 seeded clips with a three-field filter,
@@ -51,13 +52,7 @@ async function seedClips(url: string, channelId: string, episodeIds: string[]) {
 }
 
 async function signIn(appUrl: string, person: { email: string; password: string }) {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  let cookie = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const csrf = ((await me.json()) as { csrfToken: string }).csrfToken;
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, { method: "POST", headers: { cookie, "content-type": "application/json", "x-csrf-token": csrf }, body: JSON.stringify({ email: person.email, password: person.password }) });
-  if (!signed.ok) throw new Error(`sign-in: ${signed.status} ${await signed.clone().text()}`);
-  cookie = (signed.headers.get("set-cookie") ?? cookie).split(";")[0]!;
-  const token = ((await signed.json()) as { csrfToken: string }).csrfToken;
+  const { cookie, csrf: token } = await signInOverHttp(appUrl, person.email, person.password);
   return async (method: string, url: string, body?: unknown) => {
     const response = await fetch(`${appUrl}${url}`, {
       method,

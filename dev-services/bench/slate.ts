@@ -13,6 +13,7 @@ import { repoRoot, stateDir } from "../paths";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
+import { signInOverHttp } from "./sign-in";
 
 /**
  * `npm run bench:slate`: a channel with 2,000 episodes and their histories in a throwaway cluster,
@@ -73,19 +74,6 @@ async function seedEpisodes(pool: ReturnType<typeof connectDatabase>["pool"], ch
     [channelId],
   );
   await pool.query("analyze");
-}
-
-async function signIn(appUrl: string, email: string, password: string) {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  const anonymous = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const { csrfToken } = (await me.json()) as { csrfToken: string };
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
-    method: "POST",
-    headers: { cookie: anonymous, "content-type": "application/json", "x-csrf-token": csrfToken },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!signed.ok) throw new Error(`sign-in failed: ${signed.status}`);
-  return { cookie: (signed.headers.get("set-cookie") ?? "").split(";")[0]!, csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
 }
 
 /** One request at a time, `count` times: latency as a client sees it, body read to the end. */
@@ -175,7 +163,7 @@ async function main() {
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
 
-  const owner = await signIn(appUrl, big.owner.email, big.owner.password);
+  const owner = await signInOverHttp(appUrl, big.owner.email, big.owner.password);
   // As a browser asks: with brotli and gzip accepted (the board sends its kept body compressed; the one-row answer is too small to bother).
   const headers = { cookie: owner.cookie, accept: "application/json", "accept-encoding": "gzip, deflate, br" };
   const boardPath = `/api/channels/${big.channel.id}/episodes`;
