@@ -47,5 +47,6 @@ describe("pathOfNul", () => {
   it("when no string holds a NUL, then nothing is found", () => {
     expect(pathOfNul({ a: ["x", { b: "y" }], c: 1, d: null })).toBeNull();
     expect(pathOfNul({ a: ["x", { b: "y\u0000" }] })).toEqual(["a", "1", "b"]);
+    expect(pathOfNul({ first: "a\u0000", second: "b\u0000" })).toEqual(["first"]);
   });
 });

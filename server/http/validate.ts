@@ -26,7 +26,9 @@ export function pathOfNul(body: unknown): string[] | null {
     if (typeof value === "string") {
       if (value.includes("\u0000")) return pathTo(visit);
     } else if (typeof value === "object" && value !== null) {
-      for (const [key, inner] of Object.entries(value)) pending.push({ value: inner, key, parent: visit });
+      // Pushed last to first, so the first field in the body is the one reported.
+      const entries = Object.entries(value);
+      for (let i = entries.length - 1; i >= 0; i--) pending.push({ value: entries[i]![1], key: entries[i]![0], parent: visit });
     }
   }
   return null;

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiRoutes } from "../../server/app";
 import type { RouteSpec } from "../../server/http/route-table";
 import { allRecipes, fillPath, makeAccessWorld } from "../support/access-world";
+import { rowsSnapshot } from "../support/rows-snapshot";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import type { AccessWorld, Recipe } from "./access/matrix";
 
@@ -25,20 +26,7 @@ const tally = { routes: 0, requests: 0, fiveHundreds: 0 };
 
 const routeName = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 
-/** Rows of every table but the session store (sessions roll on each request by design). */
-async function snapshot(): Promise<string> {
-  const tables = await app.database.pool.query<{ table_name: string }>(
-    "select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name <> 'session' order by 1",
-  );
-  const parts: string[] = [];
-  for (const { table_name } of tables.rows) {
-    const result = await app.database.pool.query<{ n: number; sum: string }>(
-      `select count(*)::int as n, coalesce(md5(string_agg(md5(t::text), '' order by md5(t::text))), '') as sum from "${table_name}" t`,
-    );
-    parts.push(`${table_name}:${result.rows[0]!.n}:${result.rows[0]!.sum}`);
-  }
-  return parts.join("\n");
-}
+const snapshot = () => rowsSnapshot(app);
 
 const weirdStrings = fc.oneof(
   fc.string({ maxLength: 40 }),
