@@ -95,7 +95,7 @@ async function sendRaw(agent: Visitor, spec: RouteSpec, path: string, body: stri
 }
 
 beforeAll(async () => {
-  app = await startTestApp({ signInLimits: { perAccount: 10_000, perAddress: 100_000, windowMs: 60_000 } });
+  app = await startTestApp({ signInLimits: { perAccount: 10_000, perAddress: 100_000, signUpsPerAddress: 100_000, windowMs: 60_000 } });
   world = await makeAccessWorld(app);
   recipes = allRecipes(app, world);
   const elsewhere = await makeAccessWorld(app);
