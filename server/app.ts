@@ -15,11 +15,12 @@ import { slateRoutes } from "./slate/slate.router";
 import { benchRoutes } from "./bench/bench.router";
 import { rushesRoutes } from "./rushes/rushes.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
+import { noStoreByDefault } from "./http/cache";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
-import { configurePassport, sessionMiddleware } from "./http/session";
+import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
 
 export interface AppDeps {
   env: Env;
@@ -76,9 +77,12 @@ export function createApp(deps: AppDeps): Express {
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
   const routes = apiRoutes(deps);
   const guards = guardsFor(database.db);
-  mountRoutes(api, routes.filter((route) => route.sessionless), guards);
-  api.use("/api", sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection(env.SESSION_SECRET));
-  mountRoutes(api, routes.filter((route) => !route.sessionless), guards);
+  const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
+  api.use("/api", noStoreByDefault);
+  const sessionWhenReachable = bestEffort(loadSession);
+  mountRoutes(api, routes.filter((route) => route.sessionOptional), (spec) => [sessionWhenReachable, ...guards(spec)]);
+  api.use("/api", ...loadSession, csrfProtection(env.SESSION_SECRET));
+  mountRoutes(api, routes.filter((route) => !route.sessionOptional), guards);
   api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));
