@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { PASSWORD, snap, uniqueEmail } from "./support";
+import { PASSWORD, signUpThroughPage, snap, uniqueEmail } from "./support";
 
 /*
  * Finding: a sign-in link whose `next` named another site ended on the router's error page with a
@@ -7,13 +7,7 @@ import { PASSWORD, snap, uniqueEmail } from "./support";
  */
 test("a sign-in link that names another site leads to Kerf's own pages", async ({ page, baseURL }) => {
   const email = uniqueEmail("next");
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill("Nell Next");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill("Redirect Works");
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await signUpThroughPage(page, { name: "Nell Next", email, channel: "Redirect Works" });
 
   // Signed in already: the sign-in page sends the person on, but never off-site.
   await page.goto(`/sign-in?next=${encodeURIComponent("//evil.example/steal")}`);
