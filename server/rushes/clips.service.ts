@@ -165,10 +165,12 @@ export async function updateMark(ctx: RushesContext, member: MemberContext, clip
   return toMarkView(await repo.updateMark(ctx.db, markId, { ...range, note: input.note ?? mark.note }));
 }
 
+/** Crew log and mark but delete nothing of anyone else's (the role table): a mark of their own they may take back. */
 export async function deleteMark(ctx: RushesContext, member: MemberContext, clipId: string, markId: string): Promise<void> {
   await clipOrNotFound(ctx, member, clipId);
   const mark = await repo.findMark(ctx.db, member.channelId, clipId, markId);
   if (!mark) throw notFound("Mark");
+  if (member.role === "crew" && mark.createdBy !== member.userId) throw new AppError("forbidden", "Crew can delete only the marks they made.");
   await ctx.db.transaction(async (tx) => {
     await repo.deleteMark(tx, markId);
     await repo.refreshMarkCount(tx, clipId);
