@@ -19,6 +19,7 @@ import { noStoreByDefault } from "./http/cache";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
+import { bodyReaders } from "./http/json-body";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
 import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
 
@@ -79,6 +80,7 @@ export function createApp(deps: AppDeps): Express {
   const guards = guardsFor(database.db);
   const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
   api.use("/api", noStoreByDefault);
+  api.use(bodyReaders(routes));
   const sessionWhenReachable = bestEffort(loadSession);
   mountRoutes(api, routes.filter((route) => route.sessionOptional), (spec) => [sessionWhenReachable, ...guards(spec)]);
   api.use("/api", ...loadSession, csrfProtection(env.SESSION_SECRET));

@@ -3,7 +3,6 @@ import { roleMay } from "../../shared/access/roles";
 import type { Database } from "../db/client";
 import { findMembership } from "../channels/channels.repository";
 import { AppError } from "./app-error";
-import { jsonBodyFor } from "./json-body";
 import type { RouteSpec } from "./route-table";
 import { parseId } from "./validate";
 
@@ -45,7 +44,7 @@ function authorise(spec: RouteSpec, db: Database): RequestHandler {
 }
 
 export function guardsFor(db: Database) {
-  return (spec: RouteSpec): RequestHandler[] => [bodyKind(spec), jsonBodyFor(spec), authorise(spec, db)];
+  return (spec: RouteSpec): RequestHandler[] => [bodyKind(spec), authorise(spec, db)];
 }
 
 /** The member context a channel route's handler can rely on (set by `authorise`). */

@@ -1,4 +1,4 @@
-import express, { type RequestHandler } from "express";
+import express, { type RequestHandler, type Router } from "express";
 import { AppError } from "./app-error";
 import type { RouteSpec } from "./route-table";
 
@@ -56,11 +56,19 @@ export function bodyLimitOf(spec: Pick<RouteSpec, "access" | "bodyLimit">): numb
   return spec.bodyLimit ?? (spec.access.kind === "public" ? PUBLIC_BODY_LIMIT : DEFAULT_BODY_LIMIT);
 }
 
-const passThrough: RequestHandler = (_req, _res, next) => next();
+const readsJson = (spec: RouteSpec) => spec.method !== "get" && (spec.body ?? "json") === "json";
 
-/** The JSON body reader of one route: its own size limit, the depth cap, UTF-8 only. Reads and GETs read no body. */
+/** The JSON body reader of one route: its own size limit, the depth cap, UTF-8 only. */
 export function jsonBodyFor(spec: RouteSpec): RequestHandler {
-  const readsJson = spec.method !== "get" && (spec.body ?? "json") === "json";
-  if (!readsJson) return passThrough;
   return express.json({ limit: bodyLimitOf(spec), strict: true, verify: refuseBeforeParsing });
+}
+
+/**
+ * Reads the body of every route that takes JSON, each with its own limit. Mounted before sessions are
+ * loaded, so a body that is too deep, too big or not JSON is refused before any database work.
+ */
+export function bodyReaders(routes: RouteSpec[]): Router {
+  const router = express.Router();
+  for (const spec of routes.filter(readsJson)) router[spec.method](spec.path, jsonBodyFor(spec));
+  return router;
 }
