@@ -3,39 +3,40 @@ import type { Request, Response } from "express";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { deeplyNested } from "../../tests/support/server-timing";
-import { jsonBodyFor, jsonDepth } from "./json-body";
+import { jsonBodyFor, jsonShape } from "./json-body";
 import { publicAccess } from "./route-table";
 import { pathOfNul } from "./validate";
 
 const bytes = (text: string) => new TextEncoder().encode(text);
 
-/** Depth as JSON.parse sees it, counted on the parsed value (the reference the scan must agree with). */
-function parsedDepth(value: unknown): number {
-  if (typeof value !== "object" || value === null) return 0;
-  const inner = Object.values(value).map(parsedDepth);
-  return 1 + Math.max(0, ...inner);
+/** The shape as JSON.parse sees it, counted on the parsed value (the reference the byte scan must agree with). */
+function parsedShape(value: unknown): { depth: number; items: number } {
+  if (typeof value !== "object" || value === null) return { depth: 0, items: 0 };
+  const inner = Object.values(value).map(parsedShape);
+  return { depth: 1 + Math.max(0, ...inner.map((s) => s.depth)), items: Math.max(Object.keys(value).length, ...inner.map((s) => s.items)) };
 }
 
-describe("jsonDepth", () => {
-  it("when JSON texts are generated, then the byte scan agrees with the parsed value's depth", () => {
+describe("jsonShape", () => {
+  it("when JSON texts are generated, then the byte scan agrees with the parsed value's depth and longest list", () => {
     fc.assert(
-      fc.property(fc.jsonValue({ maxDepth: 12 }), (value) => {
-        const text = JSON.stringify(value);
-        expect(jsonDepth(bytes(text))).toBe(parsedDepth(JSON.parse(text)));
+      fc.property(fc.jsonValue({ maxDepth: 12 }), fc.boolean(), (value, spaced) => {
+        const text = JSON.stringify(value, null, spaced ? 2 : undefined);
+        expect(jsonShape(bytes(text))).toEqual(parsedShape(JSON.parse(text)));
       }),
       { numRuns: 500 },
     );
   });
 
-  it("when brackets, quotes and backslashes sit inside strings, then they are not counted", () => {
-    expect(jsonDepth(bytes(JSON.stringify({ a: '[[{{"\\\\"]]}}', b: ["\\", '"['] })))).toBe(2);
-    expect(jsonDepth(bytes(JSON.stringify("[[[[")))).toBe(0);
-    expect(jsonDepth(bytes(JSON.stringify({ "k[[": "é☃👩🏽‍🔧[[" })))).toBe(1);
+  it("when brackets, commas, quotes and backslashes sit inside strings, then they are not counted", () => {
+    expect(jsonShape(bytes(JSON.stringify({ a: '[[{{"\\"]]},,,}', b: ["\\", '"[,'] })))).toEqual({ depth: 2, items: 2 });
+    expect(jsonShape(bytes(JSON.stringify("[[[[,,,")))).toEqual({ depth: 0, items: 0 });
+    expect(jsonShape(bytes(JSON.stringify({ "k[[,": "é☃👩🏽‍🔧[[," })))).toEqual({ depth: 1, items: 1 });
+    expect(jsonShape(bytes("[ [ ] , { } ]"))).toEqual({ depth: 2, items: 2 });
   });
 
-  it("when a text is far deeper than the cap, then the scan stops just past it", () => {
-    const deep = bytes("[".repeat(1_000_000));
-    expect(jsonDepth(deep, 32)).toBe(33);
+  it("when a text is far deeper or longer than the limits, then the scan stops just past them", () => {
+    expect(jsonShape(bytes("[".repeat(1_000_000)), { depth: 32, items: 1000 }).depth).toBe(33);
+    expect(jsonShape(bytes(`[${"0,".repeat(1_000_000)}0]`), { depth: 32, items: 1000 }).items).toBe(1001);
   });
 });
 

@@ -1,4 +1,5 @@
-import type { IncomingMessage, Server, ServerResponse } from "node:http";
+import http, { type IncomingMessage, type Server, type ServerResponse } from "node:http";
+import type { AddressInfo } from "node:net";
 
 export interface Timing {
   /** The request's `x-timing-label` header: lets a test pick out the requests it means. */
@@ -46,3 +47,37 @@ export function timeRequests(server: Server) {
 
 /** A JSON text nested `depth` arrays deep at one key: `{"<key>":[[[…]]]}`. */
 export const deeplyNested = (depth: number, key = "name") => `{"${key}":${"[".repeat(depth)}${"]".repeat(depth)}}`;
+
+/**
+ * The CPU time this process spends per call, over `times` calls in a row (after a few to warm the
+ * code up): the server's cost of a request plus the test client's, which bounds the server's from
+ * above. CPU time, unlike the clock, doesn't grow while the machine gives the process no turn, so
+ * the figure holds on a busy machine too.
+ */
+export async function cpuMsPerCall(times: number, call: () => Promise<unknown>, warmUps = 10): Promise<number> {
+  for (let i = 0; i < warmUps; i++) await call();
+  const start = process.cpuUsage();
+  for (let i = 0; i < times; i++) await call();
+  const used = process.cpuUsage(start);
+  return (used.user + used.system) / 1000 / times;
+}
+
+/** A plain HTTP client on one kept-alive connection: as little client work per request as Node allows. */
+export function plainClient(server: Server) {
+  const agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
+  const { port } = server.address() as AddressInfo;
+  return {
+    send(method: string, path: string, body: string, headers: Record<string, string> = {}): Promise<{ status: number; text: string }> {
+      return new Promise((resolve, reject) => {
+        const req = http.request({ host: "127.0.0.1", port, method, path, agent, headers: { "content-type": "application/json", ...headers } }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on("data", (chunk: Buffer) => chunks.push(chunk));
+          res.on("end", () => resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString() }));
+        });
+        req.on("error", reject);
+        req.end(body);
+      });
+    },
+    close: () => agent.destroy(),
+  };
+}
