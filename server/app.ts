@@ -79,6 +79,8 @@ export function createApp(deps: AppDeps): Express {
   const routes = apiRoutes(deps);
   const guards = guardsFor(database.db);
   const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
+  // In this order: no answer is cached; bodies are read, and bad ones refused, before any session or
+  // database work; the health check answers whether or not sessions can be read; then the rest.
   api.use("/api", noStoreByDefault);
   api.use(bodyReaders(routes));
   const sessionWhenReachable = bestEffort(loadSession);

@@ -5,14 +5,14 @@ import type { Storage } from "../storage/storage";
 import { publicAccess, type RouteSpec } from "../http/route-table";
 
 /** How long a service found up is believed up before it is checked again. */
-export const HEALTH_KEPT_MS = 5_000;
+const HEALTH_KEPT_MS = 5_000;
 
 /**
  * A check that never runs twice at once (callers arriving meanwhile share the one running) and, once
  * it finds the service up, is believed for `keptMs`. A service found down is checked again on the
  * next call, so its return shows at once.
  */
-export function sharedCheck(check: () => Promise<boolean>, keptMs: number): () => Promise<boolean> {
+function sharedCheck(check: () => Promise<boolean>, keptMs: number): () => Promise<boolean> {
   let running: Promise<boolean> | null = null;
   let upUntil = 0;
   return () => {
