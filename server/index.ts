@@ -22,7 +22,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
   await scheduleSponsorJobs(jobs.boss, { db: database.db, pool: database.pool, jobs, appUrl: env.APP_URL });
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
-  const app = createApp({ env, database, mailer, jobs, storage, signInLimits });
+  const app = createApp({ env, database, mailer, jobs, storage }, { signInLimits });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
   });

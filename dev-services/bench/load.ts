@@ -9,11 +9,11 @@ import { addMember, createUser } from "../../tests/factories/accounts";
 import { DEMO_CHANNEL, seedDemo } from "../demo/channel";
 import { startMailCatcher } from "../mail";
 import { repoRoot, stateDir } from "../paths";
+import { percentile, signIn, type SignedIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
 import { deeplyNested } from "../../tests/support/server-timing";
-import { signInOverHttp, type SignedInClient as Client } from "./sign-in";
 
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
@@ -38,8 +38,6 @@ const ATTACK_DEPTH = 6000;
 const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 
 async function main() {
   rmSync(work, { recursive: true, force: true });
@@ -78,11 +76,11 @@ async function main() {
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/health`, 60_000);
 
-  const clients = await Promise.all(people.map((p) => signInOverHttp(appUrl, p.email, password)));
+  const clients = await Promise.all(people.map((p) => signIn(appUrl, { email: p.email, password })));
   const base = `/api/channels/${channelId}`;
   const episodeIds = episodes.rows.map((r) => r.id);
   const reads = [`${base}/episodes`, `${base}/episodes/${episodeIds[0]}`, `${base}/clips?limit=50`, `${base}/desk`];
-  const requestsFor = (client: Client, index: number) => {
+  const requestsFor = (client: SignedIn, index: number) => {
     // As a browser asks: compressed answers accepted.
     const headers = { cookie: client.cookie, accept: "application/json", "accept-encoding": "gzip, deflate, br" };
     const sequence: autocannon.Request[] = Array.from({ length: 9 }, (_, i) => ({ method: "GET", path: reads[i % reads.length]!, headers }));
@@ -173,7 +171,7 @@ machine: ${os.cpus().length} CPUs, load average ${figures.load_average_1min}`);
   console.log(JSON.stringify(figures));
 }
 
-type RequestsFor = (client: Client, index: number) => autocannon.Request[];
+type RequestsFor = (client: SignedIn, index: number) => autocannon.Request[];
 
 interface Run {
   requests: number;
@@ -225,7 +223,7 @@ function attackSummary(runs: AttackRun[], seconds: number) {
  * second back to back when the second starts (here: a page's few requests at once, as a browser does),
  * so the clients start spread across one second, or all fifty would send on the same tick.
  */
-async function drivePaced(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number; rate: number }): Promise<Run> {
+async function drivePaced(appUrl: string, clients: SignedIn[], requestsFor: RequestsFor, options: { seconds: number; rate: number }): Promise<Run> {
   const latencies: number[] = [];
   const results = await Promise.all(
     clients.map(async (client, index) => {
@@ -239,7 +237,7 @@ async function drivePaced(appUrl: string, clients: Client[], requestsFor: Reques
 }
 
 /** Flat out: every client sends its next request as soon as the last is answered. */
-async function driveFlatOut(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number }): Promise<Run> {
+async function driveFlatOut(appUrl: string, clients: SignedIn[], requestsFor: RequestsFor, options: { seconds: number }): Promise<Run> {
   const latencies: number[] = [];
   let nextClient = 0;
   const result = await oneRun(

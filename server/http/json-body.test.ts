@@ -2,12 +2,13 @@ import { Readable } from "node:stream";
 import type { Request, Response } from "express";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { deeplyNested } from "../../tests/support/server-timing";
 import { jsonBodyFor, jsonShape } from "./json-body";
 import { publicAccess } from "./route-table";
 import { pathOfNul } from "./validate";
 
 const bytes = (text: string) => new TextEncoder().encode(text);
+/** `{"name":[[[…]]]}`, `depth` arrays deep (the server's tests may not import the API tests' helpers). */
+const deeplyNested = (depth: number) => `{"name":${"[".repeat(depth)}${"]".repeat(depth)}}`;
 
 /** The shape as JSON.parse sees it, counted on the parsed value (the reference the byte scan must agree with). */
 function parsedShape(value: unknown): { depth: number; items: number } {

@@ -1,5 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from "express";
 import type { Area, Need, Role } from "../../shared/access/roles";
+import type { ChildParam } from "../db/channel-scope";
 
 /**
  * Who may call a route, stated beside it:
@@ -8,11 +9,12 @@ import type { Area, Need, Role } from "../../shared/access/roles";
  * - channel: a member of the route's :channelId whose role has `need` on `area`
  *   (the spec's role table, shared/access/roles.ts). A non-member gets 404, as if the channel did not exist.
  */
-export type Access = { kind: "public" } | { kind: "account" } | { kind: "channel"; area: Area; need: Need };
+export type Access = { kind: "public" } | { kind: "account" } | { kind: "channel"; area: Area; need: Need; refusal?: string };
 
 export const publicAccess: Access = { kind: "public" };
 export const anyAccount: Access = { kind: "account" };
-export const channelAccess = (area: Area, need: Need): Access => ({ kind: "channel", area, need });
+/** `refusal` is the 403's message where a plainer one than "your role does not allow that" helps. */
+export const channelAccess = (area: Area, need: Need, refusal?: string): Access => ({ kind: "channel", area, need, refusal });
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -28,6 +30,11 @@ export interface RouteSpec {
   /** Largest JSON body in bytes; by default 16 kB for public routes and 100 kB for the rest (server/http/json-body.ts). */
   bodyLimit?: number;
   /**
+   * Path parameters of a channel route that are values, not rows (a part number, a stage): the guard
+   * checks every other `:param` as a row of the route's channel (server/db/channel-scope.ts).
+   */
+  valueParams?: string[];
+  /**
    * Answered even while the session store (the database) is down: the session is read when it can be
    * and the caller treated as signed out when it can't (health checks).
    */
@@ -37,8 +44,12 @@ export interface RouteSpec {
   handler: Handler;
 }
 
-export interface MemberContext {
+/** Who is calling a channel route: the signed-in person and their role in the route's channel. */
+export interface Caller {
   userId: string;
+  name: string;
+  email: string;
+  timeZone: string;
   channelId: string;
   role: Role;
 }
@@ -53,7 +64,8 @@ declare global {
       timeZone: string;
     }
     interface Request {
-      member?: MemberContext;
+      /** Set by the guard of a channel route: the caller and the path's ids, each checked to be the channel's. */
+      channelScope?: { caller: Caller; ids: Partial<Record<ChildParam, string>> };
     }
   }
 }

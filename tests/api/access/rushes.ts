@@ -7,7 +7,8 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
 /*
  * The spec's role table, by hand:
  * - footage (upload, log, marks, export): owner, producer, editor W; crew W for upload and log,
- *   but no delete (of a mark only their own: the matrix's mark is someone else's);
+ *   but no delete (the role table's "footageRemoval" area: deleting a clip; of the marks only their
+ *   own, and the matrix's mark is someone else's);
  * - shoot days and the shot list: all four W.
  * "outsider" is the owner of another channel: 404, never 403.
  * The two photo routes take multipart forms; the matrix sends none, so a caller let through meets

@@ -1,5 +1,8 @@
+/** What the benchmarks share: the p-th percentile of sorted timings, and a signed-in client of a running Kerf. */
+export const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
+
 /** A signed-in client as the benchmarks drive it: the cookies to send back and the CSRF token for writes. */
-export interface SignedInClient {
+export interface SignedIn {
   cookie: string;
   csrf: string;
 }
@@ -15,8 +18,11 @@ function keepCookies(jar: Map<string, string>, response: Response): void {
 
 const cookieHeader = (jar: Map<string, string>) => [...jar].map(([name, value]) => `${name}=${value}`).join("; ");
 
-/** Signs in over HTTP as the client does: asks who it is (a CSRF cookie and token), then signs in. */
-export async function signInOverHttp(appUrl: string, email: string, password: string): Promise<SignedInClient> {
+/**
+ * Signs in as a browser does: a first visit for the CSRF cookie and token, then the sign-in; every
+ * cookie the answers set (the CSRF token's and the session's) is sent back.
+ */
+export async function signIn(appUrl: string, person: { email: string; password: string }): Promise<SignedIn> {
   const jar = new Map<string, string>();
   const me = await fetch(`${appUrl}/api/auth/me`);
   keepCookies(jar, me);
@@ -24,7 +30,7 @@ export async function signInOverHttp(appUrl: string, email: string, password: st
   const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
     method: "POST",
     headers: { cookie: cookieHeader(jar), "content-type": "application/json", "x-csrf-token": csrfToken },
-    body: JSON.stringify({ email, password }),
+    body: JSON.stringify({ email: person.email, password: person.password }),
   });
   if (!signed.ok) throw new Error(`sign-in failed: ${signed.status} ${await signed.clone().text()}`);
   keepCookies(jar, signed);
