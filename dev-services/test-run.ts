@@ -137,6 +137,8 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       DATABASE_URL: databaseUrl,
       SESSION_SECRET: "browser-test-secret-browser-test-secret",
       SMTP_PORT: String(mail.smtpPort),
+      // Every browser test signs its people up from this one address.
+      SIGN_UPS_PER_ADDRESS: "1000",
       ...s3.env,
       ...payments.env,
     },

@@ -9,11 +9,13 @@ import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
 import { healthRoutes } from "./health/health.router";
+import { noStoreByDefault } from "./http/cache";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
+import { bodyReaders } from "./http/json-body";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
-import { configurePassport, sessionMiddleware } from "./http/session";
+import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { SlatePlugs } from "./seams/slate-plugs";
@@ -84,9 +86,15 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
   const routes = apiRoutes(deps, options);
   const guards = guardsFor(database.db);
-  mountRoutes(api, routes.filter((route) => route.sessionless), guards);
-  api.use("/api", express.json({ limit: "100kb", strict: true }), sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);
-  mountRoutes(api, routes.filter((route) => !route.sessionless), guards);
+  const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
+  // In this order: no answer is cached; bodies are read, and bad ones refused, before any session or
+  // database work; the health check answers whether or not sessions can be read; then the rest.
+  api.use("/api", noStoreByDefault);
+  api.use(bodyReaders(routes));
+  const sessionWhenReachable = bestEffort(loadSession);
+  mountRoutes(api, routes.filter((route) => route.sessionOptional), (spec) => [sessionWhenReachable, ...guards(spec)]);
+  api.use("/api", ...loadSession, csrfProtection(env.SESSION_SECRET));
+  mountRoutes(api, routes.filter((route) => !route.sessionOptional), guards);
   api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));

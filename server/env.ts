@@ -17,6 +17,8 @@ const envSchema = z.object({
   /** Set when the app sits behind a TLS-terminating proxy: cookies become Secure. */
   TRUST_PROXY: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
   CLIENT_DIST: z.string().default("dist/client"),
+  /** Sign-ups allowed from one address in 15 minutes: raise it where many people share one address. */
+  SIGN_UPS_PER_ADDRESS: z.coerce.number().int().min(1).default(10),
   // Object storage for footage: any S3-compatible store. The defaults are the local stand-in of
   // dev-services/s3.ts (s3rver's fixed development key pair), never a real account.
   S3_ENDPOINT: z

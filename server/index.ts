@@ -1,5 +1,6 @@
 import type { Server } from "node:http";
 import { createApp } from "./app";
+import { defaultSignInLimits } from "./auth/rate-limits";
 import { connectDatabase } from "./db/client";
 import { readEnv, type Env } from "./env";
 import { startJobs } from "./jobs/queue";
@@ -20,7 +21,8 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const storage = createS3Storage(storageSettingsFrom(env));
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
   await scheduleSponsorJobs(jobs.boss, { db: database.db, pool: database.pool, jobs, appUrl: env.APP_URL });
-  const app = createApp({ env, database, mailer, jobs, storage });
+  const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
+  const app = createApp({ env, database, mailer, jobs, storage }, { signInLimits });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
   });

@@ -4,7 +4,7 @@ import { AppError } from "../http/app-error";
 import { anyAccount, publicAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import { checkCredentials, describeMe, endSession, signUp, startSession } from "./auth.service";
-import { signInRateLimits, type SignInLimits } from "./rate-limits";
+import { signInRateLimits, signUpRateLimit, type SignInLimits } from "./rate-limits";
 
 export function authRoutes(db: Database, limits: SignInLimits): RouteSpec[] {
   return [
@@ -31,6 +31,7 @@ export function authRoutes(db: Database, limits: SignInLimits): RouteSpec[] {
       method: "post",
       path: "/api/auth/sign-up",
       access: publicAccess,
+      before: [signUpRateLimit(limits)],
       handler: async (req, res) => {
         const input = parseBody(signUpSchema, req.body);
         const user = await signUp(db, input);

@@ -4,6 +4,7 @@ import type { Database } from "../db/client";
 import { insertChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
 import { AppError } from "../http/app-error";
 import { csrfTokenFor } from "../http/csrf";
+import { SESSION_COOKIE } from "../http/session";
 import { decoyHash, hashPassword, passwordMatches } from "./password";
 import { findUserWithHashByEmail, insertUser } from "./users.repository";
 
@@ -27,8 +28,14 @@ export function startSession(req: Request, user: Express.User): Promise<void> {
   return new Promise((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())));
 }
 
-export function endSession(req: Request): Promise<void> {
-  return new Promise((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+/**
+ * passport's logout clears the user and regenerates the session; the fresh, empty session it leaves
+ * would then be stored for fourteen days. A signed-out visitor keeps nothing: it goes too.
+ */
+export async function endSession(req: Request): Promise<void> {
+  await new Promise<void>((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+  await new Promise<void>((resolve, reject) => req.session.destroy((error) => (error ? reject(error) : resolve())));
+  req.res?.clearCookie(SESSION_COOKIE, { path: "/" });
 }
 
 export async function describeMe(db: Database, req: Request): Promise<Me> {

@@ -41,6 +41,8 @@ export interface TestAppOptions {
   smtpPort?: number;
   /** A storage stand-in of the test's own (e.g. one it stops and starts). */
   s3?: { endpoint: string; bucket: string; accessKeyId: string; secretAccessKey: string };
+  /** Behind a proxy: the caller's address is read from X-Forwarded-For, so a test can call from several. */
+  trustProxy?: boolean;
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
@@ -55,6 +57,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     S3_BUCKET: (options.s3 ?? testEnv.s3).bucket,
     S3_ACCESS_KEY_ID: (options.s3 ?? testEnv.s3).accessKeyId,
     S3_SECRET_ACCESS_KEY: (options.s3 ?? testEnv.s3).secretAccessKey,
+    TRUST_PROXY: options.trustProxy ? "true" : "false",
   });
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: database.url, mailer, runWorkers: true, pollSeconds: 0.5 });
@@ -62,7 +65,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
   // A test may wrap the real store (e.g. to take it down mid-request).
   const storage = options.storage ? options.storage(realStorage) : realStorage;
   const deps: AppDeps = { env, database, mailer, jobs, storage };
-  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } });
+  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, signUpsPerAddress: 1000, windowMs: 60_000 } });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });
