@@ -9,13 +9,20 @@ import type { Mailer } from "./mail/mailer";
 import type { Storage } from "./storage/storage";
 import { authRoutes } from "./auth/auth.router";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
+import { verificationRoutes } from "./auth/verification.router";
 import { channelRoutes } from "./channels/channels.router";
 import { healthRoutes } from "./health/health.router";
 import { slateRoutes } from "./slate/slate.router";
 import { benchRoutes } from "./bench/bench.router";
 import { rushesRoutes } from "./rushes/rushes.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
+import { verificationMailRenderer } from "./auth/verification.service";
+import { invitationMailRenderer } from "./channels/invitations.service";
 import { csrfProtection } from "./http/csrf";
+import type { MailRenderers } from "./mail/mail-jobs";
+import { memberMailRenderer } from "./mail/member-mail";
+import { reviewLinkMailRenderer } from "./sponsors/review.service";
+import { reviewTokens } from "./sponsors/review-token";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
@@ -31,13 +38,30 @@ export interface AppDeps {
   signInLimits?: SignInLimits;
 }
 
+/**
+ * What builds each kind of queued mail when it is sent (server/mail/mail-jobs.ts). Every instance that
+ * runs the mail worker passes these to `jobs.startMailWorker`.
+ */
+export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRenderers {
+  const db = deps.database.db;
+  const appUrl = deps.env.APP_URL;
+  return {
+    ...memberMailRenderer(db),
+    ...verificationMailRenderer({ db, appUrl }),
+    ...invitationMailRenderer({ db, appUrl }),
+    ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
+  };
+}
+
 /** Every API route with who may call it: the one table the authorisation tests read. */
 export function apiRoutes(deps: AppDeps): RouteSpec[] {
   const db = deps.database.db;
+  const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
-    ...authRoutes(db, deps.signInLimits ?? defaultSignInLimits),
-    ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
+    ...authRoutes(mailing, deps.signInLimits ?? defaultSignInLimits),
+    ...verificationRoutes(mailing),
+    ...channelRoutes(mailing),
     ...slateRoutes(deps),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),

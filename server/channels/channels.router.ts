@@ -8,7 +8,6 @@ import { anyAccount, channelAccess, publicAccess, type RouteSpec } from "../http
 import { parseBody, parseId } from "../http/validate";
 import {
   changeMembershipKeepingAnOwner,
-  findChannelName,
   insertChannelWithOwner,
   listMembers,
   listOpenInvitations,
@@ -53,9 +52,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
         const input = parseBody(inviteSchema, req.body);
-        const { channelId } = memberOf(req);
-        const channelName = (await findChannelName(db, channelId)) ?? "your channel";
-        const sent = await inviteMember(deps, { ...input, channelId, channelName, invitedBy: signedInUser(req) });
+        const sent = await inviteMember(deps, { ...input, channelId: memberOf(req).channelId, invitedBy: signedInUser(req) });
         res.status(201).json({ id: sent.id, email: input.email, role: input.role, expiresAt: sent.expiresAt.toISOString() });
       },
     },

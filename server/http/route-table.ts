@@ -46,6 +46,7 @@ declare global {
       email: string;
       name: string;
       timeZone: string;
+      emailVerified: boolean;
     }
     interface Request {
       member?: MemberContext;

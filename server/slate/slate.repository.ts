@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { defaultStageLengths, type StageLengths } from "../../shared/slate/schedule";
 import type { Database } from "../db/client";
 import { memberships, users } from "../db/schema/accounts";
@@ -42,16 +42,6 @@ export async function isMember(db: Database, channelId: string, userId: string):
     .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
     .limit(1);
   return rows.length > 0;
-}
-
-/** Addresses of the people a comment mentions, limited to members of the channel. */
-export async function memberAddresses(db: Database, channelId: string, userIds: string[]) {
-  if (userIds.length === 0) return [];
-  return db
-    .select({ id: users.id, name: users.name, email: users.email })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.channelId, channelId), inArray(users.id, userIds)));
 }
 
 export async function commentsOf(db: Database, channelId: string, episodeId: string) {

@@ -30,7 +30,7 @@ function boardFilters(query: Record<string, unknown>) {
 /** The board, the episode page and its schedule, history and comments. */
 export function slateRoutes(deps: AppDeps): RouteSpec[] {
   const db = deps.database.db;
-  const commentDeps = { db, appUrl: deps.env.APP_URL, enqueueMail: deps.jobs.enqueueMail.bind(deps.jobs) };
+  const commentDeps = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
   const episodeIdOf = (req: Parameters<RouteSpec["handler"]>[0]) => parseId(req.params.episodeId, "Episode");
   return [
     {

@@ -25,7 +25,7 @@ import { catchUpPublishDates } from "./schedule.service";
 export function viewerOf(req: Request): Viewer {
   const member = memberOf(req);
   const user = signedInUser(req);
-  return { channelId: member.channelId, userId: user.id, name: user.name, role: member.role, timeZone: user.timeZone };
+  return { channelId: member.channelId, userId: user.id, name: user.name, email: user.email, emailVerified: user.emailVerified, role: member.role, timeZone: user.timeZone };
 }
 
 const base = "/api/channels/:channelId";

@@ -33,6 +33,8 @@ export interface Viewer {
   channelId: string;
   userId: string;
   name: string;
+  email: string;
+  emailVerified: boolean;
   role: Role;
   timeZone: string;
 }

@@ -1,6 +1,4 @@
 import { and, eq, isNull, ne, notInArray, sql } from "drizzle-orm";
-import { drizzle } from "drizzle-orm/node-postgres";
-import type pg from "pg";
 import type PgBoss from "pg-boss";
 import { dateInZone, daysBetween } from "../../shared/sponsors/dates";
 import { isMoneyKind, reminderFor } from "../../shared/sponsors/deliverables";
@@ -8,8 +6,10 @@ import type { Database } from "../db/client";
 import { memberships, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverableEvents, deliverables, remindersSent, sponsorSettings, sponsors } from "../db/schema/sponsors";
+import { inTransaction } from "../db/transaction";
+import { eachItem, mergeTallies, type ItemTally } from "../jobs/each-item";
 import type { Jobs } from "../jobs/queue";
-import type { OutgoingMail } from "../mail/mailer";
+import { memberMail } from "../mail/member-mail";
 import { seesFees } from "./deals.service";
 import { catchUpPublishDates } from "./schedule.service";
 import { DEFAULT_REMINDER_DAYS_BEFORE } from "./sponsors.repository";
@@ -26,7 +26,6 @@ export const REMINDER_CRON = "*/10 * * * *";
 
 export interface ReminderDeps {
   db: Database;
-  pool: pg.Pool;
   jobs: Pick<Jobs, "enqueueMail">;
   appUrl: string;
 }
@@ -44,6 +43,7 @@ async function candidates(db: Database) {
       episodeId: deals.episodeId,
       episodeTitle: episodes.title,
       company: sponsors.company,
+      ownerId: users.id,
       ownerEmail: users.email,
       ownerName: users.name,
       ownerTimeZone: users.timeZone,
@@ -70,12 +70,15 @@ async function candidates(db: Database) {
 
 type Candidate = Awaited<ReturnType<typeof candidates>>[number];
 
-function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string): OutgoingMail {
+/** To the item's owner, if they may still see the item (money items: the fees) when the mail goes out. */
+function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string) {
   const due = item.dueDate!;
   const days = daysBetween(today, due);
   const when = kind === "late" ? `was due on ${due} and is ${-days} day${days === -1 ? "" : "s"} late` : days === 0 ? `is due today (${due})` : `is due in ${days} day${days === 1 ? "" : "s"}, on ${due}`;
-  return {
-    to: item.ownerEmail,
+  return memberMail({
+    channelId: item.channelId,
+    userId: item.ownerId,
+    needs: isMoneyKind(item.kind) ? { area: "fees", need: "R" } : { area: "deliverables", need: "R" },
     subject: kind === "late" ? `Late: ${item.title} (${item.company})` : `Due soon: ${item.title} (${item.company})`,
     text: [
       `Hello ${item.ownerName},`,
@@ -87,25 +90,20 @@ function reminderMail(item: Candidate, kind: "before" | "late", today: string, a
       "",
       "You get this because you own the item. It is sent once per due date.",
     ].join("\n"),
-  };
+  });
 }
 
 /** Records one reminder and queues its mail in one transaction; false when another scan already sent it. */
 async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "late", today: string): Promise<boolean> {
-  const client = await deps.pool.connect();
-  try {
-    await client.query("begin");
-    const tx = drizzle(client);
+  const mail = reminderMail(item, kind, today, deps.appUrl);
+  return inTransaction(deps.db, async (tx, sql) => {
     const inserted = await tx
       .insert(remindersSent)
       .values({ deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail })
       .onConflictDoNothing()
       .returning({ id: remindersSent.deliverableId });
-    if (inserted.length === 0) {
-      await client.query("rollback");
-      return false;
-    }
-    await deps.jobs.enqueueMail(reminderMail(item, kind, today, deps.appUrl), { db: { executeSql: (text, values) => client.query(text, values) } });
+    if (inserted.length === 0) return false;
+    await deps.jobs.enqueueMail(mail, { db: sql });
     await tx.insert(deliverableEvents).values({
       channelId: item.channelId,
       deliverableId: item.id,
@@ -114,34 +112,32 @@ async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "l
       what: "reminder",
       note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
     });
-    await client.query("commit");
     return true;
-  } catch (error) {
-    await client.query("rollback").catch(() => undefined);
-    throw error;
-  } finally {
-    client.release();
-  }
+  });
 }
 
-/** One pass over every open item of every channel; answers how many reminders this pass queued. */
-export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<{ sent: number }> {
-  await catchUpPublishDates(deps.db, null);
+export type ScanResult = { sent: number } & ItemTally;
+
+/**
+ * One pass over every open item of every channel. An item (or an episode's catch-up) that fails is
+ * logged and counted, and the pass goes on: one channel's broken row never stops another's reminders.
+ */
+export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<ScanResult> {
+  const caughtUp = await catchUpPublishDates(deps.db, null);
   let sent = 0;
-  for (const item of await candidates(deps.db)) {
-    if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) continue;
+  const scanned = await eachItem("reminders", await candidates(deps.db), (item) => `item ${item.id} of channel ${item.channelId}`, async (item) => {
+    if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) return;
     const today = dateInZone(now, item.ownerTimeZone);
     const kind = reminderFor(item, today, item.daysBefore ?? DEFAULT_REMINDER_DAYS_BEFORE);
     if (kind && (await sendOnce(deps, item, kind, today))) sent++;
-  }
-  return { sent };
+  });
+  return { sent, ...mergeTallies(caughtUp, scanned) };
 }
 
 /** Puts the scan on pg-boss's clock. Every instance may call this; pg-boss hands each tick to one worker. */
 export async function scheduleSponsorJobs(boss: PgBoss, deps: ReminderDeps, options: { cron?: string; pollSeconds?: number } = {}): Promise<void> {
   await boss.createQueue(REMINDER_QUEUE);
   await boss.schedule(REMINDER_QUEUE, options.cron ?? REMINDER_CRON);
-  await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 5, batchSize: 1 }, async () => {
-    await scanReminders(deps);
-  });
+  // The scan's tally (sent, failed, which items) becomes the job's output, where an operator can read it.
+  await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 5, batchSize: 1 }, () => scanReminders(deps));
 }

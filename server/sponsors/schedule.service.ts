@@ -3,6 +3,7 @@ import { followedDueDates } from "../../shared/sponsors/deliverables";
 import { deals, deliverables } from "../db/schema/sponsors";
 import { episodes } from "../db/schema/slate";
 import { users } from "../db/schema/accounts";
+import { eachItem, type ItemTally } from "../jobs/each-item";
 import { dealsBehindPublishDate, insertEvents, type Db, type NewEvent } from "./deals.repository";
 
 /** Who made a change, as the item's history shows it. */
@@ -77,12 +78,11 @@ async function memberActor(db: Db, userId: string): Promise<Actor> {
  * A safety net for a publish date changed without the call above (a script, another tool): before the
  * desk, a deal or the reminder scan is read, deals dated from an old publish date catch up.
  */
-export async function catchUpPublishDates(db: Db, channelId: string | null): Promise<void> {
+export async function catchUpPublishDates(db: Db, channelId: string | null): Promise<ItemTally> {
   const behind = await dealsBehindPublishDate(db, channelId);
-  const seen = new Set<string>();
-  for (const row of behind) {
-    if (seen.has(row.episodeId)) continue;
-    seen.add(row.episodeId);
-    await followPublishDate(db, { channelId: row.channelId, episodeId: row.episodeId });
-  }
+  const episodes = new Map(behind.map((row) => [row.episodeId, row.channelId]));
+  // Each episode moves in its own transaction: one that fails stays behind, logged, and the others move.
+  return eachItem("publish-date catch-up", episodes, ([episodeId, inChannel]) => `episode ${episodeId} of channel ${inChannel}`, async ([episodeId, inChannel]) => {
+    await followPublishDate(db, { channelId: inChannel, episodeId });
+  });
 }

@@ -64,7 +64,7 @@ export function sponsorsRoutes(deps: AppDeps): RouteSpec[] {
     appUrl: deps.env.APP_URL,
     tokens: reviewTokens(deps.env.SESSION_SECRET),
     storage: deps.storage ?? null,
-    enqueueMail: (mail: Parameters<AppDeps["jobs"]["enqueueMail"]>[0]) => deps.jobs.enqueueMail(mail),
+    jobs: deps.jobs,
   };
   return [
     {

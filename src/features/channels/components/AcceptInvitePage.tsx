@@ -23,6 +23,7 @@ const closedText: Record<Exclude<InvitationPreview["state"], "open">, string> = 
   accepted: "This invitation has already been used.",
   expired: "This invitation has expired.",
   revoked: "This invitation was withdrawn.",
+  closed: "This invitation is closed: its addressee has already joined the channel.",
 };
 
 export function AcceptInvitePage() {
