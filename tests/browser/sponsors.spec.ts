@@ -5,7 +5,7 @@ import { hostWithEpisode, latestMailTo, PASSWORD, snap, sql, uniqueEmail } from 
 /** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
 async function member(channelId: string, name: string, role: "producer" | "editor") {
   const email = uniqueEmail(role);
-  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, name, await hashPassword(PASSWORD)]);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await hashPassword(PASSWORD)]);
   await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
   return { email, name };
 }
