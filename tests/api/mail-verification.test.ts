@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { confirmDemoAddresses, DEMO_PASSWORD, demoAccounts, seedDemo } from "../../dev-services/demo/channel";
 import { createChannel, createUser } from "../factories/accounts";
 import { sha256Hex, uniqueEmail } from "../factories/invitations";
 import { createContact, createDeal, createSponsor } from "../factories/sponsors";
@@ -102,5 +103,20 @@ describe("confirming an address", () => {
     await createChannel(app.db, person);
     const agent = await app.signedIn(person);
     expect((await agent.send("post", "/api/auth/verification-mail").expect(200)).body).toEqual({ sentTo: null });
+  });
+});
+
+describe("the demo's accounts", () => {
+  it("when the demo is seeded, or was seeded before addresses were confirmed, then its accounts are confirmed and may invite", async () => {
+    await seedDemo(app.db);
+    const owner = demoAccounts.find((account) => account.role === "owner")!;
+    await app.database.pool.query("update users set email_verified_at = null where email = $1", [owner.email]);
+    await confirmDemoAddresses(app.db);
+    const unconfirmed = await app.database.pool.query("select email from users where email = any($1) and email_verified_at is null", [demoAccounts.map((a) => a.email)]);
+    expect(unconfirmed.rows).toEqual([]);
+
+    const agent = await app.signedIn({ email: owner.email, password: DEMO_PASSWORD });
+    const me = await agent.get("/api/auth/me").expect(200);
+    await agent.send("post", `/api/channels/${me.body.memberships.find((m: { role: string }) => m.role === "owner").channelId}/invitations`, { email: uniqueEmail("demo-guest"), role: "crew" }).expect(201);
   });
 });
