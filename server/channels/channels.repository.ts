@@ -79,7 +79,7 @@ export async function changeMembershipKeepingAnOwner(
   change: { role: Role } | "remove",
 ): Promise<"done" | "missing" | "last_owner"> {
   return db.transaction(async (tx) => {
-    await tx.execute(sql`select id from channels where id = ${channelId} for update`);
+    await lockChannel(tx, channelId);
     const [current] = await tx
       .select({ role: memberships.role })
       .from(memberships)
@@ -109,9 +109,14 @@ async function revokeInvitationsSentBy(tx: Pick<Database, "update">, channelId: 
     .where(and(eq(invitations.channelId, channelId), eq(invitations.invitedBy, userId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt)));
 }
 
-/** Holds the channel's row until the transaction ends: invitations to one channel are made one at a time. */
+/**
+ * Holds the channel's row until the transaction ends. Every change to who is in a channel takes it
+ * first (inviting, joining, changing a role, removing): they run one at a time per channel, and in one
+ * lock order, so a join never crosses an invitation to the same address or deadlocks with its sender's
+ * removal. "No key update" leaves the channel's other rows (episodes, comments) free to be written meanwhile.
+ */
 export async function lockChannel(tx: Pick<Database, "execute">, channelId: string) {
-  await tx.execute(sql`select id from channels where id = ${channelId} for update`);
+  await tx.execute(sql`select id from channels where id = ${channelId} for no key update`);
 }
 
 export async function isMemberByEmail(db: Database, channelId: string, email: string): Promise<boolean> {
@@ -187,17 +192,19 @@ export type Joiner = { userId: string } | { newAccount: { email: string; name: s
 /**
  * In one transaction: marks the invitation used, makes the newcomer's account (already confirmed:
  * the invitation reached its address), adds the membership and closes the person's other open
- * invitations to the channel. Only one caller can claim a link (single use even under a race);
+ * invitations to the channel. Only one caller can claim a link (single use even under a race): the
+ * others find it closed (used, or withdrawn meanwhile);
  * anything refused (an account that exists, a member already) undoes the claim, so nothing is burnt.
  */
 export async function claimInvitation(
   db: Database,
   invitation: { id: string; channelId: string; email: string; role: Role },
   joiner: Joiner,
-): Promise<{ outcome: "joined"; user: Express.User } | { outcome: "used" | "already_member" | "account_exists" }> {
+): Promise<{ outcome: "joined"; user: Express.User } | { outcome: "closed" | "already_member" | "account_exists" }> {
   try {
     return await db.transaction(async (tx) => {
-      if (!(await markInvitationUsed(tx, invitation.id))) return { outcome: "used" as const };
+      await lockChannel(tx, invitation.channelId);
+      if (!(await markInvitationUsed(tx, invitation.id))) return { outcome: "closed" as const };
       const user = "userId" in joiner ? await confirmAddress(tx, joiner.userId) : await insertUser(tx, { ...joiner.newAccount, emailVerifiedAt: new Date() });
       if (!user) throw new Refused("account_exists");
       await tx.update(invitations).set({ acceptedBy: user.id }).where(eq(invitations.id, invitation.id));

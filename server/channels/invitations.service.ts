@@ -127,7 +127,6 @@ const closedMessages = {
 };
 
 const refusals = {
-  used: () => new AppError("gone", closedMessages.accepted),
   account_exists: () => new AppError("conflict", "An account with this e-mail already exists: sign in first, then open the link again."),
   already_member: () => new AppError("conflict", "You are already a member of this channel; the invitation stays open."),
 };
@@ -149,10 +148,17 @@ export async function acceptInvitation(db: Database, token: string, input: Accep
   }
   const joiner: Joiner = signedIn ? { userId: signedIn.id } : { newAccount: await newAccountFor(invitation.email, input) };
   const claimed = await claimInvitation(db, invitation, joiner);
+  if (claimed.outcome === "closed") throw await closedMeanwhile(db, token);
   if (claimed.outcome !== "joined") throw refusals[claimed.outcome]();
   // The session's copy of the account was read before joining confirmed its address.
   if (signedIn) signedIn.emailVerified = true;
   return { user: claimed.user, channelId: invitation.channelId, newAccount: !signedIn };
+}
+
+/** The link closed between reading it and claiming it (used by someone else, or withdrawn): says which. */
+async function closedMeanwhile(db: Database, token: string): Promise<AppError> {
+  const state = stateOf(await openInvitation(db, token));
+  return new AppError("gone", closedMessages[state === "open" ? "accepted" : state]);
 }
 
 async function newAccountFor(email: string, input: AcceptInvitationInput) {

@@ -1,4 +1,5 @@
 import { randomUUID } from "node:crypto";
+import type { Response } from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Role } from "../../shared/access/roles";
 import { addMember, createChannel, createUser } from "../factories/accounts";
@@ -44,6 +45,29 @@ async function membershipRole(channelId: string, email: string): Promise<string 
     [channelId, email],
   );
   return result.rows[0]?.role ?? null;
+}
+
+/** Starts a request now (supertest sends on the first `then`), to be awaited later. */
+const started = (test: PromiseLike<Response>) => Promise.resolve(test);
+
+/** Holds the channel's row as a concurrent writer would, until `release`. */
+async function holdChannel(channelId: string) {
+  const client = await app.database.pool.connect();
+  await client.query("begin");
+  await client.query("select id from channels where id = $1 for update", [channelId]);
+  return {
+    release: async () => {
+      await client.query("commit");
+      client.release();
+    },
+  };
+}
+
+/** Waits until this many of the test database's sessions are waiting for a lock. */
+async function waitForLockWaits(count: number) {
+  const waiting = async () =>
+    (await app.database.pool.query<{ n: number }>("select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'")).rows[0]!.n;
+  await expect.poll(waiting, { timeout: 10_000, interval: 20 }).toBe(count);
 }
 
 describe("inviting by e-mail", () => {
@@ -260,6 +284,50 @@ describe("inviting by e-mail", () => {
     const users = await app.database.pool.query("select id from users where email = $1", [email]);
     expect(users.rowCount).toBe(1);
     expect(await membershipRole(channel.id, email)).toBe("crew");
+  });
+
+  it("when an invitation is accepted at the moment an owner removes its sender, then one of them wins with a clear answer and neither fails", async () => {
+    const { owner, channel } = await ownerWithChannel("Crossed Paths");
+    const coOwner = await createUser(app.db, { name: "Cleo Coowner" });
+    await addMember(app.db, channel.id, coOwner, "owner");
+    const invitation = await createInvitation(app.db, { channelId: channel.id, invitedBy: coOwner, role: "crew" });
+    const ownerAgent = await app.signedIn(owner);
+
+    // Both requests queue behind the channel's row, removal first; then they go on together.
+    const held = await holdChannel(channel.id);
+    const removal = started(ownerAgent.send("delete", `/api/channels/${channel.id}/members/${coOwner.id}`));
+    await waitForLockWaits(1);
+    const acceptance = started(accept(invitation.token, NEWCOMER));
+    await waitForLockWaits(2);
+    await held.release();
+
+    const [removed, accepted] = await Promise.all([removal, acceptance]);
+    expect(removed.status).toBe(204);
+    // The removal went first, so the link was withdrawn with its sender's role; a refusal that says so.
+    expect(accepted.status, JSON.stringify(accepted.body)).toBe(410);
+    expect(accepted.body.error.message).toMatch(/withdrawn/);
+    expect(await membershipRole(channel.id, invitation.email)).toBeNull();
+  });
+
+  it("when an owner invites an address at the moment that person joins through another invitation, then no open invitation is left for a member", async () => {
+    const { owner, channel, agent } = await ownerWithChannel("Same Moment");
+    const email = uniqueEmail("joining");
+    const first = await createInvitation(app.db, { channelId: channel.id, invitedBy: owner, email, role: "crew" });
+
+    // The joining goes first; the invitation waits for it, then finds a member.
+    const held = await holdChannel(channel.id);
+    const joining = started(accept(first.token, NEWCOMER));
+    await waitForLockWaits(1);
+    const inviting = started(agent.send("post", `/api/channels/${channel.id}/invitations`, { email, role: "editor" }));
+    await waitForLockWaits(2);
+    await held.release();
+
+    const [joined, invited] = await Promise.all([joining, inviting]);
+    expect(joined.status).toBe(200);
+    expect(invited.status, JSON.stringify(invited.body)).toBe(409);
+    expect(invited.body.error.message).toBe(`${email} is already a member of this channel; nothing was sent.`);
+    const members = await agent.get(`/api/channels/${channel.id}/members`).expect(200);
+    expect(members.body.invitations).toEqual([]);
   });
 
   it("when the token names no invitation, then preview and accept answer 404", async () => {
