@@ -59,6 +59,33 @@ describe("mail checks its recipient when it is sent", () => {
     expect(job!.output).toMatchObject({ outcome: "skipped" });
   });
 
+  it("when members lose the role a queued mail needs, then the mail is not sent: a payment reminder to a producer made editor, an invitation from an owner made producer", async () => {
+    const kerf = await app({ holdMail: true });
+    const world = await createCrewedChannel(kerf.db, "Role Changes");
+    const coOwner = await createUser(kerf.db, { name: "Cleo Coowner" });
+    await addMember(kerf.db, world.channel.id, coOwner, "owner");
+    const today = dateInZone(new Date(), world.producer.timeZone);
+    await createItemDue(kerf.db, world.channel.id, { ownerId: world.producer.id, dueDate: shiftDate(today, 1), title: "Chase the payment", kind: "payment" });
+    expect((await scanReminders({ db: kerf.db, pool: kerf.database.pool, jobs: kerf.jobs, appUrl: "http://kerf.test" } as Parameters<typeof scanReminders>[0])).sent).toBe(1);
+    const invitee = uniqueEmail("demoted");
+    await (await kerf.signedIn(coOwner)).send("post", `/api/channels/${world.channel.id}/invitations`, { email: invitee, role: "crew" }).expect(201);
+
+    const owner = await kerf.signedIn(world.owner);
+    await owner.send("patch", `/api/channels/${world.channel.id}/members/${world.producer.id}`, { role: "editor" }).expect(200);
+    await owner.send("patch", `/api/channels/${world.channel.id}/members/${coOwner.id}`, { role: "producer" }).expect(200);
+
+    await kerf.startMailWorker();
+    const jobs = await settledJobs(kerf.database.pool, "mail", anyJob, 2);
+    expect(jobs.map((job) => job.output)).toEqual([
+      { outcome: "skipped", reason: "the recipient's role no longer allows it" },
+      // Losing the owner's role withdrew the invitation.
+      { outcome: "skipped", reason: "the invitation is no longer open" },
+    ]);
+    expect(await mailTo(world.producer.email)).toEqual([]);
+    expect(await mailTo(invitee)).toEqual([]);
+    expect((await owner.get(`/api/channels/${world.channel.id}/members`).expect(200)).body.invitations).toEqual([]);
+  });
+
   it("when the owner who sent invitations is removed, then their links are withdrawn and a mail still queued is not sent", async () => {
     const kerf = await app({ holdMail: true });
     const world = await createCrewedChannel(kerf.db, "Two Owners");

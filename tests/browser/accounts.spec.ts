@@ -38,7 +38,8 @@ test("a newcomer starts a channel, signs out and signs back in", async ({ page }
   await expect(page.getByLabel("Channel", { exact: true })).toHaveValue(/.+/);
 });
 
-test("an owner invites a crew member, who joins from the e-mailed link", async ({ page, browser }) => {
+test("an owner confirms their address, invites a crew member, who joins from the e-mailed link", async ({ page, browser }) => {
+  test.setTimeout(120_000);
   const ownerEmail = uniqueEmail("owner");
   const crewEmail = uniqueEmail("crew");
   await page.goto("/sign-up");

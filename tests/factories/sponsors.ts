@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { shiftDate } from "../../shared/sponsors/dates";
 import { generateDeliverables, suggestedTemplateItems, type TemplateItem } from "../../shared/sponsors/deliverables";
-import type { DeliverableStatus } from "../../shared/sponsors/deliverables";
+import type { DeliverableKind, DeliverableStatus } from "../../shared/sponsors/deliverables";
 import type { Database } from "../../server/db/client";
 import { dealTemplates, deals, deliverables, sponsorContacts, sponsors } from "../../server/db/schema/sponsors";
 import { createEpisode } from "./episodes";
@@ -102,7 +102,11 @@ export async function createDeal(db: Database, channelId: string, episodeId: str
  * One hand-dated item owned by a member, due on `dueDate`, on a deal of its own (what a reminder test
  * needs): the episode publishes a month later, so nothing else on the deal is due.
  */
-export async function createItemDue(db: Database, channelId: string, input: { ownerId: string; dueDate: string; title: string; company?: string; episodeTitle?: string }) {
+export async function createItemDue(
+  db: Database,
+  channelId: string,
+  input: { ownerId: string; dueDate: string; title: string; company?: string; episodeTitle?: string; kind?: DeliverableKind },
+) {
   const publishDate = shiftDate(input.dueDate, 30);
   const episode = await createEpisode(db, channelId, { title: input.episodeTitle ?? `${input.title} episode`, targetPublishDate: publishDate });
   const sponsor = await createSponsor(db, channelId, { company: input.company ?? "Test Sponsor" });
@@ -110,7 +114,7 @@ export async function createItemDue(db: Database, channelId: string, input: { ow
     sponsorId: sponsor.id,
     ownerId: input.ownerId,
     publishDate,
-    items: [{ kind: "other", title: input.title, anchor: "before_publish", offsetDays: 0, ownerRole: null }],
+    items: [{ kind: input.kind ?? "other", title: input.title, anchor: "before_publish", offsetDays: 0, ownerRole: null }],
   });
   const [item] = await db.update(deliverables).set({ anchor: "fixed", dueDate: input.dueDate }).where(eq(deliverables.id, made.items[0]!.id)).returning();
   return { episode, sponsor, deal: made.deal, item: item! };
