@@ -104,7 +104,7 @@ export type CommentInput = z.infer<typeof commentSchema>;
 
 /** The board's filters, as they appear in the page's URL and the API's query string. */
 export const boardFiltersSchema = z.object({
-  owner: z.union([z.literal("none"), z.uuid()], { error: "Pick a member, or none." }).optional(),
+  owner: z.union([z.literal("none"), z.uuid({ error: "Pick a member, or none." })], { error: "Pick a member, or none." }).optional(),
   tag: z.string().max(24).optional(),
   sponsor: z.string().max(100).optional(),
   risk: z.literal("1").optional(),

@@ -84,7 +84,9 @@ test("an owner confirms their address, invites a crew member, who joins from the
 
   const mail = await latestMailTo(crewEmail);
   const link = mail.text.match(/https?:\/\/\S+\/invite\/\S+/)?.[0];
-  expect(link).toBeTruthy();
+  // The link leads to this server's own invitation page.
+  expect(link, mail.text).toMatch(/\/invite\/\S+$/);
+  expect(new URL(link!).origin).toBe(new URL(page.url()).origin);
 
   // The link is for the crew member's address: the signed-in owner is told so, with nothing to press.
   await page.goto(link!);

@@ -5,7 +5,7 @@ import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
 import { parseCsv } from "../../shared/rushes/exports/csv";
 import { parseEdl } from "../../shared/rushes/exports/edl";
-import { hostWithEpisode, snap } from "./support";
+import { hostWithEpisode, member, signInOn, snap } from "./support";
 
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
 const storage = process.env.KERF_TEST_S3_ENDPOINT ?? "http://127.0.0.1:4568";
@@ -22,12 +22,19 @@ function largeFile(): string {
 
 const upload = (page: Page, name: string) => page.getByRole("listitem", { name: `Upload of ${name}` });
 
-test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page }) => {
+test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page, browser }) => {
   test.setTimeout(240_000);
-  const { channelId, episodeId } = await hostWithEpisode(page, {
+  // The host sets up the channel and the episode in a browser of their own, and brings in an editor.
+  const hostContext = await browser.newContext();
+  const { channelId, episodeId } = await hostWithEpisode(await hostContext.newPage(), {
     host: { name: "Oda Tveit", channel: "Slipway Rocketry" },
     episode: { title: "Two-stage water rocket", question: "Does a second stage beat one bigger bottle?", origin: "idea", stage: "shoot" },
   });
+  await hostContext.close();
+  const editor = await member(channelId, "Ivar Moen", "editor");
+  // The editor does the rest, on the test's own page (its trace is kept when the journey fails).
+  await signInOn(page, editor.email);
+  await expect(page.getByText("Editor", { exact: true })).toBeVisible();
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
   await expect(page.getByRole("heading", { name: "Shoot and footage" })).toBeVisible();
 
