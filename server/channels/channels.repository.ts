@@ -7,15 +7,6 @@ import { findUserById, insertUser, markEmailVerified } from "../auth/users.repos
 /** Not used, withdrawn, closed or expired. */
 const isOpen = and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt), gt(invitations.expiresAt, sql`now()`));
 
-export async function findMembership(db: Database, channelId: string, userId: string) {
-  const rows = await db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
-    .limit(1);
-  return rows[0] ?? null;
-}
-
 export async function listMembershipsOf(db: Database, userId: string) {
   return db
     .select({ channelId: channels.id, channelName: channels.name, role: memberships.role })
@@ -250,9 +241,4 @@ export async function revokeInvitation(db: Database, channelId: string, invitati
     .where(and(eq(invitations.id, invitationId), eq(invitations.channelId, channelId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt)))
     .returning({ id: invitations.id });
   return rows.length > 0;
-}
-
-export async function findChannelName(db: Database, channelId: string): Promise<string | null> {
-  const [row] = await db.select({ name: channels.name }).from(channels).where(eq(channels.id, channelId));
-  return row?.name ?? null;
 }

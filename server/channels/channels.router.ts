@@ -3,9 +3,9 @@ import { channelNameSchema } from "../../shared/auth/schemas";
 import { acceptInvitationSchema, changeRoleSchema, inviteSchema, type MembersPage } from "../../shared/channels/schemas";
 import { describeMe, startSession } from "../auth/auth.service";
 import { AppError } from "../http/app-error";
-import { memberOf, signedInUser } from "../http/guards";
+import { callerOf, idOf, signedInUser } from "../http/guards";
 import { anyAccount, channelAccess, publicAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
 import {
   changeMembershipKeepingAnOwner,
   insertChannelWithOwner,
@@ -37,7 +37,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members",
       access: channelAccess("members", "R"),
       handler: async (req, res) => {
-        const { channelId } = memberOf(req);
+        const { channelId } = callerOf(req);
         const [members, invitations] = await Promise.all([listMembers(db, channelId), listOpenInvitations(db, channelId)]);
         const page: MembersPage = {
           members: members.map((m) => ({ ...m, joinedAt: m.joinedAt.toISOString() })),
@@ -52,7 +52,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
         const input = parseBody(inviteSchema, req.body);
-        const sent = await inviteMember(deps, { ...input, channelId: memberOf(req).channelId, invitedBy: signedInUser(req) });
+        const sent = await inviteMember(deps, { ...input, channelId: callerOf(req).channelId, invitedBy: signedInUser(req) });
         res.status(201).json({ id: sent.id, email: input.email, role: input.role, expiresAt: sent.expiresAt.toISOString() });
       },
     },
@@ -61,8 +61,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/invitations/:invitationId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const invitationId = parseId(req.params.invitationId, "Invitation");
-        if (!(await revokeInvitation(db, memberOf(req).channelId, invitationId))) throw new AppError("not_found", "Invitation not found.");
+        if (!(await revokeInvitation(db, callerOf(req).channelId, idOf(req, "invitationId")))) throw new AppError("not_found", "Invitation not found.");
         res.status(204).end();
       },
     },
@@ -71,9 +70,9 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members/:userId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const userId = parseId(req.params.userId, "Member");
+        const userId = idOf(req, "userId");
         const { role } = parseBody(changeRoleSchema, req.body);
-        const outcome = await changeMembershipKeepingAnOwner(db, memberOf(req).channelId, userId, { role });
+        const outcome = await changeMembershipKeepingAnOwner(db, callerOf(req).channelId, userId, { role });
         if (outcome === "missing") throw new AppError("not_found", "Member not found.");
         if (outcome === "last_owner") throw lastOwner();
         res.json({ userId, role });
@@ -84,8 +83,8 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members/:userId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const userId = parseId(req.params.userId, "Member");
-        const outcome = await changeMembershipKeepingAnOwner(db, memberOf(req).channelId, userId, "remove");
+        const userId = idOf(req, "userId");
+        const outcome = await changeMembershipKeepingAnOwner(db, callerOf(req).channelId, userId, "remove");
         if (outcome === "missing") throw new AppError("not_found", "Member not found.");
         if (outcome === "last_owner") throw lastOwner();
         res.status(204).end();

@@ -1,10 +1,10 @@
 import { mentionedIn } from "../../shared/slate/mentions";
 import type { EpisodeComment } from "../../shared/slate/schemas";
-import { findChannelName } from "../channels/channels.repository";
+import { channelName as channelNameOf } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { inTransaction } from "../db/transaction";
 import { notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
+import type { Caller } from "../http/route-table";
 import type { Jobs } from "../jobs/queue";
 import { memberMail } from "../mail/member-mail";
 import { takeMailQuota } from "../mail/quotas";
@@ -31,7 +31,6 @@ async function withNames(db: Database, channelId: string, rows: Awaited<ReturnTy
 }
 
 export async function listComments(db: Database, channelId: string, episodeId: string): Promise<EpisodeComment[]> {
-  if (!(await findEpisode(db, channelId, episodeId))) throw notFound("Episode");
   return withNames(db, channelId, await commentsOf(db, channelId, episodeId));
 }
 
@@ -40,25 +39,25 @@ export async function listComments(db: Database, channelId: string, episodeId: s
  * the channel's mail allowance: the comment, the counts and the queued mails commit together, or a
  * 429 changes nothing. Each mail checks, when it is sent, that its recipient is still a member.
  */
-export async function addComment(deps: CommentDeps, member: MemberContext, author: { name: string }, episodeId: string, body: string): Promise<EpisodeComment> {
+export async function addComment(deps: CommentDeps, caller: Caller, episodeId: string, body: string): Promise<EpisodeComment> {
   const { db } = deps;
-  const episode = await findEpisode(db, member.channelId, episodeId);
+  const episode = await findEpisode(db, caller.channelId, episodeId);
   if (!episode) throw notFound("Episode");
-  const people = await peopleOf(db, member.channelId);
+  const people = await peopleOf(db, caller.channelId);
   const mentions = mentionedIn(body, people);
-  const recipients = mentions.filter((id) => id !== member.userId);
-  const channelName = (await findChannelName(db, member.channelId)) ?? "your channel";
-  const link = `${deps.appUrl}/c/${member.channelId}/episodes/${episodeId}#activity`;
+  const recipients = mentions.filter((id) => id !== caller.userId);
+  const channelName = (await channelNameOf(db, caller.channelId)) ?? "your channel";
+  const link = `${deps.appUrl}/c/${caller.channelId}/episodes/${episodeId}#activity`;
   const saved = await inTransaction(db, async (tx, sql) => {
-    await takeMailQuota(tx, "mention", member, recipients.length);
-    const row = await insertComment(tx, { channelId: member.channelId, episodeId, authorId: member.userId, body, mentions });
+    await takeMailQuota(tx, "mention", caller, recipients.length);
+    const row = await insertComment(tx, { channelId: caller.channelId, episodeId, authorId: caller.userId, body, mentions });
     for (const userId of recipients) {
       const mail = memberMail({
-        channelId: member.channelId,
+        channelId: caller.channelId,
         userId,
         needs: { area: "comments", need: "R" },
-        subject: `${author.name} mentioned you on “${episode.title}”`,
-        text: `${author.name} mentioned you in a comment on “${episode.title}” (${channelName}):\n\n${body}\n\nOpen the episode: ${link}\n`,
+        subject: `${caller.name} mentioned you on “${episode.title}”`,
+        text: `${caller.name} mentioned you in a comment on “${episode.title}” (${channelName}):\n\n${body}\n\nOpen the episode: ${link}\n`,
       });
       await deps.jobs.enqueueMail(mail, { db: sql });
     }
@@ -67,8 +66,8 @@ export async function addComment(deps: CommentDeps, member: MemberContext, autho
   const names = new Map(people.map((p) => [p.id, p.name]));
   return {
     id: saved.id,
-    authorId: member.userId,
-    authorName: author.name,
+    authorId: caller.userId,
+    authorName: caller.name,
     body,
     mentions: mentions.map((id) => ({ id, name: names.get(id)! })),
     createdAt: saved.createdAt.toISOString(),

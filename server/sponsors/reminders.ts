@@ -1,16 +1,14 @@
-import { and, eq, isNull, ne, notInArray, sql } from "drizzle-orm";
 import type PgBoss from "pg-boss";
 import { dateInZone, daysBetween } from "../../shared/sponsors/dates";
 import { isMoneyKind, reminderFor } from "../../shared/sponsors/deliverables";
 import type { Database } from "../db/client";
-import { memberships, users } from "../db/schema/accounts";
-import { episodes } from "../db/schema/slate";
-import { deals, deliverableEvents, deliverables, remindersSent, sponsorSettings, sponsors } from "../db/schema/sponsors";
 import { inTransaction } from "../db/transaction";
 import { eachItem, mergeTallies, type ItemTally } from "../jobs/each-item";
 import type { Jobs } from "../jobs/queue";
 import { memberMail } from "../mail/member-mail";
+import { insertEvents } from "./deals.repository";
 import { seesFees } from "./deals.service";
+import { recordReminder, reminderCandidates } from "./reminders.repository";
 import { catchUpPublishDates } from "./schedule.service";
 import { DEFAULT_REMINDER_DAYS_BEFORE } from "./sponsors.repository";
 
@@ -30,45 +28,7 @@ export interface ReminderDeps {
   appUrl: string;
 }
 
-async function candidates(db: Database) {
-  const owner = sql`coalesce(${deliverables.ownerId}, ${deals.createdBy})`;
-  return db
-    .select({
-      id: deliverables.id,
-      channelId: deliverables.channelId,
-      kind: deliverables.kind,
-      title: deliverables.title,
-      status: deliverables.status,
-      dueDate: deliverables.dueDate,
-      episodeId: deals.episodeId,
-      episodeTitle: episodes.title,
-      company: sponsors.company,
-      ownerId: users.id,
-      ownerEmail: users.email,
-      ownerName: users.name,
-      ownerTimeZone: users.timeZone,
-      ownerRole: memberships.role,
-      daysBefore: sponsorSettings.reminderDaysBefore,
-    })
-    .from(deliverables)
-    .innerJoin(deals, eq(deals.id, deliverables.dealId))
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
-    .innerJoin(users, eq(users.id, owner))
-    // The owner must still belong to the channel, in a role that may see the item.
-    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.channelId, deliverables.channelId)))
-    .leftJoin(sponsorSettings, eq(sponsorSettings.channelId, deliverables.channelId))
-    .where(
-      and(
-        notInArray(deliverables.status, ["approved", "done"]),
-        sql`${deliverables.dueDate} is not null`,
-        ne(deals.state, "cancelled"),
-        isNull(episodes.archivedAt),
-      ),
-    );
-}
-
-type Candidate = Awaited<ReturnType<typeof candidates>>[number];
+type Candidate = Awaited<ReturnType<typeof reminderCandidates>>[number];
 
 /** To the item's owner, if they may still see the item (money items: the fees) when the mail goes out. */
 function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string) {
@@ -97,21 +57,18 @@ function reminderMail(item: Candidate, kind: "before" | "late", today: string, a
 async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "late", today: string): Promise<boolean> {
   const mail = reminderMail(item, kind, today, deps.appUrl);
   return inTransaction(deps.db, async (tx, sql) => {
-    const inserted = await tx
-      .insert(remindersSent)
-      .values({ deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail })
-      .onConflictDoNothing()
-      .returning({ id: remindersSent.deliverableId });
-    if (inserted.length === 0) return false;
+    if (!(await recordReminder(tx, { deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail }))) return false;
     await deps.jobs.enqueueMail(mail, { db: sql });
-    await tx.insert(deliverableEvents).values({
-      channelId: item.channelId,
-      deliverableId: item.id,
-      actorName: "Kerf",
-      actorKind: "system",
-      what: "reminder",
-      note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
-    });
+    await insertEvents(tx, [
+      {
+        channelId: item.channelId,
+        deliverableId: item.id,
+        actorName: "Kerf",
+        actorKind: "system",
+        what: "reminder",
+        note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
+      },
+    ]);
     return true;
   });
 }
@@ -125,7 +82,7 @@ export type ScanResult = { sent: number } & ItemTally;
 export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<ScanResult> {
   const caughtUp = await catchUpPublishDates(deps.db, null);
   let sent = 0;
-  const scanned = await eachItem("reminders", await candidates(deps.db), (item) => `item ${item.id} of channel ${item.channelId}`, async (item) => {
+  const scanned = await eachItem("reminders", await reminderCandidates(deps.db), (item) => `item ${item.id} of channel ${item.channelId}`, async (item) => {
     if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) return;
     const today = dateInZone(now, item.ownerTimeZone);
     const kind = reminderFor(item, today, item.daysBefore ?? DEFAULT_REMINDER_DAYS_BEFORE);

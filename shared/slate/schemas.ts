@@ -128,6 +128,15 @@ export const episodeSummarySchema = z.object({
 export type EpisodeSummary = z.infer<typeof episodeSummarySchema>;
 
 /**
+ * `GET /api/channels/:channelId/episode-titles`: every episode that is not archived, by title, with
+ * no more than a picker needs (the footage filter, and any other list of episodes to choose from).
+ */
+export const episodeTitlesResponseSchema = z.object({
+  episodes: z.array(z.object({ id: z.string(), title: z.string(), stage: z.enum(stages) })),
+});
+export type EpisodeTitles = z.infer<typeof episodeTitlesResponseSchema>;
+
+/**
  * A card on the board: what matters at a glance, and no more (a board may hold thousands). The
  * order of the list is the board's order; the rank itself stays on the server.
  */

@@ -1,7 +1,8 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 // The slate's gate registry first: it pulls in the bench's gates the way the app does.
-import { gateProblems } from "../../server/slate/gates";
+import { slatePlugs } from "../../server/app";
+import { gateProblems } from "../../server/seams/stage-gates";
 import { createChannel, createCrewedChannel, createUser } from "../factories/accounts";
 import { createCriterion, q, saveTestPlan } from "../factories/bench";
 import { createEpisode } from "../factories/episodes";
@@ -163,7 +164,7 @@ describe("another channel's sheet", () => {
 
 describe("the gate when leaving the test plan stage", () => {
   const problemsFor = (channelId: string, episodeId: string, from: "challenge" | "test_plan" | "build", to: "test_plan" | "build" | "shoot" | "challenge") =>
-    gateProblems({ db: app.db, channelId, episodeId, from, to });
+    gateProblems(slatePlugs.stageGates, { db: app.db, channelId, episodeId, from, to });
 
   it("when the sheet has no hypothesis and no required criterion, then both are named", async () => {
     const { channel, episode } = await setting();

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { parseCsv } from "../../shared/rushes/exports/csv";
+import { parse as parseCsv } from "csv-parse/sync";
 import { parseEdl } from "../../shared/rushes/exports/edl";
 import { createEpisode } from "../factories/episodes";
 import { createClip, createShootDay, createShot } from "../factories/rushes";
@@ -207,7 +207,7 @@ describe("exports of the current filter", () => {
     expect(response.headers["content-type"]).toMatch(/^text\/csv/);
     expect(response.headers["content-disposition"]).toMatch(/^attachment; filename="footage-\d{4}-\d{2}-\d{2}\.csv"/);
     expect(response.text.endsWith("\r\n")).toBe(true);
-    const records = parseCsv(response.text);
+    const records: string[][] = parseCsv(response.text, { record_delimiter: "\r\n" });
     expect(records[0]!.slice(0, 3)).toEqual(["file_name", "episode", "shoot_day"]);
     expect(records).toHaveLength(4);
     expect(records[1]![0]).toBe('Relay "bank", take 2.mov');

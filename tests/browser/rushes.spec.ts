@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
-import { parseCsv } from "../../shared/rushes/exports/csv";
+import { parse as parseCsv } from "csv-parse/sync";
 import { parseEdl } from "../../shared/rushes/exports/edl";
 import { hostWithEpisode, member, signInOn, snap } from "./support";
 
@@ -154,7 +154,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name }).click()]);
     return readFileSync((await download.path())!, "utf8");
   };
-  const csv = parseCsv(await read(/^CSV$/));
+  const csv: string[][] = parseCsv(await read(/^CSV$/), { record_delimiter: "\r\n" });
   expect(csv).toHaveLength(2);
   expect(csv[1]!.slice(13, 16)).toEqual(["01:00:01;00", "01:00:02;15", "the upper stage lets go"]);
   const edl = parseEdl(await read(/EDL/));

@@ -1,7 +1,5 @@
-import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { ExportClip } from "./clip-ranges";
-import { parseCsv, toCsv } from "./csv";
 import { footageEdl, parseEdl, reelName } from "./edl";
 import { footageOtio } from "./otio";
 
@@ -25,26 +23,6 @@ const clip = (overrides: Partial<ExportClip> = {}): ExportClip => ({
   notes: "",
   marks: [],
   ...overrides,
-});
-
-describe("CSV (RFC 4180)", () => {
-  it("quotes fields with commas, quotes and line breaks, doubles inner quotes, ends records with CRLF", () => {
-    // RFC 4180 section 2, rules 4–7.
-    expect(toCsv([["a", 'say "hi"', "x,y", "two\r\nlines"]])).toBe('a,"say ""hi""","x,y","two\r\nlines"\r\n');
-  });
-
-  it("when any table of text is written, then it parses back to the same table", () => {
-    const cell = fc.string({ maxLength: 12 }).filter((s) => !/^[=+\-@\t\r]/.test(s));
-    fc.assert(
-      fc.property(fc.array(fc.array(cell, { minLength: 1, maxLength: 5 }), { minLength: 1, maxLength: 6 }), (rows) => {
-        const width = rows[0]!.length;
-        const table = rows.map((r) => Array.from({ length: width }, (_, i) => r[i] ?? ""));
-        // A single empty field on a record is indistinguishable from an empty line; RFC 4180 leaves it open.
-        fc.pre(width > 1 || table.every((r) => r[0] !== ""));
-        expect(parseCsv(toCsv(table))).toEqual(table);
-      }),
-    );
-  });
 });
 
 describe("CMX 3600 edit decision list", () => {
