@@ -48,6 +48,8 @@ describe("allowances on outbound mail", () => {
     expect(refused.body.error).toMatchObject({ code: "rate_limited" });
     expect(refused.body.error.message).toMatch(/^Kerf sends at most 30 invitations an hour for one person.*Nothing was sent; try again after \d\d:\d\d UTC \(in (\d+ minutes?|1 hour)\)\.$/);
     expect(refused.body.retryAfterSeconds).toBeGreaterThan(3000);
+    // The same wait in HTTP's own header (RFC 9110, section 10.2.3: delay-seconds).
+    expect(refused.headers["retry-after"]).toBe(String(refused.body.retryAfterSeconds));
     expect(await count("select count(*)::int as n from invitations where email = $1", [extra])).toBe(0);
     expect(await count("select count(*)::int as n from invitations where channel_id = $1", [channel.id])).toBe(30);
   }, 60_000);

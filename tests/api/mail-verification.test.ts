@@ -95,6 +95,7 @@ describe("confirming an address", () => {
     const refused = await visitor.send("post", "/api/auth/verification-mail").expect(429);
     expect(refused.body.error.message).toMatch(/at most 3 confirmation mails an hour .* try again after \d\d:\d\d UTC/);
     expect(refused.body.retryAfterSeconds).toBeGreaterThan(0);
+    expect(refused.headers["retry-after"]).toBe(String(refused.body.retryAfterSeconds));
     expect(await count("select count(*)::int as n from pgboss.job where name = 'mail' and data->'data'->>'userId' = (select id::text from users where email = $1)", [email])).toBe(3);
   });
 
