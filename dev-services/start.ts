@@ -3,7 +3,7 @@ import { connectDatabase } from "../server/db/client";
 import { migrateDatabase } from "../server/db/migrate";
 import { readEnv } from "../server/env";
 import { startServer } from "../server/index";
-import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
+import { confirmDemoAddresses, DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
 import { startMailCatcher } from "./mail";
 import { APP_WEBHOOK_PATH, startPaymentsStandIn } from "./payments/server";
 import { startS3StandIn } from "./s3";
@@ -45,6 +45,7 @@ try {
   const seedHandle = connectDatabase(databaseUrl);
   const seeded = await isEmpty(seedHandle.db);
   if (seeded) await seedDemo(seedHandle.db);
+  else await confirmDemoAddresses(seedHandle.db);
   await seedHandle.close();
 
   console.log("[kerf] starting the mail stand-in…");

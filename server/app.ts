@@ -5,9 +5,12 @@ import helmet from "helmet";
 import { authRoutes } from "./auth/auth.router";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
 import { findUserById } from "./auth/users.repository";
+import { verificationRoutes } from "./auth/verification.router";
+import { verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
+import { invitationMailRenderer } from "./channels/invitations.service";
 import { healthRoutes } from "./health/health.router";
 import { noStoreByDefault } from "./http/cache";
 import { csrfProtection } from "./http/csrf";
@@ -16,12 +19,16 @@ import { guardsFor } from "./http/guards";
 import { bodyReaders } from "./http/json-body";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
 import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
+import type { MailRenderers } from "./mail/mail-jobs";
+import { memberMailRenderer } from "./mail/member-mail";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { SlatePlugs } from "./seams/slate-plugs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
+import { reviewLinkMailRenderer } from "./sponsors/review.service";
+import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
 
@@ -41,13 +48,31 @@ export const slatePlugs: SlatePlugs = {
   publishDateFollowers: [sponsorsFollowPublishDate],
 };
 
+/**
+ * What builds each kind of queued mail when it is sent (server/mail/mail-jobs.ts): the one place a
+ * feature's mail renderers are named. Every instance that runs the mail worker passes these to
+ * `jobs.startMailWorker`.
+ */
+export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRenderers {
+  const db = deps.database.db;
+  const appUrl = deps.env.APP_URL;
+  return {
+    ...memberMailRenderer(db),
+    ...verificationMailRenderer({ db, appUrl }),
+    ...invitationMailRenderer({ db, appUrl }),
+    ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
+  };
+}
+
 /** Every API route with who may call it: the one table the authorisation tests read. */
 export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] {
   const db = deps.database.db;
+  const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
-    ...authRoutes(db, options.signInLimits ?? defaultSignInLimits),
-    ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
+    ...authRoutes(mailing, options.signInLimits ?? defaultSignInLimits),
+    ...verificationRoutes(mailing),
+    ...channelRoutes(mailing),
     ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),

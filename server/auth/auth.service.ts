@@ -1,12 +1,14 @@
 import type { Request } from "express";
 import type { Me, SignUpInput } from "../../shared/auth/schemas";
 import type { Database } from "../db/client";
-import { insertChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
+import { addChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
+import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
 import { csrfTokenFor } from "../http/csrf";
 import { SESSION_COOKIE } from "../http/session";
 import { decoyHash, hashPassword, passwordMatches } from "./password";
 import { findUserWithHashByEmail, insertUser } from "./users.repository";
+import { queueVerificationMail, type VerificationDeps } from "./verification.service";
 
 export async function checkCredentials(db: Database, email: string, password: string): Promise<Express.User | null> {
   const found = await findUserWithHashByEmail(db, email);
@@ -16,11 +18,16 @@ export async function checkCredentials(db: Database, email: string, password: st
   return user;
 }
 
-export async function signUp(db: Database, input: SignUpInput): Promise<Express.User> {
-  const user = await insertUser(db, { email: input.email, name: input.name, passwordHash: await hashPassword(input.password) });
-  if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
-  await insertChannelWithOwner(db, input.channelName, user.id);
-  return user;
+/** The account, its first channel and the mail that confirms its address: all three, or none. */
+export async function signUp(deps: VerificationDeps, input: SignUpInput): Promise<Express.User> {
+  const passwordHash = await hashPassword(input.password);
+  return inTransaction(deps.db, async (tx, sql) => {
+    const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
+    if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
+    await addChannelWithOwner(tx, input.channelName, user.id);
+    await queueVerificationMail(deps, tx, sql, user.id);
+    return user;
+  });
 }
 
 /** passport 0.6+ regenerates the session inside req.login, which is what defeats session fixation. */

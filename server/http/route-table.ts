@@ -49,6 +49,8 @@ export interface Caller {
   userId: string;
   name: string;
   email: string;
+  /** Whether they have confirmed that address: until then Kerf mails nobody else for them (server/mail/senders.ts). */
+  emailVerified: boolean;
   timeZone: string;
   channelId: string;
   role: Role;
@@ -62,6 +64,7 @@ declare global {
       email: string;
       name: string;
       timeZone: string;
+      emailVerified: boolean;
     }
     interface Request {
       /** Set by the guard of a channel route: the caller and the path's ids, each checked to be the channel's. */

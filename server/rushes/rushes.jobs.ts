@@ -12,8 +12,10 @@ export const ABANDONED_UPLOADS_CRON = "17 * * * *";
 export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext): Promise<void> {
   await boss.createQueue(ABANDONED_UPLOADS_QUEUE);
   await boss.schedule(ABANDONED_UPLOADS_QUEUE, ABANDONED_UPLOADS_CRON, {}, { tz: "UTC" });
+  // The sweep's tally (abandoned, failed, which uploads) becomes the job's output, where an operator can read it.
   await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1 }, async () => {
-    const { abandoned } = await sweepAbandonedUploads(ctx);
-    if (abandoned > 0) console.log(`[rushes] ${abandoned} abandoned upload(s) aborted`);
+    const swept = await sweepAbandonedUploads(ctx);
+    if (swept.abandoned > 0) console.log(`[rushes] ${swept.abandoned} abandoned upload(s) aborted`);
+    return swept;
   });
 }

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, lt, notInArray, sql } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { clips, uploadParts, uploads } from "../db/schema/rushes";
 import { episodes } from "../db/schema/slate";
@@ -99,11 +99,12 @@ export async function insertClip(db: Executor, values: typeof clips.$inferInsert
 }
 
 /** Uploads with no part recorded (nor started) since the cut-off, across every channel. */
-export async function abandonedUploads(db: Executor, before: Date, limit = 200) {
+/** Uploads with no progress since `before`, but for those this sweep already failed on (`skip`). */
+export async function abandonedUploads(db: Executor, before: Date, skip: string[] = [], limit = 200) {
   return db
     .select({ id: uploads.id, channelId: uploads.channelId, objectKey: uploads.objectKey, storageUploadId: uploads.storageUploadId })
     .from(uploads)
-    .where(and(eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before)))
+    .where(and(eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before), skip.length ? notInArray(uploads.id, skip) : undefined))
     .orderBy(asc(uploads.lastActivityAt))
     .limit(limit);
 }

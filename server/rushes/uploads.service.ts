@@ -3,6 +3,7 @@ import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_
 import type { ClipMetadata, UploadView } from "../../shared/rushes/schemas";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
+import { eachItem, emptyTally, mergeTallies, type ItemTally } from "../jobs/each-item";
 import { isStorageDown, storageDown, viaStorage } from "../storage/storage";
 import { footageKey } from "./object-keys";
 import type { RushesContext } from "./rushes.context";
@@ -221,17 +222,24 @@ export async function cancelUpload(ctx: RushesContext, caller: Caller, uploadId:
   return { status: "cancelled" as const, storage };
 }
 
-/** The scheduled sweep: uploads with no progress for a day are aborted (best effort) and marked. */
-export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number }> {
+/**
+ * The scheduled sweep: uploads with no progress for a day are aborted (best effort) and marked. One
+ * that fails is logged, counted and left for the next sweep; the others are still swept.
+ */
+export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number } & ItemTally> {
   const before = new Date(now.getTime() - ABANDONED_AFTER_HOURS * 3600 * 1000);
   let abandoned = 0;
+  let tally = emptyTally();
+  const failed: string[] = [];
   for (;;) {
-    const batch = await repo.abandonedUploads(ctx.db, before);
-    if (batch.length === 0) return { abandoned };
-    for (const upload of batch) {
+    const batch = await repo.abandonedUploads(ctx.db, before, failed);
+    if (batch.length === 0) return { abandoned, ...tally };
+    const round = await eachItem("abandoned uploads", batch, (upload) => `upload ${upload.id} of channel ${upload.channelId}`, async (upload) => {
       await ctx.storage.abortMultipart(upload.objectKey, upload.storageUploadId).catch(() => "unreachable");
       await repo.finishUpload(ctx.db, upload.id, "abandoned");
       abandoned++;
-    }
+    });
+    failed.push(...round.failedItems.map((upload) => upload.id));
+    tally = mergeTallies(tally, round);
   }
 }

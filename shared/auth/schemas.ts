@@ -47,6 +47,8 @@ export const userSchema = z.object({
   name: z.string(),
   email: z.string(),
   timeZone: z.string(),
+  /** The person opened the link mailed to their address; until then they can't invite or send review links. */
+  emailVerified: z.boolean(),
 });
 export type User = z.infer<typeof userSchema>;
 
@@ -56,3 +58,19 @@ export const meSchema = z.object({
   csrfToken: z.string(),
 });
 export type Me = z.infer<typeof meSchema>;
+
+/** The token of an address-confirmation link (/verify/<token>). */
+export const verifyEmailSchema = z.strictObject({
+  token: z.string({ error: "The link has no token." }).regex(/^[A-Za-z0-9_-]{43}$/, "This confirmation link is not valid."),
+});
+export type VerifyEmailInput = z.infer<typeof verifyEmailSchema>;
+
+export interface VerifyEmailAnswer {
+  confirmed: string;
+  me: Me;
+}
+
+export interface VerificationMailAnswer {
+  /** The address the new link goes to; null when the address is already confirmed (nothing sent). */
+  sentTo: string | null;
+}

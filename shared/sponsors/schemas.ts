@@ -280,7 +280,7 @@ export const sendReviewSchema = z.strictObject({
   deliverableId: id("item to review"),
   contactId: id("contact"),
   expiresInDays: z.number({ error: "Enter how many days the link works." }).int("Use whole days.").min(1, "At least 1 day.").max(30, "At most 30 days.").default(REVIEW_LINK_DEFAULT_DAYS),
-  message: optionalLines(1000, "message").default(null),
+  // No message of the sender's own: the mail to the sponsor carries only Kerf's words and the names.
 });
 export type SendReviewInput = z.input<typeof sendReviewSchema>;
 

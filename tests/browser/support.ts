@@ -51,7 +51,7 @@ export async function sql<T extends pg.QueryResultRow>(text: string, values: unk
   }
 }
 
-/** A new account and channel through the sign-up page, ending on the empty slate. */
+/** A new account and channel through the sign-up page, ending on the empty slate; the address is confirmed (its own journey is in accounts.spec.ts). */
 export async function signUpThroughPage(page: Page, person: { name: string; email: string; channel: string }): Promise<void> {
   await page.goto("/sign-up");
   await page.getByLabel("Your name").fill(person.name);
@@ -60,12 +60,13 @@ export async function signUpThroughPage(page: Page, person: { name: string; emai
   await page.getByLabel("Channel name").fill(person.channel);
   await page.getByRole("button", { name: "Create account and channel" }).click();
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await sql("update users set email_verified_at = now() where email = $1", [person.email]);
 }
 
-/** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
+/** A member in a role of their own with a confirmed address, made straight in the test database (the invitation journey has its own test). */
 export async function member(channelId: string, name: string, role: "producer" | "editor" | "crew") {
   const email = uniqueEmail(role);
-  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, name, await hashPassword(PASSWORD)]);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await hashPassword(PASSWORD)]);
   await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
   return { email, name };
 }
