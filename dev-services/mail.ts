@@ -21,6 +21,10 @@ export async function startMailCatcher(options: { smtpPort: number; webPort: num
     { stdio: ["ignore", "ignore", "inherit"] },
   );
   const webUrl = `http://127.0.0.1:${options.webPort}`;
-  await waitForHttp(`${webUrl}/api/email`, 20_000);
+  // A busy machine can take a while; one that never answers leaves no maildev behind.
+  await waitForHttp(`${webUrl}/api/email`, 60_000).catch(async (error: unknown) => {
+    await stopChild(child);
+    throw error;
+  });
   return { smtpPort: options.smtpPort, webUrl, stop: () => stopChild(child) };
 }

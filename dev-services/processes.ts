@@ -2,16 +2,37 @@ import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process"
 import net from "node:net";
 
 /** A free loopback port, found by letting the kernel pick one. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
+export async function freePort(): Promise<number> {
+  const [port] = await freePorts(1);
+  return port!;
+}
+
+/** Several different free loopback ports: each is held until all are picked, so none comes twice. */
+export async function freePorts(count: number): Promise<number[]> {
+  const servers = await Promise.all(
+    Array.from(
+      { length: count },
+      () =>
+        new Promise<net.Server>((resolve, reject) => {
+          const server = net.createServer();
+          server.unref();
+          server.on("error", reject);
+          server.listen(0, "127.0.0.1", () => resolve(server));
+        }),
+    ),
+  );
+  const ports = servers.map((server) => (server.address() as net.AddressInfo).port);
+  await Promise.all(servers.map((server) => new Promise((resolve) => server.close(resolve))));
+  return ports;
+}
+
+/** Whether a loopback port can be listened on right now. */
+export function portIsFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
     const server = net.createServer();
     server.unref();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      const port = typeof address === "object" && address ? address.port : 0;
-      server.close(() => resolve(port));
-    });
+    server.once("error", () => resolve(false));
+    server.listen(port, "127.0.0.1", () => server.close(() => resolve(true)));
   });
 }
 

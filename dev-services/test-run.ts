@@ -1,5 +1,5 @@
 import { spawn } from "node:child_process";
-import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, realpathSync, rmSync } from "node:fs";
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import PgBoss from "pg-boss";
 import { migrateDatabase } from "../server/db/migrate";
@@ -8,9 +8,10 @@ import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";
 import { freePort, run, stopChild, waitForHttp } from "./processes";
+import { removeFolder } from "./service-user";
 
 /**
- * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter,
+ * `npm test`: a throwaway PostgreSQL cluster, mail and storage stand-ins, then the type check, the linter,
  * the unit and API tests, the client build and the browser tests, each against its own database.
  * The demo cluster of `npm start` is never touched.
  */
@@ -41,13 +42,12 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
 
 async function preparePostgres() {
   const port = await freePort();
-  removeAbandonedClusters();
+  removeAbandonedFolders();
   const dataDir = path.join(stateDir, `pg-test-${process.pid}`);
   const cluster = startCluster({ dataDir, port, fresh: true });
   stops.push(() => {
     cluster.stop();
-    rmSync(cluster.dataDir, { recursive: true, force: true });
-    rmSync(dataDir, { force: true });
+    removeFolder(dataDir);
   });
   const templateUrl = await ensureDatabase(cluster, "kerf_template");
   await migrateDatabase(templateUrl);
@@ -58,17 +58,28 @@ async function preparePostgres() {
   return { cluster, clusterUrl: `postgres://kerf@127.0.0.1:${port}` };
 }
 
-/** Clusters left by runs that were killed; their process id no longer exists. */
-function removeAbandonedClusters(): void {
+/**
+ * Clusters and storage folders left by runs that were killed; their process id no longer exists.
+ * (Their storage daemons died with them: they run under a parent-death signal.)
+ */
+function removeAbandonedFolders(): void {
   if (!existsSync(stateDir)) return;
   for (const name of readdirSync(stateDir)) {
-    const pid = Number(/^pg-test-(\d+)$/.exec(name)?.[1]);
-    if (!pid || processAlive(pid)) continue;
-    const dir = path.join(stateDir, name);
-    const target = lstatSync(dir).isSymbolicLink() ? realpathSync(dir) : dir;
-    rmSync(target, { recursive: true, force: true });
-    rmSync(dir, { recursive: true, force: true });
+    const pid = Number(/^(?:pg|s3)-(?:test|fault)-(\d+)(?:-[\w-]+)?$/.exec(name)?.[1]);
+    if (pid && !processAlive(pid)) removeFolder(path.join(stateDir, name));
   }
+}
+
+/** A storage stand-in of this run's own, in a folder of its own, removed when the run ends. */
+function startStorage(name: string, origins: string[]) {
+  const dataDir = path.join(stateDir, `s3-test-${process.pid}-${name}`);
+  const starting = freePort().then((port) => startS3StandIn({ port, dataDir, origins }));
+  // Listed at once: a run that fails while storage is still starting stops it all the same.
+  stops.push(async () => {
+    await (await starting.catch(() => null))?.stop();
+    removeFolder(dataDir);
+  });
+  return starting;
 }
 
 function processAlive(pid: number): boolean {
@@ -99,8 +110,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
   // The browser uploads straight to storage, so its stand-in must allow this app's origin (CORS).
-  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3-e2e"), origins: [appUrl] });
-  stops.push(() => s3.stop());
+  const s3 = await startStorage("e2e", [appUrl]);
   const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "inherit", "inherit"],
@@ -138,12 +148,16 @@ async function main(): Promise<number> {
   }
 
   console.log("\n── test services ──");
+  const servicesStarted = performance.now();
+  // Storage's daemons start while PostgreSQL is prepared: the slowest of the services goes first.
+  const storage = startStorage("api", ["http://kerf.test"]);
+  storage.catch(() => undefined);
   const { cluster, clusterUrl } = await preparePostgres();
   const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() });
   stops.push(() => mail.stop());
-  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3"), origins: ["http://kerf.test"] });
-  stops.push(() => s3.stop());
-  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint}`);
+  const s3 = await storage;
+  const seconds = ((performance.now() - servicesStarted) / 1000).toFixed(1);
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint} (all up in ${seconds} s)`);
 
   const testEnv = {
     NO_COLOR: "1",

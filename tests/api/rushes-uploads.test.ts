@@ -147,12 +147,11 @@ describe("completing an upload", () => {
 });
 
 describe("cancelling and abandoned uploads", () => {
-  it("when an upload is cancelled, then it is marked cancelled even though the stand-in can't abort, and takes no more parts", async () => {
+  it("when an upload is cancelled, then storage aborts it, it is marked cancelled, and takes no more parts", async () => {
     const started = await world.as.crew.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "cancel.mov", size: 9 * MiB }).expect(201);
     const id = started.body.upload.id;
     const response = await world.as.crew.send("delete", `${world.base}/uploads/${id}`).expect(200);
-    // s3rver answers AbortMultipartUpload with 405 (shared/stack/fakes.md); Kerf says so and marks it anyway.
-    expect(response.body).toEqual({ status: "cancelled", storage: "unsupported" });
+    expect(response.body).toEqual({ status: "cancelled", storage: "aborted" });
     expect((await world.as.crew.send("post", `${world.base}/uploads/${id}/part-urls`, { partNumbers: [1] }).expect(409)).body.error.message).toBe(
       "This upload was cancelled; start the file again.",
     );
