@@ -150,28 +150,33 @@ async function main(): Promise<number> {
   console.log("\n── test services ──");
   const servicesStarted = performance.now();
   // Storage's daemons start while PostgreSQL is prepared: the slowest of the services goes first.
-  const storage = startStorage("api", ["http://kerf.test"]);
-  storage.catch(() => undefined);
+  // The browser tests get a stand-in of their own later (its CORS names their server's origin).
+  const storage = browserOnly ? null : startStorage("api", ["http://kerf.test"]);
+  storage?.catch(() => undefined);
   const { cluster, clusterUrl } = await preparePostgres();
   const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() });
   stops.push(() => mail.stop());
   const s3 = await storage;
   const seconds = ((performance.now() - servicesStarted) / 1000).toFixed(1);
-  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint} (all up in ${seconds} s)`);
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}${s3 ? `, S3 stand-in ${s3.endpoint}` : ""} (up in ${seconds} s)`);
 
-  const testEnv = {
-    NO_COLOR: "1",
-    KERF_TEST_CLUSTER_URL: clusterUrl,
-    KERF_TEST_TEMPLATE_DB: "kerf_template",
-    KERF_TEST_SMTP_PORT: String(mail.smtpPort),
-    KERF_TEST_MAIL_WEB_URL: mail.webUrl,
-    KERF_TEST_S3_ENDPOINT: s3.endpoint,
-    KERF_TEST_S3_BUCKET: s3.bucket,
-    KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
-    KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
-  };
-  const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
-  if (!browserOnly) await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+  if (s3) {
+    const testEnv = {
+      NO_COLOR: "1",
+      KERF_TEST_CLUSTER_URL: clusterUrl,
+      KERF_TEST_TEMPLATE_DB: "kerf_template",
+      KERF_TEST_SMTP_PORT: String(mail.smtpPort),
+      KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+      KERF_TEST_S3_ENDPOINT: s3.endpoint,
+      KERF_TEST_S3_BUCKET: s3.bucket,
+      KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
+      KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
+    };
+    const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
+    await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+    // Its memory and processes are the browser tests' now.
+    await s3.stop();
+  }
 
   if (filters.length === 0 && (await step("client build", bin("vite"), ["build", "--logLevel", "warn"]))) {
     await browserTests(clusterUrl, cluster, mail);

@@ -2,17 +2,20 @@ import type PgBoss from "pg-boss";
 import { sweepAbandonedUploads, type RushesContext } from "./uploads.service";
 
 /**
- * Uploads nobody finished: every hour a job aborts (best effort) and marks those with no part recorded
- * for a day. pg-boss's schedule is a row, so with several app instances it still runs once an hour.
+ * Uploads nobody finished: every hour a job aborts those with no part recorded for a day in storage
+ * (Swift and many stores have no lifecycle rule to do it) and marks them abandoned. Its counts are the
+ * job's output. pg-boss's schedule is a row, so with several app instances it still runs once an hour.
  */
 export const ABANDONED_UPLOADS_QUEUE = "rushes-abandoned-uploads";
 export const ABANDONED_UPLOADS_CRON = "17 * * * *";
 
-export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext): Promise<void> {
+export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number } = {}): Promise<void> {
   await boss.createQueue(ABANDONED_UPLOADS_QUEUE);
   await boss.schedule(ABANDONED_UPLOADS_QUEUE, ABANDONED_UPLOADS_CRON, {}, { tz: "UTC" });
-  await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1 }, async () => {
-    const { abandoned } = await sweepAbandonedUploads(ctx);
-    if (abandoned > 0) console.log(`[rushes] ${abandoned} abandoned upload(s) aborted`);
+  await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async () => {
+    const counts = await sweepAbandonedUploads(ctx);
+    if (counts.abandoned > 0) console.log(`[rushes] ${counts.abandoned} abandoned upload(s) aborted`);
+    if (counts.deferred > 0) console.error(`[rushes] ${counts.deferred} abandoned upload(s) left for the next sweep`);
+    return counts;
   });
 }

@@ -80,8 +80,8 @@ export function rushesRoutes(deps: AppDeps): RouteSpec[] {
       path: `${C}/uploads/:uploadId/part-urls`,
       access: footageW,
       handler: async (req, res) => {
-        const { partNumbers } = parseBody(partUrlsSchema, req.body);
-        res.json(await uploads.signParts(ctx, memberOf(req), parseId(req.params.uploadId, "Upload"), partNumbers));
+        const { parts } = parseBody(partUrlsSchema, req.body);
+        res.json(await uploads.signParts(ctx, memberOf(req), parseId(req.params.uploadId, "Upload"), parts));
       },
     },
     {
