@@ -113,7 +113,7 @@ async function backendPorts(proxy: number, recorded: SwiftPorts | undefined): Pr
   return { account: account!, container: container!, object: object!, memcached: memcached! };
 }
 
-/** Swift retries a taken port for half a minute before it gives up: say so at once instead. */
+/** A taken port would only show as a daemon that stops after its bind timeout: say so at once instead. */
 async function mustBeFree(ports: SwiftPorts): Promise<void> {
   for (const [server, port] of Object.entries(ports)) {
     if (!(await portIsFree(port))) throw new Error(`port ${port} (the S3 stand-in's ${server === "memcached" ? "memcached" : `${server} server`}) is in use`);

@@ -31,6 +31,8 @@ export interface SwiftSettings {
 const common = (s: SwiftSettings, port: number) => `[DEFAULT]
 bind_ip = 127.0.0.1
 bind_port = ${port}
+# A port taken after it was checked: fail in seconds, not the default half minute.
+bind_timeout = 5
 workers = 0
 user = ${s.user}
 swift_dir = ${s.dir}
