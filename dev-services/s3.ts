@@ -52,6 +52,45 @@ const pythonEnv = { ...process.env, EVENTLET_NO_GREENDNS: "yes" };
 
 export async function startS3StandIn(options: S3StandInOptions): Promise<S3StandIn> {
   const bucket = options.bucket ?? "kerf-rushes";
+  const folder = await prepareFolder(options);
+  const { settings } = folder;
+  const daemons = new Daemons(settings.dir);
+  try {
+    await startServers(daemons, folder);
+    const endpoint = `http://127.0.0.1:${settings.ports.proxy}`;
+    const accessKeyId = `${ACCOUNT}:${USER}`;
+    await daemons.whileRunning(ensureBucket(endpoint, bucket, accessKeyId, settings.key));
+    return {
+      endpoint,
+      bucket,
+      accessKeyId,
+      secretAccessKey: settings.key,
+      env: {
+        S3_ENDPOINT: endpoint,
+        S3_REGION: "us-east-1",
+        S3_BUCKET: bucket,
+        S3_ACCESS_KEY_ID: accessKeyId,
+        S3_SECRET_ACCESS_KEY: settings.key,
+        S3_FORCE_PATH_STYLE: "true",
+      },
+      stop: () => daemons.stop(),
+    };
+  } catch (error) {
+    await daemons.stop();
+    throw error;
+  }
+}
+
+/** A folder ready for a start: its settings, the ports its rings name, and how to record new ones. */
+interface PreparedFolder {
+  settings: SwiftSettings;
+  recorded?: SwiftPorts;
+  /** Notes this start's ports as the rings' own: called only once the rings name them. */
+  rememberPorts(): void;
+}
+
+/** The folder, its kept state, the ports for this start and the configuration files, written. */
+async function prepareFolder(options: S3StandInOptions): Promise<PreparedFolder> {
   const dir = reachableFolder(path.resolve(options.dataDir), swiftUser(), "s3");
   mkdirSync(path.join(dir, "devices", "d1"), { recursive: true });
   mkdirSync(path.join(dir, "logs"), { recursive: true });
@@ -68,38 +107,22 @@ export async function startS3StandIn(options: S3StandInOptions): Promise<S3Stand
   for (const server of storageServers) files[`${server}-server.conf`] = storageServerConf(settings, server);
   for (const [name, text] of Object.entries(files)) writeFileSync(path.join(dir, name), text, { mode: 0o600 });
   giveTo(settings.user, dir, path.join(dir, "devices"), path.join(dir, "devices", "d1"), ...Object.keys(files).map((name) => path.join(dir, name)));
+  const rememberPorts = () => writeFileSync(stateFile, JSON.stringify({ ...state, ports }, null, 2), { mode: 0o600 });
+  return { settings, recorded: state.ports, rememberPorts };
+}
 
-  const daemons = new Daemons(dir);
-  try {
-    // The storage servers read no ring: they start while the rings are built; the proxy needs them.
-    daemons.start("memcached", "memcached", ["-l", "127.0.0.1", "-p", String(ports.memcached), "-U", "0", "-m", "32"], isRoot() ? "memcache" : null);
-    for (const server of storageServers) daemons.start(server, `swift-${server}-server`, [path.join(dir, `${server}-server.conf`), "-v"], swiftRunAs());
-    if (!ringsMatch(dir, state.ports, ports)) await daemons.whileRunning(buildRings(dir, ports));
-    writeFileSync(stateFile, JSON.stringify({ ...state, ports }, null, 2), { mode: 0o600 });
-    daemons.start("proxy", "swift-proxy-server", [path.join(dir, "proxy-server.conf"), "-v"], swiftRunAs());
-    await daemons.whileRunning(Promise.all((["account", "container", "object", "proxy"] as const).map((s) => waitForHttp(`http://127.0.0.1:${ports[s]}/healthcheck`, 60_000))));
-    const endpoint = `http://127.0.0.1:${ports.proxy}`;
-    const accessKeyId = `${ACCOUNT}:${USER}`;
-    await daemons.whileRunning(ensureBucket(endpoint, bucket, accessKeyId, state.key));
-    return {
-      endpoint,
-      bucket,
-      accessKeyId,
-      secretAccessKey: state.key,
-      env: {
-        S3_ENDPOINT: endpoint,
-        S3_REGION: "us-east-1",
-        S3_BUCKET: bucket,
-        S3_ACCESS_KEY_ID: accessKeyId,
-        S3_SECRET_ACCESS_KEY: state.key,
-        S3_FORCE_PATH_STYLE: "true",
-      },
-      stop: () => daemons.stop(),
-    };
-  } catch (error) {
-    await daemons.stop();
-    throw error;
-  }
+/** memcached and the four servers, each answering its health check; the rings built when the ports moved. */
+async function startServers(daemons: Daemons, { settings, recorded, rememberPorts }: PreparedFolder): Promise<void> {
+  const { dir, ports } = settings;
+  // The storage servers read no ring: they start while the rings are built; the proxy needs them.
+  daemons.start("memcached", "memcached", ["-l", "127.0.0.1", "-p", String(ports.memcached), "-U", "0", "-m", "32"], isRoot() ? "memcache" : null);
+  for (const server of storageServers) daemons.start(server, `swift-${server}-server`, [path.join(dir, `${server}-server.conf`), "-v"], swiftRunAs());
+  // A start stopped while the rings are built must not leave them recorded for ports they don't name.
+  if (!ringsMatch(dir, recorded, ports)) await daemons.whileRunning(buildRings(dir, ports));
+  rememberPorts();
+  daemons.start("proxy", "swift-proxy-server", [path.join(dir, "proxy-server.conf"), "-v"], swiftRunAs());
+  const servers = ["account", "container", "object", "proxy"] as const;
+  await daemons.whileRunning(Promise.all(servers.map((s) => waitForHttp(`http://127.0.0.1:${ports[s]}/healthcheck`, 60_000))));
 }
 
 /** The ports the folder's rings already name when they are still free; otherwise new free ones. */
