@@ -1,6 +1,6 @@
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import path from "node:path";
-import { stopChild, waitForHttp } from "./processes";
+import { spawnTied, stopChild, waitForHttp } from "./processes";
 
 /**
  * The local mail stand-in: maildev catches every message sent over SMTP, shows it in a web inbox
@@ -15,7 +15,7 @@ export interface MailCatcher {
 const maildevBin = path.resolve(import.meta.dirname, "../node_modules/maildev/dist/bin/maildev.js");
 
 export async function startMailCatcher(options: { smtpPort: number; webPort: number }): Promise<MailCatcher> {
-  const child: ChildProcess = spawn(
+  const child: ChildProcess = spawnTied(
     process.execPath,
     [maildevBin, "--smtp", String(options.smtpPort), "--web", String(options.webPort), "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--silent"],
     { stdio: ["ignore", "ignore", "inherit"] },

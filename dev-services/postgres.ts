@@ -74,9 +74,14 @@ export function startCluster(options: { dataDir: string; port: number; fresh?: b
   };
 }
 
-function stopAt(bin: string, dataDir: string): void {
+/** A cluster left running by a run that was killed (pg_ctl starts it detached): stopped at once. */
+export function stopLeftoverCluster(dataDir: string): void {
+  if (existsSync(path.join(dataDir, "postmaster.pid"))) stopAt(postgresBinDir(), dataDir, "immediate");
+}
+
+function stopAt(bin: string, dataDir: string, mode: "fast" | "immediate" = "fast"): void {
   try {
-    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-m", "fast", "-w", "stop"], { quiet: true });
+    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true });
   } catch (error) {
     console.error(`[postgres] stop failed: ${(error as Error).message}`);
   }

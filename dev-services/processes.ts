@@ -50,10 +50,20 @@ export async function waitForHttp(url: string, timeoutMs = 30_000): Promise<void
   }
 }
 
+/**
+ * Starts a process that dies with this one: `setpriv --pdeathsig` sends it SIGTERM when this process
+ * ends, even by SIGKILL, so no service outlives its run. `asUser` drops to that user first (as root).
+ */
+export function spawnTied(command: string, args: string[], options: SpawnOptions & { asUser?: string | null } = {}): ChildProcess {
+  const { asUser, ...spawnOptions } = options;
+  const identity = asUser ? ["--reuid", asUser, "--regid", asUser, "--init-groups"] : [];
+  return spawn("setpriv", [...identity, "--pdeathsig", "TERM", "--", command, ...args], spawnOptions);
+}
+
 /** Runs a command to completion, streaming its output; resolves to its exit code. */
 export function run(command: string, args: string[], options: SpawnOptions = {}): Promise<number> {
   return new Promise((resolve) => {
-    const child = spawn(command, args, { stdio: "inherit", ...options });
+    const child = spawnTied(command, args, { stdio: "inherit", ...options });
     child.on("exit", (code, signal) => resolve(code ?? (signal ? 1 : 0)));
     child.on("error", () => resolve(127));
   });

@@ -1,19 +1,19 @@
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { closeSync, existsSync, mkdirSync, openSync, readFileSync, writeFileSync } from "node:fs";
 import { userInfo } from "node:os";
 import path from "node:path";
 import { CreateBucketCommand } from "@aws-sdk/client-s3";
 import { makeS3Client } from "../server/storage/storage";
-import { freePorts, portIsFree, run, stopChild, waitForHttp } from "./processes";
+import { freePorts, portIsFree, run, spawnTied, stopChild, waitForHttp } from "./processes";
 import { giveTo, isRoot, reachableFolder } from "./service-user";
-import { proxyConf, storageServerConf, storageServers, swiftConf, type SwiftPorts, type SwiftSettings } from "./swift-config";
+import { proxyConf, serveScript, storageServerConf, storageServers, swiftConf, type StorageServer, type SwiftPorts, type SwiftSettings } from "./swift-config";
 
 /**
  * The local S3-compatible stand-in: Debian's OpenStack Swift with its S3 layer (s3api), tempauth and
  * memcached, all in one private folder, on loopback ports of its own. Unlike simpler stand-ins it
  * verifies every signature, so tests can prove that Kerf's presigned URLs are scoped.
- * Each daemon runs in the foreground under `setpriv --pdeathsig`: if this process dies, they die too.
+ * Each daemon runs in the foreground, tied to this process (spawnTied): if it dies, they die too.
  */
 export interface S3StandIn {
   endpoint: string;
@@ -45,10 +45,13 @@ interface FolderState {
 
 const ACCOUNT = "kerf";
 const USER = "dev";
+// Debian's Python, which has Swift (a python3 earlier on PATH may not).
+const PYTHON = "/usr/bin/python3";
 const swiftUser = () => (isRoot() ? "swift" : userInfo().username);
 const swiftRunAs = () => (isRoot() ? "swift" : null);
-// Eventlet's DNS support costs each Python process a fifth of a second to load; all here is loopback.
-const pythonEnv = { ...process.env, EVENTLET_NO_GREENDNS: "yes" };
+// Each daemon's start is mostly imports. Eventlet's DNS support costs a fifth of a second (all here is
+// loopback); setuptools' own copy of distutils, which eventlet pulls in, costs twice that of Python's.
+const pythonEnv = { ...process.env, EVENTLET_NO_GREENDNS: "yes", SETUPTOOLS_USE_DISTUTILS: "stdlib" };
 
 export async function startS3StandIn(options: S3StandInOptions): Promise<S3StandIn> {
   const bucket = options.bucket ?? "kerf-rushes";
@@ -103,7 +106,7 @@ async function prepareFolder(options: S3StandInOptions): Promise<PreparedFolder>
   const settings: SwiftSettings = { dir, ports, user: swiftUser(), hashSuffix: state.hashSuffix, account: ACCOUNT, userName: USER, key: state.key, origins: options.origins };
 
   // The configuration holds the key: readable by the servers' user only. The rings are public.
-  const files: Record<string, string> = { "swift.conf": swiftConf(settings), "proxy-server.conf": proxyConf(settings) };
+  const files: Record<string, string> = { "swift.conf": swiftConf(settings), "proxy-server.conf": proxyConf(settings), "serve.py": serveScript };
   for (const server of storageServers) files[`${server}-server.conf`] = storageServerConf(settings, server);
   for (const [name, text] of Object.entries(files)) writeFileSync(path.join(dir, name), text, { mode: 0o600 });
   giveTo(settings.user, dir, path.join(dir, "devices"), path.join(dir, "devices", "d1"), ...Object.keys(files).map((name) => path.join(dir, name)));
@@ -116,11 +119,12 @@ async function startServers(daemons: Daemons, { settings, recorded, rememberPort
   const { dir, ports } = settings;
   // The storage servers read no ring: they start while the rings are built; the proxy needs them.
   daemons.start("memcached", "memcached", ["-l", "127.0.0.1", "-p", String(ports.memcached), "-U", "0", "-m", "32"], isRoot() ? "memcache" : null);
-  for (const server of storageServers) daemons.start(server, `swift-${server}-server`, [path.join(dir, `${server}-server.conf`), "-v"], swiftRunAs());
+  const serve = (server: StorageServer | "proxy") => daemons.start(server, PYTHON, [path.join(dir, "serve.py"), dir, server, path.join(dir, `${server}-server.conf`), "-v"], swiftRunAs());
+  for (const server of storageServers) serve(server);
   // A start stopped while the rings are built must not leave them recorded for ports they don't name.
   if (!ringsMatch(dir, recorded, ports)) await daemons.whileRunning(buildRings(dir, ports));
   rememberPorts();
-  daemons.start("proxy", "swift-proxy-server", [path.join(dir, "proxy-server.conf"), "-v"], swiftRunAs());
+  serve("proxy");
   const servers = ["account", "container", "object", "proxy"] as const;
   await daemons.whileRunning(Promise.all(servers.map((s) => waitForHttp(`http://127.0.0.1:${ports[s]}/healthcheck`, 60_000))));
 }
@@ -166,8 +170,7 @@ for name, port in zip(("account", "container", "object"), sys.argv[2:5]):
 `;
 
 async function buildRings(dir: string, ports: SwiftPorts): Promise<void> {
-  // Debian's Python, which has Swift (a python3 earlier on PATH may not).
-  const code = await run("/usr/bin/python3", ["-c", ringScript, dir, ...storageServers.map((s) => String(ports[s]))], { stdio: ["ignore", "ignore", "inherit"], env: pythonEnv });
+  const code = await run(PYTHON, ["-c", ringScript, dir, ...storageServers.map((s) => String(ports[s]))], { stdio: ["ignore", "ignore", "inherit"], env: pythonEnv });
   if (code !== 0) throw new Error(`building the storage stand-in's rings failed (${code})`);
 }
 
@@ -195,8 +198,7 @@ class Daemons {
 
   start(name: string, command: string, args: string[], asUser: string | null): void {
     const log = openSync(path.join(this.dir, "logs", `${name}.log`), "a");
-    const identity = asUser ? ["--reuid", asUser, "--regid", asUser, "--init-groups"] : [];
-    const child = spawn("setpriv", [...identity, "--pdeathsig", "TERM", "--", command, ...args], { stdio: ["ignore", log, log], env: pythonEnv });
+    const child = spawnTied(command, args, { stdio: ["ignore", log, log], env: pythonEnv, asUser });
     closeSync(log);
     child.once("exit", (code, signal) => this.rejectExit(new Error(`${name} stopped (${signal ?? code}); see ${path.join(this.dir, "logs", `${name}.log`)}:\n${this.tail(name)}`)));
     this.children.push({ name, child });

@@ -1,6 +1,6 @@
 /**
  * The configuration files of the local Swift (dev-services/s3.ts): one private folder holds them with
- * the rings and the data, so /etc/swift is never read. One device, one replica, no replicators or
+ * the rings and the data, and its servers start through serveScript, so /etc/swift is never read. One device, one replica, no replicators or
  * auditors: the smallest Swift that speaks S3 and checks its signatures.
  */
 export interface SwiftPorts {
@@ -39,6 +39,27 @@ swift_dir = ${s.dir}
 devices = ${s.dir}/devices
 mount_check = false
 log_level = WARNING
+`;
+
+/**
+ * Starts one server the way swift-<server>-server does, but with the folder's swift.conf: Swift's
+ * scripts read /etc/swift/swift.conf (hash suffix, storage policies, constraints) whatever
+ * `swift_dir` says. Run as `python3 serve.py <folder> <server> <server>.conf -v`.
+ */
+export const serveScript = `import sys
+from swift.common import utils
+utils.SWIFT_CONF_FILE = sys.argv[1] + "/swift.conf"
+from swift.common import constraints, storage_policy
+constraints.reload_constraints()
+storage_policy.reload_storage_policies()
+from swift.common.wsgi import run_wsgi
+server = sys.argv[2]
+sys.argv = [f"swift-{server}-server"] + sys.argv[3:]
+conf_file, options = utils.parse_options()
+if server == "object":
+    from swift.obj.server import global_conf_callback
+    options["global_conf_callback"] = global_conf_callback
+sys.exit(run_wsgi(conf_file, f"{server}-server", **options))
 `;
 
 export function swiftConf(s: SwiftSettings): string {

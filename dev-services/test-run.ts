@@ -1,4 +1,3 @@
-import { spawn } from "node:child_process";
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import PgBoss from "pg-boss";
@@ -6,8 +5,8 @@ import { migrateDatabase } from "../server/db/migrate";
 import { startMailCatcher } from "./mail";
 import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
-import { ensureDatabase, startCluster } from "./postgres";
-import { freePort, run, stopChild, waitForHttp } from "./processes";
+import { ensureDatabase, startCluster, stopLeftoverCluster } from "./postgres";
+import { freePort, run, spawnTied, stopChild, waitForHttp } from "./processes";
 import { removeFolder } from "./service-user";
 
 /**
@@ -60,13 +59,15 @@ async function preparePostgres() {
 
 /**
  * Clusters and storage folders left by runs that were killed; their process id no longer exists.
- * (Their storage daemons died with them: they run under a parent-death signal.)
+ * Their storage and mail daemons died with them (spawnTied); a cluster is stopped here.
  */
 function removeAbandonedFolders(): void {
   if (!existsSync(stateDir)) return;
   for (const name of readdirSync(stateDir)) {
-    const pid = Number(/^(?:pg|s3)-(?:test|fault)-(\d+)(?:-[\w-]+)?$/.exec(name)?.[1]);
-    if (pid && !processAlive(pid)) removeFolder(path.join(stateDir, name));
+    const [, kind, pid] = /^(pg|s3)-(?:test|fault)-(\d+)(?:-[\w-]+)?$/.exec(name) ?? [];
+    if (!pid || processAlive(Number(pid))) continue;
+    if (kind === "pg") stopLeftoverCluster(path.join(stateDir, name));
+    removeFolder(path.join(stateDir, name));
   }
 }
 
@@ -111,7 +112,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
   const appUrl = `http://127.0.0.1:${port}`;
   // The browser uploads straight to storage, so its stand-in must allow this app's origin (CORS).
   const s3 = await startStorage("e2e", [appUrl]);
-  const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+  const server = spawnTied(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "inherit", "inherit"],
     env: {
@@ -194,13 +195,28 @@ async function main(): Promise<number> {
   return failedSteps === 0 ? 0 : 1;
 }
 
+let stopping: Promise<void> | null = null;
+/** Stops every service once, whether the run ends, fails or is interrupted (Ctrl-C). */
+function stopAll(): Promise<void> {
+  stopping ??= (async () => {
+    for (const stop of stops.reverse()) await stop();
+    if (filters.length > 0) rmSync(outputDir, { recursive: true, force: true });
+  })();
+  return stopping;
+}
+for (const signal of ["SIGINT", "SIGTERM"] as const) {
+  process.on(signal, () => {
+    console.error(`\n[test] ${signal}: stopping the test services…`);
+    void stopAll().then(() => process.exit(130));
+  });
+}
+
 let code = 1;
 try {
   code = await main();
 } catch (error) {
   console.error(`[test] ${(error as Error).stack ?? error}`);
 } finally {
-  for (const stop of stops.reverse()) await stop();
-  if (filters.length > 0) rmSync(outputDir, { recursive: true, force: true });
+  await stopAll();
 }
 process.exit(code);

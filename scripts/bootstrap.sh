@@ -13,7 +13,9 @@ as_root() {
 apt_updated=0
 apt_install() {
   [ $apt_updated = 1 ] || { echo "kerf: apt-get update…"; as_root apt-get update -q >/dev/null; apt_updated=1; }
-  echo "kerf: installing Debian's ${*#--no-install-recommends }…"
+  local names=() arg
+  for arg in "$@"; do [[ $arg == -* ]] || names+=("$arg"); done
+  echo "kerf: installing Debian's ${names[*]}…"
   DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -q "$@" >/dev/null
 }
 
@@ -28,7 +30,11 @@ fi
 
 # The S3 stand-in: Swift's four servers (its proxy carries the S3 layer) and memcached for its tokens.
 # Without --no-install-recommends apt pulls about 145 packages instead of 64.
-if ! command -v swift-proxy-server >/dev/null || ! command -v swift-object-server >/dev/null || ! command -v memcached >/dev/null; then
+missing=0
+for command in swift-proxy-server swift-account-server swift-container-server swift-object-server memcached; do
+  command -v "$command" >/dev/null || missing=1
+done
+if [ $missing = 1 ]; then
   apt_install --no-install-recommends swift-proxy swift-account swift-container swift-object memcached
 fi
 
