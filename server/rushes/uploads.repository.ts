@@ -1,7 +1,7 @@
 import { and, asc, eq, gt, inArray, lt, sql } from "drizzle-orm";
 import type { UploadStatus } from "../../shared/rushes/vocabulary";
 import type { Database } from "../db/client";
-import { clips, stills, uploadParts, uploads } from "../db/schema/rushes";
+import { clips, uploadParts, uploads } from "../db/schema/rushes";
 import { episodes } from "../db/schema/slate";
 
 export type Executor = Pick<Database, "select" | "insert" | "update" | "delete">;
@@ -121,16 +121,3 @@ export async function lockStaleUpload(db: Executor, uploadId: string, before: Da
   return rows[0] ?? null;
 }
 
-export async function insertStill(db: Executor, values: typeof stills.$inferInsert) {
-  const [row] = await db.insert(stills).values(values).returning();
-  return row!;
-}
-
-export async function findStill(db: Executor, channelId: string, stillId: string) {
-  const rows = await db
-    .select()
-    .from(stills)
-    .where(and(eq(stills.id, stillId), eq(stills.channelId, channelId)))
-    .limit(1);
-  return rows[0] ?? null;
-}

@@ -3,6 +3,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest
 import { MiB, PART_URL_SECONDS } from "../../shared/rushes/limits";
 import { ABANDONED_UPLOADS_QUEUE, scheduleRushesJobs } from "../../server/rushes/rushes.jobs";
 import { createS3Storage, makeS3Client, storageSettingsFrom } from "../../server/storage/storage";
+import { waitForJobStates } from "../support/jobs";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import { patternBytes, rushesWorld, sendPart } from "./rushes-helpers";
 
@@ -185,9 +186,8 @@ describe("the abandoned-uploads job", () => {
 
     await scheduleRushesJobs(app.jobs.boss, { db: app.db, storage: app.deps.storage }, { pollSeconds: 0.5 });
     const jobId = (await app.jobs.boss.send(ABANDONED_UPLOADS_QUEUE, {}))!;
-    const job = () => app.jobs.boss.getJobById(ABANDONED_UPLOADS_QUEUE, jobId);
-    await expect.poll(async () => (await job())?.state, { timeout: 30_000 }).toBe("completed");
-    expect((await job())!.output).toEqual({ abandoned: 1, deferred: 0 });
+    expect(await waitForJobStates(app.database.pool, [jobId])).toEqual(["completed"]);
+    expect((await app.jobs.boss.getJobById(ABANDONED_UPLOADS_QUEUE, jobId))!.output).toEqual({ abandoned: 1, deferred: 0 });
 
     expect(await leftInStorage(stale)).toEqual(nothing);
     expect((await app.database.pool.query("select status from uploads where id = $1", [stale.id])).rows).toEqual([{ status: "abandoned" }]);

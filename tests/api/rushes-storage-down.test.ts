@@ -48,7 +48,7 @@ beforeAll(async () => {
   world = await rushesWorld(app);
 });
 afterAll(() => app.close());
-// A failed assertion must not leave storage "down" for the tests after it.
+// A test that fails while a switch is on must not leave storage "down" for the tests after it.
 afterEach(() => Object.assign(faults, calm));
 
 const count = async (table: string) => (await app.database.pool.query(`select count(*)::int as n from ${table}`)).rows[0].n as number;
