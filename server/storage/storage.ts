@@ -75,6 +75,8 @@ export interface StorageSettings {
   accessKeyId: string;
   secretAccessKey: string;
   forcePathStyle: boolean;
+  /** How long a connection may take, and a request sit without a byte either way (default 5 s and 30 s). */
+  timeouts?: { connectMs: number; idleMs: number };
 }
 
 export const storageSettingsFrom = (env: Env): StorageSettings => ({
@@ -92,11 +94,15 @@ export function makeS3Client(settings: StorageSettings): S3Client {
     region: settings.region,
     forcePathStyle: settings.forcePathStyle,
     credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
-    // With the SDK's defaults a streamed PutObject is sent aws-chunked (the stand-in stores the framing
-    // as the object) and presigned URLs carry the checksum of an empty body: checksums only when required.
+    // With the SDK's defaults a streamed PutObject is sent aws-chunked (which some stores refuse and
+    // others store framing and all) and presigned URLs carry the checksum of an empty body: checksums
+    // only when required.
     requestChecksumCalculation: "WHEN_REQUIRED",
     responseChecksumValidation: "WHEN_REQUIRED",
     maxAttempts: 2,
+    // A store that takes the connection and never answers would otherwise hold the caller (and the
+    // row lock a cancel or the sweep holds across its call) for ever: it counts as down instead.
+    requestHandler: { connectionTimeout: settings.timeouts?.connectMs ?? 5_000, socketTimeout: settings.timeouts?.idleMs ?? 30_000 },
   });
 }
 
