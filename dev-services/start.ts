@@ -20,6 +20,7 @@ const PG_PORT = Number(process.env.KERF_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.KERF_SMTP_PORT ?? 1025);
 const MAIL_WEB_PORT = Number(process.env.KERF_MAIL_WEB_PORT ?? 1080);
 const APP_PORT = Number(process.env.PORT ?? 3000);
+// The S3 endpoint; Swift's account, container and object servers and memcached take the four after it.
 const S3_PORT = Number(process.env.KERF_S3_PORT ?? 4568);
 const PAYMENTS_PORT = Number(process.env.KERF_PAYMENTS_PORT ?? 4590);
 
@@ -36,7 +37,19 @@ process.on("SIGINT", () => void stopAll(0));
 process.on("SIGTERM", () => void stopAll(0));
 
 try {
-  console.log("[kerf] starting PostgreSQL…");
+  console.log("[kerf] starting the S3 stand-in (Swift) and PostgreSQL…");
+  // Pages served by Kerf itself and by Vite's dev server (npm run dev) upload straight to it.
+  const appOrigin = new URL(process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`).origin;
+  const storage = startS3StandIn({
+    port: S3_PORT,
+    backendPorts: { account: S3_PORT + 1, container: S3_PORT + 2, object: S3_PORT + 3, memcached: S3_PORT + 4 },
+    dataDir: path.join(stateDir, "swift"),
+    origins: [appOrigin, "http://127.0.0.1:5173", "http://localhost:5173"],
+  }).catch((error: Error) => {
+    const hint = /in use/.test(error.message) ? ` (the S3 stand-in takes KERF_S3_PORT=${S3_PORT} and the four ports after it; set KERF_S3_PORT to move them)` : "";
+    throw new Error(`storage: ${error.message}${hint}`);
+  });
+  storage.catch(() => undefined);
   const cluster = startCluster({ dataDir: path.join(stateDir, "pg"), port: PG_PORT });
   stops.push(() => cluster.stop());
   const databaseUrl = await ensureDatabase(cluster, "kerf");
@@ -52,10 +65,7 @@ try {
   const mail = await startMailCatcher({ smtpPort: SMTP_PORT, webPort: MAIL_WEB_PORT });
   stops.push(() => mail.stop());
 
-  console.log("[kerf] starting the S3 stand-in…");
-  // Pages served by Kerf itself and by Vite's dev server (npm run dev) upload straight to it.
-  const appOrigin = new URL(process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`).origin;
-  const s3 = await startS3StandIn({ port: S3_PORT, dataDir: path.join(stateDir, "s3"), origins: [appOrigin, "http://127.0.0.1:5173", "http://localhost:5173"] });
+  const s3 = await storage;
   stops.push(() => s3.stop());
 
   console.log("[kerf] starting the payments stand-in…");

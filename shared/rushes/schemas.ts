@@ -56,9 +56,30 @@ export const startUploadSchema = z.strictObject({
 });
 export type StartUploadInput = z.input<typeof startUploadSchema>;
 
+/**
+ * `POST /uploads/:uploadId/part-urls`: the parts the browser is about to send, each with its size in
+ * bytes as it cut them (the upload's `partSize`; the last part holds the rest). Kerf checks each size
+ * against the upload's plan and signs it into the part's URL, so storage accepts exactly that many
+ * bytes for that part of that upload and refuses anything else. Answers `PartUrlsAnswer`.
+ */
 export const partUrlsSchema = z.strictObject({
-  partNumbers: z.array(z.number().int().min(1).max(10_000)).min(1, "Ask for at least one part.").max(100, "Ask for at most 100 parts at once."),
+  parts: z
+    .array(
+      z.strictObject({
+        partNumber: z.number().int().min(1).max(10_000),
+        size: z.number({ message: "Give each part's size in bytes." }).int().min(1),
+      }),
+    )
+    .min(1, "Ask for at least one part.")
+    .max(100, "Ask for at most 100 parts at once."),
 });
+export type PartUrlsInput = z.input<typeof partUrlsSchema>;
+
+/** One presigned PUT per part: bytes [start, end) of the file, until `expiresAt` (a quarter of an hour). */
+export interface PartUrlsAnswer {
+  urls: { partNumber: number; start: number; end: number; url: string }[];
+  expiresAt: string;
+}
 
 export const recordPartSchema = z.strictObject({
   etag: oneLine(200, { blank: "The part's ETag is missing." }).transform((v) => v.replaceAll('"', "")),

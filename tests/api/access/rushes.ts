@@ -72,7 +72,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       .values({ channelId, episodeId, createdBy, fileName: "matrix.mov", contentType: "video/quicktime", sizeBytes: 100, partSize: 8 * 1024 * 1024, partCount: 1, objectKey, storageUploadId })
       .returning();
     if (stored) {
-      const put = await fetch(await app.deps.storage.presignPart(objectKey, storageUploadId, 1, 60), { method: "PUT", body: Buffer.alloc(100, 3) });
+      const put = await fetch(await app.deps.storage.presignPart(objectKey, storageUploadId, 1, 100, 60), { method: "PUT", body: Buffer.alloc(100, 3) });
       await app.db.insert(uploadParts).values({ uploadId: row!.id, partNumber: 1, etag: put.headers.get("etag")!.replaceAll('"', ""), sizeBytes: 100 });
     }
     return row!;
@@ -105,7 +105,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       ok: 200,
       prepare: async () => {
         const u = await openUpload(world.owner.id);
-        return { params: { uploadId: u.id }, body: { partNumbers: [1] }, intact: uploadIntact(u.id) };
+        return { params: { uploadId: u.id }, body: { parts: [{ partNumber: 1, size: 100 }] }, intact: uploadIntact(u.id) };
       },
     },
     [`PUT ${up}/parts/:partNumber`]: {
