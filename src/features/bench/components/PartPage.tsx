@@ -7,7 +7,8 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { formatInstantDay } from "../../../lib/format";
+import { useCurrentChannel, useTimeZone } from "../../../lib/session";
 import { useDeletePart } from "../api/delete-part";
 import { usePart } from "../api/get-part";
 import { useUpdatePart } from "../api/update-part";
@@ -118,6 +119,7 @@ function PartDetails({ part }: { part: PartView }) {
 }
 
 function PartRuns({ channelId, runs }: { channelId: string; runs: PartRunView[] }) {
+  const timeZone = useTimeZone();
   return (
     <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
       <table className="w-full text-sm">
@@ -148,7 +150,7 @@ function PartRuns({ channelId, runs }: { channelId: string; runs: PartRunView[] 
               <td className="px-3 py-2">
                 <VerdictBadge verdict={run.verdict} />
               </td>
-              <td className="px-3 py-2">{new Date(run.createdAt).toLocaleDateString()}</td>
+              <td className="px-3 py-2">{formatInstantDay(run.createdAt, timeZone)}</td>
             </tr>
           ))}
         </tbody>

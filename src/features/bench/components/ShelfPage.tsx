@@ -7,6 +7,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
+import { formatMoney } from "../../../lib/format";
 import { useCurrentChannel } from "../../../lib/session";
 import { useAddPart } from "../api/add-part";
 import { useParts } from "../api/list-parts";
@@ -21,7 +22,7 @@ export function ShelfPage() {
 }
 
 const dash = <span className="text-graphite-500">–</span>;
-export const priceText = (part: PartView) => (part.price ? `${part.price.amount} ${part.price.currency}` : null);
+export const priceText = (part: PartView) => (part.price ? formatMoney(part.price.amount, part.price.currency) : null);
 
 function Shelf({ channelId, channelName, canWrite }: { channelId: string; channelName: string; canWrite: boolean }) {
   const parts = useParts(channelId);

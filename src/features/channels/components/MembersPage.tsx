@@ -10,7 +10,8 @@ import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
 import { applyServerErrors } from "../../../lib/forms";
-import { useCurrentChannel, useMe } from "../../../lib/session";
+import { formatInstant } from "../../../lib/format";
+import { useCurrentChannel, useMe, useTimeZone } from "../../../lib/session";
 import { useChangeRole, useInvite, useMembers, useRemoveMember, useRevokeInvitation } from "../api/members";
 
 const roleOptions = roles.map((role) => ({ value: role, label: roleLabels[role] }));
@@ -159,6 +160,7 @@ function MemberTable({ channelId, members, canManage }: { channelId: string; mem
 
 function PendingInvitations({ channelId, invitations, canManage }: { channelId: string; invitations: { id: string; email: string; role: Role; expiresAt: string; invitedBy: string }[]; canManage: boolean }) {
   const revoke = useRevokeInvitation(channelId);
+  const timeZone = useTimeZone();
   return (
     <section aria-labelledby="pending-heading" className="mt-8">
       <h2 id="pending-heading" className="mb-3 font-semibold">
@@ -173,7 +175,7 @@ function PendingInvitations({ channelId, invitations, canManage }: { channelId: 
               <div className="flex-1">
                 <p className="font-medium">{invitation.email}</p>
                 <p className="text-sm text-graphite-500">
-                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {new Date(invitation.expiresAt).toLocaleDateString()}
+                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {formatInstant(invitation.expiresAt, timeZone)}
                 </p>
               </div>
               {canManage && (

@@ -1,5 +1,4 @@
 import { useEffect, useRef, useState, type FormEvent } from "react";
-import { formatBytes } from "@shared/rushes/limits";
 import type { ClipDetail } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
@@ -9,7 +8,9 @@ import { api, ApiError } from "../../../lib/api-client";
 import { useClip, usePreview } from "../api/get-clip";
 import { useShootDays, useShots } from "../api/shoot";
 import { useDeleteClip, useUpdateClip } from "../api/update-clip";
-import { clipFormatText, formatDuration, formatWhen } from "./format";
+import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
+import { clipFormatText } from "./labels";
 import { MarksEditor } from "./MarksEditor";
 
 /** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks). */
@@ -43,6 +44,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
   const preview = usePreview(channelId, clip.id);
   const remove = useDeleteClip(channelId);
   const [unplayable, setUnplayable] = useState(false);
+  const timeZone = useTimeZone();
   const download = async () => {
     const { url } = await api<{ url: string }>(`/api/channels/${channelId}/clips/${clip.id}/preview?download=1`);
     window.location.assign(url);
@@ -84,9 +86,9 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
         <dt className="text-graphite-500">Picture</dt>
         <dd>{clip.width && clip.height ? `${clip.width}×${clip.height}` : "unknown"} · {clip.codec ?? "codec unknown"}</dd>
         <dt className="text-graphite-500">Recorded</dt>
-        <dd>{formatWhen(clip.recordedAt)}</dd>
+        <dd>{formatInstant(clip.recordedAt, timeZone)}</dd>
         <dt className="text-graphite-500">Size</dt>
-        <dd>{formatBytes(clip.size)}</dd>
+        <dd>{formatSize(clip.size)}</dd>
         <dt className="text-graphite-500">Checksum</dt>
         <dd className="font-mono text-xs break-all">{clip.sha256 ? `SHA-256 ${clip.sha256}` : clip.storageEtag ? `storage ETag ${clip.storageEtag}` : "none"}</dd>
       </dl>
@@ -161,7 +163,7 @@ function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
           <option value="">No day</option>
           {days.data?.map((d) => (
             <option key={d.id} value={d.id}>
-              {d.day} {d.place}
+              {formatDay(d.day)} {d.place}
             </option>
           ))}
         </select>

@@ -1,7 +1,6 @@
 import { useState, type FormEvent } from "react";
 import { useSearchParams } from "react-router-dom";
 import { filterKeys, footageQuerySchema, footageSearchParams, footageSortLabels, type FootageSort } from "@shared/rushes/footage-query";
-import { formatBytes } from "@shared/rushes/limits";
 import type { ClipView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
@@ -10,7 +9,8 @@ import { useEpisodeChoices } from "../api/list-episodes";
 import { exportUrl, useFootage, zipUrl } from "../api/list-footage";
 import { useShootDays, useShots } from "../api/shoot";
 import { ClipPanel } from "./ClipPanel";
-import { formatDuration, formatWhen } from "./format";
+import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 
 const input = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
@@ -52,7 +52,7 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
         <>
           <div className="my-3 flex flex-wrap items-center justify-between gap-3">
             <p className="text-sm text-graphite-700" aria-live="polite" data-testid="footage-totals">
-              <strong>{footage.data.totals.clips}</strong> {footage.data.totals.clips === 1 ? "clip" : "clips"} · {formatDuration(footage.data.totals.durationMs)} running time · {formatBytes(footage.data.totals.bytes)}
+              <strong>{footage.data.totals.clips}</strong> {footage.data.totals.clips === 1 ? "clip" : "clips"} · {formatDuration(footage.data.totals.durationMs)} running time · {formatSize(footage.data.totals.bytes)}
             </p>
             <div className="flex flex-wrap gap-2 text-sm">
               <span className="self-center text-graphite-500">Export this filter:</span>
@@ -145,6 +145,7 @@ function SortHeader({ label, sort, q, onSort }: { label: string; sort: FootageSo
 }
 
 function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selected: boolean; onToggle: () => void; onOpen: () => void }) {
+  const timeZone = useTimeZone();
   return (
     <tr className={selected ? "bg-ply-100" : undefined}>
       <td className="px-2 py-1.5">
@@ -159,14 +160,14 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
         </button>
         <p className="text-xs text-graphite-500">{clip.camera || clip.episodeTitle}</p>
       </td>
-      <td className="px-2 py-1.5 whitespace-nowrap">{formatWhen(clip.recordedAt)}</td>
+      <td className="px-2 py-1.5 whitespace-nowrap">{formatInstant(clip.recordedAt, timeZone)}</td>
       <td className="px-2 py-1.5 tabular-nums">{formatDuration(clip.durationMs)}</td>
       <td className="px-2 py-1.5 font-mono text-xs">{clip.startTimecode ?? "—"}</td>
       <td className="px-2 py-1.5">{clip.rating ? clipRatingLabels[clip.rating] : "—"}</td>
       <td className="px-2 py-1.5 text-xs">{clip.shotDescription ?? "—"}</td>
       <td className="px-2 py-1.5 text-xs">{clip.tags.join(", ") || "—"}</td>
       <td className="px-2 py-1.5 tabular-nums">{clip.markCount}</td>
-      <td className="px-2 py-1.5 whitespace-nowrap tabular-nums">{formatBytes(clip.size)}</td>
+      <td className="px-2 py-1.5 whitespace-nowrap tabular-nums">{formatSize(clip.size)}</td>
     </tr>
   );
 }
@@ -260,7 +261,7 @@ function EpisodeFilters({ channelId, episodeId, values }: { channelId: string; e
           <option value="">Any day</option>
           {days.data?.map((d) => (
             <option key={d.id} value={d.id}>
-              {d.day} {d.place}
+              {formatDay(d.day)} {d.place}
             </option>
           ))}
         </select>

@@ -7,7 +7,7 @@ import { Button } from "../../../components/Button";
 import { TextField } from "../../../components/TextField";
 import { applyServerErrors } from "../../../lib/forms";
 import { useMarks } from "../api/update-clip";
-import { clipFormatText } from "./format";
+import { clipFormatText } from "./labels";
 
 /** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
 export function MarksEditor({ channelId, clip }: { channelId: string; clip: ClipDetail }) {

@@ -2,6 +2,7 @@ import { Link, useParams } from "react-router-dom";
 import { shotKindLabels, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
+import { formatDay } from "../../../lib/format";
 import { useCurrentChannel } from "../../../lib/session";
 import { useShootDay } from "../api/shoot";
 
@@ -25,7 +26,7 @@ function ShootDay({ channelId, shootDayId }: { channelId: string; shootDayId: st
         ← {episodeTitle}
       </Link>
       <PageHeader
-        title={`Shoot day ${shootDay.day}`}
+        title={`Shoot day ${formatDay(shootDay.day)}`}
         subtitle={`${shootDay.place || "Place not set"} · ${shootDay.callTime ? `call ${shootDay.callTime}` : "no call time"} · ${shootDay.crew.map((c) => c.name).join(", ") || "no crew named"}`}
       />
       <section aria-labelledby="missing-heading" className="mb-8">

@@ -8,6 +8,7 @@ import { Button } from "../../../components/Button";
 import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
+import { formatDay } from "../../../lib/format";
 import { applyServerErrors } from "../../../lib/forms";
 import { useCreateShootDay, useCreateShot, useDeleteShootDay, useDeleteShot, useShootCrew, useShootDays, useShots, useUpdateShot } from "../api/shoot";
 
@@ -33,14 +34,14 @@ export function ShootPlan({ channelId, episodeId }: { channelId: string; episode
               <li key={d.id} className="flex flex-wrap items-center gap-3 px-4 py-2">
                 <div className="flex-1">
                   <Link to={`/c/${channelId}/shoot-days/${d.id}`} className="font-semibold text-rust-700 underline">
-                    {d.day}
+                    {formatDay(d.day)}
                     {d.place && ` · ${d.place}`}
                   </Link>
                   <p className="text-xs text-graphite-500">
                     {d.callTime ? `Call ${d.callTime}` : "No call time"} · {d.crew.map((c) => c.name).join(", ") || "no crew named"} · {d.missingCount} of {d.shotCount} shots still to get
                   </p>
                 </div>
-                <Button tone="quiet" onClick={() => window.confirm(`Remove the shoot day ${d.day}? Its shots stay on the list.`) && removeDay.mutate(d.id)}>
+                <Button tone="quiet" onClick={() => window.confirm(`Remove the shoot day ${formatDay(d.day)}? Its shots stay on the list.`) && removeDay.mutate(d.id)}>
                   Remove
                 </Button>
               </li>
@@ -122,7 +123,7 @@ function ShotList({ channelId, episodeId, shots, days }: { channelId: string; ep
           <div className="min-w-48 flex-1">
             <p className="font-medium">{shot.description}</p>
             <p className="text-xs text-graphite-500">
-              {shotKindLabels[shot.kind]} · {shotPriorityLabels[shot.priority]} · {days.find((d) => d.id === shot.shootDayId)?.day ?? "no day"} · {shot.clipCount} {shot.clipCount === 1 ? "clip" : "clips"}
+              {shotKindLabels[shot.kind]} · {shotPriorityLabels[shot.priority]} · {formatDay(days.find((d) => d.id === shot.shootDayId)?.day) || "no day"} · {shot.clipCount} {shot.clipCount === 1 ? "clip" : "clips"}
             </p>
           </div>
           {shot.status !== "dropped" ? (
@@ -163,7 +164,7 @@ function ShotForm({ channelId, episodeId, days }: { channelId: string; episodeId
       <SelectField label="Priority" options={shotPriorities.map((p) => ({ value: p, label: shotPriorityLabels[p] }))} {...form.register("priority")} />
       <SelectField
         label="Shoot day"
-        options={[{ value: "", label: "Not yet" }, ...days.map((d) => ({ value: d.id, label: `${d.day} ${d.place}` }))]}
+        options={[{ value: "", label: "Not yet" }, ...days.map((d) => ({ value: d.id, label: `${formatDay(d.day)} ${d.place}` }))]}
         {...form.register("shootDayId", { setValueAs: (v: string) => (v ? v : null) })}
       />
       <Button type="submit" busy={create.isPending} className="lg:mt-6">

@@ -3,16 +3,16 @@ import { commentSchema, type EpisodeComment } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { useMe } from "../../../lib/session";
+import { formatInstant } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useAddComment } from "../api/add-comment";
 import { useComments } from "../api/get-comments";
 import { usePeople } from "../api/get-people";
-import { formatInstant } from "./format";
 
 /** Comments on the episode; "@Name" mentions a member, who gets an e-mail. */
 export function ActivitySection({ channelId, episodeId }: { channelId: string; episodeId: string }) {
   const comments = useComments(channelId, episodeId);
-  const timeZone = useMe().data?.user?.timeZone ?? "UTC";
+  const timeZone = useTimeZone();
   return (
     <div className="rounded-lg border border-ply-300 bg-white p-5">
       {comments.isPending && <Loading label="Loading comments…" />}

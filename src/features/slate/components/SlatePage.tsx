@@ -14,7 +14,7 @@ import { Board } from "./Board";
 import { BoardFilterBar } from "./BoardFilterBar";
 import { Dialog } from "./Dialog";
 import { EpisodeForm } from "./EpisodeForm";
-import { formatDay } from "./format";
+import { formatDay } from "../../../lib/format";
 
 /** Every episode of the channel, one column per stage. */
 export function SlatePage() {

@@ -1,5 +1,4 @@
 import { useState } from "react";
-import { formatSeconds } from "@shared/sponsors/read";
 import { cutSchema, type DealView } from "@shared/sponsors/schemas";
 import { frameRateNames } from "@shared/timecode/rates";
 import { fieldMessages } from "@shared/http/errors";
@@ -8,6 +7,7 @@ import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
 import { ApiError } from "../../../lib/api-client";
+import { formatSeconds } from "../../../lib/format";
 import { useUpdateCut } from "../api/save-deal";
 
 /** The editor's part: the clip the sponsor reviews, and the segment's in and out in the cut. */

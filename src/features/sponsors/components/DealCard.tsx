@@ -1,12 +1,12 @@
 import { useState, type ReactNode } from "react";
 import { useForm } from "react-hook-form";
 import { roleMay, type Role } from "@shared/access/roles";
-import { formatSeconds } from "@shared/sponsors/read";
 import { dealStateLabels, dealStates, placementLabels, placements, updateDealSchema, type DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
+import { formatDay, formatSeconds } from "../../../lib/format";
 import { useUpdateDeal } from "../api/save-deal";
 import { CutPanel } from "./CutPanel";
 import { DeliverablesPanel } from "./DeliverablesPanel";
@@ -93,7 +93,7 @@ function SegmentPanel({ channelId, deal, canEdit }: { channelId: string; deal: D
         <dt className="text-graphite-500">Exclusivity</dt>
         <dd>{deal.exclusivityNotes ?? "None noted"}</dd>
         <dt className="text-graphite-500">Go-live</dt>
-        <dd>{deal.goLiveDate ? `${deal.goLiveDate} (the deal's own date)` : deal.publishDate ? `${deal.publishDate} (the publish date)` : "Follows the publish date (not set)"}</dd>
+        <dd>{deal.goLiveDate ? `${formatDay(deal.goLiveDate)} (the deal's own date)` : deal.publishDate ? `${formatDay(deal.publishDate)} (the publish date)` : "Follows the publish date (not set)"}</dd>
       </dl>
       {canEdit && (
         <div>

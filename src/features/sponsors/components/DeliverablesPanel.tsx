@@ -6,6 +6,8 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
+import { formatDay, formatInstant } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useAddDeliverable, useRemoveDeliverable, useUpdateDeliverable } from "../api/change-deliverable";
 import { useSponsorSettings } from "../api/settings";
 import { StatusTag } from "./labels";
@@ -18,12 +20,12 @@ function whenOf(item: DeliverableView): string {
 function describe(event: DeliverableEvent): string {
   switch (event.what) {
     case "created":
-      return `created${event.toDate ? `, due ${event.toDate}` : ""}${event.note ? ` (${event.note})` : ""}`;
+      return `created${event.toDate ? `, due ${formatDay(event.toDate)}` : ""}${event.note ? ` (${event.note})` : ""}`;
     case "status":
     case "review_decision":
       return `${event.what === "review_decision" ? "decided: " : ""}${label(event.fromStatus)} → ${label(event.toStatus)}${event.note ? `: “${event.note}”` : ""}`;
     case "due_moved":
-      return `due ${event.fromDate ?? "no date"} → ${event.toDate ?? "no date"}${event.note ? ` (${event.note})` : ""}`;
+      return `due ${formatDay(event.fromDate) || "no date"} → ${formatDay(event.toDate) || "no date"}${event.note ? ` (${event.note})` : ""}`;
     case "owner":
       return "changed the owner";
     default:
@@ -41,6 +43,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
   const [open, setOpen] = useState<string | null>(null);
   const [adding, setAdding] = useState(false);
   const members = settings.data?.hosts ?? [];
+  const timeZone = useTimeZone();
 
   return (
     <div className="flex flex-col gap-3">
@@ -69,7 +72,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                     </td>
                     <td className="py-2 pr-3">
                       <p className="font-medium" data-testid="due-date">
-                        {item.dueDate ?? "No date yet"}
+                        {item.dueDate ? <time dateTime={item.dueDate}>{formatDay(item.dueDate)}</time> : "No date yet"}
                       </p>
                       <p className="text-xs text-graphite-500">{whenOf(item)}</p>
                     </td>
@@ -146,7 +149,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                           {item.history.map((e) => (
                             <li key={e.id}>
                               <time dateTime={e.at} className="text-graphite-500">
-                                {new Date(e.at).toLocaleString()}
+                                {formatInstant(e.at, timeZone)}
                               </time>{" "}
                               <span className="font-medium">{e.actorName}</span>
                               {e.actorKind === "sponsor" ? " (sponsor)" : ""} {describe(e)}

@@ -3,6 +3,7 @@ import { deliverableKindLabels, deskGroupLabels, type DeskGroup } from "@shared/
 import type { DeskItem } from "@shared/sponsors/schemas";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
+import { formatDay } from "../../../lib/format";
 import { useCurrentChannel } from "../../../lib/session";
 import { useDesk } from "../api/get-desk";
 import { StatusTag } from "./labels";
@@ -36,7 +37,7 @@ function Desk({ channelId }: { channelId: string }) {
 
   return (
     <div className="mx-auto max-w-5xl">
-      <PageHeader title="Desk" subtitle={desk.data ? `Every open sponsor item, as of ${desk.data.today}.` : "Every open sponsor item."} />
+      <PageHeader title="Desk" subtitle={desk.data ? `Every open sponsor item, as of ${formatDay(desk.data.today)}.` : "Every open sponsor item."} />
       {desk.isPending && <Loading label="Loading the desk…" />}
       {desk.isError && <LoadError error={desk.error} retry={() => void desk.refetch()} />}
       {desk.data && (
@@ -98,7 +99,7 @@ function Group({ channelId, group, items }: { channelId: string; group: DeskGrou
         {items.map((item) => (
           <li key={item.id} className="grid gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
             <span className={`text-sm font-semibold ${group === "overdue" ? "text-alarm-600" : ""}`}>
-              {item.dueDate ?? "No date"}
+              {formatDay(item.dueDate) || "No date"}
               {item.daysLate > 0 && <span className="block text-xs font-normal">{item.daysLate} days late</span>}
             </span>
             <span>

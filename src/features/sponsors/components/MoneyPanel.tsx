@@ -6,7 +6,7 @@ import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
 import { useUpdateMoney } from "../api/save-deal";
-import { money as formatMoney } from "./labels";
+import { formatDay, formatMoney } from "../../../lib/format";
 import { numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
 
 interface MoneyForm {
@@ -59,8 +59,8 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
           <span className="text-graphite-500">Paid</span> {value.paymentTermsDays} days {paymentTermsLabels[value.paymentTermsFrom]}
         </p>
         <p>
-          <span className="text-graphite-500">Invoice</span> {value.invoiceNumber ? `${value.invoiceNumber}${value.invoicedOn ? ` of ${value.invoicedOn}` : ""}` : "not yet"}
-          {value.paidOn ? `, paid ${value.paidOn}` : ""}
+          <span className="text-graphite-500">Invoice</span> {value.invoiceNumber ? `${value.invoiceNumber}${value.invoicedOn ? ` of ${formatDay(value.invoicedOn)}` : ""}` : "not yet"}
+          {value.paidOn ? `, paid ${formatDay(value.paidOn)}` : ""}
         </p>
         <Button tone="quiet" className="px-2 py-1" onClick={() => setEditing(true)}>
           Edit money

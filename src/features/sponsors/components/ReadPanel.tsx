@@ -1,10 +1,11 @@
 import { useState } from "react";
 import { checkDisclosure } from "@shared/sponsors/disclosure";
-import { SPEAKING_RATE_SOURCE, analyseRead, formatSeconds, mentionsCode, mentionsLink } from "@shared/sponsors/read";
+import { SPEAKING_RATE_SOURCE, analyseRead, mentionsCode, mentionsLink } from "@shared/sponsors/read";
 import type { DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
+import { formatSeconds } from "../../../lib/format";
 import { useUpdateDeal } from "../api/save-deal";
 import { useSponsorSettings } from "../api/settings";
 import { DisclosureGuidance } from "./labels";

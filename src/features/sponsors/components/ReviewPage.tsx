@@ -1,6 +1,5 @@
 import { useState, type ReactNode } from "react";
 import { useParams } from "react-router-dom";
-import { formatSeconds } from "@shared/sponsors/read";
 import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
 import { fieldMessages } from "@shared/http/errors";
 import { Button } from "../../../components/Button";
@@ -8,7 +7,8 @@ import { Notice } from "../../../components/Notice";
 import { Loading } from "../../../components/States";
 import { Wordmark } from "../../../components/Wordmark";
 import { ApiError } from "../../../lib/api-client";
-import { useMe } from "../../../lib/session";
+import { formatInstant, formatSeconds } from "../../../lib/format";
+import { useMe, useTimeZone } from "../../../lib/session";
 import { useDecide, useReview } from "../api/review";
 import { TextArea } from "./form-tools";
 
@@ -71,12 +71,13 @@ export function ReviewPage() {
 }
 
 function Body({ token, page }: { token: string; page: ReviewPageData }) {
+  const timeZone = useTimeZone();
   switch (page.state) {
     case "decided":
       return (
         <Closed title="Thank you: your decision is recorded">
           <p>
-            {page.contactName} {decisionText[page.decision]} on {new Date(page.decidedAt).toLocaleString()}. {page.channelName} has been told by e-mail.
+            {page.contactName} {decisionText[page.decision]} on {formatInstant(page.decidedAt, timeZone)}. {page.channelName} has been told by e-mail.
           </p>
           <p className="mt-2 text-sm text-graphite-500">This link works for one decision only. For another round, the channel will send a new link.</p>
         </Closed>
@@ -100,6 +101,7 @@ function Body({ token, page }: { token: string; page: ReviewPageData }) {
 
 function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageData, { state: "open" }> }) {
   const decide = useDecide(token);
+  const timeZone = useTimeZone();
   const [decision, setDecision] = useState<ReviewDecision | null>(null);
   const [comment, setComment] = useState("");
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -119,7 +121,7 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
         </p>
         <h1 className="mt-1 text-2xl font-bold">Review: {page.deliverableTitle}</h1>
         <p className="mt-1 text-graphite-700">
-          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {new Date(page.expiresAt).toLocaleString()}.
+          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {formatInstant(page.expiresAt, timeZone)}.
         </p>
       </header>
       <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-6">

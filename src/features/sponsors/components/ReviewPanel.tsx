@@ -6,6 +6,8 @@ import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
 import { ApiError } from "../../../lib/api-client";
+import { formatInstant, formatInstantDay } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useRevokeReviewLink, useSendReviewLink } from "../api/review-links";
 import { Tag } from "./form-tools";
 
@@ -23,6 +25,7 @@ export function ReviewPanel({ channelId, deal }: { channelId: string; deal: Deal
   const [days, setDays] = useState(String(REVIEW_LINK_DEFAULT_DAYS));
   const [sentTo, setSentTo] = useState<string | null>(null);
   const fields = send.error instanceof ApiError ? send.error.fields : {};
+  const timeZone = useTimeZone();
 
   const onSend = async () => {
     setSentTo(null);
@@ -59,11 +62,11 @@ export function ReviewPanel({ channelId, deal }: { channelId: string; deal: Deal
             <li key={link.id} className="flex flex-wrap items-center gap-3 px-3 py-2" data-testid="review-link">
               <Tag tone={stateTone[link.state]}>{stateLabel[link.state]}</Tag>
               <span className="flex-1">
-                <span className="font-medium">{link.deliverableTitle}</span> to {link.contactName} · sent {new Date(link.sentAt).toLocaleDateString()} by {link.sentByName} · open until{" "}
-                {new Date(link.expiresAt).toLocaleDateString()}
+                <span className="font-medium">{link.deliverableTitle}</span> to {link.contactName} · sent {formatInstantDay(link.sentAt, timeZone)} by {link.sentByName} · open until{" "}
+                {formatInstant(link.expiresAt, timeZone)}
                 {link.decision && (
                   <span className="block text-graphite-700">
-                    {link.decision === "approved" ? "Approved" : "Changes asked"} on {new Date(link.decidedAt!).toLocaleString()}
+                    {link.decision === "approved" ? "Approved" : "Changes asked"} on {formatInstant(link.decidedAt!, timeZone)}
                     {link.comment ? `: “${link.comment}”` : ""}
                   </span>
                 )}

@@ -8,11 +8,11 @@ import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
+import { formatDay, formatMoney } from "../../../lib/format";
 import { useCurrentChannel } from "../../../lib/session";
 import { useSponsor } from "../api/get-sponsor";
 import { useSponsors } from "../api/list-sponsors";
 import { useAddContact, useCreateSponsor, useRemoveContact, useUpdateSponsor } from "../api/save-sponsor";
-import { money } from "./labels";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
 import { TextArea, placeServerErrors, schemaResolver } from "./form-tools";
@@ -164,8 +164,8 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                   </td>
                   <td className="py-2">{dealStateLabels[deal.state]}</td>
                   <td className="py-2">{placementLabels[deal.placement]}</td>
-                  <td className="py-2">{deal.publishDate ?? "No date"}</td>
-                  {deal.money && <td className="py-2 text-right">{money(deal.money.fee, deal.money.currency)}</td>}
+                  <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
+                  {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
                 </tr>
               ))}
             </tbody>

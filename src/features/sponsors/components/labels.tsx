@@ -41,11 +41,3 @@ export function DisclosureGuidance() {
     </aside>
   );
 }
-
-export const money = (amount: number, currency: string) => {
-  try {
-    return new Intl.NumberFormat(undefined, { style: "currency", currency }).format(amount);
-  } catch {
-    return `${amount.toFixed(2)} ${currency}`;
-  }
-};
