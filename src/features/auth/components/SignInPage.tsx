@@ -5,10 +5,10 @@ import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import { signInSchema, type SignInInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
 import { useSignIn } from "../api/session-mutations";
 import { AuthCard } from "../../../components/AuthCard";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 export function SignInPage() {
   const navigate = useNavigate();

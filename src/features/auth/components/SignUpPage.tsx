@@ -5,10 +5,10 @@ import { Link, useNavigate } from "react-router-dom";
 import { signUpSchema, type SignUpInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
 import { useSignUp } from "../api/session-mutations";
 import { AuthCard } from "../../../components/AuthCard";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const fields = ["name", "email", "password", "channelName"] as const;
 

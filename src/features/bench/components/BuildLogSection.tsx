@@ -3,21 +3,19 @@ import { useForm } from "react-hook-form";
 import { roleMay } from "@shared/access/roles";
 import { formatFigure } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
-import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
+import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationInput, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
-import { applyServerErrors } from "../../../lib/forms";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
 import { useBuildLog } from "../api/get-build-log";
 import { useRuns } from "../api/list-runs";
 import { useUpdateIteration } from "../api/update-iteration";
-import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
 import { asEntered, Panel } from "./marks";
+import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
 
 const outcomeStyles: Record<IterationOutcome, string> = {
   pending: "bg-ply-200 text-graphite-700",
@@ -126,23 +124,24 @@ const toValues = (iteration?: IterationView): IterationFormValues => ({
   notes: iteration?.notes ?? "",
 });
 
-function toInput(values: IterationFormValues) {
-  const read = converter();
-  const input = { change: values.change, allUpMass: read.quantity(values.allUpMass, "allUpMass"), outcome: values.outcome, chosenRunId: values.chosenRunId || null, notes: values.notes };
-  return { input, errors: read.errors };
-}
+const toInput = (values: IterationFormValues, read = converter()) => ({
+  change: values.change,
+  allUpMass: read.quantity(values.allUpMass, "allUpMass"),
+  outcome: values.outcome,
+  chosenRunId: values.chosenRunId || null,
+  notes: values.notes,
+});
 
 function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { channelId: string; episodeId: string; runs: RunView[]; iteration?: IterationView; onDone?: () => void }) {
   const add = useAddIteration(channelId, episodeId);
   const update = useUpdateIteration(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<IterationFormValues>({ resolver: sharedSchemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
+  const form = useForm<IterationFormValues, unknown, IterationInput>({ resolver: schemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
   const errors = form.formState.errors;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      const input = iterationInputSchema.parse(toInput(values).input);
       if (iteration) await update.mutateAsync({ id: iteration.id, input });
       else await add.mutateAsync(input);
       form.reset(toValues());

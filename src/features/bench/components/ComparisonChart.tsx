@@ -5,7 +5,7 @@ import type { PlanVerdict } from "@shared/bench/criteria";
 import { formatNumber, metricLabels, verdictLabels } from "@shared/bench/format";
 import { RATIO_UNIT } from "@shared/bench/quantity";
 import type { CriterionView, RunView } from "@shared/bench/schemas";
-import { SelectField } from "../../../components/SelectField";
+import { SelectField } from "../../../components/form-fields";
 
 const yChoices: ComparisonKey[] = ["thrust_per_watt", "thrust", "thrust_to_weight", "power_per_gram", "electrical_power"];
 const xChoices: ComparisonKey[] = ["mass", "electrical_power"];

@@ -5,17 +5,15 @@ import { CUSTOM_HAZARD, FLYING_NOTE, SAFETY_NOTE, hazardCatalogue, hazardKinds, 
 import { hazardInputSchema, type HazardInput, type HazardView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
 import { Empty } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { formatInstantDay } from "../../../lib/format";
-import { applyServerErrors } from "../../../lib/forms";
 import { useTimeZone } from "../../../lib/session";
 import { useAddHazard } from "../api/add-hazard";
 import { useDeleteHazard } from "../api/delete-hazard";
 import { useUpdateHazard } from "../api/update-hazard";
-import { TextAreaField } from "./form-kit";
 import { Caution, Panel } from "./marks";
+import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const hazardOptions = [
   ...hazardKinds.map((kind) => ({ value: kind, label: hazardCatalogue[kind].label })),

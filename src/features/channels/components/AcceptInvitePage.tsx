@@ -9,12 +9,12 @@ import type { InvitationPreview } from "@shared/channels/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { ApiError } from "../../../lib/api-client";
-import { applyServerErrors } from "../../../lib/forms";
 import { useMe } from "../../../lib/session";
 import { AuthCard } from "../../../components/AuthCard";
 import { useAcceptInvitation, useInvitation } from "../api/invitation";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const newcomerSchema = z.object({ name: personNameSchema, password: passwordSchema });
 type Newcomer = z.infer<typeof newcomerSchema>;

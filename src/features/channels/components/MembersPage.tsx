@@ -6,13 +6,12 @@ import { inviteSchema, type InviteInput, type Member } from "@shared/channels/sc
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
 import { formatInstant } from "../../../lib/format";
 import { useCurrentChannel, useMe, useTimeZone } from "../../../lib/session";
 import { useChangeRole, useInvite, useMembers, useRemoveMember, useRevokeInvitation } from "../api/members";
+import { SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const roleOptions = roles.map((role) => ({ value: role, label: roleLabels[role] }));
 

@@ -4,10 +4,10 @@ import { z } from "zod";
 import type { ClipDetail } from "@shared/rushes/schemas";
 import { markRangeAt } from "@shared/timecode/schemas";
 import { Button } from "../../../components/Button";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
 import { useMarks } from "../api/update-clip";
 import { clipFormatText } from "./labels";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 /** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
 export function MarksEditor({ channelId, clip }: { channelId: string; clip: ClipDetail }) {

@@ -5,12 +5,11 @@ import { Link } from "react-router-dom";
 import { shootDaySchema, shotSchema, type ShootDayInput, type ShotInput, type ShotView } from "@shared/rushes/schemas";
 import { shotKindLabels, shotKinds, shotPriorities, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
-import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { formatDay } from "../../../lib/format";
-import { applyServerErrors } from "../../../lib/forms";
 import { useCreateShootDay, useCreateShot, useDeleteShootDay, useDeleteShot, useShootCrew, useShootDays, useShots, useUpdateShot } from "../api/shoot";
+import { SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 /** The episode's shoot days and its shot list, with which shots already have footage. */
 export function ShootPlan({ channelId, episodeId }: { channelId: string; episodeId: string }) {

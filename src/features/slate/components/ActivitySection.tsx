@@ -1,6 +1,7 @@
 import { useRef, useState, type ReactNode } from "react";
 import { commentSchema, type EpisodeComment } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
+import { TextAreaField } from "../../../components/form-fields";
 import { Notice } from "../../../components/Notice";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { formatInstant } from "../../../lib/format";
@@ -100,22 +101,14 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
       }}
       noValidate
     >
-      <label htmlFor="comment-body" className="text-sm font-medium text-graphite-700">
-        Add a comment
-      </label>
-      <textarea
-        id="comment-body"
+      <TextAreaField
+        label="Add a comment"
         ref={box}
-        rows={3}
         value={body}
         onChange={(e) => setBody(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby="comment-help"
-        className={`mt-1 w-full rounded-md border bg-white px-3 py-2 shadow-inner ${error ? "border-alarm-600" : "border-ply-300"}`}
+        error={error ?? undefined}
+        hint="Type @ and a member's name, or pick one below, to send them an e-mail."
       />
-      <p id="comment-help" className={`text-xs ${error ? "text-alarm-600" : "text-graphite-500"}`}>
-        {error ?? "Type @ and a member's name, or pick one below, to send them an e-mail."}
-      </p>
       <div className="mt-2 flex flex-wrap items-center gap-1 text-xs">
         <span className="text-graphite-500">Mention:</span>
         {(people.data ?? []).map((p) => (

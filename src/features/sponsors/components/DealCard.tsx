@@ -4,8 +4,6 @@ import { roleMay, type Role } from "@shared/access/roles";
 import { dealStateLabels, dealStates, placementLabels, placements, updateDealSchema, type DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { formatDay, formatSeconds } from "../../../lib/format";
 import { useUpdateDeal } from "../api/save-deal";
 import { CutPanel } from "./CutPanel";
@@ -14,7 +12,8 @@ import { DealStateTag } from "./labels";
 import { MoneyPanel } from "./MoneyPanel";
 import { ReadPanel } from "./ReadPanel";
 import { ReviewPanel } from "./ReviewPanel";
-import { TextArea, errorAt, linesOf, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, linesOf, numberFrom, schemaResolver } from "../../../lib/forms";
 
 function Part({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -151,7 +150,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
       await update.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, segmentNames, segmentField));
+      setFormError(applyServerErrors(error, form.setError, segmentNames, segmentField));
     }
   });
   return (
@@ -162,7 +161,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
         <SelectField label="Placement" options={placements.map((p) => ({ value: p, label: placementLabels[p] }))} {...form.register("placement")} error={errors.placement?.message} />
         <TextField label="Contracted length (seconds)" inputMode="numeric" {...form.register("segmentSeconds")} error={errors.segmentSeconds?.message} />
       </div>
-      <TextArea label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
+      <TextAreaField label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="Link" {...form.register("link")} error={errors.link?.message} />
         <TextField label="Promo code" {...form.register("promoCode")} error={errors.promoCode?.message} />

@@ -4,14 +4,14 @@ import { anchorLabels, anchors, describeDating, deliverableKindLabels, deliverab
 import { newDeliverableSchema, type DealView, type DeliverableEvent, type DeliverableView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { formatDay, formatInstant } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useAddDeliverable, useRemoveDeliverable, useUpdateDeliverable } from "../api/change-deliverable";
 import { useSponsorSettings } from "../api/settings";
 import { StatusTag } from "./labels";
-import { Tag, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
+import { Tag } from "./labels";
 
 function whenOf(item: DeliverableView): string {
   return item.anchor === "fixed" ? "set by hand" : describeDating(item.anchor, item.offsetDays);
@@ -210,7 +210,7 @@ function AddItemForm({ channelId, dealId, members, onDone }: { channelId: string
       await add.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["kind", "title", "anchor", "offsetDays", "fixedDate", "ownerId"]));
+      setFormError(applyServerErrors(error, form.setError, ["kind", "title", "anchor", "offsetDays", "fixedDate", "ownerId"]));
     }
   });
   return (

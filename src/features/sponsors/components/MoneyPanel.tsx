@@ -3,11 +3,10 @@ import { useForm } from "react-hook-form";
 import { moneySchema, paymentTermsFrom, paymentTermsLabels, type DealView, type Money } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { useUpdateMoney } from "../api/save-deal";
 import { formatDay, formatMoney } from "../../../lib/format";
-import { numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
 
 interface MoneyForm {
   fee: string;
@@ -45,7 +44,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
       await update.mutateAsync(body);
       setEditing(false);
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, names));
+      setFormError(applyServerErrors(error, form.setError, names));
     }
   });
 

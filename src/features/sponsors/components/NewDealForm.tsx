@@ -5,12 +5,11 @@ import { describeDating } from "@shared/sponsors/deliverables";
 import { createDealSchema, dealStateLabels, dealStates, paymentTermsFrom, paymentTermsLabels, placementLabels, placements } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { useCreateDeal } from "../api/save-deal";
 import { useSponsors } from "../api/list-sponsors";
 import { useTemplates } from "../api/templates";
-import { TextArea, errorAt, linesOf, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, linesOf, numberFrom, schemaResolver } from "../../../lib/forms";
 
 interface DealForm {
   sponsorId: string;
@@ -92,7 +91,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
       await create.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, fieldNames, fieldFor));
+      setFormError(applyServerErrors(error, form.setError, fieldNames, fieldFor));
     }
   });
 
@@ -141,7 +140,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
         <SelectField label="Placement" options={placements.map((p) => ({ value: p, label: placementLabels[p] }))} {...form.register("placement")} error={errors.placement?.message} />
         <TextField label="Contracted length (seconds)" inputMode="numeric" {...form.register("segmentSeconds")} error={errors.segmentSeconds?.message} />
       </div>
-      <TextArea label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
+      <TextAreaField label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Link" placeholder="https://" {...form.register("link")} error={errors.link?.message} />
         <TextField label="Promo code" {...form.register("promoCode")} error={errors.promoCode?.message} />

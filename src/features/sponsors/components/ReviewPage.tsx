@@ -1,7 +1,7 @@
 import { useState, type ReactNode } from "react";
+import { useForm } from "react-hook-form";
 import { useParams } from "react-router-dom";
-import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
-import { fieldMessages } from "@shared/http/errors";
+import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewDecisionInput, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Loading } from "../../../components/States";
@@ -10,7 +10,8 @@ import { ApiError } from "../../../lib/api-client";
 import { formatInstant, formatSeconds } from "../../../lib/format";
 import { useMe, useTimeZone } from "../../../lib/session";
 import { useDecide, useReview } from "../api/review";
-import { TextArea } from "./form-tools";
+import { TextAreaField } from "../../../components/form-fields";
+import { applyServerErrors, schemaResolver } from "../../../lib/forms";
 
 function Frame({ children }: { children: ReactNode }) {
   return (
@@ -99,20 +100,27 @@ function Body({ token, page }: { token: string; page: ReviewPageData }) {
   }
 }
 
+interface DecisionValues {
+  decision: ReviewDecision | null;
+  comment: string;
+}
+
+const decisionResolver = schemaResolver(reviewDecisionSchema, (v: DecisionValues) => v);
+
 function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageData, { state: "open" }> }) {
   const decide = useDecide(token);
   const timeZone = useTimeZone();
-  const [decision, setDecision] = useState<ReviewDecision | null>(null);
-  const [comment, setComment] = useState("");
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const submit = async () => {
-    const parsed = reviewDecisionSchema.safeParse({ decision, comment });
-    if (!parsed.success) return setErrors(fieldMessages(parsed.error.issues));
-    setErrors({});
-    await decide.mutateAsync(parsed.data).catch((error: unknown) => {
-      if (error instanceof ApiError) setErrors(error.fields);
-    });
-  };
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<DecisionValues, unknown, ReviewDecisionInput>({ resolver: decisionResolver, defaultValues: { decision: null, comment: "" } });
+  const errors = form.formState.errors;
+  const onSubmit = form.handleSubmit(async (body) => {
+    setFormError(null);
+    try {
+      await decide.mutateAsync(body);
+    } catch (error) {
+      setFormError(applyServerErrors(error, form.setError, ["decision", "comment"]));
+    }
+  });
   return (
     <>
       <header className="rounded-xl border border-ply-300 bg-white p-6 shadow-sm">
@@ -153,30 +161,30 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
           </video>
         </section>
       )}
-      <section aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+      <form onSubmit={onSubmit} noValidate aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
         <h2 id="decision-heading" className="mb-3 text-lg font-semibold">
           Your decision
         </h2>
         <fieldset className="mb-3 flex flex-wrap gap-4">
           <legend className="sr-only">Decision</legend>
           <label className="flex items-center gap-2">
-            <input type="radio" name="decision" checked={decision === "approved"} onChange={() => setDecision("approved")} /> Approve
+            <input type="radio" value="approved" {...form.register("decision")} /> Approve
           </label>
           <label className="flex items-center gap-2">
-            <input type="radio" name="decision" checked={decision === "changes_asked"} onChange={() => setDecision("changes_asked")} /> Ask for changes
+            <input type="radio" value="changes_asked" {...form.register("decision")} /> Ask for changes
           </label>
         </fieldset>
-        {errors.decision && <p className="mb-2 text-sm text-alarm-600">{errors.decision}</p>}
-        <TextArea label="Comment" rows={4} value={comment} onChange={(e) => setComment(e.target.value)} hint="Needed when you ask for changes: say what should change." error={errors.comment} />
-        {decide.isError && !(decide.error instanceof ApiError && Object.keys(decide.error.fields).length) && (
+        {errors.decision && <p className="mb-2 text-sm text-alarm-600">{errors.decision.message}</p>}
+        <TextAreaField label="Comment" rows={4} {...form.register("comment")} hint="Needed when you ask for changes: say what should change." error={errors.comment?.message} />
+        {formError && (
           <div className="mt-3">
-            <Notice kind="error">{decide.error.message}</Notice>
+            <Notice kind="error">{formError}</Notice>
           </div>
         )}
-        <Button className="mt-4" busy={decide.isPending} onClick={() => void submit()}>
+        <Button type="submit" className="mt-4" busy={decide.isPending}>
           Send decision
         </Button>
-      </section>
+      </form>
     </>
   );
 }

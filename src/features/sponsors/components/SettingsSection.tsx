@@ -5,9 +5,9 @@ import { fieldMessages } from "@shared/http/errors";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { useSaveSettings, useSaveSpeakingRate, useSponsorSettings } from "../api/settings";
-import { numberFrom } from "./form-tools";
+import { TextField } from "../../../components/form-fields";
+import { numberFrom } from "../../../lib/forms";
 
 /** How early reminders go out, and each host's speaking rate for the read's estimate. */
 export function SettingsSection({ channelId, canEditReminders, canEditRates }: { channelId: string; canEditReminders: boolean; canEditRates: boolean }) {

@@ -7,7 +7,6 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { useCurrentChannel } from "../../../lib/session";
 import { useSponsor } from "../api/get-sponsor";
@@ -15,7 +14,8 @@ import { useSponsors } from "../api/list-sponsors";
 import { useAddContact, useCreateSponsor, useRemoveContact, useUpdateSponsor } from "../api/save-sponsor";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
-import { TextArea, placeServerErrors, schemaResolver } from "./form-tools";
+import { TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, schemaResolver } from "../../../lib/forms";
 
 export function SponsorsPage() {
   const channel = useCurrentChannel();
@@ -89,7 +89,7 @@ function NewSponsorForm({ channelId, onMade }: { channelId: string; onMade: (id:
       form.reset();
       onMade(sponsor.id);
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["company", "website", "notes"]));
+      setFormError(applyServerErrors(error, form.setError, ["company", "website", "notes"]));
     }
   });
   return (
@@ -189,7 +189,7 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
       await update.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["company", "website", "notes"]));
+      setFormError(applyServerErrors(error, form.setError, ["company", "website", "notes"]));
     }
   });
   return (
@@ -199,7 +199,7 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
         <TextField label="Company" {...form.register("company")} error={form.formState.errors.company?.message} />
         <TextField label="Website" {...form.register("website")} error={form.formState.errors.website?.message} />
       </div>
-      <TextArea label="Notes" rows={3} {...form.register("notes")} error={form.formState.errors.notes?.message} />
+      <TextAreaField label="Notes" rows={3} {...form.register("notes")} error={form.formState.errors.notes?.message} />
       <div className="flex gap-2">
         <Button type="submit" busy={update.isPending}>
           Save
@@ -232,7 +232,7 @@ function Contacts({ channelId, sponsor, canEdit }: { channelId: string; sponsor:
       await add.mutateAsync(body);
       form.reset();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["name", "email", "role"]));
+      setFormError(applyServerErrors(error, form.setError, ["name", "email", "role"]));
     }
   });
   return (

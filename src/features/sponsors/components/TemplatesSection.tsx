@@ -5,9 +5,9 @@ import { templateInputSchema, type DealTemplate } from "@shared/sponsors/schemas
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { useDeleteTemplate, useSaveTemplate, useTemplates } from "../api/templates";
-import { errorAt, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, numberFrom, schemaResolver } from "../../../lib/forms";
 
 const ownerRoleLabels = { "": "Whoever makes the deal", owner: "Owner", producer: "Producer", editor: "Editor" } as const;
 
@@ -102,7 +102,7 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
       await save.mutateAsync({ id: template?.id ?? null, input });
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["name"]));
+      setFormError(applyServerErrors(error, form.setError, ["name"]));
     }
   });
   return (
