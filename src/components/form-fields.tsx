@@ -15,10 +15,10 @@ interface FrameProps {
 
 const controlClass = (error?: string) => `rounded-md border bg-white px-3 py-2 text-base shadow-inner disabled:bg-ply-100 ${error ? "border-alarm-600" : "border-ply-300"}`;
 
-/** The ids a field's control points at: its error and its hint. */
+/** The id a field's control points at: its error, or else its hint (an error takes the hint's place). */
 function useFrame({ hint, error }: Omit<FrameProps, "label">) {
   const id = useId();
-  const describedBy = [error ? `${id}-error` : null, hint ? `${id}-hint` : null].filter(Boolean).join(" ") || undefined;
+  const describedBy = error ? `${id}-error` : hint ? `${id}-hint` : undefined;
   return { id, control: { id, "aria-invalid": error ? true : undefined, "aria-describedby": describedBy } };
 }
 
@@ -34,7 +34,7 @@ function Frame({ id, label, hint, error, children }: FrameProps & { id: string; 
           {error}
         </p>
       )}
-      {hint && (
+      {hint && !error && (
         <p id={`${id}-hint`} className="text-xs text-graphite-500">
           {hint}
         </p>

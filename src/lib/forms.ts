@@ -1,15 +1,13 @@
-import { toNestErrors } from "@hookform/resolvers";
-import type { FieldError, FieldErrors, FieldValues, Path, Resolver, UseFormSetError } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { FieldErrors, FieldValues, Path, Resolver, UseFormSetError } from "react-hook-form";
 import type { z } from "zod";
-import { fieldMessages } from "@shared/http/errors";
 import { ApiError } from "./api-client";
 
 /**
  * How every form judges what was typed and places what the server said. A form whose values are the
- * request body uses react-hook-form's `zodResolver(sharedSchema)`. A form that holds text the body
- * speaks numbers, units or lists for uses `schemaResolver`: it turns the values into the body, the same
- * shared zod schema the server uses judges it, each message lands on its field by path
- * ("threshold.unit", "parts.0.count"), and the submit handler receives the parsed body.
+ * request body uses react-hook-form's `zodResolver(sharedSchema)`; one that holds text the body speaks
+ * numbers, units or lists for uses `schemaResolver` (./schema-resolver.ts). Nothing here loads zod, so
+ * the signed-out pages can use it without downloading it up front (see `lazyZodResolver`).
  */
 
 /** Reads numbers and quantities out of form text, keeping a message for each field it can't read. */
@@ -55,29 +53,6 @@ export const linesOf = (text: string) =>
     .map((line) => line.trim())
     .filter((line) => line.length > 0);
 
-/**
- * The resolver for forms that hold text: `toBody` builds the request body (reading numbers with the
- * converter it is handed), the shared schema parses it, and the messages go onto the fields through
- * @hookform/resolvers' own `toNestErrors`. `fieldFor` maps a body path to the field showing it
- * ("talkingPoints.2" → "talkingPoints").
- */
-export function schemaResolver<F extends FieldValues, S extends z.ZodType>(
-  schema: S,
-  toBody: (values: F, read: Converter) => unknown,
-  fieldFor: (path: string) => string = (path) => path,
-): Resolver<F, unknown, z.output<S>> {
-  return async (values, _context, options) => {
-    const read = converter();
-    const parsed = schema.safeParse(toBody(values, read));
-    const messages: Record<string, string> = {};
-    const judged = { ...(parsed.success ? {} : fieldMessages(parsed.error.issues)), ...read.errors };
-    for (const [path, message] of Object.entries(judged)) messages[path === "_" ? "root" : fieldFor(path)] ??= message;
-    if (parsed.success && Object.keys(messages).length === 0) return { values: parsed.data, errors: {} };
-    const flat: Record<string, FieldError> = Object.fromEntries(Object.entries(messages).map(([path, message]) => [path, { type: "validation", message }]));
-    return { values: {}, errors: toNestErrors<F>(flat, options) };
-  };
-}
-
 /** The message for a field, or for its value or unit when the field is a quantity. */
 export function errorAt(errors: FieldErrors, path: string): string | undefined {
   let node: unknown = errors;
@@ -107,4 +82,16 @@ export function applyServerErrors<T extends FieldValues>(
     }
   }
   return placed && error.code === "validation_failed" ? null : error.message;
+}
+
+/**
+ * `zodResolver` for a shared schema fetched the first time the form is checked: the sign-in and
+ * sign-up pages keep zod (about 27 kB gzipped) out of their first download.
+ */
+export function lazyZodResolver<F extends FieldValues>(load: () => Promise<z.ZodType<F, F>>): Resolver<F> {
+  let resolver: Promise<Resolver<F>> | null = null;
+  return async (values, context, options) => {
+    resolver ??= load().then((schema) => zodResolver(schema) as Resolver<F>);
+    return (await resolver)(values, context, options);
+  };
 }

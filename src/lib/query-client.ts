@@ -1,8 +1,16 @@
-import { QueryClient } from "@tanstack/react-query";
+import { MutationCache, QueryCache, QueryClient } from "@tanstack/react-query";
 import { ApiError } from "./api-client";
+import { sessionKeys } from "./session";
 
 export function makeQueryClient(): QueryClient {
-  return new QueryClient({
+  // A 401 anywhere means the session ended (expired, or signed out in another tab): asking for `me`
+  // again lets the signed-in guard send the person to sign-in, and back here afterwards.
+  const onError = (error: unknown, key?: readonly unknown[]) => {
+    if (error instanceof ApiError && error.status === 401 && key?.[0] !== sessionKeys.all[0]) void queryClient.invalidateQueries({ queryKey: sessionKeys.me() });
+  };
+  const queryClient: QueryClient = new QueryClient({
+    queryCache: new QueryCache({ onError: (error, query) => onError(error, query.queryKey) }),
+    mutationCache: new MutationCache({ onError: (error) => onError(error) }),
     defaultOptions: {
       queries: {
         staleTime: 15_000,
@@ -11,4 +19,5 @@ export function makeQueryClient(): QueryClient {
       },
     },
   });
+  return queryClient;
 }

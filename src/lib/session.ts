@@ -39,3 +39,10 @@ export function useTimeZone(): string {
   const { data } = useMe();
   return data?.user?.timeZone || browserTimeZone();
 }
+
+/** The channel of a page inside `/c/:channelId`, where the membership guard has already checked it. */
+export function useChannel(): Membership {
+  const channel = useCurrentChannel();
+  if (!channel) throw new Error("This page belongs inside a channel the person is a member of.");
+  return channel;
+}

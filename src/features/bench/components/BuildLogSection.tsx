@@ -6,7 +6,7 @@ import { unitsByDimension } from "@shared/bench/quantity";
 import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationInput, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
@@ -15,7 +15,8 @@ import { useRuns } from "../api/list-runs";
 import { useUpdateIteration } from "../api/update-iteration";
 import { asEntered, Panel } from "./marks";
 import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 const outcomeStyles: Record<IterationOutcome, string> = {
   pending: "bg-ply-200 text-graphite-700",
@@ -26,25 +27,28 @@ const outcomeStyles: Record<IterationOutcome, string> = {
 
 /** Numbered iterations of the build, each with its own all-up mass and the thrust-to-weight that mass gives. */
 export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionProps) {
-  const log = useBuildLog(channelId, episodeId);
-  const runs = useRuns(channelId, episodeId);
+  const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId));
+  return (
+    <QueryState query={buildLog} loading="Loading the build log…">
+      {([log, runs]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} />}
+    </QueryState>
+  );
+}
+
+function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[] }) {
   const [editing, setEditing] = useState<string | null>(null);
-  const canWrite = roleMay(role, "bench", "W");
-  if (log.isPending || runs.isPending) return <Loading label="Loading the build log…" />;
-  if (log.isError) return <LoadError error={log.error} retry={() => void log.refetch()} />;
-  if (runs.isError) return <LoadError error={runs.error} retry={() => void runs.refetch()} />;
 
   return (
     <div className="flex flex-col gap-4">
-      {log.data.length === 0 ? (
+      {log.length === 0 ? (
         <Empty title="No iterations yet">{canWrite ? "Log the first build below: what it is, what it weighs, how it went." : "Iterations appear here as the build goes."}</Empty>
       ) : (
         <ol className="flex flex-col gap-3" aria-label="Build iterations">
-          {log.data.map((iteration) =>
+          {log.map((iteration) =>
             editing === iteration.id ? (
               <li key={iteration.id}>
                 <Panel>
-                  <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} iteration={iteration} onDone={() => setEditing(null)} />
+                  <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} iteration={iteration} onDone={() => setEditing(null)} />
                 </Panel>
               </li>
             ) : (
@@ -56,7 +60,7 @@ export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionPr
       {canWrite && editing === null && (
         <Panel>
           <h3 className="mb-3 font-semibold">Log an iteration</h3>
-          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} />
+          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} />
         </Panel>
       )}
     </div>

@@ -13,7 +13,8 @@ import { useDeleteCriterion } from "../api/delete-criterion";
 import { useUpdateCriterion } from "../api/update-criterion";
 import { Panel } from "./marks";
 import { CheckboxField, QuantityField, SelectField, TextField } from "../../../components/form-fields";
-import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 type Comparator = CriterionInput["comparator"];
 

@@ -5,7 +5,8 @@ import { partInputSchema, partKindLabels, partKinds, type PartInput, type PartKi
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface PartFormValues {
   name: string;

@@ -12,7 +12,8 @@ import { useAddRun } from "../api/add-run";
 import { useUpdateRun } from "../api/update-run";
 import { Caution } from "./marks";
 import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface RunFormValues {
   label: string;

@@ -7,7 +7,7 @@ import { unitsByDimension } from "@shared/bench/quantity";
 import { measurementLabels, testPlanInputSchema, type TestPlanInput, type TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { LoadError, Loading } from "../../../components/States";
+import { QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useTestPlan } from "../api/get-test-plan";
 import { useSaveTestPlan } from "../api/save-test-plan";
@@ -15,20 +15,23 @@ import { CriteriaPanel } from "./CriteriaPanel";
 import { Panel } from "./marks";
 import { SafetyPanel } from "./SafetyPanel";
 import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { type QuantityText, applyServerErrors, converter, errorAt, quantityText, schemaResolver } from "../../../lib/forms";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 /** The episode page's test plan sheet: the question made testable, its pass criteria and its safety list. */
 export function TestPlanSheet({ channelId, episodeId, role }: EpisodeSectionProps) {
   const plan = useTestPlan(channelId, episodeId);
-  if (plan.isPending) return <Loading label="Loading the test plan…" />;
-  if (plan.isError) return <LoadError error={plan.error} retry={() => void plan.refetch()} />;
   const canWrite = roleMay(role, "testPlan", "W");
   return (
-    <div className="flex flex-col gap-6">
-      {canWrite ? <PlanForm channelId={channelId} episodeId={episodeId} plan={plan.data} /> : <PlanReadOnly plan={plan.data} />}
-      <CriteriaPanel channelId={channelId} episodeId={episodeId} criteria={plan.data.criteria} canWrite={canWrite} />
-      <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={plan.data.hazards} canWrite={canWrite} />
-    </div>
+    <QueryState query={plan} loading="Loading the test plan…">
+      {(sheet) => (
+        <div className="flex flex-col gap-6">
+          {canWrite ? <PlanForm channelId={channelId} episodeId={episodeId} plan={sheet} /> : <PlanReadOnly plan={sheet} />}
+          <CriteriaPanel channelId={channelId} episodeId={episodeId} criteria={sheet.criteria} canWrite={canWrite} />
+          <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={sheet.hazards} canWrite={canWrite} />
+        </div>
+      )}
+    </QueryState>
   );
 }
 

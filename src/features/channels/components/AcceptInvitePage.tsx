@@ -8,8 +8,7 @@ import { passwordSchema, personNameSchema } from "@shared/auth/schemas";
 import type { InvitationPreview } from "@shared/channels/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Loading } from "../../../components/States";
-import { ApiError } from "../../../lib/api-client";
+import { allOf, QueryState } from "../../../components/States";
 import { useMe } from "../../../lib/session";
 import { AuthCard } from "../../../components/AuthCard";
 import { useAcceptInvitation, useInvitation } from "../api/invitation";
@@ -30,30 +29,31 @@ export function AcceptInvitePage() {
   const invitation = useInvitation(token);
   const me = useMe();
 
-  if (invitation.isPending || me.isPending) return <AuthCard title="Invitation"><Loading /></AuthCard>;
-  if (invitation.isError) {
-    const missing = invitation.error instanceof ApiError && invitation.error.status === 404;
-    return (
-      <AuthCard title="Invitation">
-        <Notice kind="error">{missing ? "This invitation link is not valid. Check that you copied all of it, or ask for a new one." : invitation.error.message}</Notice>
-      </AuthCard>
-    );
-  }
   const preview = invitation.data;
-  if (preview.state !== "open") {
-    return (
-      <AuthCard title="Invitation" footer={<Link className="font-semibold text-rust-600 underline" to="/sign-in">Go to sign-in</Link>}>
-        <Notice kind="error">{closedText[preview.state]} Ask the owner of {preview.channelName} for a new one.</Notice>
-      </AuthCard>
-    );
-  }
+  const open = preview?.state === "open";
   return (
-    <AuthCard title={`Join ${preview.channelName}`}>
+    <AuthCard
+      title={open ? `Join ${preview.channelName}` : "Invitation"}
+      footer={preview && !open ? <Link className="font-semibold text-rust-600 underline" to="/sign-in">Go to sign-in</Link> : undefined}
+    >
+      <QueryState query={allOf(invitation, me)} missing={invalidLink}>
+        {([preview, { user }]) => <Invitation token={token} preview={preview} signedInAs={user?.name ?? null} />}
+      </QueryState>
+    </AuthCard>
+  );
+}
+
+const invalidLink = { title: "This invitation link is not valid", text: "Check that you copied all of it, or ask for a new one." };
+
+function Invitation({ token, preview, signedInAs }: { token: string; preview: InvitationPreview; signedInAs: string | null }) {
+  if (preview.state !== "open") return <Notice kind="error">{closedText[preview.state]} Ask the owner of {preview.channelName} for a new one.</Notice>;
+  return (
+    <>
       <p className="mb-4 text-graphite-700">
         {preview.invitedBy} invited <strong>{preview.email}</strong> to join as <strong>{roleLabels[preview.role].toLowerCase()}</strong>.
       </p>
-      {me.data?.user ? <JoinAsSignedIn token={token} name={me.data.user.name} /> : preview.hasAccount ? <SignInFirst token={token} /> : <JoinAsNewcomer token={token} />}
-    </AuthCard>
+      {signedInAs ? <JoinAsSignedIn token={token} name={signedInAs} /> : preview.hasAccount ? <SignInFirst token={token} /> : <JoinAsNewcomer token={token} />}
+    </>
   );
 }
 

@@ -6,9 +6,9 @@ import { inviteSchema, type InviteInput, type Member } from "@shared/channels/sc
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import { formatInstant } from "../../../lib/format";
-import { useCurrentChannel, useMe, useTimeZone } from "../../../lib/session";
+import { useChannel, useMe, useTimeZone } from "../../../lib/session";
 import { useChangeRole, useInvite, useMembers, useRemoveMember, useRevokeInvitation } from "../api/members";
 import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
@@ -23,8 +23,7 @@ const roleDuties: Record<Role, string> = {
 };
 
 export function MembersPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return <Members channelId={channel.channelId} canManage={roleMay(channel.role, "members", "W")} channelName={channel.channelName} />;
 }
 
@@ -34,14 +33,14 @@ function Members({ channelId, canManage, channelName }: { channelId: string; can
     <div className="mx-auto max-w-4xl">
       <PageHeader title="Members" subtitle={`Who works on ${channelName}, and what each role may do.`} />
       {canManage && <InviteForm channelId={channelId} />}
-      {members.isPending && <Loading label="Loading members…" />}
-      {members.isError && <LoadError error={members.error} retry={() => void members.refetch()} />}
-      {members.data && (
-        <>
-          <MemberTable channelId={channelId} members={members.data.members} canManage={canManage} />
-          <PendingInvitations channelId={channelId} invitations={members.data.invitations} canManage={canManage} />
-        </>
-      )}
+      <QueryState query={members} loading="Loading members…">
+        {(data) => (
+          <>
+            <MemberTable channelId={channelId} members={data.members} canManage={canManage} />
+            <PendingInvitations channelId={channelId} invitations={data.invitations} canManage={canManage} />
+          </>
+        )}
+      </QueryState>
       {!canManage && <p className="mt-6 text-sm text-graphite-500">Only an owner can invite people or change roles.</p>}
     </div>
   );

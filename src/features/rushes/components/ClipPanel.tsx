@@ -3,7 +3,7 @@ import type { ClipDetail } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { LoadError, Loading } from "../../../components/States";
+import { QueryState } from "../../../components/States";
 import { api, ApiError } from "../../../lib/api-client";
 import { useClip, usePreview } from "../api/get-clip";
 import { useShootDays, useShots } from "../api/shoot";
@@ -33,9 +33,9 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
           Close
         </Button>
       </div>
-      {clip.isPending && <Loading label="Loading the clip…" />}
-      {clip.isError && <LoadError error={clip.error} retry={() => void clip.refetch()} />}
-      {clip.data && <ClipBody channelId={channelId} clip={clip.data} canDelete={canDelete} onDeleted={onClose} />}
+      <QueryState query={clip} loading="Loading the clip…">
+        {(detail) => <ClipBody channelId={channelId} clip={detail} canDelete={canDelete} onDeleted={onClose} />}
+      </QueryState>
     </aside>
   );
 }

@@ -1,24 +1,28 @@
 import { Link, useParams } from "react-router-dom";
 import { shotKindLabels, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
-import { useCurrentChannel } from "../../../lib/session";
-import { useShootDay } from "../api/shoot";
+import { useChannel } from "../../../lib/session";
+import { useShootDay, type ShootDayDetail } from "../api/shoot";
 
 /** The crew's view of one day: what is still missing before the set is struck, biggest first. */
 export function ShootDayPage() {
-  const channel = useCurrentChannel();
+  const channel = useChannel();
   const { shootDayId = "" } = useParams();
-  if (!channel) return <Loading />;
   return <ShootDay channelId={channel.channelId} shootDayId={shootDayId} />;
 }
 
 function ShootDay({ channelId, shootDayId }: { channelId: string; shootDayId: string }) {
   const day = useShootDay(channelId, shootDayId);
-  if (day.isPending) return <Loading label="Loading the shoot day…" />;
-  if (day.isError) return <LoadError error={day.error} retry={() => void day.refetch()} />;
-  const { shootDay, shots, missing, episodeTitle } = day.data;
+  return (
+    <QueryState query={day} loading="Loading the shoot day…" page back={{ to: `/c/${channelId}/rushes`, label: "Rushes" }}>
+      {(detail) => <ShootDaySheet channelId={channelId} detail={detail} />}
+    </QueryState>
+  );
+}
+
+function ShootDaySheet({ channelId, detail: { shootDay, shots, missing, episodeTitle } }: { channelId: string; detail: ShootDayDetail }) {
   const done = shots.filter((s) => s.status !== "planned");
   return (
     <article className="mx-auto max-w-3xl">

@@ -2,10 +2,10 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Link } from "react-router-dom";
-import { shootDaySchema, shotSchema, type ShootDayInput, type ShotInput, type ShotView } from "@shared/rushes/schemas";
+import { shootDaySchema, shotSchema, type ShootDayInput, type ShootDayView, type ShotInput, type ShotView } from "@shared/rushes/schemas";
 import { shotKindLabels, shotKinds, shotPriorities, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { allOf, Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
 import { useCreateShootDay, useCreateShot, useDeleteShootDay, useDeleteShot, useShootCrew, useShootDays, useShots, useUpdateShot } from "../api/shoot";
 import { SelectField, TextField } from "../../../components/form-fields";
@@ -13,23 +13,27 @@ import { applyServerErrors } from "../../../lib/forms";
 
 /** The episode's shoot days and its shot list, with which shots already have footage. */
 export function ShootPlan({ channelId, episodeId }: { channelId: string; episodeId: string }) {
-  const days = useShootDays(channelId, episodeId);
-  const shots = useShots(channelId, episodeId);
+  const plan = allOf(useShootDays(channelId, episodeId), useShots(channelId, episodeId));
+  return (
+    <QueryState query={plan} loading="Loading the shoot plan…">
+      {([days, shots]) => <Plan channelId={channelId} episodeId={episodeId} days={days} shots={shots} />}
+    </QueryState>
+  );
+}
+
+function Plan({ channelId, episodeId, days, shots }: { channelId: string; episodeId: string; days: ShootDayView[]; shots: ShotView[] }) {
   const removeDay = useDeleteShootDay(channelId, episodeId);
-  if (days.isPending || shots.isPending) return <Loading label="Loading the shoot plan…" />;
-  if (days.isError) return <LoadError error={days.error} retry={() => void days.refetch()} />;
-  if (shots.isError) return <LoadError error={shots.error} retry={() => void shots.refetch()} />;
   return (
     <div className="grid gap-6">
       <section aria-labelledby="days-heading">
         <h3 id="days-heading" className="mb-2 font-semibold">
           Shoot days
         </h3>
-        {days.data.length === 0 ? (
+        {days.length === 0 ? (
           <Empty title="No shoot days yet">Add the first day below.</Empty>
         ) : (
           <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white">
-            {days.data.map((d) => (
+            {days.map((d) => (
               <li key={d.id} className="flex flex-wrap items-center gap-3 px-4 py-2">
                 <div className="flex-1">
                   <Link to={`/c/${channelId}/shoot-days/${d.id}`} className="font-semibold text-rust-700 underline">
@@ -53,8 +57,8 @@ export function ShootPlan({ channelId, episodeId }: { channelId: string; episode
         <h3 id="shots-heading" className="mb-2 font-semibold">
           Shot list
         </h3>
-        <ShotList channelId={channelId} episodeId={episodeId} shots={shots.data} days={days.data} />
-        <ShotForm channelId={channelId} episodeId={episodeId} days={days.data} />
+        <ShotList channelId={channelId} episodeId={episodeId} shots={shots} days={days} />
+        <ShotForm channelId={channelId} episodeId={episodeId} days={days} />
       </section>
     </div>
   );

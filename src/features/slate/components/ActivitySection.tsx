@@ -3,7 +3,7 @@ import { commentSchema, type EpisodeComment } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { TextAreaField } from "../../../components/form-fields";
 import { Notice } from "../../../components/Notice";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import { formatInstant } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useAddComment } from "../api/add-comment";
@@ -16,24 +16,23 @@ export function ActivitySection({ channelId, episodeId }: { channelId: string; e
   const timeZone = useTimeZone();
   return (
     <div className="rounded-lg border border-ply-300 bg-white p-5">
-      {comments.isPending && <Loading label="Loading comments…" />}
-      {comments.isError && <LoadError error={comments.error} retry={() => void comments.refetch()} />}
-      {comments.data && comments.data.length === 0 && <Empty title="No comments yet">Ask a question or leave a note for the team.</Empty>}
-      {comments.data && comments.data.length > 0 && (
-        <ol className="mb-5 space-y-4">
-          {comments.data.map((c) => (
-            <li key={c.id} className="text-sm">
-              <p>
-                <span className="font-semibold">{c.authorName ?? "Someone no longer here"}</span>{" "}
-                <time dateTime={c.createdAt} className="text-xs text-graphite-500">
-                  {formatInstant(c.createdAt, timeZone)}
-                </time>
-              </p>
-              <p className="mt-1 whitespace-pre-line">{withMentions(c)}</p>
-            </li>
-          ))}
-        </ol>
-      )}
+      <QueryState query={comments} loading="Loading comments…" isEmpty={(list) => list.length === 0} empty={<Empty title="No comments yet">Ask a question or leave a note for the team.</Empty>}>
+        {(list) => (
+          <ol className="mb-5 space-y-4">
+            {list.map((c) => (
+              <li key={c.id} className="text-sm">
+                <p>
+                  <span className="font-semibold">{c.authorName ?? "Someone no longer here"}</span>{" "}
+                  <time dateTime={c.createdAt} className="text-xs text-graphite-500">
+                    {formatInstant(c.createdAt, timeZone)}
+                  </time>
+                </p>
+                <p className="mt-1 whitespace-pre-line">{withMentions(c)}</p>
+              </li>
+            ))}
+          </ol>
+        )}
+      </QueryState>
       <CommentForm channelId={channelId} episodeId={episodeId} />
     </div>
   );

@@ -1,5 +1,6 @@
+import type { EpisodeHistory } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import { formatDuration, formatInstant } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useHistory } from "../api/get-history";
@@ -8,9 +9,14 @@ import { useHistory } from "../api/get-history";
 export function HistorySection({ channelId, episodeId }: { channelId: string; episodeId: string }) {
   const history = useHistory(channelId, episodeId);
   const timeZone = useTimeZone();
-  if (history.isPending) return <Loading label="Loading the history…" />;
-  if (history.isError) return <LoadError error={history.error} retry={() => void history.refetch()} />;
-  const { entries, timeInStage } = history.data;
+  return (
+    <QueryState query={history} loading="Loading the history…">
+      {(data) => <History history={data} timeZone={timeZone} />}
+    </QueryState>
+  );
+}
+
+function History({ history: { entries, timeInStage }, timeZone }: { history: EpisodeHistory; timeZone: string }) {
   const visited = timeInStage.filter((t) => t.visits > 0);
   return (
     <div className="grid gap-4 md:grid-cols-[1fr_16rem]">

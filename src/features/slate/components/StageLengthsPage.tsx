@@ -7,16 +7,16 @@ import { stageLabels, stages, type Stage } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { LoadError, Loading } from "../../../components/States";
+import { QueryState } from "../../../components/States";
 import { NumberField } from "../../../components/form-fields";
-import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
-import { useCurrentChannel } from "../../../lib/session";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
+import { useChannel } from "../../../lib/session";
 import { useSaveStageLengths, useStageLengths } from "../api/stage-lengths";
 
 /** The channel's default length of each stage, in working days: what every episode's schedule counts back with. */
 export function StageLengthsPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return <StageLengthsEditor channelId={channel.channelId} canEdit={roleMay(channel.role, "members", "W")} />;
 }
 
@@ -28,9 +28,9 @@ function StageLengthsEditor({ channelId, canEdit }: { channelId: string; canEdit
         ← Slate
       </Link>
       <PageHeader title="Stage lengths" subtitle="How many working days each stage usually takes. Due dates count back from each episode's publish date with these." />
-      {settings.isPending && <Loading />}
-      {settings.isError && <LoadError error={settings.error} retry={() => void settings.refetch()} />}
-      {settings.data && <LengthsForm key={JSON.stringify(settings.data.stageLengths)} channelId={channelId} initial={settings.data.stageLengths} custom={settings.data.custom} canEdit={canEdit} />}
+      <QueryState query={settings} loading="Loading the stage lengths…" page>
+        {(data) => <LengthsForm key={JSON.stringify(data.stageLengths)} channelId={channelId} initial={data.stageLengths} custom={data.custom} canEdit={canEdit} />}
+      </QueryState>
     </div>
   );
 }

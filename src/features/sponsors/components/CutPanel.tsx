@@ -7,7 +7,8 @@ import { Notice } from "../../../components/Notice";
 import { formatSeconds } from "../../../lib/format";
 import { useUpdateCut } from "../api/save-deal";
 import { CheckboxField, SelectField, TextField } from "../../../components/form-fields";
-import { applyServerErrors, errorAt, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors, errorAt } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface CutValues {
   clipId: string;

@@ -13,7 +13,8 @@ import { MoneyPanel } from "./MoneyPanel";
 import { ReadPanel } from "./ReadPanel";
 import { ReviewPanel } from "./ReviewPanel";
 import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { applyServerErrors, errorAt, linesOf, numberFrom, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 function Part({ title, children }: { title: string; children: ReactNode }) {
   return (

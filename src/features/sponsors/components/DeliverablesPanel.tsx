@@ -10,7 +10,8 @@ import { useAddDeliverable, useRemoveDeliverable, useUpdateDeliverable } from ".
 import { useSponsorSettings } from "../api/settings";
 import { StatusTag } from "./labels";
 import { SelectField, TextField } from "../../../components/form-fields";
-import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 import { Tag } from "./labels";
 
 function whenOf(item: DeliverableView): string {

@@ -2,7 +2,7 @@ import { useEffect, useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { roleMay } from "@shared/access/roles";
 import { Button } from "../../../components/Button";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useEpisodeDeals } from "../api/episode-deals";
 import { sponsorKeys } from "../api/keys";
@@ -27,14 +27,14 @@ export function EpisodeDeals({ channelId, episodeId, role }: EpisodeSectionProps
   if (!roleMay(role, "sponsors", "R")) return null;
   return (
     <div className="flex flex-col gap-4">
-      {deals.isPending && <Loading label="Loading the deals…" />}
-      {deals.isError && <LoadError error={deals.error} retry={() => void deals.refetch()} />}
-      {deals.data && deals.data.length === 0 && !adding && (
-        <Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>
-      )}
-      {deals.data?.map((deal) => (
-        <DealCard key={deal.id} channelId={channelId} deal={deal} role={role} />
-      ))}
+      <QueryState
+        query={deals}
+        loading="Loading the deals…"
+        isEmpty={(list) => list.length === 0}
+        empty={!adding && <Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>}
+      >
+        {(list) => list.map((deal) => <DealCard key={deal.id} channelId={channelId} deal={deal} role={role} />)}
+      </QueryState>
       {canCreate &&
         (adding ? (
           <NewDealForm channelId={channelId} episodeId={episodeId} onDone={() => setAdding(false)} />

@@ -6,7 +6,8 @@ import { Notice } from "../../../components/Notice";
 import { useUpdateMoney } from "../api/save-deal";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { SelectField, TextField } from "../../../components/form-fields";
-import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface MoneyForm {
   fee: string;

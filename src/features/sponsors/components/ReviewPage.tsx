@@ -4,14 +4,14 @@ import { useParams } from "react-router-dom";
 import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewDecisionInput, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Loading } from "../../../components/States";
+import { allOf, QueryState } from "../../../components/States";
 import { Wordmark } from "../../../components/Wordmark";
-import { ApiError } from "../../../lib/api-client";
 import { formatInstant, formatSeconds } from "../../../lib/format";
 import { useMe, useTimeZone } from "../../../lib/session";
 import { useDecide, useReview } from "../api/review";
 import { TextAreaField } from "../../../components/form-fields";
-import { applyServerErrors, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 function Frame({ children }: { children: ReactNode }) {
   return (
@@ -42,34 +42,16 @@ export function ReviewPage() {
   // The page's CSRF token comes from /api/auth/me, like every page's.
   const me = useMe();
   const review = useReview(token);
-  if (review.isPending || me.isPending) {
-    return (
-      <Frame>
-        <Loading label="Opening the review…" />
-      </Frame>
-    );
-  }
-  if (review.isError) {
-    const invalid = review.error instanceof ApiError && review.error.status === 404;
-    return (
-      <Frame>
-        <Closed title={invalid ? "This review link isn't valid" : "This review didn't open"}>
-          <p>{invalid ? "Check that you copied the whole link from the e-mail, or ask the channel for a new one." : review.error.message}</p>
-          {!invalid && (
-            <Button tone="quiet" className="mt-4" onClick={() => void review.refetch()}>
-              Try again
-            </Button>
-          )}
-        </Closed>
-      </Frame>
-    );
-  }
   return (
     <Frame>
-      <Body token={token} page={review.data} />
+      <QueryState query={allOf(review, me)} loading="Opening the review…" missing={invalidLink}>
+        {([page]) => <Body token={token} page={page} />}
+      </QueryState>
     </Frame>
   );
 }
+
+const invalidLink = { title: "This review link isn't valid", text: "Check that you copied the whole link from the e-mail, or ask the channel for a new one." };
 
 function Body({ token, page }: { token: string; page: ReviewPageData }) {
   const timeZone = useTimeZone();

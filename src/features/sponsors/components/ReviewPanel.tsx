@@ -8,7 +8,8 @@ import { formatInstant, formatInstantDay } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useRevokeReviewLink, useSendReviewLink } from "../api/review-links";
 import { NumberField, SelectField } from "../../../components/form-fields";
-import { applyServerErrors, numberFrom, schemaResolver } from "../../../lib/forms";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 import { Tag } from "./labels";
 
 const stateTone: Record<ReviewLinkState, "neutral" | "warn" | "good" | "alarm"> = { open: "warn", decided: "good", expired: "neutral", revoked: "neutral" };
