@@ -13,16 +13,19 @@ interface FrameProps {
   error?: string;
 }
 
+/** Most hints give way to the error; a value-and-unit field keeps its hint (it lists the units the error is about). */
+type HintRule = { keepHint?: boolean };
+
 const controlClass = (error?: string) => `rounded-md border bg-white px-3 py-2 text-base shadow-inner disabled:bg-ply-100 ${error ? "border-alarm-600" : "border-ply-300"}`;
 
-/** The id a field's control points at: its error, or else its hint (an error takes the hint's place). */
-function useFrame({ hint, error }: Omit<FrameProps, "label">) {
+/** The ids a field's control points at: its error, and its hint while it shows. */
+function useFrame({ hint, error, keepHint = false }: Omit<FrameProps, "label"> & HintRule) {
   const id = useId();
-  const describedBy = error ? `${id}-error` : hint ? `${id}-hint` : undefined;
+  const describedBy = [error ? `${id}-error` : null, hint && (keepHint || !error) ? `${id}-hint` : null].filter(Boolean).join(" ") || undefined;
   return { id, control: { id, "aria-invalid": error ? true : undefined, "aria-describedby": describedBy } };
 }
 
-function Frame({ id, label, hint, error, children }: FrameProps & { id: string; children: ReactNode }) {
+function Frame({ id, label, hint, error, keepHint = false, children }: FrameProps & HintRule & { id: string; children: ReactNode }) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-medium text-graphite-700">
@@ -34,7 +37,7 @@ function Frame({ id, label, hint, error, children }: FrameProps & { id: string; 
           {error}
         </p>
       )}
-      {hint && !error && (
+      {hint && (keepHint || !error) && (
         <p id={`${id}-hint`} className="text-xs text-graphite-500">
           {hint}
         </p>
@@ -118,11 +121,11 @@ export function QuantityField({
   units: readonly string[];
   freeUnit?: boolean;
 }) {
-  const { id, control } = useFrame({ hint, error });
+  const { id, control } = useFrame({ hint, error, keepHint: true });
   const unitLabel = `Unit of ${label.toLocaleLowerCase()}`;
   const unitControl = { "aria-label": unitLabel, "aria-invalid": control["aria-invalid"], "aria-describedby": control["aria-describedby"], className: `${controlClass(error)} w-24 rounded-l-none border-l-0` };
   return (
-    <Frame id={id} label={label} hint={hint} error={error}>
+    <Frame id={id} label={label} hint={hint} error={error} keepHint>
       <div className="flex">
         <input {...control} inputMode="decimal" autoComplete="off" className={`${controlClass(error)} w-full min-w-0 rounded-r-none`} {...valueProps} />
         {freeUnit ? (

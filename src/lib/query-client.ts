@@ -1,6 +1,25 @@
-import { MutationCache, QueryCache, QueryClient } from "@tanstack/react-query";
+import { MutationCache, QueryCache, QueryClient, type Mutation } from "@tanstack/react-query";
 import { ApiError } from "./api-client";
 import { sessionKeys } from "./session";
+
+/**
+ * What a write changes and what a read follows, named in the product's words, so one feature's write
+ * refreshes another feature's data without either importing the other: a mutation says
+ * `meta: { changes: ["episode"] }`, a query `meta: { follows: ["episode"] }`.
+ */
+export type DataTopic = "episode" | "footage";
+
+declare module "@tanstack/react-query" {
+  interface Register {
+    queryMeta: { follows?: readonly DataTopic[] };
+    mutationMeta: { changes?: readonly DataTopic[] };
+  }
+}
+
+/** Reads again every query that follows one of these topics. */
+export function refreshFollowers(queryClient: QueryClient, changed: readonly DataTopic[]): void {
+  if (changed.length > 0) void queryClient.invalidateQueries({ predicate: (query) => (query.meta?.follows ?? []).some((topic) => changed.includes(topic)) });
+}
 
 export function makeQueryClient(): QueryClient {
   // A 401 anywhere means the session ended (expired, or signed out in another tab): asking for `me`
@@ -10,7 +29,10 @@ export function makeQueryClient(): QueryClient {
   };
   const queryClient: QueryClient = new QueryClient({
     queryCache: new QueryCache({ onError: (error, query) => onError(error, query.queryKey) }),
-    mutationCache: new MutationCache({ onError: (error) => onError(error) }),
+    mutationCache: new MutationCache({
+      onError: (error) => onError(error),
+      onSuccess: (_data, _variables, _context, mutation: Mutation<unknown, unknown, unknown, unknown>) => refreshFollowers(queryClient, mutation.meta?.changes ?? []),
+    }),
     defaultOptions: {
       queries: {
         staleTime: 15_000,

@@ -2,7 +2,7 @@ import { NavLink, Outlet, useNavigate, useNavigation } from "react-router-dom";
 import { roleLabels, roleMay } from "@shared/access/roles";
 import { Wordmark } from "../../components/Wordmark";
 import { useCurrentChannel, useMe } from "../../lib/session";
-import { useSignOut } from "../../features/auth/api/session-mutations";
+import { useSignOut } from "../../features/auth/api/sign-out";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
 import { channelNav } from "../nav";
 

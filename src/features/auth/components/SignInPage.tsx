@@ -4,7 +4,7 @@ import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import type { SignInInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { useSignIn } from "../api/session-mutations";
+import { useSignIn } from "../api/sign-in";
 import { AuthCard } from "../../../components/AuthCard";
 import { TextField } from "../../../components/form-fields";
 import { applyServerErrors, lazyZodResolver } from "../../../lib/forms";

@@ -4,7 +4,7 @@ import { Link, useNavigate } from "react-router-dom";
 import type { SignUpInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { useSignUp } from "../api/session-mutations";
+import { useSignUp } from "../api/sign-up";
 import { AuthCard } from "../../../components/AuthCard";
 import { TextField } from "../../../components/form-fields";
 import { applyServerErrors, lazyZodResolver } from "../../../lib/forms";

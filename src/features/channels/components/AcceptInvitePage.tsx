@@ -11,7 +11,8 @@ import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
 import { useMe } from "../../../lib/session";
 import { AuthCard } from "../../../components/AuthCard";
-import { useAcceptInvitation, useInvitation } from "../api/invitation";
+import { useAcceptInvitation } from "../api/accept-invitation";
+import { useInvitation } from "../api/get-invitation";
 import { TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 

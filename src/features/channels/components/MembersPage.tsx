@@ -9,7 +9,11 @@ import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
 import { formatInstant } from "../../../lib/format";
 import { useChannel, useMe, useTimeZone } from "../../../lib/session";
-import { useChangeRole, useInvite, useMembers, useRemoveMember, useRevokeInvitation } from "../api/members";
+import { useChangeRole } from "../api/change-role";
+import { useInvite } from "../api/invite-member";
+import { useMembers } from "../api/list-members";
+import { useRemoveMember } from "../api/remove-member";
+import { useRevokeInvitation } from "../api/revoke-invitation";
 import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 

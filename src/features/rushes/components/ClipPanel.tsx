@@ -4,10 +4,13 @@ import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@share
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QueryState } from "../../../components/States";
-import { api, ApiError } from "../../../lib/api-client";
-import { useClip, usePreview } from "../api/get-clip";
-import { useShootDays, useShots } from "../api/shoot";
-import { useDeleteClip, useUpdateClip } from "../api/update-clip";
+import { ApiError } from "../../../lib/api-client";
+import { useDeleteClip } from "../api/delete-clip";
+import { useClip } from "../api/get-clip";
+import { fetchDownloadLink, usePreview } from "../api/get-preview";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
+import { useUpdateClip } from "../api/update-clip";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { clipFormatText } from "./labels";
@@ -46,7 +49,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
   const [unplayable, setUnplayable] = useState(false);
   const timeZone = useTimeZone();
   const download = async () => {
-    const { url } = await api<{ url: string }>(`/api/channels/${channelId}/clips/${clip.id}/preview?download=1`);
+    const { url } = await fetchDownloadLink(channelId, clip.id);
     window.location.assign(url);
   };
   return (

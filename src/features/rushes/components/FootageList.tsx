@@ -5,9 +5,11 @@ import type { ClipView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
 import { Empty, QueryState } from "../../../components/States";
-import { useEpisodeChoices } from "../api/list-episodes";
-import { exportUrl, useFootage, zipUrl } from "../api/list-footage";
-import { useShootDays, useShots } from "../api/shoot";
+import { useEpisodeTitles } from "../api/list-episode-titles";
+import { exportUrl, zipUrl } from "../api/export-footage";
+import { useFootage } from "../api/list-footage";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
 import { ClipPanel } from "./ClipPanel";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
@@ -175,7 +177,7 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
 type Values = Partial<Record<(typeof filterKeys)[number], string | undefined>>;
 
 function Filters({ channelId, episodeId, values, onApply }: { channelId: string; episodeId?: string; values: Values; onApply: (v: Record<string, string | undefined>) => void }) {
-  const episodes = useEpisodeChoices(channelId);
+  const episodes = useEpisodeTitles(channelId);
   const chosenEpisode = episodeId ?? values.episodeId;
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();

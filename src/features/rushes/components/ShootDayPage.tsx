@@ -4,7 +4,7 @@ import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
 import { useChannel } from "../../../lib/session";
-import { useShootDay, type ShootDayDetail } from "../api/shoot";
+import { useShootDay, type ShootDayDetail } from "../api/get-shoot-day";
 
 /** The crew's view of one day: what is still missing before the set is struck, biggest first. */
 export function ShootDayPage() {

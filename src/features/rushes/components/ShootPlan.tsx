@@ -7,7 +7,14 @@ import { shotKindLabels, shotKinds, shotPriorities, shotPriorityLabels, shotStat
 import { Button } from "../../../components/Button";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
-import { useCreateShootDay, useCreateShot, useDeleteShootDay, useDeleteShot, useShootCrew, useShootDays, useShots, useUpdateShot } from "../api/shoot";
+import { useCreateShootDay } from "../api/add-shoot-day";
+import { useCreateShot } from "../api/add-shot";
+import { useDeleteShootDay } from "../api/delete-shoot-day";
+import { useDeleteShot } from "../api/delete-shot";
+import { useShootCrew } from "../api/list-shoot-crew";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
+import { useUpdateShot } from "../api/update-shot";
 import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 

@@ -1,12 +1,12 @@
-import { useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId, useMemo, useRef, useState, useSyncExternalStore } from "react";
 import { checkClipFile } from "@shared/rushes/limits";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { formatSize } from "../../../lib/format";
-import { rushesKeys } from "../api/keys";
+import { useFootageArrived } from "../api/complete-upload";
 import { useOpenUploads } from "../api/open-uploads";
-import { posterFrom, sendPoster } from "../uploader/poster";
+import { sendPoster } from "../api/send-poster";
+import { posterFrom } from "../uploader/poster";
 import { sha256Of } from "../uploader/hash";
 import { probeFile } from "../uploader/probe";
 import { UploadQueue, type JobView } from "../uploader/upload-queue";
@@ -25,7 +25,7 @@ const statusWords: Record<JobView["status"], string> = {
 
 /** Camera files for one episode: straight to storage in parts, with progress per file and for the batch. */
 export function Uploader({ channelId, episodeId }: { channelId: string; episodeId: string }) {
-  const queryClient = useQueryClient();
+  const footageArrived = useFootageArrived(channelId);
   const queue = useMemo(
     () =>
       new UploadQueue(channelId, episodeId, {
@@ -36,9 +36,9 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
           const poster = await posterFrom(job.file);
           if (poster) await sendPoster(channelId, job.clip.id, poster);
         },
-        onChange: () => void queryClient.invalidateQueries({ queryKey: rushesKeys.footage(channelId) }),
+        onChange: footageArrived,
       }),
-    [channelId, episodeId, queryClient],
+    [channelId, episodeId, footageArrived],
   );
   const jobs = useSyncExternalStore(queue.subscribe, queue.getSnapshot);
   const open = useOpenUploads(channelId, episodeId);

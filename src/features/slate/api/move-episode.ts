@@ -25,6 +25,7 @@ export function useMoveEpisode(channelId: string) {
   return useMutation({
     mutationFn: ({ episodeId, ...body }: MoveVariables) =>
       api<{ episode: EpisodeRecord }>(`/api/channels/${channelId}/episodes/${episodeId}/move`, { method: "POST", body }).then((r) => r.episode),
+    meta: { changes: ["episode"] },
     onMutate: async (move) => {
       // A refetch already in flight would paint the old order over the drop.
       await queryClient.cancelQueries({ queryKey: slateKeys.boards(channelId) });

@@ -4,7 +4,7 @@ import { Controller, useForm, useWatch, type FieldErrors } from "react-hook-form
 import { commonCurrencies, episodeFieldsSchema, originLabels, origins, tagSchema, type EpisodeFields } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { isConflict } from "../api/episode-mutations";
+import { isConflict } from "../api/episode-mutation";
 import { usePeople } from "../api/get-people";
 import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";

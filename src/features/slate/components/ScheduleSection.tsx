@@ -5,7 +5,8 @@ import { stageIndex, stageLabels } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
-import { isConflict, useOverrideDueDate } from "../api/episode-mutations";
+import { isConflict } from "../api/episode-mutation";
+import { useOverrideDueDate } from "../api/override-due-date";
 import { Flag } from "./Flag";
 import { formatDay } from "../../../lib/format";
 

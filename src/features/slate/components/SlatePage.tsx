@@ -9,7 +9,7 @@ import { Empty, Loading, QueryState } from "../../../components/States";
 import { useChannel } from "../../../lib/session";
 import { useBoard } from "../api/get-board";
 import { usePeople } from "../api/get-people";
-import { useCreateEpisode } from "../api/episode-mutations";
+import { useCreateEpisode } from "../api/create-episode";
 import { Board } from "./Board";
 import { BoardFilterBar } from "./BoardFilterBar";
 import { Dialog } from "./Dialog";

@@ -12,7 +12,8 @@ import { NumberField } from "../../../components/form-fields";
 import { applyServerErrors, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 import { useChannel } from "../../../lib/session";
-import { useSaveStageLengths, useStageLengths } from "../api/stage-lengths";
+import { useStageLengths } from "../api/get-stage-lengths";
+import { useSaveStageLengths } from "../api/save-stage-lengths";
 
 /** The channel's default length of each stage, in working days: what every episode's schedule counts back with. */
 export function StageLengthsPage() {

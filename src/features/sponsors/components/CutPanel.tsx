@@ -5,7 +5,7 @@ import { frameRateNames } from "@shared/timecode/rates";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { formatSeconds } from "../../../lib/format";
-import { useUpdateCut } from "../api/save-deal";
+import { useUpdateCut } from "../api/update-cut";
 import { CheckboxField, SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, errorAt } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";

@@ -5,7 +5,7 @@ import { dealStateLabels, dealStates, placementLabels, placements, updateDealSch
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { formatDay, formatSeconds } from "../../../lib/format";
-import { useUpdateDeal } from "../api/save-deal";
+import { useUpdateDeal } from "../api/update-deal";
 import { CutPanel } from "./CutPanel";
 import { DeliverablesPanel } from "./DeliverablesPanel";
 import { DealStateTag } from "./labels";

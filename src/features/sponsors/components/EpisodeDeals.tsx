@@ -1,11 +1,9 @@
-import { useEffect, useState } from "react";
-import { useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { roleMay } from "@shared/access/roles";
 import { Button } from "../../../components/Button";
 import { Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useEpisodeDeals } from "../api/episode-deals";
-import { sponsorKeys } from "../api/keys";
 import { DealCard } from "./DealCard";
 import { NewDealForm } from "./NewDealForm";
 
@@ -13,16 +11,6 @@ import { NewDealForm } from "./NewDealForm";
 export function EpisodeDeals({ channelId, episodeId, role }: EpisodeSectionProps) {
   const deals = useEpisodeDeals(channelId, episodeId);
   const [adding, setAdding] = useState(false);
-  const queryClient = useQueryClient();
-  // Another section's change (the slate's publish date, above all) can move this episode's item dates:
-  // after any successful write on the page, the deals are read again.
-  useEffect(
-    () =>
-      queryClient.getMutationCache().subscribe((event) => {
-        if (event.type === "updated" && event.action.type === "success") void queryClient.invalidateQueries({ queryKey: sponsorKeys.episodeDeals(channelId, episodeId) });
-      }),
-    [queryClient, channelId, episodeId],
-  );
   const canCreate = roleMay(role, "sponsors", "W");
   if (!roleMay(role, "sponsors", "R")) return null;
   return (

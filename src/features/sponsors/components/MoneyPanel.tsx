@@ -3,7 +3,7 @@ import { useForm } from "react-hook-form";
 import { moneySchema, paymentTermsFrom, paymentTermsLabels, type DealView, type Money } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { useUpdateMoney } from "../api/save-deal";
+import { useUpdateMoney } from "../api/update-money";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, numberFrom } from "../../../lib/forms";

@@ -6,9 +6,9 @@ import { createDealSchema, dealStateLabels, dealStates, paymentTermsFrom, paymen
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
-import { useCreateDeal } from "../api/save-deal";
+import { useCreateDeal } from "../api/create-deal";
 import { useSponsors } from "../api/list-sponsors";
-import { useTemplates } from "../api/templates";
+import { useTemplates } from "../api/list-templates";
 import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";

@@ -5,8 +5,8 @@ import type { DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { formatSeconds } from "../../../lib/format";
-import { useUpdateDeal } from "../api/save-deal";
-import { useSponsorSettings } from "../api/settings";
+import { useUpdateDeal } from "../api/update-deal";
+import { useSponsorSettings } from "../api/get-settings";
 import { DisclosureGuidance } from "./labels";
 import { SelectField, TextAreaField } from "../../../components/form-fields";
 

@@ -5,7 +5,9 @@ import { fieldMessages } from "@shared/http/errors";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QueryState } from "../../../components/States";
-import { useSaveSettings, useSaveSpeakingRate, useSponsorSettings } from "../api/settings";
+import { useSponsorSettings } from "../api/get-settings";
+import { useSaveSettings } from "../api/save-settings";
+import { useSaveSpeakingRate } from "../api/save-speaking-rate";
 import { TextField } from "../../../components/form-fields";
 import { numberFrom } from "../../../lib/forms";
 

@@ -5,7 +5,9 @@ import { templateInputSchema, type DealTemplate } from "@shared/sponsors/schemas
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty, QueryState } from "../../../components/States";
-import { useDeleteTemplate, useSaveTemplate, useTemplates } from "../api/templates";
+import { useDeleteTemplate } from "../api/delete-template";
+import { useTemplates } from "../api/list-templates";
+import { useSaveTemplate } from "../api/save-template";
 import { TextField } from "../../../components/form-fields";
 import { applyServerErrors, errorAt, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
