@@ -1,9 +1,9 @@
 import { useEffect, useRef, useState, type FormEvent } from "react";
-import type { ClipDetail } from "@shared/rushes/schemas";
+import type { ClipDetail, ShootDayView, ShotView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { QueryState } from "../../../components/States";
+import { allOf, QueryState } from "../../../components/States";
 import { ApiError } from "../../../lib/api-client";
 import { useDeleteClip } from "../api/delete-clip";
 import { useClip } from "../api/get-clip";
@@ -95,7 +95,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
         <dt className="text-graphite-500">Checksum</dt>
         <dd className="font-mono text-xs break-all">{clip.sha256 ? `SHA-256 ${clip.sha256}` : clip.storageEtag ? `storage ETag ${clip.storageEtag}` : "none"}</dd>
       </dl>
-      <LogForm channelId={channelId} clip={clip} />
+      <ClipLog channelId={channelId} clip={clip} />
       <MarksEditor channelId={channelId} clip={clip} />
       {canDelete && (
         <div className="border-t border-ply-200 pt-4">
@@ -117,10 +117,14 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
 
 const select = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
-function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+/** The log waits for the episode's days and shots, so its menus open on the clip's own choices. */
+function ClipLog({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+  const plan = allOf(useShootDays(channelId, clip.episodeId), useShots(channelId, clip.episodeId));
+  return <QueryState query={plan} loading="Loading the log…">{([days, shots]) => <LogForm channelId={channelId} clip={clip} days={days} shots={shots} />}</QueryState>;
+}
+
+function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: ClipDetail; days: ShootDayView[]; shots: ShotView[] }) {
   const update = useUpdateClip(channelId, clip.id);
-  const days = useShootDays(channelId, clip.episodeId);
-  const shots = useShots(channelId, clip.episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const submit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -153,7 +157,7 @@ function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
         Shot
         <select name="shotId" defaultValue={clip.shotId ?? ""} className={select}>
           <option value="">No shot</option>
-          {shots.data?.map((s) => (
+          {shots.map((s) => (
             <option key={s.id} value={s.id}>
               {s.description}
             </option>
@@ -164,7 +168,7 @@ function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
         Shoot day
         <select name="shootDayId" defaultValue={clip.shootDayId ?? ""} className={select}>
           <option value="">No day</option>
-          {days.data?.map((d) => (
+          {days.map((d) => (
             <option key={d.id} value={d.id}>
               {formatDay(d.day)} {d.place}
             </option>
