@@ -14,7 +14,7 @@ export function NotFound() {
   );
 }
 
-// A page's code is fetched when first visited; after Kerf is updated the old file is gone.
+// A page's code is fetched when first visited: a dropped connection, or an update that replaced the file, fails that fetch.
 const staleCode = /dynamically imported module|Importing a module script failed|Failed to fetch/i;
 
 /**
@@ -30,7 +30,7 @@ export function RouteError({ inShell = false }: { inShell?: boolean }) {
     <div role="alert" className="flex flex-col items-start gap-3">
       <p className="text-graphite-700">
         {updated
-          ? "Kerf was updated since this page was opened, so part of it couldn't load. Reload the page to get the new version."
+          ? "Part of this page couldn't be downloaded: the connection dropped, or Kerf was updated since the page was opened. Reload the page."
           : "Something on this page went wrong, and Kerf stopped it here. Nothing you saved is lost. Reload the page; if it happens again, tell your channel's owner what you were doing."}
       </p>
       <div className="flex flex-wrap items-center gap-4">

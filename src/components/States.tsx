@@ -54,7 +54,7 @@ export function explain(error: unknown): Explained {
   if (error.status === 0) return { title: "Kerf can't reach the server", text: "Check your connection, then try again.", retry: true, back: false };
   if (error.status === 401) return { title: "You're signed out", text: "Your session has ended. Sign in again to carry on where you were.", retry: false, back: false };
   if (error.status === 403) {
-    return { title: "Not open to your role", text: `${error.message} The channel's owner decides who may see what, on the Members page.`, retry: false, back: true };
+    return { title: "Not open to your role", text: `${error.message} Ask the channel's owner if you need it: the owner sets each member's role.`, retry: false, back: true };
   }
   if (error.status === 404) return { title: "Not found", text: `${error.message} It may have been deleted, or the link may be wrong.`, retry: false, back: true };
   if (error.status >= 500) return { title: "Kerf's server had a problem", text: "It is usually brief. Try again in a moment.", retry: true, back: false };
