@@ -1,5 +1,6 @@
 import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
 import type { UseFormRegisterReturn } from "react-hook-form";
+import { Button } from "./Button";
 
 /**
  * Kerf's form fields: each has its label, an optional hint and its error message, tied to the control
@@ -148,5 +149,21 @@ export function QuantityField({
         )}
       </div>
     </Frame>
+  );
+}
+
+/** A form's buttons: the one that sends it and, where the form can be closed, Cancel. */
+export function FormActions({ submit, busy, onCancel, className = "flex gap-2" }: { submit: ReactNode; busy: boolean; onCancel?: () => void; className?: string }) {
+  return (
+    <div className={className}>
+      <Button type="submit" busy={busy}>
+        {submit}
+      </Button>
+      {onCancel && (
+        <Button type="button" tone="quiet" onClick={onCancel}>
+          Cancel
+        </Button>
+      )}
+    </div>
   );
 }

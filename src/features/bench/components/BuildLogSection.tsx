@@ -14,7 +14,7 @@ import { useBuildLog } from "../api/get-build-log";
 import { useRuns } from "../api/list-runs";
 import { useUpdateIteration } from "../api/update-iteration";
 import { asEntered, Panel } from "./marks";
-import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -171,16 +171,7 @@ function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { chan
       </div>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {iteration ? "Save iteration" : "Log iteration"}
-        </Button>
-        {onDone && (
-          <Button type="button" tone="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={iteration ? "Save iteration" : "Log iteration"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -12,7 +12,7 @@ import { useAddCriterion } from "../api/add-criterion";
 import { useDeleteCriterion } from "../api/delete-criterion";
 import { useUpdateCriterion } from "../api/update-criterion";
 import { Panel } from "./marks";
-import { CheckboxField, QuantityField, SelectField, TextField } from "../../../components/form-fields";
+import { CheckboxField, FormActions, QuantityField, SelectField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -171,16 +171,7 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
       <TextField label="Note (optional)" {...form.register("note")} error={errors.note?.message} />
       <CheckboxField label="Required" hint="A required criterion decides the verdict; an informative one is only shown." {...form.register("required")} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {criterion ? "Save criterion" : "Add criterion"}
-        </Button>
-        {onDone && (
-          <Button type="button" tone="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={criterion ? "Save criterion" : "Add criterion"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -2,9 +2,8 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { unitsByDimension } from "@shared/bench/quantity";
 import { partInputSchema, partKindLabels, partKinds, type PartInput, type PartKind, type PartView } from "@shared/bench/schemas";
-import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -88,16 +87,7 @@ export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; bu
       </div>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={busy}>
-          {part ? "Save part" : "Add to the shelf"}
-        </Button>
-        {onCancel && (
-          <Button type="button" tone="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={part ? "Save part" : "Add to the shelf"} busy={busy} onCancel={onCancel} />
     </form>
   );
 }

@@ -11,7 +11,7 @@ import { Notice } from "../../../components/Notice";
 import { useAddRun } from "../api/add-run";
 import { useUpdateRun } from "../api/update-run";
 import { Caution } from "./marks";
-import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -151,14 +151,7 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
       </fieldset>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {run ? "Save changes" : "Save run"}
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit={run ? "Save changes" : "Save run"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

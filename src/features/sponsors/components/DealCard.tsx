@@ -12,7 +12,7 @@ import { DealStateTag } from "./labels";
 import { MoneyPanel } from "./MoneyPanel";
 import { ReadPanel } from "./ReadPanel";
 import { ReviewPanel } from "./ReviewPanel";
-import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -171,14 +171,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
         <SelectField label="Contact" options={[{ value: "", label: "No contact" }, ...deal.contacts.map((c) => ({ value: c.id, label: `${c.name} (${c.email})` }))]} {...form.register("contactId")} error={errors.contactId?.message} />
         <TextField label="Go-live date" type="date" hint="Leave empty to go live on the publish date." {...form.register("goLiveDate")} error={errors.goLiveDate?.message} />
       </div>
-      <div className="flex gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save requirements
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit="Save requirements" busy={update.isPending} onCancel={onDone} />
     </form>
   );
 }

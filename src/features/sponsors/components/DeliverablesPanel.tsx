@@ -11,7 +11,7 @@ import { useRemoveDeliverable } from "../api/remove-deliverable";
 import { useUpdateDeliverable } from "../api/update-deliverable";
 import { useSponsorSettings } from "../api/get-settings";
 import { StatusTag } from "./labels";
-import { SelectField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 import { Tag } from "./labels";
@@ -232,14 +232,7 @@ function AddItemForm({ channelId, dealId, members, onDone }: { channelId: string
         <TextField label="Days" inputMode="numeric" {...form.register("offsetDays")} error={errors.offsetDays?.message} />
       )}
       <SelectField label="Owner" options={[{ value: "", label: "Me" }, ...members.map((m) => ({ value: m.userId, label: m.name }))]} {...form.register("ownerId")} error={errors.ownerId?.message} />
-      <div className="flex items-end gap-2">
-        <Button type="submit" busy={add.isPending}>
-          Add item
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex items-end gap-2" submit="Add item" busy={add.isPending} onCancel={onDone} />
     </form>
   );
 }

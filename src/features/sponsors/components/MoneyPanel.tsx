@@ -5,7 +5,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { useUpdateMoney } from "../api/update-money";
 import { formatDay, formatMoney } from "../../../lib/format";
-import { SelectField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -82,14 +82,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
       <TextField label="Invoice number" {...form.register("invoiceNumber")} error={errors.invoiceNumber?.message} />
       <TextField label="Invoiced on" type="date" {...form.register("invoicedOn")} error={errors.invoicedOn?.message} />
       <TextField label="Paid on" type="date" {...form.register("paidOn")} error={errors.paidOn?.message} />
-      <div className="flex items-end gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save
-        </Button>
-        <Button type="button" tone="quiet" onClick={() => setEditing(false)}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex items-end gap-2" submit="Save" busy={update.isPending} onCancel={() => setEditing(false)} />
     </form>
   );
 }

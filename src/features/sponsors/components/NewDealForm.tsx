@@ -3,13 +3,12 @@ import { useForm, useWatch } from "react-hook-form";
 import { Link } from "react-router-dom";
 import { describeDating } from "@shared/sponsors/deliverables";
 import { createDealSchema, dealStateLabels, dealStates, paymentTermsFrom, paymentTermsLabels, placementLabels, placements, type DealTemplate, type SponsorSummary } from "@shared/sponsors/schemas";
-import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
 import { useCreateDeal } from "../api/create-deal";
 import { useSponsors } from "../api/list-sponsors";
 import { useTemplates } from "../api/list-templates";
-import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -164,14 +163,7 @@ function DealFormFields({ channelId, episodeId, sponsors, templates, onDone }: {
         <TextField label="Payment terms (days)" inputMode="numeric" {...form.register("paymentTermsDays")} error={errors.paymentTermsDays?.message} />
         <SelectField label="Counted from" options={paymentTermsFrom.map((p) => ({ value: p, label: paymentTermsLabels[p] }))} {...form.register("paymentTermsFrom")} error={errors.paymentTermsFrom?.message} />
       </fieldset>
-      <div className="flex gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Create deal
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit="Create deal" busy={create.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -17,7 +17,7 @@ import { useRemoveContact } from "../api/remove-contact";
 import { useUpdateSponsor } from "../api/update-sponsor";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
-import { TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -209,14 +209,7 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
         <TextField label="Website" {...form.register("website")} error={form.formState.errors.website?.message} />
       </div>
       <TextAreaField label="Notes" rows={3} {...form.register("notes")} error={form.formState.errors.notes?.message} />
-      <div className="flex gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit="Save" busy={update.isPending} onCancel={onDone} />
     </form>
   );
 }
