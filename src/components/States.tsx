@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { Link } from "react-router-dom";
+import { Link, useLocation } from "react-router-dom";
 import { ApiError } from "../lib/api-client";
 import { Button } from "./Button";
 
@@ -70,6 +70,7 @@ export interface Missing {
 export function LoadError({ error, retry, back, missing }: { error: unknown; retry?: () => void; back?: Back; missing?: Missing }) {
   const explained = missing && error instanceof ApiError && error.status === 404 ? { ...missing, retry: false, back: true } : explain(error);
   const signedOut = error instanceof ApiError && error.status === 401;
+  const here = useLocation();
   return (
     <div role="alert" className="m-4 flex flex-col items-start gap-3 rounded-lg border border-alarm-600/30 bg-white p-6">
       <p className="font-semibold text-alarm-600">{explained.title}</p>
@@ -80,7 +81,7 @@ export function LoadError({ error, retry, back, missing }: { error: unknown; ret
         </Button>
       )}
       {signedOut && (
-        <Link className="text-sm font-semibold text-rust-600 underline" to={`/sign-in?next=${encodeURIComponent(window.location.pathname + window.location.search)}`}>
+        <Link className="text-sm font-semibold text-rust-600 underline" to={`/sign-in?next=${encodeURIComponent(here.pathname + here.search)}`}>
           Sign in
         </Link>
       )}

@@ -14,6 +14,9 @@ export const episodeTitlesQueryOptions = (channelId: string) =>
     queryKey: rushesKeys.episodeTitles(channelId),
     queryFn: ({ signal }) => api<EpisodeTitlesResponse>(`/api/channels/${channelId}/episode-titles`, { signal }).then((r) => r.episodes),
     staleTime: 60_000,
+    // A new, renamed or archived episode shows in the filter at once.
+    meta: { follows: ["episode"] },
   });
 
-export const useEpisodeTitles = (channelId: string) => useQuery(episodeTitlesQueryOptions(channelId));
+/** `enabled` is false where the filter has its episode already (on the episode's own page). */
+export const useEpisodeTitles = (channelId: string, enabled = true) => useQuery({ ...episodeTitlesQueryOptions(channelId), enabled });

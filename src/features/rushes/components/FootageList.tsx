@@ -177,7 +177,7 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
 type Values = Partial<Record<(typeof filterKeys)[number], string | undefined>>;
 
 function Filters({ channelId, episodeId, values, onApply }: { channelId: string; episodeId?: string; values: Values; onApply: (v: Record<string, string | undefined>) => void }) {
-  const episodes = useEpisodeTitles(channelId);
+  const episodes = useEpisodeTitles(channelId, !episodeId);
   const chosenEpisode = episodeId ?? values.episodeId;
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
