@@ -151,7 +151,7 @@ function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: Cl
     }
   };
   return (
-    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
+    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 grid-cols-1 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
       <h3 className="font-semibold sm:col-span-2">Log</h3>
       <label className="flex flex-col gap-1 text-sm font-medium">
         Shot
