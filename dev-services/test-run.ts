@@ -10,8 +10,9 @@ import { ensureDatabase, startCluster } from "./postgres";
 import { freePort, run, stopChild, waitForHttp } from "./processes";
 
 /**
- * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter,
- * the unit and API tests, the client build and the browser tests, each against its own database.
+ * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter, the
+ * migrations' check, the unit and API tests, the client build and the browser tests, each against its
+ * own database.
  * The demo cluster of `npm start` is never touched.
  */
 // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
@@ -135,6 +136,8 @@ async function main(): Promise<number> {
   if (!partial) {
     await step("type check", bin("tsc"), ["--noEmit", "-p", "tsconfig.json"]);
     await step("lint", bin("eslint"), ["--max-warnings", "0", "."]);
+    // Two branches that each generated the next migration leave two snapshots with one parent: refused here.
+    await step("migrations check (drizzle-kit check)", bin("drizzle-kit"), ["check"]);
   }
 
   console.log("\n── test services ──");

@@ -2,43 +2,51 @@ import path from "node:path";
 import { existsSync } from "node:fs";
 import express, { type Express } from "express";
 import helmet from "helmet";
-import type { DatabaseHandle } from "./db/client";
-import type { Env } from "./env";
-import type { Jobs } from "./jobs/queue";
-import type { Mailer } from "./mail/mailer";
-import type { Storage } from "./storage/storage";
 import { authRoutes } from "./auth/auth.router";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
+import { findUserById } from "./auth/users.repository";
+import { benchRoutes } from "./bench/bench.router";
+import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
 import { healthRoutes } from "./health/health.router";
-import { slateRoutes } from "./slate/slate.router";
-import { benchRoutes } from "./bench/bench.router";
-import { rushesRoutes } from "./rushes/rushes.router";
-import { sponsorsRoutes } from "./sponsors/sponsors.router";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
 import { configurePassport, sessionMiddleware } from "./http/session";
+import { rushesRoutes } from "./rushes/rushes.router";
+import type { AppDeps } from "./seams/app-deps";
+import type { SlatePlugs } from "./seams/slate-plugs";
+import { slateRoutes } from "./slate/slate.router";
+import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
+import { sponsorGates } from "./sponsors/sponsors.gates";
+import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
+import { sponsorsRoutes } from "./sponsors/sponsors.router";
 
-export interface AppDeps {
-  env: Env;
-  database: DatabaseHandle;
-  mailer: Mailer;
-  jobs: Pick<Jobs, "enqueueMail">;
-  /** Object storage (S3 protocol): footage, posters, photos. */
-  storage: Storage;
+/** Settings of one app that are not dependencies (tests tighten them). */
+export interface AppOptions {
   signInLimits?: SignInLimits;
 }
 
+/**
+ * What the features plug into the slate. This is the one place a feature's gates, board flags,
+ * board filters and publish-date followers are named; the slate knows only the contracts in server/seams/.
+ */
+export const slatePlugs: SlatePlugs = {
+  stageGates: [...benchGates, ...sponsorGates],
+  boardFlags: [...sponsorFlagSources],
+  boardFilters: { sponsor: sponsorBoardFilter },
+  publishDateFollowers: [sponsorsFollowPublishDate],
+};
+
 /** Every API route with who may call it: the one table the authorisation tests read. */
-export function apiRoutes(deps: AppDeps): RouteSpec[] {
+export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] {
   const db = deps.database.db;
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
-    ...authRoutes(db, deps.signInLimits ?? defaultSignInLimits),
+    ...authRoutes(db, options.signInLimits ?? defaultSignInLimits),
     ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
-    ...slateRoutes(deps),
+    ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
@@ -64,17 +72,17 @@ const contentSecurityPolicy = (storageOrigin: string) => ({
   },
 });
 
-export function createApp(deps: AppDeps): Express {
+export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   const { env, database } = deps;
   const app = express();
   app.disable("x-powered-by");
   if (env.TRUST_PROXY) app.set("trust proxy", 1);
   app.use(helmet({ contentSecurityPolicy: contentSecurityPolicy(deps.storage.publicOrigin), strictTransportSecurity: env.TRUST_PROXY }));
 
-  const passport = configurePassport(database.db);
+  const passport = configurePassport((id) => findUserById(database.db, id));
   const api = express.Router();
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
-  const routes = apiRoutes(deps);
+  const routes = apiRoutes(deps, options);
   const guards = guardsFor(database.db);
   mountRoutes(api, routes.filter((route) => route.sessionless), guards);
   api.use("/api", express.json({ limit: "100kb", strict: true }), sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);

@@ -9,6 +9,7 @@ import { addMember, createUser } from "../../tests/factories/accounts";
 import { DEMO_CHANNEL, seedDemo } from "../demo/channel";
 import { startMailCatcher } from "../mail";
 import { repoRoot, stateDir } from "../paths";
+import { percentile, signIn, type SignedIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
@@ -30,26 +31,6 @@ const WARMUP_SECONDS = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
 const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
-
-interface Client {
-  cookie: string;
-  csrf: string;
-}
-
-async function signIn(appUrl: string, email: string, password: string): Promise<Client> {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  const anonymous = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const { csrfToken } = (await me.json()) as { csrfToken: string };
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
-    method: "POST",
-    headers: { cookie: anonymous, "content-type": "application/json", "x-csrf-token": csrfToken },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!signed.ok) throw new Error(`sign-in failed: ${signed.status}`);
-  return { cookie: (signed.headers.get("set-cookie") ?? "").split(";")[0]!, csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
-}
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 
 async function main() {
   rmSync(work, { recursive: true, force: true });
@@ -88,11 +69,11 @@ async function main() {
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/health`, 60_000);
 
-  const clients = await Promise.all(people.map((p) => signIn(appUrl, p.email, password)));
+  const clients = await Promise.all(people.map((p) => signIn(appUrl, { email: p.email, password })));
   const base = `/api/channels/${channelId}`;
   const episodeIds = episodes.rows.map((r) => r.id);
   const reads = [`${base}/episodes`, `${base}/episodes/${episodeIds[0]}`, `${base}/clips?limit=50`, `${base}/desk`];
-  const requestsFor = (client: Client, index: number) => {
+  const requestsFor = (client: SignedIn, index: number) => {
     // As a browser asks: compressed answers accepted.
     const headers = { cookie: client.cookie, accept: "application/json", "accept-encoding": "gzip, deflate, br" };
     const sequence: autocannon.Request[] = Array.from({ length: 9 }, (_, i) => ({ method: "GET", path: reads[i % reads.length]!, headers }));
@@ -148,7 +129,7 @@ machine: ${os.cpus().length} CPUs, load average ${figures.load_average_1min}`);
   console.log(JSON.stringify(figures));
 }
 
-type RequestsFor = (client: Client, index: number) => autocannon.Request[];
+type RequestsFor = (client: SignedIn, index: number) => autocannon.Request[];
 
 interface Run {
   requests: number;
@@ -171,7 +152,7 @@ function oneRun(options: autocannon.Options, onResponse: (ms: number) => void): 
  * second back to back when the second starts (here: a page's few requests at once, as a browser does),
  * so the clients start spread across one second, or all fifty would send on the same tick.
  */
-async function drivePaced(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number; rate: number }): Promise<Run> {
+async function drivePaced(appUrl: string, clients: SignedIn[], requestsFor: RequestsFor, options: { seconds: number; rate: number }): Promise<Run> {
   const latencies: number[] = [];
   const results = await Promise.all(
     clients.map(async (client, index) => {
@@ -185,7 +166,7 @@ async function drivePaced(appUrl: string, clients: Client[], requestsFor: Reques
 }
 
 /** Flat out: every client sends its next request as soon as the last is answered. */
-async function driveFlatOut(appUrl: string, clients: Client[], requestsFor: RequestsFor, options: { seconds: number }): Promise<Run> {
+async function driveFlatOut(appUrl: string, clients: SignedIn[], requestsFor: RequestsFor, options: { seconds: number }): Promise<Run> {
   const latencies: number[] = [];
   let nextClient = 0;
   const result = await oneRun(

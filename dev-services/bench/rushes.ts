@@ -13,6 +13,7 @@ import { createCrewedChannel } from "../../tests/factories/accounts";
 import { createEpisode } from "../../tests/factories/episodes";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { repoRoot, stateDir } from "../paths";
+import { percentile, signIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { startS3StandIn } from "../s3";
 
@@ -29,7 +30,6 @@ const PARALLEL = 4;
 
 const work = path.join(stateDir, `bench-rushes-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
 
 async function seedClips(url: string, channelId: string, episodeIds: string[]) {
   const handle = connectDatabase(url);
@@ -50,14 +50,8 @@ async function seedClips(url: string, channelId: string, episodeIds: string[]) {
   return handle;
 }
 
-async function signIn(appUrl: string, person: { email: string; password: string }) {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  let cookie = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const csrf = ((await me.json()) as { csrfToken: string }).csrfToken;
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, { method: "POST", headers: { cookie, "content-type": "application/json", "x-csrf-token": csrf }, body: JSON.stringify({ email: person.email, password: person.password }) });
-  if (!signed.ok) throw new Error(`sign-in: ${signed.status} ${await signed.clone().text()}`);
-  cookie = (signed.headers.get("set-cookie") ?? cookie).split(";")[0]!;
-  const token = ((await signed.json()) as { csrfToken: string }).csrfToken;
+async function signedInCaller(appUrl: string, person: { email: string; password: string }) {
+  const { cookie, csrf: token } = await signIn(appUrl, person);
   return async (method: string, url: string, body?: unknown) => {
     const response = await fetch(`${appUrl}${url}`, {
       method,
@@ -133,7 +127,7 @@ async function main() {
   });
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/health`, 60_000);
-  const call = await signIn(appUrl, crewed.editor);
+  const call = await signedInCaller(appUrl, crewed.editor);
 
   // (a) the list: episode + rating + tag, first page and a page further on.
   const filter = `episodeId=${episodes[3]!.id}&rating=select&tag=wiring`;

@@ -6,10 +6,12 @@ import autocannon from "autocannon";
 import { generateNKeysBetween } from "fractional-indexing";
 import { connectDatabase } from "../../server/db/client";
 import { migrateDatabase } from "../../server/db/migrate";
-import { externalFlags } from "../../server/slate/flags";
+import { slatePlugs } from "../../server/app";
+import { collectFlags } from "../../server/seams/board-flags";
 import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
+import { percentile, signIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
@@ -33,7 +35,6 @@ const work = path.join(stateDir, `bench-slate-${process.pid}`);
 const clientDir = path.join(os.tmpdir(), `kerf-bench-slate-client-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
 
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 const round = (n: number, digits = 1) => Math.round(n * 10 ** digits) / 10 ** digits;
 
 /** `count` episodes spread over the stages, each with the history that walked it there; some with an override or a skipped gate. */
@@ -73,19 +74,6 @@ async function seedEpisodes(pool: ReturnType<typeof connectDatabase>["pool"], ch
     [channelId],
   );
   await pool.query("analyze");
-}
-
-async function signIn(appUrl: string, email: string, password: string) {
-  const me = await fetch(`${appUrl}/api/auth/me`);
-  const anonymous = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
-  const { csrfToken } = (await me.json()) as { csrfToken: string };
-  const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
-    method: "POST",
-    headers: { cookie: anonymous, "content-type": "application/json", "x-csrf-token": csrfToken },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!signed.ok) throw new Error(`sign-in failed: ${signed.status}`);
-  return { cookie: (signed.headers.get("set-cookie") ?? "").split(";")[0]!, csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
 }
 
 /** One request at a time, `count` times: latency as a client sees it, body read to the end. */
@@ -144,7 +132,7 @@ async function main() {
   const flagTimes: number[] = [];
   for (let i = 0; i < 25; i++) {
     const start = performance.now();
-    await externalFlags(handle.db, big.channel.id, ids, { timeZone: "UTC", today: new Date().toISOString().slice(0, 10) });
+    await collectFlags(slatePlugs.boardFlags, handle.db, big.channel.id, ids, { timeZone: "UTC", today: new Date().toISOString().slice(0, 10) });
     if (i >= 5) flagTimes.push(performance.now() - start);
   }
   flagTimes.sort((a, b) => a - b);
@@ -175,7 +163,7 @@ async function main() {
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
 
-  const owner = await signIn(appUrl, big.owner.email, big.owner.password);
+  const owner = await signIn(appUrl, big.owner);
   // As a browser asks: with brotli and gzip accepted (the board sends its kept body compressed; the one-row answer is too small to bother).
   const headers = { cookie: owner.cookie, accept: "application/json", "accept-encoding": "gzip, deflate, br" };
   const boardPath = `/api/channels/${big.channel.id}/episodes`;

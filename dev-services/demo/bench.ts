@@ -1,4 +1,4 @@
-import type { DemoContext } from "./channel";
+import type { DemoContext } from "./context";
 import { hazardCatalogue } from "../../shared/bench/hazards";
 import { createCriterion, createHazard, createIteration, createPart, createRun, q, saveTestPlan } from "../../tests/factories/bench";
 

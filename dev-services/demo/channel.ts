@@ -7,6 +7,7 @@ import { stages, type Stage } from "../../shared/slate/stages";
 import type { Database } from "../../server/db/client";
 import { addMember, createChannel, createUser } from "../../tests/factories/accounts";
 import { createEpisode } from "../../tests/factories/episodes";
+import type { DemoContext } from "./context";
 import { seedSlateDemo } from "./slate";
 import { seedBenchDemo } from "./bench";
 import { seedRushesDemo } from "./rushes";
@@ -58,15 +59,6 @@ const demoEpisodes: DemoEpisode[] = [
 export async function isEmpty(db: Database): Promise<boolean> {
   const result = await db.execute(sql`select count(*)::int as count from users`);
   return (result.rows[0] as { count: number }).count === 0;
-}
-
-/** What the feature demos build on: the channel, its people by role, and its episodes. */
-export interface DemoContext {
-  db: Database;
-  today: Date;
-  channelId: string;
-  people: Map<Role, { id: string; email: string; name: string }>;
-  episodes: { id: string; stage: Stage; title: string; targetPublishDate: string | null }[];
 }
 
 export async function seedDemo(db: Database, today = new Date()): Promise<void> {

@@ -2,7 +2,7 @@ import type { ShotKind } from "../../shared/rushes/vocabulary";
 import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
 import { clipMarks, shootDayCrew } from "../../server/db/schema/rushes";
 import { createClip, createShootDay, createShot } from "../../tests/factories/rushes";
-import type { DemoContext } from "./channel";
+import type { DemoContext } from "./context";
 
 /**
  * The demo channel's shoot days, shot lists and clips (invented, like everything in the demo). The

@@ -6,7 +6,7 @@ import { mentionedIn } from "../../shared/slate/mentions";
 import { defaultStageLengths } from "../../shared/slate/schedule";
 import { stageIndex, stages, type Stage } from "../../shared/slate/stages";
 import { dueOverrides, episodeComments, episodes, slateChannels, stageMoves } from "../../server/db/schema/slate";
-import type { DemoContext } from "./channel";
+import type { DemoContext } from "./context";
 
 /**
  * The demo channel's slate (invented, like everything in the demo): every episode gets a history

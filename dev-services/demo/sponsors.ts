@@ -1,7 +1,7 @@
 import { addDays, addHours, subDays } from "date-fns";
 import { generateDeliverables, suggestedTemplateItems, type DeliverableStatus } from "../../shared/sponsors/deliverables";
 import { dealTemplates, deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors, sponsorSettings } from "../../server/db/schema/sponsors";
-import type { DemoContext } from "./channel";
+import type { DemoContext } from "./context";
 
 /*
  * The demo channel's sponsors: three invented companies, four deals in different states, one item

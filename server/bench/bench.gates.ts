@@ -1,5 +1,5 @@
 import type { GateProblem } from "../../shared/slate/gates";
-import { leavesStageForward, type StageGate } from "../slate/gates";
+import { leavesStageForward, type StageGate } from "../seams/stage-gates";
 import { findPlan, listCriteria } from "./test-plan.repository";
 
 /** Leaving the test plan stage (or jumping past it) without a hypothesis or a required criterion asks for confirmation. */

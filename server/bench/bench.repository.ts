@@ -1,22 +1,18 @@
 import { and, eq } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { episodes } from "../db/schema/slate";
-import { notFound } from "../http/app-error";
 
 export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 /** A repository function runs on the pool or inside a caller's transaction. */
 export type Queryable = Database | Tx;
 
-/** The episode, scoped by channel: an id from another channel answers 404 like a missing one. */
-export async function requireEpisode(db: Queryable, channelId: string, episodeId: string) {
-  const rows = await db
-    .select({ id: episodes.id, title: episodes.title, stage: episodes.stage })
+/** The episode's title (the route's guard has checked it is the channel's). */
+export async function episodeTitle(db: Queryable, channelId: string, episodeId: string): Promise<string> {
+  const [row] = await db
+    .select({ title: episodes.title })
     .from(episodes)
-    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)))
-    .limit(1);
-  const episode = rows[0];
-  if (!episode) throw notFound("Episode");
-  return episode;
+    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)));
+  return row?.title ?? "";
 }
 
 /** Postgres's unique_violation: two inserts raced for the same per-episode number. */

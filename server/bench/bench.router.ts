@@ -1,4 +1,4 @@
-import type { AppDeps } from "../app";
+import type { AppDeps } from "../seams/app-deps";
 import type { RouteSpec } from "../http/route-table";
 import { buildLogRoutes } from "./build-log.router";
 import { runsRoutes } from "./runs.router";

@@ -2,14 +2,13 @@ import type { IterationInput, IterationView } from "../../shared/bench/schemas";
 import { iterationThrustToWeight } from "../../shared/bench/runs";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
-import { requireEpisode, withNextNumber } from "./bench.repository";
+import type { Caller } from "../http/route-table";
+import { withNextNumber } from "./bench.repository";
 import { deleteIteration, insertIteration, listIterations, updateIteration } from "./build-log.repository";
 import { findRunRow, listRunRows } from "./runs.repository";
 
 /** The log, each iteration's thrust-to-weight recomputed from its own all-up mass and its chosen run. */
 export async function buildLog(db: Database, channelId: string, episodeId: string): Promise<IterationView[]> {
-  await requireEpisode(db, channelId, episodeId);
   const [iterations, runs] = await Promise.all([listIterations(db, channelId, episodeId), listRunRows(db, channelId, { episodeId })]);
   const runsById = new Map(runs.map((run) => [run.id, run]));
   return iterations.map((row) => {
@@ -46,22 +45,19 @@ async function iterationView(db: Database, channelId: string, episodeId: string,
   return view;
 }
 
-export async function addIteration(db: Database, member: MemberContext, episodeId: string, raw: IterationInput) {
-  const { channelId } = member;
-  await requireEpisode(db, channelId, episodeId);
+export async function addIteration(db: Database, caller: Caller, episodeId: string, raw: IterationInput) {
+  const { channelId } = caller;
   const input = await normalise(db, channelId, episodeId, raw);
-  const { id } = await withNextNumber(() => insertIteration(db, channelId, episodeId, input, member.userId));
+  const { id } = await withNextNumber(() => insertIteration(db, channelId, episodeId, input, caller.userId));
   return iterationView(db, channelId, episodeId, id);
 }
 
 export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, raw: IterationInput) {
-  await requireEpisode(db, channelId, episodeId);
   const input = await normalise(db, channelId, episodeId, raw);
   if (!(await updateIteration(db, channelId, episodeId, iterationId, input))) throw notFound("Iteration");
   return iterationView(db, channelId, episodeId, iterationId);
 }
 
 export async function removeIteration(db: Database, channelId: string, episodeId: string, iterationId: string) {
-  await requireEpisode(db, channelId, episodeId);
   if (!(await deleteIteration(db, channelId, episodeId, iterationId))) throw notFound("Iteration");
 }

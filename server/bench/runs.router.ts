@@ -1,12 +1,11 @@
 import { runInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { memberOf } from "../http/guards";
+import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
 import { changeRun, createRun, episodeRuns, episodeRunsCsv, removeRun } from "./runs.service";
 
 const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
-const episodeOf = (req: { params: Record<string, unknown> }) => parseId(req.params.episodeId, "Episode");
 
 /** A file name any system accepts: the episode's title in plain letters and digits. */
 const fileName = (title: string) => `bench-runs-${title.normalize("NFKD").replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "").toLowerCase().slice(0, 60) || "episode"}.csv`;
@@ -16,13 +15,13 @@ export function runsRoutes(db: Database): RouteSpec[] {
   const read = channelAccess("bench", "R");
   const write = channelAccess("bench", "W");
   return [
-    { method: "get", path: runs, access: read, handler: async (req, res) => res.json({ runs: await episodeRuns(db, memberOf(req).channelId, episodeOf(req)) }) },
+    { method: "get", path: runs, access: read, handler: async (req, res) => res.json({ runs: await episodeRuns(db, callerOf(req).channelId, idOf(req, "episodeId")) }) },
     {
       method: "get",
       path: `${runs}.csv`,
       access: read,
       handler: async (req, res) => {
-        const { title, csv } = await episodeRunsCsv(db, memberOf(req).channelId, episodeOf(req));
+        const { title, csv } = await episodeRunsCsv(db, callerOf(req).channelId, idOf(req, "episodeId"));
         // RFC 4180, section 3: text/csv, with the optional header parameter saying the first line names the columns.
         res.type("text/csv; charset=utf-8; header=present").attachment(fileName(title)).send(csv);
       },
@@ -32,9 +31,9 @@ export function runsRoutes(db: Database): RouteSpec[] {
       path: runs,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
+        const episodeId = idOf(req, "episodeId");
         const input = parseBody(runInputSchema, req.body);
-        res.status(201).json({ run: await createRun(db, memberOf(req), episodeId, input) });
+        res.status(201).json({ run: await createRun(db, callerOf(req), episodeId, input) });
       },
     },
     {
@@ -42,10 +41,10 @@ export function runsRoutes(db: Database): RouteSpec[] {
       path: `${runs}/:runId`,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
-        const runId = parseId(req.params.runId, "Run");
+        const episodeId = idOf(req, "episodeId");
+        const runId = idOf(req, "runId");
         const input = parseBody(runInputSchema, req.body);
-        res.json({ run: await changeRun(db, memberOf(req).channelId, episodeId, runId, input) });
+        res.json({ run: await changeRun(db, callerOf(req).channelId, episodeId, runId, input) });
       },
     },
     {
@@ -53,7 +52,7 @@ export function runsRoutes(db: Database): RouteSpec[] {
       path: `${runs}/:runId`,
       access: write,
       handler: async (req, res) => {
-        await removeRun(db, memberOf(req).channelId, episodeOf(req), parseId(req.params.runId, "Run"));
+        await removeRun(db, callerOf(req).channelId, idOf(req, "episodeId"), idOf(req, "runId"));
         res.status(204).end();
       },
     },

@@ -1,10 +1,10 @@
-import { runsCsv } from "../../shared/bench/comparison";
+import { runsCsv } from "../../shared/bench/runs-csv";
 import type { PartRunView, RunInput, RunPartView, RunView } from "../../shared/bench/schemas";
 import { evaluateRun, isOverRated, type PlanForRuns } from "../../shared/bench/runs";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
-import { type Queryable, requireEpisode, withNextNumber } from "./bench.repository";
+import type { Caller } from "../http/route-table";
+import { type Queryable, episodeTitle, withNextNumber } from "./bench.repository";
 import { type RunRow, deleteRun, findRunRow, insertRun, listRunParts, listRunRows, updateRun } from "./runs.repository";
 import { partsByIds, runsOfPart } from "./shelf.repository";
 import { findPlan, listCriteria } from "./test-plan.repository";
@@ -46,14 +46,16 @@ async function toRunViews(db: Queryable, channelId: string, rows: readonly RunRo
 }
 
 export async function episodeRuns(db: Database, channelId: string, episodeId: string) {
-  await requireEpisode(db, channelId, episodeId);
   return toRunViews(db, channelId, await listRunRows(db, channelId, { episodeId }));
 }
 
 export async function episodeRunsCsv(db: Database, channelId: string, episodeId: string) {
-  const episode = await requireEpisode(db, channelId, episodeId);
-  const [runs, criteria] = await Promise.all([toRunViews(db, channelId, await listRunRows(db, channelId, { episodeId })), listCriteria(db, channelId, episodeId)]);
-  return { title: episode.title, csv: runsCsv(runs, criteria.map(toCriterionView)) };
+  const [title, runs, criteria] = await Promise.all([
+    episodeTitle(db, channelId, episodeId),
+    listRunRows(db, channelId, { episodeId }).then((rows) => toRunViews(db, channelId, rows)),
+    listCriteria(db, channelId, episodeId),
+  ]);
+  return { title, csv: runsCsv(runs, criteria.map(toCriterionView)) };
 }
 
 async function runView(db: Queryable, channelId: string, episodeId: string, runId: string) {
@@ -74,18 +76,16 @@ async function checkParts(db: Queryable, channelId: string, input: RunInput) {
 
 const lowerIds = (input: RunInput): RunInput => ({ ...input, parts: input.parts.map((part) => ({ ...part, partId: part.partId.toLowerCase() })) });
 
-export async function createRun(db: Database, member: MemberContext, episodeId: string, raw: RunInput) {
-  const { channelId } = member;
+export async function createRun(db: Database, caller: Caller, episodeId: string, raw: RunInput) {
+  const { channelId } = caller;
   const input = lowerIds(raw);
-  await requireEpisode(db, channelId, episodeId);
   await checkParts(db, channelId, input);
-  const { id } = await withNextNumber(() => db.transaction((tx) => insertRun(tx, channelId, episodeId, input, member.userId)));
+  const { id } = await withNextNumber(() => db.transaction((tx) => insertRun(tx, channelId, episodeId, input, caller.userId)));
   return runView(db, channelId, episodeId, id);
 }
 
 export async function changeRun(db: Database, channelId: string, episodeId: string, runId: string, raw: RunInput) {
   const input = lowerIds(raw);
-  await requireEpisode(db, channelId, episodeId);
   await checkParts(db, channelId, input);
   const changed = await db.transaction((tx) => updateRun(tx, channelId, episodeId, runId, input));
   if (!changed) throw notFound("Run");
@@ -93,7 +93,6 @@ export async function changeRun(db: Database, channelId: string, episodeId: stri
 }
 
 export async function removeRun(db: Database, channelId: string, episodeId: string, runId: string) {
-  await requireEpisode(db, channelId, episodeId);
   if (!(await deleteRun(db, channelId, episodeId, runId))) throw notFound("Run");
 }
 

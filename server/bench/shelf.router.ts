@@ -1,8 +1,8 @@
 import { partInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { memberOf } from "../http/guards";
+import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
 import { addPart, changePart, partPage, removePart, shelf } from "./shelf.service";
 
 const parts = "/api/channels/:channelId/bench/parts";
@@ -12,30 +12,30 @@ export function shelfRoutes(db: Database): RouteSpec[] {
   const read = channelAccess("bench", "R");
   const write = channelAccess("bench", "W");
   return [
-    { method: "get", path: parts, access: read, handler: async (req, res) => res.json({ parts: await shelf(db, memberOf(req).channelId) }) },
+    { method: "get", path: parts, access: read, handler: async (req, res) => res.json({ parts: await shelf(db, callerOf(req).channelId) }) },
     {
       method: "post",
       path: parts,
       access: write,
       handler: async (req, res) => {
         const input = parseBody(partInputSchema, req.body);
-        res.status(201).json({ part: await addPart(db, memberOf(req).channelId, input) });
+        res.status(201).json({ part: await addPart(db, callerOf(req).channelId, input) });
       },
     },
     {
       method: "get",
       path: `${parts}/:partId`,
       access: read,
-      handler: async (req, res) => res.json(await partPage(db, memberOf(req).channelId, parseId(req.params.partId, "Part"))),
+      handler: async (req, res) => res.json(await partPage(db, callerOf(req).channelId, idOf(req, "partId"))),
     },
     {
       method: "put",
       path: `${parts}/:partId`,
       access: write,
       handler: async (req, res) => {
-        const partId = parseId(req.params.partId, "Part");
+        const partId = idOf(req, "partId");
         const input = parseBody(partInputSchema, req.body);
-        res.json({ part: await changePart(db, memberOf(req).channelId, partId, input) });
+        res.json({ part: await changePart(db, callerOf(req).channelId, partId, input) });
       },
     },
     {
@@ -43,7 +43,7 @@ export function shelfRoutes(db: Database): RouteSpec[] {
       path: `${parts}/:partId`,
       access: write,
       handler: async (req, res) => {
-        await removePart(db, memberOf(req).channelId, parseId(req.params.partId, "Part"));
+        await removePart(db, callerOf(req).channelId, idOf(req, "partId"));
         res.status(204).end();
       },
     },

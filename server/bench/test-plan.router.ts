@@ -1,12 +1,11 @@
 import { criterionInputSchema, hazardChangeSchema, hazardInputSchema, testPlanInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { memberOf } from "../http/guards";
+import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
 import { addCriterion, addHazard, changeCriterion, changeHazard, removeCriterion, removeHazard, saveTestPlan, testPlanView } from "./test-plan.service";
 
 const plan = "/api/channels/:channelId/episodes/:episodeId/test-plan";
-const episodeOf = (req: { params: Record<string, unknown> }) => parseId(req.params.episodeId, "Episode");
 
 /** The test plan sheet: owner and producer write, editor and crew read (the spec's "test plan sheet" row). */
 export function testPlanRoutes(db: Database): RouteSpec[] {
@@ -17,16 +16,16 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       method: "get",
       path: plan,
       access: read,
-      handler: async (req, res) => res.json({ plan: await testPlanView(db, memberOf(req).channelId, episodeOf(req)) }),
+      handler: async (req, res) => res.json({ plan: await testPlanView(db, callerOf(req).channelId, idOf(req, "episodeId")) }),
     },
     {
       method: "put",
       path: plan,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
+        const episodeId = idOf(req, "episodeId");
         const input = parseBody(testPlanInputSchema, req.body);
-        res.json({ plan: await saveTestPlan(db, memberOf(req), episodeId, input) });
+        res.json({ plan: await saveTestPlan(db, callerOf(req), episodeId, input) });
       },
     },
     {
@@ -34,9 +33,9 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/criteria`,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
+        const episodeId = idOf(req, "episodeId");
         const criterion = parseBody(criterionInputSchema, req.body);
-        res.status(201).json({ criterion: await addCriterion(db, memberOf(req).channelId, episodeId, criterion) });
+        res.status(201).json({ criterion: await addCriterion(db, callerOf(req).channelId, episodeId, criterion) });
       },
     },
     {
@@ -44,10 +43,10 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/criteria/:criterionId`,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
-        const criterionId = parseId(req.params.criterionId, "Criterion");
+        const episodeId = idOf(req, "episodeId");
+        const criterionId = idOf(req, "criterionId");
         const criterion = parseBody(criterionInputSchema, req.body);
-        res.json({ criterion: await changeCriterion(db, memberOf(req).channelId, episodeId, criterionId, criterion) });
+        res.json({ criterion: await changeCriterion(db, callerOf(req).channelId, episodeId, criterionId, criterion) });
       },
     },
     {
@@ -55,7 +54,7 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/criteria/:criterionId`,
       access: write,
       handler: async (req, res) => {
-        await removeCriterion(db, memberOf(req).channelId, episodeOf(req), parseId(req.params.criterionId, "Criterion"));
+        await removeCriterion(db, callerOf(req).channelId, idOf(req, "episodeId"), idOf(req, "criterionId"));
         res.status(204).end();
       },
     },
@@ -64,9 +63,9 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/hazards`,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
+        const episodeId = idOf(req, "episodeId");
         const hazard = parseBody(hazardInputSchema, req.body);
-        res.status(201).json({ hazard: await addHazard(db, memberOf(req).channelId, episodeId, hazard) });
+        res.status(201).json({ hazard: await addHazard(db, callerOf(req).channelId, episodeId, hazard) });
       },
     },
     {
@@ -74,10 +73,10 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/hazards/:hazardId`,
       access: write,
       handler: async (req, res) => {
-        const episodeId = episodeOf(req);
-        const hazardId = parseId(req.params.hazardId, "Hazard");
+        const episodeId = idOf(req, "episodeId");
+        const hazardId = idOf(req, "hazardId");
         const change = parseBody(hazardChangeSchema, req.body);
-        res.json({ hazard: await changeHazard(db, memberOf(req), episodeId, hazardId, change) });
+        res.json({ hazard: await changeHazard(db, callerOf(req), episodeId, hazardId, change) });
       },
     },
     {
@@ -85,7 +84,7 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       path: `${plan}/hazards/:hazardId`,
       access: write,
       handler: async (req, res) => {
-        await removeHazard(db, memberOf(req).channelId, episodeOf(req), parseId(req.params.hazardId, "Hazard"));
+        await removeHazard(db, callerOf(req).channelId, idOf(req, "episodeId"), idOf(req, "hazardId"));
         res.status(204).end();
       },
     },

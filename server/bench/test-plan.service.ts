@@ -3,8 +3,8 @@ import { CUSTOM_HAZARD, hazardCatalogue, hazardLabel, isCatalogueHazard } from "
 import type { CriterionView, HazardChange, HazardInput, HazardView, TestPlanInput, TestPlanView } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
 import { notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
-import { iso, requireEpisode } from "./bench.repository";
+import type { Caller } from "../http/route-table";
+import { iso } from "./bench.repository";
 import {
   deleteCriterion,
   deleteHazard,
@@ -38,7 +38,6 @@ function toHazardView(row: HazardRow): HazardView {
 
 /** The sheet as the episode page shows it; an episode without one gets an empty sheet. */
 export async function testPlanView(db: Database, channelId: string, episodeId: string): Promise<TestPlanView> {
-  await requireEpisode(db, channelId, episodeId);
   const [plan, criteria, hazards] = await Promise.all([findPlan(db, channelId, episodeId), listCriteria(db, channelId, episodeId), listHazards(db, channelId, episodeId)]);
   return {
     episodeId,
@@ -52,26 +51,22 @@ export async function testPlanView(db: Database, channelId: string, episodeId: s
   };
 }
 
-export async function saveTestPlan(db: Database, member: MemberContext, episodeId: string, input: TestPlanInput) {
-  await requireEpisode(db, member.channelId, episodeId);
-  await upsertPlan(db, member.channelId, episodeId, input, member.userId);
-  return testPlanView(db, member.channelId, episodeId);
+export async function saveTestPlan(db: Database, caller: Caller, episodeId: string, input: TestPlanInput) {
+  await upsertPlan(db, caller.channelId, episodeId, input, caller.userId);
+  return testPlanView(db, caller.channelId, episodeId);
 }
 
 export async function addCriterion(db: Database, channelId: string, episodeId: string, criterion: Criterion) {
-  await requireEpisode(db, channelId, episodeId);
   return toCriterionView(await insertCriterion(db, channelId, episodeId, criterion));
 }
 
 export async function changeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string, criterion: Criterion) {
-  await requireEpisode(db, channelId, episodeId);
   const row = await updateCriterion(db, channelId, episodeId, criterionId, criterion);
   if (!row) throw notFound("Criterion");
   return toCriterionView(row);
 }
 
 export async function removeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string) {
-  await requireEpisode(db, channelId, episodeId);
   if (!(await deleteCriterion(db, channelId, episodeId, criterionId))) throw notFound("Criterion");
 }
 
@@ -82,7 +77,6 @@ async function hazardView(db: Database, channelId: string, episodeId: string, ha
 }
 
 export async function addHazard(db: Database, channelId: string, episodeId: string, input: HazardInput) {
-  await requireEpisode(db, channelId, episodeId);
   const title = input.kind === CUSTOM_HAZARD ? (input.title ?? null) : null;
   const { id } = await insertHazard(db, { channelId, episodeId, kind: input.kind, title, mitigation: input.mitigation });
   return hazardView(db, channelId, episodeId, id);
@@ -92,22 +86,20 @@ export async function addHazard(db: Database, channelId: string, episodeId: stri
  * A changed mitigation is a new plan nobody has checked yet, so it clears the check unless the
  * same request checks it again.
  */
-export async function changeHazard(db: Database, member: MemberContext, episodeId: string, hazardId: string, change: HazardChange) {
-  const { channelId } = member;
-  await requireEpisode(db, channelId, episodeId);
+export async function changeHazard(db: Database, caller: Caller, episodeId: string, hazardId: string, change: HazardChange) {
+  const { channelId } = caller;
   const current = await findHazard(db, channelId, episodeId, hazardId);
   if (!current) throw notFound("Hazard");
   const set: Parameters<typeof updateHazard>[3] = {};
   if (change.title !== undefined && current.kind === CUSTOM_HAZARD) set.title = change.title;
   const mitigationChanged = change.mitigation !== undefined && change.mitigation !== current.mitigation;
   if (mitigationChanged) set.mitigation = change.mitigation;
-  if (change.checked === true) Object.assign(set, { checkedBy: member.userId, checkedAt: new Date() });
+  if (change.checked === true) Object.assign(set, { checkedBy: caller.userId, checkedAt: new Date() });
   else if (change.checked === false || mitigationChanged) Object.assign(set, { checkedBy: null, checkedAt: null });
   await updateHazard(db, channelId, hazardId, set);
   return hazardView(db, channelId, episodeId, hazardId);
 }
 
 export async function removeHazard(db: Database, channelId: string, episodeId: string, hazardId: string) {
-  await requireEpisode(db, channelId, episodeId);
   if (!(await deleteHazard(db, channelId, episodeId, hazardId))) throw notFound("Hazard");
 }

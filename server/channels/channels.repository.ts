@@ -3,15 +3,6 @@ import type { Role } from "../../shared/access/roles";
 import type { Database } from "../db/client";
 import { channels, invitations, memberships, users } from "../db/schema/accounts";
 
-export async function findMembership(db: Database, channelId: string, userId: string) {
-  const rows = await db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
-    .limit(1);
-  return rows[0] ?? null;
-}
-
 export async function listMembershipsOf(db: Database, userId: string) {
   return db
     .select({ channelId: channels.id, channelName: channels.name, role: memberships.role })
@@ -172,9 +163,4 @@ export async function revokeInvitation(db: Database, channelId: string, invitati
     .where(and(eq(invitations.id, invitationId), eq(invitations.channelId, channelId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
     .returning({ id: invitations.id });
   return rows.length > 0;
-}
-
-export async function findChannelName(db: Database, channelId: string): Promise<string | null> {
-  const [row] = await db.select({ name: channels.name }).from(channels).where(eq(channels.id, channelId));
-  return row?.name ?? null;
 }

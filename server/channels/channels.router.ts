@@ -2,13 +2,13 @@ import { z } from "zod";
 import { channelNameSchema } from "../../shared/auth/schemas";
 import { acceptInvitationSchema, changeRoleSchema, inviteSchema, type MembersPage } from "../../shared/channels/schemas";
 import { describeMe, startSession } from "../auth/auth.service";
+import { channelName as channelNameOf } from "../db/channel-scope";
 import { AppError } from "../http/app-error";
-import { memberOf, signedInUser } from "../http/guards";
+import { callerOf, idOf, signedInUser } from "../http/guards";
 import { anyAccount, channelAccess, publicAccess, type RouteSpec } from "../http/route-table";
-import { parseBody, parseId } from "../http/validate";
+import { parseBody } from "../http/validate";
 import {
   changeMembershipKeepingAnOwner,
-  findChannelName,
   insertChannelWithOwner,
   listMembers,
   listOpenInvitations,
@@ -38,7 +38,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members",
       access: channelAccess("members", "R"),
       handler: async (req, res) => {
-        const { channelId } = memberOf(req);
+        const { channelId } = callerOf(req);
         const [members, invitations] = await Promise.all([listMembers(db, channelId), listOpenInvitations(db, channelId)]);
         const page: MembersPage = {
           members: members.map((m) => ({ ...m, joinedAt: m.joinedAt.toISOString() })),
@@ -53,8 +53,8 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
         const input = parseBody(inviteSchema, req.body);
-        const { channelId } = memberOf(req);
-        const channelName = (await findChannelName(db, channelId)) ?? "your channel";
+        const { channelId } = callerOf(req);
+        const channelName = (await channelNameOf(db, channelId)) ?? "your channel";
         const sent = await inviteMember(deps, { ...input, channelId, channelName, invitedBy: signedInUser(req) });
         res.status(201).json({ id: sent.id, email: input.email, role: input.role, expiresAt: sent.expiresAt.toISOString() });
       },
@@ -64,8 +64,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/invitations/:invitationId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const invitationId = parseId(req.params.invitationId, "Invitation");
-        if (!(await revokeInvitation(db, memberOf(req).channelId, invitationId))) throw new AppError("not_found", "Invitation not found.");
+        if (!(await revokeInvitation(db, callerOf(req).channelId, idOf(req, "invitationId")))) throw new AppError("not_found", "Invitation not found.");
         res.status(204).end();
       },
     },
@@ -74,9 +73,9 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members/:userId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const userId = parseId(req.params.userId, "Member");
+        const userId = idOf(req, "userId");
         const { role } = parseBody(changeRoleSchema, req.body);
-        const outcome = await changeMembershipKeepingAnOwner(db, memberOf(req).channelId, userId, { role });
+        const outcome = await changeMembershipKeepingAnOwner(db, callerOf(req).channelId, userId, { role });
         if (outcome === "missing") throw new AppError("not_found", "Member not found.");
         if (outcome === "last_owner") throw lastOwner();
         res.json({ userId, role });
@@ -87,8 +86,8 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       path: "/api/channels/:channelId/members/:userId",
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
-        const userId = parseId(req.params.userId, "Member");
-        const outcome = await changeMembershipKeepingAnOwner(db, memberOf(req).channelId, userId, "remove");
+        const userId = idOf(req, "userId");
+        const outcome = await changeMembershipKeepingAnOwner(db, callerOf(req).channelId, userId, "remove");
         if (outcome === "missing") throw new AppError("not_found", "Member not found.");
         if (outcome === "last_owner") throw lastOwner();
         res.status(204).end();

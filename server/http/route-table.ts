@@ -1,5 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from "express";
 import type { Area, Need, Role } from "../../shared/access/roles";
+import type { ChildParam } from "../db/channel-scope";
 
 /**
  * Who may call a route, stated beside it:
@@ -8,11 +9,12 @@ import type { Area, Need, Role } from "../../shared/access/roles";
  * - channel: a member of the route's :channelId whose role has `need` on `area`
  *   (the spec's role table, shared/access/roles.ts). A non-member gets 404, as if the channel did not exist.
  */
-export type Access = { kind: "public" } | { kind: "account" } | { kind: "channel"; area: Area; need: Need };
+export type Access = { kind: "public" } | { kind: "account" } | { kind: "channel"; area: Area; need: Need; refusal?: string };
 
 export const publicAccess: Access = { kind: "public" };
 export const anyAccount: Access = { kind: "account" };
-export const channelAccess = (area: Area, need: Need): Access => ({ kind: "channel", area, need });
+/** `refusal` is the 403's message where a plainer one than "your role does not allow that" helps. */
+export const channelAccess = (area: Area, need: Need, refusal?: string): Access => ({ kind: "channel", area, need, refusal });
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -25,6 +27,11 @@ export interface RouteSpec {
   access: Access;
   /** Body kind a write route takes; JSON unless it says otherwise. */
   body?: "json" | "multipart" | "none";
+  /**
+   * Path parameters of a channel route that are values, not rows (a part number, a stage): the guard
+   * checks every other `:param` as a row of the route's channel (server/db/channel-scope.ts).
+   */
+  valueParams?: string[];
   /** Served without loading the session (health checks must answer while the database is down). */
   sessionless?: true;
   /** Extra middleware that runs after authorisation (e.g. rate limits). */
@@ -32,8 +39,12 @@ export interface RouteSpec {
   handler: Handler;
 }
 
-export interface MemberContext {
+/** Who is calling a channel route: the signed-in person and their role in the route's channel. */
+export interface Caller {
   userId: string;
+  name: string;
+  email: string;
+  timeZone: string;
   channelId: string;
   role: Role;
 }
@@ -48,7 +59,8 @@ declare global {
       timeZone: string;
     }
     interface Request {
-      member?: MemberContext;
+      /** Set by the guard of a channel route: the caller and the path's ids, each checked to be the channel's. */
+      channelScope?: { caller: Caller; ids: Partial<Record<ChildParam, string>> };
     }
   }
 }

@@ -3,8 +3,6 @@ import session from "express-session";
 import passport from "passport";
 import type pg from "pg";
 import type { RequestHandler } from "express";
-import type { Database } from "../db/client";
-import { findUserById } from "../auth/users.repository";
 
 const PgStore = connectPgSimple(session);
 
@@ -52,12 +50,15 @@ export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler
   });
 }
 
-/** One authenticator per app, so two apps in one process (tests) never read each other's users. */
-export function configurePassport(db: Database): passport.Authenticator {
+/**
+ * One authenticator per app, so two apps in one process (tests) never read each other's users.
+ * `findUser` reads the signed-in person by id; server/app.ts hands in the accounts' own lookup.
+ */
+export function configurePassport(findUser: (id: string) => Promise<Express.User | null>): passport.Authenticator {
   const authenticator = new passport.Passport();
   authenticator.serializeUser((user, done) => done(null, user.id));
   authenticator.deserializeUser((id: string, done) => {
-    findUserById(db, id).then((user) => done(null, user ?? false), done);
+    findUser(id).then((user) => done(null, user ?? false), done);
   });
   return authenticator;
 }

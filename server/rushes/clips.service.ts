@@ -1,3 +1,4 @@
+import type { Request, Response } from "express";
 import type { z } from "zod";
 import { decodeCursor, encodeCursor, type FootageQuery } from "../../shared/rushes/footage-query";
 import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
@@ -7,11 +8,13 @@ import { markRangeAt } from "../../shared/timecode/schemas";
 import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
 import { fieldMessages } from "../../shared/http/errors";
 import { AppError, notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
+import type { Caller } from "../http/route-table";
 import { viaStorage } from "../storage/storage";
 import * as repo from "./clips.repository";
+import { posterKey } from "./object-keys";
+import type { RushesContext } from "./rushes.context";
 import * as shootRepo from "./shoot.repository";
-import type { RushesContext } from "./uploads.service";
+import { receiveStill } from "./still-stream";
 
 type ClipRow = repo.ClipRow;
 type MarkRow = Awaited<ReturnType<typeof repo.marksOf>>[number];
@@ -61,24 +64,24 @@ export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<Clip
 
 const toMarkView = (m: MarkRow): MarkView => ({ id: m.id, in: m.inLabel, out: m.outLabel, inFrame: m.inFrame, outFrame: m.outFrame, note: m.note });
 
-export async function listFootage(ctx: RushesContext, member: MemberContext, q: FootageQuery): Promise<FootagePage> {
+export async function listFootage(ctx: RushesContext, caller: Caller, q: FootageQuery): Promise<FootagePage> {
   const cursor = q.cursor ? decodeCursor(q.cursor) : null;
   if (q.cursor && !cursor) throw new AppError("validation_failed", "That page link is out of date; start from the first page.", { cursor: "Not a page of this list." });
-  const [rows, totals] = await Promise.all([repo.listClips(ctx.db, member.channelId, q, cursor), repo.footageTotals(ctx.db, member.channelId, q)]);
+  const [rows, totals] = await Promise.all([repo.listClips(ctx.db, caller.channelId, q, cursor), repo.footageTotals(ctx.db, caller.channelId, q)]);
   const page = rows.slice(0, q.limit);
   const last = page.at(-1);
   const nextCursor = rows.length > q.limit && last ? encodeCursor({ v: last.sortValue, id: last.id }) : null;
   return { clips: await Promise.all(page.map((row) => toClipView(ctx, row))), nextCursor, totals };
 }
 
-async function clipOrNotFound(ctx: RushesContext, member: MemberContext, clipId: string): Promise<ClipRow> {
-  const row = await repo.findClip(ctx.db, member.channelId, clipId);
+async function clipOrNotFound(ctx: RushesContext, caller: Caller, clipId: string): Promise<ClipRow> {
+  const row = await repo.findClip(ctx.db, caller.channelId, clipId);
   if (!row) throw notFound("Clip");
   return row;
 }
 
-export async function getClip(ctx: RushesContext, member: MemberContext, clipId: string): Promise<ClipDetail> {
-  const row = await clipOrNotFound(ctx, member, clipId);
+export async function getClip(ctx: RushesContext, caller: Caller, clipId: string): Promise<ClipDetail> {
+  const row = await clipOrNotFound(ctx, caller, clipId);
   const marks = await repo.marksOf(ctx.db, [row.id]);
   return { ...(await toClipView(ctx, row)), marks: marks.map(toMarkView) };
 }
@@ -86,11 +89,11 @@ export async function getClip(ctx: RushesContext, member: MemberContext, clipId:
 type ClipPatch = z.infer<typeof updateClipSchema>;
 
 /** Logging: links, tags, rating, notes. Linking a shot marks it captured; unlinking may plan it again. */
-export async function updateClip(ctx: RushesContext, member: MemberContext, clipId: string, patch: ClipPatch): Promise<ClipDetail> {
-  const row = await clipOrNotFound(ctx, member, clipId);
+export async function updateClip(ctx: RushesContext, caller: Caller, clipId: string, patch: ClipPatch): Promise<ClipDetail> {
+  const row = await clipOrNotFound(ctx, caller, clipId);
   const values: Record<string, unknown> = { ...patch };
   if (patch.shotId) {
-    const shot = await shootRepo.findShot(ctx.db, member.channelId, patch.shotId);
+    const shot = await shootRepo.findShot(ctx.db, caller.channelId, patch.shotId);
     if (!shot || shot.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shotId: "Choose a shot of this clip's episode." });
     // The shot says what kind of footage this is and which day it belongs to, unless the person says otherwise.
     if (patch.kind === undefined && row.kind === null) values.kind = shot.kind;
@@ -98,29 +101,37 @@ export async function updateClip(ctx: RushesContext, member: MemberContext, clip
   }
   const shootDayId = values.shootDayId as string | null | undefined;
   if (shootDayId) {
-    const day = await shootRepo.findShootDay(ctx.db, member.channelId, shootDayId);
+    const day = await shootRepo.findShootDay(ctx.db, caller.channelId, shootDayId);
     if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
   }
   await ctx.db.transaction(async (tx) => {
-    await repo.updateClip(tx, member.channelId, clipId, values);
+    await repo.updateClip(tx, caller.channelId, clipId, values);
     if (patch.shotId !== undefined && patch.shotId !== row.shotId) {
       if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
       if (patch.shotId) await shootRepo.refreshShotStatus(tx, patch.shotId);
     }
   });
-  return getClip(ctx, member, clipId);
+  return getClip(ctx, caller, clipId);
 }
 
-/** Deleting footage: never crew (the role table). The object goes first, so a store that is down changes nothing. */
-export async function deleteClip(ctx: RushesContext, member: MemberContext, clipId: string): Promise<void> {
-  if (member.role === "crew") throw new AppError("forbidden", "Crew can upload and log footage but not delete it.");
-  const row = await clipOrNotFound(ctx, member, clipId);
+/** Deleting footage (the role table's "footageRemoval"). The object goes first, so a store that is down changes nothing. */
+export async function deleteClip(ctx: RushesContext, caller: Caller, clipId: string): Promise<void> {
+  const row = await clipOrNotFound(ctx, caller, clipId);
   await viaStorage(() => ctx.storage.remove(row.objectKey));
   if (row.posterKey) await ctx.storage.remove(row.posterKey).catch(() => undefined);
   await ctx.db.transaction(async (tx) => {
-    await repo.deleteClip(tx, member.channelId, clipId);
+    await repo.deleteClip(tx, caller.channelId, clipId);
     if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
   });
+}
+
+/** A poster frame streamed into storage; the one it replaces is removed (best effort). */
+export async function setPoster(ctx: RushesContext, caller: Caller, clipId: string, req: Request, res: Response): Promise<ClipDetail> {
+  const clip = await clipOrNotFound(ctx, caller, clipId);
+  const { file } = await receiveStill(req, res, ctx.storage, () => posterKey(caller.channelId, clip.episodeId));
+  await repo.updateClip(ctx.db, caller.channelId, clip.id, { posterKey: file.key });
+  if (clip.posterKey) await ctx.storage.remove(clip.posterKey).catch(() => undefined);
+  return getClip(ctx, caller, clip.id);
 }
 
 export function clipFormat(row: Pick<ClipRow, "frameRateNumerator" | "frameRateDenominator" | "dropFrame">): TimecodeFormat | null {
@@ -146,28 +157,28 @@ function checkMark(row: ClipRow, input: { in: string; out: string }): { inFrame:
   return { inFrame, outFrame, inLabel: label(inFrame), outLabel: label(outFrame) };
 }
 
-export async function addMark(ctx: RushesContext, member: MemberContext, clipId: string, input: z.infer<typeof markInputSchema>): Promise<MarkView> {
-  const row = await clipOrNotFound(ctx, member, clipId);
+export async function addMark(ctx: RushesContext, caller: Caller, clipId: string, input: z.infer<typeof markInputSchema>): Promise<MarkView> {
+  const row = await clipOrNotFound(ctx, caller, clipId);
   const range = checkMark(row, input);
   const mark = await ctx.db.transaction(async (tx) => {
-    const made = await repo.insertMark(tx, { channelId: member.channelId, clipId, ...range, note: input.note, createdBy: member.userId });
+    const made = await repo.insertMark(tx, { channelId: caller.channelId, clipId, ...range, note: input.note, createdBy: caller.userId });
     await repo.refreshMarkCount(tx, clipId);
     return made;
   });
   return toMarkView(mark);
 }
 
-export async function updateMark(ctx: RushesContext, member: MemberContext, clipId: string, markId: string, input: Partial<MarkInput>): Promise<MarkView> {
-  const row = await clipOrNotFound(ctx, member, clipId);
-  const mark = await repo.findMark(ctx.db, member.channelId, clipId, markId);
+export async function updateMark(ctx: RushesContext, caller: Caller, clipId: string, markId: string, input: Partial<MarkInput>): Promise<MarkView> {
+  const row = await clipOrNotFound(ctx, caller, clipId);
+  const mark = await repo.findMark(ctx.db, caller.channelId, clipId, markId);
   if (!mark) throw notFound("Mark");
   const range = checkMark(row, { in: input.in ?? mark.inLabel, out: input.out ?? mark.outLabel });
   return toMarkView(await repo.updateMark(ctx.db, markId, { ...range, note: input.note ?? mark.note }));
 }
 
-export async function deleteMark(ctx: RushesContext, member: MemberContext, clipId: string, markId: string): Promise<void> {
-  await clipOrNotFound(ctx, member, clipId);
-  const mark = await repo.findMark(ctx.db, member.channelId, clipId, markId);
+export async function deleteMark(ctx: RushesContext, caller: Caller, clipId: string, markId: string): Promise<void> {
+  await clipOrNotFound(ctx, caller, clipId);
+  const mark = await repo.findMark(ctx.db, caller.channelId, clipId, markId);
   if (!mark) throw notFound("Mark");
   await ctx.db.transaction(async (tx) => {
     await repo.deleteMark(tx, markId);
@@ -176,8 +187,8 @@ export async function deleteMark(ctx: RushesContext, member: MemberContext, clip
 }
 
 /** A short-lived link to one object: the preview player streams straight from the store. */
-export async function previewUrl(ctx: RushesContext, member: MemberContext, clipId: string, download: boolean) {
-  const row = await clipOrNotFound(ctx, member, clipId);
+export async function previewUrl(ctx: RushesContext, caller: Caller, clipId: string, download: boolean) {
+  const row = await clipOrNotFound(ctx, caller, clipId);
   const url = await viaStorage(() =>
     ctx.storage.presignGet(row.objectKey, { expiresInSeconds: PREVIEW_URL_SECONDS, contentType: row.contentType, fileName: download ? row.fileName : undefined }),
   );

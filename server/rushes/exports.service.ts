@@ -6,17 +6,17 @@ import { footageCsv } from "../../shared/rushes/exports/footage-csv";
 import { EdlError, footageEdl } from "../../shared/rushes/exports/edl";
 import { footageOtio } from "../../shared/rushes/exports/otio";
 import { AppError } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
+import type { Caller } from "../http/route-table";
 import { attachmentDisposition, viaStorage } from "../storage/storage";
 import * as repo from "./clips.repository";
-import type { RushesContext } from "./uploads.service";
+import type { RushesContext } from "./rushes.context";
 
 /** Exports hold the whole filter, up to this many clips (the list's totals say when there are more). */
 export const EXPORT_CAP = 5_000;
 export const ZIP_CAP = 200;
 
-export async function exportClips(ctx: RushesContext, member: MemberContext, q: FootageQuery): Promise<ExportClip[]> {
-  const rows = await repo.allClips(ctx.db, member.channelId, q, EXPORT_CAP);
+export async function exportClips(ctx: RushesContext, caller: Caller, q: FootageQuery): Promise<ExportClip[]> {
+  const rows = await repo.allClips(ctx.db, caller.channelId, q, EXPORT_CAP);
   const marks = await repo.marksOf(ctx.db, rows.map((r) => r.id));
   return rows.map((row) => ({
     id: row.id,
@@ -48,8 +48,8 @@ const exportTypes: Record<ExportKind, { type: string; extension: string }> = {
   otio: { type: "application/json; charset=utf-8", extension: "otio" },
 };
 
-export async function writeExport(ctx: RushesContext, member: MemberContext, q: FootageQuery, kind: ExportKind, res: Response): Promise<void> {
-  const clips = await exportClips(ctx, member, q);
+export async function writeExport(ctx: RushesContext, caller: Caller, q: FootageQuery, kind: ExportKind, res: Response): Promise<void> {
+  const clips = await exportClips(ctx, caller, q);
   const title = clips[0] && clips.every((c) => c.episodeTitle === clips[0]!.episodeTitle) ? clips[0].episodeTitle : "Kerf footage";
   let body: string;
   try {
@@ -85,11 +85,11 @@ export function zipEntryNames(names: string[]): string[] {
  * The selection as one zip, streamed: each object is read from the store and written straight out,
  * stored without compression (camera files don't shrink), one at a time, so memory stays flat.
  */
-export async function streamZip(ctx: RushesContext, member: MemberContext, clipIds: string[], res: Response): Promise<void> {
+export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: string[], res: Response): Promise<void> {
   const unique = [...new Set(clipIds)];
   if (unique.length === 0) throw new AppError("validation_failed", "Choose at least one clip.", { ids: "Choose at least one clip." });
   if (unique.length > ZIP_CAP) throw new AppError("validation_failed", `A zip holds at most ${ZIP_CAP} clips; choose fewer.`, { ids: `At most ${ZIP_CAP}.` });
-  const rows = await repo.clipsByIds(ctx.db, member.channelId, unique);
+  const rows = await repo.clipsByIds(ctx.db, caller.channelId, unique);
   if (rows.length !== unique.length) throw new AppError("not_found", "Some of those clips are not in this channel.");
   const ordered = unique.map((id) => rows.find((r) => r.id === id)!);
   const names = zipEntryNames(ordered.map((r) => r.fileName));

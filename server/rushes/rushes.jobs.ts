@@ -1,5 +1,6 @@
 import type PgBoss from "pg-boss";
-import { sweepAbandonedUploads, type RushesContext } from "./uploads.service";
+import type { RushesContext } from "./rushes.context";
+import { sweepAbandonedUploads } from "./uploads.service";
 
 /**
  * Uploads nobody finished: every hour a job aborts (best effort) and marks those with no part recorded

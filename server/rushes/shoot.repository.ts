@@ -1,18 +1,9 @@
 import { and, asc, count, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "../db/client";
-import { memberships, users } from "../db/schema/accounts";
+import { users } from "../db/schema/accounts";
 import { shootDayCrew, shootDays, shots } from "../db/schema/rushes";
 
 type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "execute">;
-
-export async function membersAmong(db: Executor, channelId: string, userIds: string[]): Promise<string[]> {
-  if (userIds.length === 0) return [];
-  const rows = await db
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), inArray(memberships.userId, userIds)));
-  return rows.map((r) => r.userId);
-}
 
 export async function listShootDays(db: Executor, channelId: string, episodeId: string) {
   return db
@@ -151,14 +142,4 @@ export async function refreshShotStatus(db: Executor, shotId: string) {
       when status = 'captured' then 'planned'::shot_status
       else status end
     where id = ${shotId}`);
-}
-
-/** Everyone in the channel, by name: who can be put on a shoot day (no e-mail addresses). */
-export async function channelPeople(db: Executor, channelId: string) {
-  return db
-    .select({ userId: users.id, name: users.name, role: memberships.role })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(eq(memberships.channelId, channelId))
-    .orderBy(asc(users.name));
 }

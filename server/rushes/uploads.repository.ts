@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
 import type { Database } from "../db/client";
-import { clips, stills, uploadParts, uploads } from "../db/schema/rushes";
+import { clips, uploadParts, uploads } from "../db/schema/rushes";
 import { episodes } from "../db/schema/slate";
 
 type Executor = Pick<Database, "select" | "insert" | "update" | "delete">;
@@ -108,16 +108,3 @@ export async function abandonedUploads(db: Executor, before: Date, limit = 200) 
     .limit(limit);
 }
 
-export async function insertStill(db: Executor, values: typeof stills.$inferInsert) {
-  const [row] = await db.insert(stills).values(values).returning();
-  return row!;
-}
-
-export async function findStill(db: Executor, channelId: string, stillId: string) {
-  const rows = await db
-    .select()
-    .from(stills)
-    .where(and(eq(stills.id, stillId), eq(stills.channelId, channelId)))
-    .limit(1);
-  return rows[0] ?? null;
-}

@@ -1,16 +1,12 @@
+import { roleMay } from "../../shared/access/roles";
 import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
 import type { ClipMetadata, UploadView } from "../../shared/rushes/schemas";
-import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
-import { type Storage, isStorageDown, storageDown, viaStorage } from "../storage/storage";
+import type { Caller } from "../http/route-table";
+import { isStorageDown, storageDown, viaStorage } from "../storage/storage";
 import { footageKey } from "./object-keys";
+import type { RushesContext } from "./rushes.context";
 import * as repo from "./uploads.repository";
-
-export interface RushesContext {
-  db: Database;
-  storage: Storage;
-}
 
 type UploadRow = repo.UploadRow;
 
@@ -39,21 +35,21 @@ function fileRefusal(check: Exclude<ReturnType<typeof checkClipFile>, { ok: true
 /** A person starts an upload: Kerf checks the file, makes the key, and opens a multipart upload. */
 export async function startUpload(
   ctx: RushesContext,
-  member: MemberContext,
+  caller: Caller,
   input: { episodeId: string; fileName: string; size: number; fingerprint: string; metadata?: ClipMetadata },
 ): Promise<UploadView> {
-  const episode = await repo.episodeInChannel(ctx.db, member.channelId, input.episodeId);
+  const episode = await repo.episodeInChannel(ctx.db, caller.channelId, input.episodeId);
   if (!episode) throw new AppError("validation_failed", "Some fields need attention.", { episodeId: "That episode is not in this channel." });
   const check = checkClipFile(input.fileName, input.size);
   if (!check.ok) throw fileRefusal(check);
   const { partSize, partCount } = planParts(input.size);
-  const objectKey = footageKey(member.channelId, episode.id);
+  const objectKey = footageKey(caller.channelId, episode.id);
   // Storage first: if it is down nothing is written, and the 503 says so.
   const storageUploadId = await viaStorage(() => ctx.storage.createMultipart(objectKey, check.contentType));
   const row = await repo.insertUpload(ctx.db, {
-    channelId: member.channelId,
+    channelId: caller.channelId,
     episodeId: episode.id,
-    createdBy: member.userId,
+    createdBy: caller.userId,
     fileName: input.fileName,
     contentType: check.contentType,
     sizeBytes: input.size,
@@ -67,8 +63,8 @@ export async function startUpload(
   return toView(row, []);
 }
 
-async function openUpload(ctx: RushesContext, member: MemberContext, uploadId: string): Promise<UploadRow> {
-  const row = await repo.findUpload(ctx.db, member.channelId, uploadId);
+async function openUpload(ctx: RushesContext, caller: Caller, uploadId: string): Promise<UploadRow> {
+  const row = await repo.findUpload(ctx.db, caller.channelId, uploadId);
   if (!row) throw notFound("Upload");
   return row;
 }
@@ -89,21 +85,21 @@ function checkPartNumber(row: UploadRow, partNumber: number): void {
   }
 }
 
-export async function getUpload(ctx: RushesContext, member: MemberContext, uploadId: string): Promise<UploadView> {
-  const row = await openUpload(ctx, member, uploadId);
+export async function getUpload(ctx: RushesContext, caller: Caller, uploadId: string): Promise<UploadView> {
+  const row = await openUpload(ctx, caller, uploadId);
   return toView(row, await repo.partsOf(ctx.db, row.id));
 }
 
 /** The person's unfinished uploads with the parts already stored: what the page resumes after a reload. */
-export async function listOpenUploads(ctx: RushesContext, member: MemberContext, episodeId?: string): Promise<UploadView[]> {
-  const rows = await repo.openUploads(ctx.db, member.channelId, { episodeId, createdBy: member.userId });
+export async function listOpenUploads(ctx: RushesContext, caller: Caller, episodeId?: string): Promise<UploadView[]> {
+  const rows = await repo.openUploads(ctx.db, caller.channelId, { episodeId, createdBy: caller.userId });
   const parts = await repo.partsOfMany(ctx.db, rows.map((r) => r.id));
   return rows.map((row) => toView(row, parts.filter((p) => p.uploadId === row.id).map(({ partNumber, etag, size }) => ({ partNumber, etag, size }))));
 }
 
 /** Presigned URLs for some parts: each for one part of one upload, for a quarter of an hour. */
-export async function signParts(ctx: RushesContext, member: MemberContext, uploadId: string, partNumbers: number[]) {
-  const row = await openUpload(ctx, member, uploadId);
+export async function signParts(ctx: RushesContext, caller: Caller, uploadId: string, partNumbers: number[]) {
+  const row = await openUpload(ctx, caller, uploadId);
   mustBeUploading(row);
   for (const n of partNumbers) checkPartNumber(row, n);
   const urls = await viaStorage(() =>
@@ -119,8 +115,8 @@ export async function signParts(ctx: RushesContext, member: MemberContext, uploa
 }
 
 /** The browser reports a part stored (its number, its ETag from the store, its size). */
-export async function recordPart(ctx: RushesContext, member: MemberContext, uploadId: string, partNumber: number, part: { etag: string; size: number }) {
-  const row = await openUpload(ctx, member, uploadId);
+export async function recordPart(ctx: RushesContext, caller: Caller, uploadId: string, partNumber: number, part: { etag: string; size: number }) {
+  const row = await openUpload(ctx, caller, uploadId);
   mustBeUploading(row);
   checkPartNumber(row, partNumber);
   const { start, end } = partRange(partNumber, row.partSize, row.sizeBytes);
@@ -168,9 +164,9 @@ function clipValues(row: UploadRow, metadata: ClipMetadata | null, storageEtag: 
  * Completion: only when Kerf holds a record of every part, storage accepts the list, and the stored
  * object has the file's size. Then, and only then, the clip row exists.
  */
-export async function completeUpload(ctx: RushesContext, member: MemberContext, uploadId: string, body: { sha256?: string; metadata?: ClipMetadata }) {
+export async function completeUpload(ctx: RushesContext, caller: Caller, uploadId: string, body: { sha256?: string; metadata?: ClipMetadata }) {
   return ctx.db.transaction(async (tx) => {
-    const row = await repo.lockUpload(tx, member.channelId, uploadId);
+    const row = await repo.lockUpload(tx, caller.channelId, uploadId);
     if (!row) throw notFound("Upload");
     if (row.status === "completed" && row.clipId) return { clipId: row.clipId, alreadyComplete: true };
     mustBeUploading(row);
@@ -204,10 +200,13 @@ export async function completeUpload(ctx: RushesContext, member: MemberContext, 
   });
 }
 
-/** Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. */
-export async function cancelUpload(ctx: RushesContext, member: MemberContext, uploadId: string) {
-  const row = await openUpload(ctx, member, uploadId);
-  if (member.role === "crew" && row.createdBy !== member.userId) {
+/**
+ * Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. A role
+ * that may not remove footage (crew) cancels only its own uploads.
+ */
+export async function cancelUpload(ctx: RushesContext, caller: Caller, uploadId: string) {
+  const row = await openUpload(ctx, caller, uploadId);
+  if (!roleMay(caller.role, "footageRemoval", "W") && row.createdBy !== caller.userId) {
     throw new AppError("forbidden", "Crew can cancel only their own uploads.");
   }
   if (row.status === "completed") throw new AppError("conflict", "This upload is already complete; the clip stays in the footage list.");

@@ -1,13 +1,15 @@
 import { createHash } from "node:crypto";
 import { brotliCompressSync, constants as zlibConstants, gzipSync } from "node:zlib";
+import { LRUCache } from "lru-cache";
 import { calendarDaysBetween, localDate } from "../../shared/slate/dates";
 import { isAtRisk } from "../../shared/slate/flags";
 import type { BoardCard, BoardFilters } from "../../shared/slate/schemas";
 import type { DueOverrides } from "../../shared/slate/schedule";
 import type { Stage } from "../../shared/slate/stages";
 import type { Database } from "../db/client";
+import { collectFlags } from "../seams/board-flags";
+import type { SlatePlugs } from "../seams/slate-plugs";
 import { boardRows, overridesOf, skippingMoves } from "./episodes.repository";
-import { boardFilters, externalFlags } from "./flags";
 import { slateFlags } from "./slate-flags";
 import { slateStateOf } from "./slate.repository";
 
@@ -29,26 +31,17 @@ interface Answer {
 }
 
 interface Built {
-  at: number;
   cards: BoardCard[];
   tagsJson: string;
   sponsorOptionsJson: string;
-  /** The answer for each filter combination asked for so far, the most recent last. */
-  answers: Map<string, Answer>;
+  /** The answer for each filter combination asked for so far. */
+  answers: LRUCache<string, Answer>;
 }
 
-const KEEP_MS = 60_000; // names of people and other rows outside the revision may lag this long
-const KEEP_BOARDS = 32;
 const KEEP_FILTERS = 16;
-const built = new Map<string, Built>();
-
-/** Keeps `value` as the most recent entry of `map`, dropping the oldest beyond `limit`. */
-function remember<K, V>(map: Map<K, V>, key: K, value: V, limit: number): V {
-  map.delete(key);
-  map.set(key, value);
-  while (map.size > limit) map.delete(map.keys().next().value!);
-  return value;
-}
+// The 32 boards used last, each for a minute at most: names of people and other rows outside the
+// revision may lag that long.
+const built = new LRUCache<string, Built>({ max: 32, ttl: 60_000 });
 
 const inFlight = new Map<string, Promise<unknown>>();
 
@@ -80,28 +73,40 @@ const compressors: Record<BoardEncoding, (body: Buffer) => Buffer> = {
   gzip: (body) => gzipSync(body, { level: 1 }),
 };
 
-export async function loadBoard(db: Database, channelId: string, viewer: { timeZone: string }, filters: BoardFilters, options: { encoding: BoardEncoding | null } = { encoding: null }): Promise<BoardAnswer> {
+export async function loadBoard(
+  db: Database,
+  plugs: Pick<SlatePlugs, "boardFlags" | "boardFilters">,
+  channelId: string,
+  viewer: { timeZone: string },
+  filters: BoardFilters,
+  options: { encoding: BoardEncoding | null } = { encoding: null },
+): Promise<BoardAnswer> {
   const today = localDate(new Date(), viewer.timeZone);
   // Always read fresh: this is what tells a kept board from a stale one.
   const state = await slateStateOf(db, channelId);
   const withArchived = filters.archived === "1";
   const key = `${channelId}|${state.revision}|${viewer.timeZone}|${today}|${withArchived}`;
-  let entry = built.get(key);
-  if (!entry || Date.now() - entry.at > KEEP_MS) {
-    entry = await shared(`build|${key}`, async () => {
+  const entry =
+    built.get(key) ??
+    (await shared(`build|${key}`, async () => {
       const [cards, sponsorOptions] = await Promise.all([
         buildCards(db, channelId, state.stageLengths, viewer.timeZone, today, withArchived),
-        boardFilters.sponsor ? boardFilters.sponsor.options(db, channelId) : [],
+        plugs.boardFilters.sponsor ? plugs.boardFilters.sponsor.options(db, channelId) : [],
       ]);
       const tagsJson = JSON.stringify([...new Set(cards.flatMap((c) => c.tags))].sort());
-      return remember(built, key, { at: Date.now(), cards, tagsJson, sponsorOptionsJson: JSON.stringify(sponsorOptions), answers: new Map() }, KEEP_BOARDS);
-    });
-  }
+      const made: Built = { cards, tagsJson, sponsorOptionsJson: JSON.stringify(sponsorOptions), answers: new LRUCache({ max: KEEP_FILTERS }) };
+      built.set(key, made);
+      return made;
+    }));
 
   const filterKey = `${filters.owner ?? ""}|${filters.tag ?? ""}|${filters.risk ?? ""}|${filters.sponsor ?? ""}`;
-  const kept = entry;
-  const answer = kept.answers.get(filterKey) ?? (await shared(`answer|${key}|${filterKey}`, () => answerFor(db, channelId, kept, filters, { ...viewer, today, revision: state.revision, filterKey })));
-  remember(kept.answers, filterKey, answer, KEEP_FILTERS);
+  const answer =
+    entry.answers.get(filterKey) ??
+    (await shared(`answer|${key}|${filterKey}`, async () => {
+      const made = await answerFor(db, plugs, channelId, entry, filters, { ...viewer, today, revision: state.revision, filterKey });
+      entry.answers.set(filterKey, made);
+      return made;
+    }));
   const { encoding } = options;
   if (!encoding) return { etag: answer.etag, head: answer.head, tail: answer.tail };
   const body = (answer.encoded[encoding] ??= compressors[encoding](Buffer.concat([answer.head, answer.tail])));
@@ -109,10 +114,18 @@ export async function loadBoard(db: Database, channelId: string, viewer: { timeZ
 }
 
 /** The cards a filter keeps, with other features' flags for them, as the bytes of the answer. */
-async function answerFor(db: Database, channelId: string, entry: Built, filters: BoardFilters, context: { timeZone: string; today: string; revision: number; filterKey: string }): Promise<Answer> {
-  const sponsorKeeps = boardFilters.sponsor && filters.sponsor ? await boardFilters.sponsor.episodeIds(db, channelId, filters.sponsor) : null;
+async function answerFor(
+  db: Database,
+  plugs: Pick<SlatePlugs, "boardFlags" | "boardFilters">,
+  channelId: string,
+  entry: Built,
+  filters: BoardFilters,
+  context: { timeZone: string; today: string; revision: number; filterKey: string },
+): Promise<Answer> {
+  const sponsor = plugs.boardFilters.sponsor;
+  const sponsorKeeps = sponsor && filters.sponsor ? await sponsor.episodeIds(db, channelId, filters.sponsor) : null;
   const cards = entry.cards.filter((card) => keeps(card, filters) && (!sponsorKeeps || sponsorKeeps.has(card.id)));
-  const flags = await externalFlags(db, channelId, cards.map((c) => c.id), { timeZone: context.timeZone, today: context.today });
+  const flags = await collectFlags(plugs.boardFlags, db, channelId, cards.map((c) => c.id), { timeZone: context.timeZone, today: context.today });
   const tail = `,"flags":${JSON.stringify(flags)},"today":"${context.today}","sponsorOptions":${entry.sponsorOptionsJson},"tags":${entry.tagsJson}}`;
   const fingerprint = createHash("sha1").update(`${context.timeZone}|${context.filterKey}|${filters.archived ?? ""}${tail}`).digest("base64url").slice(0, 16);
   return { etag: `W/"b${context.revision}-${fingerprint}"`, head: Buffer.from(`{"episodes":${JSON.stringify(cards)}`), tail: Buffer.from(tail), encoded: {} };

@@ -32,6 +32,15 @@ export async function boardRows(db: Database, channelId: string, withArchived: b
     .orderBy(asc(episodes.stage), asc(episodes.rank), asc(episodes.id));
 }
 
+/** Every episode that is not archived, by title: what a picker of episodes lists. */
+export async function episodeTitles(db: Database, channelId: string) {
+  return db
+    .select({ id: episodes.id, title: episodes.title, stage: episodes.stage })
+    .from(episodes)
+    .where(and(eq(episodes.channelId, channelId), isNull(episodes.archivedAt)))
+    .orderBy(asc(episodes.title), asc(episodes.id));
+}
+
 /** Always scoped by channel: an id from another channel finds nothing and answers 404. */
 export async function findEpisode(db: Queryable, channelId: string, episodeId: string) {
   const rows = await db

@@ -13,10 +13,14 @@ import {
 } from "../../shared/slate/schemas";
 import { countBack, type DueOverrides } from "../../shared/slate/schedule";
 import type { Stage } from "../../shared/slate/stages";
+import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
-import type { MemberContext } from "../http/route-table";
+import type { Caller } from "../http/route-table";
 import { parseBody } from "../http/validate";
+import { collectFlags, type BoardFlagSource } from "../seams/board-flags";
+import type { PublishDateFollower } from "../seams/episode-dates";
+import { gateProblems, type StageGate } from "../seams/stage-gates";
 import {
   findEpisode,
   historyOf,
@@ -30,11 +34,8 @@ import {
   type EpisodeValues,
   type Versioned,
 } from "./episodes.repository";
-import { externalFlags } from "./flags";
-import { gateProblems } from "./gates";
 import { slateFlags } from "./slate-flags";
-import { followPublishDate } from "../sponsors/schedule.service";
-import { isMember, slateStateOf } from "./slate.repository";
+import { slateStateOf } from "./slate.repository";
 
 export const toSummary = (row: EpisodeRow): EpisodeSummary => ({
   id: row.id,
@@ -114,77 +115,79 @@ async function checkOwner(db: Database, channelId: string, ownerId: string | nul
   }
 }
 
-export async function createEpisode(db: Database, member: MemberContext, fields: EpisodeFields): Promise<EpisodeRow> {
+export async function createEpisode(db: Database, caller: Caller, fields: EpisodeFields): Promise<EpisodeRow> {
   const values = toValues(fields);
-  await checkOwner(db, member.channelId, values.ownerId);
-  const id = await insertEpisode(db, member.channelId, values, member.userId);
-  return (await findEpisode(db, member.channelId, id))!;
+  await checkOwner(db, caller.channelId, values.ownerId);
+  const id = await insertEpisode(db, caller.channelId, values, caller.userId);
+  return (await findEpisode(db, caller.channelId, id))!;
 }
 
 /** An edit of some fields: checked together with the fields it leaves as they are. */
-export async function editEpisode(db: Database, member: MemberContext, episodeId: string, changes: EpisodeChanges): Promise<EpisodeRow> {
-  const current = await findEpisode(db, member.channelId, episodeId);
+export async function editEpisode(db: Database, followers: readonly PublishDateFollower[], caller: Caller, episodeId: string, changes: EpisodeChanges): Promise<EpisodeRow> {
+  const current = await findEpisode(db, caller.channelId, episodeId);
   if (!current) throw notFound("Episode");
   if (current.version !== changes.version) throw conflict(current);
   const { version, ...fields } = changes;
   const merged = parseBody(episodeFieldsSchema, { ...fieldsOf(current), ...fields });
   const values = toValues(merged);
-  if (values.ownerId !== current.ownerId) await checkOwner(db, member.channelId, values.ownerId);
-  const row = await settled(db, member.channelId, episodeId, await updateEpisode(db, member.channelId, episodeId, version, values));
-  // Open sponsor deliverables counted from the publish date move with it.
-  if (row.targetPublishDate !== current.targetPublishDate) await followPublishDate(db, { channelId: member.channelId, episodeId, actorId: member.userId });
+  if (values.ownerId !== current.ownerId) await checkOwner(db, caller.channelId, values.ownerId);
+  const row = await settled(db, caller.channelId, episodeId, await updateEpisode(db, caller.channelId, episodeId, version, values));
+  // Dates other features count from the publish date (sponsor deliverables) move with it.
+  if (row.targetPublishDate !== current.targetPublishDate) {
+    for (const follower of followers) await follower.follow(db, { channelId: caller.channelId, episodeId, actorId: caller.userId });
+  }
   return row;
 }
 
-export async function setArchived(db: Database, member: MemberContext, episodeId: string, version: number, archived: boolean): Promise<EpisodeRow> {
-  const outcome = await updateEpisode(db, member.channelId, episodeId, version, { archivedAt: archived ? new Date() : null });
-  return settled(db, member.channelId, episodeId, outcome);
+export async function setArchived(db: Database, caller: Caller, episodeId: string, version: number, archived: boolean): Promise<EpisodeRow> {
+  const outcome = await updateEpisode(db, caller.channelId, episodeId, version, { archivedAt: archived ? new Date() : null });
+  return settled(db, caller.channelId, episodeId, outcome);
 }
 
 /**
  * A move: backward always; forward past missing essentials (the gates of every feature) only with a
  * reason, which is recorded with what was missing.
  */
-export async function move(db: Database, member: MemberContext, episodeId: string, input: MoveEpisodeInput): Promise<EpisodeRow> {
+export async function move(db: Database, gates: readonly StageGate[], caller: Caller, episodeId: string, input: MoveEpisodeInput): Promise<EpisodeRow> {
   if (input.afterId === episodeId || input.beforeId === episodeId) {
     throw new AppError("validation_failed", "Some fields need attention.", { afterId: "A card can't be placed next to itself." });
   }
-  const current = await findEpisode(db, member.channelId, episodeId);
+  const current = await findEpisode(db, caller.channelId, episodeId);
   if (!current) throw notFound("Episode");
   if (current.version !== input.version) throw conflict(current);
-  const problems: GateProblem[] = current.stage === input.stage ? [] : await gateProblems({ db, channelId: member.channelId, episodeId, from: current.stage, to: input.stage });
+  const problems: GateProblem[] = current.stage === input.stage ? [] : await gateProblems(gates, { db, channelId: caller.channelId, episodeId, from: current.stage, to: input.stage });
   if (problems.length > 0 && !input.reason) {
     throw new AppError("unprocessable", "This episode is missing essentials for that move. Give a reason to move it on anyway.", undefined, { problems });
   }
   const outcome = await moveEpisode(db, {
-    channelId: member.channelId,
+    channelId: caller.channelId,
     episodeId,
     version: input.version,
     stage: input.stage,
     afterId: input.afterId,
     beforeId: input.beforeId,
-    movedBy: member.userId,
+    movedBy: caller.userId,
     reason: current.stage === input.stage ? null : (input.reason ?? null),
     skipped: problems,
   });
-  return settled(db, member.channelId, episodeId, outcome);
+  return settled(db, caller.channelId, episodeId, outcome);
 }
 
-export async function overrideDueDate(db: Database, member: MemberContext, episodeId: string, stage: Stage, input: { version: number; dueDate: string | null }) {
+export async function overrideDueDate(db: Database, caller: Caller, episodeId: string, stage: Stage, input: { version: number; dueDate: string | null }) {
   if (stage === "publish") {
     throw new AppError("validation_failed", "Some fields need attention.", { stage: "The publish stage is due on the target publish date; change that date instead." });
   }
-  const current = await findEpisode(db, member.channelId, episodeId);
+  const current = await findEpisode(db, caller.channelId, episodeId);
   if (!current) throw notFound("Episode");
   if (current.version !== input.version) throw conflict(current);
   if (current.targetPublishDate === null && input.dueDate !== null) {
     throw new AppError("unprocessable", "Set a target publish date first: due dates count back from it.");
   }
-  const outcome = await setDueOverride(db, { channelId: member.channelId, episodeId, stage, version: input.version, dueDate: input.dueDate, setBy: member.userId });
-  return settled(db, member.channelId, episodeId, outcome);
+  const outcome = await setDueOverride(db, { channelId: caller.channelId, episodeId, stage, version: input.version, dueDate: input.dueDate, setBy: caller.userId });
+  return settled(db, caller.channelId, episodeId, outcome);
 }
 
-export async function episodeDetail(db: Database, channelId: string, episodeId: string, timeZone: string): Promise<EpisodeDetail> {
+export async function episodeDetail(db: Database, flagSources: readonly BoardFlagSource[], channelId: string, episodeId: string, timeZone: string): Promise<EpisodeDetail> {
   const row = await findEpisode(db, channelId, episodeId);
   if (!row) throw notFound("Episode");
   const today = localDate(new Date(), timeZone);
@@ -192,7 +195,7 @@ export async function episodeDetail(db: Database, channelId: string, episodeId: 
     slateStateOf(db, channelId),
     overridesOf(db, channelId, episodeId),
     skippingMoves(db, channelId, episodeId),
-    externalFlags(db, channelId, [episodeId], { timeZone, today }),
+    collectFlags(flagSources, db, channelId, [episodeId], { timeZone, today }),
   ]);
   const dueOverrides: DueOverrides = Object.fromEntries(overrides.map((o) => [o.stage, o.dueDate]));
   const skipped = skips.find((s) => s.toStage === row.stage && s.movedAt.getTime() === row.stageEnteredAt.getTime());

@@ -1,5 +1,6 @@
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { defaultStageLengths, type StageLengths } from "../../shared/slate/schedule";
+import { channelPeople } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { memberships, users } from "../db/schema/accounts";
 import { episodeComments, slateChannels } from "../db/schema/slate";
@@ -25,23 +26,9 @@ export async function saveStageLengths(db: Database, channelId: string, stageLen
     });
 }
 
-/** The channel's members by name: owners to pick, people to mention. No e-mails: crew may read this. */
-export async function peopleOf(db: Database, channelId: string) {
-  return db
-    .select({ id: users.id, name: users.name })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(eq(memberships.channelId, channelId))
-    .orderBy(asc(users.name));
-}
-
-export async function isMember(db: Database, channelId: string, userId: string): Promise<boolean> {
-  const rows = await db
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)))
-    .limit(1);
-  return rows.length > 0;
+/** The channel's members as the slate names them: owners to pick, people to mention. */
+export async function peopleOf(db: Database, channelId: string): Promise<{ id: string; name: string }[]> {
+  return (await channelPeople(db, channelId)).map(({ userId, name }) => ({ id: userId, name }));
 }
 
 /** Addresses of the people a comment mentions, limited to members of the channel. */

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { channels, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
@@ -79,7 +79,53 @@ export async function findHost(db: Db, channelId: string, userId: string) {
   return row ?? null;
 }
 
+/** The episode's deals that aren't cancelled, with what the publish gates read. */
+export async function liveDealsOfEpisode(db: Db, channelId: string, episodeId: string) {
+  return db
+    .select({ id: deals.id, company: sponsors.company, script: deals.script, descriptionCopy: deals.descriptionCopy, disclosureText: deals.disclosureText, publishDate: episodes.targetPublishDate })
+    .from(deals)
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .where(and(eq(deals.channelId, channelId), eq(deals.episodeId, episodeId), ne(deals.state, "cancelled")))
+    .orderBy(asc(deals.createdAt));
+}
+
 // ── Deliverables and their history ─────────────────────────────────────
+
+/** The items of these deals, each with how its date is counted. */
+export async function itemsOfDeals(db: Db, channelId: string, dealIds: string[]) {
+  if (dealIds.length === 0) return [];
+  return db
+    .select({ dealId: deliverables.dealId, title: deliverables.title, status: deliverables.status, anchor: deliverables.anchor, dueDate: deliverables.dueDate })
+    .from(deliverables)
+    .where(and(eq(deliverables.channelId, channelId), inArray(deliverables.dealId, dealIds)))
+    .orderBy(asc(deliverables.position));
+}
+
+/** Every open deliverable of the channel's live deals on episodes that aren't archived, by due date: the desk. */
+export async function openDeliverables(db: Db, channelId: string) {
+  return db
+    .select({
+      id: deliverables.id,
+      dealId: deliverables.dealId,
+      episodeId: deals.episodeId,
+      episodeTitle: episodes.title,
+      sponsorId: deals.sponsorId,
+      company: sponsors.company,
+      kind: deliverables.kind,
+      title: deliverables.title,
+      dueDate: deliverables.dueDate,
+      status: deliverables.status,
+      ownerName: users.name,
+    })
+    .from(deliverables)
+    .innerJoin(deals, eq(deals.id, deliverables.dealId))
+    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
+    .leftJoin(users, eq(users.id, deliverables.ownerId))
+    .where(and(eq(deliverables.channelId, channelId), ne(deals.state, "cancelled"), isNull(episodes.archivedAt)))
+    .orderBy(asc(deliverables.dueDate), asc(deliverables.position));
+}
 
 export async function listDeliverables(db: Db, channelId: string, dealIds: string[]) {
   if (dealIds.length === 0) return [];

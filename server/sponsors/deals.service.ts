@@ -7,8 +7,10 @@ import type { DealView, DeliverableEvent, DeliverableView, Money, ReviewLinkView
 import type { createDealSchema, cutSchema, updateDealSchema } from "../../shared/sponsors/schemas";
 import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
 import type { z } from "zod";
+import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
+import type { Caller } from "../http/route-table";
 import { findCutClips, listEpisodeClips } from "./cut.repository";
 import {
   findDeal,
@@ -25,24 +27,30 @@ import {
   type DealRow,
 } from "./deals.repository";
 import { redateDeal, type Actor } from "./schedule.service";
-import { findSponsor, findTemplate, isMember, listMembersWithRates } from "./sponsors.repository";
+import { findSponsor, findTemplate, listMembersWithRates } from "./sponsors.repository";
 import { reviewStateOf } from "./review-token";
-
-/** The signed-in member a view is made for: what they may see depends on the role. */
-export interface Viewer {
-  channelId: string;
-  userId: string;
-  name: string;
-  role: Role;
-  timeZone: string;
-}
 
 export const seesFees = (role: Role) => roleMay(role, "fees", "R");
 export const runsDeliverables = (role: Role) => roleMay(role, "deliverables", "W");
-/** The editor delivers the cut: attaching it and measuring the segment are theirs as well. */
-export const deliversCut = (role: Role) => runsDeliverables(role) || role === "editor";
+/** Whoever delivers the cut (the role table's "cut": the editor too) attaches it, measures the segment and moves the cut items. */
+export const deliversCut = (role: Role) => roleMay(role, "cut", "W");
 
-export const actorOf = (viewer: Viewer): Actor => ({ id: viewer.userId, name: viewer.name, kind: "member" });
+export const actorOf = (caller: Caller): Actor => ({ id: caller.userId, name: caller.name, kind: "member" });
+
+/** The start of a history entry the caller made on an item. */
+export const eventBy = (caller: Caller, deliverableId: string) =>
+  ({ channelId: caller.channelId, deliverableId, actorId: caller.userId, actorName: caller.name, actorKind: "member" }) as const;
+
+/** A deal's money as its columns. */
+const moneyColumns = (money: Money) => ({
+  feeAmount: money.fee.toFixed(2),
+  currency: money.currency,
+  paymentTermsDays: money.paymentTermsDays,
+  paymentTermsFrom: money.paymentTermsFrom,
+  invoiceNumber: money.invoiceNumber,
+  invoicedOn: money.invoicedOn,
+  paidOn: money.paidOn,
+});
 
 type DealWithJoins = NonNullable<Awaited<ReturnType<typeof findDeal>>>;
 
@@ -67,26 +75,26 @@ function cutTimingOf(deal: DealRow): DealView["cut"]["timing"] {
 }
 
 /**
- * The deals as this viewer may see them. Editor and crew get the segment's requirements and the
+ * The deals as this caller may see them. Editor and crew get the segment's requirements and the
  * items they may read; the fee, payment terms and the invoice and payment items are left out of the
  * answer altogether (not blanked), and review links go only to the roles that send them.
  */
-export async function dealViews(db: Database, viewer: Viewer, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
+export async function dealViews(db: Database, caller: Caller, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
   const dealIds = rows.map((r) => r.deal.id);
-  const today = dateInZone(now, viewer.timeZone);
-  const fees = seesFees(viewer.role);
-  const items = (await listDeliverables(db, viewer.channelId, dealIds)).filter((row) => fees || !isMoneyKind(row.item.kind));
-  const events = await listEvents(db, viewer.channelId, items.map((row) => row.item.id));
-  const links = runsDeliverables(viewer.role) ? await listReviewLinks(db, viewer.channelId, dealIds) : [];
+  const today = dateInZone(now, caller.timeZone);
+  const fees = seesFees(caller.role);
+  const items = (await listDeliverables(db, caller.channelId, dealIds)).filter((row) => fees || !isMoneyKind(row.item.kind));
+  const events = await listEvents(db, caller.channelId, items.map((row) => row.item.id));
+  const links = runsDeliverables(caller.role) ? await listReviewLinks(db, caller.channelId, dealIds) : [];
   const clipIds = rows.map((r) => r.deal.cutClipId).filter((id): id is string => id !== null);
-  const cutClips = await findCutClips(db, viewer.channelId, clipIds);
-  const choices = deliversCut(viewer.role) ? await listEpisodeClips(db, viewer.channelId, [...new Set(rows.map((r) => r.deal.episodeId))]) : [];
+  const cutClips = await findCutClips(db, caller.channelId, clipIds);
+  const choices = deliversCut(caller.role) ? await listEpisodeClips(db, caller.channelId, [...new Set(rows.map((r) => r.deal.episodeId))]) : [];
 
   const views: DealView[] = [];
   for (const row of rows) {
     const deal = row.deal;
-    const contacts = await listContactsOf(db, viewer.channelId, deal.sponsorId);
-    const host = deal.hostId ? await findHost(db, viewer.channelId, deal.hostId) : null;
+    const contacts = await listContactsOf(db, caller.channelId, deal.sponsorId);
+    const host = deal.hostId ? await findHost(db, caller.channelId, deal.hostId) : null;
     const wordsPerMinute = host?.wordsPerMinute ?? DEFAULT_WORDS_PER_MINUTE;
     const description = deal.descriptionCopy ?? "";
     const clip = cutClips.find((c) => c.id === deal.cutClipId);
@@ -131,7 +139,7 @@ export async function dealViews(db: Database, viewer: Viewer, rows: DealWithJoin
           ownerId: item.ownerId,
           ownerName,
           ...latenessOf(item, today),
-          canEdit: runsDeliverables(viewer.role) || (viewer.role === "editor" && isCutKind(item.kind)),
+          canEdit: runsDeliverables(caller.role) || (deliversCut(caller.role) && isCutKind(item.kind)),
           history: events
             .filter((e) => e.deliverableId === item.id)
             .map((e): DeliverableEvent => ({
@@ -148,7 +156,7 @@ export async function dealViews(db: Database, viewer: Viewer, rows: DealWithJoin
             })),
         })),
     };
-    if (runsDeliverables(viewer.role)) {
+    if (runsDeliverables(caller.role)) {
       view.reviewLinks = links
         .filter((l) => l.link.dealId === deal.id)
         .map(({ link, deliverableTitle }): ReviewLinkView => ({
@@ -166,17 +174,17 @@ export async function dealViews(db: Database, viewer: Viewer, rows: DealWithJoin
           decidedAt: link.decidedAt?.toISOString() ?? null,
         }));
     }
-    if (deliversCut(viewer.role)) view.cutChoices = choices.filter((c) => c.episodeId === deal.episodeId).map((c) => ({ id: c.id, fileName: c.fileName }));
+    if (deliversCut(caller.role)) view.cutChoices = choices.filter((c) => c.episodeId === deal.episodeId).map((c) => ({ id: c.id, fileName: c.fileName }));
     if (fees) view.money = moneyOf(deal);
     views.push(view);
   }
   return views;
 }
 
-export async function dealView(db: Database, viewer: Viewer, dealId: string): Promise<DealView> {
-  const row = await findDeal(db, viewer.channelId, dealId);
+export async function dealView(db: Database, caller: Caller, dealId: string): Promise<DealView> {
+  const row = await findDeal(db, caller.channelId, dealId);
   if (!row) throw notFound("Deal");
-  const [view] = await dealViews(db, viewer, [row]);
+  const [view] = await dealViews(db, caller, [row]);
   return view!;
 }
 
@@ -191,41 +199,35 @@ async function checkReferences(db: Database, channelId: string, sponsorId: strin
 }
 
 /** Picks the member a template item names by role: the deal's maker if the role is theirs, else the longest-standing. */
-function ownerFor(item: TemplateItem, viewer: Viewer, members: { userId: string; role: Role }[]): string {
-  if (item.ownerRole === null || item.ownerRole === viewer.role) return viewer.userId;
-  return members.find((m) => m.role === item.ownerRole)?.userId ?? viewer.userId;
+function ownerFor(item: TemplateItem, caller: Caller, members: { userId: string; role: Role }[]): string {
+  if (item.ownerRole === null || item.ownerRole === caller.role) return caller.userId;
+  return members.find((m) => m.role === item.ownerRole)?.userId ?? caller.userId;
 }
 
-export async function createDeal(db: Database, viewer: Viewer, input: z.output<typeof createDealSchema>): Promise<DealView> {
-  const episode = await findEpisodeInChannel(db, viewer.channelId, input.episodeId);
+export async function createDeal(db: Database, caller: Caller, input: z.output<typeof createDealSchema>): Promise<DealView> {
+  const episode = await findEpisodeInChannel(db, caller.channelId, input.episodeId);
   if (!episode) throw new AppError("validation_failed", "Some fields need attention.", { episodeId: "Pick an episode of this channel." });
-  const sponsor = await findSponsor(db, viewer.channelId, input.sponsorId);
+  const sponsor = await findSponsor(db, caller.channelId, input.sponsorId);
   if (!sponsor) throw new AppError("validation_failed", "Some fields need attention.", { sponsorId: "Pick a sponsor of this channel." });
-  await checkReferences(db, viewer.channelId, sponsor.id, input);
-  const template = input.templateId ? await findTemplate(db, viewer.channelId, input.templateId) : null;
+  await checkReferences(db, caller.channelId, sponsor.id, input);
+  const template = input.templateId ? await findTemplate(db, caller.channelId, input.templateId) : null;
   if (input.templateId && !template) throw new AppError("validation_failed", "Some fields need attention.", { templateId: "Pick one of the channel's templates." });
-  const members = await listMembersWithRates(db, viewer.channelId);
+  const members = await listMembersWithRates(db, caller.channelId);
 
   const dealId = await db.transaction(async (tx) => {
     const { money, templateId: _templateId, ...segment } = input;
     const deal = await insertDeal(tx, {
       ...segment,
-      channelId: viewer.channelId,
+      channelId: caller.channelId,
       publishBasis: episode.publishDate,
-      feeAmount: money.fee.toFixed(2),
-      currency: money.currency,
-      paymentTermsDays: money.paymentTermsDays,
-      paymentTermsFrom: money.paymentTermsFrom,
-      invoiceNumber: money.invoiceNumber,
-      invoicedOn: money.invoicedOn,
-      paidOn: money.paidOn,
-      createdBy: viewer.userId,
+      ...moneyColumns(money),
+      createdBy: caller.userId,
     });
     const generated = generateDeliverables(template?.items ?? [], { publishDate: episode.publishDate, goLiveDate: deal.goLiveDate });
     const inserted = await insertDeliverables(
       tx,
       generated.map((item) => ({
-        channelId: viewer.channelId,
+        channelId: caller.channelId,
         dealId: deal.id,
         kind: item.kind,
         title: item.title,
@@ -233,17 +235,13 @@ export async function createDeal(db: Database, viewer: Viewer, input: z.output<t
         offsetDays: item.offsetDays,
         dueDate: item.dueDate,
         position: item.position,
-        ownerId: ownerFor(item, viewer, members),
+        ownerId: ownerFor(item, caller, members),
       })),
     );
     await insertEvents(
       tx,
       inserted.map((item) => ({
-        channelId: viewer.channelId,
-        deliverableId: item.id,
-        actorId: viewer.userId,
-        actorName: viewer.name,
-        actorKind: "member" as const,
+        ...eventBy(caller, item.id),
         what: "created" as const,
         toStatus: item.status,
         toDate: item.dueDate,
@@ -252,51 +250,42 @@ export async function createDeal(db: Database, viewer: Viewer, input: z.output<t
     );
     return deal.id;
   });
-  return dealView(db, viewer, dealId);
+  return dealView(db, caller, dealId);
 }
 
-export async function updateDeal(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
-  const current = await findDeal(db, viewer.channelId, dealId);
+export async function updateDeal(db: Database, caller: Caller, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
+  const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
-  await checkReferences(db, viewer.channelId, current.deal.sponsorId, input);
+  await checkReferences(db, caller.channelId, current.deal.sponsorId, input);
   await db.transaction(async (tx) => {
-    const updated = await updateDealRow(tx, viewer.channelId, dealId, input);
+    const updated = await updateDealRow(tx, caller.channelId, dealId, input);
     if (updated && input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
       const note = updated.goLiveDate ? `Go-live set to ${updated.goLiveDate}` : "Go-live follows the publish date again";
-      await redateDeal(tx, updated, current.publishDate, actorOf(viewer), note);
+      await redateDeal(tx, updated, current.publishDate, actorOf(caller), note);
     }
   });
-  return dealView(db, viewer, dealId);
+  return dealView(db, caller, dealId);
 }
 
-export async function updateMoney(db: Database, viewer: Viewer, dealId: string, money: Money): Promise<DealView> {
-  const updated = await updateDealRow(db, viewer.channelId, dealId, {
-    feeAmount: money.fee.toFixed(2),
-    currency: money.currency,
-    paymentTermsDays: money.paymentTermsDays,
-    paymentTermsFrom: money.paymentTermsFrom,
-    invoiceNumber: money.invoiceNumber,
-    invoicedOn: money.invoicedOn,
-    paidOn: money.paidOn,
-  });
+export async function updateMoney(db: Database, caller: Caller, dealId: string, money: Money): Promise<DealView> {
+  const updated = await updateDealRow(db, caller.channelId, dealId, moneyColumns(money));
   if (!updated) throw notFound("Deal");
-  return dealView(db, viewer, dealId);
+  return dealView(db, caller, dealId);
 }
 
-export async function updateCut(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
-  if (!deliversCut(viewer.role)) throw new AppError("forbidden", "Only the editor, a producer or an owner can set the cut.");
-  const current = await findDeal(db, viewer.channelId, dealId);
+export async function updateCut(db: Database, caller: Caller, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
+  const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
   if (input.clipId) {
-    const [clip] = await findCutClips(db, viewer.channelId, [input.clipId]);
+    const [clip] = await findCutClips(db, caller.channelId, [input.clipId]);
     if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
   }
-  await updateDealRow(db, viewer.channelId, dealId, {
+  await updateDealRow(db, caller.channelId, dealId, {
     cutClipId: input.clipId,
     cutIn: input.timing?.inTimecode ?? null,
     cutOut: input.timing?.outTimecode ?? null,
     cutFrameRate: input.timing?.frameRate ?? null,
     cutDropFrame: input.timing?.dropFrame ?? null,
   });
-  return dealView(db, viewer, dealId);
+  return dealView(db, caller, dealId);
 }

@@ -1,11 +1,12 @@
 import type { z } from "zod";
 import { dueDateFor, isCutKind, isMoneyKind } from "../../shared/sponsors/deliverables";
 import type { newDeliverableSchema, updateDeliverableSchema } from "../../shared/sponsors/schemas";
+import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
+import type { Caller } from "../http/route-table";
 import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type NewEvent } from "./deals.repository";
-import { runsDeliverables, seesFees, type Viewer } from "./deals.service";
-import { isMember } from "./sponsors.repository";
+import { deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
 
 async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
   if (ownerId && !(await isMember(db, channelId, ownerId))) {
@@ -13,47 +14,48 @@ async function checkOwner(db: Database, channelId: string, ownerId: string | nul
   }
 }
 
-export async function addDeliverable(db: Database, viewer: Viewer, dealId: string, input: z.output<typeof newDeliverableSchema>) {
-  const deal = await findDeal(db, viewer.channelId, dealId);
+export async function addDeliverable(db: Database, caller: Caller, dealId: string, input: z.output<typeof newDeliverableSchema>) {
+  const deal = await findDeal(db, caller.channelId, dealId);
   if (!deal) throw notFound("Deal");
-  await checkOwner(db, viewer.channelId, input.ownerId);
+  await checkOwner(db, caller.channelId, input.ownerId);
   const dueDate = dueDateFor(input, { publishDate: deal.publishDate, goLiveDate: deal.deal.goLiveDate });
   await db.transaction(async (tx) => {
     const [item] = await insertDeliverables(tx, [
       {
-        channelId: viewer.channelId,
+        channelId: caller.channelId,
         dealId,
         kind: input.kind,
         title: input.title,
         anchor: input.anchor,
         offsetDays: input.anchor === "fixed" ? 0 : input.offsetDays,
         dueDate,
-        ownerId: input.ownerId ?? viewer.userId,
+        ownerId: input.ownerId ?? caller.userId,
         position: await nextPosition(tx, dealId),
       },
     ]);
     await insertEvents(tx, [
-      { channelId: viewer.channelId, deliverableId: item!.id, actorId: viewer.userId, actorName: viewer.name, actorKind: "member", what: "created", toStatus: item!.status, toDate: dueDate },
+      { ...eventBy(caller, item!.id), what: "created", toStatus: item!.status, toDate: dueDate },
     ]);
   });
 }
 
 /**
- * Owners and producers change anything on an item; an editor changes only the status (and adds a
- * note) on the cut items they deliver; crew reads. Money items don't exist for roles that can't see fees.
+ * Roles that run deliverables change anything on an item; a role that only delivers the cut (the
+ * editor) changes only the status (and adds a note) of the cut items; the route lets no one else in.
+ * Money items don't exist for roles that can't see fees.
  */
-export async function updateDeliverable(db: Database, viewer: Viewer, deliverableId: string, input: z.output<typeof updateDeliverableSchema>) {
-  const found = await findDeliverable(db, viewer.channelId, deliverableId);
-  if (!found || (isMoneyKind(found.item.kind) && !seesFees(viewer.role))) throw notFound("Deliverable");
+export async function updateDeliverable(db: Database, caller: Caller, deliverableId: string, input: z.output<typeof updateDeliverableSchema>) {
+  const found = await findDeliverable(db, caller.channelId, deliverableId);
+  if (!found || (isMoneyKind(found.item.kind) && !seesFees(caller.role))) throw notFound("Deliverable");
   const item = found.item;
-  if (!runsDeliverables(viewer.role)) {
+  if (!runsDeliverables(caller.role)) {
     const onlyStatus = Object.keys(input).every((key) => key === "status" || key === "note");
-    if (!(viewer.role === "editor" && isCutKind(item.kind))) throw new AppError("forbidden", "Your role may read this item but not change it.");
+    if (!(deliversCut(caller.role) && isCutKind(item.kind))) throw new AppError("forbidden", "Your role may read this item but not change it.");
     if (!onlyStatus) throw new AppError("forbidden", "An editor can change the status of the cut items they deliver, not their dates, owner or title.");
   }
-  await checkOwner(db, viewer.channelId, input.ownerId);
+  await checkOwner(db, caller.channelId, input.ownerId);
 
-  const deal = await findDeal(db, viewer.channelId, item.dealId);
+  const deal = await findDeal(db, caller.channelId, item.dealId);
   const anchor = input.anchor ?? item.anchor;
   const datingChanged = input.anchor !== undefined || input.offsetDays !== undefined || input.fixedDate !== undefined;
   if (anchor === "fixed" && datingChanged && !input.fixedDate && item.anchor !== "fixed") {
@@ -64,7 +66,7 @@ export async function updateDeliverable(db: Database, viewer: Viewer, deliverabl
     ? dueDateFor({ anchor, offsetDays, fixedDate: input.fixedDate ?? item.dueDate }, { publishDate: deal?.publishDate ?? null, goLiveDate: deal?.deal.goLiveDate ?? null })
     : item.dueDate;
 
-  const base = { channelId: viewer.channelId, deliverableId, actorId: viewer.userId, actorName: viewer.name, actorKind: "member" as const };
+  const base = eventBy(caller, deliverableId);
   const events: NewEvent[] = [];
   if (input.status !== undefined && input.status !== item.status) events.push({ ...base, what: "status", fromStatus: item.status, toStatus: input.status, note: input.note ?? null });
   if (input.ownerId !== undefined && input.ownerId !== item.ownerId) events.push({ ...base, what: "owner", note: null });
@@ -73,7 +75,7 @@ export async function updateDeliverable(db: Database, viewer: Viewer, deliverabl
   if (input.note && !events.some((e) => e.what === "status")) events.push({ ...base, what: "note", note: input.note });
 
   await db.transaction(async (tx) => {
-    await updateDeliverableRow(tx, viewer.channelId, deliverableId, {
+    await updateDeliverableRow(tx, caller.channelId, deliverableId, {
       title: input.title,
       status: input.status,
       ownerId: input.ownerId,
@@ -86,8 +88,8 @@ export async function updateDeliverable(db: Database, viewer: Viewer, deliverabl
   return found.item.dealId;
 }
 
-export async function removeDeliverable(db: Database, viewer: Viewer, deliverableId: string) {
-  const found = await findDeliverable(db, viewer.channelId, deliverableId);
+export async function removeDeliverable(db: Database, caller: Caller, deliverableId: string) {
+  const found = await findDeliverable(db, caller.channelId, deliverableId);
   if (!found) throw notFound("Deliverable");
-  await deleteDeliverableRow(db, viewer.channelId, deliverableId);
+  await deleteDeliverableRow(db, caller.channelId, deliverableId);
 }

@@ -1,43 +1,16 @@
-import { and, asc, eq, isNull, ne } from "drizzle-orm";
 import { dateInZone } from "../../shared/sponsors/dates";
 import { deskGroupOf, deskGroups, isMoneyKind, latenessOf, type DeskGroup } from "../../shared/sponsors/deliverables";
 import type { DeskItem, DeskView } from "../../shared/sponsors/schemas";
 import type { Database } from "../db/client";
-import { users } from "../db/schema/accounts";
-import { episodes } from "../db/schema/slate";
-import { deals, deliverables, sponsors } from "../db/schema/sponsors";
-import { seesFees, type Viewer } from "./deals.service";
+import type { Caller } from "../http/route-table";
+import { openDeliverables } from "./deals.repository";
+import { seesFees } from "./deals.service";
 import { catchUpPublishDates } from "./schedule.service";
 
-/** Every open deliverable of the channel's live deals, grouped for the producer's morning look. */
-export async function openDeliverables(db: Database, channelId: string) {
-  return db
-    .select({
-      id: deliverables.id,
-      dealId: deliverables.dealId,
-      episodeId: deals.episodeId,
-      episodeTitle: episodes.title,
-      sponsorId: deals.sponsorId,
-      company: sponsors.company,
-      kind: deliverables.kind,
-      title: deliverables.title,
-      dueDate: deliverables.dueDate,
-      status: deliverables.status,
-      ownerName: users.name,
-    })
-    .from(deliverables)
-    .innerJoin(deals, eq(deals.id, deliverables.dealId))
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
-    .leftJoin(users, eq(users.id, deliverables.ownerId))
-    .where(and(eq(deliverables.channelId, channelId), ne(deals.state, "cancelled"), isNull(episodes.archivedAt)))
-    .orderBy(asc(deliverables.dueDate), asc(deliverables.position));
-}
-
-export async function desk(db: Database, viewer: Viewer, filter: { sponsorId?: string; episodeId?: string }, now = new Date()): Promise<DeskView> {
-  await catchUpPublishDates(db, viewer.channelId);
-  const today = dateInZone(now, viewer.timeZone);
-  const visible = (await openDeliverables(db, viewer.channelId)).filter((row) => seesFees(viewer.role) || !isMoneyKind(row.kind));
+export async function desk(db: Database, caller: Caller, filter: { sponsorId?: string; episodeId?: string }, now = new Date()): Promise<DeskView> {
+  await catchUpPublishDates(db, caller.channelId);
+  const today = dateInZone(now, caller.timeZone);
+  const visible = (await openDeliverables(db, caller.channelId)).filter((row) => seesFees(caller.role) || !isMoneyKind(row.kind));
   const grouped = visible
     .map((row) => ({ row, group: deskGroupOf(row, today) }))
     .filter((entry): entry is { row: (typeof visible)[number]; group: DeskGroup } => entry.group !== null);

@@ -1,16 +1,14 @@
-import { and, eq, isNull, ne, notInArray, sql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/node-postgres";
 import type pg from "pg";
 import type PgBoss from "pg-boss";
 import { dateInZone, daysBetween } from "../../shared/sponsors/dates";
 import { isMoneyKind, reminderFor } from "../../shared/sponsors/deliverables";
 import type { Database } from "../db/client";
-import { memberships, users } from "../db/schema/accounts";
-import { episodes } from "../db/schema/slate";
-import { deals, deliverableEvents, deliverables, remindersSent, sponsorSettings, sponsors } from "../db/schema/sponsors";
 import type { Jobs } from "../jobs/queue";
 import type { OutgoingMail } from "../mail/mailer";
+import { insertEvents } from "./deals.repository";
 import { seesFees } from "./deals.service";
+import { recordReminder, reminderCandidates } from "./reminders.repository";
 import { catchUpPublishDates } from "./schedule.service";
 import { DEFAULT_REMINDER_DAYS_BEFORE } from "./sponsors.repository";
 
@@ -31,44 +29,7 @@ export interface ReminderDeps {
   appUrl: string;
 }
 
-async function candidates(db: Database) {
-  const owner = sql`coalesce(${deliverables.ownerId}, ${deals.createdBy})`;
-  return db
-    .select({
-      id: deliverables.id,
-      channelId: deliverables.channelId,
-      kind: deliverables.kind,
-      title: deliverables.title,
-      status: deliverables.status,
-      dueDate: deliverables.dueDate,
-      episodeId: deals.episodeId,
-      episodeTitle: episodes.title,
-      company: sponsors.company,
-      ownerEmail: users.email,
-      ownerName: users.name,
-      ownerTimeZone: users.timeZone,
-      ownerRole: memberships.role,
-      daysBefore: sponsorSettings.reminderDaysBefore,
-    })
-    .from(deliverables)
-    .innerJoin(deals, eq(deals.id, deliverables.dealId))
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
-    .innerJoin(users, eq(users.id, owner))
-    // The owner must still belong to the channel, in a role that may see the item.
-    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.channelId, deliverables.channelId)))
-    .leftJoin(sponsorSettings, eq(sponsorSettings.channelId, deliverables.channelId))
-    .where(
-      and(
-        notInArray(deliverables.status, ["approved", "done"]),
-        sql`${deliverables.dueDate} is not null`,
-        ne(deals.state, "cancelled"),
-        isNull(episodes.archivedAt),
-      ),
-    );
-}
-
-type Candidate = Awaited<ReturnType<typeof candidates>>[number];
+type Candidate = Awaited<ReturnType<typeof reminderCandidates>>[number];
 
 function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string): OutgoingMail {
   const due = item.dueDate!;
@@ -96,24 +57,21 @@ async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "l
   try {
     await client.query("begin");
     const tx = drizzle(client);
-    const inserted = await tx
-      .insert(remindersSent)
-      .values({ deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail })
-      .onConflictDoNothing()
-      .returning({ id: remindersSent.deliverableId });
-    if (inserted.length === 0) {
+    if (!(await recordReminder(tx, { deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail }))) {
       await client.query("rollback");
       return false;
     }
     await deps.jobs.enqueueMail(reminderMail(item, kind, today, deps.appUrl), { db: { executeSql: (text, values) => client.query(text, values) } });
-    await tx.insert(deliverableEvents).values({
-      channelId: item.channelId,
-      deliverableId: item.id,
-      actorName: "Kerf",
-      actorKind: "system",
-      what: "reminder",
-      note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
-    });
+    await insertEvents(tx, [
+      {
+        channelId: item.channelId,
+        deliverableId: item.id,
+        actorName: "Kerf",
+        actorKind: "system",
+        what: "reminder",
+        note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
+      },
+    ]);
     await client.query("commit");
     return true;
   } catch (error) {
@@ -128,7 +86,7 @@ async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "l
 export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<{ sent: number }> {
   await catchUpPublishDates(deps.db, null);
   let sent = 0;
-  for (const item of await candidates(deps.db)) {
+  for (const item of await reminderCandidates(deps.db)) {
     if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) continue;
     const today = dateInZone(now, item.ownerTimeZone);
     const kind = reminderFor(item, today, item.daysBefore ?? DEFAULT_REMINDER_DAYS_BEFORE);

@@ -1,11 +1,10 @@
-import { eq } from "drizzle-orm";
 import { addDays } from "date-fns";
 import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/sponsors/read";
 import { deliverableStatusLabels, isMoneyKind } from "../../shared/sponsors/deliverables";
 import type { ReviewDecision, ReviewLinkView, ReviewPage, reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
 import type { z } from "zod";
+import { channelName as channelNameOf } from "../db/channel-scope";
 import type { Database } from "../db/client";
-import { channels, users } from "../db/schema/accounts";
 import { AppError, notFound } from "../http/app-error";
 import type { OutgoingMail } from "../mail/mailer";
 import type { Storage } from "../storage/storage";
@@ -23,7 +22,8 @@ import {
   revokeReviewLink,
   updateDeliverableRow,
 } from "./deals.repository";
-import type { Viewer } from "./deals.service";
+import type { Caller } from "../http/route-table";
+import { eventBy } from "./deals.service";
 import { reviewStateOf, type ReviewTokens } from "./review-token";
 
 export interface ReviewDeps {
@@ -41,42 +41,38 @@ const reviewUrl = (appUrl: string, token: string) => `${appUrl}/review/${token}`
 const decisionWords: Record<ReviewDecision, string> = { approved: "approved", changes_asked: "asked for changes to" };
 
 /** Sends one deal's review link to one of the sponsor's contacts; the item under review waits on the sponsor. */
-export async function sendReviewLink(deps: ReviewDeps, viewer: Viewer, dealId: string, input: z.output<typeof sendReviewSchema>): Promise<{ link: ReviewLinkView; url: string }> {
+export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: string, input: z.output<typeof sendReviewSchema>): Promise<{ link: ReviewLinkView; url: string }> {
   const { db } = deps;
-  const deal = await findDeal(db, viewer.channelId, dealId);
+  const deal = await findDeal(db, caller.channelId, dealId);
   if (!deal) throw notFound("Deal");
-  const target = await findDeliverable(db, viewer.channelId, input.deliverableId);
+  const target = await findDeliverable(db, caller.channelId, input.deliverableId);
   if (!target || target.item.dealId !== dealId || isMoneyKind(target.item.kind)) {
     throw new AppError("validation_failed", "Some fields need attention.", { deliverableId: "Pick one of this deal's items for the sponsor to review." });
   }
-  const contact = (await listContactsOf(db, viewer.channelId, deal.deal.sponsorId)).find((c) => c.id === input.contactId);
+  const contact = (await listContactsOf(db, caller.channelId, deal.deal.sponsorId)).find((c) => c.id === input.contactId);
   if (!contact) throw new AppError("validation_failed", "Some fields need attention.", { contactId: "Pick one of this sponsor's contacts." });
-  const [channel] = await db.select({ name: channels.name }).from(channels).where(eq(channels.id, viewer.channelId));
-  const sender = await findHost(db, viewer.channelId, viewer.userId);
+  const channelName = await channelNameOf(db, caller.channelId);
+  const sender = await findHost(db, caller.channelId, caller.userId);
   // Whole seconds: the token carries the expiry in seconds and must match the row exactly.
   const expiresAt = new Date(Math.floor(addDays(new Date(), input.expiresInDays).getTime() / 1000) * 1000);
 
   const link = await db.transaction(async (tx) => {
     const row = await insertReviewLink(tx, {
-      channelId: viewer.channelId,
+      channelId: caller.channelId,
       dealId,
       deliverableId: target.item.id,
       contactId: contact.id,
       contactName: contact.name,
       contactEmail: contact.email,
-      sentBy: viewer.userId,
-      sentByName: sender?.name ?? viewer.name,
-      sentByEmail: await emailOf(tx, viewer.userId),
+      sentBy: caller.userId,
+      sentByName: sender?.name ?? caller.name,
+      sentByEmail: caller.email,
       expiresAt,
     });
-    await updateDeliverableRow(tx, viewer.channelId, target.item.id, { status: "sent" });
+    await updateDeliverableRow(tx, caller.channelId, target.item.id, { status: "sent" });
     await insertEvents(tx, [
       {
-        channelId: viewer.channelId,
-        deliverableId: target.item.id,
-        actorId: viewer.userId,
-        actorName: viewer.name,
-        actorKind: "member",
+        ...eventBy(caller, target.item.id),
         what: "review_sent",
         fromStatus: target.item.status,
         toStatus: "sent",
@@ -89,11 +85,11 @@ export async function sendReviewLink(deps: ReviewDeps, viewer: Viewer, dealId: s
   const url = reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt));
   await deps.enqueueMail({
     to: contact.email,
-    subject: `${channel?.name ?? "A channel"} asks you to review: ${target.item.title}`,
+    subject: `${channelName ?? "A channel"} asks you to review: ${target.item.title}`,
     text: [
       `Hello ${contact.name},`,
       "",
-      `${viewer.name} of ${channel?.name ?? "the channel"} asks you to review "${target.item.title}" for ${deal.company}'s segment in "${deal.episodeTitle}".`,
+      `${caller.name} of ${channelName ?? "the channel"} asks you to review "${target.item.title}" for ${deal.company}'s segment in "${deal.episodeTitle}".`,
       ...(input.message ? ["", input.message] : []),
       "",
       "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
@@ -121,30 +117,21 @@ export async function sendReviewLink(deps: ReviewDeps, viewer: Viewer, dealId: s
   };
 }
 
-async function emailOf(db: Parameters<typeof insertEvents>[0], userId: string): Promise<string> {
-  const [row] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId));
-  return row?.email ?? "";
-}
-
 /** Withdraws a link not yet used; the item no longer waits on the sponsor. */
-export async function revokeLink(db: Database, viewer: Viewer, dealId: string, linkId: string): Promise<void> {
-  const link = await findReviewLinkInDeal(db, viewer.channelId, dealId, linkId);
+export async function revokeLink(db: Database, caller: Caller, dealId: string, linkId: string): Promise<void> {
+  const link = await findReviewLinkInDeal(db, caller.channelId, dealId, linkId);
   if (!link) throw notFound("Review link");
   if (link.decidedAt) throw new AppError("conflict", "This link has been used: the sponsor's decision stands. Send a new link for another round.");
   if (link.revokedAt) return;
   await db.transaction(async (tx) => {
-    await revokeReviewLink(tx, viewer.channelId, dealId, linkId);
-    const target = await findDeliverable(tx, viewer.channelId, link.deliverableId);
+    await revokeReviewLink(tx, caller.channelId, dealId, linkId);
+    const target = await findDeliverable(tx, caller.channelId, link.deliverableId);
     if (!target) return;
     const backTo = target.item.status === "sent" ? "not_started" : target.item.status;
-    if (backTo !== target.item.status) await updateDeliverableRow(tx, viewer.channelId, target.item.id, { status: backTo });
+    if (backTo !== target.item.status) await updateDeliverableRow(tx, caller.channelId, target.item.id, { status: backTo });
     await insertEvents(tx, [
       {
-        channelId: viewer.channelId,
-        deliverableId: target.item.id,
-        actorId: viewer.userId,
-        actorName: viewer.name,
-        actorKind: "member",
+        ...eventBy(caller, target.item.id),
         what: backTo !== target.item.status ? "status" : "note",
         fromStatus: target.item.status,
         toStatus: backTo,

@@ -1,9 +1,7 @@
-import { and, eq, sql } from "drizzle-orm";
 import { followedDueDates } from "../../shared/sponsors/deliverables";
-import { deals, deliverables } from "../db/schema/sponsors";
-import { episodes } from "../db/schema/slate";
-import { users } from "../db/schema/accounts";
+import type { PublishDateFollower } from "../seams/episode-dates";
 import { dealsBehindPublishDate, insertEvents, type Db, type NewEvent } from "./deals.repository";
+import { claimDealsForPublishDate, datingOfItems, episodePublishDate, setDueDate, userName } from "./schedule.repository";
 
 /** Who made a change, as the item's history shows it. */
 export interface Actor {
@@ -19,14 +17,9 @@ export const systemActor: Actor = { id: null, name: "Kerf", kind: "system" };
  * every move in the item's history. Settled and hand-dated items keep their dates.
  */
 export async function redateDeal(db: Db, deal: { id: string; channelId: string; goLiveDate: string | null }, publishDate: string | null, actor: Actor, note: string) {
-  const items = await db
-    .select({ id: deliverables.id, anchor: deliverables.anchor, offsetDays: deliverables.offsetDays, status: deliverables.status, dueDate: deliverables.dueDate })
-    .from(deliverables)
-    .where(and(eq(deliverables.dealId, deal.id), eq(deliverables.channelId, deal.channelId)));
+  const items = await datingOfItems(db, deal.channelId, deal.id);
   const changes = followedDueDates(items, { publishDate, goLiveDate: deal.goLiveDate });
-  for (const change of changes) {
-    await db.update(deliverables).set({ dueDate: change.to, updatedAt: new Date() }).where(eq(deliverables.id, change.id));
-  }
+  for (const change of changes) await setDueDate(db, change.id, change.to);
   const events: NewEvent[] = changes.map((change) => ({
     channelId: deal.channelId,
     deliverableId: change.id,
@@ -43,24 +36,17 @@ export async function redateDeal(db: Db, deal: { id: string; channelId: string; 
 }
 
 /**
- * Call after an episode's target publish date changes (the slate's publish-date update does): every
- * open deliverable of the episode's deals moves with it. Safe to call twice or from two instances at
- * once: each deal is claimed by moving its `publish_basis`, so its items move once per date change.
- * Pass the transaction that changed the date, so the new date is the one read here.
+ * Call after an episode's target publish date changes (the slate's episode edit does, through
+ * `sponsorsFollowPublishDate`): every open deliverable of the episode's deals moves with it. Safe to
+ * call twice or from two instances at once: each deal is claimed by moving its `publish_basis`, so its
+ * items move once per date change. Called inside a transaction, it reads the date that transaction wrote.
  */
 export async function followPublishDate(db: Db, input: { channelId: string; episodeId: string; actor?: Actor; actorId?: string }): Promise<{ moved: number }> {
   return db.transaction(async (tx) => {
     const actor = input.actor ?? (input.actorId ? await memberActor(tx, input.actorId) : systemActor);
-    const [episode] = await tx
-      .select({ publishDate: episodes.targetPublishDate })
-      .from(episodes)
-      .where(and(eq(episodes.id, input.episodeId), eq(episodes.channelId, input.channelId)));
+    const episode = await episodePublishDate(tx, input.channelId, input.episodeId);
     if (!episode) return { moved: 0 };
-    const claimed = await tx
-      .update(deals)
-      .set({ publishBasis: episode.publishDate })
-      .where(and(eq(deals.episodeId, input.episodeId), eq(deals.channelId, input.channelId), sql`${deals.publishBasis} is distinct from ${episode.publishDate}`))
-      .returning({ id: deals.id, channelId: deals.channelId, goLiveDate: deals.goLiveDate });
+    const claimed = await claimDealsForPublishDate(tx, input.channelId, input.episodeId, episode.publishDate);
     const note = episode.publishDate ? `Publish date moved to ${episode.publishDate}` : "Publish date cleared";
     let moved = 0;
     for (const deal of claimed) moved += await redateDeal(tx, deal, episode.publishDate, actor, note);
@@ -69,9 +55,15 @@ export async function followPublishDate(db: Db, input: { channelId: string; epis
 }
 
 async function memberActor(db: Db, userId: string): Promise<Actor> {
-  const [user] = await db.select({ name: users.name }).from(users).where(eq(users.id, userId));
-  return user ? { id: userId, name: user.name, kind: "member" } : systemActor;
+  const name = await userName(db, userId);
+  return name === null ? systemActor : { id: userId, name, kind: "member" };
 }
+
+/** The sponsors' part of the publish-date seam: open items move with the episode's date. */
+export const sponsorsFollowPublishDate: PublishDateFollower = {
+  name: "sponsors.deliverables",
+  follow: (db, change) => followPublishDate(db, change),
+};
 
 /**
  * A safety net for a publish date changed without the call above (a script, another tool): before the

@@ -1,40 +1,21 @@
-import { and, asc, eq, isNotNull, ne, notInArray } from "drizzle-orm";
-import { episodeIdIn } from "../slate/flags";
+import { isUuid } from "../../shared/http/ids";
 import { dateInZone, shiftDate } from "../../shared/sponsors/dates";
-import { DUE_SOON_DAYS, deskGroupOf, moneyKinds } from "../../shared/sponsors/deliverables";
+import { DUE_SOON_DAYS, deskGroupOf } from "../../shared/sponsors/deliverables";
 import type { BoardFlag } from "../../shared/slate/flags";
-import type { Database } from "../db/client";
-import { deals, deliverables, sponsors } from "../db/schema/sponsors";
-import type { BoardFilter, BoardFlagSource } from "../slate/flags";
-
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import type { BoardFilter, BoardFlagSource } from "../seams/board-flags";
+import { datedOpenItems, episodesSponsoredBy, sponsorsWithLiveDeals } from "./board.repository";
 
 /**
  * "Sponsor item late" when an open item of a live deal is past its date, "Sponsor item due" when one
  * is due in the next seven days. The board is read by every role, so invoice and payment items (which
- * only fee roles see) never raise a flag. The board has no viewer's time zone here: today is UTC's date.
+ * only fee roles see) never raise a flag. Days are counted from UTC's date, not the viewer's.
  */
 const dueAndLate: BoardFlagSource = {
   name: "sponsors.items",
   async flagsFor(db, channelId, episodeIds) {
     const out = new Map<string, BoardFlag[]>();
     if (episodeIds.length === 0) return out;
-    const rows = await db
-      .select({ episodeId: deals.episodeId, company: sponsors.company, title: deliverables.title, status: deliverables.status, dueDate: deliverables.dueDate })
-      .from(deliverables)
-      .innerJoin(deals, eq(deals.id, deliverables.dealId))
-      .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
-      .where(
-        and(
-          eq(deliverables.channelId, channelId),
-          episodeIdIn(deals.episodeId, episodeIds),
-          ne(deals.state, "cancelled"),
-          notInArray(deliverables.status, ["approved", "done"]),
-          notInArray(deliverables.kind, [...moneyKinds]),
-          isNotNull(deliverables.dueDate),
-        ),
-      )
-      .orderBy(asc(deliverables.dueDate));
+    const rows = await datedOpenItems(db, channelId, episodeIds);
     const today = dateInZone(new Date(), "UTC");
     const late = new Map<string, string[]>();
     const due = new Map<string, string[]>();
@@ -62,23 +43,9 @@ const dueAndLate: BoardFlagSource = {
 export const sponsorFlagSources: BoardFlagSource[] = [dueAndLate];
 
 /** The board's sponsor filter: the channel's sponsors with a live deal, and the episodes each sponsors. */
-export const sponsorBoardFilter: BoardFilter | null = {
-  param: "sponsor",
-  async options(db: Database, channelId: string) {
-    const rows = await db
-      .selectDistinct({ value: sponsors.id, label: sponsors.company })
-      .from(sponsors)
-      .innerJoin(deals, eq(deals.sponsorId, sponsors.id))
-      .where(and(eq(sponsors.channelId, channelId), ne(deals.state, "cancelled")))
-      .orderBy(asc(sponsors.company));
-    return rows;
-  },
-  async episodeIds(db: Database, channelId: string, value: string) {
-    if (!uuidPattern.test(value)) return new Set<string>();
-    const rows = await db
-      .select({ episodeId: deals.episodeId })
-      .from(deals)
-      .where(and(eq(deals.channelId, channelId), eq(deals.sponsorId, value), ne(deals.state, "cancelled")));
-    return new Set(rows.map((r) => r.episodeId));
+export const sponsorBoardFilter: BoardFilter = {
+  options: sponsorsWithLiveDeals,
+  async episodeIds(db, channelId, value) {
+    return isUuid(value) ? episodesSponsoredBy(db, channelId, value) : new Set<string>();
   },
 };

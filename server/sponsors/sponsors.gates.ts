@@ -1,21 +1,11 @@
-import { and, asc, eq, inArray, ne } from "drizzle-orm";
 import { daysBetween } from "../../shared/sponsors/dates";
 import { deliverableStatusLabels, isSettled } from "../../shared/sponsors/deliverables";
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import type { GateProblem } from "../../shared/slate/gates";
-import { episodes } from "../db/schema/slate";
-import { deals, deliverables, sponsors } from "../db/schema/sponsors";
-import { entersStageForward, type GateContext, type StageGate } from "../slate/gates";
+import { entersStageForward, type GateContext, type StageGate } from "../seams/stage-gates";
+import { itemsOfDeals, liveDealsOfEpisode } from "./deals.repository";
 
-async function liveDeals(context: GateContext) {
-  return context.db
-    .select({ id: deals.id, company: sponsors.company, script: deals.script, descriptionCopy: deals.descriptionCopy, disclosureText: deals.disclosureText, publishDate: episodes.targetPublishDate })
-    .from(deals)
-    .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .where(and(eq(deals.channelId, context.channelId), eq(deals.episodeId, context.episodeId), ne(deals.state, "cancelled")))
-    .orderBy(asc(deals.createdAt));
-}
+const liveDeals = (context: GateContext) => liveDealsOfEpisode(context.db, context.channelId, context.episodeId);
 
 /**
  * Entering publish with a sponsor item still open that was due before the video goes out: every item
@@ -27,11 +17,7 @@ const unapprovedItems: StageGate = {
   async check(context) {
     const found = await liveDeals(context);
     if (found.length === 0) return [];
-    const items = await context.db
-      .select({ dealId: deliverables.dealId, title: deliverables.title, status: deliverables.status, anchor: deliverables.anchor, dueDate: deliverables.dueDate })
-      .from(deliverables)
-      .where(and(eq(deliverables.channelId, context.channelId), inArray(deliverables.dealId, found.map((d) => d.id))))
-      .orderBy(asc(deliverables.position));
+    const items = await itemsOfDeals(context.db, context.channelId, found.map((d) => d.id));
     const problems: GateProblem[] = [];
     for (const deal of found) {
       for (const item of items.filter((i) => i.dealId === deal.id)) {

@@ -160,11 +160,3 @@ export async function saveSpeakingRate(db: Database, channelId: string, userId: 
     .values({ channelId, userId, wordsPerMinute })
     .onConflictDoUpdate({ target: [speakingRates.channelId, speakingRates.userId], set: { wordsPerMinute } });
 }
-
-export async function isMember(db: Database, channelId: string, userId: string): Promise<boolean> {
-  const [row] = await db
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)));
-  return row !== undefined;
-}

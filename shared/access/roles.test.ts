@@ -20,4 +20,19 @@ describe("role grants", () => {
   it("lets everyone write comments", () => {
     expect(rolesAllowed("comments", "W")).toEqual(["owner", "producer", "editor", "crew"]);
   });
+
+  it("lets the editor deliver the cut but not run the other deliverables (spec: deliverables, editor \"R (W on the cut items they deliver)\")", () => {
+    expect(rolesAllowed("cut", "W")).toEqual(["owner", "producer", "editor"]);
+    expect(rolesAllowed("deliverables", "W")).toEqual(["owner", "producer"]);
+    expect(roleMay("crew", "cut", "R")).toBe(true);
+  });
+
+  it("lets crew upload and log footage but not delete it (spec: footage, crew \"W (upload and log; no delete)\")", () => {
+    expect(rolesAllowed("footage", "W")).toEqual(["owner", "producer", "editor", "crew"]);
+    expect(rolesAllowed("footageRemoval", "W")).toEqual(["owner", "producer", "editor"]);
+  });
+
+  it("gives every role that writes deliverables the cut too, so the cut's grant is the wider of the two", () => {
+    for (const role of rolesAllowed("deliverables", "W")) expect(roleMay(role, "cut", "W")).toBe(true);
+  });
 });

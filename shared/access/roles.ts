@@ -13,9 +13,11 @@ export const areas = [
   "bench",
   "shoot",
   "footage",
+  "footageRemoval",
   "sponsors",
   "fees",
   "deliverables",
+  "cut",
   "publish",
 ] as const;
 export type Area = (typeof areas)[number];
@@ -30,10 +32,15 @@ export const grants: Record<Area, Record<Role, Grant>> = {
   testPlan: { owner: "W", producer: "W", editor: "R", crew: "R" },
   bench: { owner: "W", producer: "W", editor: "R", crew: "W" },
   shoot: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  // Crew upload and log footage; deleting it is the other roles' (the spec: "upload and log; no delete").
   footage: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  footageRemoval: { owner: "W", producer: "W", editor: "W", crew: "-" },
   sponsors: { owner: "W", producer: "W", editor: "R", crew: "R" },
   fees: { owner: "W", producer: "W", editor: "-", crew: "-" },
   deliverables: { owner: "W", producer: "W", editor: "R", crew: "R" },
+  // The cut of a deal's segment: the editor delivers it (the spec: deliverables "W on the cut items they
+  // deliver"), so they set the deal's cut and move the cut items along; everyone with deliverables W may too.
+  cut: { owner: "W", producer: "W", editor: "W", crew: "R" },
   publish: { owner: "W", producer: "W", editor: "W", crew: "R" },
 };
 

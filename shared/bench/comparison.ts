@@ -1,11 +1,9 @@
 import type { MetricName, PlanVerdict } from "./criteria";
-import { csvNumber, safeText, toCsv } from "./csv";
 import { type Figure, isQuantity } from "./figures";
-import { describeCriterion, metricLabels, outcomeLabel } from "./format";
+import { metricLabels, preciseNumber } from "./format";
 import { lipoPack } from "./packs";
 import { RATIO_UNIT, UnitError, valueIn } from "./quantity";
-import type { CriterionView, RunEvaluation, RunView, Supply } from "./schemas";
-import { isOverRated } from "./runs";
+import type { RunEvaluation, Supply } from "./schemas";
 
 /** The figures the comparison table and the CSV show, each in one unit so runs line up. */
 export const comparisonColumns = [
@@ -90,48 +88,7 @@ export function bestRun<T extends Comparable>(runs: readonly T[]): T | null {
 
 export function describeSupply(supply: Supply | null): string {
   if (!supply) return "";
-  if (supply.kind === "bench") return `bench supply ${csvNumber(valueIn(supply.voltage, "V"))} V`;
+  if (supply.kind === "bench") return `bench supply ${preciseNumber(valueIn(supply.voltage, "V"))} V`;
   const pack = lipoPack(supply.cells);
   return `${pack.label} LiPo (${pack.nominal.value} V nominal, ${pack.full.value} V full)`;
-}
-
-const verdictWords: Record<PlanVerdict, string> = { pass: "pass", fail: "fail", incomplete: "incomplete" };
-
-/** Every run of an episode as CSV (RFC 4180), one row per run, figures in the column's unit. */
-export function runsCsv(runs: readonly RunView[], criteria: readonly CriterionView[]): string {
-  const header = [
-    "run",
-    "configuration",
-    "parts",
-    "supply",
-    ...comparisonColumns.map((column) => columnHeading(column.key)),
-    "highest supply voltage (V)",
-    "over-rated",
-    ...criteria.map((c, index) => `criterion ${index + 1}: ${describeCriterion(c)}${c.required ? " (required)" : " (informative)"}`),
-    "verdict",
-    "notes",
-  ];
-  const rows = runs.map((run) => {
-    const outcomes = new Map(run.evaluation.results.map((result) => [result.criterionId, result.outcome]));
-    const supplyVolts = run.evaluation.supplyVoltage ? csvNumber(valueIn(run.evaluation.supplyVoltage, "V")) : "";
-    return [
-      String(run.number),
-      safeText(run.label),
-      safeText(run.parts.map((part) => `${part.count} × ${part.name}`).join("; ")),
-      describeSupply(run.supply),
-      ...comparisonColumns.map((column) => {
-        const value = figureIn(run.evaluation.values[column.key], column.unit);
-        return value === null ? "" : csvNumber(value);
-      }),
-      supplyVolts,
-      isOverRated(run.evaluation) ? "yes" : "no",
-      ...criteria.map((c) => {
-        const outcome = outcomes.get(c.id);
-        return outcome ? outcomeLabel(outcome) : "";
-      }),
-      verdictWords[run.evaluation.verdict],
-      safeText(run.notes),
-    ];
-  });
-  return toCsv([header, ...rows]);
 }

@@ -72,7 +72,8 @@ describe("thrust-to-weight of the craft", () => {
   });
 
   it("is dimensionless, with g_n cancelling when both are in gram units", () => {
-    // check-values: thrust-to-weight with both in gram units is dimensionless (g_n cancels).
+    // A gram-force is the weight of a gram under standard gravity g_n (3rd CGPM, 1901; NIST SP 811 (2008),
+    // Appendix B.8, kilogram-force = 9.80665 N), so with both in gram units g_n cancels (own derivation).
     // 2000 gf over 1000 g = 2.
     expectQuantity(thrustToWeight(q(2000, "gf"), q(1000, "g")), 2, "1");
     // g_n = 9.80665 m/s² (3rd CGPM, 1901; NIST SP 811): 1 kg weighs 9.80665 N, so 19.6133 N over 1 kg = 2.

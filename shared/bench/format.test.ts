@@ -1,9 +1,18 @@
 import { describe, expect, it } from "vitest";
 import { criterionSchema, metricUnit } from "./criteria";
-import { describeCriterion, formatFigure, formatNumber, outcomeLabel, unitsForMetric } from "./format";
+import { describeCriterion, formatFigure, formatNumber, outcomeLabel, preciseNumber, unitsForMetric } from "./format";
 import { areCompatible } from "./quantity";
 
 const q = (value: number, unit: string) => ({ value, unit });
+
+describe("numbers for files", () => {
+  it("writes numbers without float noise", () => {
+    // Own derivation: 3 × 3.7 is 11.100000000000001 in binary floating point; the pack is 11.1 V.
+    expect(preciseNumber(3 * 3.7)).toBe("11.1");
+    expect(preciseNumber(0.1 + 0.2)).toBe("0.3");
+    expect(preciseNumber(1 / 3)).toBe("0.333333333333");
+  });
+});
 
 describe("numbers and figures for people", () => {
   it("shows about three significant figures without float noise", () => {

@@ -18,6 +18,11 @@ export const metricLabels: Record<MetricName, string> = {
 
 export const verdictLabels: Record<PlanVerdict, string> = { pass: "Meets the plan", fail: "Misses the plan", incomplete: "Not decided yet" };
 
+/** A number without float noise (11.100000000000001 → 11.1); twelve significant figures are far beyond any bench reading. */
+export function preciseNumber(value: number): string {
+  return String(Number(value.toPrecision(12)));
+}
+
 /**
  * A readable number: about three significant figures, enough for a bench scale or meter, and
  * never the float noise of 11.100000000000001.

@@ -4,7 +4,8 @@ import { metadataFromProbe, probeDate } from "./media";
 
 describe("reading a probe's tracks", () => {
   it("when a 29.97 clip carries a drop-frame timecode track, then Kerf keeps rate, drop-frame and the first frame", () => {
-    // The shape mediainfo.js 0.3.8 gives for a QuickTime file with a timecode track (shared/stack/fakes.md).
+    // The track fields mediainfo.js 0.3.8 gives (format "object") for a QuickTime file with a timecode track,
+    // as tests/api/rushes-media.test.ts reads them from the real fixture A001_C001.mov.
     const metadata = metadataFromProbe([
       { "@type": "General", Format: "MPEG-4", Duration: "12.012", Encoded_Date: "2026-11-20 10:15:00 UTC" },
       { "@type": "Video", Format: "AVC", FrameRate_Num: 30000, FrameRate_Den: 1001, FrameRate: "29.970", Width: 1920, Height: 1080 },

@@ -104,7 +104,7 @@ export type CommentInput = z.infer<typeof commentSchema>;
 
 /** The board's filters, as they appear in the page's URL and the API's query string. */
 export const boardFiltersSchema = z.object({
-  owner: z.union([z.literal("none"), z.uuid()], { error: "Pick a member, or none." }).optional(),
+  owner: z.union([z.literal("none"), z.uuid({ error: "Pick a member, or none." })], { error: "Pick a member, or none." }).optional(),
   tag: z.string().max(24).optional(),
   sponsor: z.string().max(100).optional(),
   risk: z.literal("1").optional(),
@@ -126,6 +126,15 @@ export const episodeSummarySchema = z.object({
   archivedAt: z.string().nullable(),
 });
 export type EpisodeSummary = z.infer<typeof episodeSummarySchema>;
+
+/**
+ * `GET /api/channels/:channelId/episode-titles`: every episode that is not archived, by title, with
+ * no more than a picker needs (the footage filter, and any other list of episodes to choose from).
+ */
+export const episodeTitlesResponseSchema = z.object({
+  episodes: z.array(z.object({ id: z.string(), title: z.string(), stage: z.enum(stages) })),
+});
+export type EpisodeTitles = z.infer<typeof episodeTitlesResponseSchema>;
 
 /**
  * A card on the board: what matters at a glance, and no more (a board may hold thousands). The

@@ -16,15 +16,11 @@ import {
 const words = (n: number) => Array.from({ length: n }, (_, i) => `word${i}`).join(" ");
 
 describe("read time", () => {
-  it("defaults to about 150 words a minute", () => {
-    // National Center for Voice and Speech (as cited for conversational US English): about 150 wpm.
-    expect(DEFAULT_WORDS_PER_MINUTE).toBe(150);
-  });
-
-  it("reads 750 words in 5:00 at 150 words a minute", () => {
-    // Worked example from the speaking-rate figure above: 750 ÷ 150 = 5 minutes = 300 s.
-    expect(readSeconds(750, 150)).toBe(300);
-    expect(formatSeconds(readSeconds(750, 150))).toBe("5:00");
+  it("reads 750 words in 5:00 for a host with no rate of their own", () => {
+    // About 150 words a minute for conversational US English (the National Center for Voice and Speech's
+    // figure, as widely cited; from memory): 750 ÷ 150 = 5 minutes = 300 s.
+    expect(readSeconds(750, DEFAULT_WORDS_PER_MINUTE)).toBe(300);
+    expect(formatSeconds(readSeconds(750, DEFAULT_WORDS_PER_MINUTE))).toBe("5:00");
   });
 
   it("scales with the host's own rate", () => {
@@ -111,8 +107,8 @@ describe("link and code presence", () => {
 
 describe("the segment's measured length in the cut", () => {
   it("takes real time from drop-frame timecode", () => {
-    // check-values.md (SMPTE ST 12-1 as restated by OpenTimelineIO's tests): at 29.97 DF, frame 1800
-    // is labelled 00:01:00;02. 1800 frames × 1001 / 30000 s = 60.06 s.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: at 29.97 DF, frame
+    // 30 × 59 + 30 = 1800 is labelled 00:01:00;02. 1800 frames × 1001 / 30000 s = 60.06 s.
     expect(measuredSeconds("00:00:00;00", "00:01:00;02", { rate: frameRates["29.97"], dropFrame: true })).toBeCloseTo(60.06, 9);
   });
 

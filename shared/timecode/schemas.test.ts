@@ -6,7 +6,8 @@ const dropFrame2997 = { rate: frameRates["29.97"], dropFrame: true };
 
 describe("timecode in request schemas", () => {
   it("when a mark lands on a label drop-frame skips, then the request is refused with the reason", () => {
-    // check-values.md: at 29.97 DF the labels ;00 and ;01 are skipped at the start of minute 1.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: 00:00:59;29 is followed by
+    // 00:01:00;02, so at 29.97 DF the labels ;00 and ;01 are skipped at the start of minute 1.
     const result = timecodeAt(dropFrame2997).safeParse("00:01:00;00");
     expect(result.success).toBe(false);
     expect(result.error?.issues[0]?.message).toMatch(/^00:01:00;00 does not exist in 29.97 fps drop-frame/);
@@ -46,7 +47,8 @@ describe("frame rates", () => {
   });
 
   it("allows drop-frame only at 29.97 and 59.94", () => {
-    // check-values.md: 23.976 has no drop-frame form; drop-frame is 29.97 and 59.94.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_timecode_ntsc_2997fps: drop-frame at 24000/1001 is refused;
+    // smpte-timecode 1.3.6, test/smpte-timecode-test.js, "drop-frame only for 29.97 and 59.94".
     expect(timecodeFormatSchema.safeParse({ rate: frameRates["59.94"], dropFrame: true }).success).toBe(true);
     const result = timecodeFormatSchema.safeParse({ rate: frameRates["23.976"], dropFrame: true });
     expect(result.error?.issues[0]).toMatchObject({ path: ["dropFrame"], message: "Drop-frame exists only at 29.97 and 59.94 fps" });

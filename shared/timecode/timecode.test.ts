@@ -13,7 +13,9 @@ function expectBothWays(format: TimecodeFormat, frame: number, label: string) {
 // Kerf counts frames from 0, as do the sources below.
 describe("29.97 fps drop-frame", () => {
   it("counts 17,982 frames per ten minutes and 107,892 per hour", () => {
-    // check-values.md, Timecode (SMPTE ST 12-1 as restated by open-source libraries).
+    // OpenTimelineIO, tests/test_opentime.py: TestTime.test_dropframe_timecode_2997fps (30 × 59 + 30 = 1800 is 00:01:00;02) and
+    // TestTime.test_timecode_2997 (17982 is 00:10:00;00). smpte-timecode 1.3.6, test/smpte-timecode-test.js,
+    // "drop-frame counts": 10:00:00;00 is frame 1,078,920; an hour is a tenth of that, 107,892 (own derivation).
     expectBothWays(df("29.97"), 1800, "00:01:00;02");
     expectBothWays(df("29.97"), 17982, "00:10:00;00");
     expectBothWays(df("29.97"), 107892, "01:00:00;00");
@@ -58,7 +60,8 @@ describe("29.97 fps drop-frame", () => {
   });
 
   it("rejects the labels drop-frame skips, with a message that says why", () => {
-    // check-values.md: ;00 and ;01 are skipped at the start of every minute except minutes divisible by ten.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps ("we drop 2 frames per minute
+    // except every 10th", and its roll-overs): ;00 and ;01 are skipped at every minute but each tenth.
     expect(() => parseTimecode("00:01:00;00", df("29.97"))).toThrow(
       "00:01:00;00 does not exist in 29.97 fps drop-frame: labels ;00 and ;01 are skipped at the start of every minute except each tenth minute",
     );
@@ -71,7 +74,9 @@ describe("29.97 fps drop-frame", () => {
 
 describe("59.94 fps", () => {
   it("drop-frame skips four labels in the same minutes", () => {
-    // check-values.md: 59.94 DF skips ;00–;03 (the software convention).
+    // smpte-timecode 1.3.6, test/smpte-timecode-test.js, "drop-frame counts": at 59.94 DF 00:02:00;00 and
+    // 00:02:00;02 are refused and 00:02:00;04 accepted. Four labels a minute is the software convention
+    // (SMPTE ST 12-1's own text is not public).
     for (const label of ["00:01:00;00", "00:01:00;01", "00:01:00;02", "00:01:00;03"]) {
       expect(checkTimecode(label, df("59.94"))).toMatchObject({ ok: false, code: "skipped_label" });
     }
@@ -84,7 +89,9 @@ describe("59.94 fps", () => {
   it("matches OpenTimelineIO's worked example", () => {
     // OpenTimelineIO, tests/test_opentime.py, TestTime.test_timecode_infer_drop_frame: 1084319 at 59.94 DF.
     expectBothWays(df("59.94"), 1084319, "05:01:30;03");
-    // Same test, 60000/1001 counted without drops: OTIO prints the digits 05:01:11 and 59.
+    // Non-drop-frame at 60000/1001, own derivation: 1,084,319 = 18,071 × 60 + 59 and 18,071 s = 5 h 1 min 11 s.
+    // smpte-timecode 1.3.6 gives the same label. (That OpenTimelineIO test expects "05:01:11;59" here:
+    // the same digits, written with ';' though no label is skipped; Kerf writes non-drop-frame with ':'.)
     expectBothWays(ndf("59.94"), 1084319, "05:01:11:59");
   });
 });
@@ -101,7 +108,8 @@ describe("whole-number rates and 23.976", () => {
   });
 
   it("labels 23.976 like 24", () => {
-    // check-values.md: 23.976 frame 86400 = 01:00:00:00; OpenTimelineIO test_timecode_23976_fps agrees.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_timecode_23976_fps ("should behave exactly like 24 fps"):
+    // 24 × 60 × 60 = 86,400 is 01:00:00:00 and 24 × 60 × 60 × 24 − 1 is 23:59:59:23.
     expectBothWays(ndf("23.976"), 86400, "01:00:00:00");
     expectBothWays(ndf("23.976"), 24 * 60 * 60 * 24 - 1, "23:59:59:23");
   });
@@ -128,7 +136,7 @@ describe("labels that do not belong to the clip", () => {
     // OpenTimelineIO, tests/test_opentime.py, TestTime.test_faulty_formatted_timecode_24: 01:00:13;23 at 24.
     expect(checkTimecode("01:00:13;23", ndf("24"))).toMatchObject({ ok: false, code: "wrong_separator" });
     expect(checkTimecode("01:00:13;23", { rate: frameRates["24"], dropFrame: true })).toMatchObject({ ok: false, code: "unsupported_format" });
-    // check-values.md: 23.976 has no drop-frame form.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_timecode_ntsc_2997fps: drop-frame at 24000/1001 is refused.
     expect(checkTimecode("00:00:00;00", { rate: frameRates["23.976"], dropFrame: true })).toMatchObject({ ok: false, code: "unsupported_format" });
   });
 
@@ -140,7 +148,8 @@ describe("labels that do not belong to the clip", () => {
   });
 
   it("rejects a separator that does not match the clip's form", () => {
-    // check-values.md: drop-frame is written with ';' before the frames, non-drop-frame with ':'.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_timecode_2997: frame 17982 is 00:09:59:12 without drops and
+    // 00:10:00;00 with them: ';' before the frames marks drop-frame, ':' non-drop-frame.
     expect(checkTimecode("00:10:00:00", df("29.97"))).toMatchObject({ ok: false, code: "wrong_separator" });
     expect(checkTimecode("00:10:00;00", ndf("29.97"))).toMatchObject({ ok: false, code: "wrong_separator" });
   });
@@ -172,8 +181,8 @@ describe("durations", () => {
   });
 
   it("counts real frames across skipped labels", () => {
-    // check-values.md: 00:01:00;02 is frame 1800; OpenTimelineIO test_dropframe_timecode_2997fps: 00:00:59;29 is
-    // frame 1799. So the two labels are one frame apart.
+    // OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: 00:00:59;29 is frame
+    // 30 × 59 + 29 = 1799 and 00:01:00;02 is frame 1800. So the two labels are one frame apart.
     expect(durationFrames("00:00:59;29", "00:01:00;02", df("29.97"))).toBe(1);
   });
 

@@ -7,6 +7,8 @@ import {
   labelsPerSecond,
 } from "./rates";
 
+// Hand-written: smpte-timecode throws a plain Error on a bad label, where a form needs to say what is
+// wrong with it (the codes below); it stays as the tests' reference library only (a devDependency).
 // Kerf counts frames from 0: frame 0 of a clip is labelled 00:00:00:00 (some libraries count from 1).
 // Labels run 00:00:00:00 to 23:59:59:FF, the 24-hour range of SMPTE ST 12-1 (from memory: the
 // standard's text is not public).

@@ -41,6 +41,13 @@ describe("the bench demo", () => {
   it("has three build iterations, each with thrust-to-weight from the chosen run", async () => {
     const log = await buildLog(database.db, where.channelId, where.episodeId);
     expect(log.map((i) => i.number)).toEqual([1, 2, 3]);
-    expect(log.every((i) => typeof i.thrustToWeight === "object" && "value" in i.thrustToWeight)).toBe(true);
+    expect(log.map((i) => i.chosenRun?.label)).toEqual(Array(3).fill("Tarn with the 10-inch prop on 3S"));
+    // 760 gf from that run over each all-up mass: 640 g, 20.6 oz and 655 g. 1 oz = 28.349523125 g
+    // (NIST SP 811 (2008), Appendix B.8), so 20.6 oz = 584.0002 g; own arithmetic for the ratios.
+    expect(log.map((i) => i.thrustToWeight)).toEqual([
+      { value: expect.closeTo(760 / 640, 9), unit: "1" },
+      { value: expect.closeTo(760 / (20.6 * 28.349523125), 9), unit: "1" },
+      { value: expect.closeTo(760 / 655, 9), unit: "1" },
+    ]);
   });
 });

@@ -86,8 +86,9 @@ describe("ids that cannot name a row", () => {
   it("when an id is well formed but names nothing, then it answers 404", async () => {
     const { a } = await twoChannels();
     const agent = await app.signedIn(a.owner);
-    await agent.get(`/api/channels/${a.channel.id}/episodes/${randomUUID()}`).expect(404);
-    await agent.get(`/api/channels/${randomUUID()}/episodes`).expect(404);
+    const noEpisode = await agent.get(`/api/channels/${a.channel.id}/episodes/${randomUUID()}`).expect(404);
+    const noChannel = await agent.get(`/api/channels/${randomUUID()}/episodes`).expect(404);
+    expect([noEpisode.body.error.code, noChannel.body.error.code]).toEqual(["not_found", "not_found"]);
   });
 
   it("when an id is written in capitals, then it names the same episode", async () => {

@@ -3,17 +3,14 @@ import { startMailCatcher, type MailCatcher } from "../../dev-services/mail";
 import { freePort } from "../../dev-services/processes";
 import { createChannel, createUser } from "../factories/accounts";
 import { uniqueEmail } from "../factories/invitations";
+import { mailJobsTo, waitForJobStates } from "../support/jobs";
+import { mailTo, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp } from "../support/test-app";
 
 let smtpPort: number;
 let webPort: number;
 let mail: MailCatcher | null = null;
 let app: TestApp;
-
-async function inbox(address: string): Promise<unknown[]> {
-  const all = (await (await fetch(`${mail!.webUrl}/api/email`)).json()) as { to: { address: string }[] }[];
-  return all.filter((m) => m.to.some((t) => t.address === address));
-}
 
 beforeAll(async () => {
   smtpPort = await freePort();
@@ -34,17 +31,16 @@ describe("mail server stopped", () => {
 
     // No mail server listens on smtpPort yet: the request still succeeds, the mail waits in the queue.
     await agent.send("post", `/api/channels/${channel.id}/invitations`, { email: invitee, role: "crew" }).expect(201);
-    const queued = await app.database.pool.query("select count(*)::int as n from pgboss.job where name = 'mail' and state <> 'completed'");
-    expect(queued.rows[0].n).toBeGreaterThanOrEqual(1);
-    await new Promise((r) => setTimeout(r, 1_500));
+    const queued = (await mailJobsTo(app.database.pool, invitee)).map((job) => job.id);
+    expect(queued).toHaveLength(1);
+    // A worker has tried to send it: pg-boss records the failure and schedules a retry.
+    expect(await waitForJobStates(app.database.pool, queued, ["retry"])).toEqual(["retry"]);
 
     mail = await startMailCatcher({ smtpPort, webPort });
-    const deadline = Date.now() + 45_000;
-    while ((await inbox(invitee)).length === 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 500));
-    expect(await inbox(invitee)).toHaveLength(1);
+    await waitForMail(invitee, { webUrl: mail.webUrl, timeoutMs: 45_000 });
 
-    // A later retry or a second worker must not send it again.
-    await new Promise((r) => setTimeout(r, 3_000));
-    expect(await inbox(invitee)).toHaveLength(1);
+    // Once the job has finished, no later retry or second worker can send it again.
+    expect(await waitForJobStates(app.database.pool, queued)).toEqual(["completed"]);
+    expect(await mailTo(invitee, mail.webUrl)).toHaveLength(1);
   }, 75_000);
 });

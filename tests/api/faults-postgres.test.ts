@@ -34,11 +34,7 @@ describe("PostgreSQL restarted under a running server", () => {
     cluster.start();
     // The pool drops its dead connections on first use; the same session is still valid.
     let after = await agent.get(episodesPath);
-    for (let tries = 0; after.status !== 200 && tries < 20; tries++) {
-      await new Promise((r) => setTimeout(r, 250));
-      after = await agent.get(episodesPath);
-    }
-    expect(after.status).toBe(200);
+    await expect.poll(async () => (after = await agent.get(episodesPath)).status, { timeout: 5_000, interval: 250 }).toBe(200);
     expect(after.body.episodes.map((e: { title: string }) => e.title)).toEqual(["Survives the outage"]);
     await agent.get("/api/health").expect(200);
   }, 60_000);

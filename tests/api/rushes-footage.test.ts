@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { parseCsv } from "../../shared/rushes/exports/csv";
+import { parse as parseCsv } from "csv-parse/sync";
 import { parseEdl } from "../../shared/rushes/exports/edl";
 import { createEpisode } from "../factories/episodes";
 import { createClip, createShootDay, createShot } from "../factories/rushes";
@@ -73,7 +73,8 @@ describe("logging and marks", () => {
     const clip = await createClip(app.db, world.channel.id, world.episode.id, { durationMs: 120_000 });
     const url = `${world.base}/clips/${clip.id}/marks`;
     const mark = await world.as.crew.send("post", url, { in: "01:00:59;29", out: "01:01:00;02", note: "the moment the fin snaps" }).expect(201);
-    // 29.97 DF: 01:00:59;29 is followed by 01:01:00;02 (check-values.md), so this mark is one frame long.
+    // 29.97 DF: 01:00:59;29 is followed by 01:01:00;02 (OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps:
+    // ;00 and ;01 are skipped at each minute but every tenth), so this mark is one frame long.
     expect(mark.body.mark).toMatchObject({ in: "01:00:59;29", out: "01:01:00;02", note: "the moment the fin snaps" });
     expect(mark.body.mark.outFrame - mark.body.mark.inFrame).toBe(1);
     const detail = await world.as.editor.get(`${world.base}/clips/${clip.id}`).expect(200);
@@ -184,7 +185,8 @@ describe("the footage list", () => {
     const outsider = await createUser(app.db);
     await createChannel(app.db, outsider, "Elsewhere");
     const agent = await app.signedIn(outsider);
-    await agent.get(`${world.base}/clips`).expect(404);
+    const refused = await agent.get(`${world.base}/clips`).expect(404);
+    expect(refused.body).toEqual({ error: expect.objectContaining({ code: "not_found" }) });
   });
 });
 
@@ -205,7 +207,7 @@ describe("exports of the current filter", () => {
     expect(response.headers["content-type"]).toMatch(/^text\/csv/);
     expect(response.headers["content-disposition"]).toMatch(/^attachment; filename="footage-\d{4}-\d{2}-\d{2}\.csv"/);
     expect(response.text.endsWith("\r\n")).toBe(true);
-    const records = parseCsv(response.text);
+    const records: string[][] = parseCsv(response.text, { record_delimiter: "\r\n" });
     expect(records[0]!.slice(0, 3)).toEqual(["file_name", "episode", "shoot_day"]);
     expect(records).toHaveLength(4);
     expect(records[1]![0]).toBe('Relay "bank", take 2.mov');
@@ -241,7 +243,8 @@ describe("exports of the current filter", () => {
     expect(first.OTIO_SCHEMA).toBe("Clip.2");
     expect(first.active_media_reference_key).toBe("DEFAULT_MEDIA");
     expect(first.media_references.DEFAULT_MEDIA).toMatchObject({ OTIO_SCHEMA: "ExternalReference.1", target_url: 'Relay "bank", take 2.mov' });
-    // 01:00:01;00 at 29.97 DF is frame 107,922 (1 hour = 107,892 frames, check-values.md, plus 30).
+    // 01:00:01;00 at 29.97 DF is frame 107,922: an hour is 107,892 frames (a tenth of 10:00:00;00 = 1,078,920 in
+    // smpte-timecode 1.3.6, test/smpte-timecode-test.js, "drop-frame counts"), plus 30.
     expect(first.source_range.start_time).toEqual({ OTIO_SCHEMA: "RationalTime.1", value: 107_922, rate: 30000 / 1001 });
     expect(first.source_range.duration.value).toBe(60);
     expect(track.children).toHaveLength(3);

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { MiB } from "../../shared/rushes/limits";
 import type { Storage } from "../../server/storage/storage";
 import { startTestApp, type TestApp } from "../support/test-app";
@@ -43,6 +43,11 @@ beforeAll(async () => {
   world = await rushesWorld(app);
 });
 afterAll(() => app.close());
+// A test that fails while a switch is on must not leave storage "down" for the tests after it.
+afterEach(() => {
+  faults.down = false;
+  faults.refuseParts = false;
+});
 
 const count = async (table: string) => (await app.database.pool.query(`select count(*)::int as n from ${table}`)).rows[0].n as number;
 

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCrewedChannel, createUser } from "../factories/accounts";
+import { mailJobsTo, waitForQueueToSettle } from "../support/jobs";
 import { mailTo, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { newEpisode } from "./slate-support";
@@ -26,6 +27,9 @@ describe("comments with mentions", () => {
     expect(mail.text).toContain("Gantry Test Channel");
     expect(mail.text).toContain(`http://kerf.test/c/${channel.id}/episodes/${made.id}#activity`);
     await waitForMail(owner.email);
+    // The author: no mail was queued, and with every mail job finished, none arrived.
+    expect(await mailJobsTo(app.database.pool, crew.email)).toEqual([]);
+    await waitForQueueToSettle(app.database.pool);
     expect(await mailTo(crew.email)).toEqual([]);
 
     const listed = await (await app.signedIn(owner)).get(`/api/channels/${channel.id}/episodes/${made.id}/comments`).expect(200);
@@ -33,12 +37,17 @@ describe("comments with mentions", () => {
   });
 
   it("when a comment names someone outside the channel, then nobody outside is mailed", async () => {
-    const { channel, owner } = await createCrewedChannel(app.db);
+    const { channel, owner, editor } = await createCrewedChannel(app.db);
     const outsider = await createUser(app.db, { name: "Rafa Outside" });
     const made = await newEpisode(await app.signedIn(owner), channel.id);
-    const posted = await (await app.signedIn(owner)).send("post", `/api/channels/${channel.id}/episodes/${made.id}/comments`, { body: "@Rafa Outside, thoughts?" }).expect(201);
-    expect(posted.body.comment.mentions).toEqual([]);
-    await new Promise((r) => setTimeout(r, 1500));
+    const posted = await (await app.signedIn(owner))
+      .send("post", `/api/channels/${channel.id}/episodes/${made.id}/comments`, { body: "@Rafa Outside, thoughts? And @Edda Editor too." })
+      .expect(201);
+    expect(posted.body.comment.mentions).toEqual([{ id: editor.id, name: "Edda Editor" }]);
+    expect(await mailJobsTo(app.database.pool, outsider.email)).toEqual([]);
+    // The member named beside them is mailed; once that job has finished, nothing reached the outsider.
+    await waitForMail(editor.email);
+    await waitForQueueToSettle(app.database.pool);
     expect(await mailTo(outsider.email)).toEqual([]);
   });
 

@@ -160,11 +160,14 @@ describe("gates on forward moves", () => {
     const asked = await moveTo(agent, channel.id, card!, { stage: "build" }).expect(422);
     expect(asked.body.error.code).toBe("unprocessable");
     // The test-plan feature's gate: no hypothesis, no pass criterion.
-    expect(asked.body.problems).toEqual(expect.arrayContaining([expect.objectContaining({ code: expect.stringMatching(/^test_plan\./), message: expect.any(String) })]));
+    expect(asked.body.problems).toEqual([
+      { code: "test_plan.no_hypothesis", message: "The test plan has no hypothesis yet." },
+      { code: "test_plan.no_required_criterion", message: "The test plan has no required pass criterion yet." },
+    ]);
     expect((await rows(channel.id))[0]).toMatchObject({ stage: "test_plan", version: 1 });
 
     const tooShort = await moveTo(agent, channel.id, card!, { stage: "build", reason: " " }).expect(400);
-    expect(tooShort.body.error.fields).toHaveProperty("reason");
+    expect(tooShort.body.error.fields).toEqual({ reason: "Say in a few words why it moves on anyway." });
 
     await moveTo(agent, channel.id, card!, { stage: "build", reason: "Parts arrive Monday; the plan follows." }).expect(200);
     const [moved] = await historyRows(card!.id);

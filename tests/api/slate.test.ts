@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { addMember, createCrewedChannel, createUser } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createDeal, createSponsor } from "../factories/sponsors";
+import { episodeTitlesResponseSchema } from "../../shared/slate/schemas";
 import { shiftDate } from "../../shared/sponsors/dates";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { board, cardOf, column, fields, newEpisode } from "./slate-support";
@@ -154,7 +155,7 @@ describe("the board", () => {
     expect(await titles("?risk=1")).toEqual(["Late one"]);
     expect(await titles("?sponsor=nobody")).toEqual([]);
     const bad = await agent.get(`/api/channels/${channel.id}/episodes?owner=someone`).expect(400);
-    expect(bad.body.error.fields).toHaveProperty("owner");
+    expect(bad.body.error.fields).toEqual({ owner: "Pick a member, or none." });
   });
 
   it("when a card is late, then it says so with its days in stage and due date", async () => {
@@ -241,6 +242,25 @@ describe("the board", () => {
     const people = await (await app.signedIn(crew)).get(`/api/channels/${channel.id}/slate/people`).expect(200);
     expect(people.body.people.map((p: { name: string }) => p.name)).toEqual(["Cato Crew", "Edda Editor", "Olive Owner", "Pim Producer", "Zed Extra"]);
     expect(Object.keys(people.body.people[0]).sort()).toEqual(["id", "name"]);
+  });
+});
+
+describe("the episode titles", () => {
+  it("when a member asks for them, then every episode that isn't archived comes by title, with its stage, and no other channel's", async () => {
+    const { channel, crew } = await createCrewedChannel(app.db);
+    const other = await createCrewedChannel(app.db);
+    const bravo = await createEpisode(app.db, channel.id, { title: "Bravo rotor", stage: "build" });
+    const alpha = await createEpisode(app.db, channel.id, { title: "Alpha glider", stage: "publish" });
+    await createEpisode(app.db, channel.id, { title: "Archived kite", archivedAt: new Date() });
+    await createEpisode(app.db, other.channel.id, { title: "Another channel's episode" });
+    const agent = await app.signedIn(crew);
+    const response = await agent.get(`/api/channels/${channel.id}/episode-titles`).expect(200);
+    expect(episodeTitlesResponseSchema.parse(response.body)).toEqual({
+      episodes: [
+        { id: alpha.id, title: "Alpha glider", stage: "publish" },
+        { id: bravo.id, title: "Bravo rotor", stage: "build" },
+      ],
+    });
   });
 });
 

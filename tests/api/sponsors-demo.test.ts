@@ -4,7 +4,7 @@ import type { Role } from "../../shared/access/roles";
 import type { Stage } from "../../shared/slate/stages";
 import type { DeskView } from "../../shared/sponsors/schemas";
 import { seedSponsorsDemo } from "../../dev-services/demo/sponsors";
-import type { DemoContext } from "../../dev-services/demo/channel";
+import type { DemoContext } from "../../dev-services/demo/context";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { startTestApp, type TestApp } from "../support/test-app";

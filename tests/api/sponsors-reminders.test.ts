@@ -8,6 +8,8 @@ import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { createTestDatabase, type TestDatabase } from "../support/database";
+import { mailJobsTo, waitForJobStates } from "../support/jobs";
+import { mailTo, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp } from "../support/test-app";
 
 /*
@@ -20,14 +22,10 @@ let webPort: number;
 let mail: MailCatcher | null = null;
 const instances: { app: TestApp; handle: DatabaseHandle; deps: ReminderDeps }[] = [];
 
-async function inbox(address: string): Promise<{ subject: string; text: string }[]> {
-  const all = (await (await fetch(`${mail!.webUrl}/api/email`)).json()) as { subject: string; text: string; to: { address: string }[] }[];
-  return all.filter((m) => m.to.some((t) => t.address === address));
-}
+const inbox = (address: string) => mailTo(address, mail!.webUrl);
 
-async function waitForCount(address: string, count: number, timeoutMs: number) {
-  const deadline = Date.now() + timeoutMs;
-  while ((await inbox(address)).length < count && Date.now() < deadline) await new Promise((r) => setTimeout(r, 500));
+async function waitForCount(address: string, count: number) {
+  await waitForMail(address, { count, webUrl: mail!.webUrl, timeoutMs: 60_000 });
   return inbox(address);
 }
 
@@ -81,20 +79,24 @@ describe("deliverable reminders", () => {
     const queued = await database.pool.query("select count(*)::int as n from pgboss.job where name = 'mail'");
     expect(queued.rows[0].n).toBe(2);
 
-    // The scheduled path too: both instances' workers take scan jobs from pg-boss; nothing new is due.
+    // The scheduled path too: both instances' workers take scan jobs from pg-boss and finish them;
+    // nothing new is due, so no reminder is recorded twice.
     for (const { app, deps } of instances) await scheduleSponsorJobs(app.jobs.boss, deps, { pollSeconds: 0.5 });
-    for (const { app } of instances) await app.jobs.boss.send(REMINDER_QUEUE, {});
-    await new Promise((r) => setTimeout(r, 2_500));
+    const scans = await Promise.all(instances.map(({ app }) => app.jobs.boss.send(REMINDER_QUEUE, {})));
+    expect(await waitForJobStates(database.pool, scans.map((id) => id!))).toEqual(["completed", "completed"]);
     expect((await database.pool.query("select count(*)::int as n from reminders_sent")).rows[0].n).toBe(2);
 
     // The mail server comes up: the queued mail goes out on the next retry, once each.
     mail = await startMailCatcher({ smtpPort, webPort });
-    const arrived = await waitForCount(owner.email, 2, 60_000);
+    const arrived = await waitForCount(owner.email, 2);
     expect(arrived.map((m) => m.subject).sort()).toEqual(["Due soon: Due in two days (Alder Optics)", "Late: Was due yesterday (Alder Optics)"]);
     expect(arrived.find((m) => m.subject.startsWith("Late"))!.text).toContain("is 1 day late");
 
-    await Promise.all(instances.map(({ deps }) => scanReminders(deps)));
-    await new Promise((r) => setTimeout(r, 3_000));
+    // Another scan queues nothing, and once both mail jobs have finished no retry can send one again.
+    const rescans = await Promise.all(instances.map(({ deps }) => scanReminders(deps)));
+    expect(rescans.map((r) => r.sent)).toEqual([0, 0]);
+    const firstMails = (await mailJobsTo(database.pool, owner.email)).map((job) => job.id);
+    expect(await waitForJobStates(database.pool, firstMails)).toEqual(["completed", "completed"]);
     expect(await inbox(owner.email)).toHaveLength(2);
 
     // The mail server stops and starts again; a moved due date earns one fresh reminder, no repeats.
@@ -102,12 +104,15 @@ describe("deliverable reminders", () => {
     await database.pool.query("update deliverables set due_date = $2 where id = $1", [made.items[0]!.id, shiftDate(today, 1)]);
     const afterMove = await Promise.all(instances.map(({ deps }) => scanReminders(deps)));
     expect(afterMove.reduce((sum, r) => sum + r.sent, 0)).toBe(1);
-    await new Promise((r) => setTimeout(r, 1_500));
+    const freshMail = (await mailJobsTo(database.pool, owner.email)).map((job) => job.id).filter((id) => !firstMails.includes(id));
+    expect(freshMail).toHaveLength(1);
+    // A worker has tried it against the stopped server: pg-boss records the failure and a retry.
+    expect(await waitForJobStates(database.pool, freshMail, ["retry"])).toEqual(["retry"]);
     mail = await startMailCatcher({ smtpPort, webPort });
-    const fresh = await waitForCount(owner.email, 1, 60_000);
+    const fresh = await waitForCount(owner.email, 1);
     expect(fresh.map((m) => m.subject)).toEqual(["Due soon: Due in two days (Alder Optics)"]);
     expect(fresh[0]!.text).toContain(`is due in 1 day, on ${shiftDate(today, 1)}`);
-    await new Promise((r) => setTimeout(r, 3_000));
+    expect(await waitForJobStates(database.pool, freshMail)).toEqual(["completed"]);
     expect(await inbox(owner.email)).toHaveLength(1);
   }, 150_000);
 });

@@ -6,7 +6,8 @@ import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { uniqueEmail } from "../factories/invitations";
 import { createContact, createDeal, createSponsor } from "../factories/sponsors";
-import { linkIn, mailTo, waitForMail } from "../support/mailbox";
+import { mailJobsTo } from "../support/jobs";
+import { linkIn, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import type { DealView } from "../../shared/sponsors/schemas";
 
@@ -59,12 +60,14 @@ describe("sending a review link", () => {
     const sent = await sentLink();
     const invoice = sent.items.find((i) => i.kind === "invoice")!;
     const money = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: invoice.id, contactId: sent.contact.id }).expect(400);
-    expect(money.body.error.fields).toEqual({ deliverableId: expect.any(String) });
+    expect(money.body.error.fields).toEqual({ deliverableId: "Pick one of this deal's items for the sponsor to review." });
     const other = await createSponsor(app.db, world.channel.id);
     const stranger = await createContact(app.db, world.channel.id, other.id);
     const wrong = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: stranger.id }).expect(400);
     expect(wrong.body.error.fields).toEqual({ contactId: "Pick one of this sponsor's contacts." });
-    expect(await mailTo(stranger.email)).toHaveLength(0);
+    // A refused request queued no mail (mail is queued before the answer, so none can follow it).
+    expect(await mailJobsTo(app.database.pool, stranger.email)).toEqual([]);
+    expect(await mailJobsTo(app.database.pool, sent.contact.email)).toHaveLength(1);
   });
 
   it("when the editor or crew try to send one, then it is refused", async () => {
@@ -73,6 +76,9 @@ describe("sending a review link", () => {
       const agent = await app.signedIn(person);
       await agent.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: sent.contact.id }).expect(403);
     }
+    // Only the producer's own link exists, and only its mail was queued.
+    expect((await app.database.pool.query("select count(*)::int as n from review_links where deal_id = $1", [sent.deal.id])).rows[0].n).toBe(1);
+    expect(await mailJobsTo(app.database.pool, sent.contact.email)).toHaveLength(1);
   });
 });
 

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { gateProblems } from "../../server/slate/gates";
-import { externalFlags } from "../../server/slate/flags";
+import { slatePlugs } from "../../server/app";
+import { gateProblems } from "../../server/seams/stage-gates";
+import { collectFlags } from "../../server/seams/board-flags";
 import { followPublishDate } from "../../server/sponsors/schedule.service";
 import { shiftDate } from "../../shared/sponsors/dates";
 import type { DealView, DeskView } from "../../shared/sponsors/schemas";
@@ -107,7 +108,7 @@ describe("the publish gate", () => {
     const episode = await createEpisode(app.db, world.channel.id, { stage: "sponsor_read", targetPublishDate: "2027-09-30" });
     const sponsor = await createSponsor(app.db, world.channel.id, { company: "Gatewright" });
     await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, publishDate: "2027-09-30", statuses: { 0: "done", 1: "approved", 2: "approved" }, script: "Great tools, check them out." });
-    const problems = await gateProblems({ db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "sponsor_read", to: "publish" });
+    const problems = await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "sponsor_read", to: "publish" });
     expect(problems.map((p) => p.code).sort()).toEqual(["sponsors.no_disclosure_in_description", "sponsors.no_disclosure_in_segment", "sponsors.unapproved_item"].sort());
     expect(problems.find((p) => p.code === "sponsors.unapproved_item")!.message).toBe('Gatewright: "Sponsor\'s final approval" is not started, not approved or done.');
   });
@@ -122,18 +123,18 @@ describe("the publish gate", () => {
       script: "This segment is sponsored by Gatewright.",
       descriptionCopy: "#ad Gatewright sponsored this video: gatewright.example",
     });
-    expect(await gateProblems({ db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "edit", to: "publish" })).toEqual([]);
+    expect(await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "edit", to: "publish" })).toEqual([]);
   });
 
   it("when the move doesn't reach publish, goes backward, or the deal is cancelled, then the sponsor gates stay quiet", async () => {
     const episode = await createEpisode(app.db, world.channel.id, { stage: "edit", targetPublishDate: "2027-09-30" });
     const sponsor = await createSponsor(app.db, world.channel.id);
     await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, publishDate: "2027-09-30" });
-    expect(await gateProblems({ db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "edit", to: "sponsor_read" })).toEqual([]);
-    expect(await gateProblems({ db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "publish", to: "edit" })).toEqual([]);
+    expect(await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "edit", to: "sponsor_read" })).toEqual([]);
+    expect(await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "publish", to: "edit" })).toEqual([]);
     const unpaid = await createEpisode(app.db, world.channel.id, { stage: "sponsor_read" });
     await createDeal(app.db, world.channel.id, unpaid.id, { sponsorId: sponsor.id, state: "cancelled" });
-    const unpaidProblems = await gateProblems({ db: app.db, channelId: world.channel.id, episodeId: unpaid.id, from: "sponsor_read", to: "publish" });
+    const unpaidProblems = await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: unpaid.id, from: "sponsor_read", to: "publish" });
     expect(unpaidProblems.filter((p) => p.code.startsWith("sponsors."))).toEqual([]);
   });
 });
@@ -184,7 +185,7 @@ describe("the desk and the board", () => {
   });
 
   it("flags the episode card when an item is late or due soon, never for money items", async () => {
-    const flags = await externalFlags(app.db, channel.channel.id, [late.episodeId]);
+    const flags = await collectFlags(slatePlugs.boardFlags, app.db, channel.channel.id, [late.episodeId]);
     expect(flags[late.episodeId]!.map((f) => f.label)).toEqual(["Sponsor item late", "Sponsor item due"]);
     expect(flags[late.episodeId]![0]!.detail).not.toContain("Invoice");
   });

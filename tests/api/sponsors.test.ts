@@ -95,6 +95,8 @@ describe("sponsors and contacts", () => {
     const theirs = await createSponsor(app.db, elsewhere.channel.id);
     await as.producer.get(api(`/sponsors/${theirs.id}`)).expect(404);
     await as.producer.send("patch", api(`/sponsors/${theirs.id}`), { company: "Mine now", website: null, notes: null }).expect(404);
+    const kept = await app.database.pool.query("select company from sponsors where id = $1", [theirs.id]);
+    expect(kept.rows).toEqual([{ company: theirs.company }]);
   });
 });
 
@@ -270,7 +272,8 @@ describe("the read", () => {
     const episode = await createEpisode(app.db, world.channel.id);
     const sponsor = await createSponsor(app.db, world.channel.id);
     const made = await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id });
-    // 29.97 DF: frame 1800 is 00:01:00;02 (check-values.md, SMPTE ST 12-1); 1800 × 1001 / 30000 = 60.06 s.
+    // 29.97 DF: 00:10:00;00 to 00:11:00;02 is 1800 frames, as 00:00:00;00 to 00:01:00;02 is (OpenTimelineIO,
+    // tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: 30 × 59 + 30 = 1800); 1800 × 1001 / 30000 = 60.06 s.
     const set = await as.editor
       .send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: { inTimecode: "00:10:00;00", outTimecode: "00:11:00;02", frameRate: "29.97", dropFrame: true } })
       .expect(200);

@@ -59,7 +59,9 @@ test("an owner invites a crew member, who joins from the e-mailed link", async (
 
   const mail = await latestMailTo(crewEmail);
   const link = mail.text.match(/https?:\/\/\S+\/invite\/\S+/)?.[0];
-  expect(link).toBeTruthy();
+  // The link leads to this server's own invitation page.
+  expect(link, mail.text).toMatch(/\/invite\/\S+$/);
+  expect(new URL(link!).origin).toBe(new URL(page.url()).origin);
 
   const crewContext = await browser.newContext();
   const crew = await crewContext.newPage();

@@ -3,9 +3,9 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
-import { parseCsv } from "../../shared/rushes/exports/csv";
+import { parse as parseCsv } from "csv-parse/sync";
 import { parseEdl } from "../../shared/rushes/exports/edl";
-import { hostWithEpisode, snap } from "./support";
+import { hostWithEpisode, member, signInOn, snap } from "./support";
 
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
 const storage = process.env.KERF_TEST_S3_ENDPOINT ?? "http://127.0.0.1:4568";
@@ -22,12 +22,19 @@ function largeFile(): string {
 
 const upload = (page: Page, name: string) => page.getByRole("listitem", { name: `Upload of ${name}` });
 
-test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page }) => {
+test("an editor plans the shoot, uploads three files, pauses, reloads, marks and exports", async ({ page, browser }) => {
   test.setTimeout(240_000);
-  const { channelId, episodeId } = await hostWithEpisode(page, {
+  // The host sets up the channel and the episode in a browser of their own, and brings in an editor.
+  const hostContext = await browser.newContext();
+  const { channelId, episodeId } = await hostWithEpisode(await hostContext.newPage(), {
     host: { name: "Oda Tveit", channel: "Slipway Rocketry" },
     episode: { title: "Two-stage water rocket", question: "Does a second stage beat one bigger bottle?", origin: "idea", stage: "shoot" },
   });
+  await hostContext.close();
+  const editor = await member(channelId, "Ivar Moen", "editor");
+  // The editor does the rest, on the test's own page (its trace is kept when the journey fails).
+  await signInOn(page, editor.email);
+  await expect(page.getByText("Editor", { exact: true })).toBeVisible();
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
   await expect(page.getByRole("heading", { name: "Shoot and footage" })).toBeVisible();
 
@@ -147,7 +154,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name }).click()]);
     return readFileSync((await download.path())!, "utf8");
   };
-  const csv = parseCsv(await read(/^CSV$/));
+  const csv: string[][] = parseCsv(await read(/^CSV$/), { record_delimiter: "\r\n" });
   expect(csv).toHaveLength(2);
   expect(csv[1]!.slice(13, 16)).toEqual(["01:00:01;00", "01:00:02;15", "the upper stage lets go"]);
   const edl = parseEdl(await read(/EDL/));

@@ -1,24 +1,5 @@
-import { expect, test, type Browser, type Page } from "@playwright/test";
-import { hashPassword } from "../../server/auth/password";
-import { hostWithEpisode, latestMailTo, PASSWORD, snap, sql, uniqueEmail } from "./support";
-
-/** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
-async function member(channelId: string, name: string, role: "producer" | "editor") {
-  const email = uniqueEmail(role);
-  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, name, await hashPassword(PASSWORD)]);
-  await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
-  return { email, name };
-}
-
-async function signIn(browser: Browser, email: string): Promise<Page> {
-  const page = await (await browser.newContext()).newPage();
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
-  return page;
-}
+import { expect, test, type Page } from "@playwright/test";
+import { hostWithEpisode, latestMailTo, member, signIn, snap, uniqueEmail } from "./support";
 
 const dueOf = (page: Page, kind: string) => page.getByTestId(`item-${kind}`).getByTestId("due-date");
 
@@ -82,15 +63,9 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await snap(producer, "sponsors-04-deal-with-items");
 
   // The publish date moves on the slate's own form; the open items follow.
-  const edit = producer.getByRole("button", { name: "Edit details" });
-  if (await edit.count()) {
-    await edit.click();
-    await producer.getByLabel("Target publish date").fill("2027-04-05");
-    await producer.getByRole("button", { name: "Save changes" }).click();
-  } else {
-    await sql("update episodes set target_publish_date = '2027-04-05' where id = $1", [episodeId]);
-    await producer.reload();
-  }
+  await producer.getByRole("button", { name: "Edit details" }).click();
+  await producer.getByLabel("Target publish date").fill("2027-04-05");
+  await producer.getByRole("button", { name: "Save changes" }).click();
   // 5 April − 7 = 29 March; 5 April + 30 = 5 May.
   await expect(dueOf(producer, "draft_cut")).toHaveText("Mon 29 Mar 2027");
   await expect(dueOf(producer, "report")).toHaveText("Wed 5 May 2027");
@@ -102,6 +77,11 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await expect(deals.getByTestId("read-words")).toHaveText("25");
   await deals.getByRole("button", { name: "Save the read" }).click();
   await expect(deals.getByText("Saved.")).toBeVisible();
+  // Beside the read, where the disclosure is checked: the sources it follows, and that it is no legal advice.
+  const guidance = deals.getByRole("complementary", { name: "Disclosure guidance" });
+  await expect(guidance).toContainText("16 CFR Part 255");
+  await expect(guidance).toContainText("CAP Code");
+  await expect(guidance).toContainText("The law of the country where the video is seen governs");
   await deals.getByLabel("Item to review").selectOption({ label: "Sponsor approves the script" });
   await deals.getByRole("button", { name: "Send review link" }).click();
   await expect(deals.getByText(`Review link e-mailed to Rosa Lindgren <${contactEmail}>`)).toBeVisible();

@@ -1,6 +1,9 @@
 import path from "node:path";
-import { expect, type Page } from "@playwright/test";
+import { expect, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
+import { hashPassword } from "../../server/auth/password";
+import type { EpisodeRecord } from "../../shared/slate/schemas";
+import type { Stage } from "../../shared/slate/stages";
 
 const shots = path.resolve(import.meta.dirname, "../../.kerf/test-output/screenshots");
 
@@ -13,15 +16,26 @@ export function uniqueEmail(label: string): string {
   return `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.com`;
 }
 
+interface CaughtMail {
+  text: string;
+  subject: string;
+  to: { address: string }[];
+}
+
+/** Waits until the mail stand-in holds a message to `address`, and answers the newest one. */
 export async function latestMailTo(address: string, timeoutMs = 15_000): Promise<{ text: string; subject: string }> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const all = (await (await fetch(`${process.env.KERF_TEST_MAIL_WEB_URL}/api/email`)).json()) as { text: string; subject: string; to: { address: string }[] }[];
-    const mine = all.filter((m) => m.to.some((t) => t.address === address));
-    if (mine.length > 0) return mine[mine.length - 1]!;
-    if (Date.now() > deadline) throw new Error(`no mail to ${address}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
+  let mine: CaughtMail[] = [];
+  await expect
+    .poll(
+      async () => {
+        const all = (await (await fetch(`${process.env.KERF_TEST_MAIL_WEB_URL}/api/email`)).json()) as CaughtMail[];
+        mine = all.filter((m) => m.to.some((t) => t.address === address));
+        return mine.length;
+      },
+      { timeout: timeoutMs, message: `mail to ${address}` },
+    )
+    .toBeGreaterThan(0);
+  return mine[mine.length - 1]!;
 }
 
 export const PASSWORD = "a-long-enough-password";
@@ -37,14 +51,38 @@ export async function sql<T extends pg.QueryResultRow>(text: string, values: unk
   }
 }
 
+/** A member in a role of their own, made straight in the test database (the invitation journey has its own test). */
+export async function member(channelId: string, name: string, role: "producer" | "editor" | "crew") {
+  const email = uniqueEmail(role);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, name, await hashPassword(PASSWORD)]);
+  await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
+  return { email, name };
+}
+
+/** Signs in through the sign-in page, on a page whose context holds nobody's session yet. */
+export async function signInOn(page: Page, email: string): Promise<Page> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  return page;
+}
+
+/** A fresh browser context, signed in; answers its page on the slate. */
+export async function signIn(browser: Browser, email: string): Promise<Page> {
+  return signInOn(await (await browser.newContext()).newPage(), email);
+}
+
 export interface HostAndEpisode {
   host: { name: string; channel: string };
-  episode: { title: string; question: string; origin: "idea" | "sponsor"; targetPublishDate?: string; stage: string };
+  episode: { title: string; question: string; origin: "idea" | "sponsor"; targetPublishDate?: string; stage: Stage };
 }
 
 /**
- * A new host with a channel (through the sign-up page) and one episode (through the slate's API; should
- * that route change shape, straight into the test database at the given stage instead).
+ * A new host with a channel (through the sign-up page) and one episode, made and moved to the asked
+ * stage through the slate's API. A refusal fails the test: a journey must not start on a setup the
+ * product would not have made.
  */
 export async function hostWithEpisode(page: Page, { host, episode }: HostAndEpisode) {
   await page.goto("/sign-up");
@@ -56,21 +94,22 @@ export async function hostWithEpisode(page: Page, { host, episode }: HostAndEpis
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
   const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
   const csrfToken = (await (await page.request.get("/api/auth/me")).json()).csrfToken as string;
+  const headers = { "x-csrf-token": csrfToken };
   const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
-    headers: { "x-csrf-token": csrfToken },
+    headers,
     data: { title: episode.title, question: episode.question, origin: episode.origin, originLink: "", whyWorthIt: "", ownerId: "", tags: [], budgetAmount: "", budgetCurrency: "", targetPublishDate: episode.targetPublishDate ?? "" },
   });
-  const episodeId =
-    created.status() === 201
-      ? ((await created.json()).episode.id as string)
-      : (
-          await sql<{ id: string }>("insert into episodes (channel_id, title, question, stage, rank, target_publish_date) values ($1, $2, $3, $4, 'a0', $5) returning id", [
-            channelId,
-            episode.title,
-            episode.question,
-            episode.stage,
-            episode.targetPublishDate ?? null,
-          ])
-        )[0]!.id;
-  return { channelId, episodeId, csrfToken };
+  expect(created.status(), `creating the episode: ${await created.text()}`).toBe(201);
+  let made = (await created.json()).episode as EpisodeRecord;
+  if (made.stage !== episode.stage) {
+    // Skipping stages asks for a reason; the setup gives one, as a person moving it on would.
+    const moved = await page.request.post(`/api/channels/${channelId}/episodes/${made.id}/move`, {
+      headers,
+      data: { version: made.version, stage: episode.stage, reason: "Set up at this stage for the journey." },
+    });
+    expect(moved.status(), `moving the episode to ${episode.stage}: ${await moved.text()}`).toBe(200);
+    made = (await moved.json()).episode as EpisodeRecord;
+  }
+  expect(made.stage).toBe(episode.stage);
+  return { channelId, episodeId: made.id, csrfToken };
 }

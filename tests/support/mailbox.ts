@@ -1,3 +1,4 @@
+import { expect } from "vitest";
 import { testEnv } from "./test-env";
 
 export interface CaughtMail {
@@ -8,22 +9,21 @@ export interface CaughtMail {
   date: string;
 }
 
-export async function mailTo(address: string): Promise<CaughtMail[]> {
-  const response = await fetch(`${testEnv.mailWebUrl}/api/email`);
+/** What a mail stand-in holds for `address`: the shared one `npm test` starts, or a test's own. */
+export async function mailTo(address: string, webUrl: string = testEnv.mailWebUrl): Promise<CaughtMail[]> {
+  const response = await fetch(`${webUrl}/api/email`);
   const all = (await response.json()) as CaughtMail[];
   return all.filter((mail) => mail.to.some((to) => to.address.toLowerCase() === address.toLowerCase()));
 }
 
-/** Polls the mail stand-in's API until a message to `address` arrives. */
-export async function waitForMail(address: string, options: { timeoutMs?: number; count?: number } = {}): Promise<CaughtMail> {
-  const deadline = Date.now() + (options.timeoutMs ?? 15_000);
+/** Waits until the mail stand-in holds `count` messages to `address` (at least), and answers the last of them. */
+export async function waitForMail(address: string, options: { timeoutMs?: number; count?: number; webUrl?: string } = {}): Promise<CaughtMail> {
   const count = options.count ?? 1;
-  for (;;) {
-    const found = await mailTo(address);
-    if (found.length >= count) return found[count - 1]!;
-    if (Date.now() > deadline) throw new Error(`no mail to ${address} within ${options.timeoutMs ?? 15_000} ms`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
+  let found: CaughtMail[] = [];
+  await expect
+    .poll(async () => (found = await mailTo(address, options.webUrl)).length, { timeout: options.timeoutMs ?? 15_000, interval: 250, message: `mail to ${address}` })
+    .toBeGreaterThanOrEqual(count);
+  return found[count - 1]!;
 }
 
 export function linkIn(mail: CaughtMail, pattern: RegExp): string {

@@ -1,11 +1,12 @@
 import type { Server } from "node:http";
 import request from "supertest";
-import { createApp, type AppDeps } from "../../server/app";
+import { createApp } from "../../server/app";
 import { readEnv } from "../../server/env";
 import { startJobs, type Jobs } from "../../server/jobs/queue";
 import { createMailer } from "../../server/mail/mailer";
 import type { SignInLimits } from "../../server/auth/rate-limits";
 import { CSRF_HEADER } from "../../server/http/csrf";
+import type { AppDeps } from "../../server/seams/app-deps";
 import { createS3Storage, storageSettingsFrom, type Storage } from "../../server/storage/storage";
 import { createTestDatabase, type TestDatabase } from "./database";
 import { testEnv } from "./test-env";
@@ -60,8 +61,8 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
   const realStorage = createS3Storage(storageSettingsFrom(env));
   // A test may wrap the real store (e.g. to take it down mid-request).
   const storage = options.storage ? options.storage(realStorage) : realStorage;
-  const deps: AppDeps = { env, database, mailer, jobs, storage, signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } };
-  const app = createApp(deps);
+  const deps: AppDeps = { env, database, mailer, jobs, storage };
+  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });

@@ -1,30 +1,38 @@
 
 import { index, json, pgEnum, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
+import { createdAt, id } from "./columns";
 import { roles } from "../../../shared/access/roles";
 
 export const roleEnum = pgEnum("role", roles);
 
 export const users = pgTable("users", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: id(),
   email: text("email").notNull().unique(),
   name: text("name").notNull(),
   passwordHash: text("password_hash").notNull(),
   timeZone: text("time_zone").notNull().default("UTC"),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 });
 
 export const channels = pgTable("channels", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: id(),
   name: text("name").notNull(),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
 });
+
+/** The channel a row belongs to: deleting the channel deletes the row. */
+export const channelRef = () =>
+  uuid("channel_id")
+    .notNull()
+    .references(() => channels.id, { onDelete: "cascade" });
+
+/** A person a row names (who made, moved or owns it): the row stays, without them, when the account goes. */
+export const personRef = (name: string) => uuid(name).references(() => users.id, { onDelete: "set null" });
 
 export const memberships = pgTable(
   "memberships",
   {
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    channelId: channelRef(),
     userId: uuid("user_id")
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
@@ -37,10 +45,8 @@ export const memberships = pgTable(
 export const invitations = pgTable(
   "invitations",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     email: text("email").notNull(),
     role: roleEnum("role").notNull(),
     // Only the SHA-256 of the link's token is kept: a leaked table opens no channel.
@@ -50,9 +56,9 @@ export const invitations = pgTable(
       .references(() => users.id, { onDelete: "cascade" }),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
-    acceptedBy: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    acceptedBy: personRef("accepted_by"),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (table) => [index("invitations_channel_idx").on(table.channelId)],
 );

@@ -1,28 +1,16 @@
 import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { id, timestamps } from "./columns";
 import type { Criterion } from "../../../shared/bench/criteria";
 import type { Quantity } from "../../../shared/bench/quantity";
 import { iterationOutcomes, partKinds, type PlannedQuantity, type RunInput, type Supply } from "../../../shared/bench/schemas";
-import { channels, users } from "./accounts";
-import { episodes } from "./slate";
+import { channelRef, personRef } from "./accounts";
+import { episodeRef, episodes } from "./slate";
 
 // Quantities are stored as the person entered them ({value, unit} as jsonb), never pre-converted:
 // the figures are derived on read, so "2.4 oz" stays 2.4 oz and every conversion is tested code.
 
 export const partKindEnum = pgEnum("part_kind", partKinds);
 export const iterationOutcomeEnum = pgEnum("build_outcome", iterationOutcomes);
-
-const episodeRef = () =>
-  uuid("episode_id")
-    .notNull()
-    .references(() => episodes.id, { onDelete: "cascade" });
-const channelRef = () =>
-  uuid("channel_id")
-    .notNull()
-    .references(() => channels.id, { onDelete: "cascade" });
-const stamps = {
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-};
 
 /** One sheet per episode; absent until first saved (the API answers an empty sheet). */
 export const testPlans = pgTable("test_plans", {
@@ -34,19 +22,19 @@ export const testPlans = pgTable("test_plans", {
   method: text("method").notNull().default(""),
   quantities: jsonb("quantities").$type<PlannedQuantity[]>().notNull().default([]),
   airframeMass: jsonb("airframe_mass").$type<Quantity>(),
-  updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
-  ...stamps,
+  updatedBy: personRef("updated_by"),
+  ...timestamps(),
 });
 
 export const testCriteria = pgTable(
   "test_criteria",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: id(),
     channelId: channelRef(),
     episodeId: episodeRef(),
     position: integer("position").notNull(),
     definition: jsonb("definition").$type<Criterion>().notNull(),
-    ...stamps,
+    ...timestamps(),
   },
   (table) => [index("test_criteria_episode_idx").on(table.channelId, table.episodeId, table.position)],
 );
@@ -54,15 +42,15 @@ export const testCriteria = pgTable(
 export const safetyHazards = pgTable(
   "safety_hazards",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: id(),
     channelId: channelRef(),
     episodeId: episodeRef(),
     kind: text("kind").notNull(),
     title: text("title"),
     mitigation: text("mitigation").notNull(),
-    checkedBy: uuid("checked_by").references(() => users.id, { onDelete: "set null" }),
+    checkedBy: personRef("checked_by"),
     checkedAt: timestamp("checked_at", { withTimezone: true }),
-    ...stamps,
+    ...timestamps(),
   },
   (table) => [index("safety_hazards_episode_idx").on(table.channelId, table.episodeId)],
 );
@@ -70,7 +58,7 @@ export const safetyHazards = pgTable(
 export const benchParts = pgTable(
   "bench_parts",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: id(),
     channelId: channelRef(),
     name: text("name").notNull(),
     kind: partKindEnum("kind").notNull(),
@@ -81,7 +69,7 @@ export const benchParts = pgTable(
     priceCurrency: text("price_currency"),
     supplier: text("supplier").notNull().default(""),
     notes: text("notes").notNull().default(""),
-    ...stamps,
+    ...timestamps(),
   },
   (table) => [index("bench_parts_channel_idx").on(table.channelId, table.name)],
 );
@@ -89,7 +77,7 @@ export const benchParts = pgTable(
 export const benchRuns = pgTable(
   "bench_runs",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: id(),
     channelId: channelRef(),
     episodeId: episodeRef(),
     // Numbered per episode and never reused, so "run 3" in a video note keeps meaning run 3.
@@ -98,8 +86,8 @@ export const benchRuns = pgTable(
     supply: jsonb("supply").$type<Supply>(),
     measurements: jsonb("measurements").$type<RunInput["measurements"]>().notNull().default({}),
     notes: text("notes").notNull().default(""),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
-    ...stamps,
+    createdBy: personRef("created_by"),
+    ...timestamps(),
   },
   (table) => [unique("bench_runs_episode_number_key").on(table.episodeId, table.number), index("bench_runs_channel_episode_idx").on(table.channelId, table.episodeId)],
 );
@@ -124,7 +112,7 @@ export const benchRunParts = pgTable(
 export const buildIterations = pgTable(
   "build_iterations",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
+    id: id(),
     channelId: channelRef(),
     episodeId: episodeRef(),
     number: integer("number").notNull(),
@@ -133,8 +121,8 @@ export const buildIterations = pgTable(
     outcome: iterationOutcomeEnum("outcome").notNull().default("pending"),
     chosenRunId: uuid("chosen_run_id").references(() => benchRuns.id, { onDelete: "set null" }),
     notes: text("notes").notNull().default(""),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
-    ...stamps,
+    createdBy: personRef("created_by"),
+    ...timestamps(),
   },
   (table) => [unique("build_iterations_episode_number_key").on(table.episodeId, table.number), index("build_iterations_channel_episode_idx").on(table.channelId, table.episodeId)],
 );

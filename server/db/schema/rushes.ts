@@ -1,9 +1,10 @@
 import { sql } from "drizzle-orm";
 import { bigint, boolean, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { createdAt, id } from "./columns";
 import { clipRatings, shotKinds, shotPriorities, shotStatuses, uploadStatuses } from "../../../shared/rushes/vocabulary";
 import type { ClipMetadata } from "../../../shared/rushes/schemas";
-import { channels, users } from "./accounts";
-import { episodes } from "./slate";
+import { channelRef, personRef, users } from "./accounts";
+import { episodeRef, episodes } from "./slate";
 
 export const shotKindEnum = pgEnum("shot_kind", shotKinds);
 export const shotPriorityEnum = pgEnum("shot_priority", shotPriorities);
@@ -11,18 +12,12 @@ export const shotStatusEnum = pgEnum("shot_status", shotStatuses);
 export const clipRatingEnum = pgEnum("clip_rating", clipRatings);
 export const uploadStatusEnum = pgEnum("upload_status", uploadStatuses);
 
-const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
-
 export const shootDays = pgTable(
   "shoot_days",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     day: date("day").notNull(),
     place: text("place").notNull().default(""),
     /** Local wall-clock time at the place, "HH:MM". */
@@ -49,13 +44,9 @@ export const shootDayCrew = pgTable(
 export const shots = pgTable(
   "shots",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     shootDayId: uuid("shoot_day_id").references(() => shootDays.id, { onDelete: "set null" }),
     description: text("description").notNull(),
     kind: shotKindEnum("kind").notNull(),
@@ -71,14 +62,10 @@ export const shots = pgTable(
 export const uploads = pgTable(
   "uploads",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    createdBy: personRef("created_by"),
     fileName: text("file_name").notNull(),
     contentType: text("content_type").notNull(),
     sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
@@ -122,19 +109,15 @@ export const uploadParts = pgTable(
 export const clips = pgTable(
   "clips",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     shootDayId: uuid("shoot_day_id").references(() => shootDays.id, { onDelete: "set null" }),
     shotId: uuid("shot_id").references(() => shots.id, { onDelete: "set null" }),
     // Bench runs and build iterations belong to the bench feature; linked by id only.
     benchRunId: uuid("bench_run_id"),
     buildIterationId: uuid("build_iteration_id"),
-    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    uploadedBy: personRef("uploaded_by"),
     objectKey: text("object_key").notNull().unique(),
     posterKey: text("poster_key"),
     fileName: text("file_name").notNull(),
@@ -175,10 +158,8 @@ export const clips = pgTable(
 export const clipMarks = pgTable(
   "clip_marks",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     clipId: uuid("clip_id")
       .notNull()
       .references(() => clips.id, { onDelete: "cascade" }),
@@ -188,7 +169,7 @@ export const clipMarks = pgTable(
     inLabel: text("in_label").notNull(),
     outLabel: text("out_label").notNull(),
     note: text("note").notNull().default(""),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: personRef("created_by"),
     createdAt: createdAt(),
   },
   (t) => [index("clip_marks_clip_idx").on(t.clipId, t.inFrame)],
@@ -198,16 +179,14 @@ export const clipMarks = pgTable(
 export const stills = pgTable(
   "stills",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     episodeId: uuid("episode_id").references(() => episodes.id, { onDelete: "cascade" }),
     objectKey: text("object_key").notNull().unique(),
     fileName: text("file_name").notNull(),
     contentType: text("content_type").notNull(),
     sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
-    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    uploadedBy: personRef("uploaded_by"),
     createdAt: createdAt(),
   },
   (t) => [index("stills_channel_idx").on(t.channelId, t.createdAt)],

@@ -1,10 +1,11 @@
 import { sql } from "drizzle-orm";
 import { bigint, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { createdAt, id, updatedAt } from "./columns";
 import { origins } from "../../../shared/slate/schemas";
 import type { GateProblem } from "../../../shared/slate/gates";
 import type { StageLengths } from "../../../shared/slate/schedule";
 import { stages } from "../../../shared/slate/stages";
-import { channels, users } from "./accounts";
+import { channelRef, channels, personRef } from "./accounts";
 
 export const stageEnum = pgEnum("stage", stages);
 export const originEnum = pgEnum("episode_origin", origins);
@@ -12,10 +13,8 @@ export const originEnum = pgEnum("episode_origin", origins);
 export const episodes = pgTable(
   "episodes",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     title: text("title").notNull(),
     question: text("question").notNull().default(""),
     origin: originEnum("origin").notNull().default("idea"),
@@ -29,32 +28,34 @@ export const episodes = pgTable(
     // slate_board_revision): a move rewrites one row, never the column.
     rank: text("rank").notNull(),
     version: integer("version").notNull().default(1),
-    ownerId: uuid("owner_id").references(() => users.id, { onDelete: "set null" }),
+    ownerId: personRef("owner_id"),
     targetPublishDate: date("target_publish_date"),
     // When the current stage began; the history holds every stay, this is the board's shortcut.
     stageEnteredAt: timestamp("stage_entered_at", { withTimezone: true }).notNull().defaultNow(),
     archivedAt: timestamp("archived_at", { withTimezone: true }),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
   },
   (table) => [index("episodes_channel_stage_rank_idx").on(table.channelId, table.stage, table.rank)],
 );
+
+/** The episode a row belongs to: deleting the episode deletes the row. */
+export const episodeRef = () =>
+  uuid("episode_id")
+    .notNull()
+    .references(() => episodes.id, { onDelete: "cascade" });
 
 /** Every stage move: who, when, from, to, and the reason when it went past missing essentials. */
 export const stageMoves = pgTable(
   "stage_moves",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     // Null for the entry that opens the episode in its first stage.
     fromStage: stageEnum("from_stage"),
     toStage: stageEnum("to_stage").notNull(),
-    movedBy: uuid("moved_by").references(() => users.id, { onDelete: "set null" }),
+    movedBy: personRef("moved_by"),
     movedAt: timestamp("moved_at", { withTimezone: true }).notNull().defaultNow(),
     reason: text("reason"),
     skipped: jsonb("skipped").$type<GateProblem[]>().notNull().default([]),
@@ -66,15 +67,11 @@ export const stageMoves = pgTable(
 export const dueOverrides = pgTable(
   "due_overrides",
   {
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     stage: stageEnum("stage").notNull(),
     dueDate: date("due_date").notNull(),
-    setBy: uuid("set_by").references(() => users.id, { onDelete: "set null" }),
+    setBy: personRef("set_by"),
     setAt: timestamp("set_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [primaryKey({ columns: [table.episodeId, table.stage] }), index("due_overrides_channel_idx").on(table.channelId)],
@@ -91,23 +88,19 @@ export const slateChannels = pgTable("slate_channels", {
     .references(() => channels.id, { onDelete: "cascade" }),
   stageLengths: jsonb("stage_lengths").$type<StageLengths>(),
   boardRevision: bigint("board_revision", { mode: "number" }).notNull().default(0),
-  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: updatedAt(),
 });
 
 export const episodeComments = pgTable(
   "episode_comments",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
-    authorId: uuid("author_id").references(() => users.id, { onDelete: "set null" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    authorId: personRef("author_id"),
     body: text("body").notNull(),
     mentions: uuid("mentions").array().notNull().default(sql`'{}'::uuid[]`),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (table) => [index("episode_comments_episode_idx").on(table.episodeId, table.createdAt)],
 );

@@ -1,8 +1,9 @@
 import { boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { createdAt, id, timestamps, updatedAt } from "./columns";
 import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
 import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
-import { channels, users } from "./accounts";
-import { episodes } from "./slate";
+import { channelRef, channels, personRef, users } from "./accounts";
+import { episodeRef } from "./slate";
 
 export const dealStateEnum = pgEnum("deal_state", dealStates);
 export const placementEnum = pgEnum("deal_placement", placements);
@@ -12,22 +13,15 @@ export const deliverableStatusEnum = pgEnum("deliverable_status", deliverableSta
 export const deliverableAnchorEnum = pgEnum("deliverable_anchor", anchors);
 export const reviewDecisionEnum = pgEnum("review_decision", reviewDecisions);
 
-const timestamps = {
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-};
-
 export const sponsors = pgTable(
   "sponsors",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     company: text("company").notNull(),
     website: text("website"),
     notes: text("notes"),
-    ...timestamps,
+    ...timestamps(),
   },
   (table) => [index("sponsors_channel_idx").on(table.channelId)],
 );
@@ -35,17 +29,15 @@ export const sponsors = pgTable(
 export const sponsorContacts = pgTable(
   "sponsor_contacts",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     sponsorId: uuid("sponsor_id")
       .notNull()
       .references(() => sponsors.id, { onDelete: "cascade" }),
     name: text("name").notNull(),
     email: text("email").notNull(),
     role: text("role"),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (table) => [index("sponsor_contacts_sponsor_idx").on(table.sponsorId)],
 );
@@ -53,14 +45,12 @@ export const sponsorContacts = pgTable(
 export const dealTemplates = pgTable(
   "deal_templates",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     name: text("name").notNull(),
     // Checked by templateInputSchema on the way in; read whole, never queried inside.
     items: jsonb("items").$type<DealTemplate["items"]>().notNull(),
-    ...timestamps,
+    ...timestamps(),
   },
   (table) => [index("deal_templates_channel_idx").on(table.channelId)],
 );
@@ -68,18 +58,14 @@ export const dealTemplates = pgTable(
 export const deals = pgTable(
   "deals",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
-    episodeId: uuid("episode_id")
-      .notNull()
-      .references(() => episodes.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
     sponsorId: uuid("sponsor_id")
       .notNull()
       .references(() => sponsors.id, { onDelete: "restrict" }),
     contactId: uuid("contact_id").references(() => sponsorContacts.id, { onDelete: "set null" }),
-    hostId: uuid("host_id").references(() => users.id, { onDelete: "set null" }),
+    hostId: personRef("host_id"),
     state: dealStateEnum("state").notNull().default("negotiating"),
     placement: placementEnum("placement").notNull(),
     segmentSeconds: integer("segment_seconds").notNull(),
@@ -108,8 +94,8 @@ export const deals = pgTable(
     cutOut: text("cut_out"),
     cutFrameRate: text("cut_frame_rate"),
     cutDropFrame: boolean("cut_drop_frame"),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
-    ...timestamps,
+    createdBy: personRef("created_by"),
+    ...timestamps(),
   },
   (table) => [index("deals_channel_episode_idx").on(table.channelId, table.episodeId), index("deals_sponsor_idx").on(table.sponsorId)],
 );
@@ -117,10 +103,8 @@ export const deals = pgTable(
 export const deliverables = pgTable(
   "deliverables",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     dealId: uuid("deal_id")
       .notNull()
       .references(() => deals.id, { onDelete: "cascade" }),
@@ -130,9 +114,9 @@ export const deliverables = pgTable(
     offsetDays: integer("offset_days").notNull().default(0),
     dueDate: date("due_date"),
     status: deliverableStatusEnum("status").notNull().default("not_started"),
-    ownerId: uuid("owner_id").references(() => users.id, { onDelete: "set null" }),
+    ownerId: personRef("owner_id"),
     position: integer("position").notNull().default(0),
-    ...timestamps,
+    ...timestamps(),
   },
   (table) => [index("deliverables_deal_idx").on(table.dealId), index("deliverables_channel_due_idx").on(table.channelId, table.dueDate)],
 );
@@ -140,15 +124,13 @@ export const deliverables = pgTable(
 export const deliverableEvents = pgTable(
   "deliverable_events",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     deliverableId: uuid("deliverable_id")
       .notNull()
       .references(() => deliverables.id, { onDelete: "cascade" }),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
-    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    actorId: personRef("actor_id"),
     // Kept as written: a sponsor's contact has no account, and a member may later leave.
     actorName: text("actor_name").notNull(),
     actorKind: text("actor_kind").$type<"member" | "sponsor" | "system">().notNull(),
@@ -167,10 +149,8 @@ export const deliverableEvents = pgTable(
 export const reviewLinks = pgTable(
   "review_links",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    id: id(),
+    channelId: channelRef(),
     dealId: uuid("deal_id")
       .notNull()
       .references(() => deals.id, { onDelete: "cascade" }),
@@ -181,7 +161,7 @@ export const reviewLinks = pgTable(
     // Copied at sending: the decision is recorded under the name the link was sent to.
     contactName: text("contact_name").notNull(),
     contactEmail: text("contact_email").notNull(),
-    sentBy: uuid("sent_by").references(() => users.id, { onDelete: "set null" }),
+    sentBy: personRef("sent_by"),
     sentByName: text("sent_by_name").notNull(),
     sentByEmail: text("sent_by_email").notNull(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
@@ -189,7 +169,7 @@ export const reviewLinks = pgTable(
     decidedAt: timestamp("decided_at", { withTimezone: true }),
     decision: reviewDecisionEnum("decision"),
     comment: text("comment"),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (table) => [index("review_links_deal_idx").on(table.dealId)],
 );
@@ -217,15 +197,13 @@ export const sponsorSettings = pgTable("sponsor_settings", {
     .primaryKey()
     .references(() => channels.id, { onDelete: "cascade" }),
   reminderDaysBefore: integer("reminder_days_before").notNull().default(2),
-  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: updatedAt(),
 });
 
 export const speakingRates = pgTable(
   "speaking_rates",
   {
-    channelId: uuid("channel_id")
-      .notNull()
-      .references(() => channels.id, { onDelete: "cascade" }),
+    channelId: channelRef(),
     userId: uuid("user_id")
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),

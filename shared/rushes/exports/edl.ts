@@ -9,6 +9,7 @@ import { type ExportClip, formatOf, sourceRanges } from "./clip-ranges";
  * exclusive, and `*` comment lines naming the clip. Every mark becomes an event laid end to end on
  * the record side from 01:00:00:00 (common practice for a programme's start).
  */
+// Hand-written: no maintained npm package writes CMX 3600; the format is a page of fixed columns.
 export const MAX_EDL_EVENTS = 999;
 
 export class EdlError extends Error {}

@@ -1,7 +1,5 @@
-import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { ExportClip } from "./clip-ranges";
-import { parseCsv, toCsv } from "./csv";
 import { footageEdl, parseEdl, reelName } from "./edl";
 import { footageOtio } from "./otio";
 
@@ -27,30 +25,12 @@ const clip = (overrides: Partial<ExportClip> = {}): ExportClip => ({
   ...overrides,
 });
 
-describe("CSV (RFC 4180)", () => {
-  it("quotes fields with commas, quotes and line breaks, doubles inner quotes, ends records with CRLF", () => {
-    // RFC 4180 section 2, rules 4–7.
-    expect(toCsv([["a", 'say "hi"', "x,y", "two\r\nlines"]])).toBe('a,"say ""hi""","x,y","two\r\nlines"\r\n');
-  });
-
-  it("when any table of text is written, then it parses back to the same table", () => {
-    const cell = fc.string({ maxLength: 12 }).filter((s) => !/^[=+\-@\t\r]/.test(s));
-    fc.assert(
-      fc.property(fc.array(fc.array(cell, { minLength: 1, maxLength: 5 }), { minLength: 1, maxLength: 6 }), (rows) => {
-        const width = rows[0]!.length;
-        const table = rows.map((r) => Array.from({ length: width }, (_, i) => r[i] ?? ""));
-        // A single empty field on a record is indistinguishable from an empty line; RFC 4180 leaves it open.
-        fc.pre(width > 1 || table.every((r) => r[0] !== ""));
-        expect(parseCsv(toCsv(table))).toEqual(table);
-      }),
-    );
-  });
-});
-
 describe("CMX 3600 edit decision list", () => {
   it("when a 25 fps clip is used whole, then source and record times are its own and the out point is exclusive", () => {
     const edl = footageEdl("Test", [clip()]);
     expect(edl).toContain("FCM: NON-DROP FRAME\r\n");
+    // The event line's columns and spacing as OpenTimelineIO's CMX 3600 adapter writes them
+    // (OpenTimelineIO/otio-cmx3600-adapter, tests/test_cmx_3600_adapter.py, test_reelname_length).
     // 10 s at 25 fps: 250 frames; the out point is the first frame after the event.
     expect(edl).toContain("001  A001_C00 V     C        10:00:00:00 10:00:10:00 01:00:00:00 01:00:10:00");
     expect(parseEdl(edl).events[0]!.comments).toEqual(["FROM CLIP NAME: A001_C007.mov"]);
@@ -58,7 +38,8 @@ describe("CMX 3600 edit decision list", () => {
 
   it("when a 29.97 drop-frame mark crosses a minute, then record times count the skipped labels", () => {
     // Frames 1798 to 1802: 59;28, 59;29, then 01:00;02 and ;03, since 29.97 DF skips ;00 and ;01 at minute 1
-    // (check-values.md: frame 1800 = 00:01:00;02). Four frames, ending before 00:01:00;04.
+    // (OpenTimelineIO, tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: frame 30 × 59 + 29 = 1799 is
+    // 00:00:59;29, 1800 is 00:01:00;02, 1802 is 00:01:00;04). Four frames, ending before 00:01:00;04.
     const marks = [{ in: "00:00:59;28", out: "00:01:00;04", inFrame: 1798, outFrame: 1802, note: "" }];
     const edl = parseEdl(footageEdl("DF", [clip({ frameRate: { numerator: 30000, denominator: 1001 }, dropFrame: true, startTimecode: "00:00:00;00", durationMs: 120_000, marks })]));
     expect(edl.dropFrame).toBe(true);
@@ -76,6 +57,9 @@ describe("CMX 3600 edit decision list", () => {
   });
 
   it("keeps reel names to 8 characters of letters, digits and underscores", () => {
+    // OpenTimelineIO/otio-cmx3600-adapter, tests/test_cmx_3600_adapter.py, test_reelname_length: reels are cut to
+    // 8 characters by default; its writer (src/otio_cmx3600_adapter) falls back to "AX". It also drops underscores; Kerf keeps
+    // them, as camera reel names use them (own choice, common practice).
     expect(reelName("cam-b take 3.MOV")).toBe("CAMBTAKE");
     expect(reelName("....mov")).toBe("AX");
   });

@@ -1,6 +1,6 @@
 import { describeFormat } from "../../timecode/rates";
 import { type ExportClip, formatOf } from "./clip-ranges";
-import { toCsv } from "./csv";
+import { safeText, toCsv, type CsvCell } from "../../csv/csv";
 
 export const footageCsvHeader = [
   "file_name",
@@ -24,7 +24,7 @@ export const footageCsvHeader = [
 
 /** One record per mark; a clip with no marks gets one record with the mark columns empty. */
 export function footageCsv(clips: ExportClip[]): string {
-  const rows: (string | number | null)[][] = [footageCsvHeader];
+  const rows: CsvCell[][] = [footageCsvHeader];
   for (const clip of clips) {
     const format = formatOf(clip);
     const base = [
@@ -45,5 +45,6 @@ export function footageCsv(clips: ExportClip[]): string {
     const marks = clip.marks.length > 0 ? clip.marks : [null];
     for (const mark of marks) rows.push([...base, mark?.in ?? "", mark?.out ?? "", mark?.note ?? "", clip.notes]);
   }
-  return toCsv(rows);
+  // Every text cell is defused: names, notes and tags are people's text, and the rest never starts with a sign.
+  return toCsv(rows.map((row) => row.map((cell) => (typeof cell === "string" ? safeText(cell) : cell))));
 }

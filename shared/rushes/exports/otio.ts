@@ -7,6 +7,7 @@ import { type ExportClip, formatOf, sourceRanges } from "./clip-ranges";
  * pointing at its file through an ExternalReference.1. target_url is the file's name, so an editing
  * program relinks it to the downloaded files (the bulk zip holds them under the same names).
  */
+// Hand-written: OpenTimelineIO has no JavaScript library; its JSON is a few plain objects.
 type RationalTime = { OTIO_SCHEMA: "RationalTime.1"; value: number; rate: number };
 type TimeRange = { OTIO_SCHEMA: "TimeRange.1"; start_time: RationalTime; duration: RationalTime };
 

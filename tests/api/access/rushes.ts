@@ -7,7 +7,7 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
 /*
  * The spec's role table, by hand:
  * - footage (upload, log, marks, export): owner, producer, editor W; crew W for upload and log,
- *   but no delete;
+ *   but no delete (the role table's "footageRemoval" area: deleting a clip);
  * - shoot days and the shot list: all four W.
  * "outsider" is the owner of another channel: 404, never 403.
  * The two photo routes take multipart forms; the matrix sends none, so a caller let through meets

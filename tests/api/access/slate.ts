@@ -22,6 +22,7 @@ export const access: FeatureAccess = {
     ["GET /api/channels/:channelId/episodes/:episodeId/comments",         401,  ok,   ok,   ok,   ok,   404],
     ["POST /api/channels/:channelId/episodes/:episodeId/comments",        401,  ok,   ok,   ok,   ok,   404],
     ["GET /api/channels/:channelId/slate/people",                         401,  ok,   ok,   ok,   ok,   404],
+    ["GET /api/channels/:channelId/episode-titles",                       401,  ok,   ok,   ok,   ok,   404],
     ["GET /api/channels/:channelId/slate/settings",                       401,  ok,   ok,   403,  403,  404],
     ["PUT /api/channels/:channelId/slate/settings",                       401,  ok,   403,  403,  403,  404],
   ],
@@ -54,6 +55,7 @@ function slateRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         };
       },
     },
+    "GET /api/channels/:channelId/episode-titles": { ok: 200 },
     "PATCH /api/channels/:channelId/episodes/:episodeId": { ok: 200, prepare: versioned({}, { title: "Changed by the matrix" }) },
     "POST /api/channels/:channelId/episodes/:episodeId/move": { ok: 200, prepare: versioned({}, { stage: "test_plan" }) },
     "POST /api/channels/:channelId/episodes/:episodeId/archive": { ok: 200, prepare: versioned({}, {}) },

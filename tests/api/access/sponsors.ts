@@ -10,7 +10,8 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
 /*
  * Sponsors and deals (segment requirements): owner and producer W, editor and crew R.
  * Deals' fee, payment terms and invoices: owner and producer W, editor and crew nothing.
- * Deliverables: owner and producer W, editor R (W on the cut items they deliver), crew R.
+ * Deliverables: owner and producer W, editor R (W on the cut items they deliver), crew R; the cut
+ * (setting a deal's cut, moving a cut item) is the role table's "cut" area: owner, producer, editor W.
  * The sponsor's review page is public: its signed token is the only key.
  */
 const c = "/api/channels/:channelId";

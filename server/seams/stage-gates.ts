@@ -1,9 +1,12 @@
 import type { GateProblem } from "../../shared/slate/gates";
 import { stageIndex, type Stage } from "../../shared/slate/stages";
 import type { Database } from "../db/client";
-import { benchGates } from "../bench/bench.gates";
-import { sponsorGates } from "../sponsors/sponsors.gates";
 
+/**
+ * The stage-gate seam: a feature with essentials for a stage move exports its `StageGate`s from its
+ * `<feature>.gates.ts`; server/app.ts lists them and hands the list to the slate, which runs them on
+ * every forward move. Nothing here knows any feature.
+ */
 export interface GateContext {
   db: Database;
   channelId: string;
@@ -19,9 +22,6 @@ export interface StageGate {
   check(context: GateContext): Promise<GateProblem[]>;
 }
 
-/** Every feature's gates. A feature adds its own in its <feature>.gates.ts. */
-const stageGates: StageGate[] = [...benchGates, ...sponsorGates];
-
 /** True when the move passes `stage` going forward (leaving it, or jumping over it). */
 export function leavesStageForward(stage: Stage, from: Stage, to: Stage): boolean {
   return stageIndex(from) <= stageIndex(stage) && stageIndex(to) > stageIndex(stage);
@@ -33,9 +33,9 @@ export function entersStageForward(stage: Stage, from: Stage, to: Stage): boolea
 }
 
 /** Backward moves are always allowed; forward ones collect every applicable gate's problems. */
-export async function gateProblems(context: GateContext): Promise<GateProblem[]> {
+export async function gateProblems(gates: readonly StageGate[], context: GateContext): Promise<GateProblem[]> {
   if (stageIndex(context.to) <= stageIndex(context.from)) return [];
-  const applicable = stageGates.filter((gate) => gate.applies(context.from, context.to));
+  const applicable = gates.filter((gate) => gate.applies(context.from, context.to));
   const results = await Promise.all(applicable.map((gate) => gate.check(context)));
   return results.flat();
 }

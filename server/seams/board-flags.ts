@@ -1,11 +1,11 @@
 import { sql, type Column, type SQL } from "drizzle-orm";
 import type { BoardFlag } from "../../shared/slate/flags";
 import type { Database } from "../db/client";
-import { sponsorBoardFilter, sponsorFlagSources } from "../sponsors/sponsors.flags";
 
 /**
- * Flags other features put on board cards ("Sponsor item due"), beside the slate's own (at risk,
- * essentials skipped, no publish date), which the board computes with its cached rows.
+ * The board seam: flags other features put on board cards ("Sponsor item due"), beside the slate's
+ * own (at risk, essentials skipped, no publish date), and board filters other features own. A
+ * feature exports them from its `<feature>.flags.ts`; server/app.ts hands them to the slate.
  * A source answers for every card of a board load in one query: never one query per card. The board
  * answer is kept until the board revision changes, so the tables a source reads carry the
  * `slate_bump_board_revision` trigger (drizzle/0004_sponsors_board_revision.sql for the sponsors').
@@ -24,12 +24,16 @@ export interface FlagViewer {
 
 /**
  * A board filter another feature owns (the sponsor filter): the choices it offers and the episodes a
- * choice keeps. Until the feature fills it in, the board accepts the URL parameter and ignores it.
+ * choice keeps. Without one, the board accepts the URL parameter and ignores it.
  */
 export interface BoardFilter {
-  param: "sponsor";
   options(db: Database, channelId: string): Promise<{ value: string; label: string }[]>;
   episodeIds(db: Database, channelId: string, value: string): Promise<Set<string>>;
+}
+
+/** The board's filters that other features fill in, by URL parameter. */
+export interface BoardFilters {
+  sponsor: BoardFilter | null;
 }
 
 /**
@@ -39,16 +43,17 @@ export interface BoardFilter {
  */
 export const episodeIdIn = (column: Column, episodeIds: string[]): SQL => sql`${column} = any(${sql.param(episodeIds)}::uuid[])`;
 
-/** Every feature's flag sources. A feature adds its own in its <feature>.flags.ts. */
-const boardFlagSources: BoardFlagSource[] = [...sponsorFlagSources];
-
-export const boardFilters: { sponsor: BoardFilter | null } = { sponsor: sponsorBoardFilter };
-
 /** All sources' flags for these episodes, by episode id; episodes without flags are left out. */
-export async function externalFlags(db: Database, channelId: string, episodeIds: string[], viewer?: FlagViewer): Promise<Record<string, BoardFlag[]>> {
+export async function collectFlags(
+  sources: readonly BoardFlagSource[],
+  db: Database,
+  channelId: string,
+  episodeIds: string[],
+  viewer?: FlagViewer,
+): Promise<Record<string, BoardFlag[]>> {
   const out: Record<string, BoardFlag[]> = {};
-  if (episodeIds.length === 0 || boardFlagSources.length === 0) return out;
-  const results = await Promise.all(boardFlagSources.map((source) => source.flagsFor(db, channelId, episodeIds, viewer)));
+  if (episodeIds.length === 0 || sources.length === 0) return out;
+  const results = await Promise.all(sources.map((source) => source.flagsFor(db, channelId, episodeIds, viewer)));
   for (const result of results) {
     for (const [episodeId, flags] of result) {
       if (flags.length > 0) (out[episodeId] ??= []).push(...flags);

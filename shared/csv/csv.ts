@@ -1,13 +1,18 @@
+// The browser build of csv-stringify: no Node built-ins, so shared/ stays importable by the client.
+import { stringify } from "csv-stringify/browser/esm/sync";
+
+export type CsvCell = string | number | null | undefined;
+
 /**
  * CSV as RFC 4180 describes it (section 2): records end with CRLF; a field holding a comma, a double
  * quote, CR or LF is enclosed in double quotes, and a double quote inside it is written twice.
+ * csv-stringify quotes a lone CR or LF only when told to, hence `quoted_match`.
  */
-export function toCsv(rows: readonly (readonly string[])[]): string {
-  return rows.map((row) => row.map(csvField).join(",") + "\r\n").join("");
-}
-
-export function csvField(value: string): string {
-  return /[",\r\n]/.test(value) ? `"${value.replace(/"/g, '""')}"` : value;
+export function toCsv(rows: readonly (readonly CsvCell[])[]): string {
+  return stringify(
+    rows.map((row) => [...row]),
+    { record_delimiter: "windows", quoted_match: /[\r\n]/ },
+  );
 }
 
 /**
@@ -17,9 +22,4 @@ export function csvField(value: string): string {
  */
 export function safeText(value: string): string {
   return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
-}
-
-/** A number without float noise (11.100000000000001 → 11.1); twelve significant figures are far beyond any bench reading. */
-export function csvNumber(value: number): string {
-  return String(Number(value.toPrecision(12)));
 }

@@ -1,0 +1,85 @@
+import { completeUploadSchema, partUrlsSchema, recordPartSchema, startUploadSchema } from "../../shared/rushes/schemas";
+import { notFound } from "../http/app-error";
+import { callerOf, idOf } from "../http/guards";
+import { channelAccess, type RouteSpec } from "../http/route-table";
+import { parseBody, parseId } from "../http/validate";
+import { getClip } from "./clips.service";
+import type { RushesContext } from "./rushes.context";
+import * as uploads from "./uploads.service";
+
+const upload = "/api/channels/:channelId/uploads";
+
+const partNumberOf = (value: unknown) => {
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < 1 || n > 10_000) throw notFound("Part");
+  return n;
+};
+
+/** Uploads: the server signs and records; the bytes go from the browser to storage (the spec's "footage" row). */
+export function uploadRoutes(ctx: RushesContext): RouteSpec[] {
+  const read = channelAccess("footage", "R");
+  const write = channelAccess("footage", "W");
+  return [
+    {
+      method: "post",
+      path: upload,
+      access: write,
+      handler: async (req, res) => {
+        const body = parseBody(startUploadSchema, req.body);
+        res.status(201).json({ upload: await uploads.startUpload(ctx, callerOf(req), body) });
+      },
+    },
+    {
+      method: "get",
+      path: upload,
+      access: read,
+      handler: async (req, res) => {
+        const episodeId = typeof req.query.episodeId === "string" && req.query.episodeId ? parseId(req.query.episodeId, "Episode") : undefined;
+        res.json({ uploads: await uploads.listOpenUploads(ctx, callerOf(req), episodeId) });
+      },
+    },
+    {
+      method: "get",
+      path: `${upload}/:uploadId`,
+      access: read,
+      handler: async (req, res) => res.json({ upload: await uploads.getUpload(ctx, callerOf(req), idOf(req, "uploadId")) }),
+    },
+    {
+      method: "post",
+      path: `${upload}/:uploadId/part-urls`,
+      access: write,
+      handler: async (req, res) => {
+        const { partNumbers } = parseBody(partUrlsSchema, req.body);
+        res.json(await uploads.signParts(ctx, callerOf(req), idOf(req, "uploadId"), partNumbers));
+      },
+    },
+    {
+      method: "put",
+      path: `${upload}/:uploadId/parts/:partNumber`,
+      access: write,
+      valueParams: ["partNumber"],
+      handler: async (req, res) => {
+        const part = parseBody(recordPartSchema, req.body);
+        res.json({ part: await uploads.recordPart(ctx, callerOf(req), idOf(req, "uploadId"), partNumberOf(req.params.partNumber), part) });
+      },
+    },
+    {
+      method: "post",
+      path: `${upload}/:uploadId/complete`,
+      access: write,
+      handler: async (req, res) => {
+        const body = parseBody(completeUploadSchema, req.body);
+        const caller = callerOf(req);
+        const done = await uploads.completeUpload(ctx, caller, idOf(req, "uploadId"), body);
+        res.status(done.alreadyComplete ? 200 : 201).json({ clip: await getClip(ctx, caller, done.clipId) });
+      },
+    },
+    {
+      method: "delete",
+      path: `${upload}/:uploadId`,
+      access: write,
+      body: "none",
+      handler: async (req, res) => res.json(await uploads.cancelUpload(ctx, callerOf(req), idOf(req, "uploadId"))),
+    },
+  ];
+}
