@@ -5,18 +5,23 @@ import { readEnv } from "../server/env";
 import { startServer } from "../server/index";
 import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
 import { startMailCatcher } from "./mail";
+import { APP_WEBHOOK_PATH, startPaymentsStandIn } from "./payments/server";
 import { startS3StandIn } from "./s3";
 import { stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";
 import { run } from "./processes";
 import { developmentSecrets } from "./secrets";
 
-/** `npm start`: the local cluster, migrations, demo data, the mail stand-in, the built client and the server. */
+/**
+ * `npm start`: the local cluster, migrations, demo data, the mail, storage and payments stand-ins,
+ * the built client and the server.
+ */
 const PG_PORT = Number(process.env.KERF_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.KERF_SMTP_PORT ?? 1025);
 const MAIL_WEB_PORT = Number(process.env.KERF_MAIL_WEB_PORT ?? 1080);
 const APP_PORT = Number(process.env.PORT ?? 3000);
 const S3_PORT = Number(process.env.KERF_S3_PORT ?? 4568);
+const PAYMENTS_PORT = Number(process.env.KERF_PAYMENTS_PORT ?? 4590);
 
 const stops: (() => Promise<void> | void)[] = [];
 let stopping = false;
@@ -52,12 +57,23 @@ try {
   const s3 = await startS3StandIn({ port: S3_PORT, dataDir: path.join(stateDir, "s3"), origins: [appOrigin, "http://127.0.0.1:5173", "http://localhost:5173"] });
   stops.push(() => s3.stop());
 
+  console.log("[kerf] starting the payments stand-in…");
+  const secrets = developmentSecrets();
+  const payments = await startPaymentsStandIn({
+    port: PAYMENTS_PORT,
+    dataFile: path.join(stateDir, "payments", "state.json"),
+    secretKey: secrets.paymentsSecretKey,
+    webhookSecret: secrets.paymentsWebhookSecret,
+    accountName: DEMO_CHANNEL,
+    webhookUrls: [process.env.KERF_PAYMENTS_WEBHOOK_URL ?? `${appOrigin}${APP_WEBHOOK_PATH}`],
+  });
+  stops.push(() => payments.stop());
+
   if (process.env.KERF_SKIP_BUILD !== "1") {
     console.log("[kerf] building the client…");
     if ((await run(process.execPath, [path.resolve("node_modules/vite/bin/vite.js"), "build", "--logLevel", "warn"])) !== 0) throw new Error("client build failed");
   }
 
-  const secrets = developmentSecrets();
   const env = readEnv({
     ...process.env,
     NODE_ENV: process.env.NODE_ENV ?? "development",
@@ -68,6 +84,7 @@ try {
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(SMTP_PORT),
     ...(process.env.S3_ENDPOINT ? {} : s3.env),
+    ...(process.env.PAYMENTS_API_URL ? {} : payments.env),
   });
   const server = await startServer(env);
   stops.push(() => server.stop());
@@ -76,6 +93,7 @@ try {
 Kerf is running at ${server.url}
   mail stand-in inbox: ${mail.webUrl}
   S3 stand-in:         ${s3.endpoint} (bucket ${s3.bucket})
+  payments stand-in:   ${payments.url} (a sponsor pays each invoice at its hosted_invoice_url, under /i/)
   database:            ${databaseUrl}${seeded ? "  (demo channel just seeded)" : ""}
   development secrets: ${secrets.file}
 

@@ -4,15 +4,18 @@ import path from "node:path";
 import PgBoss from "pg-boss";
 import { migrateDatabase } from "../server/db/migrate";
 import { startMailCatcher } from "./mail";
+import { APP_WEBHOOK_PATH, startPaymentsStandIn } from "./payments/server";
+import { newSecretKey, newWebhookSecret } from "./payments/store";
+import { TEST_RETRY } from "./payments/webhooks";
 import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
 import { ensureDatabase, startCluster } from "./postgres";
 import { freePort, run, stopChild, waitForHttp } from "./processes";
 
 /**
- * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter, the
- * migrations' check, the unit and API tests, the client build and the browser tests, each against its
- * own database.
+ * `npm test`: a throwaway PostgreSQL cluster and mail, storage and payments stand-ins, then the type
+ * check, the linter, the migrations' check, the unit and API tests, the client build and the browser
+ * tests, each against its own database.
  * The demo cluster of `npm start` is never touched.
  */
 // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
@@ -95,6 +98,26 @@ function countPlaywright(): { passed: number; failed: number } {
   return { passed: report.stats.expected + report.stats.flaky, failed: report.stats.unexpected };
 }
 
+/** A payments stand-in for this run: fresh keys, its state in memory only (no test restarts it). */
+async function startPayments(webhookUrls: string[] = []) {
+  const payments = await startPaymentsStandIn({
+    port: await freePort(),
+    secretKey: newSecretKey(),
+    webhookSecret: newWebhookSecret(),
+    accountName: "Kerf test channel",
+    webhookUrls,
+    retry: TEST_RETRY,
+  });
+  stops.push(() => payments.stop());
+  return payments;
+}
+
+const paymentsTestEnv = (payments: Awaited<ReturnType<typeof startPayments>>) => ({
+  KERF_TEST_PAYMENTS_API_URL: payments.url,
+  KERF_TEST_PAYMENTS_SECRET_KEY: payments.secretKey,
+  KERF_TEST_PAYMENTS_WEBHOOK_SECRET: payments.webhookSecret,
+});
+
 async function browserTests(clusterUrl: string, cluster: ReturnType<typeof startCluster>, mail: { smtpPort: number; webUrl: string }) {
   const databaseUrl = await ensureDatabase(cluster, "kerf_e2e", "kerf_template");
   const port = await freePort();
@@ -102,6 +125,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
   // The browser uploads straight to storage, so its stand-in must allow this app's origin (CORS).
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3-e2e"), origins: [appUrl] });
   stops.push(() => s3.stop());
+  const payments = await startPayments([`${appUrl}${APP_WEBHOOK_PATH}`]);
   const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "inherit", "inherit"],
@@ -114,6 +138,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       SESSION_SECRET: "browser-test-secret-browser-test-secret",
       SMTP_PORT: String(mail.smtpPort),
       ...s3.env,
+      ...payments.env,
     },
   });
   stops.push(() => stopChild(server));
@@ -125,6 +150,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
     KERF_TEST_MAIL_WEB_URL: mail.webUrl,
     KERF_TEST_S3_ENDPOINT: s3.endpoint,
     KERF_TEST_S3_BUCKET: s3.bucket,
+    ...paymentsTestEnv(payments),
     PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(outputDir, "playwright.json"),
   });
 }
@@ -146,7 +172,8 @@ async function main(): Promise<number> {
   stops.push(() => mail.stop());
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3"), origins: ["http://kerf.test"] });
   stops.push(() => s3.stop());
-  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint}`);
+  const payments = await startPayments();
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint}, payments stand-in ${payments.url}`);
 
   const testEnv = {
     NO_COLOR: "1",
@@ -158,6 +185,7 @@ async function main(): Promise<number> {
     KERF_TEST_S3_BUCKET: s3.bucket,
     KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
     KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
+    ...paymentsTestEnv(payments),
   };
   const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
   if (!browserOnly) await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
