@@ -1,0 +1,7 @@
+import type { UpdateDealInput } from "@shared/sponsors/schemas";
+import { api } from "../../../lib/api-client";
+import { channelBase } from "./keys";
+import { useSponsorMutation, type DealAnswer } from "./sponsor-mutation";
+
+export const useUpdateDeal = (channelId: string, dealId: string) =>
+  useSponsorMutation(channelId, (input: UpdateDealInput) => api<DealAnswer>(`${channelBase(channelId)}/deals/${dealId}`, { method: "PATCH", body: input }).then((r) => r.deal));

@@ -1,0 +1,9 @@
+import type { UpdateDeliverableInput } from "@shared/sponsors/schemas";
+import { api } from "../../../lib/api-client";
+import { channelBase } from "./keys";
+import { useSponsorMutation, type DealAnswer } from "./sponsor-mutation";
+
+export const useUpdateDeliverable = (channelId: string) =>
+  useSponsorMutation(channelId, ({ id, input }: { id: string; input: UpdateDeliverableInput }) =>
+    api<DealAnswer>(`${channelBase(channelId)}/deliverables/${id}`, { method: "PATCH", body: input }),
+  );

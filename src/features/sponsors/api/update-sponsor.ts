@@ -1,0 +1,7 @@
+import type { SponsorInput } from "@shared/sponsors/schemas";
+import { api } from "../../../lib/api-client";
+import { channelBase } from "./keys";
+import { useSponsorMutation } from "./sponsor-mutation";
+
+export const useUpdateSponsor = (channelId: string, sponsorId: string) =>
+  useSponsorMutation(channelId, (input: SponsorInput) => api(`${channelBase(channelId)}/sponsors/${sponsorId}`, { method: "PATCH", body: input }));
