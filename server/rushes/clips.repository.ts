@@ -7,7 +7,7 @@ import { episodes } from "../db/schema/slate";
 type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "execute">;
 
 /** Each sort: its column and the SQL type its cursor value is read back as. */
-const sortColumns = {
+export const sortColumns = {
   recorded: { column: clips.recordedAt, type: sql`timestamptz` },
   uploaded: { column: clips.createdAt, type: sql`timestamptz` },
   name: { column: clips.fileName, type: sql`text` },
@@ -75,7 +75,7 @@ const clipColumns = {
 
 export type ClipRow = NonNullable<Awaited<ReturnType<typeof findClip>>>;
 
-function baseSelect(db: Executor) {
+export function baseSelect(db: Executor) {
   return db
     .select(clipColumns)
     .from(clips)

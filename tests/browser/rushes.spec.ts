@@ -4,7 +4,7 @@ import os from "node:os";
 import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
 import { parse as parseCsv } from "csv-parse/sync";
-import { parseEdl } from "../../shared/rushes/exports/edl";
+import { parseEdl } from "../../shared/rushes/exports/edl-parse";
 import { hostWithEpisode, member, signInOn, snap } from "./support";
 
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");

@@ -22,9 +22,12 @@ export const footageCsvHeader = [
   "notes",
 ];
 
-/** One record per mark; a clip with no marks gets one record with the mark columns empty. */
-export function footageCsv(clips: ExportClip[]): string {
-  const rows: CsvCell[][] = [footageCsvHeader];
+/** The header record, CRLF-ended: the first piece of a streamed CSV. */
+export const footageCsvHead = () => toCsv([footageCsvHeader]);
+
+/** One record per mark; a clip with no marks gets one record with the mark columns empty. No header. */
+export function footageCsvRecords(clips: readonly ExportClip[]): string {
+  const rows: CsvCell[][] = [];
   for (const clip of clips) {
     const format = formatOf(clip);
     const base = [
@@ -46,5 +49,7 @@ export function footageCsv(clips: ExportClip[]): string {
     for (const mark of marks) rows.push([...base, mark?.in ?? "", mark?.out ?? "", mark?.note ?? "", clip.notes]);
   }
   // Every text cell is defused: names, notes and tags are people's text, and the rest never starts with a sign.
-  return toCsv(rows.map((row) => row.map((cell) => (typeof cell === "string" ? safeText(cell) : cell))));
+  return rows.length === 0 ? "" : toCsv(rows.map((row) => row.map((cell) => (typeof cell === "string" ? safeText(cell) : cell))));
 }
+
+export const footageCsv = (clips: readonly ExportClip[]) => footageCsvHead() + footageCsvRecords(clips);
