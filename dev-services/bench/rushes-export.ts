@@ -20,6 +20,7 @@ export interface ExportFigures {
   export_size_ratio: number;
   export_rows: number;
   one_row_idle_p50_ms: number;
+  one_row_idle_max_ms: number;
 }
 
 /** 5,000 clips over two episodes, each with 10 marks of one second, in two statements. */
@@ -64,7 +65,8 @@ async function pollWhile(done: Promise<unknown>, get: Get, url: string): Promise
 export async function benchExport(opts: { exporter: Get; other: Get; exportBase: string; episodeId: string; oneRowUrl: string }): Promise<ExportFigures> {
   const { exporter, other, exportBase, episodeId, oneRowUrl } = opts;
   const csv = `${exportBase}/exports/footage.csv`;
-  await timedBody(exporter, `${csv}?episodeId=${episodeId}&tag=nothing-matches`);
+  // One untimed export first, so the timed ones meet a warmed-up server (common practice for a benchmark).
+  await timedBody(exporter, `${csv}?episodeId=${episodeId}`);
   const idle: number[] = [];
   for (let i = 0; i < 50; i++) idle.push((await timedBody(other, oneRowUrl)).ms);
   idle.sort((a, b) => a - b);
@@ -88,7 +90,7 @@ export async function benchExport(opts: { exporter: Get; other: Get; exportBase:
   console.log(`\n── export of ${EXPORT_CLIPS.toLocaleString("en")} clips × ${MARKS_PER_CLIP} marks (CSV), ${RUNS} runs ──`);
   console.log(`whole channel: ${whole.map((t) => t.toFixed(0)).join(", ")} ms → median ${median(whole).toFixed(0)} ms, ${rows.toLocaleString("en")} records`);
   console.log(`half (one episode): median ${median(half).toFixed(0)} ms; whole ÷ half = ${(median(whole) / median(half)).toFixed(2)} (2.00 is linear)`);
-  console.log(`one clip from another channel: idle p50 ${percentile(idle, 50).toFixed(1)} ms; during the exports ${stalls.length} answers, longest ${Math.max(...stalls).toFixed(1)} ms`);
+  console.log(`one clip from another channel: idle p50 ${percentile(idle, 50).toFixed(1)} ms, longest ${idle.at(-1)!.toFixed(1)} ms; during the exports ${stalls.length} answers, longest ${Math.max(...stalls).toFixed(1)} ms`);
   return {
     export_5k_ms: Number(median(whole).toFixed(0)),
     export_max_stall_ms: Number(Math.max(...stalls).toFixed(1)),
@@ -96,5 +98,6 @@ export async function benchExport(opts: { exporter: Get; other: Get; exportBase:
     export_size_ratio: Number((median(whole) / median(half)).toFixed(2)),
     export_rows: rows,
     one_row_idle_p50_ms: Number(percentile(idle, 50).toFixed(1)),
+    one_row_idle_max_ms: Number(idle.at(-1)!.toFixed(1)),
   };
 }

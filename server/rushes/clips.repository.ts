@@ -117,29 +117,11 @@ export async function footageTotals(db: Executor, channelId: string, q: FootageQ
   return { clips: row.clips, durationMs: Number(row.durationMs), bytes: Number(row.bytes) };
 }
 
-/** Every clip of the filter, in the list's order (for the exports), up to a cap. */
-export async function allClips(db: Executor, channelId: string, q: FootageQuery, cap: number) {
-  const sort = sortColumns[q.sort];
-  const direction = q.dir === "asc" ? asc : desc;
-  return baseSelect(db)
-    .where(footageWhere(channelId, q))
-    .orderBy(direction(sort.column), direction(clips.id))
-    .limit(cap);
-}
-
 export async function findClip(db: Executor, channelId: string, clipId: string) {
   const rows = await baseSelect(db)
     .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId)))
     .limit(1);
   return rows[0] ?? null;
-}
-
-export async function clipsByIds(db: Executor, channelId: string, ids: string[]) {
-  if (ids.length === 0) return [];
-  return db
-    .select({ id: clips.id, fileName: clips.fileName, objectKey: clips.objectKey, size: clips.sizeBytes })
-    .from(clips)
-    .where(and(eq(clips.channelId, channelId), inArray(clips.id, ids)));
 }
 
 export async function updateClip(db: Executor, channelId: string, clipId: string, values: Partial<typeof clips.$inferInsert>) {

@@ -1,8 +1,8 @@
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import type { Cursor, FootageQuery } from "../../shared/rushes/footage-query";
 import type { Database } from "../db/client";
-import { clips } from "../db/schema/rushes";
-import { baseSelect, footageWhere, listClips, marksOf, sortColumns } from "./clips.repository";
+import { clipMarks, clips } from "../db/schema/rushes";
+import { baseSelect, footageWhere, listClips, sortColumns } from "./clips.repository";
 
 type Executor = Pick<Database, "select">;
 
@@ -19,7 +19,16 @@ export function filterOutline(db: Executor, channelId: string, q: FootageQuery, 
 }
 
 export type ExportRow = Awaited<ReturnType<typeof listClips>>[number];
-export type MarkRow = Awaited<ReturnType<typeof marksOf>>[number];
+export type MarkRow = Awaited<ReturnType<typeof exportMarks>>[number];
+
+/** The marks of some clips, by clip and in point: only what an export writes (no dates to parse by the thousand). */
+export function exportMarks(db: Executor, clipIds: string[]) {
+  return db
+    .select({ clipId: clipMarks.clipId, inFrame: clipMarks.inFrame, outFrame: clipMarks.outFrame, inLabel: clipMarks.inLabel, outLabel: clipMarks.outLabel, note: clipMarks.note })
+    .from(clipMarks)
+    .where(inArray(clipMarks.clipId, clipIds))
+    .orderBy(asc(clipMarks.clipId), asc(clipMarks.inFrame), asc(clipMarks.createdAt));
+}
 
 /**
  * The filter's clips in the list's order with their marks, `size` clips at a time, up to `cap`: keyset reads
@@ -33,7 +42,7 @@ export async function* clipBatches(db: Database, channelId: string, q: FootageQu
     const rows = await listClips(db, channelId, { ...q, limit: wanted }, cursor);
     const page = rows.slice(0, wanted);
     if (page.length === 0) return;
-    yield { rows: page, marks: await marksOf(db, page.map((row) => row.id)) };
+    yield { rows: page, marks: await exportMarks(db, page.map((row) => row.id)) };
     read += page.length;
     if (rows.length <= wanted) return;
     cursor = { v: page.at(-1)!.sortValue, id: page.at(-1)!.id };
@@ -43,5 +52,5 @@ export async function* clipBatches(db: Database, channelId: string, q: FootageQu
 /** Chosen clips of one channel, with their marks (for the zip and its timeline). */
 export async function clipsWithMarks(db: Database, channelId: string, ids: string[]) {
   const rows = ids.length === 0 ? [] : await baseSelect(db).where(and(eq(clips.channelId, channelId), inArray(clips.id, ids)));
-  return { rows, marks: await marksOf(db, rows.map((row) => row.id)) };
+  return { rows, marks: rows.length === 0 ? [] : await exportMarks(db, rows.map((row) => row.id)) };
 }

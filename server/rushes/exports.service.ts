@@ -1,5 +1,6 @@
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
+import { setImmediate as nextTurn } from "node:timers/promises";
 import type { Response } from "express";
 import { ZipArchive } from "archiver";
 import type { FootageQuery } from "../../shared/rushes/footage-query";
@@ -18,8 +19,10 @@ import type { RushesContext } from "./rushes.context";
 /** Exports hold the whole filter, up to this many clips (the list's totals say when there are more). */
 export const EXPORT_CAP = 5_000;
 export const ZIP_CAP = 200;
-/** Clips read and written per step of a streamed export: a few milliseconds of work between two reads. */
+/** Clips read per query of a streamed export. */
 const BATCH = 250;
+/** Clips written per turn of the event loop (a few hundred records): other requests are served in between. */
+const TURN = 25;
 
 type Row = Pick<ExportRow, Exclude<keyof ExportRow, "sortValue">>;
 
@@ -61,6 +64,14 @@ async function* exportBatches(ctx: RushesContext, caller: Caller, q: FootageQuer
   for await (const { rows, marks } of clipBatches(ctx.db, caller.channelId, q, BATCH, EXPORT_CAP)) yield exportClips(rows, marks);
 }
 
+/** Writes clips a few at a time, giving the event loop a turn after each piece. */
+async function* inTurns(clips: ExportClip[], write: (part: ExportClip[]) => string): AsyncGenerator<string> {
+  for (let i = 0; i < clips.length; i += TURN) {
+    yield write(clips.slice(i, i + TURN));
+    await nextTurn();
+  }
+}
+
 export type ExportKind = "csv" | "edl" | "otio";
 
 const exportTypes = {
@@ -95,8 +106,9 @@ export async function streamExport(ctx: RushesContext, caller: Caller, q: Footag
   let body: AsyncGenerator<string>;
   if (kind === "csv") {
     body = (async function* () {
-      yield footageCsvHead() + footageCsvRecords(firstClips);
-      for await (const clips of batches) yield footageCsvRecords(clips);
+      yield footageCsvHead();
+      yield* inTurns(firstClips, footageCsvRecords);
+      for await (const clips of batches) yield* inTurns(clips, footageCsvRecords);
     })();
   } else {
     // Names must be unique over the whole list before the first clip is written: read them first, lightly.
@@ -104,9 +116,11 @@ export async function streamExport(ctx: RushesContext, caller: Caller, q: Footag
     const names = mediaFileNames(outline);
     const oneEpisode = outline.length > 0 && outline.every((c) => c.episodeId === outline[0]!.episodeId);
     const writer = otioWriter(oneEpisode ? (firstClips[0]?.episodeTitle ?? untitled) : untitled);
+    const write = (part: ExportClip[]) => writer.clips(part, names);
     body = (async function* () {
-      yield writer.head + writer.clips(firstClips, names);
-      for await (const clips of batches) yield writer.clips(clips, names);
+      yield writer.head;
+      yield* inTurns(firstClips, write);
+      for await (const clips of batches) yield* inTurns(clips, write);
       yield writer.tail;
     })();
   }
