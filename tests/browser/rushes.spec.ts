@@ -183,8 +183,8 @@ test("an editor whose footage mixes frame rates is told so and takes one EDL per
   const clip = (name: string, rate: [number, number], dropFrame: boolean, start: string, minute: number) =>
     sql(
       `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, duration_ms, frame_rate_numerator, frame_rate_denominator, drop_frame, start_timecode, recorded_at)
-       values ($1, $2, $1 || '/' || $3, $3, 'video/quicktime', 1000, 2002, $4, $5, $6, $7, timestamptz '2026-12-14 09:00' + ($8 || ' minutes')::interval)`,
-      [channelId, episodeId, name, rate[0], rate[1], dropFrame, start, minute],
+       values ($1, $2, $3, $4, 'video/quicktime', 1000, 2002, $5, $6, $7, $8, $9)`,
+      [channelId, episodeId, `${channelId}/${episodeId}/${name}`, name, rate[0], rate[1], dropFrame, start, new Date(Date.UTC(2026, 11, 14, 9, minute))],
     );
   await clip("A001_C001.mov", [30000, 1001], true, "00:59:58;00", 1);
   await clip("B001_C001.mov", [25, 1], false, "14:10:00:00", 2);
