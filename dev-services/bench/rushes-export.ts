@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import { loadavg } from "node:os";
 import type pg from "pg";
 import { percentile } from "./measure";
 
@@ -21,6 +23,7 @@ export interface ExportFigures {
   export_rows: number;
   one_row_idle_p50_ms: number;
   one_row_idle_max_ms: number;
+  export_5k_server_cpu_ms: number;
 }
 
 /** 5,000 clips over two episodes, each with 10 marks of one second, in two statements. */
@@ -62,8 +65,14 @@ async function pollWhile(done: Promise<unknown>, get: Get, url: string): Promise
   return times;
 }
 
-export async function benchExport(opts: { exporter: Get; other: Get; exportBase: string; episodeId: string; oneRowUrl: string }): Promise<ExportFigures> {
-  const { exporter, other, exportBase, episodeId, oneRowUrl } = opts;
+/** The CPU time a process has used so far (Linux /proc/PID/stat: utime and stime, in clock ticks of 10 ms). */
+export function cpuMsOf(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]!.split(" ");
+  return (Number(fields[11]) + Number(fields[12])) * 10;
+}
+
+export async function benchExport(opts: { exporter: Get; other: Get; exportBase: string; episodeId: string; oneRowUrl: string; serverPid: number }): Promise<ExportFigures> {
+  const { exporter, other, exportBase, episodeId, oneRowUrl, serverPid } = opts;
   const csv = `${exportBase}/exports/footage.csv`;
   // One untimed export first, so the timed ones meet a warmed-up server (common practice for a benchmark).
   await timedBody(exporter, `${csv}?episodeId=${episodeId}`);
@@ -74,21 +83,27 @@ export async function benchExport(opts: { exporter: Get; other: Get; exportBase:
   const half: number[] = [];
   const whole: number[] = [];
   const stalls: number[] = [];
+  const cpu: number[] = [];
   let rows = 0;
   for (let run = 0; run < RUNS; run++) {
     half.push((await timedBody(exporter, `${csv}?episodeId=${episodeId}`)).ms);
+    const cpuBefore = cpuMsOf(serverPid);
     const exported = timedBody(exporter, csv);
     const during = await pollWhile(exported, other, oneRowUrl);
     const { ms, text } = await exported;
+    // The server's CPU time over the export, its one-row answers included: what a busy machine can't inflate much.
+    cpu.push(cpuMsOf(serverPid) - cpuBefore);
     whole.push(ms);
     stalls.push(...during);
     rows = text.split("\r\n").length - 2; // the header, and the empty string after the last CRLF
   }
   half.sort((a, b) => a - b);
   whole.sort((a, b) => a - b);
+  cpu.sort((a, b) => a - b);
   const median = (sorted: number[]) => sorted[Math.floor(sorted.length / 2)]!;
   console.log(`\n── export of ${EXPORT_CLIPS.toLocaleString("en")} clips × ${MARKS_PER_CLIP} marks (CSV), ${RUNS} runs ──`);
   console.log(`whole channel: ${whole.map((t) => t.toFixed(0)).join(", ")} ms → median ${median(whole).toFixed(0)} ms, ${rows.toLocaleString("en")} records`);
+  console.log(`server CPU time during it: median ${median(cpu)} ms (the machine's load average: ${loadavg().map((l) => l.toFixed(1)).join(", ")})`);
   console.log(`half (one episode): median ${median(half).toFixed(0)} ms; whole ÷ half = ${(median(whole) / median(half)).toFixed(2)} (2.00 is linear)`);
   console.log(`one clip from another channel: idle p50 ${percentile(idle, 50).toFixed(1)} ms, longest ${idle.at(-1)!.toFixed(1)} ms; during the exports ${stalls.length} answers, longest ${Math.max(...stalls).toFixed(1)} ms`);
   return {
@@ -99,5 +114,6 @@ export async function benchExport(opts: { exporter: Get; other: Get; exportBase:
     export_rows: rows,
     one_row_idle_p50_ms: Number(percentile(idle, 50).toFixed(1)),
     one_row_idle_max_ms: Number(idle.at(-1)!.toFixed(1)),
+    export_5k_server_cpu_ms: median(cpu),
   };
 }

@@ -170,6 +170,7 @@ async function main() {
     exportBase: `/api/channels/${exporting.channel.id}`,
     episodeId: exportEpisodes[0].id,
     oneRowUrl: `/api/channels/${crewed.channel.id}/clips/${oneClip.id}`,
+    serverPid: server.pid!,
   });
 
   // (b) the upload: the same file, direct SDK first, then the presigned path through the app.

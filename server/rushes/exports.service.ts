@@ -72,8 +72,6 @@ async function* inTurns(clips: ExportClip[], write: (part: ExportClip[]) => stri
   }
 }
 
-export type ExportKind = "csv" | "edl" | "otio";
-
 const exportTypes = {
   csv: { type: "text/csv; charset=utf-8; header=present", extension: "csv" },
   edl: { type: "text/plain; charset=utf-8", extension: "edl" },
