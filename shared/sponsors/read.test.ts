@@ -54,8 +54,8 @@ describe("read time", () => {
     expect(formatSeconds(readSeconds(1, 120))).toBe("0:01");
     expect(formatSeconds(readSeconds(1, 121))).toBe("0:00");
     expect(READ_TIME_ROUNDING).toBe("rounded to the nearest second (a half second rounds up)");
-    expect(readTimeWorking(180, 150)).toBe("180 words ÷ 150 words a minute = 72.0 s, rounded to the nearest second (a half second rounds up)");
-    expect(readTimeWorking(1, 120)).toBe("1 word ÷ 120 words a minute = 0.5 s, rounded to the nearest second (a half second rounds up)");
+    expect(readTimeWorking(180, 150)).toBe("180 words ÷ 150 words a minute = 72.0\u00a0s, rounded to the nearest second (a half second rounds up)");
+    expect(readTimeWorking(1, 120)).toBe("1 word ÷ 120 words a minute = 0.5\u00a0s, rounded to the nearest second (a half second rounds up)");
   });
 
   it("compares the estimate with the contracted length", () => {

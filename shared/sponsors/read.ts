@@ -28,10 +28,10 @@ export function readSeconds(words: number, wordsPerMinute: number): number {
 /** How every time on the read is shown (formatSeconds): to the nearest second, a half second up. */
 export const READ_TIME_ROUNDING = "rounded to the nearest second (a half second rounds up)";
 
-/** The sum behind the read time, in words: "180 words ÷ 150 words a minute = 72.0 s, rounded to …". */
+/** The sum behind the read time, in words: "180 words ÷ 150 words a minute = 72.0 s, rounded to …" (a no-break space before "s"). */
 export function readTimeWorking(words: number, wordsPerMinute: number): string {
   const exact = readSeconds(words, wordsPerMinute);
-  return `${words} ${words === 1 ? "word" : "words"} ÷ ${wordsPerMinute} words a minute = ${exact.toFixed(1)} s, ${READ_TIME_ROUNDING}`;
+  return `${words} ${words === 1 ? "word" : "words"} ÷ ${wordsPerMinute} words a minute = ${exact.toFixed(1)}\u00a0s, ${READ_TIME_ROUNDING}`;
 }
 
 /** 0:00 style, rounded to the nearest second, a half second away from zero (Math.round of the size). */

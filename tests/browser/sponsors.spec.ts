@@ -76,7 +76,7 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   // 6 + 6 + 13 words (a link or a code counts as one word).
   await expect(deals.getByTestId("read-words")).toHaveText("25");
   // The read time shows its sum and how it is rounded; "fifty euros" says the point's "50 euros".
-  await expect(deals.getByTestId("read-time-working")).toContainText(/25 words ÷ \d+ words a minute = [\d.]+ s, rounded to the nearest second \(a half second rounds up\)/);
+  await expect(deals.getByTestId("read-time-working")).toContainText(/25 words ÷ \d+ words a minute = [\d.]+\ss, rounded to the nearest second \(a half second rounds up\)/);
   await expect(deals.getByText("Talking points (2 of 2)")).toBeVisible();
   await deals.getByRole("button", { name: "Save the read" }).click();
   await expect(deals.getByText("Saved.")).toBeVisible();
