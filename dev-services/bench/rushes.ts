@@ -14,13 +14,15 @@ import { createEpisode } from "../../tests/factories/episodes";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { repoRoot, stateDir } from "../paths";
 import { percentile, signIn } from "./measure";
+import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
 import { ensureDatabase, startCluster } from "../postgres";
 import { startS3StandIn } from "../s3";
 
 /**
  * `npm run bench:rushes`: (a) the footage list over 50,000 seeded clips with a three-field filter,
  * its p95 and its query plan; (b) a 1 GiB upload through the presigned multipart path next to a direct
- * SDK upload of the same file to the same stand-in, with the app server's resident memory watched.
+ * SDK upload of the same file to the same stand-in, with the app server's resident memory watched;
+ * (c) the CSV export of a channel of 5,000 clips × 10 marks, and how long another channel waits meanwhile.
  * Everything runs on throwaway services of its own; the last line is one JSON object.
  */
 const CLIPS = Number(process.env.BENCH_CLIPS ?? 50_000);
@@ -48,6 +50,12 @@ async function seedClips(url: string, channelId: string, episodeIds: string[]) {
   );
   await handle.pool.query("analyze clips");
   return handle;
+}
+
+/** A GET as a signed-in member: the raw response, for bodies that are not JSON. */
+async function signedInGet(appUrl: string, person: { email: string; password: string }) {
+  const { cookie } = await signIn(appUrl, person);
+  return (url: string) => fetch(`${appUrl}${url}`, { headers: { cookie } });
 }
 
 async function signedInCaller(appUrl: string, person: { email: string; password: string }) {
@@ -115,10 +123,14 @@ async function main() {
   const crewed = await createCrewedChannel(setup.db, "Bench Channel");
   const episodes = [];
   for (let i = 0; i < 12; i++) episodes.push(await createEpisode(setup.db, crewed.channel.id, { title: `Bench episode ${i + 1}` }));
+  const exporting = await createCrewedChannel(setup.db, "Export Channel");
+  const exportEpisodes = [await createEpisode(setup.db, exporting.channel.id, { title: "Export half one" }), await createEpisode(setup.db, exporting.channel.id, { title: "Export half two" })] as const;
   await setup.close();
 
   console.log(`seeding ${CLIPS.toLocaleString("en")} clips…`);
   const seeded = await seedClips(url, crewed.channel.id, episodes.map((e) => e.id));
+  console.log(`seeding ${EXPORT_CLIPS.toLocaleString("en")} clips × 10 marks in another channel…`);
+  await seedExportChannel(seeded.pool, exporting.channel.id, [exportEpisodes[0].id, exportEpisodes[1].id]);
 
   const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
@@ -148,7 +160,18 @@ async function main() {
   console.log(`p50 ${percentile(timings, 50).toFixed(1)} ms, p95 ${percentile(timings, 95).toFixed(1)} ms, max ${timings.at(-1)!.toFixed(1)} ms`);
   console.log("EXPLAIN ANALYZE of the page query:");
   for (const row of plan.rows as { "QUERY PLAN": string }[]) console.log(`  ${row["QUERY PLAN"]}`);
+  const oneClip = (await seeded.pool.query("select id from clips where channel_id = $1 limit 1", [crewed.channel.id])).rows[0] as { id: string };
   await seeded.close();
+
+  // (c) the export, while another channel's editor asks for one clip again and again.
+  const exportFigures = await benchExport({
+    exporter: await signedInGet(appUrl, exporting.editor),
+    other: await signedInGet(appUrl, crewed.editor),
+    exportBase: `/api/channels/${exporting.channel.id}`,
+    episodeId: exportEpisodes[0].id,
+    oneRowUrl: `/api/channels/${crewed.channel.id}/clips/${oneClip.id}`,
+    serverPid: server.pid!,
+  });
 
   // (b) the upload: the same file, direct SDK first, then the presigned path through the app.
   const file = path.join(work, "upload.bin");
@@ -201,6 +224,7 @@ async function main() {
     presigned_mib_per_s: Number((UPLOAD_MIB / presignedSeconds).toFixed(1)),
     upload_ratio: Number((directSeconds / presignedSeconds).toFixed(3)),
     server_rss_growth_mb: Number((peak - baseline).toFixed(1)),
+    ...exportFigures,
   };
   console.log("");
   console.log(JSON.stringify(result));

@@ -7,7 +7,7 @@ import { episodes } from "../db/schema/slate";
 type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "execute">;
 
 /** Each sort: its column and the SQL type its cursor value is read back as. */
-const sortColumns = {
+export const sortColumns = {
   recorded: { column: clips.recordedAt, type: sql`timestamptz` },
   uploaded: { column: clips.createdAt, type: sql`timestamptz` },
   name: { column: clips.fileName, type: sql`text` },
@@ -75,7 +75,7 @@ const clipColumns = {
 
 export type ClipRow = NonNullable<Awaited<ReturnType<typeof findClip>>>;
 
-function baseSelect(db: Executor) {
+export function baseSelect(db: Executor) {
   return db
     .select(clipColumns)
     .from(clips)
@@ -117,29 +117,11 @@ export async function footageTotals(db: Executor, channelId: string, q: FootageQ
   return { clips: row.clips, durationMs: Number(row.durationMs), bytes: Number(row.bytes) };
 }
 
-/** Every clip of the filter, in the list's order (for the exports), up to a cap. */
-export async function allClips(db: Executor, channelId: string, q: FootageQuery, cap: number) {
-  const sort = sortColumns[q.sort];
-  const direction = q.dir === "asc" ? asc : desc;
-  return baseSelect(db)
-    .where(footageWhere(channelId, q))
-    .orderBy(direction(sort.column), direction(clips.id))
-    .limit(cap);
-}
-
 export async function findClip(db: Executor, channelId: string, clipId: string) {
   const rows = await baseSelect(db)
     .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId)))
     .limit(1);
   return rows[0] ?? null;
-}
-
-export async function clipsByIds(db: Executor, channelId: string, ids: string[]) {
-  if (ids.length === 0) return [];
-  return db
-    .select({ id: clips.id, fileName: clips.fileName, objectKey: clips.objectKey, size: clips.sizeBytes })
-    .from(clips)
-    .where(and(eq(clips.channelId, channelId), inArray(clips.id, ids)));
 }
 
 export async function updateClip(db: Executor, channelId: string, clipId: string, values: Partial<typeof clips.$inferInsert>) {

@@ -10,7 +10,9 @@ import {
   measuredSeconds,
   mentionsCode,
   mentionsLink,
+  READ_TIME_ROUNDING,
   readSeconds,
+  readTimeWorking,
 } from "./read";
 
 const words = (n: number) => Array.from({ length: n }, (_, i) => `word${i}`).join(" ");
@@ -45,6 +47,17 @@ describe("read time", () => {
     expect(formatSeconds(0)).toBe("0:00");
   });
 
+  it("says how the shown time is rounded: to the nearest second, a half second up", () => {
+    // 151 words at 150 wpm = 60.4 s, shown 1:00; 1 word at 120 wpm = 0.5 s, shown 0:01 (JavaScript's Math.round,
+    // ECMAScript 2024, 21.3.2.28: a half rounds towards +∞; common practice for a shown duration).
+    expect(formatSeconds(readSeconds(151, 150))).toBe("1:00");
+    expect(formatSeconds(readSeconds(1, 120))).toBe("0:01");
+    expect(formatSeconds(readSeconds(1, 121))).toBe("0:00");
+    expect(READ_TIME_ROUNDING).toBe("rounded to the nearest second (a half second rounds up)");
+    expect(readTimeWorking(180, 150)).toBe("180 words ÷ 150 words a minute = 72.0\u00a0s, rounded to the nearest second (a half second rounds up)");
+    expect(readTimeWorking(1, 120)).toBe("1 word ÷ 120 words a minute = 0.5\u00a0s, rounded to the nearest second (a half second rounds up)");
+  });
+
   it("compares the estimate with the contracted length", () => {
     // 180 words at 150 wpm = 72 s, against a 60 s contract: 12 s long.
     const report = analyseRead({ script: words(180), wordsPerMinute: 150, contractedSeconds: 60, talkingPoints: [], link: null, promoCode: null });
@@ -73,6 +86,19 @@ describe("talking points", () => {
     const missing = checkTalkingPoint("Two-year warranty", script);
     expect(missing.covered).toBeNull();
     expect(missing.missing).toEqual(["two", "year", "warranty"]);
+  });
+
+  it("ticks a point whose numbers and units the script says in words", () => {
+    const spoken = "It charges to eighty percent in under an hour. Three hundred watts peak, all day. Shipping is free on orders over fifty euros.";
+    expect(checkTalkingPoint("Charges to 80% in under an hour", spoken).covered).toBe("phrase");
+    expect(checkTalkingPoint("300 W peak", spoken).covered).toBe("phrase");
+    expect(checkTalkingPoint("Free shipping over 50 euros", spoken)).toMatchObject({ covered: "words", missing: [] });
+    expect(checkTalkingPoint("$50 off", "Fifty dollars off today.").covered).toBe("phrase");
+  });
+
+  it("names what is missing as the point says it", () => {
+    expect(checkTalkingPoint("80% charge in 30 minutes", "Charge to 80% in an hour.")).toMatchObject({ covered: null, missing: ["30", "minutes"] });
+    expect(checkTalkingPoint("Three hundred watts", "It makes 250 W.").missing).toEqual(["three hundred"]);
   });
 
   it("counts covered points in the read report", () => {

@@ -1,5 +1,6 @@
 import { durationFrames, framesToSeconds } from "../timecode/timecode";
 import type { TimecodeFormat } from "../timecode/rates";
+import { type SpokenToken, spokenTokens } from "./spoken-numbers";
 
 /**
  * A host's default speaking rate for a read, in words per minute. About 150 wpm is the figure given
@@ -24,7 +25,16 @@ export function readSeconds(words: number, wordsPerMinute: number): number {
   return (words / wordsPerMinute) * 60;
 }
 
-/** 0:00 style, rounded to the nearest second. */
+/** How every time on the read is shown (formatSeconds): to the nearest second, a half second up. */
+export const READ_TIME_ROUNDING = "rounded to the nearest second (a half second rounds up)";
+
+/** The sum behind the read time, in words: "180 words ÷ 150 words a minute = 72.0 s, rounded to …" (a no-break space before "s"). */
+export function readTimeWorking(words: number, wordsPerMinute: number): string {
+  const exact = readSeconds(words, wordsPerMinute);
+  return `${words} ${words === 1 ? "word" : "words"} ÷ ${wordsPerMinute} words a minute = ${exact.toFixed(1)}\u00a0s, ${READ_TIME_ROUNDING}`;
+}
+
+/** 0:00 style, rounded to the nearest second, a half second away from zero (Math.round of the size). */
 export function formatSeconds(seconds: number): string {
   const total = Math.round(Math.abs(seconds));
   const sign = seconds < 0 && total > 0 ? "−" : "";
@@ -46,38 +56,50 @@ const stopWords = new Set(
   "a an and are as at be but by for from has have in is it its of on or our so that the their this to was we with you your".split(" "),
 );
 
-function keywords(text: string): string[] {
-  return [...new Set(normalise(text).split(" ").filter((word) => word.length > 0 && !stopWords.has(word)))];
+/** The point's tokens that must be said, once each, without the short words. */
+function keywords(tokens: SpokenToken[]): SpokenToken[] {
+  const seen = new Set<string>();
+  return tokens.filter((t) => !stopWords.has(t.token) && !seen.has(t.token) && seen.add(t.token));
 }
 
 function sentences(script: string): string[] {
   return script.split(/(?<=[.!?])\s+|\n+/u).filter((s) => s.trim().length > 0);
 }
 
+function containsRun(haystack: string[], needle: string[]): boolean {
+  outer: for (let i = 0; i + needle.length <= haystack.length; i++) {
+    for (let k = 0; k < needle.length; k++) if (haystack[i + k] !== needle[k]) continue outer;
+    return true;
+  }
+  return false;
+}
+
 export interface PointCheck {
   point: string;
   /** "phrase": the point's words appear in order; "words": every keyword appears in one sentence. */
   covered: "phrase" | "words" | null;
-  /** Keywords of the point missing from the sentence that covers most of them. */
+  /** Keywords of the point missing from the sentence that covers most of them, as the point says them. */
   missing: string[];
 }
 
 /**
  * A talking point is ticked when the script says it: the whole phrase, or all of its keywords within
- * one sentence (so "free shipping over 50 euros" ticks on "shipping is free on orders over 50 euros").
+ * one sentence (so "free shipping over 50 euros" ticks on "shipping is free on orders over fifty euros").
+ * Numbers and units compare by value and name (spoken-numbers.ts): "eighty percent" says "80%".
  */
 export function checkTalkingPoint(point: string, script: string): PointCheck {
-  const phrase = normalise(point);
-  if (phrase.length === 0) return { point, covered: null, missing: [] };
-  if (` ${normalise(script)} `.includes(` ${phrase} `)) return { point, covered: "phrase", missing: [] };
-  const wanted = keywords(point);
-  let best: string[] = wanted;
+  const wanted = spokenTokens(point);
+  if (wanted.length === 0) return { point, covered: null, missing: [] };
+  const said = spokenTokens(script).map((t) => t.token);
+  if (containsRun(said, wanted.map((t) => t.token))) return { point, covered: "phrase", missing: [] };
+  const needed = keywords(wanted);
+  let best = needed;
   for (const sentence of sentences(script)) {
-    const said = new Set(normalise(sentence).split(" "));
-    const missing = wanted.filter((word) => !said.has(word));
+    const heard = new Set(spokenTokens(sentence).map((t) => t.token));
+    const missing = needed.filter((k) => !heard.has(k.token));
     if (missing.length < best.length) best = missing;
   }
-  return { point, covered: wanted.length > 0 && best.length === 0 ? "words" : null, missing: best };
+  return { point, covered: needed.length > 0 && best.length === 0 ? "words" : null, missing: best.map((k) => k.said) };
 }
 
 /** A link as people say and print it: no scheme, no "www.", no trailing slash, lower case. */

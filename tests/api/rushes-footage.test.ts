@@ -1,10 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parse as parseCsv } from "csv-parse/sync";
-import { parseEdl } from "../../shared/rushes/exports/edl";
+import { strFromU8, unzipSync } from "fflate";
+import type { Response } from "superagent";
+import { parseEdl } from "../../shared/rushes/exports/edl-parse";
+import { formatOfEdlRate } from "../../shared/rushes/exports/edl-rates";
+import { clipMarks, clips } from "../../server/db/schema/rushes";
 import { createEpisode } from "../factories/episodes";
-import { createClip, createShootDay, createShot } from "../factories/rushes";
+import { clipValues, createClip, createShootDay, createShot } from "../factories/rushes";
+import { readLikeOtio } from "../support/cmx3600-otio-rules";
 import { startTestApp, type TestApp } from "../support/test-app";
-import { patternBytes, rushesWorld, uploadFile } from "./rushes-helpers";
+import { patternBytes, rushesWorld, sampleMetadata, uploadFile } from "./rushes-helpers";
 
 let app: TestApp;
 let world: Awaited<ReturnType<typeof rushesWorld>>;
@@ -13,6 +18,14 @@ beforeAll(async () => {
   world = await rushesWorld(app);
 });
 afterAll(() => app.close());
+
+/** A binary body (a zip) as bytes. */
+const binary = (res: Response, done: (error: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on("data", (c: Buffer) => chunks.push(c));
+  res.on("end", () => done(null, Buffer.concat(chunks)));
+};
+const unzip = (body: Buffer) => unzipSync(new Uint8Array(body));
 
 describe("shoot days and the shot list", () => {
   it("when crew plan a day with shots, then the day's view lists the shots still missing until a clip is linked", async () => {
@@ -256,7 +269,8 @@ describe("exports of the current filter", () => {
     const first = track.children[0];
     expect(first.OTIO_SCHEMA).toBe("Clip.2");
     expect(first.active_media_reference_key).toBe("DEFAULT_MEDIA");
-    expect(first.media_references.DEFAULT_MEDIA).toMatchObject({ OTIO_SCHEMA: "ExternalReference.1", target_url: 'Relay "bank", take 2.mov' });
+    // The file's name as a percent-encoded relative URL (RFC 3986, sections 2.1 and 4.2).
+    expect(first.media_references.DEFAULT_MEDIA).toMatchObject({ OTIO_SCHEMA: "ExternalReference.1", name: 'Relay "bank", take 2.mov', target_url: "Relay%20%22bank%22%2C%20take%202.mov" });
     // 01:00:01;00 at 29.97 DF is frame 107,922: an hour is 107,892 frames (a tenth of 10:00:00;00 = 1,078,920 in
     // smpte-timecode 1.3.6, test/smpte-timecode-test.js, "drop-frame counts"), plus 30.
     expect(first.source_range.start_time).toEqual({ OTIO_SCHEMA: "RationalTime.1", value: 107_922, rate: 30000 / 1001 });
@@ -272,11 +286,7 @@ describe("bulk download and photos", () => {
     const response = await world.as.editor
       .get(`${world.base}/exports/footage.zip?ids=${one.body.clip.id},${two.body.clip.id}`)
       .buffer(true)
-      .parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on("data", (c: Buffer) => chunks.push(c));
-        res.on("end", () => done(null, Buffer.concat(chunks)));
-      })
+      .parse(binary)
       .expect(200);
     const body = response.body as Buffer;
     expect(response.headers["content-type"]).toBe("application/zip");
@@ -301,5 +311,122 @@ describe("bulk download and photos", () => {
     expect((await post("notes.pdf", jpeg).expect(415)).body.error.message).toMatch(/doesn't take \.pdf files as a photo/);
     expect((await post("big.jpg", jpeg, 30 * 1024 * 1024).expect(413)).body.error.message).toBe('"big.jpg" is 30 MiB; a photo can be at most 20 MiB.');
     expect((await post("liar.jpg", jpeg, jpeg.length + 5).expect(400)).body.error.message).toMatch(/its size field said/);
+  });
+});
+
+
+describe("EDLs of a filter that mixes frame rates", () => {
+  let episodeId: string;
+  beforeAll(async () => {
+    const episode = await createEpisode(app.db, world.channel.id, { title: "Gantry crane" });
+    episodeId = episode.id;
+    const at = (minute: number) => new Date(`2026-12-02T10:${String(minute).padStart(2, "0")}:00Z`);
+    const dfClip = await createClip(app.db, world.channel.id, episodeId, { fileName: "A001_C001.mov", recordedAt: at(1), startTimecode: "00:00:58;00", durationMs: 4004 });
+    await world.as.editor.send("post", `${world.base}/clips/${dfClip.id}/marks`, { in: "00:00:59;28", out: "00:01:00;04", note: "hook\u2028slips" }).expect(201);
+    const pal = { frameRateNumerator: 25, frameRateDenominator: 1, dropFrame: false };
+    await createClip(app.db, world.channel.id, episodeId, { ...pal, fileName: "A001_C002.mov", recordedAt: at(2), startTimecode: "10:00:00:00", durationMs: 2000 });
+    await createClip(app.db, world.channel.id, episodeId, { fileName: "phone.mp4", recordedAt: at(3), frameRateNumerator: null, frameRateDenominator: null, dropFrame: false, startTimecode: null });
+  });
+  const filter = () => `episodeId=${episodeId}&sort=recorded&dir=asc`;
+
+  it("when the footage list asks, then it learns the filter's rates and the clips no list can hold", async () => {
+    const answer = await world.as.editor.get(`${world.base}/exports/edl-rates?${filter()}`).expect(200);
+    expect(answer.body).toEqual({
+      rates: [
+        { rate: "29.97df", label: "29.97 fps drop-frame", clips: 1 },
+        { rate: "25", label: "25 fps non-drop-frame", clips: 1 },
+      ],
+      withoutRate: 1,
+    });
+  });
+
+  it("when exported without a rate, then a zip holds one list per rate, each read back with its clips' own timecode", async () => {
+    const response = await world.as.editor.get(`${world.base}/exports/footage.edl?${filter()}`).buffer(true).parse(binary).expect(200);
+    expect(response.headers["content-type"]).toBe("application/zip");
+    expect(response.headers["content-disposition"]).toMatch(/filename="footage-\d{4}-\d{2}-\d{2}-edls\.zip"/);
+    const files = unzip(response.body as Buffer);
+    const names = Object.keys(files).sort();
+    expect(names).toEqual([expect.stringMatching(/^footage-.*-25\.edl$/), expect.stringMatching(/^footage-.*-29\.97df\.edl$/)]);
+    const df = strFromU8(files[names[1]!]!);
+    const pal = strFromU8(files[names[0]!]!);
+    // Both readers, Kerf's strict one (with the rate's labels checked) and OpenTimelineIO's rules, see the clips' own labels.
+    expect(parseEdl(df, formatOfEdlRate("29.97df")).events.map((e) => [e.reel, e.sourceIn, e.sourceOut])).toEqual([["A001C001", "00:00:59;28", "00:01:00;04"]]);
+    expect(readLikeOtio(df).events[0]).toMatchObject({ sourceIn: "00:00:59;28", sourceOut: "00:01:00;04", clipName: "A001_C001.mov" });
+    expect(parseEdl(pal, formatOfEdlRate("25")).events.map((e) => [e.reel, e.sourceIn, e.sourceOut])).toEqual([["A001C002", "10:00:00:00", "10:00:02:00"]]);
+    expect(readLikeOtio(pal).events[0]).toMatchObject({ sourceIn: "10:00:00:00", sourceOut: "10:00:02:00", clipName: "A001_C002.mov" });
+    expect(parseEdl(df).events[0]!.comments).toContain("COMMENT: hook slips");
+    expect(parseEdl(pal).notes).toEqual(
+      expect.arrayContaining([expect.stringMatching(/^OTHER RATES: this filter also holds 29.97 fps drop-frame \(1 clip\)/), "LEFT OUT (no frame rate Kerf can time): phone.mp4"]),
+    );
+  });
+
+  it("when a rate is chosen, then that list alone comes back, named by its rate; an unknown rate is a 400", async () => {
+    const response = await world.as.editor.get(`${world.base}/exports/footage.edl?${filter()}&rate=25`).expect(200);
+    expect(response.headers["content-type"]).toMatch(/^text\/plain/);
+    expect(response.headers["content-disposition"]).toMatch(/filename="footage-\d{4}-\d{2}-\d{2}-25\.edl"/);
+    expect(parseEdl(response.text, formatOfEdlRate("25")).events).toHaveLength(1);
+    const wrong = await world.as.editor.get(`${world.base}/exports/footage.edl?${filter()}&rate=24df`).expect(400);
+    expect(wrong.body.error.fields.rate).toMatch(/^Choose one of 23.976, 24, 25, 29.97, 29.97df/);
+    const absent = await world.as.editor.get(`${world.base}/exports/footage.edl?${filter()}&rate=50`).expect(422);
+    expect(absent.body.error.message).toBe("None of these clips is at 50 fps non-drop-frame.");
+  });
+});
+
+describe("a large export, streamed", () => {
+  let episodeId: string;
+  const count = 620; // more than two of the export's batches of 250
+  beforeAll(async () => {
+    episodeId = (await createEpisode(app.db, world.channel.id, { title: "Big shoot" })).id;
+    const rows = Array.from({ length: count }, (_, i) =>
+      clipValues(world.channel.id, episodeId, { fileName: `BIG_${String(i).padStart(4, "0")}.mov`, recordedAt: new Date(Date.UTC(2026, 11, 3, 9, 0, i)) }),
+    );
+    const inserted = await app.db.insert(clips).values(rows).returning({ id: clips.id });
+    // Two marks on every clip, inserted in reverse so the marks' order in the table is not the clips'.
+    const marks = inserted.flatMap(({ id }) => [1, 0].map((m) => ({ channelId: world.channel.id, clipId: id, inFrame: 107_892 + m * 30, outFrame: 107_922 + m * 30, inLabel: `01:00:0${m};00`, outLabel: `01:00:0${m + 1};00`, note: `mark ${m}` })));
+    await app.db.insert(clipMarks).values(marks.reverse());
+  });
+
+  it("when exported as CSV by name, then every clip and mark comes once, in the list's order, whatever the batch edges", async () => {
+    const response = await world.as.editor.get(`${world.base}/exports/footage.csv?episodeId=${episodeId}&sort=name&dir=desc`).expect(200);
+    const records: string[][] = parseCsv(response.text, { record_delimiter: "\r\n" });
+    expect(records).toHaveLength(1 + count * 2);
+    const expected = Array.from({ length: count }, (_, i) => `BIG_${String(count - 1 - i).padStart(4, "0")}.mov`).flatMap((name) => [
+      [name, "01:00:00;00", "mark 0"],
+      [name, "01:00:01;00", "mark 1"],
+    ]);
+    expect(records.slice(1).map((r) => [r[0], r[13], r[15]])).toEqual(expected);
+  });
+
+  it("when exported as OpenTimelineIO, then the streamed pieces are one timeline of every mark", async () => {
+    const response = await world.as.editor.get(`${world.base}/exports/footage.otio?episodeId=${episodeId}`).expect(200);
+    const timeline = JSON.parse(response.text);
+    expect(timeline.name).toBe("Big shoot");
+    expect(timeline.tracks.children[0].children).toHaveLength(count * 2);
+  });
+
+  it("when another channel's member asks for the same filter, then they get nothing of it", async () => {
+    const other = await rushesWorld(app);
+    const response = await other.as.editor.get(`${other.base}/exports/footage.csv?episodeId=${episodeId}`).expect(200);
+    expect(response.text.split("\r\n")).toHaveLength(2); // the header and the empty string after it
+  });
+});
+
+describe("the zip of chosen clips", () => {
+  it("when downloaded, then it holds a timeline whose target URLs are the files' names in the zip", async () => {
+    const metadata = { ...sampleMetadata, startTimecode: "01:00:00;00" };
+    const one = await uploadFile(world.as.editor, world.base, world.episode.id, "take #1.mov", patternBytes(3000, 1), metadata);
+    const two = await uploadFile(world.as.editor, world.base, world.episode.id, "take #1.mov", patternBytes(4000, 2), metadata);
+    const response = await world.as.editor.get(`${world.base}/exports/footage.zip?ids=${one.body.clip.id},${two.body.clip.id}`).buffer(true).parse(binary).expect(200);
+    const files = unzip(response.body as Buffer);
+    expect(Object.keys(files).sort()).toEqual(["take #1 (2).mov", "take #1.mov", "timeline.otio"]);
+    const timeline = JSON.parse(strFromU8(files["timeline.otio"]!));
+    const targets = timeline.tracks.children[0].children.map((c: { media_references: { DEFAULT_MEDIA: { target_url: string } } }) => c.media_references.DEFAULT_MEDIA.target_url);
+    expect(targets.map((t: string) => decodeURIComponent(t)).sort()).toEqual(["take #1 (2).mov", "take #1.mov"]);
+    expect(targets.every((t: string) => !/[ #]/.test(t))).toBe(true);
+    // Each name holds the bytes of the clip the timeline says it is.
+    for (const child of timeline.tracks.children[0].children) {
+      const bytes = files[decodeURIComponent(child.media_references.DEFAULT_MEDIA.target_url)]!;
+      expect(bytes.length).toBe(child.metadata.kerf.clip_id === one.body.clip.id ? 3000 : 4000);
+    }
   });
 });

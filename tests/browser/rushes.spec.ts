@@ -4,8 +4,8 @@ import os from "node:os";
 import path from "node:path";
 import { expect, test, type Page } from "@playwright/test";
 import { parse as parseCsv } from "csv-parse/sync";
-import { parseEdl } from "../../shared/rushes/exports/edl";
-import { hostWithEpisode, member, signInOn, snap } from "./support";
+import { parseEdl } from "../../shared/rushes/exports/edl-parse";
+import { hostWithEpisode, member, signInOn, snap, sql } from "./support";
 
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
 const storage = process.env.KERF_TEST_S3_ENDPOINT ?? "http://127.0.0.1:4568";
@@ -171,4 +171,44 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   await expect(missing.getByText("Host explains the coupler")).toBeVisible();
   await expect(page.getByText("Stage separation in slow motion")).toBeVisible();
   await snap(page, "rushes-10-crew-day");
+});
+
+test("an editor whose footage mixes frame rates is told so and takes one EDL per rate, each in its clips' own timecode", async ({ page, browser }) => {
+  const hostContext = await browser.newContext();
+  const { channelId, episodeId } = await hostWithEpisode(await hostContext.newPage(), {
+    host: { name: "Runa Holt", channel: "Bench Grinder Notes" },
+    episode: { title: "Belt sander teardown", question: "Where does the belt slip?", origin: "idea", stage: "shoot" },
+  });
+  await hostContext.close();
+  const clip = (name: string, rate: [number, number], dropFrame: boolean, start: string, minute: number) =>
+    sql(
+      `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, duration_ms, frame_rate_numerator, frame_rate_denominator, drop_frame, start_timecode, recorded_at)
+       values ($1, $2, $3, $4, 'video/quicktime', 1000, 2002, $5, $6, $7, $8, $9)`,
+      [channelId, episodeId, `${channelId}/${episodeId}/${name}`, name, rate[0], rate[1], dropFrame, start, new Date(Date.UTC(2026, 11, 14, 9, minute))],
+    );
+  await clip("A001_C001.mov", [30000, 1001], true, "00:59:58;00", 1);
+  await clip("B001_C001.mov", [25, 1], false, "14:10:00:00", 2);
+  await clip("B001_C002.mov", [25, 1], false, "14:20:00:00", 3);
+  const editor = await member(channelId, "Sigve Aas", "editor");
+  await signInOn(page, editor.email);
+  await page.goto(`/c/${channelId}/rushes`);
+
+  const note = page.getByRole("note", { name: "Frame rates of this filter" });
+  await expect(note).toContainText("These clips were shot at 2 frame rates. An EDL holds one rate, and Kerf never converts a clip's timecode");
+  await expect(page.getByRole("link", { name: "EDLs, one per rate (zip)" })).toBeVisible();
+  await snap(page, "rushes-11-mixed-rates");
+  const [download] = await Promise.all([page.waitForEvent("download"), note.getByRole("link", { name: "EDL at 25 fps non-drop-frame" }).click()]);
+  expect(download.suggestedFilename()).toMatch(/^footage-\d{4}-\d{2}-\d{2}-25\.edl$/);
+  const edl = parseEdl(readFileSync((await download.path())!, "utf8"));
+  // Most recent first (the list's order); 2.002 s at 25 fps is 50 frames: 2 s.
+  expect(edl.events.map((e) => [e.reel, e.sourceIn, e.sourceOut])).toEqual([
+    ["B001C002", "14:20:00:00", "14:20:02:00"],
+    ["B001C001", "14:10:00:00", "14:10:02:00"],
+  ]);
+
+  // On a phone the note wraps with the page, which never scrolls sideways.
+  await page.setViewportSize({ width: 390, height: 844 });
+  await expect(note).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await snap(page, "rushes-12-mixed-rates-phone");
 });

@@ -72,9 +72,12 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await snap(producer, "sponsors-05-dates-followed");
 
   // The read: a script with the disclosure, then a review link for the script approval.
-  await deals.getByLabel("Script of the segment").fill("This video is sponsored by Halvard. Their supply holds 0.1 mV ripple. Shipping is free on orders over 50 euros at halvard.example/millrace with code MILLRACE10.");
+  await deals.getByLabel("Script of the segment").fill("This video is sponsored by Halvard. Their supply holds 0.1 mV ripple. Shipping is free on orders over fifty euros at halvard.example/millrace with code MILLRACE10.");
   // 6 + 6 + 13 words (a link or a code counts as one word).
   await expect(deals.getByTestId("read-words")).toHaveText("25");
+  // The read time shows its sum and how it is rounded; "fifty euros" says the point's "50 euros".
+  await expect(deals.getByTestId("read-time-working")).toContainText(/25 words ÷ \d+ words a minute = [\d.]+\ss, rounded to the nearest second \(a half second rounds up\)/);
+  await expect(deals.getByText("Talking points (2 of 2)")).toBeVisible();
   await deals.getByRole("button", { name: "Save the read" }).click();
   await expect(deals.getByText("Saved.")).toBeVisible();
   // Beside the read, where the disclosure is checked: the sources it follows, and that it is no legal advice.

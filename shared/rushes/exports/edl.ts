@@ -1,110 +1,104 @@
-import { type TimecodeFormat, describeFormat, frameRateName } from "../../timecode/rates";
+import type { TimecodeFormat } from "../../timecode/rates";
 import { formatTimecode, parseTimecode } from "../../timecode/timecode";
 import { type ExportClip, formatOf, sourceRanges } from "./clip-ranges";
+import { type EdlRate, edlRateLabel, edlRateOf, formatOfEdlRate } from "./edl-rates";
+import { uniqueReels } from "./edl-reels";
+import { oneLine } from "./one-line";
 
 /**
- * An edit decision list in CMX 3600 form (SMPTE 258M; layout as in OpenTimelineIO's CMX 3600
- * adapter and its sample files): a TITLE: and an FCM: line, then one cut event per range:
- * event number, reel, channel, transition, source in, source out, record in, record out, out points
- * exclusive, and `*` comment lines naming the clip. Every mark becomes an event laid end to end on
- * the record side from 01:00:00:00 (common practice for a programme's start).
+ * Edit decision lists in CMX 3600 form (SMPTE 258M; layout as in OpenTimelineIO's CMX 3600 adapter and its
+ * sample files): a TITLE: and an FCM: line, then one cut event per range: event number, reel, channel,
+ * transition, source in, source out, record in, record out, out points exclusive, and `*` comment lines
+ * naming the clip. Every mark becomes an event laid end to end on the record side from 01:00:00:00
+ * (common practice for a programme's start).
+ *
+ * A source timecode is never rewritten: every event is written in its clip's own rate and drop-frame labels,
+ * so it names frames that exist in the camera file. A list has one rate (see edl-rates.ts), so clips of
+ * other rates go in lists of their own, and each list says so in its closing comments. Those comments come
+ * after the events: some readers refuse anything but TITLE: and FCM: before the first event.
  */
 // Hand-written: no maintained npm package writes CMX 3600; the format is a page of fixed columns.
 export const MAX_EDL_EVENTS = 999;
 
 export class EdlError extends Error {}
 
-const sameFormat = (a: TimecodeFormat, b: TimecodeFormat) =>
-  a.dropFrame === b.dropFrame && a.rate.numerator * b.rate.denominator === b.rate.numerator * a.rate.denominator;
+export interface EdlList {
+  rate: EdlRate;
+  clips: number;
+  events: number;
+  text: string;
+}
 
-/** The list's format: the one most of the clips share (ties go to the first seen). */
-export function edlFormat(clips: ExportClip[]): TimecodeFormat | null {
-  const counts: { format: TimecodeFormat; count: number }[] = [];
+const tcLine = (frame: number, format: TimecodeFormat) => formatTimecode(frame, format);
+
+/** The clips of the list, by rate, in the order of the rate's first clip; clips with no usable rate apart. */
+export function clipsByRate(clips: readonly ExportClip[]): { byRate: Map<EdlRate, ExportClip[]>; withoutRate: ExportClip[] } {
+  const byRate = new Map<EdlRate, ExportClip[]>();
+  const withoutRate: ExportClip[] = [];
   for (const clip of clips) {
-    const format = formatOf(clip);
-    if (!format) continue;
-    const seen = counts.find((c) => sameFormat(c.format, format));
-    if (seen) seen.count++;
-    else counts.push({ format, count: 1 });
+    const rate = edlRateOf(formatOf(clip));
+    if (rate === null) withoutRate.push(clip);
+    else byRate.set(rate, [...(byRate.get(rate) ?? []), clip]);
   }
-  return counts.reduce<(typeof counts)[number] | null>((best, c) => (!best || c.count > best.count ? c : best), null)?.format ?? null;
+  return { byRate, withoutRate };
 }
 
-/** CMX reels are at most 8 characters of letters, digits and underscores. */
-export function reelName(fileName: string): string {
-  const stem = fileName.replace(/\.[^.]*$/, "").toUpperCase().replace(/[^A-Z0-9_]/g, "");
-  return (stem || "AX").slice(0, 8);
+interface ListContext {
+  title: string;
+  /** Each clip's file name as downloaded (media-names.ts): the same in the zip, the timeline and here. */
+  names: Map<string, string>;
+  otherRates: { rate: EdlRate; clips: number }[];
+  withoutRate: ExportClip[];
 }
 
-const commentSafe = (text: string) => text.replace(/[\r\n]+/g, " ").trim();
-
-/** A frame at one rate expressed at another, by real time (for clips shot at another rate). */
-function convertFrame(frame: number, from: TimecodeFormat, to: TimecodeFormat): number {
-  if (sameFormat(from, to)) return frame;
-  const seconds = (frame * from.rate.denominator) / from.rate.numerator;
-  return Math.round((seconds * to.rate.numerator) / to.rate.denominator);
+function eventCount(clips: readonly ExportClip[]): number {
+  return clips.reduce((sum, clip) => sum + Math.max(1, clip.marks.length), 0);
 }
 
-export function footageEdl(title: string, clips: ExportClip[]): string {
-  const format = edlFormat(clips);
-  if (!format) throw new EdlError("None of these clips has a frame rate, so they can't go in an edit decision list.");
-  const lines = [`TITLE: ${commentSafe(title).slice(0, 70) || "KERF"}`, `FCM: ${format.dropFrame ? "DROP FRAME" : "NON-DROP FRAME"}`];
+/** One list: the clips of one rate, source and record timecodes all in that rate. */
+export function writeEdl(rate: EdlRate, clips: readonly ExportClip[], context: ListContext): EdlList {
+  const format = formatOfEdlRate(rate);
+  const events = eventCount(clips);
+  if (events > MAX_EDL_EVENTS) {
+    throw new EdlError(`The ${edlRateLabel(rate)} list would hold ${events} events, and an edit decision list holds at most ${MAX_EDL_EVENTS}; narrow the filter.`);
+  }
+  const nameOf = (clip: ExportClip) => context.names.get(clip.id) ?? oneLine(clip.fileName);
+  const reels = uniqueReels(clips.map((clip) => ({ id: clip.id, fileName: nameOf(clip) })));
+  const lines = [`TITLE: ${oneLine(context.title).slice(0, 70) || "KERF"}`, `FCM: ${format.dropFrame ? "DROP FRAME" : "NON-DROP FRAME"}`];
   let record = parseTimecode(format.dropFrame ? "01:00:00;00" : "01:00:00:00", format);
   let event = 0;
-  const skipped: string[] = [];
   for (const clip of clips) {
-    const own = formatOf(clip);
-    if (!own) {
-      skipped.push(clip.fileName);
-      continue;
-    }
-    for (const range of sourceRanges(clip, own)) {
+    for (const range of sourceRanges(clip, format)) {
       event++;
-      if (event > MAX_EDL_EVENTS) throw new EdlError(`An edit decision list holds at most ${MAX_EDL_EVENTS} events; narrow the filter.`);
-      const start = convertFrame(range.start, own, format);
-      const end = Math.max(start + 1, convertFrame(range.end, own, format));
-      const length = end - start;
-      const tc = (f: number) => formatTimecode(f, format);
-      lines.push("");
-      lines.push(`${String(event).padStart(3, "0")}  ${reelName(clip.fileName).padEnd(8)} V     C        ${tc(start)} ${tc(end)} ${tc(record)} ${tc(record + length)}`);
-      lines.push(`* FROM CLIP NAME: ${commentSafe(clip.fileName)}`);
-      if (!sameFormat(own, format)) lines.push(`* SOURCE FORMAT: ${describeFormat(own)}, times converted to ${frameRateName(format.rate)} fps`);
-      if (range.note) lines.push(`* COMMENT: ${commentSafe(range.note)}`);
+      const length = Math.max(1, range.end - range.start);
+      const times = [range.start, range.start + length, record, record + length].map((f) => tcLine(f, format));
+      lines.push("", `${String(event).padStart(3, "0")}  ${reels.get(clip.id)!.padEnd(8)} V     C        ${times.join(" ")}`);
+      lines.push(`* FROM CLIP NAME: ${nameOf(clip)}`);
+      const note = oneLine(range.note);
+      if (note) lines.push(`* COMMENT: ${note}`);
       record += length;
     }
   }
-  for (const name of skipped) lines.push("", `* SKIPPED (no frame rate): ${commentSafe(name)}`);
-  return lines.join("\r\n") + "\r\n";
-}
-
-export interface ParsedEdlEvent {
-  event: number;
-  reel: string;
-  channel: string;
-  transition: string;
-  sourceIn: string;
-  sourceOut: string;
-  recordIn: string;
-  recordOut: string;
-  comments: string[];
-}
-
-/** Reads a CMX 3600 list back (for the tests, and to check what another program wrote). */
-export function parseEdl(text: string): { title: string; dropFrame: boolean; events: ParsedEdlEvent[] } {
-  let title = "";
-  let dropFrame = false;
-  const events: ParsedEdlEvent[] = [];
-  const eventLine = /^(\d{3,})\s+(\S+)\s+(\S+)\s+(C|D\s+\d+|W\d+\s+\d+)\s+(\d\d:\d\d:\d\d[:;]\d\d)\s+(\d\d:\d\d:\d\d[:;]\d\d)\s+(\d\d:\d\d:\d\d[:;]\d\d)\s+(\d\d:\d\d:\d\d[:;]\d\d)\s*$/;
-  for (const raw of text.split(/\r?\n/)) {
-    const line = raw.trimEnd();
-    if (line.startsWith("TITLE:")) title = line.slice(6).trim();
-    else if (line.startsWith("FCM:")) dropFrame = line.slice(4).trim() === "DROP FRAME";
-    else if (line.startsWith("*")) events.at(-1)?.comments.push(line.slice(1).trim());
-    else if (line.trim() !== "") {
-      const m = eventLine.exec(line);
-      if (!m) throw new Error(`not a CMX 3600 event line: ${line}`);
-      events.push({ event: Number(m[1]), reel: m[2]!, channel: m[3]!, transition: m[4]!, sourceIn: m[5]!, sourceOut: m[6]!, recordIn: m[7]!, recordOut: m[8]!, comments: [] });
-    }
+  lines.push("", `* FRAME RATE: ${edlRateLabel(rate)}, every timecode of this list (CMX 3600 does not say the rate: set it on import)`);
+  if (context.otherRates.length > 0) {
+    const others = context.otherRates.map((o) => `${edlRateLabel(o.rate)} (${o.clips} ${o.clips === 1 ? "clip" : "clips"})`).join(", ");
+    lines.push(`* OTHER RATES: this filter also holds ${others}, each in a list of its own. A CMX 3600 list holds one frame rate, and Kerf never converts a clip's timecode.`);
   }
-  return { title, dropFrame, events };
+  for (const clip of context.withoutRate) lines.push(`* LEFT OUT (no frame rate Kerf can time): ${nameOf(clip)}`);
+  for (const clip of clips) lines.push(`* REEL ${reels.get(clip.id)}: ${nameOf(clip)}`);
+  return { rate, clips: clips.length, events, text: lines.join("\r\n") + "\r\n" };
+}
+
+/**
+ * The lists the clips need, one per rate, most clips first (or only the list of `only`); throws EdlError when
+ * none has a rate, or none has the rate asked for.
+ */
+export function footageEdls(title: string, clips: readonly ExportClip[], names: Map<string, string>, only?: EdlRate): EdlList[] {
+  const { byRate, withoutRate } = clipsByRate(clips);
+  if (byRate.size === 0) throw new EdlError("None of these clips has a frame rate, so they can't go in an edit decision list.");
+  if (only !== undefined && !byRate.has(only)) throw new EdlError(`None of these clips is at ${edlRateLabel(only)}.`);
+  const rates = [...byRate.entries()].map(([rate, list]) => ({ rate, clips: list.length })).sort((a, b) => b.clips - a.clips);
+  return rates
+    .filter(({ rate }) => only === undefined || rate === only)
+    .map(({ rate }) => writeEdl(rate, byRate.get(rate)!, { title, names, otherRates: rates.filter((o) => o.rate !== rate), withoutRate }));
 }

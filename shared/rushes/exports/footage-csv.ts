@@ -22,9 +22,15 @@ export const footageCsvHeader = [
   "notes",
 ];
 
-/** One record per mark; a clip with no marks gets one record with the mark columns empty. */
-export function footageCsv(clips: ExportClip[]): string {
-  const rows: CsvCell[][] = [footageCsvHeader];
+/** The header record, CRLF-ended: the first piece of a streamed CSV. */
+export const footageCsvHead = () => toCsv([footageCsvHeader]);
+
+// Every text cell is defused: names, notes and tags are people's text, and the rest never starts with a sign.
+const safe = (cell: CsvCell) => (typeof cell === "string" ? safeText(cell) : cell);
+
+/** One record per mark; a clip with no marks gets one record with the mark columns empty. No header. */
+export function footageCsvRecords(clips: readonly ExportClip[]): string {
+  const rows: CsvCell[][] = [];
   for (const clip of clips) {
     const format = formatOf(clip);
     const base = [
@@ -41,10 +47,12 @@ export function footageCsv(clips: ExportClip[]): string {
       format ? describeFormat(format) : "",
       clip.startTimecode,
       clip.size,
-    ];
-    const marks = clip.marks.length > 0 ? clip.marks : [null];
-    for (const mark of marks) rows.push([...base, mark?.in ?? "", mark?.out ?? "", mark?.note ?? "", clip.notes]);
+    ].map(safe);
+    const notes = safe(clip.notes);
+    if (clip.marks.length === 0) rows.push([...base, "", "", "", notes]);
+    for (const mark of clip.marks) rows.push([...base, safe(mark.in), safe(mark.out), safe(mark.note), notes]);
   }
-  // Every text cell is defused: names, notes and tags are people's text, and the rest never starts with a sign.
-  return toCsv(rows.map((row) => row.map((cell) => (typeof cell === "string" ? safeText(cell) : cell))));
+  return rows.length === 0 ? "" : toCsv(rows);
 }
+
+export const footageCsv = (clips: readonly ExportClip[]) => footageCsvHead() + footageCsvRecords(clips);

@@ -32,6 +32,7 @@ export const access: FeatureAccess = {
     [`GET ${C}/exports/footage.csv`,                   401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/exports/footage.edl`,                   401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/exports/footage.otio`,                  401,  ok,   ok,   ok,   ok,   404],
+    [`GET ${C}/exports/edl-rates`,                     401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/exports/footage.zip`,                   401,  ok,   ok,   ok,   ok,   404],
     [`GET ${clip}`,                                    401,  ok,   ok,   ok,   ok,   404],
     [`PATCH ${clip}`,                                  401,  ok,   ok,   ok,   ok,   404],
@@ -134,6 +135,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
     [`GET ${C}/exports/footage.csv`]: { ok: 200 },
     [`GET ${C}/exports/footage.edl`]: { ok: 200, prepare: async () => (await freshClip(), {}) },
     [`GET ${C}/exports/footage.otio`]: { ok: 200 },
+    [`GET ${C}/exports/edl-rates`]: { ok: 200 },
     [`GET ${C}/exports/footage.zip`]: { ok: 400 },
     [`GET ${clip}`]: { ok: 200, prepare: async () => ({ params: { clipId: (await freshClip()).id } }) },
     [`PATCH ${clip}`]: {

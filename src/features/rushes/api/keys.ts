@@ -4,6 +4,7 @@ export const rushesKeys = {
   channel: (channelId: string) => [...rushesKeys.all, channelId] as const,
   footage: (channelId: string) => [...rushesKeys.channel(channelId), "footage"] as const,
   footageList: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "list", query] as const,
+  edlRates: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "edl-rates", query] as const,
   clip: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "clip", clipId] as const,
   preview: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "preview", clipId] as const,
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,

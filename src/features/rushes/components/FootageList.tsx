@@ -6,11 +6,11 @@ import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@share
 import { Button } from "../../../components/Button";
 import { Empty, QueryState } from "../../../components/States";
 import { useEpisodeTitles } from "../api/list-episode-titles";
-import { exportUrl, zipUrl } from "../api/export-footage";
 import { useFootage } from "../api/list-footage";
 import { useShootDays } from "../api/list-shoot-days";
 import { useShots } from "../api/list-shots";
 import { ClipPanel } from "./ClipPanel";
+import { ExportLinks } from "./ExportLinks";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 
@@ -55,23 +55,7 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
               <p className="text-sm text-graphite-700" aria-live="polite" data-testid="footage-totals">
                 <strong>{page.totals.clips}</strong> {page.totals.clips === 1 ? "clip" : "clips"} · {formatDuration(page.totals.durationMs)} running time · {formatSize(page.totals.bytes)}
               </p>
-              <div className="flex flex-wrap gap-2 text-sm">
-                <span className="self-center text-graphite-500">Export this filter:</span>
-                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "csv", listQuery)} download>
-                  CSV
-                </a>
-                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "edl", listQuery)} download>
-                  EDL (CMX 3600)
-                </a>
-                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "otio", listQuery)} download>
-                  OpenTimelineIO
-                </a>
-                {selected.size > 0 && (
-                  <a className="rounded-md bg-rust-600 px-3 py-1.5 font-semibold text-white hover:bg-rust-700" href={zipUrl(channelId, [...selected])} download>
-                    Download {selected.size} as zip
-                  </a>
-                )}
-              </div>
+              <ExportLinks channelId={channelId} query={listQuery} selected={[...selected]} />
             </div>
             {page.clips.length === 0 ? (
               <Empty title="No footage matches">{params.toString() ? "Loosen a filter, or upload camera files." : "Upload camera files to see them here."}</Empty>

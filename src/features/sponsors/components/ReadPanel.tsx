@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { checkDisclosure } from "@shared/sponsors/disclosure";
-import { SPEAKING_RATE_SOURCE, analyseRead, mentionsCode, mentionsLink } from "@shared/sponsors/read";
+import { SPEAKING_RATE_SOURCE, analyseRead, mentionsCode, mentionsLink, readTimeWorking } from "@shared/sponsors/read";
 import type { DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
@@ -36,7 +36,8 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
 
   const read = analyseRead({ script, wordsPerMinute, contractedSeconds: deal.segmentSeconds, talkingPoints: deal.talkingPoints, link: deal.link, promoCode: deal.promoCode });
   const disclosure = checkDisclosure({ script, description, wording: deal.disclosureText });
-  const over = read.overBySeconds ?? 0;
+  // Judged as shown: a difference that rounds to 0:00 is on the mark, not "0:00 long".
+  const over = Math.round(read.overBySeconds ?? 0);
   const dirty = script !== deal.script || description !== (deal.descriptionCopy ?? "") || hostId !== (deal.host.id ?? "");
 
   const save = async () => {
@@ -104,6 +105,9 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
             </>
           )}
         </dl>
+        <p className="text-xs text-graphite-500" data-testid="read-time-working">
+          Read time: {readTimeWorking(read.words, wordsPerMinute)}.
+        </p>
         <p className="text-xs text-graphite-500">Speaking rate: {SPEAKING_RATE_SOURCE}; each host sets their own on the Sponsors page.</p>
         <div>
           <p className="font-semibold">
