@@ -15,11 +15,15 @@ export async function checkCredentials(db: Database, email: string, password: st
   return user;
 }
 
+/** The account and its first channel, both or neither. */
 export async function signUp(db: Database, input: SignUpInput): Promise<Express.User> {
-  const user = await insertUser(db, { email: input.email, name: input.name, passwordHash: await hashPassword(input.password) });
-  if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
-  await insertChannelWithOwner(db, input.channelName, user.id);
-  return user;
+  const passwordHash = await hashPassword(input.password);
+  return db.transaction(async (tx) => {
+    const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
+    if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
+    await insertChannelWithOwner(tx, input.channelName, user.id);
+    return user;
+  });
 }
 
 /** passport 0.6+ regenerates the session inside req.login, which is what defeats session fixation. */

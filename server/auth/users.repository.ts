@@ -1,5 +1,5 @@
 import { eq } from "drizzle-orm";
-import type { Database } from "../db/client";
+import type { Database, Queryable } from "../db/client";
 import { users } from "../db/schema/accounts";
 
 const publicColumns = { id: users.id, email: users.email, name: users.name, timeZone: users.timeZone };
@@ -18,7 +18,7 @@ export async function findUserWithHashByEmail(db: Database, email: string) {
   return rows[0] ?? null;
 }
 
-export async function insertUser(db: Database, values: { email: string; name: string; passwordHash: string }) {
+export async function insertUser(db: Queryable, values: { email: string; name: string; passwordHash: string }) {
   const rows = await db.insert(users).values(values).onConflictDoNothing({ target: users.email }).returning(publicColumns);
   return rows[0] ?? null;
 }

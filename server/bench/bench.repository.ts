@@ -1,10 +1,8 @@
 import { and, eq } from "drizzle-orm";
-import type { Database } from "../db/client";
+import type { Queryable } from "../db/client";
 import { episodes } from "../db/schema/slate";
 
-export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
-/** A repository function runs on the pool or inside a caller's transaction. */
-export type Queryable = Database | Tx;
+export type { Queryable } from "../db/client";
 
 /** The episode's title (the route's guard has checked it is the channel's). */
 export async function episodeTitle(db: Queryable, channelId: string, episodeId: string): Promise<string> {

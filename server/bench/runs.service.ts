@@ -80,16 +80,21 @@ export async function createRun(db: Database, caller: Caller, episodeId: string,
   const { channelId } = caller;
   const input = lowerIds(raw);
   await checkParts(db, channelId, input);
-  const { id } = await withNextNumber(() => db.transaction((tx) => insertRun(tx, channelId, episodeId, input, caller.userId)));
-  return runView(db, channelId, episodeId, id);
+  return withNextNumber(() =>
+    db.transaction(async (tx) => {
+      const { id } = await insertRun(tx, channelId, episodeId, input, caller.userId);
+      return runView(tx, channelId, episodeId, id);
+    }),
+  );
 }
 
 export async function changeRun(db: Database, channelId: string, episodeId: string, runId: string, raw: RunInput) {
   const input = lowerIds(raw);
   await checkParts(db, channelId, input);
-  const changed = await db.transaction((tx) => updateRun(tx, channelId, episodeId, runId, input));
-  if (!changed) throw notFound("Run");
-  return runView(db, channelId, episodeId, runId);
+  return db.transaction(async (tx) => {
+    if (!(await updateRun(tx, channelId, episodeId, runId, input))) throw notFound("Run");
+    return runView(tx, channelId, episodeId, runId);
+  });
 }
 
 export async function removeRun(db: Database, channelId: string, episodeId: string, runId: string) {

@@ -1,6 +1,6 @@
 import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
 import type { Role } from "../../shared/access/roles";
-import type { Database } from "../db/client";
+import type { Database, Queryable } from "../db/client";
 import { channels, invitations, memberships, users } from "../db/schema/accounts";
 
 export async function listMembershipsOf(db: Database, userId: string) {
@@ -43,7 +43,7 @@ export async function listOpenInvitations(db: Database, channelId: string) {
     .orderBy(asc(invitations.createdAt));
 }
 
-export async function insertChannelWithOwner(db: Database, name: string, ownerId: string) {
+export async function insertChannelWithOwner(db: Queryable, name: string, ownerId: string) {
   return db.transaction(async (tx) => {
     const [channel] = await tx.insert(channels).values({ name }).returning();
     if (!channel) throw new Error("channel insert returned nothing");

@@ -123,7 +123,7 @@ export async function recordPart(ctx: RushesContext, caller: Caller, uploadId: s
   if (part.size !== end - start) {
     throw new AppError("validation_failed", `Part ${partNumber} should be ${end - start} bytes, not ${part.size}.`, { size: `Part ${partNumber} should be ${end - start} bytes.` });
   }
-  await repo.recordPart(ctx.db, row.id, { partNumber, etag: part.etag, size: part.size });
+  await ctx.db.transaction((tx) => repo.recordPart(tx, row.id, { partNumber, etag: part.etag, size: part.size }));
   return { partNumber, etag: part.etag, size: part.size };
 }
 

@@ -2,12 +2,10 @@ import { and, asc, eq, getTableColumns, gt, isNull, lt, max, min, ne, sql } from
 import { generateKeyBetween } from "fractional-indexing";
 import type { GateProblem } from "../../shared/slate/gates";
 import type { Stage } from "../../shared/slate/stages";
-import type { Database } from "../db/client";
+import type { Database, Queryable, Transaction as Tx } from "../db/client";
 import { users } from "../db/schema/accounts";
 import { dueOverrides, episodes, stageMoves } from "../db/schema/slate";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
-type Queryable = Database | Tx;
 
 const summaryColumns = {
   id: episodes.id,

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
-import type { Database } from "../db/client";
+import type { Queryable } from "../db/client";
 import { channels, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors } from "../db/schema/sponsors";
@@ -7,7 +7,7 @@ import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, spo
 // Every query is scoped by channel: an id from another channel finds nothing and answers 404.
 
 /** A database or a transaction: repositories take either. */
-export type Db = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
+export type Db = Queryable;
 
 export type DealRow = typeof deals.$inferSelect;
 export type DeliverableRow = typeof deliverables.$inferSelect;

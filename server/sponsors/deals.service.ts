@@ -25,6 +25,7 @@ import {
   listReviewLinks,
   updateDealRow,
   type DealRow,
+  type Db,
 } from "./deals.repository";
 import { redateDeal, type Actor } from "./schedule.service";
 import { findSponsor, findTemplate, listMembersWithRates } from "./sponsors.repository";
@@ -79,7 +80,7 @@ function cutTimingOf(deal: DealRow): DealView["cut"]["timing"] {
  * items they may read; the fee, payment terms and the invoice and payment items are left out of the
  * answer altogether (not blanked), and review links go only to the roles that send them.
  */
-export async function dealViews(db: Database, caller: Caller, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
+export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
   const dealIds = rows.map((r) => r.deal.id);
   const today = dateInZone(now, caller.timeZone);
   const fees = seesFees(caller.role);
@@ -181,7 +182,7 @@ export async function dealViews(db: Database, caller: Caller, rows: DealWithJoin
   return views;
 }
 
-export async function dealView(db: Database, caller: Caller, dealId: string): Promise<DealView> {
+export async function dealView(db: Db, caller: Caller, dealId: string): Promise<DealView> {
   const row = await findDeal(db, caller.channelId, dealId);
   if (!row) throw notFound("Deal");
   const [view] = await dealViews(db, caller, [row]);
@@ -214,7 +215,8 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
   if (input.templateId && !template) throw new AppError("validation_failed", "Some fields need attention.", { templateId: "Pick one of the channel's templates." });
   const members = await listMembersWithRates(db, caller.channelId);
 
-  const dealId = await db.transaction(async (tx) => {
+  // The deal, its items, their history and the answer built from them: all or nothing.
+  return db.transaction(async (tx) => {
     const { money, templateId: _templateId, ...segment } = input;
     const deal = await insertDeal(tx, {
       ...segment,
@@ -248,29 +250,30 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
         note: template ? `From the template "${template.name}"` : null,
       })),
     );
-    return deal.id;
+    return dealView(tx, caller, deal.id);
   });
-  return dealView(db, caller, dealId);
 }
 
 export async function updateDeal(db: Database, caller: Caller, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
   const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
   await checkReferences(db, caller.channelId, current.deal.sponsorId, input);
-  await db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
     const updated = await updateDealRow(tx, caller.channelId, dealId, input);
     if (updated && input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
       const note = updated.goLiveDate ? `Go-live set to ${updated.goLiveDate}` : "Go-live follows the publish date again";
       await redateDeal(tx, updated, current.publishDate, actorOf(caller), note);
     }
+    return dealView(tx, caller, dealId);
   });
-  return dealView(db, caller, dealId);
 }
 
 export async function updateMoney(db: Database, caller: Caller, dealId: string, money: Money): Promise<DealView> {
-  const updated = await updateDealRow(db, caller.channelId, dealId, moneyColumns(money));
-  if (!updated) throw notFound("Deal");
-  return dealView(db, caller, dealId);
+  return db.transaction(async (tx) => {
+    const updated = await updateDealRow(tx, caller.channelId, dealId, moneyColumns(money));
+    if (!updated) throw notFound("Deal");
+    return dealView(tx, caller, dealId);
+  });
 }
 
 export async function updateCut(db: Database, caller: Caller, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
@@ -280,12 +283,14 @@ export async function updateCut(db: Database, caller: Caller, dealId: string, in
     const [clip] = await findCutClips(db, caller.channelId, [input.clipId]);
     if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
   }
-  await updateDealRow(db, caller.channelId, dealId, {
-    cutClipId: input.clipId,
-    cutIn: input.timing?.inTimecode ?? null,
-    cutOut: input.timing?.outTimecode ?? null,
-    cutFrameRate: input.timing?.frameRate ?? null,
-    cutDropFrame: input.timing?.dropFrame ?? null,
+  return db.transaction(async (tx) => {
+    await updateDealRow(tx, caller.channelId, dealId, {
+      cutClipId: input.clipId,
+      cutIn: input.timing?.inTimecode ?? null,
+      cutOut: input.timing?.outTimecode ?? null,
+      cutFrameRate: input.timing?.frameRate ?? null,
+      cutDropFrame: input.timing?.dropFrame ?? null,
+    });
+    return dealView(tx, caller, dealId);
   });
-  return dealView(db, caller, dealId);
 }

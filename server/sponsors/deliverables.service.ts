@@ -6,7 +6,7 @@ import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type NewEvent } from "./deals.repository";
-import { deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
+import { dealView, deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
 
 async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
   if (ownerId && !(await isMember(db, channelId, ownerId))) {
@@ -19,7 +19,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
   if (!deal) throw notFound("Deal");
   await checkOwner(db, caller.channelId, input.ownerId);
   const dueDate = dueDateFor(input, { publishDate: deal.publishDate, goLiveDate: deal.deal.goLiveDate });
-  await db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
     const [item] = await insertDeliverables(tx, [
       {
         channelId: caller.channelId,
@@ -36,6 +36,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
     await insertEvents(tx, [
       { ...eventBy(caller, item!.id), what: "created", toStatus: item!.status, toDate: dueDate },
     ]);
+    return dealView(tx, caller, dealId);
   });
 }
 
@@ -74,7 +75,7 @@ export async function updateDeliverable(db: Database, caller: Caller, deliverabl
   if (input.title !== undefined && input.title !== item.title) events.push({ ...base, what: "edited", note: `Renamed from "${item.title}"` });
   if (input.note && !events.some((e) => e.what === "status")) events.push({ ...base, what: "note", note: input.note });
 
-  await db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
     await updateDeliverableRow(tx, caller.channelId, deliverableId, {
       title: input.title,
       status: input.status,
@@ -84,8 +85,8 @@ export async function updateDeliverable(db: Database, caller: Caller, deliverabl
       dueDate,
     });
     await insertEvents(tx, events);
+    return dealView(tx, caller, item.dealId);
   });
-  return found.item.dealId;
 }
 
 export async function removeDeliverable(db: Database, caller: Caller, deliverableId: string) {
