@@ -192,7 +192,7 @@ export async function listEvents(db: Db, channelId: string, deliverableIds: stri
 export async function listReviewLinks(db: Db, channelId: string, dealIds: string[]) {
   if (dealIds.length === 0) return [];
   return db
-    .select({ link: reviewLinks, deliverableTitle: deliverables.title })
+    .select({ link: reviewLinks, deliverableId: deliverables.id, deliverableTitle: deliverables.title, deliverableStatus: deliverables.status })
     .from(reviewLinks)
     .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
     .where(and(eq(reviewLinks.channelId, channelId), inArray(reviewLinks.dealId, dealIds)))
@@ -230,9 +230,27 @@ export async function findReviewLinkForPage(db: Db, linkId: string) {
     .innerJoin(channels, eq(channels.id, reviewLinks.channelId))
     .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
     .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
+    .leftJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
     .where(eq(reviewLinks.id, linkId));
   return row ?? null;
+}
+
+/**
+ * Locks what a decision depends on, in the order every writer takes them (deal, then item, then
+ * link), and reads the link's page row: an edit of the deal or the item waits for the decision, or
+ * the decision sees the edit.
+ */
+export async function lockReviewSubject(db: Db, linkId: string) {
+  const [ids] = await db.select({ dealId: reviewLinks.dealId, deliverableId: reviewLinks.deliverableId }).from(reviewLinks).where(eq(reviewLinks.id, linkId));
+  if (!ids) return null;
+  await db.select({ id: deals.id }).from(deals).where(eq(deals.id, ids.dealId)).for("share");
+  if (ids.deliverableId) await lockDeliverable(db, ids.deliverableId);
+  await db.select({ id: reviewLinks.id }).from(reviewLinks).where(eq(reviewLinks.id, linkId)).for("update");
+  return findReviewLinkForPage(db, linkId);
+}
+
+export async function lockDeliverable(db: Db, deliverableId: string) {
+  await db.select({ id: deliverables.id }).from(deliverables).where(eq(deliverables.id, deliverableId)).for("update");
 }
 
 /** Records the decision only if the link is still open: the one place a second decision is refused. */

@@ -29,7 +29,7 @@ import {
 } from "./deals.repository";
 import { redateDeal, type Actor } from "./schedule.service";
 import { findSponsor, findTemplate, listMembersWithRates } from "./sponsors.repository";
-import { reviewStateOf } from "./review-token";
+import { linkStateOf } from "./review-token";
 
 export const seesFees = (role: Role) => roleMay(role, "fees", "R");
 export const runsDeliverables = (role: Role) => roleMay(role, "deliverables", "W");
@@ -160,16 +160,16 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
     if (runsDeliverables(caller.role)) {
       view.reviewLinks = links
         .filter((l) => l.link.dealId === deal.id)
-        .map(({ link, deliverableTitle }): ReviewLinkView => ({
+        .map(({ link, deliverableId, deliverableTitle, deliverableStatus }): ReviewLinkView => ({
           id: link.id,
-          deliverableId: link.deliverableId,
+          deliverableId,
           deliverableTitle,
           contactName: link.contactName,
           contactEmail: link.contactEmail,
           sentByName: link.sentByName,
           sentAt: link.createdAt.toISOString(),
           expiresAt: link.expiresAt.toISOString(),
-          state: reviewStateOf(link, now),
+          state: linkStateOf(link, { contactId: link.contactId, dealState: deal.state, itemStatus: deliverableStatus }, now),
           decision: link.decision,
           comment: link.comment,
           decidedAt: link.decidedAt?.toISOString() ?? null,

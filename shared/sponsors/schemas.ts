@@ -295,7 +295,8 @@ export const sendReviewSchema = z.strictObject({
 });
 export type SendReviewInput = z.input<typeof sendReviewSchema>;
 
-export const reviewLinkStates = ["open", "decided", "expired", "revoked"] as const;
+/** "closed": what the link belongs to is gone (its contact removed, its deal cancelled, its item removed or settled). */
+export const reviewLinkStates = ["open", "decided", "expired", "revoked", "closed"] as const;
 export type ReviewLinkState = (typeof reviewLinkStates)[number];
 export const reviewDecisions = ["approved", "changes_asked"] as const;
 export type ReviewDecision = (typeof reviewDecisions)[number];
@@ -319,6 +320,8 @@ export const reviewDecisionSchema = z
   .strictObject({
     decision: z.enum(reviewDecisions, { error: "Approve, or ask for changes." }),
     comment: optionalText(2000, "comment").default(null),
+    /** The page's `seen`: the decision applies only if the review still shows what the sponsor read. */
+    seen: z.string({ error: "Reload the page, then decide." }).regex(/^[A-Za-z0-9_-]{16,64}$/, "Reload the page, then decide."),
   })
   .refine((v) => v.decision !== "changes_asked" || v.comment !== null, { message: "Say what should change.", path: ["comment"] });
 export type ReviewDecisionInput = z.input<typeof reviewDecisionSchema>;
@@ -343,9 +346,12 @@ export type ReviewPage =
       placement: Placement;
       /** A presigned address of the attached cut, when there is one and storage is configured. */
       cutUrl: string | null;
+      /** A fingerprint of what this page shows; the decision sends it back. */
+      seen: string;
     }
   | { state: "decided"; channelName: string; decision: ReviewDecision; decidedAt: string; contactName: string }
-  | { state: "expired" | "revoked"; channelName: string };
+  | { state: "expired" | "revoked"; channelName: string }
+  | { state: "closed"; channelName: string; reason: string };
 
 // ── Deal view ──────────────────────────────────────────────────────────
 

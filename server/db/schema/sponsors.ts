@@ -154,9 +154,8 @@ export const reviewLinks = pgTable(
     dealId: uuid("deal_id")
       .notNull()
       .references(() => deals.id, { onDelete: "cascade" }),
-    deliverableId: uuid("deliverable_id")
-      .notNull()
-      .references(() => deliverables.id, { onDelete: "cascade" }),
+    // Kept when the item or the contact is removed (null), so the link can say why it closed.
+    deliverableId: uuid("deliverable_id").references(() => deliverables.id, { onDelete: "set null" }),
     contactId: uuid("contact_id").references(() => sponsorContacts.id, { onDelete: "set null" }),
     // Copied at sending: the decision is recorded under the name the link was sent to.
     contactName: text("contact_name").notNull(),

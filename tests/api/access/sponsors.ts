@@ -256,7 +256,12 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
     ["GET /api/review/:token"]: { ok: 200, prepare: async () => ({ params: { token: (await openLink()).token } }) },
     ["POST /api/review/:token/decision"]: {
       ok: 200,
-      prepare: async () => ({ params: { token: (await openLink()).token }, body: { decision: "approved", comment: null } }),
+      // The decision names what the page showed (its "seen"), as the review page sends it.
+      prepare: async () => {
+        const { token } = await openLink();
+        const page = await (await app.visitor()).get(`/api/review/${token}`);
+        return { params: { token }, body: { decision: "approved", comment: null, seen: page.body.seen } };
+      },
     },
     [`GET ${c}/desk`]: { ok: 200 },
     [`GET ${c}/sponsor-settings`]: { ok: 200 },

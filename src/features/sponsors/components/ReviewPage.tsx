@@ -93,6 +93,12 @@ function Body({ token, page }: { token: string; page: ReviewPageData }) {
           <p>{page.channelName} withdrew it. If you still need to review, ask them for a new link.</p>
         </Closed>
       );
+    case "closed":
+      return (
+        <Closed title="This review link has closed">
+          <p>{page.reason}</p>
+        </Closed>
+      );
     case "open":
       return <OpenReview token={token} page={page} />;
   }
@@ -104,7 +110,8 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
   const [comment, setComment] = useState("");
   const [errors, setErrors] = useState<Record<string, string>>({});
   const submit = async () => {
-    const parsed = reviewDecisionSchema.safeParse({ decision, comment });
+    // `seen` says what this page showed: if the channel changed it since, the server answers 409 and the page reloads.
+    const parsed = reviewDecisionSchema.safeParse({ decision, comment, seen: page.seen });
     if (!parsed.success) return setErrors(fieldMessages(parsed.error.issues));
     setErrors({});
     await decide.mutateAsync(parsed.data).catch((error: unknown) => {

@@ -9,8 +9,9 @@ import { ApiError } from "../../../lib/api-client";
 import { useRevokeReviewLink, useSendReviewLink } from "../api/review-links";
 import { Tag } from "./form-tools";
 
-const stateTone: Record<ReviewLinkState, "neutral" | "warn" | "good" | "alarm"> = { open: "warn", decided: "good", expired: "neutral", revoked: "neutral" };
-const stateLabel: Record<ReviewLinkState, string> = { open: "Open", decided: "Decided", expired: "Expired", revoked: "Withdrawn" };
+const stateTone: Record<ReviewLinkState, "neutral" | "warn" | "good" | "alarm"> = { open: "warn", decided: "good", expired: "neutral", revoked: "neutral", closed: "neutral" };
+// "Closed": its contact was removed, its deal cancelled, or its item removed or settled.
+const stateLabel: Record<ReviewLinkState, string> = { open: "Open", decided: "Decided", expired: "Expired", revoked: "Withdrawn", closed: "Closed" };
 
 /** Review links: one deal, one contact, one decision; sent by e-mail, withdrawn here. */
 export function ReviewPanel({ channelId, deal }: { channelId: string; deal: DealView }) {
