@@ -13,21 +13,4 @@ export async function episodeTitle(db: Queryable, channelId: string, episodeId: 
   return row?.title ?? "";
 }
 
-/** Postgres's unique_violation: two inserts raced for the same per-episode number. */
-export function isUniqueViolation(error: unknown): boolean {
-  const code = (error as { code?: string; cause?: { code?: string } })?.code ?? (error as { cause?: { code?: string } })?.cause?.code;
-  return code === "23505";
-}
-
-/** Runs an insert that takes the next number, again when a concurrent insert took it first. */
-export async function withNextNumber<T>(attempt: () => Promise<T>, tries = 5): Promise<T> {
-  for (let i = 1; ; i++) {
-    try {
-      return await attempt();
-    } catch (error) {
-      if (i >= tries || !isUniqueViolation(error)) throw error;
-    }
-  }
-}
-
 export const iso = (date: Date | null) => date?.toISOString() ?? null;

@@ -1,5 +1,6 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { IterationInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
 import { buildIterations } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
 
@@ -12,7 +13,8 @@ export async function listIterations(db: Queryable, channelId: string, episodeId
 }
 
 export async function insertIteration(db: Queryable, channelId: string, episodeId: string, input: IterationInput, userId: string) {
-  const next = sql<number>`(select coalesce(max(${buildIterations.number}), 0) + 1 from ${buildIterations} where ${buildIterations.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${buildIterations.number}), 0) + 1 from ${buildIterations} where ${buildIterations.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "build_iteration", ownerId: episodeId, channelId, atLeast });
   const [row] = await db
     .insert(buildIterations)
     .values({ channelId, episodeId, number: next, createdBy: userId, ...input })

@@ -1,5 +1,6 @@
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import type { RunInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
 import { benchParts, benchRunParts, benchRuns } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
 
@@ -52,7 +53,8 @@ async function replaceParts(db: Queryable, channelId: string, runId: string, par
 }
 
 export async function insertRun(db: Queryable, channelId: string, episodeId: string, input: RunInput, userId: string) {
-  const next = sql<number>`(select coalesce(max(${benchRuns.number}), 0) + 1 from ${benchRuns} where ${benchRuns.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${benchRuns.number}), 0) + 1 from ${benchRuns} where ${benchRuns.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "bench_run", ownerId: episodeId, channelId, atLeast });
   const [row] = await db
     .insert(benchRuns)
     .values({ channelId, episodeId, number: next, createdBy: userId, ...runColumns(input) })

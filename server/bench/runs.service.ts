@@ -4,7 +4,7 @@ import { evaluateRun, isOverRated, type PlanForRuns } from "../../shared/bench/r
 import type { Database } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { type Queryable, episodeTitle, withNextNumber } from "./bench.repository";
+import { type Queryable, episodeTitle } from "./bench.repository";
 import { type RunRow, deleteRun, findRunRow, insertRun, listRunParts, listRunRows, updateRun } from "./runs.repository";
 import { partsByIds, runsOfPart } from "./shelf.repository";
 import { findPlan, listCriteria } from "./test-plan.repository";
@@ -80,12 +80,10 @@ export async function createRun(db: Database, caller: Caller, episodeId: string,
   const { channelId } = caller;
   const input = lowerIds(raw);
   await checkParts(db, channelId, input);
-  return withNextNumber(() =>
-    db.transaction(async (tx) => {
-      const { id } = await insertRun(tx, channelId, episodeId, input, caller.userId);
-      return runView(tx, channelId, episodeId, id);
-    }),
-  );
+  return db.transaction(async (tx) => {
+    const { id } = await insertRun(tx, channelId, episodeId, input, caller.userId);
+    return runView(tx, channelId, episodeId, id);
+  });
 }
 
 export async function changeRun(db: Database, channelId: string, episodeId: string, runId: string, raw: RunInput) {

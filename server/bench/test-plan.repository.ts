@@ -1,6 +1,7 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Criterion } from "../../shared/bench/criteria";
 import type { TestPlanInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
 import { users } from "../db/schema/accounts";
 import { safetyHazards, testCriteria, testPlans } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
@@ -31,7 +32,8 @@ export async function listCriteria(db: Queryable, channelId: string, episodeId: 
 }
 
 export async function insertCriterion(db: Queryable, channelId: string, episodeId: string, definition: Criterion) {
-  const next = sql<number>`(select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "test_criterion", ownerId: episodeId, channelId, atLeast });
   const [row] = await db.insert(testCriteria).values({ channelId, episodeId, definition, position: next }).returning();
   if (!row) throw new Error("criterion insert returned nothing");
   return row;

@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { Queryable } from "../db/client";
+import { nextNumber } from "../db/counters";
 import { channels, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors } from "../db/schema/sponsors";
@@ -168,9 +169,9 @@ export async function deleteDeliverableRow(db: Db, channelId: string, deliverabl
   return rows.length > 0;
 }
 
-export async function nextPosition(db: Db, dealId: string): Promise<number> {
-  const [row] = await db.select({ top: sql<number>`coalesce(max(${deliverables.position}), -1)::int` }).from(deliverables).where(eq(deliverables.dealId, dealId));
-  return (row?.top ?? -1) + 1;
+export async function nextPosition(db: Db, channelId: string, dealId: string): Promise<number> {
+  const atLeast = sql`select coalesce(max(${deliverables.position}), -1) + 1 from ${deliverables} where ${deliverables.dealId} = ${dealId}`;
+  return nextNumber(db, { scope: "deliverable_position", ownerId: dealId, channelId, atLeast });
 }
 
 export async function insertEvents(db: Db, events: NewEvent[]) {

@@ -30,7 +30,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
         offsetDays: input.anchor === "fixed" ? 0 : input.offsetDays,
         dueDate,
         ownerId: input.ownerId ?? caller.userId,
-        position: await nextPosition(tx, dealId),
+        position: await nextPosition(tx, caller.channelId, dealId),
       },
     ]);
     await insertEvents(tx, [
