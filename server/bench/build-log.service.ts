@@ -1,7 +1,7 @@
 import type { IterationInput, IterationView } from "../../shared/bench/schemas";
 import { iterationThrustToWeight } from "../../shared/bench/runs";
 import type { Database, Queryable } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { deleteIteration, insertIteration, listIterations, updateIteration } from "./build-log.repository";
 import { findRunRow, listRunRows } from "./runs.repository";
@@ -24,6 +24,7 @@ export async function buildLog(db: Queryable, channelId: string, episodeId: stri
       chosenRun: run ? { id: run.id, number: run.number, label: run.label, thrust } : null,
       thrustToWeight: iterationThrustToWeight(thrust, row.allUpMass ?? null),
       createdAt: row.createdAt.toISOString(),
+      version: row.version,
     };
   });
 }
@@ -53,9 +54,9 @@ export async function addIteration(db: Database, caller: Caller, episodeId: stri
   });
 }
 
-export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, raw: IterationInput) {
+export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, version: number, raw: IterationInput) {
   const input = await normalise(db, channelId, episodeId, raw);
-  if (!(await updateIteration(db, channelId, episodeId, iterationId, input))) throw notFound("Iteration");
+  if (!(await updateIteration(db, channelId, episodeId, iterationId, version, input))) throw staleSave("iteration", await iterationView(db, channelId, episodeId, iterationId));
   return iterationView(db, channelId, episodeId, iterationId);
 }
 

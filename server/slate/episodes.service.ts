@@ -15,7 +15,7 @@ import { countBack, type DueOverrides } from "../../shared/slate/schedule";
 import type { Stage } from "../../shared/slate/stages";
 import { isMember } from "../db/channel-scope";
 import type { Database, Queryable } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import { collectFlags, type BoardFlagSource } from "../seams/board-flags";
@@ -63,10 +63,7 @@ export const toRecord = (row: EpisodeRow): EpisodeRecord => ({
   updatedAt: row.updatedAt.toISOString(),
 });
 
-const conflict = (current: EpisodeRow) =>
-  new AppError("conflict", "Someone else changed this episode a moment ago. You now see their version; make your change again if it still applies.", undefined, {
-    current: toSummary(current),
-  });
+const conflict = (current: EpisodeRow) => staleSave("episode", toSummary(current));
 
 /** Turns a versioned write's outcome into the row, a 409 with the current state, or a 404. */
 async function settled(db: Queryable, channelId: string, episodeId: string, outcome: Versioned<unknown>): Promise<EpisodeRow> {

@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { Queryable } from "../db/client";
 import { nextNumber } from "../db/counters";
+import { nextVersion } from "../db/versions";
 import { channels, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors } from "../db/schema/sponsors";
@@ -54,18 +55,19 @@ export async function insertDeal(db: Db, values: typeof deals.$inferInsert) {
   return row!;
 }
 
-export async function updateDealRow(db: Db, channelId: string, dealId: string, values: Partial<typeof deals.$inferInsert>) {
+/** Saves some of a deal's own fields if it is still at `version`; null when it isn't (or isn't this channel's). */
+export async function updateDealRow(db: Db, channelId: string, dealId: string, version: number, values: Partial<typeof deals.$inferInsert>) {
   const [row] = await db
     .update(deals)
-    .set({ ...values, updatedAt: new Date() })
-    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)))
+    .set({ ...values, version: nextVersion(deals.version), updatedAt: new Date() })
+    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId), eq(deals.version, version)))
     .returning();
   return row ?? null;
 }
 
 export async function listContactsOf(db: Db, channelId: string, sponsorId: string) {
   return db
-    .select({ id: sponsorContacts.id, name: sponsorContacts.name, email: sponsorContacts.email, role: sponsorContacts.role })
+    .select({ id: sponsorContacts.id, name: sponsorContacts.name, email: sponsorContacts.email, role: sponsorContacts.role, version: sponsorContacts.version })
     .from(sponsorContacts)
     .where(and(eq(sponsorContacts.channelId, channelId), eq(sponsorContacts.sponsorId, sponsorId)))
     .orderBy(asc(sponsorContacts.name));
@@ -152,11 +154,15 @@ export async function insertDeliverables(db: Db, rows: (typeof deliverables.$inf
   return db.insert(deliverables).values(rows).returning();
 }
 
-export async function updateDeliverableRow(db: Db, channelId: string, deliverableId: string, values: Partial<typeof deliverables.$inferInsert>) {
+/**
+ * Changes an item and raises its version; with `version`, only if the item is still at it (a
+ * member's save), else whatever it is (a sponsor's decision, a review link sent or withdrawn).
+ */
+export async function updateDeliverableRow(db: Db, channelId: string, deliverableId: string, values: Partial<typeof deliverables.$inferInsert>, version?: number) {
   const [row] = await db
     .update(deliverables)
-    .set({ ...values, updatedAt: new Date() })
-    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)))
+    .set({ ...values, version: nextVersion(deliverables.version), updatedAt: new Date() })
+    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId), version === undefined ? undefined : eq(deliverables.version, version)))
     .returning();
   return row ?? null;
 }

@@ -9,7 +9,7 @@ import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
 import type { z } from "zod";
 import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { findCutClips, listEpisodeClips } from "./cut.repository";
 import {
@@ -101,6 +101,7 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
     const clip = cutClips.find((c) => c.id === deal.cutClipId);
     const view: DealView = {
       id: deal.id,
+      version: deal.version,
       episodeId: deal.episodeId,
       episodeTitle: row.episodeTitle,
       publishDate: row.publishDate,
@@ -139,6 +140,7 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
           status: item.status,
           ownerId: item.ownerId,
           ownerName,
+          version: item.version,
           ...latenessOf(item, today),
           canEdit: runsDeliverables(caller.role) || (deliversCut(caller.role) && isCutKind(item.kind)),
           history: events
@@ -254,13 +256,18 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
   });
 }
 
-export async function updateDeal(db: Database, caller: Caller, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
+/** A deal's save that matched no row: someone saved it since `version` (409 with the deal as it is now), or it is gone. */
+const staleDeal = async (db: Db, caller: Caller, dealId: string) => staleSave("deal", await dealView(db, caller, dealId));
+
+export async function updateDeal(db: Database, caller: Caller, dealId: string, version: number, input: z.output<typeof updateDealSchema>): Promise<DealView> {
   const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
+  if (current.deal.version !== version) throw await staleDeal(db, caller, dealId);
   await checkReferences(db, caller.channelId, current.deal.sponsorId, input);
   return db.transaction(async (tx) => {
-    const updated = await updateDealRow(tx, caller.channelId, dealId, input);
-    if (updated && input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
+    const updated = await updateDealRow(tx, caller.channelId, dealId, version, input);
+    if (!updated) throw await staleDeal(tx, caller, dealId);
+    if (input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
       const note = updated.goLiveDate ? `Go-live set to ${updated.goLiveDate}` : "Go-live follows the publish date again";
       await redateDeal(tx, updated, current.publishDate, actorOf(caller), note);
     }
@@ -268,15 +275,14 @@ export async function updateDeal(db: Database, caller: Caller, dealId: string, i
   });
 }
 
-export async function updateMoney(db: Database, caller: Caller, dealId: string, money: Money): Promise<DealView> {
+export async function updateMoney(db: Database, caller: Caller, dealId: string, version: number, money: Money): Promise<DealView> {
   return db.transaction(async (tx) => {
-    const updated = await updateDealRow(tx, caller.channelId, dealId, moneyColumns(money));
-    if (!updated) throw notFound("Deal");
+    if (!(await updateDealRow(tx, caller.channelId, dealId, version, moneyColumns(money)))) throw await staleDeal(tx, caller, dealId);
     return dealView(tx, caller, dealId);
   });
 }
 
-export async function updateCut(db: Database, caller: Caller, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
+export async function updateCut(db: Database, caller: Caller, dealId: string, version: number, input: z.output<typeof cutSchema>): Promise<DealView> {
   const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
   if (input.clipId) {
@@ -284,13 +290,14 @@ export async function updateCut(db: Database, caller: Caller, dealId: string, in
     if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
   }
   return db.transaction(async (tx) => {
-    await updateDealRow(tx, caller.channelId, dealId, {
+    const saved = await updateDealRow(tx, caller.channelId, dealId, version, {
       cutClipId: input.clipId,
       cutIn: input.timing?.inTimecode ?? null,
       cutOut: input.timing?.outTimecode ?? null,
       cutFrameRate: input.timing?.frameRate ?? null,
       cutDropFrame: input.timing?.dropFrame ?? null,
     });
+    if (!saved) throw await staleDeal(tx, caller, dealId);
     return dealView(tx, caller, dealId);
   });
 }

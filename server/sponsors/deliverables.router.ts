@@ -2,7 +2,7 @@ import { newDeliverableSchema, updateDeliverableSchema } from "../../shared/spon
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { addDeliverable, removeDeliverable, updateDeliverable } from "./deliverables.service";
 
 const base = "/api/channels/:channelId";
@@ -26,8 +26,8 @@ export function deliverableRoutes(db: Database): RouteSpec[] {
       // keeps a role that only delivers the cut to the status of the cut items.
       access: channelAccess("cut", "W", "Your role may read this item but not change it."),
       handler: async (req, res) => {
-        const input = parseBody(updateDeliverableSchema, req.body);
-        res.json({ deal: await updateDeliverable(db, callerOf(req), idOf(req, "deliverableId"), input) });
+        const { version, input } = parseVersioned(updateDeliverableSchema, req.body);
+        res.json({ deal: await updateDeliverable(db, callerOf(req), idOf(req, "deliverableId"), version, input) });
       },
     },
     {

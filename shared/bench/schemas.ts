@@ -55,7 +55,7 @@ export type TestPlanInput = z.infer<typeof testPlanInputSchema>;
 
 export const criterionInputSchema = criterionSchema;
 export type CriterionInput = Criterion;
-export type CriterionView = Criterion & { id: string; position: number };
+export type CriterionView = Criterion & { id: string; position: number; version: number };
 
 // ── Safety ───────────────────────────────────────────────────────────────────
 
@@ -103,6 +103,8 @@ export interface TestPlanView {
   criteria: CriterionView[];
   hazards: HazardView[];
   updatedAt: string | null;
+  /** The sheet's version (0 until first saved); a save sends it. */
+  version: number;
 }
 
 // ── Bench shelf ──────────────────────────────────────────────────────────────
@@ -141,6 +143,7 @@ export interface PartView extends PartInput {
   id: string;
   runCount: number;
   updatedAt: string;
+  version: number;
 }
 
 // ── Bench runs ───────────────────────────────────────────────────────────────
@@ -229,6 +232,7 @@ export interface RunView {
   evaluation: RunEvaluation;
   createdAt: string;
   updatedAt: string;
+  version: number;
 }
 
 /** A run as the part's page lists it: with its episode. */
@@ -271,4 +275,5 @@ export interface IterationView extends IterationInput {
   chosenRun: { id: string; number: number; label: string; thrust: Quantity | null } | null;
   thrustToWeight: Figure;
   createdAt: string;
+  version: number;
 }

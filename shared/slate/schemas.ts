@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { versionSchema } from "../http/version";
 import { isIsoDate } from "./dates";
 import type { BoardFlag } from "./flags";
 import type { GateProblem } from "./gates";
@@ -74,7 +75,6 @@ export const emptyEpisodeFields: EpisodeFields = {
   targetPublishDate: "",
 };
 
-const versionSchema = z.number({ error: "Send the version you last saw." }).int().min(1);
 
 /** An edit: any subset of the fields, against the version the editor saw. */
 export const episodeChangesSchema = episodeFieldsObject.partial().extend({ version: versionSchema });

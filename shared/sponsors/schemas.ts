@@ -63,6 +63,7 @@ export interface Contact {
   name: string;
   email: string;
   role: string | null;
+  version: number;
 }
 
 export interface SponsorSummary {
@@ -72,6 +73,7 @@ export interface SponsorSummary {
   notes: string | null;
   contacts: Contact[];
   dealCount: number;
+  version: number;
 }
 
 export interface SponsorDealRow {
@@ -113,6 +115,7 @@ export interface DealTemplate {
   id: string;
   name: string;
   items: z.infer<typeof templateItemSchema>[];
+  version: number;
 }
 
 // ── Deals ──────────────────────────────────────────────────────────────
@@ -189,6 +192,7 @@ export const createDealSchema = z.strictObject({
 });
 export type CreateDealInput = z.input<typeof createDealSchema>;
 
+/** A change of some segment fields: the form sends only those it changed (and, beside them, the deal's version). */
 export const updateDealSchema = z
   .strictObject(segmentFields)
   .partial()
@@ -277,6 +281,7 @@ export interface DeliverableView {
   status: (typeof deliverableStatuses)[number];
   ownerId: string | null;
   ownerName: string | null;
+  version: number;
   late: boolean;
   daysLate: number;
   /** May the caller change this item (status at least)? */
@@ -365,6 +370,8 @@ export interface CutTiming {
 
 export interface DealView {
   id: string;
+  /** The deal's version: its segment, script, money and cut saves each name it. */
+  version: number;
   episodeId: string;
   episodeTitle: string;
   publishDate: string | null;

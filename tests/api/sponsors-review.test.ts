@@ -215,7 +215,7 @@ describe("the sponsor's review page", () => {
       [world.channel.id, sent.episode.id, key, bytes.length],
     );
     const editor = await app.signedIn(world.editor);
-    const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null }).expect(200);
+    const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null, version: 1 }).expect(200);
     expect(set.body.deal.cut.clip).toEqual({ id: clip.rows[0].id, fileName: "segment-v2.mp4", durationSeconds: 62 });
 
     const page = await (await app.visitor()).get(`/api/review/${sent.token}`).expect(200);
@@ -231,7 +231,7 @@ describe("the sponsor's review page", () => {
       `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, recorded_at) values ($1, $2, $3, 'x.mp4', 'video/mp4', 1, now()) returning id`,
       [world.channel.id, elsewhere.id, `${key}-other`],
     );
-    const wrong = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: otherClip.rows[0].id, timing: null }).expect(400);
+    const wrong = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: otherClip.rows[0].id, timing: null, version: 2 }).expect(400);
     expect(wrong.body.error.fields).toEqual({ clipId: "Pick a clip of this episode's footage." });
   });
 });
