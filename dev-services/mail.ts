@@ -1,6 +1,6 @@
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import path from "node:path";
-import { stopChild, waitForHttp } from "./processes";
+import { spawnTied, stopChild, waitForHttp } from "./processes";
 
 /**
  * The local mail stand-in: maildev catches every message sent over SMTP, shows it in a web inbox
@@ -15,12 +15,16 @@ export interface MailCatcher {
 const maildevBin = path.resolve(import.meta.dirname, "../node_modules/maildev/dist/bin/maildev.js");
 
 export async function startMailCatcher(options: { smtpPort: number; webPort: number }): Promise<MailCatcher> {
-  const child: ChildProcess = spawn(
+  const child: ChildProcess = spawnTied(
     process.execPath,
     [maildevBin, "--smtp", String(options.smtpPort), "--web", String(options.webPort), "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--silent"],
     { stdio: ["ignore", "ignore", "inherit"] },
   );
   const webUrl = `http://127.0.0.1:${options.webPort}`;
-  await waitForHttp(`${webUrl}/api/email`, 20_000);
+  // A busy machine can take a while; one that never answers leaves no maildev behind.
+  await waitForHttp(`${webUrl}/api/email`, 60_000).catch(async (error: unknown) => {
+    await stopChild(child);
+    throw error;
+  });
   return { smtpPort: options.smtpPort, webUrl, stop: () => stopChild(child) };
 }

@@ -1,8 +1,8 @@
-import { execFileSync, spawnSync } from "node:child_process";
-import { accessSync, constants, existsSync, mkdirSync, readdirSync, symlinkSync, lstatSync, chownSync, rmSync } from "node:fs";
-import { createHash } from "node:crypto";
+import { spawnSync } from "node:child_process";
+import { accessSync, constants, existsSync, mkdirSync, readdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
+import { giveTo, isRoot, reachableFolder } from "./service-user";
 
 /**
  * A private PostgreSQL cluster for one checkout: loopback only, its own port, trust auth for the
@@ -28,8 +28,6 @@ export function postgresBinDir(): string {
   return path.join(base, newest, "bin");
 }
 
-const isRoot = () => process.getuid?.() === 0;
-
 function runPg(bin: string, args: string[], opts: { quiet?: boolean } = {}): void {
   const [cmd, cmdArgs] = isRoot() ? ["runuser", ["-u", "postgres", "--", bin, ...args]] : [bin, args];
   const result = spawnSync(cmd, cmdArgs, { stdio: opts.quiet ? "pipe" : "inherit", encoding: "utf8" });
@@ -38,38 +36,9 @@ function runPg(bin: string, args: string[], opts: { quiet?: boolean } = {}): voi
   }
 }
 
-function postgresUserCanEnter(dir: string): boolean {
-  if (!isRoot()) return true;
-  return spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", dir]).status === 0;
-}
-
-/**
- * Keeps the cluster inside the checkout when the postgres user can reach it; otherwise (a clone
- * under a private home folder) in /var/tmp, keyed by the checkout's path, linked back from .kerf/.
- */
-function resolveDataDir(wanted: string): string {
-  const parent = path.dirname(wanted);
-  mkdirSync(parent, { recursive: true });
-  if (existsSync(wanted)) return lstatSync(wanted).isSymbolicLink() ? path.resolve(parent, readlinkTarget(wanted)) : wanted;
-  if (postgresUserCanEnter(parent)) return wanted;
-  const key = createHash("sha256").update(wanted).digest("hex").slice(0, 12);
-  const outside = path.join("/var/tmp", `kerf-pg-${key}-${path.basename(wanted)}`);
-  console.log(`[postgres] ${parent} is closed to the postgres user; keeping the cluster in ${outside} (linked from ${wanted}).`);
-  symlinkSync(outside, wanted);
-  return outside;
-}
-
-function readlinkTarget(link: string): string {
-  return execFileSync("readlink", [link], { encoding: "utf8" }).trim();
-}
-
 function initCluster(bin: string, dataDir: string): void {
   mkdirSync(dataDir, { recursive: true, mode: 0o700 });
-  if (isRoot()) {
-    const uid = Number(execFileSync("id", ["-u", "postgres"], { encoding: "utf8" }));
-    const gid = Number(execFileSync("id", ["-g", "postgres"], { encoding: "utf8" }));
-    chownSync(dataDir, uid, gid);
-  }
+  giveTo("postgres", dataDir);
   runPg(path.join(bin, "initdb"), ["-D", dataDir, "-U", SUPERUSER, "--auth=trust", "--encoding=UTF8", "--locale=C.UTF-8", "--no-sync"], { quiet: true });
 }
 
@@ -80,7 +49,7 @@ export function isPortOpen(port: number): boolean {
 
 export function startCluster(options: { dataDir: string; port: number; fresh?: boolean }): Cluster {
   const bin = postgresBinDir();
-  const dataDir = resolveDataDir(options.dataDir);
+  const dataDir = reachableFolder(options.dataDir, "postgres", "pg");
   if (options.fresh && existsSync(dataDir)) {
     if (isPortOpen(options.port)) stopAt(bin, dataDir);
     rmSync(dataDir, { recursive: true, force: true });
@@ -105,9 +74,14 @@ export function startCluster(options: { dataDir: string; port: number; fresh?: b
   };
 }
 
-function stopAt(bin: string, dataDir: string): void {
+/** A cluster left running by a run that was killed (pg_ctl starts it detached): stopped at once. */
+export function stopLeftoverCluster(dataDir: string): void {
+  if (existsSync(path.join(dataDir, "postmaster.pid"))) stopAt(postgresBinDir(), dataDir, "immediate");
+}
+
+function stopAt(bin: string, dataDir: string, mode: "fast" | "immediate" = "fast"): void {
   try {
-    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-m", "fast", "-w", "stop"], { quiet: true });
+    runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true });
   } catch (error) {
     console.error(`[postgres] stop failed: ${(error as Error).message}`);
   }

@@ -2,16 +2,37 @@ import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process"
 import net from "node:net";
 
 /** A free loopback port, found by letting the kernel pick one. */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
+export async function freePort(): Promise<number> {
+  const [port] = await freePorts(1);
+  return port!;
+}
+
+/** Several different free loopback ports: each is held until all are picked, so none comes twice. */
+export async function freePorts(count: number): Promise<number[]> {
+  const servers = await Promise.all(
+    Array.from(
+      { length: count },
+      () =>
+        new Promise<net.Server>((resolve, reject) => {
+          const server = net.createServer();
+          server.unref();
+          server.on("error", reject);
+          server.listen(0, "127.0.0.1", () => resolve(server));
+        }),
+    ),
+  );
+  const ports = servers.map((server) => (server.address() as net.AddressInfo).port);
+  await Promise.all(servers.map((server) => new Promise((resolve) => server.close(resolve))));
+  return ports;
+}
+
+/** Whether a loopback port can be listened on right now. */
+export function portIsFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
     const server = net.createServer();
     server.unref();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      const port = typeof address === "object" && address ? address.port : 0;
-      server.close(() => resolve(port));
-    });
+    server.once("error", () => resolve(false));
+    server.listen(port, "127.0.0.1", () => server.close(() => resolve(true)));
   });
 }
 
@@ -29,10 +50,20 @@ export async function waitForHttp(url: string, timeoutMs = 30_000): Promise<void
   }
 }
 
+/**
+ * Starts a process that dies with this one: `setpriv --pdeathsig` sends it SIGTERM when this process
+ * ends, even by SIGKILL, so no service outlives its run. `asUser` drops to that user first (as root).
+ */
+export function spawnTied(command: string, args: string[], options: SpawnOptions & { asUser?: string | null } = {}): ChildProcess {
+  const { asUser, ...spawnOptions } = options;
+  const identity = asUser ? ["--reuid", asUser, "--regid", asUser, "--init-groups"] : [];
+  return spawn("setpriv", [...identity, "--pdeathsig", "TERM", "--", command, ...args], spawnOptions);
+}
+
 /** Runs a command to completion, streaming its output; resolves to its exit code. */
 export function run(command: string, args: string[], options: SpawnOptions = {}): Promise<number> {
   return new Promise((resolve) => {
-    const child = spawn(command, args, { stdio: "inherit", ...options });
+    const child = spawnTied(command, args, { stdio: "inherit", ...options });
     child.on("exit", (code, signal) => resolve(code ?? (signal ? 1 : 0)));
     child.on("error", () => resolve(127));
   });

@@ -1,18 +1,21 @@
-import { spawn } from "node:child_process";
-import { existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, realpathSync, rmSync } from "node:fs";
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import PgBoss from "pg-boss";
 import { migrateDatabase } from "../server/db/migrate";
 import { startMailCatcher } from "./mail";
+import { APP_WEBHOOK_PATH, startPaymentsStandIn } from "./payments/server";
+import { newSecretKey, newWebhookSecret } from "./payments/store";
+import { TEST_RETRY } from "./payments/webhooks";
 import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
-import { ensureDatabase, startCluster } from "./postgres";
-import { freePort, run, stopChild, waitForHttp } from "./processes";
+import { ensureDatabase, startCluster, stopLeftoverCluster } from "./postgres";
+import { freePort, run, spawnTied, stopChild, waitForHttp } from "./processes";
+import { removeFolder } from "./service-user";
 
 /**
- * `npm test`: a throwaway PostgreSQL cluster and mail stand-in, then the type check, the linter, the
- * migrations' check, the unit and API tests, the client build and the browser tests, each against its
- * own database.
+ * `npm test`: a throwaway PostgreSQL cluster and mail, storage and payments stand-ins, then the type
+ * check, the linter, the migrations' check, the unit and API tests, the client build and the browser
+ * tests, each against its own database.
  * The demo cluster of `npm start` is never touched.
  */
 // `npm test -- <vitest filters>` runs just those vitest files against fresh services: the quick loop.
@@ -42,13 +45,12 @@ async function step(name: string, command: string, args: string[], env: NodeJS.P
 
 async function preparePostgres() {
   const port = await freePort();
-  removeAbandonedClusters();
+  removeAbandonedFolders();
   const dataDir = path.join(stateDir, `pg-test-${process.pid}`);
   const cluster = startCluster({ dataDir, port, fresh: true });
   stops.push(() => {
     cluster.stop();
-    rmSync(cluster.dataDir, { recursive: true, force: true });
-    rmSync(dataDir, { force: true });
+    removeFolder(dataDir);
   });
   const templateUrl = await ensureDatabase(cluster, "kerf_template");
   await migrateDatabase(templateUrl);
@@ -59,17 +61,30 @@ async function preparePostgres() {
   return { cluster, clusterUrl: `postgres://kerf@127.0.0.1:${port}` };
 }
 
-/** Clusters left by runs that were killed; their process id no longer exists. */
-function removeAbandonedClusters(): void {
+/**
+ * Clusters and storage folders left by runs that were killed; their process id no longer exists.
+ * Their storage and mail daemons died with them (spawnTied); a cluster is stopped here.
+ */
+function removeAbandonedFolders(): void {
   if (!existsSync(stateDir)) return;
   for (const name of readdirSync(stateDir)) {
-    const pid = Number(/^pg-test-(\d+)$/.exec(name)?.[1]);
-    if (!pid || processAlive(pid)) continue;
-    const dir = path.join(stateDir, name);
-    const target = lstatSync(dir).isSymbolicLink() ? realpathSync(dir) : dir;
-    rmSync(target, { recursive: true, force: true });
-    rmSync(dir, { recursive: true, force: true });
+    const [, kind, pid] = /^(pg|s3)-(?:test|fault)-(\d+)(?:-[\w-]+)?$/.exec(name) ?? [];
+    if (!pid || processAlive(Number(pid))) continue;
+    if (kind === "pg") stopLeftoverCluster(path.join(stateDir, name));
+    removeFolder(path.join(stateDir, name));
   }
+}
+
+/** A storage stand-in of this run's own, in a folder of its own, removed when the run ends. */
+function startStorage(name: string, origins: string[]) {
+  const dataDir = path.join(stateDir, `s3-test-${process.pid}-${name}`);
+  const starting = freePort().then((port) => startS3StandIn({ port, dataDir, origins }));
+  // Listed at once: a run that fails while storage is still starting stops it all the same.
+  stops.push(async () => {
+    await (await starting.catch(() => null))?.stop();
+    removeFolder(dataDir);
+  });
+  return starting;
 }
 
 function processAlive(pid: number): boolean {
@@ -95,14 +110,34 @@ function countPlaywright(): { passed: number; failed: number } {
   return { passed: report.stats.expected + report.stats.flaky, failed: report.stats.unexpected };
 }
 
+/** A payments stand-in for this run: fresh keys, its state in memory only (no test restarts it). */
+async function startPayments(webhookUrls: string[] = []) {
+  const payments = await startPaymentsStandIn({
+    port: await freePort(),
+    secretKey: newSecretKey(),
+    webhookSecret: newWebhookSecret(),
+    accountName: "Kerf test channel",
+    webhookUrls,
+    retry: TEST_RETRY,
+  });
+  stops.push(() => payments.stop());
+  return payments;
+}
+
+const paymentsTestEnv = (payments: Awaited<ReturnType<typeof startPayments>>) => ({
+  KERF_TEST_PAYMENTS_API_URL: payments.url,
+  KERF_TEST_PAYMENTS_SECRET_KEY: payments.secretKey,
+  KERF_TEST_PAYMENTS_WEBHOOK_SECRET: payments.webhookSecret,
+});
+
 async function browserTests(clusterUrl: string, cluster: ReturnType<typeof startCluster>, mail: { smtpPort: number; webUrl: string }) {
   const databaseUrl = await ensureDatabase(cluster, "kerf_e2e", "kerf_template");
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
   // The browser uploads straight to storage, so its stand-in must allow this app's origin (CORS).
-  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3-e2e"), origins: [appUrl] });
-  stops.push(() => s3.stop());
-  const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+  const s3 = await startStorage("e2e", [appUrl]);
+  const payments = await startPayments([`${appUrl}${APP_WEBHOOK_PATH}`]);
+  const server = spawnTied(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "inherit", "inherit"],
     env: {
@@ -113,7 +148,10 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       DATABASE_URL: databaseUrl,
       SESSION_SECRET: "browser-test-secret-browser-test-secret",
       SMTP_PORT: String(mail.smtpPort),
+      // Every browser test signs its people up from this one address.
+      SIGN_UPS_PER_ADDRESS: "1000",
       ...s3.env,
+      ...payments.env,
     },
   });
   stops.push(() => stopChild(server));
@@ -125,6 +163,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
     KERF_TEST_MAIL_WEB_URL: mail.webUrl,
     KERF_TEST_S3_ENDPOINT: s3.endpoint,
     KERF_TEST_S3_BUCKET: s3.bucket,
+    ...paymentsTestEnv(payments),
     PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(outputDir, "playwright.json"),
   });
 }
@@ -141,26 +180,37 @@ async function main(): Promise<number> {
   }
 
   console.log("\n── test services ──");
+  const servicesStarted = performance.now();
+  // Storage's daemons start while PostgreSQL is prepared: the slowest of the services goes first.
+  // The browser tests get a stand-in of their own later (its CORS names their server's origin).
+  const storage = browserOnly ? null : startStorage("api", ["http://kerf.test"]);
+  storage?.catch(() => undefined);
   const { cluster, clusterUrl } = await preparePostgres();
   const mail = await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() });
   stops.push(() => mail.stop());
-  const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(outputDir, "s3"), origins: ["http://kerf.test"] });
-  stops.push(() => s3.stop());
-  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}, S3 stand-in ${s3.endpoint}`);
+  const s3 = await storage;
+  const payments = await startPayments();
+  const seconds = ((performance.now() - servicesStarted) / 1000).toFixed(1);
+  console.log(`PostgreSQL ${clusterUrl}, mail stand-in ${mail.webUrl}${s3 ? `, S3 stand-in ${s3.endpoint}` : ""}, payments stand-in ${payments.url} (up in ${seconds} s)`);
 
-  const testEnv = {
-    NO_COLOR: "1",
-    KERF_TEST_CLUSTER_URL: clusterUrl,
-    KERF_TEST_TEMPLATE_DB: "kerf_template",
-    KERF_TEST_SMTP_PORT: String(mail.smtpPort),
-    KERF_TEST_MAIL_WEB_URL: mail.webUrl,
-    KERF_TEST_S3_ENDPOINT: s3.endpoint,
-    KERF_TEST_S3_BUCKET: s3.bucket,
-    KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
-    KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
-  };
-  const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
-  if (!browserOnly) await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+  if (s3) {
+    const testEnv = {
+      NO_COLOR: "1",
+      KERF_TEST_CLUSTER_URL: clusterUrl,
+      KERF_TEST_TEMPLATE_DB: "kerf_template",
+      KERF_TEST_SMTP_PORT: String(mail.smtpPort),
+      KERF_TEST_MAIL_WEB_URL: mail.webUrl,
+      KERF_TEST_S3_ENDPOINT: s3.endpoint,
+      KERF_TEST_S3_BUCKET: s3.bucket,
+      KERF_TEST_S3_ACCESS_KEY_ID: s3.accessKeyId,
+      KERF_TEST_S3_SECRET_ACCESS_KEY: s3.secretAccessKey,
+      ...paymentsTestEnv(payments),
+    };
+    const vitestArgs = ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${path.join(outputDir, "vitest.json")}`, ...filters];
+    await step("unit and API tests (vitest)", bin("vitest"), vitestArgs, testEnv);
+    // Its memory and processes are the browser tests' now.
+    await s3.stop();
+  }
 
   if (filters.length === 0 && (await step("client build", bin("vite"), ["build", "--logLevel", "warn"]))) {
     await browserTests(clusterUrl, cluster, mail);
@@ -178,13 +228,28 @@ async function main(): Promise<number> {
   return failedSteps === 0 ? 0 : 1;
 }
 
+let stopping: Promise<void> | null = null;
+/** Stops every service once, whether the run ends, fails or is interrupted (Ctrl-C). */
+function stopAll(): Promise<void> {
+  stopping ??= (async () => {
+    for (const stop of stops.reverse()) await stop();
+    if (filters.length > 0) rmSync(outputDir, { recursive: true, force: true });
+  })();
+  return stopping;
+}
+for (const signal of ["SIGINT", "SIGTERM"] as const) {
+  process.on(signal, () => {
+    console.error(`\n[test] ${signal}: stopping the test services…`);
+    void stopAll().then(() => process.exit(130));
+  });
+}
+
 let code = 1;
 try {
   code = await main();
 } catch (error) {
   console.error(`[test] ${(error as Error).stack ?? error}`);
 } finally {
-  for (const stop of stops.reverse()) await stop();
-  if (filters.length > 0) rmSync(outputDir, { recursive: true, force: true });
+  await stopAll();
 }
 process.exit(code);

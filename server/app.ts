@@ -5,21 +5,30 @@ import helmet from "helmet";
 import { authRoutes } from "./auth/auth.router";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
 import { findUserById } from "./auth/users.repository";
+import { verificationRoutes } from "./auth/verification.router";
+import { verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
+import { invitationMailRenderer } from "./channels/invitations.service";
 import { healthRoutes } from "./health/health.router";
+import { noStoreByDefault } from "./http/cache";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
+import { bodyReaders } from "./http/json-body";
 import { mountRoutes, type RouteSpec } from "./http/route-table";
-import { configurePassport, sessionMiddleware } from "./http/session";
+import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
+import type { MailRenderers } from "./mail/mail-jobs";
+import { memberMailRenderer } from "./mail/member-mail";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { SlatePlugs } from "./seams/slate-plugs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
+import { reviewLinkMailRenderer } from "./sponsors/review.service";
+import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
 
@@ -39,13 +48,31 @@ export const slatePlugs: SlatePlugs = {
   publishDateFollowers: [sponsorsFollowPublishDate],
 };
 
+/**
+ * What builds each kind of queued mail when it is sent (server/mail/mail-jobs.ts): the one place a
+ * feature's mail renderers are named. Every instance that runs the mail worker passes these to
+ * `jobs.startMailWorker`.
+ */
+export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRenderers {
+  const db = deps.database.db;
+  const appUrl = deps.env.APP_URL;
+  return {
+    ...memberMailRenderer(db),
+    ...verificationMailRenderer({ db, appUrl }),
+    ...invitationMailRenderer({ db, appUrl }),
+    ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
+  };
+}
+
 /** Every API route with who may call it: the one table the authorisation tests read. */
 export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] {
   const db = deps.database.db;
+  const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
-    ...authRoutes(db, options.signInLimits ?? defaultSignInLimits),
-    ...channelRoutes({ db, appUrl: deps.env.APP_URL, enqueueMail: (mail) => deps.jobs.enqueueMail(mail) }),
+    ...authRoutes(mailing, options.signInLimits ?? defaultSignInLimits),
+    ...verificationRoutes(mailing),
+    ...channelRoutes(mailing),
     ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
@@ -84,9 +111,15 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
   const routes = apiRoutes(deps, options);
   const guards = guardsFor(database.db);
-  mountRoutes(api, routes.filter((route) => route.sessionless), guards);
-  api.use("/api", express.json({ limit: "100kb", strict: true }), sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session(), csrfProtection);
-  mountRoutes(api, routes.filter((route) => !route.sessionless), guards);
+  const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
+  // In this order: no answer is cached; bodies are read, and bad ones refused, before any session or
+  // database work; the health check answers whether or not sessions can be read; then the rest.
+  api.use("/api", noStoreByDefault);
+  api.use(bodyReaders(routes));
+  const sessionWhenReachable = bestEffort(loadSession);
+  mountRoutes(api, routes.filter((route) => route.sessionOptional), (spec) => [sessionWhenReachable, ...guards(spec)]);
+  api.use("/api", ...loadSession, csrfProtection(env.SESSION_SECRET));
+  mountRoutes(api, routes.filter((route) => !route.sessionOptional), guards);
   api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));

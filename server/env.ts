@@ -17,16 +17,18 @@ const envSchema = z.object({
   /** Set when the app sits behind a TLS-terminating proxy: cookies become Secure. */
   TRUST_PROXY: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
   CLIENT_DIST: z.string().default("dist/client"),
-  // Object storage for footage: any S3-compatible store. The defaults are the local stand-in of
-  // dev-services/s3.ts (s3rver's fixed development key pair), never a real account.
+  /** Sign-ups allowed from one address in 15 minutes: raise it where many people share one address. */
+  SIGN_UPS_PER_ADDRESS: z.coerce.number().int().min(1).default(10),
+  // Object storage for footage: any S3-compatible store. The defaults point at the local stand-in of
+  // dev-services/s3.ts; its key pair is made per data folder, so `npm start` passes it in.
   S3_ENDPOINT: z
     .string()
     .default("http://127.0.0.1:4568")
     .refine((v) => v === "" || URL.canParse(v), "S3_ENDPOINT must be a URL (or empty for AWS's own endpoints)"),
   S3_REGION: z.string().min(1).default("us-east-1"),
   S3_BUCKET: z.string().min(3, "S3_BUCKET must name a bucket").default("kerf-rushes"),
-  S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
-  S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
+  S3_ACCESS_KEY_ID: z.string({ message: "S3_ACCESS_KEY_ID must be set (the storage key pair)" }).min(1),
+  S3_SECRET_ACCESS_KEY: z.string({ message: "S3_SECRET_ACCESS_KEY must be set (the storage key pair)" }).min(1),
   /** true for the stand-in and most S3-compatible stores; AWS itself takes either. */
   S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true").transform((v) => v === "true"),
 });

@@ -1,8 +1,10 @@
 import type { Server } from "node:http";
-import { createApp } from "./app";
+import { createApp, mailRenderers } from "./app";
+import { defaultSignInLimits } from "./auth/rate-limits";
 import { connectDatabase } from "./db/client";
 import { readEnv, type Env } from "./env";
 import { startJobs } from "./jobs/queue";
+import { scheduleMailHousekeeping } from "./mail/housekeeping";
 import { createMailer } from "./mail/mailer";
 import { scheduleRushesJobs } from "./rushes/rushes.jobs";
 import { scheduleSponsorJobs } from "./sponsors/reminders";
@@ -16,11 +18,14 @@ export interface RunningServer {
 export async function startServer(env: Env = readEnv()): Promise<RunningServer> {
   const database = connectDatabase(env.DATABASE_URL);
   const mailer = createMailer(env);
-  const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, mailer, runWorkers: true });
+  const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, mailer });
+  await jobs.startMailWorker(mailRenderers({ env, database }));
   const storage = createS3Storage(storageSettingsFrom(env));
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
-  await scheduleSponsorJobs(jobs.boss, { db: database.db, pool: database.pool, jobs, appUrl: env.APP_URL });
-  const app = createApp({ env, database, mailer, jobs, storage });
+  await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL });
+  await scheduleMailHousekeeping(jobs.boss, database.db);
+  const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
+  const app = createApp({ env, database, mailer, jobs, storage }, { signInLimits });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
   });

@@ -13,12 +13,17 @@ import { percentile, signIn, type SignedIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
+import { deeplyNested } from "../../tests/support/server-timing";
 
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
  * the board, an episode page, the footage list and the producer's desk, and a write (a comment) every
  * tenth request — against a Kerf server of its own on throwaway services. Bounded: each client keeps
  * to a set pace (RATE). A short flat-out run after it shows the ceiling. Last line: one JSON object.
+ *
+ * `npm run bench:load -- --attack` (or BENCH_ATTACK=1): the same, with one more client that sends
+ * 6,000-level-deep bodies to the sign-up form as fast as it is answered, all through the paced and the
+ * flat-out runs; a calm paced run first gives the baseline the attacked one is compared with.
  */
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
@@ -28,6 +33,8 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
  */
 const RATE = Number(process.env.BENCH_RATE ?? 4);
 const WARMUP_SECONDS = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
+const ATTACK = process.argv.includes("--attack") || process.env.BENCH_ATTACK === "1";
+const ATTACK_DEPTH = 6000;
 const SATURATION_SECONDS = Number(process.env.BENCH_SATURATION_SECONDS ?? 10);
 const work = path.join(stateDir, `bench-load-${process.pid}`);
 const stops: (() => Promise<void> | void)[] = [];
@@ -96,10 +103,24 @@ async function main() {
   // A fresh server runs its code cold (not yet optimised by V8) and its pools empty: warm it first.
   console.log(`Warming up for ${WARMUP_SECONDS} s (not counted)…`);
   await drivePaced(appUrl, clients, requestsFor, { seconds: WARMUP_SECONDS, rate: Math.max(1, RATE) });
-  console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}, each at ${RATE} requests a second…`);
-  const paced = summary(RATE > 0 ? await drivePaced(appUrl, clients, requestsFor, { seconds: SECONDS, rate: RATE }) : await driveFlatOut(appUrl, clients, requestsFor, { seconds: SECONDS }));
+  const drive = () => (RATE > 0 ? drivePaced(appUrl, clients, requestsFor, { seconds: SECONDS, rate: RATE }) : driveFlatOut(appUrl, clients, requestsFor, { seconds: SECONDS }));
+  let calm: ReturnType<typeof summary> | null = null;
+  if (ATTACK) {
+    console.log(`Calm run: ${CONNECTIONS} signed-in clients for ${SECONDS} s, each at ${RATE} requests a second, no attacker (the baseline)…`);
+    calm = summary(await drive());
+  }
+  const attacks: AttackRun[] = [];
+  const underAttack = async <T>(seconds: number, run: Promise<T>): Promise<T> => {
+    if (!ATTACK) return run;
+    const [result, hits] = await Promise.all([run, attack(appUrl, seconds)]);
+    attacks.push(hits);
+    return result;
+  };
+  console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}, each at ${RATE} requests a second${ATTACK ? `, while one client sends ${ATTACK_DEPTH}-deep bodies flat out` : ""}…`);
+  const paced = summary(await underAttack(SECONDS, drive()));
   console.log(`Then flat out for ${SATURATION_SECONDS} s, each client sending its next request as soon as the last is answered…`);
-  const flatOut = summary(await driveFlatOut(appUrl, clients, requestsFor, { seconds: SATURATION_SECONDS }));
+  const flatOut = summary(await underAttack(SATURATION_SECONDS, driveFlatOut(appUrl, clients, requestsFor, { seconds: SATURATION_SECONDS })));
+  const attacked = ATTACK ? attackSummary(attacks, SECONDS + SATURATION_SECONDS) : null;
 
   const figures = {
     connections: CONNECTIONS,
@@ -115,6 +136,19 @@ async function main() {
     flat_out_errors: flatOut.errors,
     flat_out_p50_ms: flatOut.p50,
     flat_out_p95_ms: flatOut.p95,
+    ...(attacked && calm
+      ? {
+          attack_depth: ATTACK_DEPTH,
+          attack_requests: attacked.requests,
+          attack_requests_per_second: attacked.perSecond,
+          attack_not_400: attacked.not400,
+          attack_p50_ms: attacked.p50,
+          attack_p95_ms: attacked.p95,
+          calm_p95_ms: calm.p95,
+          calm_errors: calm.errors,
+          p95_ratio_to_calm: Math.round((paced.p95 / Math.max(0.1, calm.p95)) * 100) / 100,
+        }
+      : {}),
     load_average_1min: Math.round(os.loadavg()[0]! * 100) / 100,
   };
   console.log(`
@@ -124,7 +158,15 @@ paced (${CONNECTIONS} clients × ${RATE}/s):
   target:     zero errors and p95 under 100 ms — ${paced.errors === 0 && paced.p95 < 100 ? "met" : "NOT met"}
 flat out (the ceiling of this machine, server, database and load generator together):
   requests:   ${flatOut.requests} in ${SATURATION_SECONDS} s (${flatOut.perSecond}/s), ${flatOut.errors} errors
-  latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)
+  latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)${
+    attacked && calm
+      ? `
+attacker (one client, ${ATTACK_DEPTH}-deep bodies to the sign-up form, flat out through both runs):
+  requests:   ${attacked.requests} (${attacked.perSecond}/s), ${attacked.not400} not answered 400
+  latency:    p50 ${attacked.p50} ms, p95 ${attacked.p95} ms
+calm paced run (no attacker): p95 ${calm.p95} ms, ${calm.errors} errors; attacked p95 is ${figures.p95_ratio_to_calm}× the calm one`
+      : ""
+  }
 machine: ${os.cpus().length} CPUs, load average ${figures.load_average_1min}`);
   console.log(JSON.stringify(figures));
 }
@@ -140,11 +182,40 @@ interface Run {
   latencies: number[];
 }
 
-function oneRun(options: autocannon.Options, onResponse: (ms: number) => void): Promise<autocannon.Result> {
+function oneRun(options: autocannon.Options, onResponse: (ms: number, status: number) => void): Promise<autocannon.Result> {
   return new Promise((resolve, reject) => {
     const instance = autocannon(options, (error, finished) => (error ? reject(error) : resolve(finished)));
-    instance.on("response", (_client, _status, _bytes, responseTime) => onResponse(responseTime));
+    instance.on("response", (_client, status, _bytes, responseTime) => onResponse(responseTime, status));
   });
+}
+
+interface AttackRun {
+  requests: number;
+  not400: number;
+  latencies: number[];
+}
+
+/** One visitor, not signed in, sending the sign-up form a body nested ATTACK_DEPTH levels deep, flat out. */
+async function attack(appUrl: string, seconds: number): Promise<AttackRun> {
+  const me = await fetch(`${appUrl}/api/auth/me`);
+  const cookie = me.headers.getSetCookie().map((line) => line.split(";")[0]).join("; ");
+  const { csrfToken } = (await me.json()) as { csrfToken: string };
+  const latencies: number[] = [];
+  let not400 = 0;
+  const body = deeplyNested(ATTACK_DEPTH);
+  const headers = { cookie, "content-type": "application/json", "x-csrf-token": csrfToken };
+  const result = await oneRun({ url: appUrl, connections: 1, duration: seconds, requests: [{ method: "POST", path: "/api/auth/sign-up", headers, body }] }, (ms, status) => {
+    latencies.push(ms);
+    if (status !== 400) not400++;
+  });
+  return { requests: result.requests.total, not400: not400 + result.errors + result.timeouts, latencies };
+}
+
+function attackSummary(runs: AttackRun[], seconds: number) {
+  const latencies = runs.flatMap((run) => run.latencies).sort((a, b) => a - b);
+  const requests = runs.reduce((total, run) => total + run.requests, 0);
+  const at = (p: number) => Math.round(percentile(latencies, p) * 10) / 10;
+  return { requests, perSecond: Math.round(requests / seconds), not400: runs.reduce((total, run) => total + run.not400, 0), p50: at(50), p95: at(95) };
 }
 
 /**

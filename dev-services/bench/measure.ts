@@ -1,21 +1,38 @@
 /** What the benchmarks share: the p-th percentile of sorted timings, and a signed-in client of a running Kerf. */
 export const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 
+/** A signed-in client as the benchmarks drive it: the cookies to send back and the CSRF token for writes. */
 export interface SignedIn {
   cookie: string;
   csrf: string;
 }
 
-/** Signs in as a browser does: a first visit for the session cookie and CSRF token, then the sign-in. */
+/** Every cookie an answer sets, as name → value (what a browser's cookie jar would keep). */
+function keepCookies(jar: Map<string, string>, response: Response): void {
+  for (const line of response.headers.getSetCookie()) {
+    const pair = line.split(";")[0]!;
+    const at = pair.indexOf("=");
+    jar.set(pair.slice(0, at), pair.slice(at + 1));
+  }
+}
+
+const cookieHeader = (jar: Map<string, string>) => [...jar].map(([name, value]) => `${name}=${value}`).join("; ");
+
+/**
+ * Signs in as a browser does: a first visit for the CSRF cookie and token, then the sign-in; every
+ * cookie the answers set (the CSRF token's and the session's) is sent back.
+ */
 export async function signIn(appUrl: string, person: { email: string; password: string }): Promise<SignedIn> {
+  const jar = new Map<string, string>();
   const me = await fetch(`${appUrl}/api/auth/me`);
-  const anonymous = (me.headers.get("set-cookie") ?? "").split(";")[0]!;
+  keepCookies(jar, me);
   const { csrfToken } = (await me.json()) as { csrfToken: string };
   const signed = await fetch(`${appUrl}/api/auth/sign-in`, {
     method: "POST",
-    headers: { cookie: anonymous, "content-type": "application/json", "x-csrf-token": csrfToken },
+    headers: { cookie: cookieHeader(jar), "content-type": "application/json", "x-csrf-token": csrfToken },
     body: JSON.stringify({ email: person.email, password: person.password }),
   });
   if (!signed.ok) throw new Error(`sign-in failed: ${signed.status} ${await signed.clone().text()}`);
-  return { cookie: (signed.headers.get("set-cookie") ?? anonymous).split(";")[0]!, csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
+  keepCookies(jar, signed);
+  return { cookie: cookieHeader(jar), csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
 }

@@ -178,8 +178,8 @@ async function main() {
   const base = `/api/channels/${crewed.channel.id}`;
   const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
   await inParallel(partCount, async (n) => {
-    const { urls } = (await call("POST", `${base}/uploads/${upload.id}/part-urls`, { partNumbers: [n] })) as { urls: { url: string }[] };
     const body = await readPart(file, n, partSize, size);
+    const { urls } = (await call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts: [{ partNumber: n, size: body.length }] })) as { urls: { url: string }[] };
     const put = await fetch(urls[0]!.url, { method: "PUT", body: new Uint8Array(body) });
     if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
     await call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length });

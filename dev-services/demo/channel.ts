@@ -61,11 +61,18 @@ export async function isEmpty(db: Database): Promise<boolean> {
   return (result.rows[0] as { count: number }).count === 0;
 }
 
+/** A demo seeded before Kerf confirmed addresses gets its accounts confirmed too (demo addresses only). */
+export async function confirmDemoAddresses(db: Database): Promise<void> {
+  const emails = [...demoAccounts.map((account) => account.email), "neighbour@example.com"];
+  await db.execute(sql`update users set email_verified_at = now() where email_verified_at is null and email in ${emails}`);
+}
+
 export async function seedDemo(db: Database, today = new Date()): Promise<void> {
   const people: DemoContext["people"] = new Map();
   const episodes: DemoContext["episodes"] = [];
   for (const account of demoAccounts) {
-    people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: "Europe/Oslo" }));
+    // Seeded with confirmed addresses, so the demo can invite people and send review links at once.
+    people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: "Europe/Oslo", verified: true }));
   }
   const owner = people.get("owner")!;
   const channel = await createChannel(db, owner, DEMO_CHANNEL);
@@ -98,7 +105,7 @@ export async function seedDemo(db: Database, today = new Date()): Promise<void> 
 
   // A second channel, where the demo owner is a producer: shows the channel switcher and keeps
   // one channel's rows out of the other's sight.
-  const neighbour = await createUser(db, { email: "neighbour@example.com", name: "Ada Okonkwo", password: DEMO_PASSWORD });
+  const neighbour = await createUser(db, { email: "neighbour@example.com", name: "Ada Okonkwo", password: DEMO_PASSWORD, verified: true });
   const club = await createChannel(db, neighbour, "Tidewater Robot Club");
   await addMember(db, club.id, owner, "producer");
   await createEpisode(db, club.id, { title: "Beach-cleaning rover", question: "Can a rover sieve sand for bottle caps?", ownerId: neighbour.id });

@@ -1,12 +1,13 @@
 import { signInSchema, signUpSchema } from "../../shared/auth/schemas";
-import type { Database } from "../db/client";
 import { AppError } from "../http/app-error";
 import { anyAccount, publicAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import { checkCredentials, describeMe, endSession, signUp, startSession } from "./auth.service";
-import { signInRateLimits, type SignInLimits } from "./rate-limits";
+import { signInRateLimits, signUpRateLimit, type SignInLimits } from "./rate-limits";
+import type { VerificationDeps } from "./verification.service";
 
-export function authRoutes(db: Database, limits: SignInLimits): RouteSpec[] {
+export function authRoutes(deps: VerificationDeps, limits: SignInLimits): RouteSpec[] {
+  const { db } = deps;
   return [
     {
       method: "get",
@@ -31,9 +32,10 @@ export function authRoutes(db: Database, limits: SignInLimits): RouteSpec[] {
       method: "post",
       path: "/api/auth/sign-up",
       access: publicAccess,
+      before: [signUpRateLimit(limits)],
       handler: async (req, res) => {
         const input = parseBody(signUpSchema, req.body);
-        const user = await signUp(db, input);
+        const user = await signUp(deps, input);
         await startSession(req, user);
         res.status(201).json(await describeMe(db, req));
       },

@@ -1,11 +1,14 @@
 import type { Request } from "express";
 import type { Me, SignUpInput } from "../../shared/auth/schemas";
 import type { Database } from "../db/client";
-import { insertChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
+import { addChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
+import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
 import { csrfTokenFor } from "../http/csrf";
+import { SESSION_COOKIE } from "../http/session";
 import { decoyHash, hashPassword, passwordMatches } from "./password";
 import { findUserWithHashByEmail, insertUser } from "./users.repository";
+import { queueVerificationMail, type VerificationDeps } from "./verification.service";
 
 export async function checkCredentials(db: Database, email: string, password: string): Promise<Express.User | null> {
   const found = await findUserWithHashByEmail(db, email);
@@ -15,13 +18,14 @@ export async function checkCredentials(db: Database, email: string, password: st
   return user;
 }
 
-/** The account and its first channel, both or neither. */
-export async function signUp(db: Database, input: SignUpInput): Promise<Express.User> {
+/** The account, its first channel and the mail that confirms its address: all three, or none. */
+export async function signUp(deps: VerificationDeps, input: SignUpInput): Promise<Express.User> {
   const passwordHash = await hashPassword(input.password);
-  return db.transaction(async (tx) => {
+  return inTransaction(deps.db, async (tx, sql) => {
     const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
     if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
-    await insertChannelWithOwner(tx, input.channelName, user.id);
+    await addChannelWithOwner(tx, input.channelName, user.id);
+    await queueVerificationMail(deps, tx, sql, user.id);
     return user;
   });
 }
@@ -31,8 +35,14 @@ export function startSession(req: Request, user: Express.User): Promise<void> {
   return new Promise((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())));
 }
 
-export function endSession(req: Request): Promise<void> {
-  return new Promise((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+/**
+ * passport's logout clears the user and regenerates the session; the fresh, empty session it leaves
+ * would then be stored for fourteen days. A signed-out visitor keeps nothing: it goes too.
+ */
+export async function endSession(req: Request): Promise<void> {
+  await new Promise<void>((resolve, reject) => req.logout((error) => (error ? reject(error) : resolve())));
+  await new Promise<void>((resolve, reject) => req.session.destroy((error) => (error ? reject(error) : resolve())));
+  req.res?.clearCookie(SESSION_COOKIE, { path: "/" });
 }
 
 export async function describeMe(db: Database, req: Request): Promise<Me> {

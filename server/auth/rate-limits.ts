@@ -1,41 +1,66 @@
-import { rateLimit, ipKeyGenerator } from "express-rate-limit";
-import type { RequestHandler } from "express";
+import { rateLimit, ipKeyGenerator, type Options } from "express-rate-limit";
+import type { Request, RequestHandler } from "express";
 import { AppError } from "../http/app-error";
 
 export interface SignInLimits {
-  /** Failed attempts allowed per account in the window. */
+  /** Failed sign-ins allowed for one account from one address in the window. */
   perAccount: number;
-  /** Attempts (failed or not) allowed per address in the window. */
+  /** Failed sign-ins allowed for one account from every address together (default: 20 × perAccount). */
+  perAccountEverywhere?: number;
+  /** Failed sign-ins allowed from one address, whatever the account. */
   perAddress: number;
+  /** Sign-ups (accounts made or addresses found taken) allowed from one address in the window (default 10). */
+  signUpsPerAddress?: number;
   windowMs: number;
 }
 
-export const defaultSignInLimits: SignInLimits = { perAccount: 5, perAddress: 50, windowMs: 15 * 60_000 };
+export const defaultSignInLimits: SignInLimits = { perAccount: 5, perAccountEverywhere: 100, perAddress: 50, signUpsPerAddress: 10, windowMs: 15 * 60_000 };
 
-const tooMany: Parameters<typeof rateLimit>[0] = {
+const refusal = (message: string): Pick<Options, "standardHeaders" | "legacyHeaders" | "handler"> => ({
   standardHeaders: "draft-8",
   legacyHeaders: false,
-  handler: (_req, _res, next) => next(new AppError("rate_limited", "Too many sign-in attempts. Wait a few minutes and try again.")),
-};
+  handler: (_req, _res, next) => next(new AppError("rate_limited", message)),
+});
+const tooManySignIns = refusal("Too many sign-in attempts. Wait a few minutes and try again.");
 
-function accountKey(body: unknown): string {
-  const email = (body as { email?: unknown } | undefined)?.email;
+const addressOf = (req: Request) => ipKeyGenerator(req.ip ?? "");
+
+function accountOf(req: Request): string {
+  const email = (req.body as { email?: unknown } | undefined)?.email;
   return typeof email === "string" ? email.trim().toLowerCase() : "(none)";
 }
 
 /**
- * Two limits on sign-in: failures per account (guessing one person's password from many
- * addresses) and attempts per address (one address trying many accounts).
+ * Three limits on failed sign-ins, counted per window; a success uncounts itself:
+ * - per address: one address guessing at many accounts;
+ * - per account and address: guessing one account's password slows the guesser's address, not the
+ *   account, so nobody can lock a person out by typing wrong passwords for them (OWASP Authentication
+ *   Cheat Sheet, "Account Lockout": lockout lets an attacker deny service);
+ * - per account from everywhere, a far higher ceiling: guessing one account from many addresses. Each
+ *   address adds at most `perAccount` to it before its own limit stops it, so reaching it takes
+ *   `perAccountEverywhere / perAccount` addresses (twenty by default) working together.
  * Counters live in the instance's memory; behind several instances use a shared store.
  */
 export function signInRateLimits(limits: SignInLimits): RequestHandler[] {
-  const perAddress = rateLimit({ ...tooMany, windowMs: limits.windowMs, limit: limits.perAddress, keyGenerator: (req) => ipKeyGenerator(req.ip ?? "") });
-  const perAccount = rateLimit({
-    ...tooMany,
+  const failures = { ...tooManySignIns, windowMs: limits.windowMs, skipSuccessfulRequests: true };
+  return [
+    rateLimit({ ...failures, limit: limits.perAddress, keyGenerator: addressOf }),
+    rateLimit({ ...failures, limit: limits.perAccount, keyGenerator: (req) => `${accountOf(req)} from ${addressOf(req)}` }),
+    rateLimit({ ...failures, limit: limits.perAccountEverywhere ?? limits.perAccount * 20, keyGenerator: accountOf }),
+  ];
+}
+
+/**
+ * Sign-ups per address: each one that makes an account, or finds the address already taken, counts;
+ * a form sent back for a mistake (400) does not.
+ */
+export function signUpRateLimit(limits: SignInLimits): RequestHandler {
+  return rateLimit({
+    ...refusal("Too many sign-ups from this network. Wait a while and try again."),
     windowMs: limits.windowMs,
-    limit: limits.perAccount,
-    skipSuccessfulRequests: true,
-    keyGenerator: (req) => accountKey(req.body),
+    limit: limits.signUpsPerAddress ?? 10,
+    keyGenerator: addressOf,
+    skipFailedRequests: true,
+    requestWasSuccessful: (_req, res) => res.statusCode !== 400,
   });
-  return [perAddress, perAccount];
 }

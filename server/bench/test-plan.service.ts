@@ -58,7 +58,8 @@ export async function saveTestPlan(db: Database, caller: Caller, episodeId: stri
 }
 
 export async function addCriterion(db: Database, channelId: string, episodeId: string, criterion: Criterion) {
-  return toCriterionView(await insertCriterion(db, channelId, episodeId, criterion));
+  // Its number and its row together: a refused insert takes no number.
+  return toCriterionView(await db.transaction((tx) => insertCriterion(tx, channelId, episodeId, criterion)));
 }
 
 export async function changeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string, version: number, criterion: Criterion) {

@@ -1,7 +1,11 @@
-import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
-import type { Role } from "../../shared/access/roles";
-import type { Database, Queryable } from "../db/client";
+import { and, asc, eq, gt, isNull, ne, sql } from "drizzle-orm";
+import { rolesAllowed, type Role } from "../../shared/access/roles";
+import type { Database } from "../db/client";
 import { channels, invitations, memberships, users } from "../db/schema/accounts";
+import { findUserById, insertUser, markEmailVerified } from "../auth/users.repository";
+
+/** Not used, withdrawn, closed or expired. */
+const isOpen = and(isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt), gt(invitations.expiresAt, sql`now()`));
 
 export async function listMembershipsOf(db: Database, userId: string) {
   return db
@@ -35,21 +39,23 @@ export async function listOpenInvitations(db: Database, channelId: string) {
     .where(
       and(
         eq(invitations.channelId, channelId),
-        isNull(invitations.acceptedAt),
-        isNull(invitations.revokedAt),
-        gt(invitations.expiresAt, sql`now()`),
+        isOpen,
       ),
     )
     .orderBy(asc(invitations.createdAt));
 }
 
-export async function insertChannelWithOwner(db: Queryable, name: string, ownerId: string) {
-  return db.transaction(async (tx) => {
-    const [channel] = await tx.insert(channels).values({ name }).returning();
-    if (!channel) throw new Error("channel insert returned nothing");
-    await tx.insert(memberships).values({ channelId: channel.id, userId: ownerId, role: "owner" });
-    return channel;
-  });
+
+export async function insertChannelWithOwner(db: Database, name: string, ownerId: string) {
+  return db.transaction((tx) => addChannelWithOwner(tx, name, ownerId));
+}
+
+/** The channel and its owner's membership, inside a transaction the caller holds. */
+export async function addChannelWithOwner(tx: Pick<Database, "insert">, name: string, ownerId: string) {
+  const [channel] = await tx.insert(channels).values({ name }).returning();
+  if (!channel) throw new Error("channel insert returned nothing");
+  await tx.insert(memberships).values({ channelId: channel.id, userId: ownerId, role: "owner" });
+  return channel;
 }
 
 /**
@@ -64,7 +70,7 @@ export async function changeMembershipKeepingAnOwner(
   change: { role: Role } | "remove",
 ): Promise<"done" | "missing" | "last_owner"> {
   return db.transaction(async (tx) => {
-    await tx.execute(sql`select id from channels where id = ${channelId} for update`);
+    await lockChannel(tx, channelId);
     const [current] = await tx
       .select({ role: memberships.role })
       .from(memberships)
@@ -81,8 +87,52 @@ export async function changeMembershipKeepingAnOwner(
     const where = and(eq(memberships.channelId, channelId), eq(memberships.userId, userId));
     if (change === "remove") await tx.delete(memberships).where(where);
     else await tx.update(memberships).set({ role: change.role }).where(where);
+    // Invitations speak for the channel only while their sender may still manage its members.
+    if (change === "remove" || !rolesAllowed("members", "W").includes(change.role)) await revokeInvitationsSentBy(tx, channelId, userId);
     return "done";
   });
+}
+
+async function revokeInvitationsSentBy(tx: Pick<Database, "update">, channelId: string, userId: string) {
+  await tx
+    .update(invitations)
+    .set({ revokedAt: sql`now()` })
+    .where(and(eq(invitations.channelId, channelId), eq(invitations.invitedBy, userId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt)));
+}
+
+/**
+ * Holds the channel's row until the transaction ends. Every change to who is in a channel takes it
+ * first (inviting, joining, changing a role, removing): they run one at a time per channel, and in one
+ * lock order, so a join never crosses an invitation to the same address or deadlocks with its sender's
+ * removal. "No key update" leaves the channel's other rows (episodes, comments) free to be written meanwhile.
+ */
+export async function lockChannel(tx: Pick<Database, "execute">, channelId: string) {
+  await tx.execute(sql`select id from channels where id = ${channelId} for no key update`);
+}
+
+export async function isMemberByEmail(db: Database, channelId: string, email: string): Promise<boolean> {
+  const rows = await db
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.channelId, channelId), eq(users.email, email)))
+    .limit(1);
+  return rows.length > 0;
+}
+
+export async function findOpenInvitationTo(db: Database, channelId: string, email: string) {
+  const [row] = await db
+    .select({ id: invitations.id, createdAt: invitations.createdAt, expiresAt: invitations.expiresAt })
+    .from(invitations)
+    .where(and(eq(invitations.channelId, channelId), eq(invitations.email, email), isOpen))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Gives an open invitation the token its mail is about to carry; false if it closed meanwhile. */
+export async function setInvitationToken(db: Database, invitationId: string, tokenHash: string): Promise<boolean> {
+  const rows = await db.update(invitations).set({ tokenHash }).where(and(eq(invitations.id, invitationId), isOpen)).returning({ id: invitations.id });
+  return rows.length > 0;
 }
 
 export async function insertInvitation(
@@ -94,8 +144,9 @@ export async function insertInvitation(
   return row;
 }
 
-export async function findInvitationByHash(db: Database, tokenHash: string) {
-  const rows = await db
+/** An invitation with its channel, who sent it and whether they may still invite (their role now, null if gone). */
+function invitationsWithSender(db: Database) {
+  return db
     .select({
       id: invitations.id,
       channelId: invitations.channelId,
@@ -103,55 +154,82 @@ export async function findInvitationByHash(db: Database, tokenHash: string) {
       email: invitations.email,
       role: invitations.role,
       invitedBy: users.name,
+      inviterRole: memberships.role,
       expiresAt: invitations.expiresAt,
       acceptedAt: invitations.acceptedAt,
       revokedAt: invitations.revokedAt,
+      closedAt: invitations.closedAt,
+      open: sql<boolean>`${isOpen}`,
     })
     .from(invitations)
     .innerJoin(channels, eq(channels.id, invitations.channelId))
     .innerJoin(users, eq(users.id, invitations.invitedBy))
-    .where(eq(invitations.tokenHash, tokenHash))
-    .limit(1);
-  return rows[0] ?? null;
+    .leftJoin(memberships, and(eq(memberships.channelId, invitations.channelId), eq(memberships.userId, invitations.invitedBy)));
 }
 
+export async function findInvitationByHash(db: Database, tokenHash: string) {
+  const [row] = await invitationsWithSender(db).where(eq(invitations.tokenHash, tokenHash)).limit(1);
+  return row ?? null;
+}
+
+/** What an invitation's mail needs when it is sent. */
+export async function findInvitationToMail(db: Database, invitationId: string) {
+  const [row] = await invitationsWithSender(db).where(eq(invitations.id, invitationId));
+  return row ?? null;
+}
+
+export type Joiner = { userId: string } | { newAccount: { email: string; name: string; passwordHash: string } };
+
 /**
- * Marks the invitation used and adds the membership in one transaction: only one caller can claim a
- * link (single use even under a race), and a person who is already a member doesn't burn it.
+ * In one transaction: marks the invitation used, makes the newcomer's account (already confirmed:
+ * the invitation reached its address), adds the membership and closes the person's other open
+ * invitations to the channel. Only one caller can claim a link (single use even under a race): the
+ * others find it closed (used, or withdrawn meanwhile);
+ * anything refused (an account that exists, a member already) undoes the claim, so nothing is burnt.
  */
 export async function claimInvitation(
   db: Database,
-  invitation: { id: string; channelId: string; role: Role },
-  userId: string,
-): Promise<"joined" | "used" | "already_member"> {
+  invitation: { id: string; channelId: string; email: string; role: Role },
+  joiner: Joiner,
+): Promise<{ outcome: "joined"; user: Express.User } | { outcome: "closed" | "already_member" | "account_exists" }> {
   try {
     return await db.transaction(async (tx) => {
-      if (!(await markInvitationUsed(tx, invitation.id, userId))) return "used";
-      const joined = await tx.insert(memberships).values({ channelId: invitation.channelId, userId, role: invitation.role }).onConflictDoNothing().returning();
-      // Throwing undoes the claim above, so the link stays open.
-      if (joined.length === 0) throw new AlreadyMember();
-      return "joined";
+      await lockChannel(tx, invitation.channelId);
+      if (!(await markInvitationUsed(tx, invitation.id))) return { outcome: "closed" as const };
+      const user = "userId" in joiner ? await confirmAddress(tx, joiner.userId) : await insertUser(tx, { ...joiner.newAccount, emailVerifiedAt: new Date() });
+      if (!user) throw new Refused("account_exists");
+      await tx.update(invitations).set({ acceptedBy: user.id }).where(eq(invitations.id, invitation.id));
+      const joined = await tx.insert(memberships).values({ channelId: invitation.channelId, userId: user.id, role: invitation.role }).onConflictDoNothing().returning();
+      if (joined.length === 0) throw new Refused("already_member");
+      await tx
+        .update(invitations)
+        .set({ closedAt: sql`now()` })
+        .where(and(eq(invitations.channelId, invitation.channelId), eq(invitations.email, invitation.email), ne(invitations.id, invitation.id), isOpen));
+      return { outcome: "joined" as const, user };
     });
   } catch (error) {
-    if (error instanceof AlreadyMember) return "already_member";
+    // Throwing inside the transaction undoes the claim above, so the link stays open.
+    if (error instanceof Refused) return { outcome: error.outcome };
     throw error;
   }
 }
 
-class AlreadyMember extends Error {}
+class Refused extends Error {
+  constructor(readonly outcome: "already_member" | "account_exists") {
+    super(outcome);
+  }
+}
 
-async function markInvitationUsed(db: Pick<Database, "update">, invitationId: string, userId: string) {
+async function confirmAddress(tx: Database, userId: string) {
+  await markEmailVerified(tx, userId);
+  return findUserById(tx, userId);
+}
+
+async function markInvitationUsed(db: Pick<Database, "update">, invitationId: string) {
   const rows = await db
     .update(invitations)
-    .set({ acceptedAt: sql`now()`, acceptedBy: userId })
-    .where(
-      and(
-        eq(invitations.id, invitationId),
-        isNull(invitations.acceptedAt),
-        isNull(invitations.revokedAt),
-        gt(invitations.expiresAt, sql`now()`),
-      ),
-    )
+    .set({ acceptedAt: sql`now()` })
+    .where(and(eq(invitations.id, invitationId), isOpen))
     .returning({ id: invitations.id });
   return rows.length > 0;
 }
@@ -160,7 +238,7 @@ export async function revokeInvitation(db: Database, channelId: string, invitati
   const rows = await db
     .update(invitations)
     .set({ revokedAt: sql`now()` })
-    .where(and(eq(invitations.id, invitationId), eq(invitations.channelId, channelId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+    .where(and(eq(invitations.id, invitationId), eq(invitations.channelId, channelId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), isNull(invitations.closedAt)))
     .returning({ id: invitations.id });
   return rows.length > 0;
 }

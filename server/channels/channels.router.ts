@@ -2,7 +2,6 @@ import { z } from "zod";
 import { channelNameSchema } from "../../shared/auth/schemas";
 import { acceptInvitationSchema, changeRoleSchema, inviteSchema, type MembersPage } from "../../shared/channels/schemas";
 import { describeMe, startSession } from "../auth/auth.service";
-import { channelName as channelNameOf } from "../db/channel-scope";
 import { AppError } from "../http/app-error";
 import { callerOf, idOf, signedInUser } from "../http/guards";
 import { anyAccount, channelAccess, publicAccess, type RouteSpec } from "../http/route-table";
@@ -53,9 +52,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       access: channelAccess("members", "W"),
       handler: async (req, res) => {
         const input = parseBody(inviteSchema, req.body);
-        const { channelId } = callerOf(req);
-        const channelName = (await channelNameOf(db, channelId)) ?? "your channel";
-        const sent = await inviteMember(deps, { ...input, channelId, channelName, invitedBy: signedInUser(req) });
+        const sent = await inviteMember(deps, { ...input, channelId: callerOf(req).channelId, invitedBy: signedInUser(req) });
         res.status(201).json({ id: sent.id, email: input.email, role: input.role, expiresAt: sent.expiresAt.toISOString() });
       },
     },

@@ -21,6 +21,9 @@ function isDatabaseDown(error: unknown): boolean {
 export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
   const known = error instanceof AppError ? error : fromFramework(error);
   if (known) {
+    // A refusal that knows when to come back says so in HTTP's own header too (RFC 9110, 10.2.3).
+    const retryAfter = known.details?.retryAfterSeconds;
+    if (typeof retryAfter === "number") res.set("Retry-After", String(retryAfter));
     res.status(known.status).json({
       error: { code: known.code, message: known.message, ...(known.fields ? { fields: known.fields } : {}) },
       ...known.details,

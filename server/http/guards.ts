@@ -59,8 +59,8 @@ function authorise(spec: RouteSpec, db: Database): RequestHandler {
     }
     const absent = named.find((row) => !isUuid(row.id) || scope.missing.includes(row.param));
     if (absent) throw notFound(channelChildren[absent.param].what);
-    const { id: userId, name, email, timeZone } = req.user;
-    req.channelScope = { caller: { userId, name, email, timeZone, channelId, role: scope.role }, ids: Object.fromEntries(named.map((row) => [row.param, row.id])) };
+    const { id: userId, name, email, emailVerified, timeZone } = req.user;
+    req.channelScope = { caller: { userId, name, email, emailVerified, timeZone, channelId, role: scope.role }, ids: Object.fromEntries(named.map((row) => [row.param, row.id])) };
     next();
   };
 }

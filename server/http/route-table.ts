@@ -27,13 +27,18 @@ export interface RouteSpec {
   access: Access;
   /** Body kind a write route takes; JSON unless it says otherwise. */
   body?: "json" | "multipart" | "none";
+  /** Largest JSON body in bytes; by default 16 kB for public routes and 100 kB for the rest (server/http/json-body.ts). */
+  bodyLimit?: number;
   /**
    * Path parameters of a channel route that are values, not rows (a part number, a stage): the guard
    * checks every other `:param` as a row of the route's channel (server/db/channel-scope.ts).
    */
   valueParams?: string[];
-  /** Served without loading the session (health checks must answer while the database is down). */
-  sessionless?: true;
+  /**
+   * Answered even while the session store (the database) is down: the session is read when it can be
+   * and the caller treated as signed out when it can't (health checks).
+   */
+  sessionOptional?: true;
   /** Extra middleware that runs after authorisation (e.g. rate limits). */
   before?: RequestHandler[];
   handler: Handler;
@@ -44,6 +49,8 @@ export interface Caller {
   userId: string;
   name: string;
   email: string;
+  /** Whether they have confirmed that address: until then Kerf mails nobody else for them (server/mail/senders.ts). */
+  emailVerified: boolean;
   timeZone: string;
   channelId: string;
   role: Role;
@@ -57,6 +64,7 @@ declare global {
       email: string;
       name: string;
       timeZone: string;
+      emailVerified: boolean;
     }
     interface Request {
       /** Set by the guard of a channel route: the caller and the path's ids, each checked to be the channel's. */

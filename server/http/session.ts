@@ -62,3 +62,21 @@ export function configurePassport(findUser: (id: string) => Promise<Express.User
   });
   return authenticator;
 }
+
+/**
+ * Runs the session middlewares in turn but never fails the request: when the store can't be read
+ * (the database is down), the caller goes on as signed out.
+ */
+export function bestEffort(handlers: RequestHandler[]): RequestHandler {
+  return (req, res, next) => {
+    const run = (index: number) => {
+      if (index === handlers.length) return next();
+      handlers[index]!(req, res, (error?: unknown) => {
+        if (!error) return run(index + 1);
+        req.user = undefined;
+        next();
+      });
+    };
+    run(0);
+  };
+}

@@ -3,13 +3,43 @@ import { fieldMessages } from "../../shared/http/errors";
 import { versionSchema } from "../../shared/http/version";
 import { AppError } from "./app-error";
 
-/** PostgreSQL can store no NUL character in text or JSON; find one before it turns into a 500. */
-function pathOfNul(value: unknown, path: string[] = []): string[] | null {
-  if (typeof value === "string") return value.includes("\u0000") ? path : null;
-  if (typeof value !== "object" || value === null) return null;
-  for (const [key, inner] of Object.entries(value)) {
-    const found = pathOfNul(inner, [...path, key]);
-    if (found) return found;
+interface Visit {
+  value: object;
+  key: string | number;
+  parent: Visit | null;
+}
+
+function pathTo(visit: Visit): string[] {
+  const path: string[] = [];
+  for (let at: Visit = visit; at.parent; at = at.parent) path.push(String(at.key));
+  return path.reverse();
+}
+
+/**
+ * PostgreSQL can store no NUL character in text or JSON; find one before it turns into a 500.
+ * Iterative, one pass over the body; the path is built only for the string found. Within an object
+ * its own strings are checked before what is nested in it.
+ */
+export function pathOfNul(body: unknown): string[] | null {
+  if (typeof body === "string") return body.includes("\u0000") ? [] : null;
+  if (typeof body !== "object" || body === null) return null;
+  const pending: Visit[] = [{ value: body, key: "", parent: null }];
+  while (pending.length > 0) {
+    const visit = pending.pop()!;
+    const list = Array.isArray(visit.value) ? (visit.value as unknown[]) : null;
+    const keys = list ? null : Object.keys(visit.value);
+    const count = list ? list.length : keys!.length;
+    const nested: Visit[] = [];
+    for (let i = 0; i < count; i++) {
+      const key = list ? i : keys![i]!;
+      const inner = list ? list[i] : (visit.value as Record<string, unknown>)[key];
+      if (typeof inner === "string") {
+        if (inner.includes("\u0000")) return [...pathTo(visit), String(key)];
+      } else if (typeof inner === "object" && inner !== null) {
+        nested.push({ value: inner, key, parent: visit });
+      }
+    }
+    for (let i = nested.length - 1; i >= 0; i--) pending.push(nested[i]!);
   }
   return null;
 }

@@ -1,4 +1,6 @@
 import PgBoss from "pg-boss";
+import type { SqlExecutor } from "../db/transaction";
+import type { MailJob, MailRenderers } from "../mail/mail-jobs";
 import type { Mailer, OutgoingMail } from "../mail/mailer";
 
 /**
@@ -7,30 +9,81 @@ import type { Mailer, OutgoingMail } from "../mail/mailer";
  * number of app instances may run workers without a job being taken twice.
  */
 export const MAIL_QUEUE = "mail";
+const BOSS_SCHEMA = "pgboss";
+/** Mail jobs one fetch takes; each is sent, completed or failed on its own. */
+const MAIL_BATCH = 10;
 
 export interface Jobs {
   boss: PgBoss;
   /** `db` sends the job inside the caller's transaction (pg-boss's executor), so it exists only if that commits. */
-  enqueueMail(mail: OutgoingMail, options?: { db?: PgBoss.Db }): Promise<void>;
+  enqueueMail(job: MailJob, options?: { db?: SqlExecutor }): Promise<void>;
+  /** Starts this instance's mail worker; the renderers build each mail when its job runs. */
+  startMailWorker(renderers: MailRenderers): Promise<void>;
   stop(): Promise<void>;
 }
 
-export async function startJobs(options: { databaseUrl: string; mailer: Mailer; runWorkers: boolean; pollSeconds?: number }): Promise<Jobs> {
-  const boss = new PgBoss({ connectionString: options.databaseUrl, schema: "pgboss", max: 4 });
+/** What a finished mail job records as its output (pgboss.job.output), for tests and operators. */
+export type MailOutcome = { outcome: "sent" } | { outcome: "skipped"; reason: string } | { outcome: "passed on"; mails: number };
+
+export async function startJobs(options: { databaseUrl: string; mailer: Mailer; pollSeconds?: number }): Promise<Jobs> {
+  const boss = new PgBoss({ connectionString: options.databaseUrl, schema: BOSS_SCHEMA, max: 4 });
   boss.on("error", (error: Error) => console.error(`[jobs] ${error.message}`));
   await boss.start();
   await boss.createQueue(MAIL_QUEUE);
-  if (options.runWorkers) {
-    await boss.work<OutgoingMail>(MAIL_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 2, batchSize: 1 }, async (jobs) => {
-      // One job a batch: a failure retries only the mail that failed, never one already sent.
-      for (const job of jobs) await options.mailer.send(job.data);
-    });
+
+  /**
+   * Fair between channels: pg-boss hands out jobs by priority, then age. A mail's priority is minus
+   * the number of mails its channel (or account) already has waiting, so the n-th waiting mail of
+   * every channel goes before the (n+1)-th of any: one channel's burst of thirty invitations takes
+   * turns with other channels' mail instead of standing in front of it.
+   */
+  async function enqueueMail(job: MailJob, sendOptions?: { db?: SqlExecutor }): Promise<void> {
+    const db = sendOptions?.db ?? boss.getDb();
+    const { rows } = await db.executeSql(
+      `select count(*)::int as waiting from ${BOSS_SCHEMA}.job where name = $1 and state < 'active' and data->>'fairKey' = $2`,
+      [MAIL_QUEUE, job.fairKey],
+    );
+    const waiting = (rows[0] as { waiting: number } | undefined)?.waiting ?? 0;
+    // Retries back off from 10 s, for about a day in all: long enough to outlast a mail outage.
+    await boss.send(MAIL_QUEUE, job as unknown as object, { priority: -waiting, retryLimit: 14, retryDelay: 10, retryBackoff: true, db });
   }
+
+  async function deliver(renderers: MailRenderers, job: MailJob | OutgoingMail): Promise<MailOutcome> {
+    // A job queued before mail was rendered at send time carries its finished mail.
+    if (!("kind" in job)) {
+      await options.mailer.send(job);
+      return { outcome: "sent" };
+    }
+    const render = renderers[job.kind];
+    if (!render) throw new Error(`no renderer for mail of kind "${job.kind}"`);
+    const plan = await render(job.data as never);
+    if ("skip" in plan) return { outcome: "skipped", reason: plan.skip };
+    if ("instead" in plan) {
+      for (const next of plan.instead) await enqueueMail(next);
+      return { outcome: "passed on", mails: plan.instead.length };
+    }
+    await options.mailer.send(plan.send);
+    return { outcome: "sent" };
+  }
+
   return {
     boss,
-    async enqueueMail(mail, sendOptions) {
-      // Retries back off from 10 s, for about a day in all: long enough to outlast a mail outage.
-      await boss.send(MAIL_QUEUE, mail, { retryLimit: 14, retryDelay: 10, retryBackoff: true, db: sendOptions?.db });
+    enqueueMail,
+    async startMailWorker(renderers) {
+      const work = { pollingIntervalSeconds: options.pollSeconds ?? 2, batchSize: MAIL_BATCH, includeMetadata: true as const };
+      await boss.work<MailJob | OutgoingMail>(MAIL_QUEUE, work, async (jobs) => {
+        // A batch arrives in no particular order: send it in the queue's (priority, then age).
+        const inTurn = [...jobs].sort((a, b) => b.priority - a.priority || a.createdOn.getTime() - b.createdOn.getTime());
+        // Each job settles on its own: a failure retries only the mail that failed, never one already sent.
+        for (const job of inTurn) {
+          try {
+            await boss.complete(MAIL_QUEUE, job.id, await deliver(renderers, job.data));
+          } catch (error) {
+            console.error(`[mail] job ${job.id} failed: ${(error as Error).message}`);
+            await boss.fail(MAIL_QUEUE, job.id, { message: (error as Error).message });
+          }
+        }
+      });
     },
     async stop() {
       await boss.stop({ graceful: true, timeout: 5_000 });

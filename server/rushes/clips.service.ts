@@ -1,6 +1,7 @@
 import type { Request, Response } from "express";
 import type { z } from "zod";
 import { decodeCursor, encodeCursor, type FootageQuery } from "../../shared/rushes/footage-query";
+import { roleMay } from "../../shared/access/roles";
 import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
 import type { ClipDetail, ClipView, FootagePage, MarkInput, MarkView, markInputSchema, updateClipSchema } from "../../shared/rushes/schemas";
 import { type TimecodeFormat, describeFormat } from "../../shared/timecode/rates";
@@ -176,10 +177,12 @@ export async function updateMark(ctx: RushesContext, caller: Caller, clipId: str
   return toMarkView(await repo.updateMark(ctx.db, markId, { ...range, note: input.note ?? mark.note }));
 }
 
+/** A role that may not remove footage (crew) logs and marks, and takes back only the marks it made. */
 export async function deleteMark(ctx: RushesContext, caller: Caller, clipId: string, markId: string): Promise<void> {
   await clipOrNotFound(ctx, caller, clipId);
   const mark = await repo.findMark(ctx.db, caller.channelId, clipId, markId);
   if (!mark) throw notFound("Mark");
+  if (!roleMay(caller.role, "footageRemoval", "W") && mark.createdBy !== caller.userId) throw new AppError("forbidden", "Crew can delete only the marks they made.");
   await ctx.db.transaction(async (tx) => {
     await repo.deleteMark(tx, markId);
     await repo.refreshMarkCount(tx, clipId);

@@ -3,17 +3,21 @@ import type { RushesContext } from "./rushes.context";
 import { sweepAbandonedUploads } from "./uploads.service";
 
 /**
- * Uploads nobody finished: every hour a job aborts (best effort) and marks those with no part recorded
- * for a day. pg-boss's schedule is a row, so with several app instances it still runs once an hour.
+ * Uploads nobody finished: every hour a job aborts those with no part recorded for a day in storage
+ * (Swift and many stores have no lifecycle rule to do it) and marks them abandoned. Its counts are the
+ * job's output. pg-boss's schedule is a row, so with several app instances it still runs once an hour.
  */
 export const ABANDONED_UPLOADS_QUEUE = "rushes-abandoned-uploads";
 export const ABANDONED_UPLOADS_CRON = "17 * * * *";
 
-export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext): Promise<void> {
+export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number } = {}): Promise<void> {
   await boss.createQueue(ABANDONED_UPLOADS_QUEUE);
   await boss.schedule(ABANDONED_UPLOADS_QUEUE, ABANDONED_UPLOADS_CRON, {}, { tz: "UTC" });
-  await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1 }, async () => {
-    const { abandoned } = await sweepAbandonedUploads(ctx);
-    if (abandoned > 0) console.log(`[rushes] ${abandoned} abandoned upload(s) aborted`);
+  // The sweep's tally (abandoned, deferred, which failed and why) becomes the job's output, where an operator can read it.
+  await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async () => {
+    const swept = await sweepAbandonedUploads(ctx);
+    if (swept.abandoned > 0) console.log(`[rushes] ${swept.abandoned} abandoned upload(s) aborted`);
+    if (swept.deferred > 0) console.error(`[rushes] ${swept.deferred} abandoned upload(s) left for the next sweep`);
+    return swept;
   });
 }

@@ -1,9 +1,10 @@
-import { and, asc, eq, inArray, lt, sql } from "drizzle-orm";
+import { and, asc, eq, gt, inArray, lt, sql } from "drizzle-orm";
+import type { UploadStatus } from "../../shared/rushes/vocabulary";
 import type { Database } from "../db/client";
 import { clips, uploadParts, uploads } from "../db/schema/rushes";
 import { episodes } from "../db/schema/slate";
 
-type Executor = Pick<Database, "select" | "insert" | "update" | "delete">;
+export type Executor = Pick<Database, "select" | "insert" | "update" | "delete">;
 
 export async function episodeInChannel(db: Executor, channelId: string, episodeId: string) {
   const rows = await db
@@ -88,7 +89,7 @@ export async function openUploads(db: Executor, channelId: string, filter: { epi
     .orderBy(asc(uploads.createdAt));
 }
 
-export async function finishUpload(db: Executor, uploadId: string, status: "completed" | "cancelled" | "abandoned", clipId: string | null = null) {
+export async function finishUpload(db: Executor, uploadId: string, status: Exclude<UploadStatus, "uploading">, clipId: string | null = null) {
   await db.update(uploads).set({ status, clipId, finishedAt: sql`now()` }).where(eq(uploads.id, uploadId));
 }
 
@@ -98,13 +99,24 @@ export async function insertClip(db: Executor, values: typeof clips.$inferInsert
   return row;
 }
 
-/** Uploads with no part recorded (nor started) since the cut-off, across every channel. */
-export async function abandonedUploads(db: Executor, before: Date, limit = 200) {
+/** Uploads with no part recorded (nor started) since the cut-off, across every channel, a page after `after`. */
+export async function staleUploads(db: Executor, before: Date, after: string | null, limit = 200) {
   return db
-    .select({ id: uploads.id, channelId: uploads.channelId, objectKey: uploads.objectKey, storageUploadId: uploads.storageUploadId })
+    .select({ id: uploads.id, channelId: uploads.channelId })
     .from(uploads)
-    .where(and(eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before)))
-    .orderBy(asc(uploads.lastActivityAt))
+    .where(and(eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before), after ? gt(uploads.id, after) : undefined))
+    .orderBy(asc(uploads.id))
     .limit(limit);
+}
+
+/** One stale upload, locked; none when it finished or moved since (or another sweep holds it). */
+export async function lockStaleUpload(db: Executor, uploadId: string, before: Date) {
+  const rows = await db
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.status, "uploading"), lt(uploads.lastActivityAt, before)))
+    .for("update", { skipLocked: true })
+    .limit(1);
+  return rows[0] ?? null;
 }
 

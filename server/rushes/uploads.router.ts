@@ -49,8 +49,8 @@ export function uploadRoutes(ctx: RushesContext): RouteSpec[] {
       path: `${upload}/:uploadId/part-urls`,
       access: write,
       handler: async (req, res) => {
-        const { partNumbers } = parseBody(partUrlsSchema, req.body);
-        res.json(await uploads.signParts(ctx, callerOf(req), idOf(req, "uploadId"), partNumbers));
+        const { parts } = parseBody(partUrlsSchema, req.body);
+        res.json(await uploads.signParts(ctx, callerOf(req), idOf(req, "uploadId"), parts));
       },
     },
     {

@@ -1,8 +1,9 @@
 import { roleMay } from "../../shared/access/roles";
 import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
-import type { ClipMetadata, UploadView } from "../../shared/rushes/schemas";
+import type { ClipMetadata, PartUrlsAnswer, UploadView } from "../../shared/rushes/schemas";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
+import { eachItem, emptyTally, mergeTallies, type ItemTally } from "../jobs/each-item";
 import { isStorageDown, storageDown, viaStorage } from "../storage/storage";
 import { footageKey } from "./object-keys";
 import type { RushesContext } from "./rushes.context";
@@ -75,6 +76,7 @@ function mustBeUploading(row: UploadRow): void {
     completed: "This upload is already complete.",
     cancelled: "This upload was cancelled; start the file again.",
     abandoned: "This upload was stopped after a day without progress; start the file again.",
+    refused: "Storage refused this file as it was sent; start the file again.",
   }[row.status];
   throw new AppError("conflict", why, undefined, { status: row.status });
 }
@@ -97,16 +99,31 @@ export async function listOpenUploads(ctx: RushesContext, caller: Caller, episod
   return rows.map((row) => toView(row, parts.filter((p) => p.uploadId === row.id).map(({ partNumber, etag, size }) => ({ partNumber, etag, size }))));
 }
 
-/** Presigned URLs for some parts: each for one part of one upload, for a quarter of an hour. */
-export async function signParts(ctx: RushesContext, caller: Caller, uploadId: string, partNumbers: number[]) {
+/** A part's size must be the one the upload's plan gives it: that length is what its URL will accept. */
+function checkPartSize(row: UploadRow, part: { partNumber: number; size: number }): void {
+  const { start, end } = partRange(part.partNumber, row.partSize, row.sizeBytes);
+  if (part.size !== end - start) {
+    throw new AppError("validation_failed", `Part ${part.partNumber} should be ${end - start} bytes, not ${part.size}.`, { size: `Part ${part.partNumber} should be ${end - start} bytes.` });
+  }
+}
+
+/**
+ * Presigned URLs for some parts: each for one part of one upload, for exactly that part's bytes
+ * (the length is signed), for a quarter of an hour.
+ */
+export async function signParts(ctx: RushesContext, caller: Caller, uploadId: string, parts: { partNumber: number; size: number }[]): Promise<PartUrlsAnswer> {
   const row = await openUpload(ctx, caller, uploadId);
   mustBeUploading(row);
-  for (const n of partNumbers) checkPartNumber(row, n);
+  for (const part of parts) {
+    checkPartNumber(row, part.partNumber);
+    checkPartSize(row, part);
+  }
+  const partNumbers = [...new Set(parts.map((p) => p.partNumber))];
   const urls = await viaStorage(() =>
     Promise.all(
-      [...new Set(partNumbers)].map(async (partNumber) => {
+      partNumbers.map(async (partNumber) => {
         const { start, end } = partRange(partNumber, row.partSize, row.sizeBytes);
-        return { partNumber, start, end, url: await ctx.storage.presignPart(row.objectKey, row.storageUploadId, partNumber, PART_URL_SECONDS) };
+        return { partNumber, start, end, url: await ctx.storage.presignPart(row.objectKey, row.storageUploadId, partNumber, end - start, PART_URL_SECONDS) };
       }),
     ),
   );
@@ -119,10 +136,7 @@ export async function recordPart(ctx: RushesContext, caller: Caller, uploadId: s
   const row = await openUpload(ctx, caller, uploadId);
   mustBeUploading(row);
   checkPartNumber(row, partNumber);
-  const { start, end } = partRange(partNumber, row.partSize, row.sizeBytes);
-  if (part.size !== end - start) {
-    throw new AppError("validation_failed", `Part ${partNumber} should be ${end - start} bytes, not ${part.size}.`, { size: `Part ${partNumber} should be ${end - start} bytes.` });
-  }
+  checkPartSize(row, { partNumber, size: part.size });
   await ctx.db.transaction((tx) => repo.recordPart(tx, row.id, { partNumber, etag: part.etag, size: part.size }));
   return { partNumber, etag: part.etag, size: part.size };
 }
@@ -162,10 +176,11 @@ function clipValues(row: UploadRow, metadata: ClipMetadata | null, storageEtag: 
 
 /**
  * Completion: only when Kerf holds a record of every part, storage accepts the list, and the stored
- * object has the file's size. Then, and only then, the clip row exists.
+ * object has the file's size. Then, and only then, the clip row exists. An object of any other size
+ * is removed from storage and the upload closed as refused, so nothing Kerf didn't accept stays.
  */
 export async function completeUpload(ctx: RushesContext, caller: Caller, uploadId: string, body: { sha256?: string; metadata?: ClipMetadata }) {
-  return ctx.db.transaction(async (tx) => {
+  const done = await ctx.db.transaction(async (tx) => {
     const row = await repo.lockUpload(tx, caller.channelId, uploadId);
     if (!row) throw notFound("Upload");
     if (row.status === "completed" && row.clipId) return { clipId: row.clipId, alreadyComplete: true };
@@ -178,60 +193,83 @@ export async function completeUpload(ctx: RushesContext, caller: Caller, uploadI
     const stored = parts.reduce((sum, p) => sum + p.size, 0);
     if (stored !== row.sizeBytes) throw new AppError("conflict", `The parts add up to ${stored} bytes; the file is ${row.sizeBytes}.`);
 
-    let etag: string | null;
+    let etag: string | null = null;
     try {
       ({ etag } = await ctx.storage.completeMultipart(row.objectKey, row.storageUploadId, parts));
     } catch (error) {
       if (isStorageDown(error)) throw storageDown();
       // A completion that reached the store before (and whose answer was lost) leaves the object there.
-      const already = await viaStorage(() => ctx.storage.head(row.objectKey));
-      if (!already || already.size !== row.sizeBytes) {
+      if (!(await viaStorage(() => ctx.storage.head(row.objectKey)))) {
         throw new AppError("conflict", "Storage refused the parts as recorded; send the file again.", undefined, { storage: (error as Error).name });
       }
-      etag = already.etag;
     }
     const object = await viaStorage(() => ctx.storage.head(row.objectKey));
-    if (!object || object.size !== row.sizeBytes) {
-      throw new AppError("conflict", `Storage holds ${object?.size ?? 0} bytes for this file, not ${row.sizeBytes}; send the file again.`);
-    }
+    if (!object || object.size !== row.sizeBytes) return { refused: await refuse(ctx, tx, row, object?.size ?? 0) };
     const clip = await repo.insertClip(tx, clipValues(row, body.metadata ?? row.metadata, etag ?? object.etag, body.sha256));
     await repo.finishUpload(tx, row.id, "completed", clip.id);
     return { clipId: clip.id, alreadyComplete: false };
   });
+  // Thrown after the commit: the refusal (and the removal it records) stands.
+  if ("refused" in done) throw done.refused;
+  return done;
+}
+
+/** Bytes in storage that are not the file: removed, and the upload closed as refused. */
+async function refuse(ctx: RushesContext, tx: repo.Executor, row: UploadRow, heldBytes: number): Promise<AppError> {
+  await viaStorage(() => ctx.storage.discardUpload(row.objectKey, row.storageUploadId));
+  await repo.finishUpload(tx, row.id, "refused");
+  return new AppError("conflict", `Storage held ${heldBytes} bytes for this file, not ${row.sizeBytes}, so Kerf removed them; send the file again.`);
 }
 
 /**
- * Cancel: abort at the store where it can (best effort), and always mark the upload cancelled. A role
- * that may not remove footage (crew) cancels only its own uploads.
+ * Cancel: storage aborts the upload and drops anything of it, then the upload is marked cancelled.
+ * The row stays locked meanwhile, so a completion under way finishes first (and the cancel is refused).
+ * With storage down it answers 503 and changes nothing; the sweep clears it a day later. A role that
+ * may not remove footage (crew) cancels only its own uploads.
  */
 export async function cancelUpload(ctx: RushesContext, caller: Caller, uploadId: string) {
-  const row = await openUpload(ctx, caller, uploadId);
-  if (!roleMay(caller.role, "footageRemoval", "W") && row.createdBy !== caller.userId) {
-    throw new AppError("forbidden", "Crew can cancel only their own uploads.");
-  }
-  if (row.status === "completed") throw new AppError("conflict", "This upload is already complete; the clip stays in the footage list.");
-  if (row.status !== "uploading") return { status: row.status, storage: "nothing to do" as const };
-  let storage: "aborted" | "unsupported" | "unreachable";
-  try {
-    storage = await ctx.storage.abortMultipart(row.objectKey, row.storageUploadId);
-  } catch {
-    storage = "unreachable";
-  }
-  await repo.finishUpload(ctx.db, row.id, "cancelled");
-  return { status: "cancelled" as const, storage };
+  return ctx.db.transaction(async (tx) => {
+    const row = await repo.lockUpload(tx, caller.channelId, uploadId);
+    if (!row) throw notFound("Upload");
+    if (!roleMay(caller.role, "footageRemoval", "W") && row.createdBy !== caller.userId) {
+      throw new AppError("forbidden", "Crew can cancel only their own uploads.");
+    }
+    if (row.status === "completed") throw new AppError("conflict", "This upload is already complete; the clip stays in the footage list.");
+    if (row.status !== "uploading") return { status: row.status, storage: "nothing to do" as const };
+    await viaStorage(() => ctx.storage.discardUpload(row.objectKey, row.storageUploadId));
+    await repo.finishUpload(tx, row.id, "cancelled");
+    return { status: "cancelled" as const, storage: "aborted" as const };
+  });
 }
 
-/** The scheduled sweep: uploads with no progress for a day are aborted (best effort) and marked. */
-export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number }> {
+/**
+/**
+ * The scheduled sweep: each upload with no progress for a day is discarded in storage and marked
+ * abandoned, one at a time. One that fails (storage can't discard it now, a row that can't change) is
+ * logged, counted and stays open for the next sweep; the sweep goes on with the rest.
+ */
+export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number; deferred: number } & ItemTally> {
   const before = new Date(now.getTime() - ABANDONED_AFTER_HOURS * 3600 * 1000);
   let abandoned = 0;
-  for (;;) {
-    const batch = await repo.abandonedUploads(ctx.db, before);
-    if (batch.length === 0) return { abandoned };
-    for (const upload of batch) {
-      await ctx.storage.abortMultipart(upload.objectKey, upload.storageUploadId).catch(() => "unreachable");
-      await repo.finishUpload(ctx.db, upload.id, "abandoned");
-      abandoned++;
-    }
+  let tally = emptyTally();
+  for (let after: string | null = null; ; ) {
+    const batch = await repo.staleUploads(ctx.db, before, after);
+    if (batch.length === 0) return { abandoned, deferred: tally.failed, ...tally };
+    const round = await eachItem("abandoned uploads", batch, (upload) => `upload ${upload.id} of channel ${upload.channelId}`, async (upload) => {
+      if (await abandon(ctx, upload.id, before)) abandoned++;
+    });
+    tally = mergeTallies(tally, round);
+    after = batch.at(-1)!.id;
   }
+}
+
+async function abandon(ctx: RushesContext, uploadId: string, before: Date): Promise<boolean> {
+  return ctx.db.transaction(async (tx) => {
+    // Still open and still stale: a completion or a part since the list was read keeps it alive.
+    const row = await repo.lockStaleUpload(tx, uploadId, before);
+    if (!row) return false;
+    await ctx.storage.discardUpload(row.objectKey, row.storageUploadId);
+    await repo.finishUpload(tx, row.id, "abandoned");
+    return true;
+  });
 }

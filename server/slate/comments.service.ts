@@ -2,16 +2,19 @@ import { mentionedIn } from "../../shared/slate/mentions";
 import type { EpisodeComment } from "../../shared/slate/schemas";
 import { channelName as channelNameOf } from "../db/channel-scope";
 import type { Database } from "../db/client";
+import { inTransaction } from "../db/transaction";
 import { notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import type { OutgoingMail } from "../mail/mailer";
+import type { Jobs } from "../jobs/queue";
+import { memberMail } from "../mail/member-mail";
+import { takeMailQuota } from "../mail/quotas";
 import { findEpisode } from "./episodes.repository";
-import { commentsOf, insertComment, memberAddresses, peopleOf } from "./slate.repository";
+import { commentsOf, insertComment, peopleOf } from "./slate.repository";
 
 export interface CommentDeps {
   db: Database;
   appUrl: string;
-  enqueueMail(mail: OutgoingMail): Promise<void>;
+  jobs: Pick<Jobs, "enqueueMail">;
 }
 
 async function withNames(db: Database, channelId: string, rows: Awaited<ReturnType<typeof commentsOf>>): Promise<EpisodeComment[]> {
@@ -32,8 +35,9 @@ export async function listComments(db: Database, channelId: string, episodeId: s
 }
 
 /**
- * A comment, and a mail to each member it mentions (not its author). Mails go through the job queue
- * in PostgreSQL: a mail server that is down delays them and loses none.
+ * A comment, and a mail to each member it mentions (not its author), counted against the author's and
+ * the channel's mail allowance: the comment, the counts and the queued mails commit together, or a
+ * 429 changes nothing. Each mail checks, when it is sent, that its recipient is still a member.
  */
 export async function addComment(deps: CommentDeps, caller: Caller, episodeId: string, body: string): Promise<EpisodeComment> {
   const { db } = deps;
@@ -41,18 +45,24 @@ export async function addComment(deps: CommentDeps, caller: Caller, episodeId: s
   if (!episode) throw notFound("Episode");
   const people = await peopleOf(db, caller.channelId);
   const mentions = mentionedIn(body, people);
-  const saved = await insertComment(db, { channelId: caller.channelId, episodeId, authorId: caller.userId, body, mentions });
-
-  const recipients = await memberAddresses(db, caller.channelId, mentions.filter((id) => id !== caller.userId));
+  const recipients = mentions.filter((id) => id !== caller.userId);
   const channelName = (await channelNameOf(db, caller.channelId)) ?? "your channel";
   const link = `${deps.appUrl}/c/${caller.channelId}/episodes/${episodeId}#activity`;
-  for (const person of recipients) {
-    await deps.enqueueMail({
-      to: person.email,
-      subject: `${caller.name} mentioned you on “${episode.title}”`,
-      text: `${caller.name} mentioned you in a comment on “${episode.title}” (${channelName}):\n\n${body}\n\nOpen the episode: ${link}\n`,
-    });
-  }
+  const saved = await inTransaction(db, async (tx, sql) => {
+    await takeMailQuota(tx, "mention", caller, recipients.length);
+    const row = await insertComment(tx, { channelId: caller.channelId, episodeId, authorId: caller.userId, body, mentions });
+    for (const userId of recipients) {
+      const mail = memberMail({
+        channelId: caller.channelId,
+        userId,
+        needs: { area: "comments", need: "R" },
+        subject: `${caller.name} mentioned you on “${episode.title}”`,
+        text: `${caller.name} mentioned you in a comment on “${episode.title}” (${channelName}):\n\n${body}\n\nOpen the episode: ${link}\n`,
+      });
+      await deps.jobs.enqueueMail(mail, { db: sql });
+    }
+    return row;
+  });
   const names = new Map(people.map((p) => [p.id, p.name]));
   return {
     id: saved.id,

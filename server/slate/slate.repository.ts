@@ -1,8 +1,8 @@
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { defaultStageLengths, type StageLengths } from "../../shared/slate/schedule";
 import { channelPeople } from "../db/channel-scope";
 import type { Database } from "../db/client";
-import { memberships, users } from "../db/schema/accounts";
+import { users } from "../db/schema/accounts";
 import { episodeComments, slateChannels } from "../db/schema/slate";
 
 /** The board's revision and the channel's stage lengths, in one read: what every board load checks first. */
@@ -29,16 +29,6 @@ export async function saveStageLengths(db: Database, channelId: string, stageLen
 /** The channel's members as the slate names them: owners to pick, people to mention. */
 export async function peopleOf(db: Database, channelId: string): Promise<{ id: string; name: string }[]> {
   return (await channelPeople(db, channelId)).map(({ userId, name }) => ({ id: userId, name }));
-}
-
-/** Addresses of the people a comment mentions, limited to members of the channel. */
-export async function memberAddresses(db: Database, channelId: string, userIds: string[]) {
-  if (userIds.length === 0) return [];
-  return db
-    .select({ id: users.id, name: users.name, email: users.email })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.channelId, channelId), inArray(users.id, userIds)));
 }
 
 export async function commentsOf(db: Database, channelId: string, episodeId: string) {

@@ -9,6 +9,6 @@ import { settingsRoutes } from "./settings.router";
 /** The board, the episode page and its schedule, history and comments; `plugs` are what other features add to them. */
 export function slateRoutes(deps: AppDeps, plugs: SlatePlugs): RouteSpec[] {
   const db = deps.database.db;
-  const commentDeps = { db, appUrl: deps.env.APP_URL, enqueueMail: deps.jobs.enqueueMail.bind(deps.jobs) };
+  const commentDeps = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
   return [...boardRoutes(db, plugs), ...episodeRoutes(db, plugs), ...commentRoutes(commentDeps), ...settingsRoutes(db)];
 }

@@ -19,6 +19,7 @@ export async function reminderCandidates(db: Database) {
       episodeId: deals.episodeId,
       episodeTitle: episodes.title,
       company: sponsors.company,
+      ownerId: users.id,
       ownerEmail: users.email,
       ownerName: users.name,
       ownerTimeZone: users.timeZone,

@@ -1,11 +1,11 @@
-import { drizzle } from "drizzle-orm/node-postgres";
-import type pg from "pg";
 import type PgBoss from "pg-boss";
 import { dateInZone, daysBetween } from "../../shared/sponsors/dates";
 import { isMoneyKind, reminderFor } from "../../shared/sponsors/deliverables";
 import type { Database } from "../db/client";
+import { inTransaction } from "../db/transaction";
+import { eachItem, mergeTallies, type ItemTally } from "../jobs/each-item";
 import type { Jobs } from "../jobs/queue";
-import type { OutgoingMail } from "../mail/mailer";
+import { memberMail } from "../mail/member-mail";
 import { insertEvents } from "./deals.repository";
 import { seesFees } from "./deals.service";
 import { recordReminder, reminderCandidates } from "./reminders.repository";
@@ -24,19 +24,21 @@ export const REMINDER_CRON = "*/10 * * * *";
 
 export interface ReminderDeps {
   db: Database;
-  pool: pg.Pool;
   jobs: Pick<Jobs, "enqueueMail">;
   appUrl: string;
 }
 
 type Candidate = Awaited<ReturnType<typeof reminderCandidates>>[number];
 
-function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string): OutgoingMail {
+/** To the item's owner, if they may still see the item (money items: the fees) when the mail goes out. */
+function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string) {
   const due = item.dueDate!;
   const days = daysBetween(today, due);
   const when = kind === "late" ? `was due on ${due} and is ${-days} day${days === -1 ? "" : "s"} late` : days === 0 ? `is due today (${due})` : `is due in ${days} day${days === 1 ? "" : "s"}, on ${due}`;
-  return {
-    to: item.ownerEmail,
+  return memberMail({
+    channelId: item.channelId,
+    userId: item.ownerId,
+    needs: isMoneyKind(item.kind) ? { area: "fees", need: "R" } : { area: "deliverables", need: "R" },
     subject: kind === "late" ? `Late: ${item.title} (${item.company})` : `Due soon: ${item.title} (${item.company})`,
     text: [
       `Hello ${item.ownerName},`,
@@ -48,20 +50,15 @@ function reminderMail(item: Candidate, kind: "before" | "late", today: string, a
       "",
       "You get this because you own the item. It is sent once per due date.",
     ].join("\n"),
-  };
+  });
 }
 
 /** Records one reminder and queues its mail in one transaction; false when another scan already sent it. */
 async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "late", today: string): Promise<boolean> {
-  const client = await deps.pool.connect();
-  try {
-    await client.query("begin");
-    const tx = drizzle(client);
-    if (!(await recordReminder(tx, { deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail }))) {
-      await client.query("rollback");
-      return false;
-    }
-    await deps.jobs.enqueueMail(reminderMail(item, kind, today, deps.appUrl), { db: { executeSql: (text, values) => client.query(text, values) } });
+  const mail = reminderMail(item, kind, today, deps.appUrl);
+  return inTransaction(deps.db, async (tx, sql) => {
+    if (!(await recordReminder(tx, { deliverableId: item.id, kind, dueDate: item.dueDate!, sentTo: item.ownerEmail }))) return false;
+    await deps.jobs.enqueueMail(mail, { db: sql });
     await insertEvents(tx, [
       {
         channelId: item.channelId,
@@ -72,34 +69,32 @@ async function sendOnce(deps: ReminderDeps, item: Candidate, kind: "before" | "l
         note: `${kind === "late" ? "Late notice" : "Reminder"} e-mailed to ${item.ownerName}`,
       },
     ]);
-    await client.query("commit");
     return true;
-  } catch (error) {
-    await client.query("rollback").catch(() => undefined);
-    throw error;
-  } finally {
-    client.release();
-  }
+  });
 }
 
-/** One pass over every open item of every channel; answers how many reminders this pass queued. */
-export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<{ sent: number }> {
-  await catchUpPublishDates(deps.db, null);
+export type ScanResult = { sent: number } & ItemTally;
+
+/**
+ * One pass over every open item of every channel. An item (or an episode's catch-up) that fails is
+ * logged and counted, and the pass goes on: one channel's broken row never stops another's reminders.
+ */
+export async function scanReminders(deps: ReminderDeps, now = new Date()): Promise<ScanResult> {
+  const caughtUp = await catchUpPublishDates(deps.db, null);
   let sent = 0;
-  for (const item of await reminderCandidates(deps.db)) {
-    if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) continue;
+  const scanned = await eachItem("reminders", await reminderCandidates(deps.db), (item) => `item ${item.id} of channel ${item.channelId}`, async (item) => {
+    if (isMoneyKind(item.kind) && !seesFees(item.ownerRole)) return;
     const today = dateInZone(now, item.ownerTimeZone);
     const kind = reminderFor(item, today, item.daysBefore ?? DEFAULT_REMINDER_DAYS_BEFORE);
     if (kind && (await sendOnce(deps, item, kind, today))) sent++;
-  }
-  return { sent };
+  });
+  return { sent, ...mergeTallies(caughtUp, scanned) };
 }
 
 /** Puts the scan on pg-boss's clock. Every instance may call this; pg-boss hands each tick to one worker. */
 export async function scheduleSponsorJobs(boss: PgBoss, deps: ReminderDeps, options: { cron?: string; pollSeconds?: number } = {}): Promise<void> {
   await boss.createQueue(REMINDER_QUEUE);
   await boss.schedule(REMINDER_QUEUE, options.cron ?? REMINDER_CRON);
-  await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 5, batchSize: 1 }, async () => {
-    await scanReminders(deps);
-  });
+  // The scan's tally (sent, failed, which items) becomes the job's output, where an operator can read it.
+  await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 5, batchSize: 1 }, () => scanReminders(deps));
 }

@@ -4,10 +4,14 @@ import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/
 import { deliverableStatusLabels, isMoneyKind, isSettled } from "../../shared/sponsors/deliverables";
 import type { ReviewDecision, ReviewLinkView, ReviewPage, reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
 import type { z } from "zod";
-import { channelName as channelNameOf } from "../db/channel-scope";
 import type { Database } from "../db/client";
+import { inTransaction } from "../db/transaction";
 import { AppError, notFound } from "../http/app-error";
-import type { OutgoingMail } from "../mail/mailer";
+import type { Jobs } from "../jobs/queue";
+import { channelShare, mailKind, type MailRenderers } from "../mail/mail-jobs";
+import { memberMail } from "../mail/member-mail";
+import { takeMailQuota } from "../mail/quotas";
+import { requireConfirmedAddress } from "../mail/senders";
 import type { Storage } from "../storage/storage";
 import { findCutClips } from "./cut.repository";
 import {
@@ -34,8 +38,15 @@ export interface ReviewDeps {
   appUrl: string;
   tokens: ReviewTokens;
   storage: Storage | null;
-  enqueueMail(mail: OutgoingMail): Promise<void>;
+  jobs: Pick<Jobs, "enqueueMail">;
 }
+
+/**
+ * The mail that carries a review link to the sponsor's contact. It holds only Kerf's own words and
+ * the names involved (channel, sender, company, episode, item): no text of the sender's choosing
+ * reaches an outside address under Kerf's name. It is built when sent, and only while the link is open.
+ */
+const reviewLinkMail = mailKind<{ linkId: string }>("review-link");
 
 const invalidLink = () => new AppError("not_found", "This review link is not valid. Check that you copied all of it, or ask the channel for a new one.");
 
@@ -46,6 +57,7 @@ const decisionWords: Record<ReviewDecision, string> = { approved: "approved", ch
 /** Sends one deal's review link to one of the sponsor's contacts; the item under review waits on the sponsor. */
 export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: string, input: z.output<typeof sendReviewSchema>): Promise<{ link: ReviewLinkView; url: string }> {
   const { db } = deps;
+  requireConfirmedAddress(caller);
   const deal = await findDeal(db, caller.channelId, dealId);
   if (!deal) throw notFound("Deal");
   if (deal.deal.state === "cancelled") throw new AppError("conflict", "This deal is cancelled: there is nothing left for the sponsor to review.");
@@ -59,12 +71,13 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
   }
   const contact = (await listContactsOf(db, caller.channelId, deal.deal.sponsorId)).find((c) => c.id === input.contactId);
   if (!contact) throw new AppError("validation_failed", "Some fields need attention.", { contactId: "Pick one of this sponsor's contacts." });
-  const channelName = await channelNameOf(db, caller.channelId);
   const sender = await findHost(db, caller.channelId, caller.userId);
   // Whole seconds: the token carries the expiry in seconds and must match the row exactly.
   const expiresAt = new Date(Math.floor(addDays(new Date(), input.expiresInDays).getTime() / 1000) * 1000);
 
-  const link = await db.transaction(async (tx) => {
+  // The link, the item's new state, its history, the mail allowance and the queued mail: all or nothing.
+  const link = await inTransaction(db, async (tx, sql) => {
+    await takeMailQuota(tx, "review_link", caller);
     const row = await insertReviewLink(tx, {
       channelId: caller.channelId,
       dealId,
@@ -87,27 +100,12 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
         note: `Review link sent to ${contact.name} <${contact.email}>, open until ${expiresAt.toISOString().slice(0, 10)}`,
       },
     ]);
+    await deps.jobs.enqueueMail(reviewLinkMail.job({ linkId: row.id }, channelShare(caller.channelId)), { db: sql });
     return row;
   });
 
-  const url = reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt));
-  await deps.enqueueMail({
-    to: contact.email,
-    subject: `${channelName ?? "A channel"} asks you to review: ${target.item.title}`,
-    text: [
-      `Hello ${contact.name},`,
-      "",
-      `${caller.name} of ${channelName ?? "the channel"} asks you to review "${target.item.title}" for ${deal.company}'s segment in "${deal.episodeTitle}".`,
-      ...(input.message ? ["", input.message] : []),
-      "",
-      "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
-      url,
-      "",
-      `The link is for this one deal, works for one decision, and expires on ${expiresAt.toUTCString()}.`,
-    ].join("\n"),
-  });
   return {
-    url,
+    url: reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt)),
     link: {
       id: link.id,
       deliverableId: target.item.id,
@@ -123,6 +121,33 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
       decidedAt: null,
     },
   };
+}
+
+/** Builds the review link's mail when it is sent; a link withdrawn, used, expired or closed meanwhile sends nothing. */
+export function reviewLinkMailRenderer(deps: Pick<ReviewDeps, "db" | "appUrl" | "tokens">): MailRenderers {
+  return reviewLinkMail.renderer(async ({ linkId }) => {
+    const row = await findReviewLinkForPage(deps.db, linkId);
+    if (!row) return { skip: "the review link is gone" };
+    const state = linkStateOf(row.link, subjectOf(row));
+    if (state !== "open") return { skip: `the review link is ${state}` };
+    const { link } = row;
+    return {
+      send: {
+        to: link.contactEmail,
+        subject: `${row.channelName} asks you to review: ${row.deliverableTitle}`,
+        text: [
+          `Hello ${link.contactName},`,
+          "",
+          `${link.sentByName} of ${row.channelName} asks you to review "${row.deliverableTitle}" for ${row.company}'s segment in "${row.episodeTitle}".`,
+          "",
+          "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
+          reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt)),
+          "",
+          `The link is for this one deal, works for one decision, and expires on ${link.expiresAt.toUTCString()}.`,
+        ].join("\n"),
+      },
+    };
+  });
 }
 
 /** Withdraws a link not yet used; the item no longer waits on the sponsor. */
@@ -246,7 +271,7 @@ function refusal(row: LinkRow): AppError {
  */
 export async function decide(deps: ReviewDeps, token: string, input: z.output<typeof reviewDecisionSchema>): Promise<ReviewPage> {
   const opened = await openToken(deps, token);
-  const outcome = await deps.db.transaction(async (tx) => {
+  const outcome = await inTransaction(deps.db, async (tx, sql) => {
     const row = await lockReviewSubject(tx, opened.link.id);
     if (!row) throw invalidLink();
     if (linkStateOf(row.link, subjectOf(row)) !== "open") throw refusal(row);
@@ -267,25 +292,40 @@ export async function decide(deps: ReviewDeps, token: string, input: z.output<ty
         note: input.comment,
       },
     ]);
+    await deps.jobs.enqueueMail(decisionMail(deps, row, claimed, input), { db: sql });
     return { decided: claimed, row } as const;
   });
   if ("stale" in outcome) {
     throw new AppError("conflict", "The channel changed this review after you opened it. Read it again below, then decide.", undefined, { page: await reviewPage(deps, token) });
   }
   const { decided, row } = outcome;
-  if (decided.sentByEmail) {
-    await deps.enqueueMail({
-      to: decided.sentByEmail,
-      subject: `${decided.contactName} of ${row.company} ${decisionWords[input.decision]} "${row.deliverableTitle}"`,
-      text: [
-        `${decided.contactName} (${decided.contactEmail}) ${decisionWords[input.decision]} "${row.deliverableTitle}" for "${row.episodeTitle}" on ${decided.decidedAt!.toUTCString()}.`,
-        "",
-        input.comment ? `Their comment:\n${input.comment}` : "No comment was left.",
-        "",
-        `The item is now "${deliverableStatusLabels[input.decision]}". Open the episode's sponsor deals in Kerf:`,
-        `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}#sponsor-deals`,
-      ].join("\n"),
-    });
-  }
   return { state: "decided", channelName: row.channelName, decision: input.decision, decidedAt: decided.decidedAt!.toISOString(), contactName: decided.contactName };
+}
+
+type LinkPage = NonNullable<Awaited<ReturnType<typeof findReviewLinkForPage>>>;
+type DecidedLink = NonNullable<Awaited<ReturnType<typeof claimReviewDecision>>>;
+
+/**
+ * The decision goes to the member who sent the link, if they may still see the item when the mail is
+ * sent. A link outlives its sender (it is the channel's request, and the sponsor did nothing wrong), so
+ * when the sender has left or lost the role, the channel's current owners and producers get it instead.
+ */
+function decisionMail(deps: ReviewDeps, row: LinkPage, decided: DecidedLink, input: z.output<typeof reviewDecisionSchema>) {
+  // The contact's comment is theirs: quoted, line by line, and bounded by the schema (2,000 characters).
+  const quoted = input.comment ? `Their comment:\n${input.comment.split(/\r?\n/).map((line) => `> ${line}`).join("\n")}` : "No comment was left.";
+  return memberMail({
+    channelId: decided.channelId,
+    userId: decided.sentBy,
+    needs: { area: "deliverables", need: "R" },
+    otherwise: { area: "deliverables", need: "W", note: `You get this because ${decided.sentByName}, who sent the review link, is no longer in the channel.` },
+    subject: `${decided.contactName} of ${row.company} ${decisionWords[input.decision]} "${row.deliverableTitle}"`,
+    text: [
+      `${decided.contactName} (${decided.contactEmail}) ${decisionWords[input.decision]} "${row.deliverableTitle}" for "${row.episodeTitle}" on ${decided.decidedAt!.toUTCString()}.`,
+      "",
+      quoted,
+      "",
+      `The item is now "${deliverableStatusLabels[input.decision]}". Open the episode's sponsor deals in Kerf:`,
+      `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}#sponsor-deals`,
+    ].join("\n"),
+  });
 }

@@ -1,4 +1,5 @@
 import { followedDueDates } from "../../shared/sponsors/deliverables";
+import { eachItem, type ItemTally } from "../jobs/each-item";
 import type { PublishDateFollower } from "../seams/episode-dates";
 import { dealsBehindPublishDate, insertEvents, type Db, type NewEvent } from "./deals.repository";
 import { claimDealsForPublishDate, datingOfItems, episodePublishDate, setDueDate, userName } from "./schedule.repository";
@@ -69,12 +70,11 @@ export const sponsorsFollowPublishDate: PublishDateFollower = {
  * A safety net for a publish date changed without the call above (a script, another tool): before the
  * desk, a deal or the reminder scan is read, deals dated from an old publish date catch up.
  */
-export async function catchUpPublishDates(db: Db, channelId: string | null): Promise<void> {
+export async function catchUpPublishDates(db: Db, channelId: string | null): Promise<ItemTally> {
   const behind = await dealsBehindPublishDate(db, channelId);
-  const seen = new Set<string>();
-  for (const row of behind) {
-    if (seen.has(row.episodeId)) continue;
-    seen.add(row.episodeId);
-    await followPublishDate(db, { channelId: row.channelId, episodeId: row.episodeId });
-  }
+  const episodes = new Map(behind.map((row) => [row.episodeId, row.channelId]));
+  // Each episode moves in its own transaction: one that fails stays behind, logged, and the others move.
+  return eachItem("publish-date catch-up", episodes, ([episodeId, inChannel]) => `episode ${episodeId} of channel ${inChannel}`, async ([episodeId, inChannel]) => {
+    await followPublishDate(db, { channelId: inChannel, episodeId });
+  });
 }

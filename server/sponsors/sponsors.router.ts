@@ -1,5 +1,4 @@
 import type { RouteSpec } from "../http/route-table";
-import type { OutgoingMail } from "../mail/mailer";
 import type { AppDeps } from "../seams/app-deps";
 import { dealRoutes } from "./deals.router";
 import { deliverableRoutes } from "./deliverables.router";
@@ -18,7 +17,7 @@ export function sponsorsRoutes(deps: AppDeps): RouteSpec[] {
     appUrl: deps.env.APP_URL,
     tokens: reviewTokens(deps.env.SESSION_SECRET),
     storage: deps.storage,
-    enqueueMail: (mail: OutgoingMail) => deps.jobs.enqueueMail(mail),
+    jobs: deps.jobs,
   };
   return [
     ...directoryRoutes(db),

@@ -27,10 +27,14 @@ export interface Storage {
   readonly publicOrigin: string;
   up(): Promise<boolean>;
   createMultipart(key: string, contentType: string): Promise<string>;
-  presignPart(key: string, uploadId: string, partNumber: number, expiresInSeconds: number): Promise<string>;
+  /** A PUT URL for one part of exactly `size` bytes: the length is signed, so the store refuses any other. */
+  presignPart(key: string, uploadId: string, partNumber: number, size: number, expiresInSeconds: number): Promise<string>;
   completeMultipart(key: string, uploadId: string, parts: { partNumber: number; etag: string }[]): Promise<{ etag: string | null }>;
-  /** Best effort: some stores (the local stand-in) have no abort; the upload is marked cancelled anyway. */
-  abortMultipart(key: string, uploadId: string): Promise<"aborted" | "unsupported">;
+  /**
+   * Leaves nothing of an upload behind: aborts the multipart upload (its parts go with it) and deletes
+   * any object a completion made at its key. Either already gone is fine; a store that is down throws.
+   */
+  discardUpload(key: string, uploadId: string): Promise<void>;
   head(key: string): Promise<{ size: number; etag: string | null; contentType: string | null } | null>;
   presignGet(key: string, options: { expiresInSeconds: number; fileName?: string; contentType?: string }): Promise<string>;
   putStream(key: string, body: Readable, options: { contentType: string; size: number; signal?: AbortSignal }): Promise<void>;
@@ -71,6 +75,8 @@ export interface StorageSettings {
   accessKeyId: string;
   secretAccessKey: string;
   forcePathStyle: boolean;
+  /** How long a connection may take, and a request sit without a byte either way (default 5 s and 30 s). */
+  timeouts?: { connectMs: number; idleMs: number };
 }
 
 export const storageSettingsFrom = (env: Env): StorageSettings => ({
@@ -88,13 +94,19 @@ export function makeS3Client(settings: StorageSettings): S3Client {
     region: settings.region,
     forcePathStyle: settings.forcePathStyle,
     credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
-    // With the SDK's defaults a streamed PutObject is sent aws-chunked (the stand-in stores the framing
-    // as the object) and presigned URLs carry the checksum of an empty body: checksums only when required.
+    // With the SDK's defaults a streamed PutObject is sent aws-chunked (which some stores refuse and
+    // others store framing and all) and presigned URLs carry the checksum of an empty body: checksums
+    // only when required.
     requestChecksumCalculation: "WHEN_REQUIRED",
     responseChecksumValidation: "WHEN_REQUIRED",
     maxAttempts: 2,
+    // A store that takes the connection and never answers would otherwise hold the caller (and the
+    // row lock a cancel or the sweep holds across its call) for ever: it counts as down instead.
+    requestHandler: { connectionTimeout: settings.timeouts?.connectMs ?? 5_000, socketTimeout: settings.timeouts?.idleMs ?? 30_000 },
   });
 }
+
+const statusOf = (error: unknown) => (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
 
 function quoteFree(etag: string | undefined): string | null {
   return etag ? etag.replaceAll('"', "") : null;
@@ -132,8 +144,10 @@ export function createS3Storage(settings: StorageSettings): Storage & { client: 
       if (!out.UploadId) throw new Error("storage gave no upload id");
       return out.UploadId;
     },
-    presignPart(key, uploadId, partNumber, expiresIn) {
-      return getSignedUrl(client, new UploadPartCommand({ Bucket, Key: key, UploadId: uploadId, PartNumber: partNumber }), { expiresIn });
+    presignPart(key, uploadId, partNumber, size, expiresIn) {
+      // ContentLength joins the signed headers (X-Amz-SignedHeaders=content-length;host).
+      const command = new UploadPartCommand({ Bucket, Key: key, UploadId: uploadId, PartNumber: partNumber, ContentLength: size });
+      return getSignedUrl(client, command, { expiresIn });
     },
     async completeMultipart(key, uploadId, parts) {
       const out = await client.send(
@@ -146,24 +160,21 @@ export function createS3Storage(settings: StorageSettings): Storage & { client: 
       );
       return { etag: quoteFree(out.ETag) };
     },
-    async abortMultipart(key, uploadId) {
+    async discardUpload(key, uploadId) {
       try {
         await client.send(new AbortMultipartUploadCommand({ Bucket, Key: key, UploadId: uploadId }));
-        return "aborted";
       } catch (error) {
-        const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
-        // The local stand-in answers 405 (not implemented); an upload already gone answers 404.
-        if (status === 405 || status === 501 || status === 404) return "unsupported";
-        throw error;
+        // NoSuchUpload: aborted before, or completed (then the object below is what is left).
+        if (statusOf(error) !== 404) throw error;
       }
+      await client.send(new DeleteObjectCommand({ Bucket, Key: key }));
     },
     async head(key) {
       try {
         const out = await client.send(new HeadObjectCommand({ Bucket, Key: key }));
         return { size: Number(out.ContentLength ?? 0), etag: quoteFree(out.ETag), contentType: out.ContentType ?? null };
       } catch (error) {
-        const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
-        if (status === 404) return null;
+        if (statusOf(error) === 404) return null;
         throw error;
       }
     },

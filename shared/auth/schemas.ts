@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { roles } from "../access/roles";
+import { oneLine } from "../fields/text";
 
 export const emailSchema = z
   .string({ error: "Enter an e-mail address." })
@@ -13,17 +14,12 @@ export const passwordSchema = z
   .min(10, "Use at least 10 characters.")
   .max(200, "Use at most 200 characters.");
 
-export const personNameSchema = z
-  .string({ error: "Enter your name." })
-  .trim()
-  .min(1, "Enter your name.")
-  .max(80, "Keep the name under 80 characters.");
+export const personNameSchema = oneLine(80, { blank: "Enter your name.", tooLong: "Keep the name under 80 characters." });
 
-export const channelNameSchema = z
-  .string({ error: "Name the channel." })
-  .trim()
-  .min(2, "Name the channel (at least 2 characters).")
-  .max(80, "Keep the channel name under 80 characters.");
+export const channelNameSchema = oneLine(80, { blank: "Name the channel.", tooLong: "Keep the channel name under 80 characters." }).min(
+  2,
+  "Name the channel (at least 2 characters).",
+);
 
 export const signInSchema = z.strictObject({
   email: emailSchema,
@@ -51,6 +47,8 @@ export const userSchema = z.object({
   name: z.string(),
   email: z.string(),
   timeZone: z.string(),
+  /** The person opened the link mailed to their address; until then they can't invite or send review links. */
+  emailVerified: z.boolean(),
 });
 export type User = z.infer<typeof userSchema>;
 
@@ -60,3 +58,19 @@ export const meSchema = z.object({
   csrfToken: z.string(),
 });
 export type Me = z.infer<typeof meSchema>;
+
+/** The token of an address-confirmation link (/verify/<token>). */
+export const verifyEmailSchema = z.strictObject({
+  token: z.string({ error: "The link has no token." }).regex(/^[A-Za-z0-9_-]{43}$/, "This confirmation link is not valid."),
+});
+export type VerifyEmailInput = z.infer<typeof verifyEmailSchema>;
+
+export interface VerifyEmailAnswer {
+  confirmed: string;
+  me: Me;
+}
+
+export interface VerificationMailAnswer {
+  /** The address the new link goes to; null when the address is already confirmed (nothing sent). */
+  sentTo: string | null;
+}

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { oneLine } from "../fields/text";
 import {
   type Figure,
   type FigureName,
@@ -45,7 +46,7 @@ export function metricUnit(metric: MetricName): string {
 const criterionBase = {
   metric: z.enum(metricNames),
   required: z.boolean(),
-  note: z.string().max(500).optional(),
+  note: oneLine(500).optional(),
 };
 
 const compatibleWith = (a: string, b: string) => isKnownUnit(a) && isKnownUnit(b) && areCompatible(a, b);

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine, oneLine } from "../fields/text";
 import { type Criterion, type MetricName, criterionSchema } from "./criteria";
 import { type Figure, type FigureName, measurementDimensions, measurementSymbols, runMeasurementsSchema } from "./figures";
 import { CUSTOM_HAZARD, hazardKinds } from "./hazards";
@@ -8,8 +9,12 @@ import type { PlanVerdict, CriterionOutcome } from "./criteria";
 
 /** Request and response shapes of the bench feature: the same schemas check the forms and the API. */
 
-const trimmed = (max: number, what: string) => z.string().trim().max(max, `Keep ${what} under ${max} characters.`);
-const required = (max: number, what: string, empty: string) => trimmed(max, what).min(1, empty);
+// Names and labels are one line; the hypothesis, method, mitigations and notes keep their line breaks.
+const tooLong = (max: number, what: string) => `Keep ${what} under ${max} characters.`;
+const line = (max: number, what: string) => oneLine(max, { tooLong: tooLong(max, what) });
+const requiredLine = (max: number, what: string, empty: string) => oneLine(max, { blank: empty, tooLong: tooLong(max, what) });
+const lines = (max: number, what: string) => multiLine(max, { tooLong: tooLong(max, what) });
+const requiredLines = (max: number, what: string, empty: string) => multiLine(max, { blank: empty, tooLong: tooLong(max, what) });
 
 const nonNegative = <S extends z.ZodType<Quantity>>(schema: S, what: string) =>
   schema.refine((q) => q.value >= 0, { message: `${what} cannot be negative`, path: ["value"] });
@@ -28,8 +33,8 @@ export const measurementLabels: Record<(typeof measurementSymbols)[number], stri
 /** One quantity the plan measures: its own name and symbol, what kind of measurement it is, and its unit. */
 export const plannedQuantitySchema = z
   .strictObject({
-    name: required(80, "the name", "Name the quantity, such as “static thrust”."),
-    symbol: required(12, "the symbol", "Give it a symbol, such as T."),
+    name: requiredLine(80, "the name", "Name the quantity, such as “static thrust”."),
+    symbol: requiredLine(12, "the symbol", "Give it a symbol, such as T."),
     measures: z.enum(measurementSymbols, { error: "Pick what the quantity measures." }),
     unit: unitSchema,
   })
@@ -46,8 +51,8 @@ export const plannedQuantitySchema = z
 export type PlannedQuantity = z.infer<typeof plannedQuantitySchema>;
 
 export const testPlanInputSchema = z.strictObject({
-  hypothesis: trimmed(2000, "the hypothesis"),
-  method: trimmed(4000, "the method"),
+  hypothesis: lines(2000, "the hypothesis"),
+  method: lines(4000, "the method"),
   quantities: z.array(plannedQuantitySchema).max(20, "A plan measures at most 20 quantities."),
   airframeMass: nonNegative(quantityOfSchema("mass", "the airframe's mass"), "The airframe's mass").nullable(),
 });
@@ -64,8 +69,8 @@ export const hazardChoices = [...hazardKinds, CUSTOM_HAZARD] as const;
 export const hazardInputSchema = z
   .strictObject({
     kind: z.enum(hazardChoices, { error: "Pick a hazard from the list, or “other” to type one in." }),
-    title: trimmed(120, "the hazard's name").optional(),
-    mitigation: required(1000, "the mitigation", "Say how the risk is kept down."),
+    title: line(120, "the hazard's name").optional(),
+    mitigation: requiredLines(1000, "the mitigation", "Say how the risk is kept down."),
   })
   .superRefine((hazard, ctx) => {
     if (hazard.kind === CUSTOM_HAZARD && !hazard.title) {
@@ -77,8 +82,8 @@ export type HazardInput = z.infer<typeof hazardInputSchema>;
 /** A change to a hazard; `checked` true records the caller as the person who checked it. */
 export const hazardChangeSchema = z
   .strictObject({
-    title: required(120, "the hazard's name", "Name the hazard.").optional(),
-    mitigation: required(1000, "the mitigation", "Say how the risk is kept down.").optional(),
+    title: requiredLine(120, "the hazard's name", "Name the hazard.").optional(),
+    mitigation: requiredLines(1000, "the mitigation", "Say how the risk is kept down.").optional(),
     checked: z.boolean().optional(),
   })
   .refine((change) => Object.keys(change).length > 0, { message: "Nothing to change." });
@@ -128,14 +133,14 @@ export const priceSchema = z.strictObject({
 export type Price = z.infer<typeof priceSchema>;
 
 export const partInputSchema = z.strictObject({
-  name: required(120, "the name", "Name the part."),
+  name: requiredLine(120, "the name", "Name the part."),
   kind: z.enum(partKinds, { error: "Pick what kind of part it is." }),
   mass: nonNegative(quantityOfSchema("mass", "mass"), "Mass").nullable(),
   ratedVoltage: nonNegative(quantityOfSchema("voltage", "rated voltage"), "The rated voltage").nullable(),
   ratedCurrent: nonNegative(quantityOfSchema("current", "rated current"), "The rated current").nullable(),
   price: priceSchema.nullable(),
-  supplier: trimmed(200, "the supplier"),
-  notes: trimmed(2000, "the notes"),
+  supplier: line(200, "the supplier"),
+  notes: lines(2000, "the notes"),
 });
 export type PartInput = z.infer<typeof partInputSchema>;
 
@@ -175,11 +180,11 @@ export const runMeasurementsInputSchema = z.strictObject({
 
 export const runInputSchema = z
   .strictObject({
-    label: required(120, "the configuration's name", "Name the configuration, such as “motor B on 3S”."),
+    label: requiredLine(120, "the configuration's name", "Name the configuration, such as “motor B on 3S”."),
     parts: z.array(runPartSchema).max(12, "A run holds at most 12 different parts."),
     supply: supplySchema.nullable(),
     measurements: runMeasurementsInputSchema,
-    notes: trimmed(2000, "the notes"),
+    notes: lines(2000, "the notes"),
   })
   .superRefine((run, ctx) => {
     const seen = new Set<string>();
@@ -261,11 +266,11 @@ export const iterationOutcomeLabels: Record<IterationOutcome, string> = {
 };
 
 export const iterationInputSchema = z.strictObject({
-  change: required(500, "what changed", "Say what changed in this iteration."),
+  change: requiredLine(500, "what changed", "Say what changed in this iteration."),
   allUpMass: nonNegative(quantityOfSchema("mass", "all-up mass"), "All-up mass").nullable(),
   outcome: z.enum(iterationOutcomes, { error: "Pick an outcome." }),
   chosenRunId: z.guid("Pick one of this episode's runs.").nullable(),
-  notes: trimmed(2000, "the notes"),
+  notes: lines(2000, "the notes"),
 });
 export type IterationInput = z.infer<typeof iterationInputSchema>;
 

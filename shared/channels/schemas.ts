@@ -36,7 +36,8 @@ export const membersPageSchema = z.object({
 });
 export type MembersPage = z.infer<typeof membersPageSchema>;
 
-export const invitationStates = ["open", "accepted", "expired", "revoked"] as const;
+/** "closed": its addressee joined the channel through another invitation. */
+export const invitationStates = ["open", "accepted", "expired", "revoked", "closed"] as const;
 
 export const invitationPreviewSchema = z.object({
   channelName: z.string(),

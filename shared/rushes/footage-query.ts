@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { oneLine } from "../fields/text";
 import { clipRatings, shotKinds } from "./vocabulary";
 
 /**
@@ -22,12 +23,12 @@ export const footageQuerySchema = z.object({
   episodeId: z.preprocess(blankToUndefined, optionalId),
   shootDayId: z.preprocess(blankToUndefined, optionalId),
   shotId: z.preprocess(blankToUndefined, optionalId),
-  tag: z.preprocess(blankToUndefined, z.string().trim().toLowerCase().max(40).optional()),
+  tag: z.preprocess(blankToUndefined, oneLine(40).toLowerCase().optional()),
   rating: z.preprocess(blankToUndefined, z.enum([...clipRatings, "unrated"]).optional()),
   kind: z.preprocess(blankToUndefined, z.enum(shotKinds).optional()),
   hasMarks: z.preprocess(blankToUndefined, z.enum(["yes", "no"]).optional()),
-  camera: z.preprocess(blankToUndefined, z.string().trim().max(120).optional()),
-  q: z.preprocess(blankToUndefined, z.string().trim().max(200).optional()),
+  camera: z.preprocess(blankToUndefined, oneLine(120).optional()),
+  q: z.preprocess(blankToUndefined, oneLine(200).optional()),
   sort: z.preprocess(blankToUndefined, z.enum(footageSorts).default("recorded")),
   dir: z.preprocess(blankToUndefined, z.enum(["asc", "desc"]).default("desc")),
   cursor: z.preprocess(blankToUndefined, z.string().max(500).optional()),

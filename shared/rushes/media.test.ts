@@ -42,6 +42,18 @@ describe("reading a probe's tracks", () => {
 
   it("reads mediainfo's UTC dates and refuses anything else", () => {
     expect(probeDate("2026-01-02 03:04:05 UTC")).toBe("2026-01-02T03:04:05.000Z");
+    expect(probeDate("9999-12-31 00:00:00 UTC")).toBeNull();
+    expect(probeDate("1904-01-01 00:00:00 UTC")).toBe("1904-01-01T00:00:00.000Z");
     expect(probeDate("yesterday")).toBeNull();
+  });
+
+  it("when a file's own camera and codec names hold control or direction characters, then they are cleaned into text the clip rule accepts", () => {
+    const metadata = metadataFromProbe([
+      { "@type": "General", Make: "Acme\u0000\r\nCam", Model: "\u202EX-100\u0007", Duration: "2" },
+      { "@type": "Video", Format: "AVC\u200B\u0085" },
+    ]);
+    expect(metadata.camera).toBe("Acme Cam X-100");
+    expect(metadata.codec).toBe("AVC\u200B");
+    expect(clipMetadataSchema.safeParse(metadata).success).toBe(true);
   });
 });

@@ -1,5 +1,7 @@
 import { frameRateName, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
+import { isInstantInRange } from "../fields/dates";
+import { toPlainLine } from "../fields/text";
 import { emptyMetadata, type ClipMetadata } from "./schemas";
 
 /**
@@ -14,12 +16,14 @@ const num = (v: unknown): number | null => {
 };
 const str = (v: unknown): string | null => (typeof v === "string" && v.trim() !== "" ? v.trim() : null);
 
-/** mediainfo writes dates as "2026-11-20 10:15:00 UTC" or ISO; anything else is dropped. */
+/** mediainfo writes dates as "2026-11-20 10:15:00 UTC" or ISO; anything else, or outside 1900–2100, is dropped. */
 export function probeDate(text: string | null): string | null {
   if (!text) return null;
   const iso = text.replace(/^(\d{4}-\d{2}-\d{2}) (\d{2}:\d{2}:\d{2})(?:\.\d+)? UTC$/, "$1T$2Z");
   const time = Date.parse(iso);
-  return Number.isNaN(time) || !/^\d{4}-\d{2}-\d{2}T/.test(iso) ? null : new Date(time).toISOString();
+  if (Number.isNaN(time) || !/^\d{4}-\d{2}-\d{2}T/.test(iso)) return null;
+  const instant = new Date(time).toISOString();
+  return isInstantInRange(instant) ? instant : null;
 }
 
 export function metadataFromProbe(tracks: ProbeTrack[]): ClipMetadata {
@@ -61,9 +65,9 @@ export function metadataFromProbe(tracks: ProbeTrack[]): ClipMetadata {
     dropFrame,
     width: width && width > 0 ? Math.round(width) : null,
     height: height && height > 0 ? Math.round(height) : null,
-    codec: str(video?.Format) ?? str(general.Format),
+    codec: toPlainLine(str(video?.Format) ?? str(general.Format) ?? "", 80) || null,
     startTimecode,
     recordedAt: probeDate(str(general.Recorded_Date) ?? str(general.Encoded_Date) ?? str(general.Tagged_Date)),
-    camera: camera.slice(0, 120),
+    camera: toPlainLine(camera, 120),
   };
 }

@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { calendarDateSchema, recordedInstantSchema } from "../fields/dates";
+import { multiLine, oneLine } from "../fields/text";
 import { frameRateSchema, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
 import { clipRatings, shotKinds, shotPriorities, shotStatuses, type ClipRating, type ShotKind, type ShotPriority, type ShotStatus, type UploadStatus } from "./vocabulary";
@@ -14,10 +16,10 @@ export const clipMetadataSchema = z
     dropFrame: z.boolean(),
     width: z.number().int().positive().max(32_768).nullable(),
     height: z.number().int().positive().max(32_768).nullable(),
-    codec: z.string().max(80).nullable(),
+    codec: oneLine(80).nullable(),
     startTimecode: z.string().max(20).nullable(),
-    recordedAt: z.iso.datetime({ offset: true }).nullable(),
-    camera: z.string().max(120),
+    recordedAt: recordedInstantSchema.nullable(),
+    camera: oneLine(120),
   })
   .superRefine((m, ctx) => {
     if (m.dropFrame && (!m.frameRate || labelsDroppedPerMinute(m.frameRate) === undefined)) {
@@ -47,24 +49,40 @@ export const emptyMetadata: ClipMetadata = {
 
 export const startUploadSchema = z.strictObject({
   episodeId: id("episode"),
-  fileName: z.string().trim().min(1, "The file needs a name.").max(255, "File names can be at most 255 characters."),
+  fileName: oneLine(255, { blank: "The file needs a name.", tooLong: "File names can be at most 255 characters." }),
   size: z.number({ message: "Give the file's size in bytes." }).int().min(0),
-  fingerprint: z.string().max(300).default(""),
+  fingerprint: oneLine(300).default(""),
   metadata: clipMetadataSchema.optional(),
 });
 export type StartUploadInput = z.input<typeof startUploadSchema>;
 
+/**
+ * `POST /uploads/:uploadId/part-urls`: the parts the browser is about to send, each with its size in
+ * bytes as it cut them (the upload's `partSize`; the last part holds the rest). Kerf checks each size
+ * against the upload's plan and signs it into the part's URL, so storage accepts exactly that many
+ * bytes for that part of that upload and refuses anything else. Answers `PartUrlsAnswer`.
+ */
 export const partUrlsSchema = z.strictObject({
-  partNumbers: z.array(z.number().int().min(1).max(10_000)).min(1, "Ask for at least one part.").max(100, "Ask for at most 100 parts at once."),
+  parts: z
+    .array(
+      z.strictObject({
+        partNumber: z.number().int().min(1).max(10_000),
+        size: z.number({ message: "Give each part's size in bytes." }).int().min(1),
+      }),
+    )
+    .min(1, "Ask for at least one part.")
+    .max(100, "Ask for at most 100 parts at once."),
 });
+export type PartUrlsInput = z.input<typeof partUrlsSchema>;
+
+/** One presigned PUT per part: bytes [start, end) of the file, until `expiresAt` (a quarter of an hour). */
+export interface PartUrlsAnswer {
+  urls: { partNumber: number; start: number; end: number; url: string }[];
+  expiresAt: string;
+}
 
 export const recordPartSchema = z.strictObject({
-  etag: z
-    .string()
-    .trim()
-    .min(1, "The part's ETag is missing.")
-    .max(200)
-    .transform((v) => v.replaceAll('"', "")),
+  etag: oneLine(200, { blank: "The part's ETag is missing." }).transform((v) => v.replaceAll('"', "")),
   size: z.number().int().min(1),
 });
 
@@ -97,37 +115,35 @@ export interface UploadView {
   createdAt: string;
 }
 
-const dayPattern = /^\d{4}-\d{2}-\d{2}$/;
+const place = oneLine(200, { tooLong: "Keep the place under 200 characters." });
+const shootNotes = multiLine(2000, { tooLong: "Keep the notes under 2,000 characters." });
 export const shootDaySchema = z.strictObject({
-  day: z
-    .string()
-    .regex(dayPattern, "Write the date as YYYY-MM-DD.")
-    .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), "That date doesn't exist."),
-  place: z.string().trim().max(200, "Keep the place under 200 characters.").default(""),
+  day: calendarDateSchema,
+  place: place.default(""),
   callTime: z
     .string()
     .regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Write the call time as HH:MM, 24-hour.")
     .nullable()
     .default(null),
   crewIds: z.array(z.uuid()).max(50).default([]),
-  notes: z.string().max(2000).default(""),
+  notes: shootNotes.default(""),
 });
 export type ShootDayInput = z.input<typeof shootDaySchema>;
 /** A change names only what changes: no defaults here, or a patch would reset the fields it leaves out. */
 export const shootDayPatchSchema = z.strictObject({
   day: shootDaySchema.shape.day.optional(),
-  place: z.string().trim().max(200, "Keep the place under 200 characters.").optional(),
+  place: place.optional(),
   callTime: z
     .string()
     .regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Write the call time as HH:MM, 24-hour.")
     .nullable()
     .optional(),
   crewIds: z.array(z.uuid()).max(50).optional(),
-  notes: z.string().max(2000).optional(),
+  notes: shootNotes.optional(),
 });
 
 export const shotSchema = z.strictObject({
-  description: z.string().trim().min(1, "Describe the shot.").max(500, "Keep the description under 500 characters."),
+  description: oneLine(500, { blank: "Describe the shot.", tooLong: "Keep the description under 500 characters." }),
   kind: z.enum(shotKinds, { message: "Choose the kind of shot." }),
   priority: z.enum(shotPriorities).default("normal"),
   shootDayId: z.uuid().nullable().default(null),
@@ -143,12 +159,8 @@ export const shotPatchSchema = z.strictObject({
   status: z.enum(["planned", "dropped"], { message: "A shot is planned or dropped; it is captured when a clip is linked to it." }).optional(),
 });
 
-const tag = z
-  .string()
-  .trim()
+const tag = oneLine(40, { blank: "A tag can't be empty.", tooLong: "Keep each tag under 40 characters." })
   .toLowerCase()
-  .min(1, "A tag can't be empty.")
-  .max(40, "Keep each tag under 40 characters.")
   .regex(/^[^,]+$/, "A tag can't hold a comma.");
 
 export const updateClipSchema = z
@@ -162,25 +174,28 @@ export const updateClipSchema = z
       .max(30, "At most 30 tags on a clip.")
       .transform((tags) => [...new Set(tags)]),
     rating: z.enum(clipRatings).nullable(),
-    notes: z.string().max(5000, "Keep notes under 5,000 characters."),
-    camera: z.string().trim().max(120),
+    notes: multiLine(5000, { tooLong: "Keep notes under 5,000 characters." }),
+    camera: oneLine(120),
     kind: z.enum(shotKinds).nullable(),
   })
   .partial()
   .refine((v) => Object.keys(v).length > 0, "Change at least one thing.");
 export type UpdateClipInput = z.input<typeof updateClipSchema>;
 
+/** A mark's note is one line: it becomes a comment line of the EDL. */
+const markNote = oneLine(500, { tooLong: "Keep the note under 500 characters." });
+
 /** The in/out labels are checked against the clip's own format on the server (shared/timecode). */
 export const markInputSchema = z.strictObject({
-  in: z.string().trim().min(1, "Enter the in point."),
-  out: z.string().trim().min(1, "Enter the out point."),
-  note: z.string().trim().max(500, "Keep the note under 500 characters.").default(""),
+  in: oneLine(40, { blank: "Enter the in point." }),
+  out: oneLine(40, { blank: "Enter the out point." }),
+  note: markNote.default(""),
 });
 export type MarkInput = z.input<typeof markInputSchema>;
 export const markPatchSchema = z.strictObject({
   in: markInputSchema.shape.in.optional(),
   out: markInputSchema.shape.out.optional(),
-  note: z.string().trim().max(500, "Keep the note under 500 characters.").optional(),
+  note: markNote.optional(),
 });
 
 export interface MarkView {

@@ -27,5 +27,5 @@ export const clipRatings = ["select", "maybe", "reject"] as const;
 export type ClipRating = (typeof clipRatings)[number];
 export const clipRatingLabels: Record<ClipRating, string> = { select: "Select", maybe: "Maybe", reject: "Reject" };
 
-export const uploadStatuses = ["uploading", "completed", "cancelled", "abandoned"] as const;
+export const uploadStatuses = ["uploading", "completed", "cancelled", "abandoned", "refused"] as const;
 export type UploadStatus = (typeof uploadStatuses)[number];

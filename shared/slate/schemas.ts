@@ -1,6 +1,7 @@
 import { z } from "zod";
+import { calendarDateSchema } from "../fields/dates";
+import { multiLine, oneLine } from "../fields/text";
 import { versionSchema } from "../http/version";
-import { isIsoDate } from "./dates";
 import type { BoardFlag } from "./flags";
 import type { GateProblem } from "./gates";
 import type { RiskReason, ScheduledStage, StageLengths } from "./schedule";
@@ -18,31 +19,20 @@ export const originLabels: Record<Origin, string> = {
 /** Offered in the form; any ISO 4217 code is accepted. */
 export const commonCurrencies = ["EUR", "USD", "GBP", "NOK", "SEK", "DKK", "CHF", "CAD", "AUD", "NZD", "JPY", "PLN"] as const;
 
-export const isoDateSchema = z
-  .string({ error: "Pick a date." })
-  .refine(isIsoDate, "Pick a real date (YYYY-MM-DD).")
-  .refine((d) => d >= "2000-01-01" && d <= "2100-12-31", "Pick a date between 2000 and 2100.");
+export const isoDateSchema = calendarDateSchema;
 
 const blankOr = <S extends z.ZodType>(schema: S) => z.union([z.literal(""), z.null(), schema]);
 
-export const tagSchema = z
-  .string()
-  .trim()
+export const tagSchema = oneLine(24, { blank: "A tag can't be empty.", tooLong: "Keep each tag under 24 characters." })
   .toLowerCase()
-  .min(1, "A tag can't be empty.")
-  .max(24, "Keep each tag under 24 characters.")
   .regex(/^[\p{L}\p{N}][\p{L}\p{N} -]*$/u, "Tags are words: letters, digits, spaces and dashes.");
 
 const episodeFieldsObject = z.strictObject({
-  title: z.string({ error: "Give the episode a working title." }).trim().min(1, "Give the episode a working title.").max(120, "Keep the title under 120 characters."),
-  question: z
-    .string()
-    .trim()
-    .max(200, "Keep the question to one line (200 characters).")
-    .refine((q) => !/[\r\n]/.test(q), "Keep the question to one line."),
+  title: oneLine(120, { blank: "Give the episode a working title.", tooLong: "Keep the title under 120 characters." }),
+  question: oneLine(200, { tooLong: "Keep the question to one line (200 characters)." }),
   origin: z.enum(origins, { error: "Say where the challenge came from." }),
-  originLink: blankOr(z.url({ protocol: /^https?$/, error: "Paste a full web address (https://…)." }).max(500, "That address is too long.")),
-  whyWorthIt: z.string().trim().max(2000, "Keep this under 2,000 characters."),
+  originLink: blankOr(oneLine(500, { tooLong: "That address is too long." }).pipe(z.url({ protocol: /^https?$/, error: "Paste a full web address (https://…)." }))),
+  whyWorthIt: multiLine(2000, { tooLong: "Keep this under 2,000 characters." }),
   ownerId: blankOr(z.uuid({ error: "Pick a member of this channel." })),
   tags: z.array(tagSchema).max(12, "Use at most 12 tags."),
   budgetAmount: blankOr(z.string().trim().regex(/^\d{1,9}(\.\d{1,2})?$/, "Write the budget as a number, e.g. 250 or 249.99.")),
@@ -91,22 +81,22 @@ export const moveEpisodeSchema = z.strictObject({
   stage: z.enum(stages, { error: "Pick one of the seven stages." }),
   afterId: z.uuid().nullable().optional(),
   beforeId: z.uuid().nullable().optional(),
-  reason: z.string().trim().min(3, "Say in a few words why it moves on anyway.").max(500, "Keep the reason under 500 characters.").optional(),
+  reason: multiLine(500, { blank: "Say in a few words why it moves on anyway.", tooLong: "Keep the reason under 500 characters." }).min(3, "Say in a few words why it moves on anyway.").optional(),
 });
 export type MoveEpisodeInput = z.infer<typeof moveEpisodeSchema>;
 
 export const dueOverrideSchema = z.strictObject({ version: versionSchema, dueDate: isoDateSchema.nullable() });
 
 export const commentSchema = z.strictObject({
-  body: z.string({ error: "Write a comment first." }).trim().min(1, "Write a comment first.").max(4000, "Keep a comment under 4,000 characters."),
+  body: multiLine(4000, { blank: "Write a comment first.", tooLong: "Keep a comment under 4,000 characters." }),
 });
 export type CommentInput = z.infer<typeof commentSchema>;
 
 /** The board's filters, as they appear in the page's URL and the API's query string. */
 export const boardFiltersSchema = z.object({
   owner: z.union([z.literal("none"), z.uuid({ error: "Pick a member, or none." })], { error: "Pick a member, or none." }).optional(),
-  tag: z.string().max(24).optional(),
-  sponsor: z.string().max(100).optional(),
+  tag: oneLine(24).optional(),
+  sponsor: oneLine(100).optional(),
   risk: z.literal("1").optional(),
   archived: z.literal("1").optional(),
 });

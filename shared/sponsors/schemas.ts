@@ -2,59 +2,48 @@ import { z } from "zod";
 import { type FrameRateName, frameRateNames, frameRates, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
 import { emailSchema } from "../auth/schemas";
-import { isIsoDate } from "./dates";
+import { calendarDateSchema } from "../fields/dates";
+import { multiLine, oneLine } from "../fields/text";
 import { deliverableKinds, deliverableStatuses, anchors, templateAnchors, deskGroups } from "./deliverables";
 import { MAX_WORDS_PER_MINUTE, MIN_WORDS_PER_MINUTE, type ReadReport } from "./read";
 import type { DisclosureCheck } from "./disclosure";
 
 const id = (what: string) => z.uuid({ error: `Pick a ${what}.` });
 
-// PostgreSQL text cannot hold a NUL character: refuse it with a message instead of failing on insert.
-const noNul = (v: string | null) => v === null || !v.includes("\u0000");
-const NUL_MESSAGE = "Remove the invisible NUL character from this text.";
+// Free text goes through the shared text rule (shared/fields/text.ts): no control or direction
+// characters (NUL included, which PostgreSQL text can't hold), nothing blank that only looks filled.
+const tooLong = (max: number, what: string) => `Keep the ${what} under ${max} characters.`;
+const blankToNull = (v: string) => (v === "" ? null : v);
 
-/** Optional free text: blank becomes null. */
-const optionalText = (max: number, what: string) =>
-  z
-    .string()
-    .trim()
-    .max(max, `Keep the ${what} under ${max} characters.`)
-    .refine(noNul, NUL_MESSAGE)
-    .transform((v) => (v === "" ? null : v))
-    .nullable();
+/** Optional one-line text: blank becomes null. */
+const optionalLine = (max: number, what: string) => oneLine(max, { tooLong: tooLong(max, what) }).transform(blankToNull).nullable();
+/** Optional notes that keep their line breaks: blank becomes null. */
+const optionalLines = (max: number, what: string) => multiLine(max, { tooLong: tooLong(max, what) }).transform(blankToNull).nullable();
 
-const requiredText = (max: number, message: string) =>
-  z.string({ error: message }).trim().min(1, message).max(max, `Use at most ${max} characters.`).refine(noNul, NUL_MESSAGE);
+const requiredText = (max: number, message: string) => oneLine(max, { blank: message, tooLong: `Use at most ${max} characters.` });
 
-export const isoDateSchema = z.string().refine(isIsoDate, { message: "Enter a date as YYYY-MM-DD." });
-const optionalDate = z
-  .string()
-  .trim()
-  .transform((v) => (v === "" ? null : v))
+export const isoDateSchema = calendarDateSchema;
+/** An optional date: blank becomes null. */
+const optionalDate = z.string().trim().transform(blankToNull).nullable().pipe(calendarDateSchema.nullable());
+
+const webAddress = oneLine(500, { tooLong: "Keep the address under 500 characters." })
+  .transform(blankToNull)
   .nullable()
-  .refine((v) => v === null || isIsoDate(v), { message: "Enter a date as YYYY-MM-DD." });
-
-const webAddress = z
-  .string()
-  .trim()
-  .max(500, "Keep the address under 500 characters.")
-  .transform((v) => (v === "" ? null : v))
-  .nullable()
-  .refine((v) => v === null || (noNul(v) && /^https?:\/\/[^\s/]+\.[^\s]+$/i.test(v)), { message: "Enter a web address starting with https://" });
+  .refine((v) => v === null || /^https?:\/\/[^\s/]+\.[^\s]+$/i.test(v), { message: "Enter a web address starting with https://" });
 
 // ── Sponsors and contacts ───────────────────────────────────────────────
 
 export const sponsorInputSchema = z.strictObject({
   company: requiredText(120, "Name the company."),
   website: webAddress,
-  notes: optionalText(2000, "notes"),
+  notes: optionalLines(2000, "notes"),
 });
 export type SponsorInput = z.input<typeof sponsorInputSchema>;
 
 export const contactInputSchema = z.strictObject({
   name: requiredText(80, "Enter the contact's name."),
   email: emailSchema,
-  role: optionalText(80, "role"),
+  role: optionalLine(80, "role"),
 });
 export type ContactInput = z.input<typeof contactInputSchema>;
 
@@ -138,7 +127,7 @@ export const paymentTermsFrom = ["go_live", "invoice"] as const;
 export const paymentTermsLabels: Record<(typeof paymentTermsFrom)[number], string> = { go_live: "after go-live", invoice: "after the invoice" };
 
 const talkingPointsSchema = z
-  .array(z.string().trim().min(1, "A talking point can't be blank.").max(200, "Keep each talking point under 200 characters.").refine(noNul, NUL_MESSAGE))
+  .array(oneLine(200, { blank: "A talking point can't be blank.", tooLong: "Keep each talking point under 200 characters." }))
   .max(20, "Keep it to 20 talking points.");
 
 const segmentFields = {
@@ -151,11 +140,11 @@ const segmentFields = {
     .max(900, "A segment is at most 900 seconds (15 minutes)."),
   talkingPoints: talkingPointsSchema,
   link: webAddress,
-  promoCode: optionalText(40, "promo code").refine((v) => v === null || /^\S+$/.test(v), { message: "A promo code has no spaces." }),
-  disclosureText: optionalText(300, "disclosure"),
-  exclusivityNotes: optionalText(1000, "exclusivity notes"),
-  descriptionCopy: optionalText(3000, "description text"),
-  script: z.string().max(20000, "Keep the script under 20,000 characters.").refine(noNul, NUL_MESSAGE),
+  promoCode: optionalLine(40, "promo code").refine((v) => v === null || /^\S+$/.test(v), { message: "A promo code has no spaces." }),
+  disclosureText: optionalLine(300, "disclosure"),
+  exclusivityNotes: optionalLines(1000, "exclusivity notes"),
+  descriptionCopy: optionalLines(3000, "description text"),
+  script: multiLine(20000, { tooLong: "Keep the script under 20,000 characters." }),
   contactId: id("contact").nullable(),
   hostId: id("host").nullable(),
   goLiveDate: optionalDate,
@@ -174,7 +163,7 @@ export const moneySchema = z.strictObject({
     .regex(/^[A-Z]{3}$/, "Use a three-letter currency code (ISO 4217), e.g. EUR."),
   paymentTermsDays: z.number({ error: "Enter the payment terms in days." }).int("Use whole days.").min(0, "Use 0 or more days.").max(365, "Use at most 365 days."),
   paymentTermsFrom: z.enum(paymentTermsFrom, { error: "Count the terms from go-live or the invoice." }),
-  invoiceNumber: optionalText(60, "invoice number"),
+  invoiceNumber: optionalLine(60, "invoice number"),
   invoicedOn: optionalDate,
   paidOn: optionalDate,
 });
@@ -201,8 +190,8 @@ export type UpdateDealInput = z.input<typeof updateDealSchema>;
 
 export const cutTimingSchema = z
   .strictObject({
-    inTimecode: z.string().trim().min(1, "Enter the segment's in point."),
-    outTimecode: z.string().trim().min(1, "Enter the segment's out point."),
+    inTimecode: oneLine(40, { blank: "Enter the segment's in point." }),
+    outTimecode: oneLine(40, { blank: "Enter the segment's out point." }),
     frameRate: z.enum(frameRateNames as [FrameRateName, ...FrameRateName[]], { error: "Pick the cut's frame rate." }),
     dropFrame: z.boolean(),
   })
@@ -249,7 +238,7 @@ export const updateDeliverableSchema = z
     anchor: z.enum(anchors, { error: "Pick how the date is counted." }),
     offsetDays: templateItemSchema.shape.offsetDays,
     fixedDate: optionalDate,
-    note: optionalText(1000, "note"),
+    note: optionalLines(1000, "note"),
   })
   .partial()
   .refine((v) => Object.keys(v).some((k) => k !== "note") || v.note, { message: "Change at least one field." })
@@ -296,7 +285,7 @@ export const sendReviewSchema = z.strictObject({
   deliverableId: id("item to review"),
   contactId: id("contact"),
   expiresInDays: z.number({ error: "Enter how many days the link works." }).int("Use whole days.").min(1, "At least 1 day.").max(30, "At most 30 days.").default(REVIEW_LINK_DEFAULT_DAYS),
-  message: optionalText(1000, "message").default(null),
+  // No message of the sender's own: the mail to the sponsor carries only Kerf's words and the names.
 });
 export type SendReviewInput = z.input<typeof sendReviewSchema>;
 
@@ -324,7 +313,7 @@ export interface ReviewLinkView {
 export const reviewDecisionSchema = z
   .strictObject({
     decision: z.enum(reviewDecisions, { error: "Approve, or ask for changes." }),
-    comment: optionalText(2000, "comment").default(null),
+    comment: optionalLines(2000, "comment").default(null),
     /** The page's `seen`: the decision applies only if the review still shows what the sponsor read. */
     seen: z.string({ error: "Reload the page, then decide." }).regex(/^[A-Za-z0-9_-]{16,64}$/, "Reload the page, then decide."),
   })

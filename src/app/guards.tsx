@@ -1,4 +1,5 @@
 import { Navigate, Outlet, useLocation, useParams } from "react-router-dom";
+import { inAppPath } from "@shared/auth/next-path";
 import { LoadError, Loading } from "../components/States";
 import { useMe } from "../lib/session";
 
@@ -19,7 +20,7 @@ export function RedirectIfSignedIn() {
   if (me.isPending) return <Loading />;
   if (me.data?.user) {
     const next = new URLSearchParams(location.search).get("next");
-    return <Navigate to={next ?? "/"} replace />;
+    return <Navigate to={inAppPath(next)} replace />;
   }
   return <Outlet />;
 }

@@ -2,6 +2,7 @@ import { createBrowserRouter, Link } from "react-router-dom";
 import { AuthCard } from "../components/AuthCard";
 import { SignInPage } from "../features/auth/components/SignInPage";
 import { SignUpPage } from "../features/auth/components/SignUpPage";
+import { VerifyEmailPage } from "../features/auth/components/VerifyEmailPage";
 import { AcceptInvitePage } from "../features/channels/components/AcceptInvitePage";
 import { MembersPage } from "../features/channels/components/MembersPage";
 import { NewChannelPage } from "../features/channels/components/NewChannelPage";
@@ -39,6 +40,7 @@ export const router = createBrowserRouter([
     ],
   },
   { path: "/invite/:token", element: <AcceptInvitePage /> },
+  { path: "/verify/:token", element: <VerifyEmailPage /> },
   { path: "/review/:token", element: <ReviewPage /> },
   {
     element: <RequireSignedIn />,

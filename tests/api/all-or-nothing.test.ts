@@ -4,7 +4,7 @@ import type { RouteSpec } from "../../server/http/route-table";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { createEpisode } from "../factories/episodes";
 import { allRecipes, fillPath, makeAccessWorld } from "../support/access-world";
-import { changedTables, refuseWritesTo, tableFingerprints } from "../support/table-fingerprints";
+import { changedTables, refuseWritesTo, tableFingerprints } from "../support/rows-snapshot";
 import { startTestApp, type TestApp } from "../support/test-app";
 import type { AccessWorld, Recipe } from "./access/matrix";
 

@@ -113,10 +113,14 @@ describe("signing up, in and out", () => {
     expect(response.body).toEqual({ error: { code: "unauthenticated", message: NO_MATCH } });
   });
 
-  it("when a visitor signs in, then the session cookie changes and the old cookie alone is not signed in", async () => {
+  it("when a visitor holding a session signs in, then the session cookie changes and the old cookie alone is not signed in", async () => {
     const person = await createUser(app.db);
+    const earlier = await createUser(app.db);
     const visitor = await app.visitor();
-    const before = sessionCookieOf(await visitor.get("/api/auth/me").expect(200));
+    // A visitor who is not signed in holds no session at all; one who is signs in again as someone else.
+    const first = await visitor.send("post", "/api/auth/sign-in", { email: earlier.email, password: earlier.password }).expect(200);
+    const before = sessionCookieOf(first);
+    visitor.csrf = first.body.csrfToken;
 
     const signIn = await visitor.send("post", "/api/auth/sign-in", { email: person.email, password: person.password }).expect(200);
     const after = sessionCookieOf(signIn);

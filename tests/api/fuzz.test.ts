@@ -4,6 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiRoutes } from "../../server/app";
 import type { RouteSpec } from "../../server/http/route-table";
 import { allRecipes, fillPath, makeAccessWorld } from "../support/access-world";
+import { rowsSnapshot } from "../support/rows-snapshot";
+import { cpuMsPerCall, deeplyNested, plainClient, timeRequests } from "../support/server-timing";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import type { AccessWorld, Recipe } from "./access/matrix";
 
@@ -25,20 +27,7 @@ const tally = { routes: 0, requests: 0, fiveHundreds: 0 };
 
 const routeName = (spec: RouteSpec) => `${spec.method.toUpperCase()} ${spec.path}`;
 
-/** Rows of every table but the session store (sessions roll on each request by design). */
-async function snapshot(): Promise<string> {
-  const tables = await app.database.pool.query<{ table_name: string }>(
-    "select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name <> 'session' order by 1",
-  );
-  const parts: string[] = [];
-  for (const { table_name } of tables.rows) {
-    const result = await app.database.pool.query<{ n: number; sum: string }>(
-      `select count(*)::int as n, coalesce(md5(string_agg(md5(t::text), '' order by md5(t::text))), '') as sum from "${table_name}" t`,
-    );
-    parts.push(`${table_name}:${result.rows[0]!.n}:${result.rows[0]!.sum}`);
-  }
-  return parts.join("\n");
-}
+const snapshot = () => rowsSnapshot(app);
 
 const weirdStrings = fc.oneof(
   fc.string({ maxLength: 40 }),
@@ -106,8 +95,57 @@ async function sendRaw(agent: Visitor, spec: RouteSpec, path: string, body: stri
   return agent.agent[spec.method](path).set("x-csrf-token", agent.csrf).set("content-type", contentType).send(body);
 }
 
+type Path = (string | number)[];
+type Json = unknown;
+
+/** Every value in a body (leaves, arrays and objects alike) with its path. */
+function nodes(value: Json, path: Path = []): { path: Path; value: Json }[] {
+  const inner = typeof value === "object" && value !== null ? Object.entries(value).flatMap(([key, v]) => nodes(v, [...path, Array.isArray(value) ? Number(key) : key])) : [];
+  return [{ path, value }, ...inner];
+}
+
+/** A copy of the body with the value at `path` replaced. */
+function replaced(body: Json, path: Path, value: Json): Json {
+  if (path.length === 0) return value;
+  const [head, ...rest] = path as [string | number, ...Path];
+  const copy = (Array.isArray(body) ? [...body] : { ...(body as object) }) as Record<string | number, Json>;
+  copy[head] = replaced(copy[head], rest, value);
+  return copy;
+}
+
+const isDateField = (path: Path) => /(Date|On|At)$|^day$/.test(String(path[path.length - 1] ?? ""));
+const extremeDates = ["9999-12-31", "0000-01-01", "1899-12-31", "2101-01-01", "+275760-09-13", "9999-12-31T23:59:59Z", "0000-01-01T00:00:00Z"];
+/** Text that shows nothing, or hides controls or direction overrides: refused by the text rule everywhere. */
+const hiddenTexts = ["\u200B\u200B\u200B", "\uFEFF\u200B", "\u2060\u200D", "\u3164", "x\u202Ey", "x\u2066y", "x\u0000y", "x\u0007y", "x\u0085y", "x\uD800y"];
+
+/**
+ * Bodies built from a route's valid body that the route must refuse: 6,000 and 33 levels deep, long
+ * arrays, each date field made extreme, each text field made hidden or invisible.
+ */
+function hostileBodies(valid: Record<string, Json>): { kind: string; body: Json | string }[] {
+  const all = nodes(valid).filter((n) => n.path.length > 0);
+  const firstKey = Object.keys(valid)[0] ?? "x";
+  const hostile: { kind: string; body: Json | string }[] = [
+    { kind: "deep", body: deeplyNested(6000, firstKey) },
+    { kind: "deep", body: deeplyNested(32, firstKey) },
+    { kind: "long array", body: new Array(20_000).fill(0) },
+  ];
+  for (const { path, value } of all) {
+    if (Array.isArray(value)) {
+      const element = value[0] ?? "x";
+      const count = Math.min(5_000, Math.max(200, Math.floor(50_000 / JSON.stringify(element).length)));
+      hostile.push({ kind: "long array", body: replaced(valid, path, new Array(count).fill(element)) });
+    }
+    if (isDateField(path)) for (const date of extremeDates) hostile.push({ kind: "extreme date", body: replaced(valid, path, date) });
+    if (typeof value === "string" && !/password/i.test(String(path[path.length - 1]))) {
+      for (const text of hiddenTexts) hostile.push({ kind: "hidden text", body: replaced(valid, path, text) });
+    }
+  }
+  return hostile;
+}
+
 beforeAll(async () => {
-  app = await startTestApp({ signInLimits: { perAccount: 10_000, perAddress: 100_000, windowMs: 60_000 } });
+  app = await startTestApp({ signInLimits: { perAccount: 10_000, perAddress: 100_000, signUpsPerAddress: 100_000, windowMs: 60_000 } });
   world = await makeAccessWorld(app);
   recipes = allRecipes(app, world);
   const elsewhere = await makeAccessWorld(app);
@@ -161,6 +199,49 @@ describe("bad input on every write route", () => {
       expect(await snapshot(), `${label} changed rows`).toBe(before);
       tally.routes++;
     }
+    expect(tally.fiveHundreds).toBe(0);
+  }, 600_000);
+
+  it("when each write route gets deep nesting, long arrays, extreme dates and invisible text, then every answer is a 4xx, no row changes, and 6,000 levels answer 400 for under 5 ms of CPU", async () => {
+    const timing = timeRequests(app.server);
+    const client = plainClient(app.server);
+    const deepCpu: number[] = [];
+    const seen = { deep: 0, "long array": 0, "extreme date": 0, "hidden text": 0 } as Record<string, number>;
+    try {
+      for (const spec of writes()) {
+        if (spec.body === "none") continue;
+        const recipe = recipes[routeName(spec)]!;
+        const agent = await app.signedIn(world.people.owner);
+        const prepared = (await recipe.prepare?.({ caller: "owner", person: world.people.owner })) ?? {};
+        const path = fillPath(spec.path, { channelId: world.channel.id, ...prepared.params });
+        const label = routeName(spec);
+        const before = await snapshot();
+        // A route that takes no body (a delete) ignores a parsed one; only a body too deep to parse must be refused.
+        const hostile = prepared.body === undefined ? hostileBodies({}).filter((h) => h.kind === "deep") : hostileBodies(prepared.body as Record<string, Json>);
+        for (const { kind, body } of hostile) {
+          const text = typeof body === "string" ? body : JSON.stringify(body);
+          const response = await agent.agent[spec.method](path).set("x-csrf-token", agent.csrf).set("content-type", "application/json").set("x-timing-label", kind).send(text);
+          expectRefusal(response, `${label} with ${kind} ${text.slice(0, 120)}`);
+          if (kind === "deep") expect(response.status, `${label} deep`).toBe(spec.body === "multipart" ? 415 : 400);
+          seen[kind]!++;
+        }
+        // The server's cost of a 6,000-deep body, on a connection of its own (refused before sessions load).
+        if (spec.body !== "multipart") deepCpu.push(await cpuMsPerCall(10, async () => expect((await client.send(spec.method.toUpperCase(), path, deeplyNested(6000))).status).toBe(400), 3));
+        expect(await snapshot(), `${label} changed rows`).toBe(before);
+      }
+    } finally {
+      timing.stop();
+      client.close();
+    }
+    const deep = timing.timings.filter((t) => t.label === "deep" && t.status === 400);
+    const isDeep = (t: { label: string }) => t.label === "deep";
+    const cpu = deepCpu.reduce((sum, ms) => sum + ms, 0) / deepCpu.length;
+    console.log(
+      `fuzz (hostile shapes): ${JSON.stringify(seen)}; a 6,000-deep body costs ${cpu.toFixed(2)} ms of CPU (server and client, average of ${deepCpu.length} routes) and takes ${timing.median(isDeep).toFixed(2)} ms from headers to answer (median; average ${timing.average(isDeep).toFixed(2)} ms)`,
+    );
+    expect(deep.length).toBeGreaterThan(100);
+    expect(seen["extreme date"]).toBeGreaterThan(0);
+    expect(cpu).toBeLessThan(5);
     expect(tally.fiveHundreds).toBe(0);
   }, 600_000);
 });

@@ -4,7 +4,7 @@ import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createContact, createDeal, createSponsor } from "../factories/sponsors";
 import { allRecipes, fillPath, makeAccessWorld } from "../support/access-world";
-import { changedTables, tableFingerprints } from "../support/table-fingerprints";
+import { changedTables, tableFingerprints } from "../support/rows-snapshot";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import type { AccessWorld, Recipe } from "./access/matrix";
 

@@ -103,6 +103,20 @@ describe("logging and marks", () => {
     expect(response.body.clip).toMatchObject({ tags: ["wiring", "close-up"], rating: "select", notes: "Good focus" });
   });
 
+  it("when crew delete someone else's mark, then it answers 403 and the mark stays; their own mark they may delete", async () => {
+    const clip = await createClip(app.db, world.channel.id, world.episode.id, { durationMs: 120_000 });
+    const url = `${world.base}/clips/${clip.id}/marks`;
+    const editors = (await world.as.editor.send("post", url, { in: "01:00:01;00", out: "01:00:02;00", note: "editor's pick" }).expect(201)).body.mark;
+    const refused = await world.as.crew.send("delete", `${url}/${editors.id}`).expect(403);
+    expect(refused.body.error.message).toBe("Crew can delete only the marks they made.");
+    expect((await world.as.editor.get(`${world.base}/clips/${clip.id}`).expect(200)).body.clip.marks.map((m: { id: string }) => m.id)).toEqual([editors.id]);
+
+    const own = (await world.as.crew.send("post", url, { in: "01:00:03;00", out: "01:00:04;00", note: "my slip" }).expect(201)).body.mark;
+    await world.as.crew.send("delete", `${url}/${own.id}`).expect(204);
+    await world.as.editor.send("delete", `${url}/${editors.id}`).expect(204);
+    expect((await world.as.editor.get(`${world.base}/clips/${clip.id}`).expect(200)).body.clip.markCount).toBe(0);
+  });
+
   it("when crew try to delete footage, then it answers 403 and the clip stays; an editor may", async () => {
     const clip = await createClip(app.db, world.channel.id, world.episode.id);
     const refused = await world.as.crew.send("delete", `${world.base}/clips/${clip.id}`).expect(403);

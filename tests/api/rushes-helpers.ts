@@ -1,3 +1,4 @@
+import { partRange } from "../../shared/rushes/limits";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import type { TestApp, Visitor } from "../support/test-app";
@@ -31,7 +32,8 @@ export function patternBytes(size: number, seed = 7): Buffer {
 
 /** Sends one part to its presigned URL as a browser would, and reports it to Kerf. */
 export async function sendPart(agent: Visitor, base: string, upload: { id: string; partSize: number }, bytes: Buffer, partNumber: number, report = true) {
-  const signed = await agent.send("post", `${base}/uploads/${upload.id}/part-urls`, { partNumbers: [partNumber] });
+  const { start: from, end: to } = partRange(partNumber, upload.partSize, bytes.length);
+  const signed = await agent.send("post", `${base}/uploads/${upload.id}/part-urls`, { parts: [{ partNumber, size: to - from }] });
   if (signed.status !== 200) throw new Error(`part-urls ${signed.status} ${JSON.stringify(signed.body)}`);
   const { url, start, end } = signed.body.urls[0] as { url: string; start: number; end: number };
   const put = await fetch(url, { method: "PUT", body: new Uint8Array(bytes.subarray(start, end)) });

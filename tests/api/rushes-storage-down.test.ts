@@ -1,11 +1,13 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { MiB } from "../../shared/rushes/limits";
+import { sweepAbandonedUploads } from "../../server/rushes/uploads.service";
 import type { Storage } from "../../server/storage/storage";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { patternBytes, rushesWorld, sendPart, uploadFile } from "./rushes-helpers";
 
 /** The real stand-in, with a switch that makes every call fail as an unreachable store does. */
-const faults = { down: false, refuseParts: false };
+const calm = { down: false, refuseParts: false, unreachableKey: null as string | null };
+const faults = { ...calm };
 const unreachable = () => Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:9"), { code: "ECONNREFUSED" });
 
 function switchable(real: Storage): Storage {
@@ -23,11 +25,14 @@ function switchable(real: Storage): Storage {
     presignPart: wrap(real.presignPart),
     completeMultipart: async (key, uploadId, parts) => {
       if (faults.down) throw unreachable();
-      // What AWS answers for a list naming a part it doesn't hold (the stand-in checks no ETags).
+      // What a store answers for a list naming a part it doesn't hold, without sending a wrong ETag.
       if (faults.refuseParts) throw Object.assign(new Error("One or more of the specified parts could not be found."), { name: "InvalidPart", $metadata: { httpStatusCode: 400 } });
       return real.completeMultipart(key, uploadId, parts);
     },
-    abortMultipart: wrap(real.abortMultipart),
+    discardUpload: async (key, uploadId) => {
+      if (faults.down || faults.unreachableKey === key) throw unreachable();
+      return real.discardUpload(key, uploadId);
+    },
     head: wrap(real.head),
     presignGet: wrap(real.presignGet),
     putStream: wrap(real.putStream),
@@ -44,10 +49,7 @@ beforeAll(async () => {
 });
 afterAll(() => app.close());
 // A test that fails while a switch is on must not leave storage "down" for the tests after it.
-afterEach(() => {
-  faults.down = false;
-  faults.refuseParts = false;
-});
+afterEach(() => Object.assign(faults, calm));
 
 const count = async (table: string) => (await app.database.pool.query(`select count(*)::int as n from ${table}`)).rows[0].n as number;
 
@@ -123,3 +125,38 @@ describe("when storage refuses the recorded parts", () => {
     expect((await app.database.pool.query("select 1 from clips where file_name = 'refused.mov'")).rows).toEqual([]);
   });
 });
+
+describe("when storage can't discard one abandoned upload", () => {
+  it("then the sweep leaves that one open for the next run and abandons the rest", async () => {
+    const ids: string[] = [];
+    for (const fileName of ["stuck.mov", "gone.mov"]) {
+      const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName, size: 1000 }).expect(201);
+      ids.push(started.body.upload.id);
+    }
+    await app.database.pool.query("update uploads set last_activity_at = now() - interval '25 hours' where id = any($1)", [ids]);
+    const status = async () => (await app.database.pool.query("select file_name, status from uploads where id = any($1) order by file_name", [ids])).rows;
+    faults.unreachableKey = (await app.database.pool.query("select object_key from uploads where id = $1", [ids[0]])).rows[0].object_key;
+
+    expect(await sweepAbandonedUploads({ db: app.db, storage: app.deps.storage })).toMatchObject({ abandoned: 1, deferred: 1 });
+    expect(await status()).toEqual([
+      { file_name: "gone.mov", status: "abandoned" },
+      { file_name: "stuck.mov", status: "uploading" },
+    ]);
+    faults.unreachableKey = null;
+    expect(await sweepAbandonedUploads({ db: app.db, storage: app.deps.storage })).toMatchObject({ abandoned: 1, deferred: 0 });
+    expect((await status()).map((r) => r.status)).toEqual(["abandoned", "abandoned"]);
+  });
+});
+
+describe("when storage is down as an upload is cancelled", () => {
+  it("then it answers 503 and the upload stays open, to be cancelled again or swept", async () => {
+    const started = await world.as.crew.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "later-cancel.mov", size: 1000 }).expect(201);
+    faults.down = true;
+    const response = await world.as.crew.send("delete", `${world.base}/uploads/${started.body.upload.id}`);
+    faults.down = false;
+    expect(response.status).toBe(503);
+    expect((await app.database.pool.query("select status from uploads where id = $1", [started.body.upload.id])).rows).toEqual([{ status: "uploading" }]);
+    await world.as.crew.send("delete", `${world.base}/uploads/${started.body.upload.id}`).expect(200);
+  });
+});
+

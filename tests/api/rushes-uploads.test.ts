@@ -57,7 +57,11 @@ describe("starting an upload", () => {
 describe("presigned part URLs", () => {
   it("when parts are signed, then each URL is for one part, signed, short-lived and carries no checksum", async () => {
     const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "b.mp4", size: 20 * MiB }).expect(201);
-    const signed = await world.as.editor.send("post", `${world.base}/uploads/${started.body.upload.id}/part-urls`, { partNumbers: [1, 3] }).expect(200);
+    const parts = [
+      { partNumber: 1, size: 8 * MiB },
+      { partNumber: 3, size: 4 * MiB },
+    ];
+    const signed = await world.as.editor.send("post", `${world.base}/uploads/${started.body.upload.id}/part-urls`, { parts }).expect(200);
     expect(signed.body.urls.map((u: { partNumber: number }) => u.partNumber)).toEqual([1, 3]);
     expect(signed.body.urls[1]).toMatchObject({ start: 16 * MiB, end: 20 * MiB });
     for (const { url, partNumber } of signed.body.urls as { url: string; partNumber: number }[]) {
@@ -69,14 +73,25 @@ describe("presigned part URLs", () => {
       expect(params.get("uploadId")).toBeTruthy();
       // The SDK's default would sign the checksum of an empty body, which real stores reject for a part.
       expect([...params.keys()].filter((k) => /checksum/i.test(k))).toEqual([]);
-      expect(params.get("X-Amz-SignedHeaders")).toBe("host");
+      // The part's length is signed: storage takes exactly those bytes (rushes-signed-urls.test.ts).
+      expect(params.get("X-Amz-SignedHeaders")).toBe("content-length;host");
     }
   });
 
   it("when a part number is outside the file, then it answers 400", async () => {
     const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "c.mp4", size: 9 * MiB }).expect(201);
-    const response = await world.as.editor.send("post", `${world.base}/uploads/${started.body.upload.id}/part-urls`, { partNumbers: [3] }).expect(400);
+    const response = await world.as.editor.send("post", `${world.base}/uploads/${started.body.upload.id}/part-urls`, { parts: [{ partNumber: 3, size: 1 }] }).expect(400);
     expect(response.body.error.message).toBe("This file has parts 1 to 2.");
+  });
+
+  it("when a part's size is not the one the file's plan gives it, then it answers 400 and signs nothing", async () => {
+    const started = await world.as.editor.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "d.mp4", size: 9 * MiB }).expect(201);
+    const url = `${world.base}/uploads/${started.body.upload.id}/part-urls`;
+    const response = await world.as.editor.send("post", url, { parts: [{ partNumber: 2, size: 20 * MiB }] }).expect(400);
+    expect(response.body.error).toMatchObject({ message: `Part 2 should be ${MiB} bytes, not ${20 * MiB}.`, fields: { size: `Part 2 should be ${MiB} bytes.` } });
+    expect(response.body.urls).toBeUndefined();
+    const unsized = await world.as.editor.send("post", url, { parts: [{ partNumber: 1 }] }).expect(400);
+    expect(unsized.body.error.fields["parts.0.size"]).toBe("Give each part's size in bytes.");
   });
 });
 
@@ -150,14 +165,12 @@ describe("completing an upload", () => {
 });
 
 describe("cancelling and abandoned uploads", () => {
-  it("when an upload is cancelled, then it is marked cancelled even though the stand-in can't abort, and takes no more parts", async () => {
+  it("when an upload is cancelled, then storage aborts it, it is marked cancelled, and takes no more parts", async () => {
     const started = await world.as.crew.send("post", `${world.base}/uploads`, { episodeId: world.episode.id, fileName: "cancel.mov", size: 9 * MiB }).expect(201);
     const id = started.body.upload.id;
     const response = await world.as.crew.send("delete", `${world.base}/uploads/${id}`).expect(200);
-    // s3rver 3.7.1 answers AbortMultipartUpload with 405 (lib/routes.js: a DELETE with ?uploadId falls through to
-    // MethodNotAllowed); Kerf says so and marks it anyway.
-    expect(response.body).toEqual({ status: "cancelled", storage: "unsupported" });
-    expect((await world.as.crew.send("post", `${world.base}/uploads/${id}/part-urls`, { partNumbers: [1] }).expect(409)).body.error.message).toBe(
+    expect(response.body).toEqual({ status: "cancelled", storage: "aborted" });
+    expect((await world.as.crew.send("post", `${world.base}/uploads/${id}/part-urls`, { parts: [{ partNumber: 1, size: 8 * MiB }] }).expect(409)).body.error.message).toBe(
       "This upload was cancelled; start the file again.",
     );
     await world.as.crew.send("post", `${world.base}/uploads/${id}/complete`, {}).expect(409);

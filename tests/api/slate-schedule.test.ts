@@ -78,7 +78,7 @@ describe("overriding one due date", () => {
     const publish = await agent.send("put", `/api/channels/${channel.id}/episodes/${made.id}/due-dates/publish`, { version: 1, dueDate: "2027-03-09" }).expect(400);
     expect(publish.body.error.fields.stage).toMatch(/target publish date/);
     const badDate = await agent.send("put", `/api/channels/${channel.id}/episodes/${made.id}/due-dates/edit`, { version: 1, dueDate: "2027-02-31" }).expect(400);
-    expect(badDate.body.error.fields).toEqual({ dueDate: "Pick a real date (YYYY-MM-DD)." });
+    expect(badDate.body.error.fields).toEqual({ dueDate: "That date doesn't exist." });
     await agent.send("put", `/api/channels/${channel.id}/episodes/${made.id}/due-dates/lunch`, { version: 1, dueDate: "2027-02-26" }).expect(404);
   });
 });

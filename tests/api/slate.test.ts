@@ -67,10 +67,10 @@ describe("creating an episode", () => {
     expect(response.body.error.code).toBe("validation_failed");
     expect(response.body.error.fields).toEqual({
       title: "Give the episode a working title.",
-      question: "Keep the question to one line.",
+      question: "Keep this to one line.",
       budgetAmount: "Write the budget as a number, e.g. 250 or 249.99.",
       budgetCurrency: "Pick the budget's currency.",
-      targetPublishDate: "Pick a real date (YYYY-MM-DD).",
+      targetPublishDate: "That date doesn't exist.",
       "tags.1": "Tags are words: letters, digits, spaces and dashes.",
       originLink: "Paste the link to the viewer's suggestion.",
     });

@@ -36,7 +36,7 @@ beforeAll(async () => {
   for (let i = 0; i < 2; i++) {
     const app = await startTestApp({ database, smtpPort });
     const handle = connectDatabase(database.url);
-    instances.push({ app, handle, deps: { db: handle.db, pool: handle.pool, jobs: app.jobs, appUrl: "http://kerf.test" } });
+    instances.push({ app, handle, deps: { db: handle.db, jobs: app.jobs, appUrl: "http://kerf.test" } });
   }
 });
 afterAll(async () => {

@@ -34,7 +34,7 @@ async function sentLink(options: { contactEmail?: string } = {}) {
   const contact = await createContact(app.db, world.channel.id, sponsor.id, { name: "Rosa Lindgren", email: options.contactEmail ?? uniqueEmail("rosa") });
   const made = await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, contactId: contact.id, publishDate: "2027-07-15", script: SCRIPT, fee: "9876.00" });
   const item = made.items.find((i) => i.kind === "script_approval")!;
-  const sent = await producer.send("post", api(`/deals/${made.deal.id}/review-links`), { deliverableId: item.id, contactId: contact.id, expiresInDays: 7, message: "Here is the read." }).expect(201);
+  const sent = await producer.send("post", api(`/deals/${made.deal.id}/review-links`), { deliverableId: item.id, contactId: contact.id, expiresInDays: 7 }).expect(201);
   const token = (sent.body.url as string).split("/review/")[1]!;
   return { episode, sponsor, contact, deal: made.deal, items: made.items, item, link: sent.body.link, url: sent.body.url as string, token };
 }
@@ -54,6 +54,31 @@ describe("sending a review link", () => {
     const deal = (await producer.get(api(`/deals/${sent.deal.id}`)).expect(200)).body.deal as DealView;
     expect(deal.reviewLinks![0]).toMatchObject({ state: "open", contactName: "Rosa Lindgren", deliverableTitle: "Sponsor approves the script" });
     expect(deal.deliverables.find((d) => d.id === sent.item.id)!.history[0]).toMatchObject({ what: "review_sent", toStatus: "sent" });
+  });
+
+  it("when the sender adds words of their own, then it is refused, and the mail to the sponsor carries only Kerf's words and the names", async () => {
+    const email = uniqueEmail("rosa");
+    const sent = await sentLink({ contactEmail: email });
+    const withMessage = await producer
+      .send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: sent.contact.id, message: "Urgent: pay the invoice at http://elsewhere.example" })
+      .expect(400);
+    expect(withMessage.body.error.code).toBe("validation_failed");
+    expect(await app.database.pool.query("select 1 from review_links where deal_id = $1", [sent.deal.id])).toHaveProperty("rowCount", 1);
+
+    const mail = await waitForMail(email);
+    expect(mail.text).toBe(
+      [
+        "Hello Rosa Lindgren,",
+        "",
+        `Pim Producer of Review Bench asks you to review "Sponsor approves the script" for Northbeam Tools's segment in "Ripple test".`,
+        "",
+        "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
+        sent.url,
+        "",
+        `The link is for this one deal, works for one decision, and expires on ${new Date(sent.link.expiresAt).toUTCString()}.`,
+        "",
+      ].join("\n"),
+    );
   });
 
   it("when the item is a money item or the contact is someone else's, then it is refused and nothing is sent", async () => {

@@ -26,6 +26,10 @@ test("the signed-out pages and the members page pass axe-core and the content se
   await expect(page.getByRole("heading", { name: "Members" })).toBeVisible();
   await expectNoSeriousA11yViolations(page, "members");
 
+  await page.goto(`/verify/${"x".repeat(43)}`);
+  await expect(page.getByText("confirmation link is not valid")).toBeVisible();
+  await expectNoSeriousA11yViolations(page, "confirmation link that isn't valid");
+
   await page.goto("/invite/not-a-real-token");
   await expect(page.getByText("not valid")).toBeVisible();
   await expectNoSeriousA11yViolations(page, "invitation that isn't valid");

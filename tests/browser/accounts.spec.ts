@@ -38,7 +38,8 @@ test("a newcomer starts a channel, signs out and signs back in", async ({ page }
   await expect(page.getByLabel("Channel", { exact: true })).toHaveValue(/.+/);
 });
 
-test("an owner invites a crew member, who joins from the e-mailed link", async ({ page, browser }) => {
+test("an owner confirms their address, invites a crew member, who joins from the e-mailed link", async ({ page, browser }) => {
+  test.setTimeout(120_000);
   const ownerEmail = uniqueEmail("owner");
   const crewEmail = uniqueEmail("crew");
   await page.goto("/sign-up");
@@ -49,6 +50,30 @@ test("an owner invites a crew member, who joins from the e-mailed link", async (
   await page.getByRole("button", { name: "Create account and channel" }).click();
   await page.getByRole("link", { name: "Members" }).click();
   await expect(page.getByRole("heading", { name: "Members" })).toBeVisible();
+
+  // Until the owner's own address is confirmed, Kerf sends no invitation for them, and says why.
+  const confirmNotice = page.getByRole("region", { name: "Confirm your address" });
+  await expect(confirmNotice).toContainText(ownerEmail);
+  await page.getByLabel("E-mail", { exact: true }).fill(crewEmail);
+  await page.getByLabel("Role", { exact: true }).selectOption("crew");
+  await page.getByRole("button", { name: "Send invitation" }).click();
+  await expect(page.getByRole("alert")).toContainText("Confirm your e-mail address first");
+  await confirmNotice.getByRole("button", { name: "Send the mail again" }).click();
+  await expect(confirmNotice.getByRole("status")).toContainText(`Sent to ${ownerEmail}`);
+  await snap(page, "05a-confirm-address-first");
+  await page.setViewportSize({ width: 390, height: 844 });
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await snap(page, "05a-confirm-address-first-phone");
+  await page.setViewportSize({ width: 1280, height: 720 });
+
+  const confirmation = await latestMailTo(ownerEmail);
+  await page.goto(confirmation.text.match(/https?:\/\/\S+\/verify\/\S+/)![0]);
+  await expect(page.getByRole("heading", { name: "Address confirmed" })).toBeVisible();
+  await snap(page, "05b-address-confirmed");
+  await page.getByRole("link", { name: "Go to Kerf" }).click();
+  await page.getByRole("link", { name: "Members" }).click();
+  await expect(page.getByRole("heading", { name: "Members" })).toBeVisible();
+  await expect(confirmNotice).toHaveCount(0);
 
   await page.getByLabel("E-mail", { exact: true }).fill(crewEmail);
   await page.getByLabel("Role", { exact: true }).selectOption("crew");
@@ -62,6 +87,14 @@ test("an owner invites a crew member, who joins from the e-mailed link", async (
   // The link leads to this server's own invitation page.
   expect(link, mail.text).toMatch(/\/invite\/\S+$/);
   expect(new URL(link!).origin).toBe(new URL(page.url()).origin);
+
+  // The link is for the crew member's address: the signed-in owner is told so, with nothing to press.
+  await page.goto(link!);
+  await expect(page.getByRole("alert")).toContainText(`This invitation is for ${crewEmail}`);
+  await expect(page.getByRole("button", { name: /Join as/ })).toHaveCount(0);
+  await snap(page, "05c-invitation-for-another-address");
+  await page.goBack();
+  await expect(page.getByRole("heading", { name: "Members" })).toBeVisible();
 
   const crewContext = await browser.newContext();
   const crew = await crewContext.newPage();

@@ -6,7 +6,8 @@ import { channels, memberships, users } from "../../server/db/schema/accounts";
 
 export const FACTORY_PASSWORD = "correct-horse-battery";
 
-export async function createUser(db: Database, overrides: { email?: string; name?: string; password?: string; timeZone?: string } = {}) {
+/** An account whose address is confirmed, unless `verified: false` (then Kerf sends nothing to others for it). */
+export async function createUser(db: Database, overrides: { email?: string; name?: string; password?: string; timeZone?: string; verified?: boolean } = {}) {
   const password = overrides.password ?? FACTORY_PASSWORD;
   const [user] = await db
     .insert(users)
@@ -15,6 +16,7 @@ export async function createUser(db: Database, overrides: { email?: string; name
       name: overrides.name ?? "Test Person",
       timeZone: overrides.timeZone ?? "UTC",
       passwordHash: await hashPassword(password),
+      emailVerifiedAt: overrides.verified === false ? null : new Date(),
     })
     .returning();
   if (!user) throw new Error("user insert returned nothing");

@@ -2,7 +2,7 @@ import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { addDays } from "date-fns";
 import type { Role } from "../../shared/access/roles";
 import type { Database } from "../../server/db/client";
-import { invitations } from "../../server/db/schema/accounts";
+import { emailVerifications, invitations } from "../../server/db/schema/accounts";
 
 /** An address nobody else in the run uses, so tests never read each other's mail or rows. */
 export function uniqueEmail(label = "person"): string {
@@ -33,4 +33,11 @@ export async function createInvitation(
     .returning();
   if (!row) throw new Error("invitation insert returned nothing");
   return { ...row, token };
+}
+
+/** An open address-confirmation link for this account, made straight in the database; answers its token. */
+export async function createVerification(db: Database, user: { id: string; email: string }, expiresAt = addDays(new Date(), 1)): Promise<string> {
+  const token = randomBytes(32).toString("base64url");
+  await db.insert(emailVerifications).values({ userId: user.id, email: user.email, tokenHash: sha256Hex(token), expiresAt });
+  return token;
 }

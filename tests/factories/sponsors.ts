@@ -1,8 +1,11 @@
 import { randomUUID } from "node:crypto";
+import { eq } from "drizzle-orm";
+import { shiftDate } from "../../shared/sponsors/dates";
 import { generateDeliverables, suggestedTemplateItems, type TemplateItem } from "../../shared/sponsors/deliverables";
-import type { DeliverableStatus } from "../../shared/sponsors/deliverables";
+import type { DeliverableKind, DeliverableStatus } from "../../shared/sponsors/deliverables";
 import type { Database } from "../../server/db/client";
 import { dealTemplates, deals, deliverables, sponsorContacts, sponsors } from "../../server/db/schema/sponsors";
+import { createEpisode } from "./episodes";
 
 export async function createSponsor(db: Database, channelId: string, overrides: { company?: string; website?: string | null } = {}) {
   const [sponsor] = await db
@@ -93,4 +96,26 @@ export async function createDeal(db: Database, channelId: string, episodeId: str
         .returning()
     : [];
   return { deal: deal!, items };
+}
+
+/**
+ * One hand-dated item owned by a member, due on `dueDate`, on a deal of its own (what a reminder test
+ * needs): the episode publishes a month later, so nothing else on the deal is due.
+ */
+export async function createItemDue(
+  db: Database,
+  channelId: string,
+  input: { ownerId: string; dueDate: string; title: string; company?: string; episodeTitle?: string; kind?: DeliverableKind },
+) {
+  const publishDate = shiftDate(input.dueDate, 30);
+  const episode = await createEpisode(db, channelId, { title: input.episodeTitle ?? `${input.title} episode`, targetPublishDate: publishDate });
+  const sponsor = await createSponsor(db, channelId, { company: input.company ?? "Test Sponsor" });
+  const made = await createDeal(db, channelId, episode.id, {
+    sponsorId: sponsor.id,
+    ownerId: input.ownerId,
+    publishDate,
+    items: [{ kind: input.kind ?? "other", title: input.title, anchor: "before_publish", offsetDays: 0, ownerRole: null }],
+  });
+  const [item] = await db.update(deliverables).set({ anchor: "fixed", dueDate: input.dueDate }).where(eq(deliverables.id, made.items[0]!.id)).returning();
+  return { episode, sponsor, deal: made.deal, item: item! };
 }

@@ -14,20 +14,51 @@ export interface JobRecord {
   state: JobState;
 }
 
+/** A job with what it carries and what it recorded when it finished. */
+export interface JobRow extends JobRecord {
+  data: { kind?: string; fairKey?: string; data?: Record<string, unknown> } & Record<string, unknown>;
+  output: Record<string, unknown> | null;
+  priority: number;
+  completed_on: Date | null;
+}
+
 const FINISHED: JobState[] = ["completed", "failed", "cancelled"];
 
-async function jobsWhere(pool: pg.Pool, condition: string, values: unknown[]): Promise<JobRecord[]> {
-  const columns = "id::text, state::text, created_on";
-  const { rows } = await pool.query<JobRecord>(
-    `select id, state from (select ${columns} from pgboss.job where ${condition} union all select ${columns} from pgboss.archive where ${condition}) jobs order by created_on, id`,
+async function jobsWhere<T extends JobRecord = JobRecord>(pool: pg.Pool, condition: string, values: unknown[], columns: string[] = []): Promise<T[]> {
+  const all = ["id::text", "state::text", "created_on", ...columns].join(", ");
+  const { rows } = await pool.query<T>(
+    `select * from (select ${all} from pgboss.job where ${condition} union all select ${all} from pgboss.archive where ${condition}) jobs order by created_on, id`,
     values,
   );
   return rows;
 }
 
-/** Every mail job addressed to `address`, oldest first. */
+const JOB_ROW = ["data", "output", "priority", "completed_on"];
+
+/**
+ * Every mail job addressed to `address`, oldest first. A queued mail names what to send, not its
+ * recipient (server/mail/mail-jobs.ts), so the address is read through the row each kind names.
+ */
 export function mailJobsTo(pool: pg.Pool, address: string): Promise<JobRecord[]> {
-  return jobsWhere(pool, "name = $1 and lower(data->>'to') = lower($2)", [MAIL_QUEUE, address]);
+  const to = `name = $1 and (
+    lower(data->>'to') = lower($2)
+    or (data->>'kind' in ('member', 'verification') and data->'data'->>'userId' in (select id::text from users where lower(email) = lower($2)))
+    or (data->>'kind' = 'invitation' and data->'data'->>'invitationId' in (select id::text from invitations where lower(email) = lower($2)))
+    or (data->>'kind' = 'review-link' and data->'data'->>'linkId' in (select id::text from review_links where lower(contact_email) = lower($2)))
+  )`;
+  return jobsWhere(pool, to, [MAIL_QUEUE, address]);
+}
+
+/** The jobs of one pg-boss queue with their data and output, oldest first. */
+export function jobsIn(pool: pg.Pool, queue: string): Promise<JobRow[]> {
+  return jobsWhere<JobRow>(pool, "name = $1", [queue], JOB_ROW);
+}
+
+/** Waits until at least `count` jobs of the queue that `matches` have settled (completed or failed), and returns them. */
+export async function settledJobs(pool: pg.Pool, queue: string, matches: (job: JobRow) => boolean, count: number, timeoutMs = 30_000): Promise<JobRow[]> {
+  const settled = async () => (await jobsIn(pool, queue)).filter((job) => matches(job) && ["completed", "failed"].includes(job.state));
+  await expect.poll(async () => (await settled()).length, { timeout: timeoutMs, interval: 100, message: `${count} settled ${queue} jobs` }).toBeGreaterThanOrEqual(count);
+  return settled();
 }
 
 /** The recorded state of each job, in the order asked ("missing" for an id pg-boss doesn't hold). */

@@ -1,6 +1,6 @@
 import type { Server } from "node:http";
 import request from "supertest";
-import { createApp } from "../../server/app";
+import { createApp, mailRenderers } from "../../server/app";
 import { readEnv } from "../../server/env";
 import { startJobs, type Jobs } from "../../server/jobs/queue";
 import { createMailer } from "../../server/mail/mailer";
@@ -17,6 +17,8 @@ export interface TestApp {
   db: TestDatabase["db"];
   deps: AppDeps;
   jobs: Jobs;
+  /** Starts this app's mail worker (already running unless the app was started with `holdMail`). */
+  startMailWorker(): Promise<void>;
   /** A visitor with its own cookie jar, holding a CSRF token. */
   visitor(): Promise<Visitor>;
   /** A visitor already signed in as this person. */
@@ -41,6 +43,10 @@ export interface TestAppOptions {
   smtpPort?: number;
   /** A storage stand-in of the test's own (e.g. one it stops and starts). */
   s3?: { endpoint: string; bucket: string; accessKeyId: string; secretAccessKey: string };
+  /** Behind a proxy: the caller's address is read from X-Forwarded-For, so a test can call from several. */
+  trustProxy?: boolean;
+  /** Queue mail but send none until the test calls `startMailWorker` (to line up a queue first). */
+  holdMail?: boolean;
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
@@ -55,14 +61,17 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     S3_BUCKET: (options.s3 ?? testEnv.s3).bucket,
     S3_ACCESS_KEY_ID: (options.s3 ?? testEnv.s3).accessKeyId,
     S3_SECRET_ACCESS_KEY: (options.s3 ?? testEnv.s3).secretAccessKey,
+    TRUST_PROXY: options.trustProxy ? "true" : "false",
   });
   const mailer = createMailer(env);
-  const jobs = await startJobs({ databaseUrl: database.url, mailer, runWorkers: true, pollSeconds: 0.5 });
+  const jobs = await startJobs({ databaseUrl: database.url, mailer, pollSeconds: 0.5 });
   const realStorage = createS3Storage(storageSettingsFrom(env));
   // A test may wrap the real store (e.g. to take it down mid-request).
   const storage = options.storage ? options.storage(realStorage) : realStorage;
   const deps: AppDeps = { env, database, mailer, jobs, storage };
-  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, windowMs: 60_000 } });
+  const startMailWorker = () => jobs.startMailWorker(mailRenderers(deps));
+  if (!options.holdMail) await startMailWorker();
+  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, signUpsPerAddress: 1000, windowMs: 60_000 } });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });
@@ -91,6 +100,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     db: database.db,
     deps,
     jobs,
+    startMailWorker,
     visitor,
     async signedIn(person) {
       const v = await visitor();

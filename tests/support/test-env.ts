@@ -1,6 +1,7 @@
 /**
  * What `npm test` hands to every test process (dev-services/test-run.ts sets these): the test
- * cluster, the migrated template database, the mail stand-in and the S3 stand-in.
+ * cluster, the migrated template database, the mail stand-in, the S3 stand-in and the payments
+ * stand-in.
  */
 function required(name: string): string {
   const value = process.env[name];
@@ -28,6 +29,18 @@ export const testEnv = {
       bucket: required("KERF_TEST_S3_BUCKET"),
       accessKeyId: required("KERF_TEST_S3_ACCESS_KEY_ID"),
       secretAccessKey: required("KERF_TEST_S3_SECRET_ACCESS_KEY"),
+    };
+  },
+  /**
+   * The payments stand-in (dev-services/payments/): its URL, the default account's secret key and
+   * webhook signing secret. A test file that wants objects of its own makes its own account
+   * (tests/support/payments.ts, createPaymentsAccount).
+   */
+  get payments() {
+    return {
+      apiUrl: required("KERF_TEST_PAYMENTS_API_URL"),
+      secretKey: required("KERF_TEST_PAYMENTS_SECRET_KEY"),
+      webhookSecret: required("KERF_TEST_PAYMENTS_WEBHOOK_SECRET"),
     };
   },
 };

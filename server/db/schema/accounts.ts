@@ -11,6 +11,8 @@ export const users = pgTable("users", {
   name: text("name").notNull(),
   passwordHash: text("password_hash").notNull(),
   timeZone: text("time_zone").notNull().default("UTC"),
+  // Set when the person opened the link mailed to this address: until then Kerf sends nothing to others on their behalf.
+  emailVerifiedAt: timestamp("email_verified_at", { withTimezone: true }),
   createdAt: createdAt(),
 });
 
@@ -58,9 +60,32 @@ export const invitations = pgTable(
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     acceptedBy: personRef("accepted_by"),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    // Closed without use because its addressee joined the channel another way (another invitation).
+    closedAt: timestamp("closed_at", { withTimezone: true }),
     createdAt: createdAt(),
   },
-  (table) => [index("invitations_channel_idx").on(table.channelId)],
+  (table) => [index("invitations_channel_idx").on(table.channelId), index("invitations_channel_email_idx").on(table.channelId, table.email)],
+);
+
+/**
+ * Links that confirm an account's address. Only the SHA-256 of a link's token is kept, and the token is
+ * made when the mail is sent (never stored in the mail queue); each link works once and expires.
+ */
+export const emailVerifications = pgTable(
+  "email_verifications",
+  {
+    id: id(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    // The address the link was mailed to: a link confirms that address and no other.
+    email: text("email").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (table) => [index("email_verifications_user_idx").on(table.userId)],
 );
 
 /** The table connect-pg-simple expects, owned by our migrations rather than created at run time. */

@@ -58,7 +58,7 @@ export const shots = pgTable(
   (t) => [index("shots_channel_episode_idx").on(t.channelId, t.episodeId, t.position), index("shots_shoot_day_idx").on(t.shootDayId)],
 );
 
-/** One presigned multipart upload, from its start to completion, cancellation or abandonment. */
+/** One presigned multipart upload, from its start to completion, cancellation, abandonment or refusal. */
 export const uploads = pgTable(
   "uploads",
   {

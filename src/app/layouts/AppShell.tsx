@@ -3,6 +3,7 @@ import { roleLabels, roleMay } from "@shared/access/roles";
 import { Wordmark } from "../../components/Wordmark";
 import { useCurrentChannel, useMe } from "../../lib/session";
 import { useSignOut } from "../../features/auth/api/session-mutations";
+import { ConfirmAddressNotice } from "../../features/auth/components/ConfirmAddressNotice";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
 import { channelNav } from "../nav";
 
@@ -53,6 +54,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
+      <ConfirmAddressNotice />
       <main id="main" className="mx-auto max-w-[96rem] px-4 py-6">
         <Outlet />
       </main>

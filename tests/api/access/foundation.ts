@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { expect } from "vitest";
 import { addMember, createChannel, createUser } from "../../factories/accounts";
-import { createInvitation, uniqueEmail } from "../../factories/invitations";
+import { createInvitation, createVerification, uniqueEmail } from "../../factories/invitations";
 import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matrix";
 
 /*
@@ -17,6 +17,8 @@ export const access: FeatureAccess = {
     ["POST /api/auth/sign-in",                                     ok,   ok,   ok,   ok,   ok,   ok],
     ["POST /api/auth/sign-up",                                     ok,   ok,   ok,   ok,   ok,   ok],
     ["POST /api/auth/sign-out",                                    401,  ok,   ok,   ok,   ok,   ok],
+    ["POST /api/auth/verify-email",                                ok,   ok,   ok,   ok,   ok,   ok],
+    ["POST /api/auth/verification-mail",                           401,  ok,   ok,   ok,   ok,   ok],
     ["POST /api/channels",                                         401,  ok,   ok,   ok,   ok,   ok],
     ["GET /api/channels/:channelId/members",                       401,  ok,   ok,   403,  403,  404],
     ["POST /api/channels/:channelId/invitations",                  401,  ok,   403,  403,  403,  404],
@@ -63,6 +65,15 @@ function foundationRecipes({ app, world }: AccessContext): Record<string, Recipe
       prepare: async () => ({ body: { name: "New Host", email: uniqueEmail("matrix-signup"), password: "a-long-enough-password", channelName: "New Rig" } }),
     },
     "POST /api/auth/sign-out": { ok: 200 },
+    "POST /api/auth/verify-email": {
+      ok: 200,
+      // A fresh account's own link: anyone holding it may open it, signed in or not.
+      prepare: async () => {
+        const fresh = await createUser(app.db, { verified: false });
+        return { body: { token: await createVerification(app.db, fresh) } };
+      },
+    },
+    "POST /api/auth/verification-mail": { ok: 200 },
     "POST /api/channels": {
       ok: 201,
       prepare: async () => {

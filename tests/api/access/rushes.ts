@@ -7,7 +7,8 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
 /*
  * The spec's role table, by hand:
  * - footage (upload, log, marks, export): owner, producer, editor W; crew W for upload and log,
- *   but no delete (the role table's "footageRemoval" area: deleting a clip);
+ *   but no delete (the role table's "footageRemoval" area: deleting a clip; of the marks only their
+ *   own, and the matrix's mark is someone else's);
  * - shoot days and the shot list: all four W.
  * "outsider" is the owner of another channel: 404, never 403.
  * The two photo routes take multipart forms; the matrix sends none, so a caller let through meets
@@ -39,7 +40,7 @@ export const access: FeatureAccess = {
     [`POST ${clip}/poster`,                            401,  ok,   ok,   ok,   ok,   404],
     [`POST ${clip}/marks`,                             401,  ok,   ok,   ok,   ok,   404],
     [`PATCH ${clip}/marks/:markId`,                    401,  ok,   ok,   ok,   ok,   404],
-    [`DELETE ${clip}/marks/:markId`,                   401,  ok,   ok,   ok,   ok,   404],
+    [`DELETE ${clip}/marks/:markId`,                   401,  ok,   ok,   ok,   403,  404],
     [`POST ${C}/stills`,                               401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/stills/:stillId`,                       401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/episodes/:episodeId/shoot-days`,        401,  ok,   ok,   ok,   ok,   404],
@@ -71,7 +72,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       .values({ channelId, episodeId, createdBy, fileName: "matrix.mov", contentType: "video/quicktime", sizeBytes: 100, partSize: 8 * 1024 * 1024, partCount: 1, objectKey, storageUploadId })
       .returning();
     if (stored) {
-      const put = await fetch(await app.deps.storage.presignPart(objectKey, storageUploadId, 1, 60), { method: "PUT", body: Buffer.alloc(100, 3) });
+      const put = await fetch(await app.deps.storage.presignPart(objectKey, storageUploadId, 1, 100, 60), { method: "PUT", body: Buffer.alloc(100, 3) });
       await app.db.insert(uploadParts).values({ uploadId: row!.id, partNumber: 1, etag: put.headers.get("etag")!.replaceAll('"', ""), sizeBytes: 100 });
     }
     return row!;
@@ -83,7 +84,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
   const freshClip = () => createClip(app.db, channelId, episodeId, { fileName: "matrix.mov", durationMs: 60_000 });
   const freshMark = async () => {
     const c = await freshClip();
-    const [m] = await app.db.insert(clipMarks).values({ channelId, clipId: c.id, inFrame: 107_922, outFrame: 107_952, inLabel: "01:00:01;00", outLabel: "01:00:02;00", note: "kept" }).returning();
+    const [m] = await app.db.insert(clipMarks).values({ channelId, clipId: c.id, inFrame: 107_922, outFrame: 107_952, inLabel: "01:00:01;00", outLabel: "01:00:02;00", note: "kept", createdBy: world.people.editor.id }).returning();
     return { clipId: c.id, markId: m!.id };
   };
 
@@ -104,7 +105,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       ok: 200,
       prepare: async () => {
         const u = await openUpload(world.owner.id);
-        return { params: { uploadId: u.id }, body: { partNumbers: [1] }, intact: uploadIntact(u.id) };
+        return { params: { uploadId: u.id }, body: { parts: [{ partNumber: 1, size: 100 }] }, intact: uploadIntact(u.id) };
       },
     },
     [`PUT ${up}/parts/:partNumber`]: {

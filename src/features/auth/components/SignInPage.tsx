@@ -2,6 +2,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Link, useNavigate, useSearchParams } from "react-router-dom";
+import { inAppPath } from "@shared/auth/next-path";
 import { signInSchema, type SignInInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
@@ -21,7 +22,7 @@ export function SignInPage() {
     setFormError(null);
     try {
       await signIn.mutateAsync(values);
-      navigate(params.get("next") ?? "/", { replace: true });
+      navigate(inAppPath(params.get("next")), { replace: true });
     } catch (error) {
       setFormError(applyServerErrors(error, form.setError, ["email", "password"]));
     }

@@ -23,6 +23,7 @@ const closedText: Record<Exclude<InvitationPreview["state"], "open">, string> = 
   accepted: "This invitation has already been used.",
   expired: "This invitation has expired.",
   revoked: "This invitation was withdrawn.",
+  closed: "This invitation is closed: its addressee has already joined the channel.",
 };
 
 export function AcceptInvitePage() {
@@ -52,7 +53,17 @@ export function AcceptInvitePage() {
       <p className="mb-4 text-graphite-700">
         {preview.invitedBy} invited <strong>{preview.email}</strong> to join as <strong>{roleLabels[preview.role].toLowerCase()}</strong>.
       </p>
-      {me.data?.user ? <JoinAsSignedIn token={token} name={me.data.user.name} /> : preview.hasAccount ? <SignInFirst token={token} /> : <JoinAsNewcomer token={token} />}
+      {me.data?.user ? (
+        me.data.user.email === preview.email ? (
+          <JoinAsSignedIn token={token} name={me.data.user.name} />
+        ) : (
+          <OtherAddress invited={preview.email} signedInAs={me.data.user.email} />
+        )
+      ) : preview.hasAccount ? (
+        <SignInFirst token={token} />
+      ) : (
+        <JoinAsNewcomer token={token} />
+      )}
     </AuthCard>
   );
 }
@@ -78,6 +89,19 @@ function JoinAsSignedIn({ token, name }: { token: string; name: string }) {
         Join as {name}
       </Button>
     </div>
+  );
+}
+
+/** Only the invited address may join: say so before anyone presses a button that would be refused. */
+function OtherAddress({ invited, signedInAs }: { invited: string; signedInAs: string }) {
+  return (
+    <Notice kind="error">
+      This invitation is for <strong className="break-all">{invited}</strong>, and you are signed in as <span className="break-all">{signedInAs}</span>. Sign out (in{" "}
+      <Link className="font-semibold underline" to="/">
+        Kerf
+      </Link>
+      ), then open this link again to join with {invited}.
+    </Notice>
   );
 }
 

@@ -42,6 +42,11 @@ export function MarksEditor({ channelId, clip }: { channelId: string; clip: Clip
               ))}
             </ul>
           )}
+          {marks.remove.isError && (
+            <p role="alert" className="mb-2 text-sm text-alarm-600">
+              {marks.remove.error.message}
+            </p>
+          )}
           <MarkForm key={clip.id} format={format} start={start} onAdd={(v) => marks.add.mutateAsync(v)} />
         </>
       )}

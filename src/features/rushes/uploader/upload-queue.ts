@@ -1,5 +1,5 @@
 import { partRange } from "@shared/rushes/limits";
-import type { ClipDetail, ClipMetadata, UploadView } from "@shared/rushes/schemas";
+import type { ClipDetail, ClipMetadata, PartUrlsAnswer, PartUrlsInput, UploadView } from "@shared/rushes/schemas";
 import { api, ApiError } from "../../../lib/api-client";
 
 /**
@@ -263,11 +263,16 @@ export class UploadQueue {
   }
 
   private async sendBatch(job: UploadJob, partNumbers: number[]) {
-    let urls: { partNumber: number; url: string }[];
+    let urls: PartUrlsAnswer["urls"];
+    // Each part's size goes with its number: its URL then takes exactly that many bytes.
+    const parts = partNumbers.map((partNumber) => {
+      const { start, end } = partRange(partNumber, job.partSize, job.size);
+      return { partNumber, size: end - start };
+    });
     try {
-      ({ urls } = await api<{ urls: { partNumber: number; url: string }[] }>(`/api/channels/${this.channelId}/uploads/${job.uploadId}/part-urls`, {
+      ({ urls } = await api<PartUrlsAnswer>(`/api/channels/${this.channelId}/uploads/${job.uploadId}/part-urls`, {
         method: "POST",
-        body: { partNumbers },
+        body: { parts } satisfies PartUrlsInput,
       }));
     } catch (error) {
       this.active -= partNumbers.length;

@@ -27,7 +27,7 @@ export function ReviewPanel({ channelId, deal }: { channelId: string; deal: Deal
 
   const onSend = async () => {
     setSentTo(null);
-    const answer = await send.mutateAsync({ deliverableId, contactId, expiresInDays: Number(days), message: null }).catch(() => null);
+    const answer = await send.mutateAsync({ deliverableId, contactId, expiresInDays: Number(days) }).catch(() => null);
     if (answer) setSentTo(`${answer.link.contactName} <${answer.link.contactEmail}>`);
   };
 

@@ -31,3 +31,8 @@ export async function refuseWritesTo(app: TestApp, table: string): Promise<{ res
   await pool.query(`create trigger kerf_test_refuse_write before insert or update or delete on "${table}" for each statement execute function kerf_test_refuse_write()`);
   return { restore: async () => void (await pool.query(`drop trigger if exists kerf_test_refuse_write on "${table}"`)) };
 }
+
+/** A fingerprint of every table's rows but the session store's: equal before and after means nothing changed. */
+export async function rowsSnapshot(app: TestApp): Promise<string> {
+  return [...(await tableFingerprints(app))].map(([table, fingerprint]) => `${table}:${fingerprint}`).join("\n");
+}

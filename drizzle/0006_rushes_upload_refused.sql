@@ -1,0 +1,1 @@
+ALTER TYPE "public"."upload_status" ADD VALUE 'refused';

@@ -1,0 +1,45 @@
+import { and, eq, isNull, lt, sql } from "drizzle-orm";
+import type { Database } from "../db/client";
+import { emailVerifications, users } from "../db/schema/accounts";
+
+export async function insertVerification(db: Database, values: { userId: string; email: string; tokenHash: string; expiresAt: Date }) {
+  await db.insert(emailVerifications).values(values);
+}
+
+export async function findVerificationByHash(db: Database, tokenHash: string) {
+  const [row] = await db
+    .select({
+      id: emailVerifications.id,
+      userId: emailVerifications.userId,
+      email: emailVerifications.email,
+      expiresAt: emailVerifications.expiresAt,
+      usedAt: emailVerifications.usedAt,
+      currentEmail: users.email,
+      verifiedAt: users.emailVerifiedAt,
+    })
+    .from(emailVerifications)
+    .innerJoin(users, eq(users.id, emailVerifications.userId))
+    .where(eq(emailVerifications.tokenHash, tokenHash));
+  return row ?? null;
+}
+
+/** Marks a link used; false when it already was (two clicks at once: one wins). */
+export async function claimVerification(db: Database, id: string): Promise<boolean> {
+  const rows = await db
+    .update(emailVerifications)
+    .set({ usedAt: sql`now()` })
+    .where(and(eq(emailVerifications.id, id), isNull(emailVerifications.usedAt), sql`${emailVerifications.expiresAt} > now()`))
+    .returning({ id: emailVerifications.id });
+  return rows.length > 0;
+}
+
+/** The account a confirmation mail goes to, read when the mail is sent. */
+export async function findAccountToVerify(db: Database, userId: string) {
+  const [row] = await db.select({ email: users.email, name: users.name, verifiedAt: users.emailVerifiedAt }).from(users).where(eq(users.id, userId));
+  return row ?? null;
+}
+
+/** Forgets an account's links that have expired, used or not. */
+export async function deleteExpiredVerifications(db: Database, userId: string): Promise<void> {
+  await db.delete(emailVerifications).where(and(eq(emailVerifications.userId, userId), lt(emailVerifications.expiresAt, sql`now()`)));
+}
