@@ -10,6 +10,7 @@ import { SelectField } from "../../../components/SelectField";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { applyServerErrors } from "../../../lib/forms";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
@@ -137,18 +138,19 @@ function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { chan
   const update = useUpdateIteration(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<IterationFormValues>({ resolver: sharedSchemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
+  const record = useOpenedRecord<IterationView>(iteration ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (values) => {
     setProblem(null);
     try {
       const input = iterationInputSchema.parse(toInput(values).input);
-      if (iteration) await update.mutateAsync({ id: iteration.id, input });
+      if (iteration) await update.mutateAsync({ id: iteration.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
       onDone?.();
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, ["change", "allUpMass", "allUpMass.value", "allUpMass.unit", "outcome", "chosenRunId", "notes"]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["change", "allUpMass", "allUpMass.value", "allUpMass.unit", "outcome", "chosenRunId", "notes"]);
       if (message) setProblem(message);
     }
   });

@@ -10,6 +10,7 @@ import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { Empty } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { applyServerErrors } from "../../../lib/forms";
 import { useAddCriterion } from "../api/add-criterion";
 import { useDeleteCriterion } from "../api/delete-criterion";
@@ -120,6 +121,7 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
   const update = useUpdateCriterion(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<CriterionFormValues>({ resolver: sharedSchemaResolver(criterionInputSchema, toInput), defaultValues: toValues(criterion) });
+  const record = useOpenedRecord<CriterionView>(criterion ?? null, (current) => form.reset(toValues(current)));
   const [metric, comparator] = useWatch({ control: form.control, name: ["metric", "comparator"] });
   const errors = form.formState.errors;
   const suggestions = unitsForMetric(metric);
@@ -129,12 +131,12 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
     setProblem(null);
     try {
       const input = criterionInputSchema.parse(toInput(values).input);
-      if (criterion) await update.mutateAsync({ id: criterion.id, input });
+      if (criterion) await update.mutateAsync({ id: criterion.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
       onDone?.();
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, formFields);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, formFields);
       if (message) setProblem(message);
     }
   });

@@ -6,6 +6,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { applyServerErrors } from "../../../lib/forms";
 import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
 
@@ -49,18 +50,20 @@ function toInput(values: PartFormValues) {
 
 const fields = ["name", "kind", "mass", "mass.value", "ratedVoltage", "ratedVoltage.value", "ratedCurrent", "ratedCurrent.value", "price.amount", "price.currency", "supplier", "notes"] as const;
 
-export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput) => Promise<unknown>; onCancel?: () => void }) {
+/** A new part, or a change of one against the version the form opened with (`onSave`'s second argument). */
+export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput, version: number) => Promise<unknown>; onCancel?: () => void }) {
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<PartFormValues>({ resolver: sharedSchemaResolver(partInputSchema, toInput), defaultValues: toValues(part) });
+  const record = useOpenedRecord<PartView>(part ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (values) => {
     setProblem(null);
     try {
-      await onSave(partInputSchema.parse(toInput(values).input));
+      await onSave(partInputSchema.parse(toInput(values).input), record.version);
       if (!part) form.reset(toValues());
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, fields);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, fields);
       if (message) setProblem(message);
     }
   });

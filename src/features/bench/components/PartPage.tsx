@@ -76,8 +76,8 @@ function Part({ channelId, partId, canWrite }: { channelId: string; partId: stri
       )}
       {editing ? (
         <Panel className="mb-6">
-          <PartForm part={part} busy={update.isPending} onSave={async (input) => {
-              await update.mutateAsync({ id: part.id, input });
+          <PartForm part={part} busy={update.isPending} onSave={async (input, version) => {
+              await update.mutateAsync({ id: part.id, input, version });
               setEditing(false);
             }} onCancel={() => setEditing(false)} />
         </Panel>

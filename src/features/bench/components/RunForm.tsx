@@ -10,6 +10,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { applyServerErrors } from "../../../lib/forms";
 import { useAddRun } from "../api/add-run";
 import { useUpdateRun } from "../api/update-run";
@@ -74,6 +75,7 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
   const update = useUpdateRun(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<RunFormValues>({ resolver: sharedSchemaResolver(runInputSchema, toInput), defaultValues: toValues(plan, run) });
+  const record = useOpenedRecord<RunView>(run ?? null, (current) => form.reset(toValues(plan, current)));
   const chosen = useFieldArray({ control: form.control, name: "parts" });
   const errors = form.formState.errors;
   const [supplyKind, watchedParts, watchedSupply, watchedVoltage] = useWatch({ control: form.control, name: ["supply.kind", "parts", "supply", "measurements.voltage"] });
@@ -82,12 +84,12 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
     setProblem(null);
     try {
       const input: RunInput = runInputSchema.parse(toInput(values).input);
-      if (run) await update.mutateAsync({ id: run.id, input });
+      if (run) await update.mutateAsync({ id: run.id, input, version: record.version });
       else await add.mutateAsync(input);
       onDone();
     } catch (error) {
       const partFields = values.parts.flatMap((_part, index) => [`parts.${index}.partId`, `parts.${index}.count`] as Path<RunFormValues>[]);
-      const message = applyServerErrors(error, form.setError, [...serverFields, ...partFields]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, [...serverFields, ...partFields]);
       if (message) setProblem(message);
     }
   });

@@ -11,6 +11,7 @@ import { SelectField } from "../../../components/SelectField";
 import { LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { applyServerErrors } from "../../../lib/forms";
 import { useTestPlan } from "../api/get-test-plan";
 import { useSaveTestPlan } from "../api/save-test-plan";
@@ -91,6 +92,8 @@ function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId
   const save = useSaveTestPlan(channelId, episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const form = useForm<PlanFormValues>({ resolver: sharedSchemaResolver(testPlanInputSchema, toInput), defaultValues: toValues(plan) });
+  // The sheet as this form opened it: a save is made against its version (0 before the first save).
+  const record = useOpenedRecord(plan, (current) => form.reset(toValues(current)));
   const quantities = useFieldArray({ control: form.control, name: "quantities" });
   const measures = useWatch({ control: form.control, name: "quantities" });
   const errors = form.formState.errors;
@@ -98,11 +101,10 @@ function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId
   const onSubmit = form.handleSubmit(async (values) => {
     setNotice(null);
     try {
-      const saved = await save.mutateAsync(testPlanInputSchema.parse(toInput(values).input));
-      form.reset(toValues(saved));
+      record.startFrom(await save.mutateAsync({ ...testPlanInputSchema.parse(toInput(values).input), version: record.version }));
       setNotice({ kind: "success", text: "Test plan saved." });
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, ["hypothesis", "method", "airframeMass", "airframeMass.value", "airframeMass.unit"]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["hypothesis", "method", "airframeMass", "airframeMass.value", "airframeMass.unit"]);
       if (message) setNotice({ kind: "error", text: message });
     }
   });

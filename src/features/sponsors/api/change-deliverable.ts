@@ -1,3 +1,4 @@
+import type { Versioned } from "@shared/http/version";
 import type { DealView, NewDeliverableInput, UpdateDeliverableInput } from "@shared/sponsors/schemas";
 import { api } from "../../../lib/api-client";
 import { channelBase } from "./keys";
@@ -9,7 +10,7 @@ export const useAddDeliverable = (channelId: string, dealId: string) =>
   useSponsorMutation(channelId, (input: NewDeliverableInput) => api<Answer>(`${channelBase(channelId)}/deals/${dealId}/deliverables`, { method: "POST", body: input }));
 
 export const useUpdateDeliverable = (channelId: string) =>
-  useSponsorMutation(channelId, ({ id, input }: { id: string; input: UpdateDeliverableInput }) =>
+  useSponsorMutation(channelId, ({ id, input }: { id: string; input: Versioned<UpdateDeliverableInput> }) =>
     api<Answer>(`${channelBase(channelId)}/deliverables/${id}`, { method: "PATCH", body: input }),
   );
 

@@ -1,3 +1,4 @@
+import type { Versioned } from "@shared/http/version";
 import type { Contact, SponsorInput, ContactInput, SponsorSummary } from "@shared/sponsors/schemas";
 import { api } from "../../../lib/api-client";
 import { channelBase } from "./keys";
@@ -9,7 +10,7 @@ export const useCreateSponsor = (channelId: string) =>
   );
 
 export const useUpdateSponsor = (channelId: string, sponsorId: string) =>
-  useSponsorMutation(channelId, (input: SponsorInput) => api(`${channelBase(channelId)}/sponsors/${sponsorId}`, { method: "PATCH", body: input }));
+  useSponsorMutation(channelId, (input: Versioned<SponsorInput>) => api(`${channelBase(channelId)}/sponsors/${sponsorId}`, { method: "PATCH", body: input }));
 
 export const useAddContact = (channelId: string, sponsorId: string) =>
   useSponsorMutation(channelId, (input: ContactInput) =>

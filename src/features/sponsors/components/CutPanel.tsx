@@ -8,18 +8,40 @@ import { Notice } from "../../../components/Notice";
 import { SelectField } from "../../../components/SelectField";
 import { TextField } from "../../../components/TextField";
 import { ApiError } from "../../../lib/api-client";
+import { changedFields, useOpenedRecord } from "../../../lib/conflicts";
 import { useUpdateCut } from "../api/save-deal";
+
+/** The cut's fields as the deal holds them. */
+const cutOf = (deal: DealView) => ({
+  clipId: deal.cut.clip?.id ?? "",
+  inTc: deal.cut.timing?.inTimecode ?? "",
+  outTc: deal.cut.timing?.outTimecode ?? "",
+  rate: deal.cut.timing?.frameRate ?? "25",
+  dropFrame: deal.cut.timing?.dropFrame ?? false,
+});
 
 /** The editor's part: the clip the sponsor reviews, and the segment's in and out in the cut. */
 export function CutPanel({ channelId, deal, canEdit }: { channelId: string; deal: DealView; canEdit: boolean }) {
   const update = useUpdateCut(channelId, deal.id);
   const timing = deal.cut.timing;
-  const [clipId, setClipId] = useState(deal.cut.clip?.id ?? "");
-  const [inTc, setIn] = useState(timing?.inTimecode ?? "");
-  const [outTc, setOut] = useState(timing?.outTimecode ?? "");
-  const [rate, setRate] = useState(timing?.frameRate ?? "25");
-  const [dropFrame, setDropFrame] = useState(timing?.dropFrame ?? false);
+  const [clipId, setClipId] = useState(cutOf(deal).clipId);
+  const [inTc, setIn] = useState(cutOf(deal).inTc);
+  const [outTc, setOut] = useState(cutOf(deal).outTc);
+  const [rate, setRate] = useState(cutOf(deal).rate);
+  const [dropFrame, setDropFrame] = useState(cutOf(deal).dropFrame);
   const [errors, setErrors] = useState<Record<string, string>>({});
+  // The cut as the editor started from it: the save is made against the deal's version then.
+  const record = useOpenedRecord(deal, (from) => {
+    const cut = cutOf(from);
+    setClipId(cut.clipId);
+    setIn(cut.inTc);
+    setOut(cut.outTc);
+    setRate(cut.rate);
+    setDropFrame(cut.dropFrame);
+  });
+  const dirty = Object.keys(changedFields(cutOf(record.opened), { clipId, inTc, outTc, rate, dropFrame })).length > 0;
+  // Someone else's save shows at once while this editor has changed nothing.
+  if (deal.version !== record.version && !dirty && !update.isPending) record.startFrom(deal);
 
   const save = async () => {
     const body = { clipId: clipId || null, timing: inTc || outTc ? { inTimecode: inTc, outTimecode: outTc, frameRate: rate, dropFrame } : null };
@@ -29,9 +51,11 @@ export function CutPanel({ channelId, deal, canEdit }: { channelId: string; deal
       return;
     }
     setErrors({});
-    await update.mutateAsync(checked.data).catch((error: unknown) => {
-      if (error instanceof ApiError) setErrors(error.fields);
-    });
+    try {
+      record.startFrom(await update.mutateAsync({ ...checked.data, version: record.version }));
+    } catch (error) {
+      if (!record.conflictIn(error) && error instanceof ApiError) setErrors(error.fields);
+    }
   };
 
   const measured = timing ? timing.measuredSeconds : null;

@@ -6,6 +6,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty, LoadError, Loading } from "../../../components/States";
 import { TextField } from "../../../components/TextField";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useDeleteTemplate, useSaveTemplate, useTemplates } from "../api/templates";
 import { errorAt, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
 
@@ -94,15 +95,16 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
     })),
     defaultValues: { name: template?.name ?? "", items: toValues(template?.items ?? suggestedTemplateItems) },
   });
+  const record = useOpenedRecord<DealTemplate>(template, (current) => form.reset({ name: current.name, items: toValues(current.items) }));
   const items = useFieldArray({ control: form.control, name: "items" });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (input) => {
     setFormError(null);
     try {
-      await save.mutateAsync({ id: template?.id ?? null, input });
+      await save.mutateAsync({ id: template?.id ?? null, input, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["name"]));
+      setFormError(record.conflictIn(error) ?? placeServerErrors(error, form.setError, ["name"]));
     }
   });
   return (
