@@ -66,7 +66,7 @@ export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<Clip
 const toMarkView = (m: MarkRow): MarkView => ({ id: m.id, in: m.inLabel, out: m.outLabel, inFrame: m.inFrame, outFrame: m.outFrame, note: m.note });
 
 export async function listFootage(ctx: RushesContext, caller: Caller, q: FootageQuery): Promise<FootagePage> {
-  const cursor = q.cursor ? decodeCursor(q.cursor) : null;
+  const cursor = q.cursor ? decodeCursor(q.cursor, q.sort) : null;
   if (q.cursor && !cursor) throw new AppError("validation_failed", "That page link is out of date; start from the first page.", { cursor: "Not a page of this list." });
   const [rows, totals] = await Promise.all([repo.listClips(ctx.db, caller.channelId, q, cursor), repo.footageTotals(ctx.db, caller.channelId, q)]);
   const page = rows.slice(0, q.limit);

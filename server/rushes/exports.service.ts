@@ -1,3 +1,4 @@
+import type { Readable } from "node:stream";
 import type { Response } from "express";
 import { ZipArchive } from "archiver";
 import type { FootageQuery } from "../../shared/rushes/footage-query";
@@ -7,7 +8,7 @@ import { EdlError, footageEdl } from "../../shared/rushes/exports/edl";
 import { footageOtio } from "../../shared/rushes/exports/otio";
 import { AppError } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { attachmentDisposition, viaStorage } from "../storage/storage";
+import { attachmentDisposition, isMissingObject, viaStorage } from "../storage/storage";
 import * as repo from "./clips.repository";
 import type { RushesContext } from "./rushes.context";
 
@@ -81,9 +82,23 @@ export function zipEntryNames(names: string[]): string[] {
   });
 }
 
+/** A clip's file, or null when the store no longer holds it (the clip row outlived its object). */
+async function openIfPresent(ctx: RushesContext, objectKey: string): Promise<Readable | null> {
+  try {
+    return await viaStorage(() => ctx.storage.getStream(objectKey));
+  } catch (error) {
+    if (isMissingObject(error)) return null;
+    throw error;
+  }
+}
+
+const missingNote = (names: string[]) =>
+  `These chosen clips are in Kerf but their files are no longer in footage storage, so this zip leaves them out:\r\n\r\n${names.join("\r\n")}\r\n`;
+
 /**
  * The selection as one zip, streamed: each object is read from the store and written straight out,
- * stored without compression (camera files don't shrink), one at a time, so memory stays flat.
+ * stored without compression (camera files don't shrink), one at a time, so memory stays flat. A clip
+ * whose file is gone from the store is left out and named in MISSING.txt; when none is there, a 404.
  */
 export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: string[], res: Response): Promise<void> {
   const unique = [...new Set(clipIds)];
@@ -92,9 +107,18 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
   const rows = await repo.clipsByIds(ctx.db, caller.channelId, unique);
   if (rows.length !== unique.length) throw new AppError("not_found", "Some of those clips are not in this channel.");
   const ordered = unique.map((id) => rows.find((r) => r.id === id)!);
-  const names = zipEntryNames(ordered.map((r) => r.fileName));
-  // The first object is opened before any byte is sent, so a store that is down is still a clean 503.
-  const first = await viaStorage(() => ctx.storage.getStream(ordered[0]!.objectKey));
+  const names = zipEntryNames([...ordered.map((r) => r.fileName), "MISSING.txt"]);
+  const missing: string[] = [];
+  // The first file that is there is opened before any byte is sent, so a store that is down is still a
+  // clean 503 and a selection whose files are all gone a clean 404.
+  let next = 0;
+  let first: Readable | null = null;
+  while (!first && next < ordered.length) {
+    first = await openIfPresent(ctx, ordered[next]!.objectKey);
+    if (!first) missing.push(names[next]!);
+    next++;
+  }
+  if (!first) throw new AppError("not_found", `The files of those clips are no longer in footage storage: ${missing.join(", ")}.`);
 
   res.set("Content-Type", "application/zip");
   res.set("Content-Disposition", attachmentDisposition(`footage-${new Date().toISOString().slice(0, 10)}.zip`));
@@ -103,18 +127,12 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
   archive.on("warning", (error: Error) => console.error(`[rushes] zip warning: ${error.message}`));
   archive.on("error", (error: Error) => res.destroy(error));
   archive.pipe(res);
-  for (const [index, row] of ordered.entries()) {
-    const stream = index === 0 ? first : await ctx.storage.getStream(row.objectKey);
-    const written = new Promise<void>((resolve, reject) => {
-      archive.once("entry", () => resolve());
-      stream.once("error", reject);
-    });
-    archive.append(stream, { name: names[index]!, store: true });
-    const failed = await written.then(
-      () => null,
-      (error: Error) => error,
-    );
-    if (failed) {
+  for (let index = next - 1; index < ordered.length; index++) {
+    try {
+      const present = await appendClip(ctx, archive, index === next - 1 ? first : ordered[index]!.objectKey, names[index]!);
+      if (!present) missing.push(names[index]!);
+    } catch (error) {
+      const failed = error as Error;
       // Bytes are already on their way: the only honest signal left is to cut the download short.
       console.error(`[rushes] zip cut short: ${failed.message}`);
       archive.abort();
@@ -122,5 +140,19 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
       return;
     }
   }
+  if (missing.length > 0) archive.append(missingNote(missing), { name: names.at(-1)!, store: true });
   await archive.finalize();
+}
+
+/** Writes one file into the zip; false when its object is gone from the store. */
+async function appendClip(ctx: RushesContext, archive: ZipArchive, source: Readable | string, name: string): Promise<boolean> {
+  const stream = typeof source === "string" ? await openIfPresent(ctx, source) : source;
+  if (!stream) return false;
+  const written = new Promise<void>((resolve, reject) => {
+    archive.once("entry", () => resolve());
+    stream.once("error", reject);
+  });
+  archive.append(stream, { name, store: true });
+  await written;
+  return true;
 }

@@ -57,6 +57,8 @@ describe("shoot days and the shot list", () => {
       .send("post", `${world.base}/episodes/${world.episode.id}/shoot-days`, { day: "2026-03-01", crewIds: ["00000000-0000-4000-8000-000000000001"] })
       .expect(400);
     expect(stranger.body.error.fields.crewIds).toBe("Everyone on a shoot day must be a member of this channel.");
+    const yearZero = await world.as.owner.send("post", `${world.base}/episodes/${world.episode.id}/shoot-days`, { day: "0000-01-01", crewIds: [] }).expect(400);
+    expect(yearZero.body.error.fields.day).toBeTruthy();
   });
 
   it("when a shot is linked to a clip of another episode, then it is refused", async () => {
@@ -194,6 +196,25 @@ describe("the footage list", () => {
     expect(stale.body.error.fields.cursor).toBe("Not a page of this list.");
   });
 
+  it("when a cursor is well formed but its value is not of the sort's kind, then it answers 400, not 500", async () => {
+    const id = "00000000-0000-4000-8000-000000000001";
+    const forged = (v: unknown) => Buffer.from(JSON.stringify([v, id])).toString("base64url");
+    const cases: [string, unknown][] = [
+      ["recorded", "not a time"],
+      ["recorded", "0000-01-01 00:00:00+00"],
+      ["uploaded", "2026-02-30 10:00:00+00"],
+      ["duration", "ten"],
+      ["duration", 1e30],
+      ["size", "9".repeat(40)],
+      ["name", "nul\u0000byte"],
+    ];
+    for (const [sort, v] of cases) {
+      const response = await world.as.editor.get(`${world.base}/clips?sort=${sort}&cursor=${forged(v)}`);
+      expect(response.status, `${sort} ${JSON.stringify(v)}: ${JSON.stringify(response.body)}`).toBe(400);
+      expect(response.body.error.fields.cursor).toBe("Not a page of this list.");
+    }
+  });
+
   it("when another channel's member asks, then they see none of it", async () => {
     const { createUser, createChannel } = await import("../factories/accounts");
     const outsider = await createUser(app.db);
@@ -285,6 +306,27 @@ describe("bulk download and photos", () => {
     expect(body.includes(Buffer.from("zip-one.mov"))).toBe(true);
     expect(body.includes(Buffer.from("zip-one (2).mov"))).toBe(true);
     expect(body.includes(patternBytes(5000, 2))).toBe(true);
+  });
+
+  it("when a chosen clip's file is missing from storage, then the zip holds the others and a MISSING.txt naming it; all missing is a 404", async () => {
+    const present = await uploadFile(world.as.editor, world.base, world.episode.id, "kept-take.mov", patternBytes(2000, 3));
+    const lost = await createClip(app.db, world.channel.id, world.episode.id, { fileName: "lost-take.mov" });
+    const response = await world.as.editor
+      .get(`${world.base}/exports/footage.zip?ids=${lost.id},${present.body.clip.id}`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c: Buffer) => chunks.push(c));
+        res.on("end", () => done(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    const body = response.body as Buffer;
+    expect(body.includes(patternBytes(2000, 3))).toBe(true);
+    expect(body.includes(Buffer.from("MISSING.txt"))).toBe(true);
+    expect(body.includes(Buffer.from("lost-take.mov"))).toBe(true);
+
+    const none = await world.as.editor.get(`${world.base}/exports/footage.zip?ids=${lost.id}`).expect(404);
+    expect(none.body.error.message).toMatch(/lost-take\.mov/);
   });
 
   it("when a photo streams through the server, then it is stored and readable; a wrong type is 415 and a big one 413", async () => {
