@@ -105,6 +105,12 @@ export async function updateClip(ctx: RushesContext, caller: Caller, clipId: str
     const day = await shootRepo.findShootDay(ctx.db, caller.channelId, shootDayId);
     if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
   }
+  if (patch.benchRunId && (await repo.benchRunEpisode(ctx.db, caller.channelId, patch.benchRunId)) !== row.episodeId) {
+    throw new AppError("validation_failed", "Some fields need attention.", { benchRunId: "Choose a bench run of this clip's episode." });
+  }
+  if (patch.buildIterationId && (await repo.buildIterationEpisode(ctx.db, caller.channelId, patch.buildIterationId)) !== row.episodeId) {
+    throw new AppError("validation_failed", "Some fields need attention.", { buildIterationId: "Choose a build iteration of this clip's episode." });
+  }
   await ctx.db.transaction(async (tx) => {
     await repo.updateClip(tx, caller.channelId, clipId, values);
     if (patch.shotId !== undefined && patch.shotId !== row.shotId) {

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parse as parseCsv } from "csv-parse/sync";
 import { parseEdl } from "../../shared/rushes/exports/edl";
+import { createCrewedChannel } from "../factories/accounts";
+import { createIteration, createRun } from "../factories/bench";
 import { createEpisode } from "../factories/episodes";
 import { createClip, createShootDay, createShot } from "../factories/rushes";
 import { startTestApp, type TestApp } from "../support/test-app";
@@ -67,6 +69,45 @@ describe("shoot days and the shot list", () => {
     const clip = await createClip(app.db, world.channel.id, world.episode.id);
     const response = await world.as.editor.send("patch", `${world.base}/clips/${clip.id}`, { shotId: shot.id }).expect(400);
     expect(response.body.error.fields.shotId).toBe("Choose a shot of this clip's episode.");
+  });
+});
+
+describe("a clip's bench run and build iteration", () => {
+  it("when a clip names a run or iteration of another episode or channel, or none at all, then it answers 400 on that field and the clip keeps its links", async () => {
+    const clip = await createClip(app.db, world.channel.id, world.episode.id);
+    const url = `${world.base}/clips/${clip.id}`;
+    const ownRun = await createRun(app.db, world.channel.id, world.episode.id, world.owner.id);
+    const ownIteration = await createIteration(app.db, world.channel.id, world.episode.id, world.owner.id);
+    const linked = await world.as.editor.send("patch", url, { benchRunId: ownRun.id, buildIterationId: ownIteration.id }).expect(200);
+    expect(linked.body.clip).toMatchObject({ benchRunId: ownRun.id, buildIterationId: ownIteration.id });
+
+    const otherEpisode = await createEpisode(app.db, world.channel.id, { title: "Another build" });
+    const elsewhere = await createCrewedChannel(app.db, "Elsewhere Bench");
+    const elsewhereEpisode = await createEpisode(app.db, elsewhere.channel.id, { title: "Theirs" });
+    const refused = [
+      { benchRunId: (await createRun(app.db, world.channel.id, otherEpisode.id, world.owner.id)).id },
+      { benchRunId: (await createRun(app.db, elsewhere.channel.id, elsewhereEpisode.id, elsewhere.owner.id)).id },
+      { benchRunId: "00000000-0000-4000-8000-000000000001" },
+      { buildIterationId: (await createIteration(app.db, world.channel.id, otherEpisode.id, world.owner.id)).id },
+      { buildIterationId: (await createIteration(app.db, elsewhere.channel.id, elsewhereEpisode.id, elsewhere.owner.id)).id },
+    ];
+    for (const patch of refused) {
+      const response = await world.as.editor.send("patch", url, patch);
+      const seen = `${JSON.stringify(patch)}: ${response.status} ${JSON.stringify(response.body)}`;
+      expect(response.status, seen).toBe(400);
+      expect(Object.keys(response.body.error.fields), seen).toEqual(Object.keys(patch));
+    }
+    const after = await world.as.editor.get(url).expect(200);
+    expect(after.body.clip).toMatchObject({ benchRunId: ownRun.id, buildIterationId: ownIteration.id });
+  });
+
+  it("when a linked run or iteration is deleted, then the clip stays and its link is cleared", async () => {
+    const clip = await createClip(app.db, world.channel.id, world.episode.id);
+    const run = await createRun(app.db, world.channel.id, world.episode.id, world.owner.id);
+    await world.as.editor.send("patch", `${world.base}/clips/${clip.id}`, { benchRunId: run.id }).expect(200);
+    await app.database.pool.query("delete from bench_runs where id = $1", [run.id]);
+    const after = await world.as.editor.get(`${world.base}/clips/${clip.id}`).expect(200);
+    expect(after.body.clip.benchRunId).toBeNull();
   });
 });
 
