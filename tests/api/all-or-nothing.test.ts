@@ -4,6 +4,7 @@ import type { RouteSpec } from "../../server/http/route-table";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { createEpisode } from "../factories/episodes";
 import { allRecipes, fillPath, makeAccessWorld } from "../support/access-world";
+import { waitForQueueToSettle } from "../support/jobs";
 import { changedTables, refuseWritesTo, tableFingerprints } from "../support/rows-snapshot";
 import { startTestApp, type TestApp } from "../support/test-app";
 import type { AccessWorld, Recipe } from "./access/matrix";
@@ -55,6 +56,8 @@ async function call(spec: RouteSpec, recipe: Recipe) {
   const agent = await app.signedIn(world.people.owner);
   const prepared = (await recipe.prepare?.({ caller: "owner", person: world.people.owner })) ?? {};
   const path = fillPath(spec.path, { channelId: world.channel.id, ...prepared.params });
+  // Mail queued by an earlier call writes its rows when it is sent (an invitation's link): let it finish first.
+  await waitForQueueToSettle(app.database.pool);
   const before = await tableFingerprints(app);
   return {
     before,
