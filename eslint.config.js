@@ -8,6 +8,7 @@ import tseslint from "typescript-eslint";
 
 // One-way flow: src/ and server/ never import each other; shared/ imports neither.
 const forbid = (groups, message) => ["error", { patterns: [{ group: groups, message }] }];
+const formatOnce = "Dates, times, durations, sizes and money are written by src/lib/format.ts (formatDay, formatInstant, formatDuration, formatSize, formatMoney).";
 
 /**
  * The server's folders that belong to no feature: every feature may use them, they use no feature.
@@ -94,7 +95,7 @@ export default tseslint.config(
       // smpte-timecode and csv-parse are devDependencies and stay in tests and development services.
       "import-x/no-extraneous-dependencies": [
         "error",
-        { devDependencies: ["tests/**", "dev-services/**", "**/*.test.ts", "*.config.{ts,js}", "eslint.config.js"], optionalDependencies: false, peerDependencies: false },
+        { devDependencies: ["tests/**", "dev-services/**", "**/*.test.{ts,tsx}", "*.config.{ts,js}", "eslint.config.js"], optionalDependencies: false, peerDependencies: false },
       ],
     },
   },
@@ -105,6 +106,24 @@ export default tseslint.config(
     rules: {
       ...reactHooks.configs.recommended.rules,
       "no-restricted-imports": forbid(["**/server/**", "node:*"], "The client must not import server code or Node built-ins; share through shared/."),
+    },
+  },
+  // One way to write dates, times and money: only src/lib/format.ts formats them (proved by src/lib/format.lint.test.ts).
+  {
+    files: ["src/**/*.{ts,tsx}"],
+    ignores: ["src/lib/format.ts"],
+    rules: {
+      "no-restricted-properties": [
+        "error",
+        ...["toLocaleDateString", "toLocaleTimeString", "toLocaleString", "toDateString", "toTimeString", "toUTCString"].map((property) => ({ property, message: formatOnce })),
+        ...["DateTimeFormat", "RelativeTimeFormat", "NumberFormat"].map((property) => ({ object: "Intl", property, message: formatOnce })),
+      ],
+      "no-restricted-syntax": [
+        "error",
+        { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportSpecifier[imported.name=/^(format|lightFormat|intlFormat)/]", message: formatOnce },
+        { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportNamespaceSpecifier", message: formatOnce },
+        { selector: "ImportDeclaration[source.value=/^@shared\\//] > ImportSpecifier[imported.name=/^(formatBytes|formatSeconds|formatStay)$/]", message: formatOnce },
+      ],
     },
   },
   {

@@ -4,7 +4,7 @@ import path from "node:path";
 export default defineConfig({
   resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
   test: {
-    include: ["shared/**/*.test.ts", "server/**/*.test.ts", "tests/api/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/payments-standin/**/*.test.ts"],
+    include: ["shared/**/*.test.ts", "server/**/*.test.ts", "src/**/*.test.{ts,tsx}", "tests/api/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/payments-standin/**/*.test.ts"],
     environment: "node",
     testTimeout: 20_000,
     hookTimeout: 60_000,

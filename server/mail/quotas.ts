@@ -18,7 +18,7 @@ export const LONGEST_WINDOW_MS = windowMs.day;
  * How much mail one account and one channel may cause in any sliding hour or day. Sized for a small
  * studio's real use with room to spare: a new channel inviting its whole crew, a producer sending a
  * week's review links in an afternoon, a busy comment thread. They are Kerf's own choice, not from a
- * published source; docs/decisions/0007-mail-that-cannot-be-turned-on-others.md says why.
+ * published source; docs/decisions/0008-mail-that-cannot-be-turned-on-others.md says why.
  * Reminders and a sponsor's decision are not counted: Kerf sends those once per item or per link.
  */
 export const mailAllowances: Record<MailPurpose, { account: Allowance; channel?: Allowance }> = {

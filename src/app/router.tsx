@@ -1,75 +1,67 @@
-import { createBrowserRouter, Link } from "react-router-dom";
-import { AuthCard } from "../components/AuthCard";
-import { SignInPage } from "../features/auth/components/SignInPage";
-import { SignUpPage } from "../features/auth/components/SignUpPage";
-import { VerifyEmailPage } from "../features/auth/components/VerifyEmailPage";
-import { AcceptInvitePage } from "../features/channels/components/AcceptInvitePage";
-import { MembersPage } from "../features/channels/components/MembersPage";
-import { NewChannelPage } from "../features/channels/components/NewChannelPage";
-import { EpisodePage } from "../features/slate/components/EpisodePage";
-import { SlatePage } from "../features/slate/components/SlatePage";
-import { StageLengthsPage } from "../features/slate/components/StageLengthsPage";
-import { ShelfPage } from "../features/bench/components/ShelfPage";
-import { PartPage } from "../features/bench/components/PartPage";
-import { RushesPage } from "../features/rushes/components/RushesPage";
-import { ShootDayPage } from "../features/rushes/components/ShootDayPage";
-import { DeskPage } from "../features/sponsors/components/DeskPage";
-import { SponsorsPage } from "../features/sponsors/components/SponsorsPage";
-import { ReviewPage } from "../features/sponsors/components/ReviewPage";
-import { episodeSections } from "./episode-sections";
+import type { ComponentType } from "react";
+import { createBrowserRouter } from "react-router-dom";
+import { Loading } from "../components/States";
+import { NotFound, RouteError } from "./errors";
 import { HomeRedirect, RedirectIfSignedIn, RequireMembership, RequireSignedIn } from "./guards";
-import { AppShell } from "./layouts/AppShell";
 
-function NotFound() {
-  return (
-    <AuthCard title="Nothing here">
-      <p className="mb-4 text-graphite-700">That page doesn't exist.</p>
-      <Link className="font-semibold text-rust-600 underline" to="/">
-        Back to Kerf
-      </Link>
-    </AuthCard>
-  );
-}
+/**
+ * Each page's code is fetched the first time it is visited, so the sign-in page doesn't download the
+ * whole app; the router waits for it before leaving the page on screen.
+ */
+const page =
+  <M,>(load: () => Promise<M>, pick: (module: M) => ComponentType) =>
+  async () => ({ Component: pick(await load()) });
 
 export const router = createBrowserRouter([
   {
-    element: <RedirectIfSignedIn />,
+    errorElement: <RouteError />,
+    hydrateFallbackElement: <Loading page />,
     children: [
-      { path: "/sign-in", element: <SignInPage /> },
-      { path: "/sign-up", element: <SignUpPage /> },
-    ],
-  },
-  { path: "/invite/:token", element: <AcceptInvitePage /> },
-  { path: "/verify/:token", element: <VerifyEmailPage /> },
-  { path: "/review/:token", element: <ReviewPage /> },
-  {
-    element: <RequireSignedIn />,
-    children: [
-      { path: "/", element: <HomeRedirect /> },
       {
-        element: <AppShell />,
+        element: <RedirectIfSignedIn />,
         children: [
-          { path: "/channels/new", element: <NewChannelPage /> },
+          { path: "/sign-in", lazy: page(() => import("../features/auth/components/SignInPage"), (m) => m.SignInPage) },
+          { path: "/sign-up", lazy: page(() => import("../features/auth/components/SignUpPage"), (m) => m.SignUpPage) },
+        ],
+      },
+      { path: "/invite/:token", lazy: page(() => import("../features/channels/components/AcceptInvitePage"), (m) => m.AcceptInvitePage) },
+      { path: "/verify/:token", lazy: page(() => import("../features/auth/components/VerifyEmailPage"), (m) => m.VerifyEmailPage) },
+      { path: "/review/:token", lazy: page(() => import("../features/sponsors/components/ReviewPage"), (m) => m.ReviewPage) },
+      {
+        element: <RequireSignedIn />,
+        children: [
+          { path: "/", element: <HomeRedirect /> },
           {
-            path: "/c/:channelId",
-            element: <RequireMembership />,
+            lazy: page(() => import("./layouts/AppShell"), (m) => m.AppShell),
             children: [
-              { index: true, element: <HomeRedirect /> },
-              { path: "slate", element: <SlatePage /> },
-              { path: "slate/schedule", element: <StageLengthsPage /> },
-              { path: "episodes/:episodeId", element: <EpisodePage sections={episodeSections} /> },
-              { path: "members", element: <MembersPage /> },
-              { path: "shelf", element: <ShelfPage /> },
-              { path: "shelf/:partId", element: <PartPage /> },
-              { path: "rushes", element: <RushesPage /> },
-              { path: "shoot-days/:shootDayId", element: <ShootDayPage /> },
-              { path: "desk", element: <DeskPage /> },
-              { path: "sponsors", element: <SponsorsPage /> },
+              {
+                errorElement: <RouteError inShell />,
+                children: [
+                  { path: "/channels/new", lazy: page(() => import("../features/channels/components/NewChannelPage"), (m) => m.NewChannelPage) },
+                  {
+                    path: "/c/:channelId",
+                    element: <RequireMembership />,
+                    children: [
+                      { index: true, element: <HomeRedirect /> },
+                      { path: "slate", lazy: page(() => import("../features/slate/components/SlatePage"), (m) => m.SlatePage) },
+                      { path: "slate/schedule", lazy: page(() => import("../features/slate/components/StageLengthsPage"), (m) => m.StageLengthsPage) },
+                      { path: "episodes/:episodeId", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },
+                      { path: "members", lazy: page(() => import("../features/channels/components/MembersPage"), (m) => m.MembersPage) },
+                      { path: "shelf", lazy: page(() => import("../features/bench/components/ShelfPage"), (m) => m.ShelfPage) },
+                      { path: "shelf/:partId", lazy: page(() => import("../features/bench/components/PartPage"), (m) => m.PartPage) },
+                      { path: "rushes", lazy: page(() => import("../features/rushes/components/RushesPage"), (m) => m.RushesPage) },
+                      { path: "shoot-days/:shootDayId", lazy: page(() => import("../features/rushes/components/ShootDayPage"), (m) => m.ShootDayPage) },
+                      { path: "desk", lazy: page(() => import("../features/sponsors/components/DeskPage"), (m) => m.DeskPage) },
+                      { path: "sponsors", lazy: page(() => import("../features/sponsors/components/SponsorsPage"), (m) => m.SponsorsPage) },
+                    ],
+                  },
+                ],
+              },
             ],
           },
         ],
       },
+      { path: "*", element: <NotFound /> },
     ],
   },
-  { path: "*", element: <NotFound /> },
 ]);

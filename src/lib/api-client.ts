@@ -1,4 +1,3 @@
-import { errorBodySchema } from "@shared/http/errors";
 
 /** A failed API call with the server's error shape: code, readable message and per-field messages. */
 export class ApiError extends Error {
@@ -43,6 +42,8 @@ export async function api<T>(path: string, options: { method?: Method; body?: un
   if (response.status === 204) return undefined as T;
   const body: unknown = await response.json().catch(() => null);
   if (!response.ok) {
+    // The error shape's schema (and zod with it) is fetched the first time a call fails, not with the first page.
+    const { errorBodySchema } = await import("@shared/http/errors");
     const parsed = errorBodySchema.safeParse(body);
     if (parsed.success) throw new ApiError(response.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields, body);
     throw new ApiError(response.status, "unexpected", `The server answered ${response.status}.`);

@@ -2,6 +2,7 @@ import { queryOptions, useQuery, type QueryClient } from "@tanstack/react-query"
 import { useParams } from "react-router-dom";
 import type { Me, Membership } from "@shared/auth/schemas";
 import { api, rememberCsrfToken } from "./api-client";
+import { browserTimeZone } from "./format";
 
 /** Who is signed in and where they belong: read by every feature, so it lives below them all. */
 export const sessionKeys = {
@@ -31,4 +32,17 @@ export function useCurrentChannel(): Membership | null {
   const { channelId } = useParams();
   const { data } = useMe();
   return data?.memberships.find((m) => m.channelId === channelId) ?? null;
+}
+
+/** The zone every time of day is shown in: the member's own, the browser's until they choose one. */
+export function useTimeZone(): string {
+  const { data } = useMe();
+  return data?.user?.timeZone || browserTimeZone();
+}
+
+/** The channel of a page inside `/c/:channelId`, where the membership guard has already checked it. */
+export function useChannel(): Membership {
+  const channel = useCurrentChannel();
+  if (!channel) throw new Error("This page belongs inside a channel the person is a member of.");
+  return channel;
 }

@@ -49,7 +49,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   await dayForm.getByLabel("Place").fill("Harbour slipway");
   await dayForm.getByLabel("Call time").fill("07:00");
   await dayForm.getByRole("button", { name: "Add day" }).click();
-  await expect(page.getByRole("link", { name: "2026-12-12 · Harbour slipway" })).toBeVisible();
+  await expect(page.getByRole("link", { name: "Sat 12 Dec 2026 · Harbour slipway" })).toBeVisible();
 
   const shotForm = page.getByRole("form", { name: "Add a shot" });
   for (const [description, kind] of [
@@ -58,7 +58,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   ] as const) {
     await shotForm.getByLabel("Shot", { exact: true }).fill(description);
     await shotForm.getByLabel("Kind").selectOption(kind);
-    await shotForm.getByLabel("Shoot day").selectOption({ label: "2026-12-12 Harbour slipway" });
+    await shotForm.getByLabel("Shoot day").selectOption({ label: "Sat 12 Dec 2026 Harbour slipway" });
     await shotForm.getByRole("button", { name: "Add shot" }).click();
     await expect(page.getByRole("list", { name: "Shots" }).getByText(description)).toBeVisible();
   }
@@ -165,7 +165,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
 
   // The crew's view of the day: the linked shot is captured, the other still missing.
   await page.goto(`/c/${channelId}/episodes/${episodeId}`);
-  await page.getByRole("link", { name: "2026-12-12 · Harbour slipway" }).click();
+  await page.getByRole("link", { name: "Sat 12 Dec 2026 · Harbour slipway" }).click();
   const missing = page.getByRole("region", { name: /Still to get/ });
   await expect(page.getByRole("heading", { name: "Still to get (1)" })).toBeVisible();
   await expect(missing.getByText("Host explains the coupler")).toBeVisible();

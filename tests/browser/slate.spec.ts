@@ -32,8 +32,10 @@ async function dragByMouse(page: Page, from: string, to: string) {
 /**
  * Space picks the card up from its handle, an arrow key takes it one column over, Space drops it.
  * Each key waits for the board's screen-reader announcement of the step before it, as a person
- * listening would. The sensor starts listening for arrows a task after the pick-up, and Chromium
- * runs input before timers, so an arrow pressed blind right after Space can be lost.
+ * listening would. The sensor starts listening for arrows in a timer it sets at the pick-up, and
+ * Chromium runs input before timers, so an arrow pressed right after the announcement can still be
+ * lost. A timer set after the announcement runs after the sensor's, so waiting for one is waiting
+ * for the sensor to listen.
  */
 async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft", from: string, to: string) {
   const handle = page.getByRole("button", { name: `Move ${TITLE}` });
@@ -41,6 +43,7 @@ async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft", from:
   await page.keyboard.press("Space");
   await expect(handle).toHaveAttribute("aria-pressed", "true");
   await expect(page.getByText(new RegExp(`${TITLE} is in ${from}, position`))).toBeAttached();
+  await page.evaluate(() => new Promise((resolve) => setTimeout(resolve)));
   await page.keyboard.press(key);
   await expect(page.getByText(new RegExp(`${TITLE} is (in|at the end of) ${to}`))).toBeAttached();
   await page.keyboard.press("Space");

@@ -57,8 +57,8 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await dealForm.getByRole("button", { name: "Create deal" }).click();
   await expect(deals.getByRole("heading", { name: "Halvard Power Supplies" })).toBeVisible();
   // 2 March 2027 − 7 days = 23 February (2027 has no 29 February); + 30 days after go-live = 1 April.
-  await expect(dueOf(producer, "draft_cut")).toHaveText("2027-02-23");
-  await expect(dueOf(producer, "report")).toHaveText("2027-04-01");
+  await expect(dueOf(producer, "draft_cut")).toHaveText("Tue 23 Feb 2027");
+  await expect(dueOf(producer, "report")).toHaveText("Thu 1 Apr 2027");
   await expect(deals.getByTestId("deal-fee")).toContainText("2,750");
   await snap(producer, "sponsors-04-deal-with-items");
 
@@ -67,8 +67,8 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await producer.getByLabel("Target publish date").fill("2027-04-05");
   await producer.getByRole("button", { name: "Save changes" }).click();
   // 5 April − 7 = 29 March; 5 April + 30 = 5 May.
-  await expect(dueOf(producer, "draft_cut")).toHaveText("2027-03-29");
-  await expect(dueOf(producer, "report")).toHaveText("2027-05-05");
+  await expect(dueOf(producer, "draft_cut")).toHaveText("Mon 29 Mar 2027");
+  await expect(dueOf(producer, "report")).toHaveText("Wed 5 May 2027");
   await snap(producer, "sponsors-05-dates-followed");
 
   // The read: a script with the disclosure, then a review link for the script approval.

@@ -1,8 +1,8 @@
-import { NavLink, Outlet, useNavigate } from "react-router-dom";
+import { NavLink, Outlet, useNavigate, useNavigation } from "react-router-dom";
 import { roleLabels, roleMay } from "@shared/access/roles";
 import { Wordmark } from "../../components/Wordmark";
 import { useCurrentChannel, useMe } from "../../lib/session";
-import { useSignOut } from "../../features/auth/api/session-mutations";
+import { useSignOut } from "../../features/auth/api/sign-out";
 import { ConfirmAddressNotice } from "../../features/auth/components/ConfirmAddressNotice";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
 import { channelNav } from "../nav";
@@ -15,6 +15,8 @@ export function AppShell() {
   const channel = useCurrentChannel();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  // A page's code is fetched on its first visit: a thin bar says the click was taken meanwhile.
+  const opening = useNavigation().state !== "idle";
   const user = me.data?.user;
 
   return (
@@ -22,6 +24,7 @@ export function AppShell() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
         Skip to content
       </a>
+      {opening && <div role="status" aria-label="Opening the page" className="kerf-appear fixed inset-x-0 top-0 z-50 h-1 bg-amber-cut" />}
       <header className="bg-graphite-900 text-ply-50">
         <div className="mx-auto flex max-w-[96rem] flex-wrap items-center gap-4 px-4 py-2">
           <Wordmark className="text-lg" />

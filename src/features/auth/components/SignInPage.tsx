@@ -1,22 +1,24 @@
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import { inAppPath } from "@shared/auth/next-path";
-import { signInSchema, type SignInInput } from "@shared/auth/schemas";
+import type { SignInInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
-import { useSignIn } from "../api/session-mutations";
+import { useSignIn } from "../api/sign-in";
 import { AuthCard } from "../../../components/AuthCard";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors, lazyZodResolver } from "../../../lib/forms";
+
+// The shared schema, and zod with it, arrive when the form is first checked (see lazyZodResolver).
+const signInResolver = lazyZodResolver<SignInInput>(() => import("@shared/auth/schemas").then((m) => m.signInSchema));
 
 export function SignInPage() {
   const navigate = useNavigate();
   const [params] = useSearchParams();
   const signIn = useSignIn();
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: "", password: "" } });
+  const form = useForm<SignInInput>({ resolver: signInResolver, defaultValues: { email: "", password: "" } });
 
   const onSubmit = form.handleSubmit(async (values) => {
     setFormError(null);

@@ -1,22 +1,24 @@
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Link, useNavigate } from "react-router-dom";
-import { signUpSchema, type SignUpInput } from "@shared/auth/schemas";
+import type { SignUpInput } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
-import { useSignUp } from "../api/session-mutations";
+import { useSignUp } from "../api/sign-up";
 import { AuthCard } from "../../../components/AuthCard";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors, lazyZodResolver } from "../../../lib/forms";
 
 const fields = ["name", "email", "password", "channelName"] as const;
+
+// The shared schema, and zod with it, arrive when the form is first checked (see lazyZodResolver).
+const signUpResolver = lazyZodResolver<SignUpInput>(() => import("@shared/auth/schemas").then((m) => m.signUpSchema));
 
 export function SignUpPage() {
   const navigate = useNavigate();
   const signUp = useSignUp();
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema), defaultValues: { name: "", email: "", password: "", channelName: "" } });
+  const form = useForm<SignUpInput>({ resolver: signUpResolver, defaultValues: { name: "", email: "", password: "", channelName: "" } });
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (values) => {

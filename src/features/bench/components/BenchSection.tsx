@@ -2,8 +2,9 @@ import { useState } from "react";
 import { Link } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import { bestRun } from "@shared/bench/comparison";
+import type { PartView, RunView, TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { runsCsvUrl } from "../api/export-runs";
 import { useTestPlan } from "../api/get-test-plan";
@@ -17,24 +18,23 @@ import { RunForm } from "./RunForm";
 
 /** Bench runs of the episode: side-by-side comparison, chart, each run's figures and verdict, and entry. */
 export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps) {
-  const runs = useRuns(channelId, episodeId);
-  const plan = useTestPlan(channelId, episodeId);
-  const parts = useParts(channelId);
+  const bench = allOf(useRuns(channelId, episodeId), useTestPlan(channelId, episodeId), useParts(channelId));
+  return (
+    <QueryState query={bench} loading="Loading the bench runs…">
+      {([runs, plan, parts]) => <Bench channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} runs={runs} plan={plan} parts={parts} />}
+    </QueryState>
+  );
+}
+
+function Bench({ channelId, episodeId, canWrite, runs, plan, parts }: { channelId: string; episodeId: string; canWrite: boolean; runs: RunView[]; plan: TestPlanView; parts: PartView[] }) {
   const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<string | null>(null);
-  const canWrite = roleMay(role, "bench", "W");
-
-  if (runs.isPending || plan.isPending || parts.isPending) return <Loading label="Loading the bench runs…" />;
-  if (runs.isError) return <LoadError error={runs.error} retry={() => void runs.refetch()} />;
-  if (plan.isError) return <LoadError error={plan.error} retry={() => void plan.refetch()} />;
-  if (parts.isError) return <LoadError error={parts.error} retry={() => void parts.refetch()} />;
-
-  const best = bestRun(runs.data);
-  const criteria = plan.data.criteria;
+  const best = bestRun(runs);
+  const criteria = plan.criteria;
 
   return (
     <div className="flex flex-col gap-6">
-      {runs.data.length === 0 ? (
+      {runs.length === 0 ? (
         <Empty title="No bench runs yet">{canWrite ? "Enter the first candidate's measurements below." : "Runs appear here as the crew measures candidates."}</Empty>
       ) : (
         <>
@@ -45,22 +45,22 @@ export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps
                 Download the runs as CSV
               </a>
             </div>
-            <ComparisonTable runs={runs.data} bestId={best?.id ?? null} />
+            <ComparisonTable runs={runs} bestId={best?.id ?? null} />
           </Panel>
           <Panel>
-            <ComparisonChart runs={runs.data} best={best} criteria={criteria} />
+            <ComparisonChart runs={runs} best={best} criteria={criteria} />
           </Panel>
         </>
       )}
 
-      {runs.data.length > 0 && (
+      {runs.length > 0 && (
         <ol className="flex flex-col gap-4" aria-label="Bench runs">
-          {runs.data.map((run) =>
+          {runs.map((run) =>
             editing === run.id ? (
               <li key={run.id}>
                 <Panel>
                   <h3 className="mb-3 font-semibold">Edit run {run.number}</h3>
-                  <RunForm channelId={channelId} episodeId={episodeId} parts={parts.data} plan={plan.data} run={run} onDone={() => setEditing(null)} />
+                  <RunForm channelId={channelId} episodeId={episodeId} parts={parts} plan={plan} run={run} onDone={() => setEditing(null)} />
                 </Panel>
               </li>
             ) : (
@@ -74,7 +74,7 @@ export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps
         (adding ? (
           <Panel>
             <h3 className="mb-3 font-semibold">New bench run</h3>
-            {parts.data.length === 0 && (
+            {parts.length === 0 && (
               <p className="mb-3 text-sm text-graphite-500">
                 The shelf is empty: a run can still be entered with its mass weighed, or{" "}
                 <Link to={`/c/${channelId}/shelf`} className="text-rust-600 underline">
@@ -83,7 +83,7 @@ export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps
                 first.
               </p>
             )}
-            <RunForm channelId={channelId} episodeId={episodeId} parts={parts.data} plan={plan.data} onDone={() => setAdding(false)} />
+            <RunForm channelId={channelId} episodeId={episodeId} parts={parts} plan={plan} onDone={() => setAdding(false)} />
           </Panel>
         ) : (
           <div>

@@ -3,22 +3,21 @@ import { useForm } from "react-hook-form";
 import { roleMay } from "@shared/access/roles";
 import { formatFigure } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
-import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
+import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationInput, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { applyServerErrors } from "../../../lib/forms";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
 import { useBuildLog } from "../api/get-build-log";
 import { useRuns } from "../api/list-runs";
 import { useUpdateIteration } from "../api/update-iteration";
-import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
 import { asEntered, Panel } from "./marks";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 const outcomeStyles: Record<IterationOutcome, string> = {
   pending: "bg-ply-200 text-graphite-700",
@@ -29,25 +28,28 @@ const outcomeStyles: Record<IterationOutcome, string> = {
 
 /** Numbered iterations of the build, each with its own all-up mass and the thrust-to-weight that mass gives. */
 export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionProps) {
-  const log = useBuildLog(channelId, episodeId);
-  const runs = useRuns(channelId, episodeId);
+  const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId));
+  return (
+    <QueryState query={buildLog} loading="Loading the build log…">
+      {([log, runs]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} />}
+    </QueryState>
+  );
+}
+
+function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[] }) {
   const [editing, setEditing] = useState<string | null>(null);
-  const canWrite = roleMay(role, "bench", "W");
-  if (log.isPending || runs.isPending) return <Loading label="Loading the build log…" />;
-  if (log.isError) return <LoadError error={log.error} retry={() => void log.refetch()} />;
-  if (runs.isError) return <LoadError error={runs.error} retry={() => void runs.refetch()} />;
 
   return (
     <div className="flex flex-col gap-4">
-      {log.data.length === 0 ? (
+      {log.length === 0 ? (
         <Empty title="No iterations yet">{canWrite ? "Log the first build below: what it is, what it weighs, how it went." : "Iterations appear here as the build goes."}</Empty>
       ) : (
         <ol className="flex flex-col gap-3" aria-label="Build iterations">
-          {log.data.map((iteration) =>
+          {log.map((iteration) =>
             editing === iteration.id ? (
               <li key={iteration.id}>
                 <Panel>
-                  <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} iteration={iteration} onDone={() => setEditing(null)} />
+                  <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} iteration={iteration} onDone={() => setEditing(null)} />
                 </Panel>
               </li>
             ) : (
@@ -59,7 +61,7 @@ export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionPr
       {canWrite && editing === null && (
         <Panel>
           <h3 className="mb-3 font-semibold">Log an iteration</h3>
-          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs.data} />
+          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} />
         </Panel>
       )}
     </div>
@@ -127,24 +129,25 @@ const toValues = (iteration?: IterationView): IterationFormValues => ({
   notes: iteration?.notes ?? "",
 });
 
-function toInput(values: IterationFormValues) {
-  const read = converter();
-  const input = { change: values.change, allUpMass: read.quantity(values.allUpMass, "allUpMass"), outcome: values.outcome, chosenRunId: values.chosenRunId || null, notes: values.notes };
-  return { input, errors: read.errors };
-}
+const toInput = (values: IterationFormValues, read = converter()) => ({
+  change: values.change,
+  allUpMass: read.quantity(values.allUpMass, "allUpMass"),
+  outcome: values.outcome,
+  chosenRunId: values.chosenRunId || null,
+  notes: values.notes,
+});
 
 function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { channelId: string; episodeId: string; runs: RunView[]; iteration?: IterationView; onDone?: () => void }) {
   const add = useAddIteration(channelId, episodeId);
   const update = useUpdateIteration(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<IterationFormValues>({ resolver: sharedSchemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
+  const form = useForm<IterationFormValues, unknown, IterationInput>({ resolver: schemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
   const record = useOpenedRecord<IterationView>(iteration ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      const input = iterationInputSchema.parse(toInput(values).input);
       if (iteration) await update.mutateAsync({ id: iteration.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
@@ -170,16 +173,7 @@ function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { chan
       </div>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {iteration ? "Save iteration" : "Log iteration"}
-        </Button>
-        {onDone && (
-          <Button type="button" tone="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={iteration ? "Save iteration" : "Log iteration"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -1,11 +1,11 @@
 import { useId, useState } from "react";
-import { niceTicks, scale } from "@shared/bench/chart";
 import { columnUnit, figureIn, type ComparisonKey } from "@shared/bench/comparison";
 import type { PlanVerdict } from "@shared/bench/criteria";
 import { formatNumber, metricLabels, verdictLabels } from "@shared/bench/format";
 import { RATIO_UNIT } from "@shared/bench/quantity";
 import type { CriterionView, RunView } from "@shared/bench/schemas";
-import { SelectField } from "../../../components/SelectField";
+import { SelectField } from "../../../components/form-fields";
+import { axisFrom } from "./chart-axis";
 
 const yChoices: ComparisonKey[] = ["thrust_per_watt", "thrust", "thrust_to_weight", "power_per_gram", "electrical_power"];
 const xChoices: ComparisonKey[] = ["mass", "electrical_power"];
@@ -39,12 +39,10 @@ export function ComparisonChart({ runs, best, criteria }: { runs: RunView[]; bes
   const missing = runs.filter((run) => !points.some((point) => point.run.id === run.id));
   const xLines = planLines(criteria, xKey);
   const yLines = planLines(criteria, yKey);
-  const xTicks = niceTicks(Math.max(0, ...points.map((p) => p.x), ...xLines.map((l) => l.value)));
-  const yTicks = niceTicks(Math.max(0, ...points.map((p) => p.y), ...yLines.map((l) => l.value)));
-  const xMax = xTicks[xTicks.length - 1]!;
-  const yMax = yTicks[yTicks.length - 1]!;
-  const sx = scale(xMax, margin.left, width - margin.right);
-  const sy = scale(yMax, height - margin.bottom, margin.top);
+  const sx = axisFrom(Math.max(0, ...points.map((p) => p.x), ...xLines.map((l) => l.value)), [margin.left, width - margin.right]);
+  const sy = axisFrom(Math.max(0, ...points.map((p) => p.y), ...yLines.map((l) => l.value)), [height - margin.bottom, margin.top]);
+  const xTicks = sx.ticks(5);
+  const yTicks = sy.ticks(5);
   const xUnit = columnUnit(xKey) === RATIO_UNIT ? "" : ` ${columnUnit(xKey)}`;
   const yUnit = columnUnit(yKey) === RATIO_UNIT ? "" : ` ${columnUnit(yKey)}`;
 

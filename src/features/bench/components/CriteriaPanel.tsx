@@ -7,16 +7,15 @@ import { RATIO_UNIT } from "@shared/bench/quantity";
 import { criterionInputSchema, type CriterionInput, type CriterionView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
 import { Empty } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { applyServerErrors } from "../../../lib/forms";
 import { useAddCriterion } from "../api/add-criterion";
 import { useDeleteCriterion } from "../api/delete-criterion";
 import { useUpdateCriterion } from "../api/update-criterion";
-import { CheckboxField, converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, type QuantityText } from "./form-kit";
 import { Panel } from "./marks";
+import { CheckboxField, FormActions, QuantityField, SelectField, TextField } from "../../../components/form-fields";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 type Comparator = CriterionInput["comparator"];
 
@@ -51,8 +50,7 @@ function toValues(criterion?: CriterionInput): CriterionFormValues {
   return criterion.comparator === "eq" ? { ...withThreshold, tolerance: quantityText(criterion.tolerance, unit) } : withThreshold;
 }
 
-function toInput(values: CriterionFormValues) {
-  const read = converter();
+function toInput(values: CriterionFormValues, read = converter()) {
   const base = { metric: values.metric, comparator: values.comparator, required: values.required, ...(values.note.trim() ? { note: values.note.trim() } : {}) };
   const input =
     values.comparator === "between"
@@ -60,7 +58,7 @@ function toInput(values: CriterionFormValues) {
       : values.comparator === "eq"
         ? { ...base, threshold: read.quantity(values.threshold, "threshold", true), tolerance: read.quantity(values.tolerance, "tolerance", true) }
         : { ...base, threshold: read.quantity(values.threshold, "threshold", true) };
-  return { input, errors: read.errors };
+  return input;
 }
 
 const formFields = ["metric", "comparator", "threshold", "threshold.value", "threshold.unit", "tolerance", "tolerance.value", "tolerance.unit", "low", "low.value", "low.unit", "high", "high.value", "high.unit", "note"] as const;
@@ -120,17 +118,16 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
   const add = useAddCriterion(channelId, episodeId);
   const update = useUpdateCriterion(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<CriterionFormValues>({ resolver: sharedSchemaResolver(criterionInputSchema, toInput), defaultValues: toValues(criterion) });
+  const form = useForm<CriterionFormValues, unknown, CriterionInput>({ resolver: schemaResolver(criterionInputSchema, toInput), defaultValues: toValues(criterion) });
   const record = useOpenedRecord<CriterionView>(criterion ?? null, (current) => form.reset(toValues(current)));
   const [metric, comparator] = useWatch({ control: form.control, name: ["metric", "comparator"] });
   const errors = form.formState.errors;
   const suggestions = unitsForMetric(metric);
   const unitHint = metricUnit(metric) === RATIO_UNIT ? "A plain ratio: write the unit as 1." : `In ${suggestions.join(", ")}.`;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      const input = criterionInputSchema.parse(toInput(values).input);
       if (criterion) await update.mutateAsync({ id: criterion.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
@@ -176,16 +173,7 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
       <TextField label="Note (optional)" {...form.register("note")} error={errors.note?.message} />
       <CheckboxField label="Required" hint="A required criterion decides the verdict; an informative one is only shown." {...form.register("required")} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {criterion ? "Save criterion" : "Add criterion"}
-        </Button>
-        {onDone && (
-          <Button type="button" tone="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={criterion ? "Save criterion" : "Add criterion"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

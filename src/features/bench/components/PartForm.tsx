@@ -2,13 +2,11 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { unitsByDimension } from "@shared/bench/quantity";
 import { partInputSchema, partKindLabels, partKinds, type PartInput, type PartKind, type PartView } from "@shared/bench/schemas";
-import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { applyServerErrors } from "../../../lib/forms";
-import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface PartFormValues {
   name: string;
@@ -32,8 +30,7 @@ const toValues = (part?: PartView): PartFormValues => ({
   notes: part?.notes ?? "",
 });
 
-function toInput(values: PartFormValues) {
-  const read = converter();
+function toInput(values: PartFormValues, read = converter()) {
   const amount = values.price.amount.trim().replace(/^(\d+),(\d{1,2})$/, "$1.$2");
   const input = {
     name: values.name,
@@ -45,7 +42,7 @@ function toInput(values: PartFormValues) {
     supplier: values.supplier,
     notes: values.notes,
   };
-  return { input, errors: read.errors };
+  return input;
 }
 
 const fields = ["name", "kind", "mass", "mass.value", "ratedVoltage", "ratedVoltage.value", "ratedCurrent", "ratedCurrent.value", "price.amount", "price.currency", "supplier", "notes"] as const;
@@ -53,14 +50,14 @@ const fields = ["name", "kind", "mass", "mass.value", "ratedVoltage", "ratedVolt
 /** A new part, or a change of one against the version the form opened with (`onSave`'s second argument). */
 export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput, version: number) => Promise<unknown>; onCancel?: () => void }) {
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<PartFormValues>({ resolver: sharedSchemaResolver(partInputSchema, toInput), defaultValues: toValues(part) });
+  const form = useForm<PartFormValues, unknown, PartInput>({ resolver: schemaResolver(partInputSchema, toInput), defaultValues: toValues(part) });
   const record = useOpenedRecord<PartView>(part ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      await onSave(partInputSchema.parse(toInput(values).input), record.version);
+      await onSave(input, record.version);
       if (!part) form.reset(toValues());
     } catch (error) {
       const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, fields);
@@ -93,16 +90,7 @@ export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; bu
       </div>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={busy}>
-          {part ? "Save part" : "Add to the shelf"}
-        </Button>
-        {onCancel && (
-          <Button type="button" tone="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        )}
-      </div>
+      <FormActions submit={part ? "Save part" : "Add to the shelf"} busy={busy} onCancel={onCancel} />
     </form>
   );
 }

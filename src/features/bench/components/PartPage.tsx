@@ -6,8 +6,9 @@ import { partKindLabels, type PartRunView, type PartView } from "@shared/bench/s
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { Empty, QueryState } from "../../../components/States";
+import { formatInstantDay } from "../../../lib/format";
+import { useChannel, useTimeZone } from "../../../lib/session";
 import { useDeletePart } from "../api/delete-part";
 import { usePart } from "../api/get-part";
 import { useUpdatePart } from "../api/update-part";
@@ -17,23 +18,26 @@ import { priceText } from "./ShelfPage";
 
 /** One part of the shelf and every run it was in, across the channel's episodes. */
 export function PartPage() {
-  const channel = useCurrentChannel();
+  const channel = useChannel();
   const { partId = "" } = useParams();
-  if (!channel) return <Loading />;
   return <Part channelId={channel.channelId} partId={partId} canWrite={roleMay(channel.role, "bench", "W")} />;
 }
 
 function Part({ channelId, partId, canWrite }: { channelId: string; partId: string; canWrite: boolean }) {
   const page = usePart(channelId, partId);
+  return (
+    <QueryState query={page} loading="Loading the part…" page back={{ to: `/c/${channelId}/shelf`, label: "Shelf" }}>
+      {({ part, runs }) => <PartSheet channelId={channelId} part={part} runs={runs} canWrite={canWrite} />}
+    </QueryState>
+  );
+}
+
+function PartSheet({ channelId, part, runs, canWrite }: { channelId: string; part: PartView; runs: PartRunView[]; canWrite: boolean }) {
   const update = useUpdatePart(channelId);
   const remove = useDeletePart(channelId);
   const navigate = useNavigate();
   const [editing, setEditing] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
-
-  if (page.isPending) return <Loading label="Loading the part…" />;
-  if (page.isError) return <LoadError error={page.error} retry={() => void page.refetch()} />;
-  const { part, runs } = page.data;
 
   return (
     <div className="mx-auto max-w-4xl">
@@ -118,6 +122,7 @@ function PartDetails({ part }: { part: PartView }) {
 }
 
 function PartRuns({ channelId, runs }: { channelId: string; runs: PartRunView[] }) {
+  const timeZone = useTimeZone();
   return (
     <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
       <table className="w-full text-sm">
@@ -148,7 +153,7 @@ function PartRuns({ channelId, runs }: { channelId: string; runs: PartRunView[] 
               <td className="px-3 py-2">
                 <VerdictBadge verdict={run.verdict} />
               </td>
-              <td className="px-3 py-2">{new Date(run.createdAt).toLocaleDateString()}</td>
+              <td className="px-3 py-2">{formatInstantDay(run.createdAt, timeZone)}</td>
             </tr>
           ))}
         </tbody>

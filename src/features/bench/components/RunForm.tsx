@@ -8,14 +8,13 @@ import { highestSupplyVoltage } from "@shared/bench/runs";
 import { measurementLabels, partKindLabels, runInputSchema, type PartView, type RunInput, type RunView, type Supply, type TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { applyServerErrors } from "../../../lib/forms";
 import { useAddRun } from "../api/add-run";
 import { useUpdateRun } from "../api/update-run";
-import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
 import { Caution } from "./marks";
+import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface RunFormValues {
   label: string;
@@ -44,8 +43,7 @@ function toValues(plan: TestPlanView, run?: RunView): RunFormValues {
   };
 }
 
-function toInput(values: RunFormValues) {
-  const read = converter();
+function toInput(values: RunFormValues, read = converter()) {
   const parts = values.parts.map((part, index) => ({ partId: part.partId, count: read.number(part.count, `parts.${index}.count`, true) }));
   const supply =
     values.supply.kind === "lipo"
@@ -58,7 +56,7 @@ function toInput(values: RunFormValues) {
     const quantity = read.quantity(values.measurements[symbol], `measurements.${symbol}`);
     if (quantity) measurements[symbol] = quantity;
   }
-  return { input: { label: values.label, parts, supply, measurements, notes: values.notes }, errors: read.errors };
+  return { label: values.label, parts, supply, measurements, notes: values.notes };
 }
 
 const serverFields = [
@@ -74,21 +72,20 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
   const add = useAddRun(channelId, episodeId);
   const update = useUpdateRun(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<RunFormValues>({ resolver: sharedSchemaResolver(runInputSchema, toInput), defaultValues: toValues(plan, run) });
+  const form = useForm<RunFormValues, unknown, RunInput>({ resolver: schemaResolver(runInputSchema, toInput), defaultValues: toValues(plan, run) });
   const record = useOpenedRecord<RunView>(run ?? null, (current) => form.reset(toValues(plan, current)));
   const chosen = useFieldArray({ control: form.control, name: "parts" });
   const errors = form.formState.errors;
   const [supplyKind, watchedParts, watchedSupply, watchedVoltage] = useWatch({ control: form.control, name: ["supply.kind", "parts", "supply", "measurements.voltage"] });
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      const input: RunInput = runInputSchema.parse(toInput(values).input);
       if (run) await update.mutateAsync({ id: run.id, input, version: record.version });
       else await add.mutateAsync(input);
       onDone();
     } catch (error) {
-      const partFields = values.parts.flatMap((_part, index) => [`parts.${index}.partId`, `parts.${index}.count`] as Path<RunFormValues>[]);
+      const partFields = input.parts.flatMap((_part, index) => [`parts.${index}.partId`, `parts.${index}.count`] as Path<RunFormValues>[]);
       const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, [...serverFields, ...partFields]);
       if (message) setProblem(message);
     }
@@ -156,14 +153,7 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
       </fieldset>
       <TextAreaField label="Notes" {...form.register("notes")} error={errors.notes?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div className="flex gap-2">
-        <Button type="submit" busy={add.isPending || update.isPending}>
-          {run ? "Save changes" : "Save run"}
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit={run ? "Save changes" : "Save run"} busy={add.isPending || update.isPending} onCancel={onDone} />
     </form>
   );
 }

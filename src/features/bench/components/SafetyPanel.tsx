@@ -5,15 +5,15 @@ import { CUSTOM_HAZARD, FLYING_NOTE, SAFETY_NOTE, hazardCatalogue, hazardKinds, 
 import { hazardInputSchema, type HazardInput, type HazardView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
 import { Empty } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
+import { formatInstantDay } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useAddHazard } from "../api/add-hazard";
 import { useDeleteHazard } from "../api/delete-hazard";
 import { useUpdateHazard } from "../api/update-hazard";
-import { TextAreaField } from "./form-kit";
 import { Caution, Panel } from "./marks";
+import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const hazardOptions = [
   ...hazardKinds.map((kind) => ({ value: kind, label: hazardCatalogue[kind].label })),
@@ -55,6 +55,7 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
   const [editing, setEditing] = useState(false);
   const [mitigation, setMitigation] = useState(hazard.mitigation);
   const [problem, setProblem] = useState<string | null>(null);
+  const timeZone = useTimeZone();
 
   const act = async (work: Promise<unknown>) => {
     setProblem(null);
@@ -72,7 +73,7 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <p className="font-semibold">{hazard.title}</p>
         <p className={`text-xs ${hazard.checkedBy ? "text-moss-600" : "text-rust-700"}`}>
-          {hazard.checkedBy ? `✓ Checked by ${hazard.checkedBy.name}, ${new Date(hazard.checkedAt!).toLocaleDateString()}` : "Not checked yet"}
+          {hazard.checkedBy ? `✓ Checked by ${hazard.checkedBy.name}, ${formatInstantDay(hazard.checkedAt!, timeZone)}` : "Not checked yet"}
         </p>
       </div>
       {hazard.caution && <p className="mt-1 text-sm text-graphite-700">{hazard.caution}</p>}

@@ -6,8 +6,9 @@ import { partKindLabels, type PartView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { Empty, QueryState } from "../../../components/States";
+import { formatMoney } from "../../../lib/format";
+import { useChannel } from "../../../lib/session";
 import { useAddPart } from "../api/add-part";
 import { useParts } from "../api/list-parts";
 import { Panel } from "./marks";
@@ -15,13 +16,12 @@ import { PartForm } from "./PartForm";
 
 /** The channel's parts library, reused across episodes. */
 export function ShelfPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return <Shelf channelId={channel.channelId} channelName={channel.channelName} canWrite={roleMay(channel.role, "bench", "W")} />;
 }
 
 const dash = <span className="text-graphite-500">–</span>;
-export const priceText = (part: PartView) => (part.price ? `${part.price.amount} ${part.price.currency}` : null);
+export const priceText = (part: PartView) => (part.price ? formatMoney(part.price.amount, part.price.currency) : null);
 
 function Shelf({ channelId, channelName, canWrite }: { channelId: string; channelName: string; canWrite: boolean }) {
   const parts = useParts(channelId);
@@ -54,43 +54,48 @@ function Shelf({ channelId, channelName, canWrite }: { channelId: string; channe
           <Notice kind="success">{added} is on the shelf.</Notice>
         </div>
       )}
-      {parts.isPending && <Loading label="Loading the shelf…" />}
-      {parts.isError && <LoadError error={parts.error} retry={() => void parts.refetch()} />}
-      {parts.data && parts.data.length === 0 && <Empty title="The shelf is empty">{canWrite ? "Add the motors, propellers, fans and packs you test." : "Parts appear here as the crew adds them."}</Empty>}
-      {parts.data && parts.data.length > 0 && (
-        <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
-          <table className="w-full text-sm">
-            <caption className="sr-only">Parts on the shelf</caption>
-            <thead className="border-b border-ply-300 bg-ply-50 text-left">
-              <tr>
-                {["Part", "Kind", "Mass", "Rated voltage", "Rated current", "Price", "Supplier", "Runs"].map((heading) => (
-                  <th key={heading} scope="col" className="px-3 py-2 font-semibold">
-                    {heading}
-                  </th>
-                ))}
-              </tr>
-            </thead>
-            <tbody>
-              {parts.data.map((part) => (
-                <tr key={part.id} className="border-b border-ply-200 last:border-0">
-                  <th scope="row" className="px-3 py-2 text-left font-medium">
-                    <Link to={`/c/${channelId}/shelf/${part.id}`} className="text-rust-600 underline">
-                      {part.name}
-                    </Link>
-                  </th>
-                  <td className="px-3 py-2">{partKindLabels[part.kind]}</td>
-                  <td className="px-3 py-2">{part.mass ? formatQuantity(part.mass) : dash}</td>
-                  <td className="px-3 py-2">{part.ratedVoltage ? formatQuantity(part.ratedVoltage) : dash}</td>
-                  <td className="px-3 py-2">{part.ratedCurrent ? formatQuantity(part.ratedCurrent) : dash}</td>
-                  <td className="px-3 py-2">{priceText(part) ?? dash}</td>
-                  <td className="px-3 py-2">{part.supplier || dash}</td>
-                  <td className="px-3 py-2 tabular-nums">{part.runCount}</td>
+      <QueryState
+        query={parts}
+        loading="Loading the shelf…"
+        page
+        isEmpty={(list) => list.length === 0}
+        empty={<Empty title="The shelf is empty">{canWrite ? "Add the motors, propellers, fans and packs you test." : "Parts appear here as the crew adds them."}</Empty>}
+      >
+        {(list) => (
+          <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
+            <table className="w-full text-sm">
+              <caption className="sr-only">Parts on the shelf</caption>
+              <thead className="border-b border-ply-300 bg-ply-50 text-left">
+                <tr>
+                  {["Part", "Kind", "Mass", "Rated voltage", "Rated current", "Price", "Supplier", "Runs"].map((heading) => (
+                    <th key={heading} scope="col" className="px-3 py-2 font-semibold">
+                      {heading}
+                    </th>
+                  ))}
                 </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-      )}
+              </thead>
+              <tbody>
+                {list.map((part) => (
+                  <tr key={part.id} className="border-b border-ply-200 last:border-0">
+                    <th scope="row" className="px-3 py-2 text-left font-medium">
+                      <Link to={`/c/${channelId}/shelf/${part.id}`} className="text-rust-600 underline">
+                        {part.name}
+                      </Link>
+                    </th>
+                    <td className="px-3 py-2">{partKindLabels[part.kind]}</td>
+                    <td className="px-3 py-2">{part.mass ? formatQuantity(part.mass) : dash}</td>
+                    <td className="px-3 py-2">{part.ratedVoltage ? formatQuantity(part.ratedVoltage) : dash}</td>
+                    <td className="px-3 py-2">{part.ratedCurrent ? formatQuantity(part.ratedCurrent) : dash}</td>
+                    <td className="px-3 py-2">{priceText(part) ?? dash}</td>
+                    <td className="px-3 py-2">{part.supplier || dash}</td>
+                    <td className="px-3 py-2 tabular-nums">{part.runCount}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </QueryState>
     </div>
   );
 }

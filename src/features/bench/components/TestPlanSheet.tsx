@@ -4,34 +4,35 @@ import { roleMay } from "@shared/access/roles";
 import { measurementDimensions, measurementSymbols } from "@shared/bench/figures";
 import { formatQuantity } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
-import { measurementLabels, testPlanInputSchema, type TestPlanView } from "@shared/bench/schemas";
+import { measurementLabels, testPlanInputSchema, type TestPlanInput, type TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { applyServerErrors } from "../../../lib/forms";
 import { useTestPlan } from "../api/get-test-plan";
 import { useSaveTestPlan } from "../api/save-test-plan";
 import { CriteriaPanel } from "./CriteriaPanel";
-import { converter, errorAt, QuantityField, quantityText, sharedSchemaResolver, TextAreaField, type QuantityText } from "./form-kit";
 import { Panel } from "./marks";
 import { SafetyPanel } from "./SafetyPanel";
+import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 /** The episode page's test plan sheet: the question made testable, its pass criteria and its safety list. */
 export function TestPlanSheet({ channelId, episodeId, role }: EpisodeSectionProps) {
   const plan = useTestPlan(channelId, episodeId);
-  if (plan.isPending) return <Loading label="Loading the test plan…" />;
-  if (plan.isError) return <LoadError error={plan.error} retry={() => void plan.refetch()} />;
   const canWrite = roleMay(role, "testPlan", "W");
   return (
-    <div className="flex flex-col gap-6">
-      {canWrite ? <PlanForm channelId={channelId} episodeId={episodeId} plan={plan.data} /> : <PlanReadOnly plan={plan.data} />}
-      <CriteriaPanel channelId={channelId} episodeId={episodeId} criteria={plan.data.criteria} canWrite={canWrite} />
-      <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={plan.data.hazards} canWrite={canWrite} />
-    </div>
+    <QueryState query={plan} loading="Loading the test plan…">
+      {(sheet) => (
+        <div className="flex flex-col gap-6">
+          {canWrite ? <PlanForm channelId={channelId} episodeId={episodeId} plan={sheet} /> : <PlanReadOnly plan={sheet} />}
+          <CriteriaPanel channelId={channelId} episodeId={episodeId} criteria={sheet.criteria} canWrite={canWrite} />
+          <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={sheet.hazards} canWrite={canWrite} />
+        </div>
+      )}
+    </QueryState>
   );
 }
 
@@ -79,11 +80,12 @@ const toValues = (plan: TestPlanView): PlanFormValues => ({
   airframeMass: quantityText(plan.airframeMass, "g"),
 });
 
-function toInput(values: PlanFormValues) {
-  const read = converter();
-  const input = { hypothesis: values.hypothesis, method: values.method, quantities: values.quantities, airframeMass: read.quantity(values.airframeMass, "airframeMass") };
-  return { input, errors: read.errors };
-}
+const toInput = (values: PlanFormValues, read = converter()) => ({
+  hypothesis: values.hypothesis,
+  method: values.method,
+  quantities: values.quantities,
+  airframeMass: read.quantity(values.airframeMass, "airframeMass"),
+});
 
 const measureOptions = measurementSymbols.map((symbol) => ({ value: symbol, label: measurementLabels[symbol] }));
 const unitsOf = (measures: (typeof measurementSymbols)[number]) => unitsByDimension[measurementDimensions[measures]];
@@ -91,17 +93,17 @@ const unitsOf = (measures: (typeof measurementSymbols)[number]) => unitsByDimens
 function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId: string; plan: TestPlanView }) {
   const save = useSaveTestPlan(channelId, episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
-  const form = useForm<PlanFormValues>({ resolver: sharedSchemaResolver(testPlanInputSchema, toInput), defaultValues: toValues(plan) });
+  const form = useForm<PlanFormValues, unknown, TestPlanInput>({ resolver: schemaResolver(testPlanInputSchema, toInput), defaultValues: toValues(plan) });
   // The sheet as this form opened it: a save is made against its version (0 before the first save).
   const record = useOpenedRecord(plan, (current) => form.reset(toValues(current)));
   const quantities = useFieldArray({ control: form.control, name: "quantities" });
   const measures = useWatch({ control: form.control, name: "quantities" });
   const errors = form.formState.errors;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = form.handleSubmit(async (input) => {
     setNotice(null);
     try {
-      record.startFrom(await save.mutateAsync({ ...testPlanInputSchema.parse(toInput(values).input), version: record.version }));
+      record.startFrom(await save.mutateAsync({ ...input, version: record.version }));
       setNotice({ kind: "success", text: "Test plan saved." });
     } catch (error) {
       const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["hypothesis", "method", "airframeMass", "airframeMass.value", "airframeMass.unit"]);

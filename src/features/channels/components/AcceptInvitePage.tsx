@@ -8,13 +8,13 @@ import { passwordSchema, personNameSchema } from "@shared/auth/schemas";
 import type { InvitationPreview } from "@shared/channels/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
-import { ApiError } from "../../../lib/api-client";
-import { applyServerErrors } from "../../../lib/forms";
+import { allOf, QueryState } from "../../../components/States";
 import { useMe } from "../../../lib/session";
 import { AuthCard } from "../../../components/AuthCard";
-import { useAcceptInvitation, useInvitation } from "../api/invitation";
+import { useAcceptInvitation } from "../api/accept-invitation";
+import { useInvitation } from "../api/get-invitation";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const newcomerSchema = z.object({ name: personNameSchema, password: passwordSchema });
 type Newcomer = z.infer<typeof newcomerSchema>;
@@ -31,40 +31,41 @@ export function AcceptInvitePage() {
   const invitation = useInvitation(token);
   const me = useMe();
 
-  if (invitation.isPending || me.isPending) return <AuthCard title="Invitation"><Loading /></AuthCard>;
-  if (invitation.isError) {
-    const missing = invitation.error instanceof ApiError && invitation.error.status === 404;
-    return (
-      <AuthCard title="Invitation">
-        <Notice kind="error">{missing ? "This invitation link is not valid. Check that you copied all of it, or ask for a new one." : invitation.error.message}</Notice>
-      </AuthCard>
-    );
-  }
   const preview = invitation.data;
-  if (preview.state !== "open") {
-    return (
-      <AuthCard title="Invitation" footer={<Link className="font-semibold text-rust-600 underline" to="/sign-in">Go to sign-in</Link>}>
-        <Notice kind="error">{closedText[preview.state]} Ask the owner of {preview.channelName} for a new one.</Notice>
-      </AuthCard>
-    );
-  }
+  const open = preview?.state === "open";
   return (
-    <AuthCard title={`Join ${preview.channelName}`}>
+    <AuthCard
+      title={open ? `Join ${preview.channelName}` : "Invitation"}
+      footer={preview && !open ? <Link className="font-semibold text-rust-600 underline" to="/sign-in">Go to sign-in</Link> : undefined}
+    >
+      <QueryState query={allOf(invitation, me)} missing={invalidLink}>
+        {([preview, { user }]) => <Invitation token={token} preview={preview} signedIn={user ?? null} />}
+      </QueryState>
+    </AuthCard>
+  );
+}
+
+const invalidLink = { title: "This invitation link is not valid", text: "Check that you copied all of it, or ask for a new one." };
+
+function Invitation({ token, preview, signedIn }: { token: string; preview: InvitationPreview; signedIn: { name: string; email: string } | null }) {
+  if (preview.state !== "open") return <Notice kind="error">{closedText[preview.state]} Ask the owner of {preview.channelName} for a new one.</Notice>;
+  return (
+    <>
       <p className="mb-4 text-graphite-700">
         {preview.invitedBy} invited <strong>{preview.email}</strong> to join as <strong>{roleLabels[preview.role].toLowerCase()}</strong>.
       </p>
-      {me.data?.user ? (
-        me.data.user.email === preview.email ? (
-          <JoinAsSignedIn token={token} name={me.data.user.name} />
+      {signedIn ? (
+        signedIn.email === preview.email ? (
+          <JoinAsSignedIn token={token} name={signedIn.name} />
         ) : (
-          <OtherAddress invited={preview.email} signedInAs={me.data.user.email} />
+          <OtherAddress invited={preview.email} signedInAs={signedIn.email} />
         )
       ) : preview.hasAccount ? (
         <SignInFirst token={token} />
       ) : (
         <JoinAsNewcomer token={token} />
       )}
-    </AuthCard>
+    </>
   );
 }
 

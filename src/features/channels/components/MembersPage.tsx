@@ -6,12 +6,16 @@ import { inviteSchema, type InviteInput, type Member } from "@shared/channels/sc
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { SelectField } from "../../../components/SelectField";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { Empty, QueryState } from "../../../components/States";
+import { formatInstant } from "../../../lib/format";
+import { useChannel, useMe, useTimeZone } from "../../../lib/session";
+import { useChangeRole } from "../api/change-role";
+import { useInvite } from "../api/invite-member";
+import { useMembers } from "../api/list-members";
+import { useRemoveMember } from "../api/remove-member";
+import { useRevokeInvitation } from "../api/revoke-invitation";
+import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
-import { useCurrentChannel, useMe } from "../../../lib/session";
-import { useChangeRole, useInvite, useMembers, useRemoveMember, useRevokeInvitation } from "../api/members";
 
 const roleOptions = roles.map((role) => ({ value: role, label: roleLabels[role] }));
 
@@ -23,8 +27,7 @@ const roleDuties: Record<Role, string> = {
 };
 
 export function MembersPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return <Members channelId={channel.channelId} canManage={roleMay(channel.role, "members", "W")} channelName={channel.channelName} />;
 }
 
@@ -34,14 +37,14 @@ function Members({ channelId, canManage, channelName }: { channelId: string; can
     <div className="mx-auto max-w-4xl">
       <PageHeader title="Members" subtitle={`Who works on ${channelName}, and what each role may do.`} />
       {canManage && <InviteForm channelId={channelId} />}
-      {members.isPending && <Loading label="Loading members…" />}
-      {members.isError && <LoadError error={members.error} retry={() => void members.refetch()} />}
-      {members.data && (
-        <>
-          <MemberTable channelId={channelId} members={members.data.members} canManage={canManage} />
-          <PendingInvitations channelId={channelId} invitations={members.data.invitations} canManage={canManage} />
-        </>
-      )}
+      <QueryState query={members} loading="Loading members…">
+        {(data) => (
+          <>
+            <MemberTable channelId={channelId} members={data.members} canManage={canManage} />
+            <PendingInvitations channelId={channelId} invitations={data.invitations} canManage={canManage} />
+          </>
+        )}
+      </QueryState>
       {!canManage && <p className="mt-6 text-sm text-graphite-500">Only an owner can invite people or change roles.</p>}
     </div>
   );
@@ -159,6 +162,7 @@ function MemberTable({ channelId, members, canManage }: { channelId: string; mem
 
 function PendingInvitations({ channelId, invitations, canManage }: { channelId: string; invitations: { id: string; email: string; role: Role; expiresAt: string; invitedBy: string }[]; canManage: boolean }) {
   const revoke = useRevokeInvitation(channelId);
+  const timeZone = useTimeZone();
   return (
     <section aria-labelledby="pending-heading" className="mt-8">
       <h2 id="pending-heading" className="mb-3 font-semibold">
@@ -173,7 +177,7 @@ function PendingInvitations({ channelId, invitations, canManage }: { channelId: 
               <div className="flex-1">
                 <p className="font-medium">{invitation.email}</p>
                 <p className="text-sm text-graphite-500">
-                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {new Date(invitation.expiresAt).toLocaleDateString()}
+                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {formatInstant(invitation.expiresAt, timeZone)}
                 </p>
               </div>
               {canManage && (

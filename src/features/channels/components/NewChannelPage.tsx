@@ -6,8 +6,8 @@ import { channelNameSchema } from "@shared/auth/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { TextField } from "../../../components/TextField";
 import { useCreateChannel } from "../api/create-channel";
+import { TextField } from "../../../components/form-fields";
 
 const schema = z.object({ name: channelNameSchema });
 

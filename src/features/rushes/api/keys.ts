@@ -9,6 +9,9 @@ export const rushesKeys = {
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
   shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
   shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,
-  shootDay: (channelId: string, shootDayId: string) => [...rushesKeys.channel(channelId), "shoot-day", shootDayId] as const,
+  shootDayPages: (channelId: string) => [...rushesKeys.channel(channelId), "shoot-day"] as const,
+  shootDay: (channelId: string, shootDayId: string) => [...rushesKeys.shootDayPages(channelId), shootDayId] as const,
+  shootCrew: (channelId: string) => [...rushesKeys.channel(channelId), "shoot-crew"] as const,
+  episodeTitles: (channelId: string) => [...rushesKeys.channel(channelId), "episode-titles"] as const,
   openUploads: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "uploads", episodeId] as const,
 };

@@ -12,6 +12,3 @@ export const footageQueryOptions = (channelId: string, query: string) =>
   });
 
 export const useFootage = (channelId: string, query: string) => useQuery(footageQueryOptions(channelId, query));
-
-export const exportUrl = (channelId: string, kind: "csv" | "edl" | "otio", query: string) => `/api/channels/${channelId}/exports/footage.${kind}?${query}`;
-export const zipUrl = (channelId: string, ids: string[]) => `/api/channels/${channelId}/exports/footage.zip?ids=${ids.join(",")}`;

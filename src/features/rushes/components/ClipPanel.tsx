@@ -1,15 +1,19 @@
 import { useEffect, useRef, useState, type FormEvent } from "react";
-import { formatBytes } from "@shared/rushes/limits";
-import type { ClipDetail } from "@shared/rushes/schemas";
+import type { ClipDetail, ShootDayView, ShotView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { LoadError, Loading } from "../../../components/States";
-import { api, ApiError } from "../../../lib/api-client";
-import { useClip, usePreview } from "../api/get-clip";
-import { useShootDays, useShots } from "../api/shoot";
-import { useDeleteClip, useUpdateClip } from "../api/update-clip";
-import { clipFormatText, formatDuration, formatWhen } from "./format";
+import { allOf, QueryState } from "../../../components/States";
+import { ApiError } from "../../../lib/api-client";
+import { useDeleteClip } from "../api/delete-clip";
+import { useClip } from "../api/get-clip";
+import { fetchDownloadLink, usePreview } from "../api/get-preview";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
+import { useUpdateClip } from "../api/update-clip";
+import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
+import { clipFormatText } from "./labels";
 import { MarksEditor } from "./MarksEditor";
 
 /** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks). */
@@ -32,9 +36,9 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
           Close
         </Button>
       </div>
-      {clip.isPending && <Loading label="Loading the clip…" />}
-      {clip.isError && <LoadError error={clip.error} retry={() => void clip.refetch()} />}
-      {clip.data && <ClipBody channelId={channelId} clip={clip.data} canDelete={canDelete} onDeleted={onClose} />}
+      <QueryState query={clip} loading="Loading the clip…">
+        {(detail) => <ClipBody channelId={channelId} clip={detail} canDelete={canDelete} onDeleted={onClose} />}
+      </QueryState>
     </aside>
   );
 }
@@ -43,8 +47,9 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
   const preview = usePreview(channelId, clip.id);
   const remove = useDeleteClip(channelId);
   const [unplayable, setUnplayable] = useState(false);
+  const timeZone = useTimeZone();
   const download = async () => {
-    const { url } = await api<{ url: string }>(`/api/channels/${channelId}/clips/${clip.id}/preview?download=1`);
+    const { url } = await fetchDownloadLink(channelId, clip.id);
     window.location.assign(url);
   };
   return (
@@ -84,13 +89,13 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
         <dt className="text-graphite-500">Picture</dt>
         <dd>{clip.width && clip.height ? `${clip.width}×${clip.height}` : "unknown"} · {clip.codec ?? "codec unknown"}</dd>
         <dt className="text-graphite-500">Recorded</dt>
-        <dd>{formatWhen(clip.recordedAt)}</dd>
+        <dd>{formatInstant(clip.recordedAt, timeZone)}</dd>
         <dt className="text-graphite-500">Size</dt>
-        <dd>{formatBytes(clip.size)}</dd>
+        <dd>{formatSize(clip.size)}</dd>
         <dt className="text-graphite-500">Checksum</dt>
         <dd className="font-mono text-xs break-all">{clip.sha256 ? `SHA-256 ${clip.sha256}` : clip.storageEtag ? `storage ETag ${clip.storageEtag}` : "none"}</dd>
       </dl>
-      <LogForm channelId={channelId} clip={clip} />
+      <ClipLog channelId={channelId} clip={clip} />
       <MarksEditor channelId={channelId} clip={clip} />
       {canDelete && (
         <div className="border-t border-ply-200 pt-4">
@@ -112,10 +117,14 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
 
 const select = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
-function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+/** The log waits for the episode's days and shots, so its menus open on the clip's own choices. */
+function ClipLog({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+  const plan = allOf(useShootDays(channelId, clip.episodeId), useShots(channelId, clip.episodeId));
+  return <QueryState query={plan} loading="Loading the log…">{([days, shots]) => <LogForm channelId={channelId} clip={clip} days={days} shots={shots} />}</QueryState>;
+}
+
+function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: ClipDetail; days: ShootDayView[]; shots: ShotView[] }) {
   const update = useUpdateClip(channelId, clip.id);
-  const days = useShootDays(channelId, clip.episodeId);
-  const shots = useShots(channelId, clip.episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const submit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -142,13 +151,13 @@ function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
     }
   };
   return (
-    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
+    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 grid-cols-1 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
       <h3 className="font-semibold sm:col-span-2">Log</h3>
       <label className="flex flex-col gap-1 text-sm font-medium">
         Shot
         <select name="shotId" defaultValue={clip.shotId ?? ""} className={select}>
           <option value="">No shot</option>
-          {shots.data?.map((s) => (
+          {shots.map((s) => (
             <option key={s.id} value={s.id}>
               {s.description}
             </option>
@@ -159,9 +168,9 @@ function LogForm({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
         Shoot day
         <select name="shootDayId" defaultValue={clip.shootDayId ?? ""} className={select}>
           <option value="">No day</option>
-          {days.data?.map((d) => (
+          {days.map((d) => (
             <option key={d.id} value={d.id}>
-              {d.day} {d.place}
+              {formatDay(d.day)} {d.place}
             </option>
           ))}
         </select>

@@ -1,15 +1,23 @@
+import { lazy, Suspense } from "react";
 import { roleMay } from "@shared/access/roles";
+import { Loading } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { FootageList } from "./FootageList";
 import { ShootPlan } from "./ShootPlan";
-import { Uploader } from "./Uploader";
+
+// The uploader (and the metadata reader it loads when a file is chosen) is fetched only for those who may upload.
+const Uploader = lazy(() => import("./Uploader").then((m) => ({ default: m.Uploader })));
 
 /** The episode page's shoot and footage section: the plan, the uploads, and this episode's footage. */
 export function EpisodeRushes({ channelId, episodeId, role }: EpisodeSectionProps) {
   return (
     <div className="grid gap-6">
       {roleMay(role, "shoot", "R") && <ShootPlan channelId={channelId} episodeId={episodeId} />}
-      {roleMay(role, "footage", "W") && <Uploader channelId={channelId} episodeId={episodeId} />}
+      {roleMay(role, "footage", "W") && (
+        <Suspense fallback={<Loading label="Loading the uploader…" />}>
+          <Uploader channelId={channelId} episodeId={episodeId} />
+        </Suspense>
+      )}
       {roleMay(role, "footage", "R") && (
         <section aria-labelledby="episode-footage-heading">
           <h3 id="episode-footage-heading" className="mb-2 font-semibold">

@@ -1,16 +1,18 @@
 import { useState, type FormEvent } from "react";
 import { useSearchParams } from "react-router-dom";
 import { filterKeys, footageQuerySchema, footageSearchParams, footageSortLabels, type FootageSort } from "@shared/rushes/footage-query";
-import { formatBytes } from "@shared/rushes/limits";
 import type { ClipView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useEpisodeChoices } from "../api/list-episodes";
-import { exportUrl, useFootage, zipUrl } from "../api/list-footage";
-import { useShootDays, useShots } from "../api/shoot";
+import { Empty, QueryState } from "../../../components/States";
+import { useEpisodeTitles } from "../api/list-episode-titles";
+import { exportUrl, zipUrl } from "../api/export-footage";
+import { useFootage } from "../api/list-footage";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
 import { ClipPanel } from "./ClipPanel";
-import { formatDuration, formatWhen } from "./format";
+import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 
 const input = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
@@ -46,88 +48,88 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
   return (
     <div>
       <Filters channelId={channelId} episodeId={episodeId} values={q} onApply={update} />
-      {footage.isPending && <Loading label="Loading footage…" />}
-      {footage.isError && <LoadError error={footage.error} retry={() => void footage.refetch()} />}
-      {footage.data && (
-        <>
-          <div className="my-3 flex flex-wrap items-center justify-between gap-3">
-            <p className="text-sm text-graphite-700" aria-live="polite" data-testid="footage-totals">
-              <strong>{footage.data.totals.clips}</strong> {footage.data.totals.clips === 1 ? "clip" : "clips"} · {formatDuration(footage.data.totals.durationMs)} running time · {formatBytes(footage.data.totals.bytes)}
-            </p>
-            <div className="flex flex-wrap gap-2 text-sm">
-              <span className="self-center text-graphite-500">Export this filter:</span>
-              <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "csv", listQuery)} download>
-                CSV
-              </a>
-              <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "edl", listQuery)} download>
-                EDL (CMX 3600)
-              </a>
-              <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "otio", listQuery)} download>
-                OpenTimelineIO
-              </a>
-              {selected.size > 0 && (
-                <a className="rounded-md bg-rust-600 px-3 py-1.5 font-semibold text-white hover:bg-rust-700" href={zipUrl(channelId, [...selected])} download>
-                  Download {selected.size} as zip
+      <QueryState query={footage} loading="Loading footage…">
+        {(page) => (
+          <>
+            <div className="my-3 flex flex-wrap items-center justify-between gap-3">
+              <p className="text-sm text-graphite-700" aria-live="polite" data-testid="footage-totals">
+                <strong>{page.totals.clips}</strong> {page.totals.clips === 1 ? "clip" : "clips"} · {formatDuration(page.totals.durationMs)} running time · {formatSize(page.totals.bytes)}
+              </p>
+              <div className="flex flex-wrap gap-2 text-sm">
+                <span className="self-center text-graphite-500">Export this filter:</span>
+                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "csv", listQuery)} download>
+                  CSV
                 </a>
-              )}
+                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "edl", listQuery)} download>
+                  EDL (CMX 3600)
+                </a>
+                <a className="rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 font-semibold hover:bg-ply-200" href={exportUrl(channelId, "otio", listQuery)} download>
+                  OpenTimelineIO
+                </a>
+                {selected.size > 0 && (
+                  <a className="rounded-md bg-rust-600 px-3 py-1.5 font-semibold text-white hover:bg-rust-700" href={zipUrl(channelId, [...selected])} download>
+                    Download {selected.size} as zip
+                  </a>
+                )}
+              </div>
             </div>
-          </div>
-          {footage.data.clips.length === 0 ? (
-            <Empty title="No footage matches">{params.toString() ? "Loosen a filter, or upload camera files." : "Upload camera files to see them here."}</Empty>
-          ) : (
-            <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
-              <table className="w-full text-left text-sm">
-                <caption className="sr-only">Footage, sorted by {footageSortLabels[q.sort]} {q.dir === "asc" ? "ascending" : "descending"}</caption>
-                <thead className="bg-ply-100 text-xs uppercase tracking-wide text-graphite-500">
-                  <tr>
-                    <th className="px-2 py-2">
-                      <span className="sr-only">Select</span>
-                    </th>
-                    <th className="px-2 py-2">Poster</th>
-                    <SortHeader label="File" sort="name" q={q} onSort={sortBy} />
-                    <SortHeader label="Recorded" sort="recorded" q={q} onSort={sortBy} />
-                    <SortHeader label="Duration" sort="duration" q={q} onSort={sortBy} />
-                    <th className="px-2 py-2">Start TC</th>
-                    <th className="px-2 py-2">Rating</th>
-                    <th className="px-2 py-2">Shot</th>
-                    <th className="px-2 py-2">Tags</th>
-                    <th className="px-2 py-2">Marks</th>
-                    <SortHeader label="Size" sort="size" q={q} onSort={sortBy} />
-                  </tr>
-                </thead>
-                <tbody className="divide-y divide-ply-200">
-                  {footage.data.clips.map((clip) => (
-                    <ClipRow key={clip.id} clip={clip} selected={selected.has(clip.id)} onToggle={() => toggle(clip.id)} onOpen={() => update({ clip: clip.id, cursor: q.cursor })} />
-                  ))}
-                </tbody>
-              </table>
-            </div>
-          )}
-          <nav aria-label="Pages" className="mt-3 flex gap-2">
-            <Button
-              tone="quiet"
-              disabled={history.length === 0}
-              onClick={() => {
-                const previous = history.at(-1);
-                setHistory((h) => h.slice(0, -1));
-                update({ cursor: previous || undefined });
-              }}
-            >
-              Previous page
-            </Button>
-            <Button
-              tone="quiet"
-              disabled={!footage.data.nextCursor}
-              onClick={() => {
-                setHistory((h) => [...h, q.cursor ?? ""]);
-                update({ cursor: footage.data.nextCursor ?? undefined });
-              }}
-            >
-              Next page
-            </Button>
-          </nav>
-        </>
-      )}
+            {page.clips.length === 0 ? (
+              <Empty title="No footage matches">{params.toString() ? "Loosen a filter, or upload camera files." : "Upload camera files to see them here."}</Empty>
+            ) : (
+              <div className="overflow-x-auto rounded-lg border border-ply-300 bg-white">
+                <table className="w-full text-left text-sm">
+                  <caption className="sr-only">Footage, sorted by {footageSortLabels[q.sort]} {q.dir === "asc" ? "ascending" : "descending"}</caption>
+                  <thead className="bg-ply-100 text-xs uppercase tracking-wide text-graphite-500">
+                    <tr>
+                      <th className="px-2 py-2">
+                        <span className="sr-only">Select</span>
+                      </th>
+                      <th className="px-2 py-2">Poster</th>
+                      <SortHeader label="File" sort="name" q={q} onSort={sortBy} />
+                      <SortHeader label="Recorded" sort="recorded" q={q} onSort={sortBy} />
+                      <SortHeader label="Duration" sort="duration" q={q} onSort={sortBy} />
+                      <th className="px-2 py-2">Start TC</th>
+                      <th className="px-2 py-2">Rating</th>
+                      <th className="px-2 py-2">Shot</th>
+                      <th className="px-2 py-2">Tags</th>
+                      <th className="px-2 py-2">Marks</th>
+                      <SortHeader label="Size" sort="size" q={q} onSort={sortBy} />
+                    </tr>
+                  </thead>
+                  <tbody className="divide-y divide-ply-200">
+                    {page.clips.map((clip) => (
+                      <ClipRow key={clip.id} clip={clip} selected={selected.has(clip.id)} onToggle={() => toggle(clip.id)} onOpen={() => update({ clip: clip.id, cursor: q.cursor })} />
+                    ))}
+                  </tbody>
+                </table>
+              </div>
+            )}
+            <nav aria-label="Pages" className="mt-3 flex gap-2">
+              <Button
+                tone="quiet"
+                disabled={history.length === 0}
+                onClick={() => {
+                  const previous = history.at(-1);
+                  setHistory((h) => h.slice(0, -1));
+                  update({ cursor: previous || undefined });
+                }}
+              >
+                Previous page
+              </Button>
+              <Button
+                tone="quiet"
+                disabled={!page.nextCursor}
+                onClick={() => {
+                  setHistory((h) => [...h, q.cursor ?? ""]);
+                  update({ cursor: page.nextCursor ?? undefined });
+                }}
+              >
+                Next page
+              </Button>
+            </nav>
+          </>
+        )}
+      </QueryState>
       {openClip && <ClipPanel channelId={channelId} clipId={openClip} canDelete={canDelete} onClose={() => update({ clip: undefined, cursor: q.cursor })} />}
     </div>
   );
@@ -145,6 +147,7 @@ function SortHeader({ label, sort, q, onSort }: { label: string; sort: FootageSo
 }
 
 function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selected: boolean; onToggle: () => void; onOpen: () => void }) {
+  const timeZone = useTimeZone();
   return (
     <tr className={selected ? "bg-ply-100" : undefined}>
       <td className="px-2 py-1.5">
@@ -159,14 +162,14 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
         </button>
         <p className="text-xs text-graphite-500">{clip.camera || clip.episodeTitle}</p>
       </td>
-      <td className="px-2 py-1.5 whitespace-nowrap">{formatWhen(clip.recordedAt)}</td>
+      <td className="px-2 py-1.5 whitespace-nowrap">{formatInstant(clip.recordedAt, timeZone)}</td>
       <td className="px-2 py-1.5 tabular-nums">{formatDuration(clip.durationMs)}</td>
       <td className="px-2 py-1.5 font-mono text-xs">{clip.startTimecode ?? "—"}</td>
       <td className="px-2 py-1.5">{clip.rating ? clipRatingLabels[clip.rating] : "—"}</td>
       <td className="px-2 py-1.5 text-xs">{clip.shotDescription ?? "—"}</td>
       <td className="px-2 py-1.5 text-xs">{clip.tags.join(", ") || "—"}</td>
       <td className="px-2 py-1.5 tabular-nums">{clip.markCount}</td>
-      <td className="px-2 py-1.5 whitespace-nowrap tabular-nums">{formatBytes(clip.size)}</td>
+      <td className="px-2 py-1.5 whitespace-nowrap tabular-nums">{formatSize(clip.size)}</td>
     </tr>
   );
 }
@@ -174,7 +177,7 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
 type Values = Partial<Record<(typeof filterKeys)[number], string | undefined>>;
 
 function Filters({ channelId, episodeId, values, onApply }: { channelId: string; episodeId?: string; values: Values; onApply: (v: Record<string, string | undefined>) => void }) {
-  const episodes = useEpisodeChoices(channelId);
+  const episodes = useEpisodeTitles(channelId, !episodeId);
   const chosenEpisode = episodeId ?? values.episodeId;
   const submit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -260,7 +263,7 @@ function EpisodeFilters({ channelId, episodeId, values }: { channelId: string; e
           <option value="">Any day</option>
           {days.data?.map((d) => (
             <option key={d.id} value={d.id}>
-              {d.day} {d.place}
+              {formatDay(d.day)} {d.place}
             </option>
           ))}
         </select>

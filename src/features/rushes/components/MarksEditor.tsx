@@ -4,14 +4,16 @@ import { z } from "zod";
 import type { ClipDetail } from "@shared/rushes/schemas";
 import { markRangeAt } from "@shared/timecode/schemas";
 import { Button } from "../../../components/Button";
-import { TextField } from "../../../components/TextField";
+import { useAddMark } from "../api/add-mark";
+import { useDeleteMark } from "../api/delete-mark";
+import { clipFormatText } from "./labels";
+import { TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
-import { useMarks } from "../api/update-clip";
-import { clipFormatText } from "./format";
 
 /** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
 export function MarksEditor({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
-  const marks = useMarks(channelId, clip.id);
+  const addMark = useAddMark(channelId, clip.id);
+  const deleteMark = useDeleteMark(channelId, clip.id);
   const format = clip.frameRate ? { rate: clip.frameRate, dropFrame: clip.dropFrame } : null;
   const separator = clip.dropFrame ? ";" : ":";
   const start = clip.startTimecode ?? `00:00:00${separator}00`;
@@ -35,19 +37,19 @@ export function MarksEditor({ channelId, clip }: { channelId: string; clip: Clip
                     {m.in} → {m.out}
                   </span>
                   <span className="flex-1">{m.note}</span>
-                  <Button tone="quiet" aria-label={`Remove mark ${m.in} to ${m.out}`} onClick={() => marks.remove.mutate(m.id)}>
+                  <Button tone="quiet" aria-label={`Remove mark ${m.in} to ${m.out}`} onClick={() => deleteMark.mutate(m.id)}>
                     Remove
                   </Button>
                 </li>
               ))}
             </ul>
           )}
-          {marks.remove.isError && (
+          {deleteMark.isError && (
             <p role="alert" className="mb-2 text-sm text-alarm-600">
-              {marks.remove.error.message}
+              {deleteMark.error.message}
             </p>
           )}
-          <MarkForm key={clip.id} format={format} start={start} onAdd={(v) => marks.add.mutateAsync(v)} />
+          <MarkForm key={clip.id} format={format} start={start} onAdd={(v) => addMark.mutateAsync(v)} />
         </>
       )}
     </section>

@@ -1,13 +1,11 @@
 import { roleMay } from "@shared/access/roles";
 import { PageHeader } from "../../../components/PageHeader";
-import { Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { useChannel } from "../../../lib/session";
 import { FootageList } from "./FootageList";
 
 /** Every clip of the channel, for the editor: filter, sort, preview, mark and export. */
 export function RushesPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return (
     <div>
       <PageHeader title="Rushes" subtitle="Every clip of the channel. Upload from an episode's page; find, mark and export here." />

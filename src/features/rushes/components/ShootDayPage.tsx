@@ -1,23 +1,28 @@
 import { Link, useParams } from "react-router-dom";
 import { shotKindLabels, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
-import { useShootDay } from "../api/shoot";
+import { Empty, QueryState } from "../../../components/States";
+import { formatDay } from "../../../lib/format";
+import { useChannel } from "../../../lib/session";
+import { useShootDay, type ShootDayDetail } from "../api/get-shoot-day";
 
 /** The crew's view of one day: what is still missing before the set is struck, biggest first. */
 export function ShootDayPage() {
-  const channel = useCurrentChannel();
+  const channel = useChannel();
   const { shootDayId = "" } = useParams();
-  if (!channel) return <Loading />;
   return <ShootDay channelId={channel.channelId} shootDayId={shootDayId} />;
 }
 
 function ShootDay({ channelId, shootDayId }: { channelId: string; shootDayId: string }) {
   const day = useShootDay(channelId, shootDayId);
-  if (day.isPending) return <Loading label="Loading the shoot day…" />;
-  if (day.isError) return <LoadError error={day.error} retry={() => void day.refetch()} />;
-  const { shootDay, shots, missing, episodeTitle } = day.data;
+  return (
+    <QueryState query={day} loading="Loading the shoot day…" page back={{ to: `/c/${channelId}/rushes`, label: "Rushes" }}>
+      {(detail) => <ShootDaySheet channelId={channelId} detail={detail} />}
+    </QueryState>
+  );
+}
+
+function ShootDaySheet({ channelId, detail: { shootDay, shots, missing, episodeTitle } }: { channelId: string; detail: ShootDayDetail }) {
   const done = shots.filter((s) => s.status !== "planned");
   return (
     <article className="mx-auto max-w-3xl">
@@ -25,7 +30,7 @@ function ShootDay({ channelId, shootDayId }: { channelId: string; shootDayId: st
         ← {episodeTitle}
       </Link>
       <PageHeader
-        title={`Shoot day ${shootDay.day}`}
+        title={`Shoot day ${formatDay(shootDay.day)}`}
         subtitle={`${shootDay.place || "Place not set"} · ${shootDay.callTime ? `call ${shootDay.callTime}` : "no call time"} · ${shootDay.crew.map((c) => c.name).join(", ") || "no crew named"}`}
       />
       <section aria-labelledby="missing-heading" className="mb-8">

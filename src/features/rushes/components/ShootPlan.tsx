@@ -2,45 +2,56 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Link } from "react-router-dom";
-import { shootDaySchema, shotSchema, type ShootDayInput, type ShotInput, type ShotView } from "@shared/rushes/schemas";
+import { shootDaySchema, shotSchema, type ShootDayInput, type ShootDayView, type ShotInput, type ShotView } from "@shared/rushes/schemas";
 import { shotKindLabels, shotKinds, shotPriorities, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
-import { SelectField } from "../../../components/SelectField";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { allOf, Empty, QueryState } from "../../../components/States";
+import { formatDay } from "../../../lib/format";
+import { useCreateShootDay } from "../api/add-shoot-day";
+import { useCreateShot } from "../api/add-shot";
+import { useDeleteShootDay } from "../api/delete-shoot-day";
+import { useDeleteShot } from "../api/delete-shot";
+import { useShootCrew } from "../api/list-shoot-crew";
+import { useShootDays } from "../api/list-shoot-days";
+import { useShots } from "../api/list-shots";
+import { useUpdateShot } from "../api/update-shot";
+import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
-import { useCreateShootDay, useCreateShot, useDeleteShootDay, useDeleteShot, useShootCrew, useShootDays, useShots, useUpdateShot } from "../api/shoot";
 
 /** The episode's shoot days and its shot list, with which shots already have footage. */
 export function ShootPlan({ channelId, episodeId }: { channelId: string; episodeId: string }) {
-  const days = useShootDays(channelId, episodeId);
-  const shots = useShots(channelId, episodeId);
+  const plan = allOf(useShootDays(channelId, episodeId), useShots(channelId, episodeId));
+  return (
+    <QueryState query={plan} loading="Loading the shoot plan…">
+      {([days, shots]) => <Plan channelId={channelId} episodeId={episodeId} days={days} shots={shots} />}
+    </QueryState>
+  );
+}
+
+function Plan({ channelId, episodeId, days, shots }: { channelId: string; episodeId: string; days: ShootDayView[]; shots: ShotView[] }) {
   const removeDay = useDeleteShootDay(channelId, episodeId);
-  if (days.isPending || shots.isPending) return <Loading label="Loading the shoot plan…" />;
-  if (days.isError) return <LoadError error={days.error} retry={() => void days.refetch()} />;
-  if (shots.isError) return <LoadError error={shots.error} retry={() => void shots.refetch()} />;
   return (
     <div className="grid gap-6">
       <section aria-labelledby="days-heading">
         <h3 id="days-heading" className="mb-2 font-semibold">
           Shoot days
         </h3>
-        {days.data.length === 0 ? (
+        {days.length === 0 ? (
           <Empty title="No shoot days yet">Add the first day below.</Empty>
         ) : (
           <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white">
-            {days.data.map((d) => (
+            {days.map((d) => (
               <li key={d.id} className="flex flex-wrap items-center gap-3 px-4 py-2">
                 <div className="flex-1">
                   <Link to={`/c/${channelId}/shoot-days/${d.id}`} className="font-semibold text-rust-700 underline">
-                    {d.day}
+                    {formatDay(d.day)}
                     {d.place && ` · ${d.place}`}
                   </Link>
                   <p className="text-xs text-graphite-500">
                     {d.callTime ? `Call ${d.callTime}` : "No call time"} · {d.crew.map((c) => c.name).join(", ") || "no crew named"} · {d.missingCount} of {d.shotCount} shots still to get
                   </p>
                 </div>
-                <Button tone="quiet" onClick={() => window.confirm(`Remove the shoot day ${d.day}? Its shots stay on the list.`) && removeDay.mutate(d.id)}>
+                <Button tone="quiet" onClick={() => window.confirm(`Remove the shoot day ${formatDay(d.day)}? Its shots stay on the list.`) && removeDay.mutate(d.id)}>
                   Remove
                 </Button>
               </li>
@@ -53,8 +64,8 @@ export function ShootPlan({ channelId, episodeId }: { channelId: string; episode
         <h3 id="shots-heading" className="mb-2 font-semibold">
           Shot list
         </h3>
-        <ShotList channelId={channelId} episodeId={episodeId} shots={shots.data} days={days.data} />
-        <ShotForm channelId={channelId} episodeId={episodeId} days={days.data} />
+        <ShotList channelId={channelId} episodeId={episodeId} shots={shots} days={days} />
+        <ShotForm channelId={channelId} episodeId={episodeId} days={days} />
       </section>
     </div>
   );
@@ -122,7 +133,7 @@ function ShotList({ channelId, episodeId, shots, days }: { channelId: string; ep
           <div className="min-w-48 flex-1">
             <p className="font-medium">{shot.description}</p>
             <p className="text-xs text-graphite-500">
-              {shotKindLabels[shot.kind]} · {shotPriorityLabels[shot.priority]} · {days.find((d) => d.id === shot.shootDayId)?.day ?? "no day"} · {shot.clipCount} {shot.clipCount === 1 ? "clip" : "clips"}
+              {shotKindLabels[shot.kind]} · {shotPriorityLabels[shot.priority]} · {formatDay(days.find((d) => d.id === shot.shootDayId)?.day) || "no day"} · {shot.clipCount} {shot.clipCount === 1 ? "clip" : "clips"}
             </p>
           </div>
           {shot.status !== "dropped" ? (
@@ -163,7 +174,7 @@ function ShotForm({ channelId, episodeId, days }: { channelId: string; episodeId
       <SelectField label="Priority" options={shotPriorities.map((p) => ({ value: p, label: shotPriorityLabels[p] }))} {...form.register("priority")} />
       <SelectField
         label="Shoot day"
-        options={[{ value: "", label: "Not yet" }, ...days.map((d) => ({ value: d.id, label: `${d.day} ${d.place}` }))]}
+        options={[{ value: "", label: "Not yet" }, ...days.map((d) => ({ value: d.id, label: `${formatDay(d.day)} ${d.place}` }))]}
         {...form.register("shootDayId", { setValueAs: (v: string) => (v ? v : null) })}
       />
       <Button type="submit" busy={create.isPending} className="lg:mt-6">

@@ -1,11 +1,12 @@
-import { useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId, useMemo, useRef, useState, useSyncExternalStore } from "react";
-import { checkClipFile, formatBytes } from "@shared/rushes/limits";
+import { checkClipFile } from "@shared/rushes/limits";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { rushesKeys } from "../api/keys";
+import { formatSize } from "../../../lib/format";
+import { useFootageArrived } from "../api/complete-upload";
 import { useOpenUploads } from "../api/open-uploads";
-import { posterFrom, sendPoster } from "../uploader/poster";
+import { sendPoster } from "../api/send-poster";
+import { posterFrom } from "../uploader/poster";
 import { sha256Of } from "../uploader/hash";
 import { probeFile } from "../uploader/probe";
 import { UploadQueue, type JobView } from "../uploader/upload-queue";
@@ -24,7 +25,7 @@ const statusWords: Record<JobView["status"], string> = {
 
 /** Camera files for one episode: straight to storage in parts, with progress per file and for the batch. */
 export function Uploader({ channelId, episodeId }: { channelId: string; episodeId: string }) {
-  const queryClient = useQueryClient();
+  const footageArrived = useFootageArrived(channelId);
   const queue = useMemo(
     () =>
       new UploadQueue(channelId, episodeId, {
@@ -35,9 +36,9 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
           const poster = await posterFrom(job.file);
           if (poster) await sendPoster(channelId, job.clip.id, poster);
         },
-        onChange: () => void queryClient.invalidateQueries({ queryKey: rushesKeys.footage(channelId) }),
+        onChange: footageArrived,
       }),
-    [channelId, episodeId, queryClient],
+    [channelId, episodeId, footageArrived],
   );
   const jobs = useSyncExternalStore(queue.subscribe, queue.getSnapshot);
   const open = useOpenUploads(channelId, episodeId);
@@ -109,7 +110,7 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
           <div className="mt-4 flex flex-wrap items-center gap-3">
             <Progress label="All files" value={sent} max={total} />
             <span className="text-sm text-graphite-700" aria-live="polite">
-              {formatBytes(sent)} of {formatBytes(total)}
+              {formatSize(sent)} of {formatSize(total)}
             </span>
             <Button tone="quiet" onClick={() => queue.pauseAll()}>
               Pause all
@@ -148,7 +149,7 @@ function JobRow({ job, queue }: { job: JobView; queue: UploadQueue }) {
       <div className="min-w-56 flex-1">
         <p className="font-medium">{job.fileName}</p>
         <p className="text-xs text-graphite-500">
-          {statusWords[job.status]} · {formatBytes(job.size)}
+          {statusWords[job.status]} · {formatSize(job.size)}
           {job.partCount > 0 && ` · ${job.partsStored} of ${job.partCount} parts stored`}
         </p>
         {job.error && <p className="text-sm text-alarm-600">{job.error}</p>}

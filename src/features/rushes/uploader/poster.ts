@@ -1,5 +1,3 @@
-import { api } from "../../../lib/api-client";
-
 /**
  * A poster frame from the chosen file itself: the browser decodes it in a hidden <video>, draws one
  * frame to a canvas, and the JPEG streams through Kerf's server into storage. Files the browser can't
@@ -39,14 +37,4 @@ export async function posterFrom(file: File): Promise<Blob | null> {
 
 function within<T>(work: Promise<T>, ms: number): Promise<T> {
   return Promise.race([work, new Promise<T>((_, reject) => setTimeout(() => reject(new Error("timed out")), ms))]);
-}
-
-let csrf = "";
-/** The multipart form the poster route takes: the size first, then the file. */
-export async function sendPoster(channelId: string, clipId: string, poster: Blob): Promise<void> {
-  if (!csrf) csrf = (await api<{ csrfToken: string }>("/api/auth/me")).csrfToken;
-  const form = new FormData();
-  form.append("size", String(poster.size));
-  form.append("file", poster, "poster.jpg");
-  await fetch(`/api/channels/${channelId}/clips/${clipId}/poster`, { method: "POST", body: form, headers: { "x-csrf-token": csrf }, credentials: "same-origin" });
 }

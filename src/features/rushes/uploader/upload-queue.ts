@@ -1,6 +1,11 @@
 import { partRange } from "@shared/rushes/limits";
-import type { ClipDetail, ClipMetadata, PartUrlsAnswer, PartUrlsInput, UploadView } from "@shared/rushes/schemas";
-import { api, ApiError } from "../../../lib/api-client";
+import type { ClipDetail, ClipMetadata, PartUrlsAnswer, UploadView } from "@shared/rushes/schemas";
+import { ApiError } from "../../../lib/api-client";
+import { cancelUpload } from "../api/cancel-upload";
+import { completeUpload } from "../api/complete-upload";
+import { recordPart } from "../api/record-part";
+import { signParts } from "../api/sign-parts";
+import { startUpload } from "../api/start-upload";
 
 /**
  * The browser's side of a presigned multipart upload. Kerf's server opens the upload and signs each
@@ -151,9 +156,12 @@ export class UploadQueue {
     job.metadata = await this.hooks.probe(job.file!).catch(() => null);
     if (job.status === "cancelled") return;
     try {
-      const { upload } = await api<{ upload: UploadView }>(`/api/channels/${this.channelId}/uploads`, {
-        method: "POST",
-        body: { episodeId: this.episodeId, fileName: job.fileName, size: job.size, fingerprint: fingerprintOf(job.file!), ...(job.metadata ? { metadata: job.metadata } : {}) },
+      const upload = await startUpload(this.channelId, {
+        episodeId: this.episodeId,
+        fileName: job.fileName,
+        size: job.size,
+        fingerprint: fingerprintOf(job.file!),
+        ...(job.metadata ? { metadata: job.metadata } : {}),
       });
       job.uploadId = upload.id;
       job.partSize = upload.partSize;
@@ -220,7 +228,7 @@ export class UploadQueue {
     for (const part of job.parts) part.xhr?.abort();
     this.emit(true);
     if (job.uploadId && previous !== "completing") {
-      await api(`/api/channels/${this.channelId}/uploads/${job.uploadId}`, { method: "DELETE" }).catch(() => undefined);
+      await cancelUpload(this.channelId, job.uploadId).catch(() => undefined);
     }
   }
 
@@ -270,10 +278,7 @@ export class UploadQueue {
       return { partNumber, size: end - start };
     });
     try {
-      ({ urls } = await api<PartUrlsAnswer>(`/api/channels/${this.channelId}/uploads/${job.uploadId}/part-urls`, {
-        method: "POST",
-        body: { parts } satisfies PartUrlsInput,
-      }));
+      urls = await signParts(this.channelId, job.uploadId!, parts);
     } catch (error) {
       this.active -= partNumbers.length;
       for (const n of partNumbers) this.partFailed(job, n);
@@ -313,7 +318,7 @@ export class UploadQueue {
           return resolve();
         }
         try {
-          await api(`/api/channels/${this.channelId}/uploads/${job.uploadId}/parts/${partNumber}`, { method: "PUT", body: { etag, size: end - start } });
+          await recordPart(this.channelId, job.uploadId!, partNumber, { etag, size: end - start });
           if (part.state === "sending") Object.assign(part, { state: "stored", loaded: end - start });
         } catch {
           this.partFailed(job, partNumber);
@@ -350,10 +355,7 @@ export class UploadQueue {
     this.emit(true);
     try {
       const sha256 = (await job.sha256?.catch(() => null)) ?? null;
-      const { clip } = await api<{ clip: ClipDetail }>(`/api/channels/${this.channelId}/uploads/${job.uploadId}/complete`, {
-        method: "POST",
-        body: { ...(job.metadata ? { metadata: job.metadata } : {}), ...(sha256 ? { sha256 } : {}) },
-      });
+      const clip = await completeUpload(this.channelId, job.uploadId!, { ...(job.metadata ? { metadata: job.metadata } : {}), ...(sha256 ? { sha256 } : {}) });
       job.clip = clip;
       job.status = "done";
       this.emit(true);

@@ -16,22 +16,30 @@ export function gateProblemsOf(error: unknown): GateProblem[] | null {
 }
 
 /**
- * A stage move or reorder. The board the person sees was already rearranged while dragging; the
- * mutation settles it by refetching every board of the channel (and the episode's page and history),
- * whatever the answer was: on a 409 or 422 that puts the card back where the server has it.
+ * A stage move or reorder, shown at once: every cached board of the channel puts the card where it
+ * was dropped before the server answers. A refusal (a 409, a 422 gate) puts the boards back as they
+ * were; either way the boards, the episode's page and its history are read again to settle.
  */
 export function useMoveEpisode(channelId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ episodeId, ...body }: MoveVariables) =>
       api<{ episode: EpisodeRecord }>(`/api/channels/${channelId}/episodes/${episodeId}/move`, { method: "POST", body }).then((r) => r.episode),
-    onMutate: async () => {
+    meta: { changes: ["episode"] },
+    onMutate: async (move) => {
       // A refetch already in flight would paint the old order over the drop.
       await queryClient.cancelQueries({ queryKey: slateKeys.boards(channelId) });
+      const before = queryClient.getQueriesData<Board>({ queryKey: slateKeys.boards(channelId) });
+      const placement = { episodeId: move.episodeId, stage: move.stage, afterId: move.afterId ?? null, beforeId: move.beforeId ?? null };
+      queryClient.setQueriesData<Board>({ queryKey: slateKeys.boards(channelId) }, (board) => (board ? placeCard(board, placement) : board));
+      return { before };
     },
-    onSettled: (_data, _error, variables) => {
+    onError: (_error, _move, context) => {
+      for (const [key, board] of context?.before ?? []) queryClient.setQueryData(key, board);
+    },
+    onSettled: (_data, _error, move) => {
       void queryClient.invalidateQueries({ queryKey: slateKeys.boards(channelId) });
-      void queryClient.invalidateQueries({ queryKey: slateKeys.detail(channelId, variables.episodeId) });
+      void queryClient.invalidateQueries({ queryKey: slateKeys.detail(channelId, move.episodeId) });
     },
   });
 }

@@ -1,38 +1,38 @@
 import { useRef, useState, type ReactNode } from "react";
 import { commentSchema, type EpisodeComment } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
+import { TextAreaField } from "../../../components/form-fields";
 import { Notice } from "../../../components/Notice";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useMe } from "../../../lib/session";
+import { Empty, QueryState } from "../../../components/States";
+import { formatInstant } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useAddComment } from "../api/add-comment";
 import { useComments } from "../api/get-comments";
 import { usePeople } from "../api/get-people";
-import { formatInstant } from "./format";
 
 /** Comments on the episode; "@Name" mentions a member, who gets an e-mail. */
 export function ActivitySection({ channelId, episodeId }: { channelId: string; episodeId: string }) {
   const comments = useComments(channelId, episodeId);
-  const timeZone = useMe().data?.user?.timeZone ?? "UTC";
+  const timeZone = useTimeZone();
   return (
     <div className="rounded-lg border border-ply-300 bg-white p-5">
-      {comments.isPending && <Loading label="Loading comments…" />}
-      {comments.isError && <LoadError error={comments.error} retry={() => void comments.refetch()} />}
-      {comments.data && comments.data.length === 0 && <Empty title="No comments yet">Ask a question or leave a note for the team.</Empty>}
-      {comments.data && comments.data.length > 0 && (
-        <ol className="mb-5 space-y-4">
-          {comments.data.map((c) => (
-            <li key={c.id} className="text-sm">
-              <p>
-                <span className="font-semibold">{c.authorName ?? "Someone no longer here"}</span>{" "}
-                <time dateTime={c.createdAt} className="text-xs text-graphite-500">
-                  {formatInstant(c.createdAt, timeZone)}
-                </time>
-              </p>
-              <p className="mt-1 whitespace-pre-line">{withMentions(c)}</p>
-            </li>
-          ))}
-        </ol>
-      )}
+      <QueryState query={comments} loading="Loading comments…" isEmpty={(list) => list.length === 0} empty={<Empty title="No comments yet">Ask a question or leave a note for the team.</Empty>}>
+        {(list) => (
+          <ol className="mb-5 space-y-4">
+            {list.map((c) => (
+              <li key={c.id} className="text-sm">
+                <p>
+                  <span className="font-semibold">{c.authorName ?? "Someone no longer here"}</span>{" "}
+                  <time dateTime={c.createdAt} className="text-xs text-graphite-500">
+                    {formatInstant(c.createdAt, timeZone)}
+                  </time>
+                </p>
+                <p className="mt-1 whitespace-pre-line">{withMentions(c)}</p>
+              </li>
+            ))}
+          </ol>
+        )}
+      </QueryState>
       <CommentForm channelId={channelId} episodeId={episodeId} />
     </div>
   );
@@ -100,22 +100,14 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
       }}
       noValidate
     >
-      <label htmlFor="comment-body" className="text-sm font-medium text-graphite-700">
-        Add a comment
-      </label>
-      <textarea
-        id="comment-body"
+      <TextAreaField
+        label="Add a comment"
         ref={box}
-        rows={3}
         value={body}
         onChange={(e) => setBody(e.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby="comment-help"
-        className={`mt-1 w-full rounded-md border bg-white px-3 py-2 shadow-inner ${error ? "border-alarm-600" : "border-ply-300"}`}
+        error={error ?? undefined}
+        hint="Type @ and a member's name, or pick one below, to send them an e-mail."
       />
-      <p id="comment-help" className={`text-xs ${error ? "text-alarm-600" : "text-graphite-500"}`}>
-        {error ?? "Type @ and a member's name, or pick one below, to send them an e-mail."}
-      </p>
       <div className="mt-2 flex flex-wrap items-center gap-1 text-xs">
         <span className="text-graphite-500">Mention:</span>
         {(people.data ?? []).map((p) => (

@@ -20,14 +20,12 @@ import {
   type UniqueIdentifier,
 } from "@dnd-kit/core";
 import { arrayMove, SortableContext, verticalListSortingStrategy } from "@dnd-kit/sortable";
-import { useQueryClient } from "@tanstack/react-query";
 import type { GateProblem } from "@shared/slate/gates";
-import type { Board as BoardData, BoardCard, BoardFilters, ConflictBody } from "@shared/slate/schemas";
+import type { Board as BoardData, BoardCard, ConflictBody } from "@shared/slate/schemas";
 import { stageLabels, stages, type Stage } from "@shared/slate/stages";
 import { Notice } from "../../../components/Notice";
 import { ApiError } from "../../../lib/api-client";
-import { slateKeys } from "../api/keys";
-import { gateProblemsOf, placeCard, useMoveEpisode, type MoveVariables } from "../api/move-episode";
+import { gateProblemsOf, useMoveEpisode, type MoveVariables } from "../api/move-episode";
 import { CardFace, SortableEpisodeCard } from "./EpisodeCard";
 import { GateDialog } from "./GateDialog";
 import { boardKeyboardCoordinates } from "./keyboard-coordinates";
@@ -47,14 +45,22 @@ const instructions =
 
 /**
  * The board: one column per stage. A drag rearranges the columns on screen as it goes; the drop
- * sends one move (stage, and the card above and below) and the board refetches to settle.
+ * sends one move (stage, and the card above and below), which places the card in the cached board
+ * at once and settles it when the server answers (api/move-episode.ts).
  */
-export function Board({ channelId, board, filters, canMove }: { channelId: string; board: BoardData; filters: BoardFilters; canMove: boolean }) {
-  const queryClient = useQueryClient();
+export function Board({ channelId, board, canMove }: { channelId: string; board: BoardData; canMove: boolean }) {
   const move = useMoveEpisode(channelId);
   const byId = useMemo(() => new Map(board.episodes.map((card) => [card.id, card])), [board]);
   const serverColumns = useMemo(() => columnsOf(board.episodes), [board]);
-  const [dragColumns, setDragColumns] = useState<Columns | null>(null);
+  // The columns as dragged, over the board they were dragged on. After a drop they stay on screen
+  // until the move places the card in the cached board (a new `board`), so the card never jumps back.
+  const [drag, setDrag] = useState<{ columns: Columns; on: BoardData } | null>(null);
+  const dragColumns = drag?.on === board ? drag.columns : null;
+  const setDragColumns = (next: Columns | null | ((current: Columns | null) => Columns)) =>
+    setDrag((current) => {
+      const columns = typeof next === "function" ? next(current?.on === board ? current.columns : null) : next;
+      return columns ? { columns, on: board } : null;
+    });
   const columns = dragColumns ?? serverColumns;
   const columnsRef = useRef(columns);
   useLayoutEffect(() => {
@@ -124,10 +130,9 @@ export function Board({ channelId, board, filters, canMove }: { channelId: strin
   };
 
   function send(variables: MoveVariables) {
-    const key = slateKeys.board(channelId, filters);
-    queryClient.setQueryData<BoardData>(key, (old) => (old ? placeCard(old, { episodeId: variables.episodeId, stage: variables.stage, afterId: variables.afterId ?? null, beforeId: variables.beforeId ?? null }) : old));
     const title = titleOf(variables.episodeId);
     move.mutate(variables, {
+      onSettled: () => setDrag(null),
       onSuccess: (episode) => setSettled(`${title} is now in ${stageLabels[episode.stage]}.`),
       onError: (error) => {
         const problems = gateProblemsOf(error);
@@ -178,10 +183,11 @@ export function Board({ channelId, board, filters, canMove }: { channelId: strin
     const index = list.indexOf(card.id);
     const afterId = list[index - 1] ?? null;
     const beforeId = list[index + 1] ?? null;
-    setDragColumns(null);
     const was = serverColumns[card.stage];
     const unchanged = to === card.stage && (was[was.indexOf(card.id) - 1] ?? null) === afterId && (was[was.indexOf(card.id) + 1] ?? null) === beforeId;
-    if (!unchanged) send({ episodeId: card.id, version: card.version, stage: to, afterId, beforeId });
+    if (unchanged) return setDragColumns(null);
+    setDragColumns({ ...columnsRef.current, [to]: list });
+    send({ episodeId: card.id, version: card.version, stage: to, afterId, beforeId });
   }
 
   const active = activeId ? byId.get(activeId) : undefined;

@@ -5,7 +5,7 @@ import { Link } from "react-router-dom";
 import { isAtRisk, type BoardFlag } from "@shared/slate/flags";
 import type { BoardCard } from "@shared/slate/schemas";
 import { Flag } from "./Flag";
-import { formatDay } from "./format";
+import { formatDay } from "../../../lib/format";
 
 interface CardProps {
   channelId: string;
@@ -80,7 +80,7 @@ export const CardFace = memo(function CardFace({ channelId, card, extraFlags, wi
         {card.stageDue && card.stage !== "publish" && (
           <>
             <dt className="text-graphite-500">Due</dt>
-            <dd className={late ? "font-semibold text-alarm-600" : ""}>{formatDay(card.stageDue, false)}</dd>
+            <dd className={late ? "font-semibold text-alarm-600" : ""}>{formatDay(card.stageDue, { withYear: false })}</dd>
           </>
         )}
         <dt className="text-graphite-500">Here</dt>

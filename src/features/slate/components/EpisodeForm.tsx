@@ -1,14 +1,13 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useId, useState, type KeyboardEvent, type Ref, type TextareaHTMLAttributes } from "react";
+import { useId, useState, type KeyboardEvent } from "react";
 import { Controller, useForm, useWatch, type FieldErrors } from "react-hook-form";
 import { commonCurrencies, episodeFieldsSchema, originLabels, origins, tagSchema, type EpisodeFields } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
-import { applyServerErrors } from "../../../lib/forms";
-import { isConflict } from "../api/episode-mutations";
+import { isConflict } from "../api/episode-mutation";
 import { usePeople } from "../api/get-people";
+import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
 
 const fieldNames = ["title", "question", "origin", "originLink", "whyWorthIt", "ownerId", "tags", "budgetAmount", "budgetCurrency", "targetPublishDate"] as const;
 
@@ -68,7 +67,7 @@ export function EpisodeForm({
         error={errors.originLink?.message}
       />
       <div className="sm:col-span-2">
-        <TextArea label="Why it is worth a video" {...form.register("whyWorthIt")} error={errors.whyWorthIt?.message} />
+        <TextAreaField label="Why it is worth a video" {...form.register("whyWorthIt")} error={errors.whyWorthIt?.message} />
       </div>
       <SelectField label="Owner" options={ownerOptions} {...form.register("ownerId")} error={errors.ownerId?.message} />
       <TextField label="Target publish date" type="date" {...form.register("targetPublishDate")} error={errors.targetPublishDate?.message} />
@@ -100,30 +99,6 @@ function tagsError(errors: FieldErrors<EpisodeFields>): string | undefined {
   if (tags.message) return tags.message;
   const first = Array.isArray(tags) ? tags.find(Boolean) : undefined;
   return first?.message ?? (tags.root?.message as string | undefined);
-}
-
-function TextArea({ label, error, ...props }: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: string; error?: string; ref?: Ref<HTMLTextAreaElement> }) {
-  const id = useId();
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-sm font-medium text-graphite-700">
-        {label}
-      </label>
-      <textarea
-        id={id}
-        rows={3}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className={`rounded-md border bg-white px-3 py-2 text-base shadow-inner ${error ? "border-alarm-600" : "border-ply-300"}`}
-        {...props}
-      />
-      {error && (
-        <p id={`${id}-error`} className="text-sm text-alarm-600">
-          {error}
-        </p>
-      )}
-    </div>
-  );
 }
 
 /** Tags as chips: type a word and press Enter or a comma; Backspace in an empty box removes the last. */

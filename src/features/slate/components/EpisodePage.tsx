@@ -1,11 +1,12 @@
 import type { ReactNode } from "react";
 import { Link, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
+import type { EpisodeDetail } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
 import { PageHeader } from "../../../components/PageHeader";
-import { LoadError, Loading } from "../../../components/States";
+import { QueryState } from "../../../components/States";
 import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
-import { useCurrentChannel } from "../../../lib/session";
+import { useChannel } from "../../../lib/session";
 import { useEpisode } from "../api/get-episode";
 import { ActivitySection } from "./ActivitySection";
 import { Flag } from "./Flag";
@@ -14,9 +15,8 @@ import { OverviewSection } from "./OverviewSection";
 import { ScheduleSection } from "./ScheduleSection";
 
 export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
-  const channel = useCurrentChannel();
+  const channel = useChannel();
   const { episodeId = "" } = useParams();
-  if (!channel) return <Loading />;
   return <Episode channelId={channel.channelId} episodeId={episodeId} role={channel.role} sections={sections} />;
 }
 
@@ -32,11 +32,16 @@ function Section({ id, title, children }: { id: string; title: string; children:
 }
 
 /** One episode: the slate's overview, schedule and history, each feature's section, then the comments. */
-function Episode({ channelId, episodeId, role, sections }: EpisodeSectionProps & { sections: EpisodeSection[] }) {
-  const episode = useEpisode(channelId, episodeId);
-  if (episode.isPending) return <Loading label="Loading the episode…" />;
-  if (episode.isError) return <LoadError error={episode.error} retry={() => void episode.refetch()} />;
-  const detail = episode.data;
+function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
+  const episode = useEpisode(props.channelId, props.episodeId);
+  return (
+    <QueryState query={episode} loading="Loading the episode…" page back={{ to: `/c/${props.channelId}/slate`, label: "Slate" }}>
+      {(detail) => <EpisodeView {...props} detail={detail} />}
+    </QueryState>
+  );
+}
+
+function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }) {
   const e = detail.episode;
   const canEdit = roleMay(role, "episodes", "W");
   const contents = [

@@ -3,6 +3,7 @@ import type { GateProblem } from "@shared/slate/gates";
 import { moveEpisodeSchema } from "@shared/slate/schemas";
 import { stageLabels, type Stage } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
+import { TextAreaField } from "../../../components/form-fields";
 import { Dialog } from "./Dialog";
 
 /** A forward move past missing essentials: say what is missing, and move on only with a reason. */
@@ -22,24 +23,7 @@ export function GateDialog({ title, to, problems, onCancel, onConfirm }: { title
           <li key={p.code}>{p.message}</li>
         ))}
       </ul>
-      <label htmlFor="gate-reason" className="text-sm font-medium text-graphite-700">
-        Why move it on anyway? (kept in the history)
-      </label>
-      <textarea
-        id="gate-reason"
-        autoFocus
-        rows={3}
-        value={reason}
-        onChange={(event) => setReason(event.target.value)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? "gate-reason-error" : undefined}
-        className={`mt-1 w-full rounded-md border bg-white px-3 py-2 shadow-inner ${error ? "border-alarm-600" : "border-ply-300"}`}
-      />
-      {error && (
-        <p id="gate-reason-error" className="text-sm text-alarm-600">
-          {error}
-        </p>
-      )}
+      <TextAreaField label="Why move it on anyway? (kept in the history)" autoFocus value={reason} onChange={(event) => setReason(event.target.value)} error={error ?? undefined} className="w-full" />
       <div className="mt-4 flex justify-end gap-2">
         <Button tone="quiet" onClick={onCancel}>
           Keep it here

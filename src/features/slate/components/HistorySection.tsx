@@ -1,17 +1,22 @@
-import { formatStay } from "@shared/slate/history";
+import type { EpisodeHistory } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useMe } from "../../../lib/session";
+import { Empty, QueryState } from "../../../components/States";
+import { formatDuration, formatInstant } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
 import { useHistory } from "../api/get-history";
-import { formatInstant } from "./format";
 
 /** Every stage move (who, when, from, to, why) and the time spent in each stage, from those moves. */
 export function HistorySection({ channelId, episodeId }: { channelId: string; episodeId: string }) {
   const history = useHistory(channelId, episodeId);
-  const timeZone = useMe().data?.user?.timeZone ?? "UTC";
-  if (history.isPending) return <Loading label="Loading the history…" />;
-  if (history.isError) return <LoadError error={history.error} retry={() => void history.refetch()} />;
-  const { entries, timeInStage } = history.data;
+  const timeZone = useTimeZone();
+  return (
+    <QueryState query={history} loading="Loading the history…">
+      {(data) => <History history={data} timeZone={timeZone} />}
+    </QueryState>
+  );
+}
+
+function History({ history: { entries, timeInStage }, timeZone }: { history: EpisodeHistory; timeZone: string }) {
   const visited = timeInStage.filter((t) => t.visits > 0);
   return (
     <div className="grid gap-4 md:grid-cols-[1fr_16rem]">
@@ -52,7 +57,7 @@ export function HistorySection({ channelId, episodeId }: { channelId: string; ep
                   {stageLabels[t.stage]}
                 </th>
                 <td className="py-1 text-right font-medium">
-                  {formatStay(t.ms)}
+                  {formatDuration(t.ms, { smallest: "h" })}
                   {t.visits > 1 && <span className="block text-xs font-normal text-graphite-500">{t.visits} stays</span>}
                 </td>
               </tr>

@@ -5,11 +5,13 @@ import type { GateProblem } from "@shared/slate/gates";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { ApiError } from "../../../lib/api-client";
-import { isConflict, useArchiveEpisode, useEditEpisode } from "../api/episode-mutations";
+import { useArchiveEpisode } from "../api/archive-episode";
+import { useEditEpisode } from "../api/edit-episode";
+import { isConflict } from "../api/episode-mutation";
 import { gateProblemsOf, useMoveEpisode } from "../api/move-episode";
 import { Dialog } from "./Dialog";
 import { EpisodeForm } from "./EpisodeForm";
-import { formatDay } from "./format";
+import { formatDay, formatMoney } from "../../../lib/format";
 import { GateDialog } from "./GateDialog";
 
 const conflictNotice = "Someone else changed this episode a moment ago; the page now shows their version. Make your change again if it still applies.";
@@ -75,7 +77,7 @@ export function OverviewSection({ channelId, detail, canEdit }: { channelId: str
         <dt className="text-graphite-500">Why it is worth a video</dt>
         <dd className="whitespace-pre-line">{e.whyWorthIt || "—"}</dd>
         <dt className="text-graphite-500">Rough budget</dt>
-        <dd>{e.budgetAmount ? `${e.budgetAmount} ${e.budgetCurrency ?? ""}` : "—"}</dd>
+        <dd>{e.budgetAmount ? (e.budgetCurrency ? formatMoney(e.budgetAmount, e.budgetCurrency) : e.budgetAmount) : "—"}</dd>
         <dt className="text-graphite-500">Tags</dt>
         <dd>{e.tags.length > 0 ? e.tags.join(", ") : "—"}</dd>
         {e.archivedAt && (

@@ -5,9 +5,10 @@ import { stageIndex, stageLabels } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
-import { isConflict, useOverrideDueDate } from "../api/episode-mutations";
+import { isConflict } from "../api/episode-mutation";
+import { useOverrideDueDate } from "../api/override-due-date";
 import { Flag } from "./Flag";
-import { formatDay } from "./format";
+import { formatDay } from "../../../lib/format";
 
 /** Each stage's dates, counted back in working days from the target publish date; one can be set by hand. */
 export function ScheduleSection({ channelId, detail, canEdit }: { channelId: string; detail: EpisodeDetail; canEdit: boolean }) {
@@ -67,10 +68,10 @@ export function ScheduleSection({ channelId, detail, canEdit }: { channelId: str
                 {i === current && <span className="ml-2 text-xs font-normal text-graphite-500">(now)</span>}
               </th>
               <td className="py-2 pr-3">{row.lengthDays}</td>
-              <td className="py-2 pr-3">{formatDay(row.start, false)}</td>
+              <td className="py-2 pr-3">{formatDay(row.start, { withYear: false })}</td>
               <td className={`py-2 pr-3 ${i >= current && row.due < today && row.stage !== "publish" ? "font-semibold text-alarm-600" : ""}`} data-testid={`due-${row.stage}`}>
-                {formatDay(row.due, false)}
-                {row.overridden && <span className="ml-2 text-xs text-graphite-500">(counted: {formatDay(row.countedDue, false)})</span>}
+                {formatDay(row.due, { withYear: false })}
+                {row.overridden && <span className="ml-2 text-xs text-graphite-500">(counted: {formatDay(row.countedDue, { withYear: false })})</span>}
               </td>
               {canEdit && (
                 <td className="py-2">

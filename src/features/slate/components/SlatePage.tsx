@@ -5,21 +5,20 @@ import { boardFilterKeys, boardFiltersSchema, emptyEpisodeFields, type BoardFilt
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { Empty, Loading, QueryState } from "../../../components/States";
+import { useChannel } from "../../../lib/session";
 import { useBoard } from "../api/get-board";
 import { usePeople } from "../api/get-people";
-import { useCreateEpisode } from "../api/episode-mutations";
+import { useCreateEpisode } from "../api/create-episode";
 import { Board } from "./Board";
 import { BoardFilterBar } from "./BoardFilterBar";
 import { Dialog } from "./Dialog";
 import { EpisodeForm } from "./EpisodeForm";
-import { formatDay } from "./format";
+import { formatDay } from "../../../lib/format";
 
 /** Every episode of the channel, one column per stage. */
 export function SlatePage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return (
     <Slate
       channelId={channel.channelId}
@@ -78,27 +77,27 @@ function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId:
           <Notice kind="success">{created}</Notice>
         </div>
       )}
-      {board.isPending && <Loading label="Loading the slate…" />}
-      {board.isError && <LoadError error={board.error} retry={() => void board.refetch()} />}
-      {board.data && (
-        <>
-          {board.data.episodes.length === 0 &&
-            (filtered ? (
-              <Empty title="No episodes match these filters">
-                <button type="button" className="text-rust-600 underline" onClick={() => setFilters({})}>
-                  Clear filters
-                </button>
-              </Empty>
-            ) : (
-              <Empty title="No episodes yet">{canMove ? "A challenge becomes an episode here: start with “New episode”." : "The owner starts episodes here."}</Empty>
-            ))}
-          <p className="mb-2 text-xs text-graphite-500">
-            Due dates and days in stage as of {formatDay(board.data.today)}, in your time zone.
-            {!canMove && " Your role reads the board; moving cards is for owners, producers and editors."}
-          </p>
-          {firstPaint ? <Board channelId={channelId} board={board.data} filters={filters} canMove={canMove} /> : <Loading label="Laying out the board…" />}
-        </>
-      )}
+      <QueryState query={board} loading="Loading the slate…" page>
+        {(data) => (
+          <>
+            {data.episodes.length === 0 &&
+              (filtered ? (
+                <Empty title="No episodes match these filters">
+                  <button type="button" className="text-rust-600 underline" onClick={() => setFilters({})}>
+                    Clear filters
+                  </button>
+                </Empty>
+              ) : (
+                <Empty title="No episodes yet">{canMove ? "A challenge becomes an episode here: start with “New episode”." : "The owner starts episodes here."}</Empty>
+              ))}
+            <p className="mb-2 text-xs text-graphite-500">
+              Due dates and days in stage as of {formatDay(data.today)}, in your time zone.
+              {!canMove && " Your role reads the board; moving cards is for owners, producers and editors."}
+            </p>
+            {firstPaint ? <Board channelId={channelId} board={data} canMove={canMove} /> : <Loading label="Laying out the board…" page />}
+          </>
+        )}
+      </QueryState>
       <Dialog open={creating} title="New episode" onClose={() => setCreating(false)} wide>
         <EpisodeForm
           channelId={channelId}

@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import type { DealView } from "@shared/sponsors/schemas";
 import { sponsorKeys } from "./keys";
 
 /**
@@ -12,3 +13,6 @@ export function useSponsorMutation<V, R>(channelId: string, send: (variables: V)
     onSettled: () => queryClient.invalidateQueries({ queryKey: sponsorKeys.channel(channelId) }),
   });
 }
+
+/** What the deal endpoints answer: the deal as it is now. */
+export type DealAnswer = { deal: DealView };

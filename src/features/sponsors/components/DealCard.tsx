@@ -1,21 +1,21 @@
 import { useState, type ReactNode } from "react";
 import { useForm } from "react-hook-form";
 import { roleMay, type Role } from "@shared/access/roles";
-import { formatSeconds } from "@shared/sponsors/read";
 import { dealStateLabels, dealStates, placementLabels, placements, updateDealSchema, type DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { changedFields, useOpenedRecord } from "../../../lib/conflicts";
-import { useUpdateDeal } from "../api/save-deal";
+import { formatDay, formatSeconds } from "../../../lib/format";
+import { useUpdateDeal } from "../api/update-deal";
 import { CutPanel } from "./CutPanel";
 import { DeliverablesPanel } from "./DeliverablesPanel";
 import { DealStateTag } from "./labels";
 import { MoneyPanel } from "./MoneyPanel";
 import { ReadPanel } from "./ReadPanel";
 import { ReviewPanel } from "./ReviewPanel";
-import { TextArea, errorAt, linesOf, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 function Part({ title, children }: { title: string; children: ReactNode }) {
   return (
@@ -94,7 +94,7 @@ function SegmentPanel({ channelId, deal, canEdit }: { channelId: string; deal: D
         <dt className="text-graphite-500">Exclusivity</dt>
         <dd>{deal.exclusivityNotes ?? "None noted"}</dd>
         <dt className="text-graphite-500">Go-live</dt>
-        <dd>{deal.goLiveDate ? `${deal.goLiveDate} (the deal's own date)` : deal.publishDate ? `${deal.publishDate} (the publish date)` : "Follows the publish date (not set)"}</dd>
+        <dd>{deal.goLiveDate ? `${formatDay(deal.goLiveDate)} (the deal's own date)` : deal.publishDate ? `${formatDay(deal.publishDate)} (the publish date)` : "Follows the publish date (not set)"}</dd>
       </dl>
       {canEdit && (
         <div>
@@ -156,7 +156,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
       await update.mutateAsync({ ...changes, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(record.conflictIn(error) ?? placeServerErrors(error, form.setError, segmentNames, segmentField));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, segmentNames, segmentField));
     }
   });
   return (
@@ -167,7 +167,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
         <SelectField label="Placement" options={placements.map((p) => ({ value: p, label: placementLabels[p] }))} {...form.register("placement")} error={errors.placement?.message} />
         <TextField label="Contracted length (seconds)" inputMode="numeric" {...form.register("segmentSeconds")} error={errors.segmentSeconds?.message} />
       </div>
-      <TextArea label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
+      <TextAreaField label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="Link" {...form.register("link")} error={errors.link?.message} />
         <TextField label="Promo code" {...form.register("promoCode")} error={errors.promoCode?.message} />
@@ -176,14 +176,7 @@ function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: Dea
         <SelectField label="Contact" options={[{ value: "", label: "No contact" }, ...deal.contacts.map((c) => ({ value: c.id, label: `${c.name} (${c.email})` }))]} {...form.register("contactId")} error={errors.contactId?.message} />
         <TextField label="Go-live date" type="date" hint="Leave empty to go live on the publish date." {...form.register("goLiveDate")} error={errors.goLiveDate?.message} />
       </div>
-      <div className="flex gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save requirements
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit="Save requirements" busy={update.isPending} onCancel={onDone} />
     </form>
   );
 }

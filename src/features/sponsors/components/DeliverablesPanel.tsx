@@ -4,12 +4,17 @@ import { anchorLabels, anchors, describeDating, deliverableKindLabels, deliverab
 import { newDeliverableSchema, type DealView, type DeliverableEvent, type DeliverableView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
-import { useAddDeliverable, useRemoveDeliverable, useUpdateDeliverable } from "../api/change-deliverable";
-import { useSponsorSettings } from "../api/settings";
+import { formatDay, formatInstant } from "../../../lib/format";
+import { useTimeZone } from "../../../lib/session";
+import { useAddDeliverable } from "../api/add-deliverable";
+import { useRemoveDeliverable } from "../api/remove-deliverable";
+import { useUpdateDeliverable } from "../api/update-deliverable";
+import { useSponsorSettings } from "../api/get-settings";
 import { StatusTag } from "./labels";
-import { Tag, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { FormActions, SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
+import { Tag } from "./labels";
 
 function whenOf(item: DeliverableView): string {
   return item.anchor === "fixed" ? "set by hand" : describeDating(item.anchor, item.offsetDays);
@@ -18,12 +23,12 @@ function whenOf(item: DeliverableView): string {
 function describe(event: DeliverableEvent): string {
   switch (event.what) {
     case "created":
-      return `created${event.toDate ? `, due ${event.toDate}` : ""}${event.note ? ` (${event.note})` : ""}`;
+      return `created${event.toDate ? `, due ${formatDay(event.toDate)}` : ""}${event.note ? ` (${event.note})` : ""}`;
     case "status":
     case "review_decision":
       return `${event.what === "review_decision" ? "decided: " : ""}${label(event.fromStatus)} → ${label(event.toStatus)}${event.note ? `: “${event.note}”` : ""}`;
     case "due_moved":
-      return `due ${event.fromDate ?? "no date"} → ${event.toDate ?? "no date"}${event.note ? ` (${event.note})` : ""}`;
+      return `due ${formatDay(event.fromDate) || "no date"} → ${formatDay(event.toDate) || "no date"}${event.note ? ` (${event.note})` : ""}`;
     case "owner":
       return "changed the owner";
     default:
@@ -41,6 +46,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
   const [open, setOpen] = useState<string | null>(null);
   const [adding, setAdding] = useState(false);
   const members = settings.data?.hosts ?? [];
+  const timeZone = useTimeZone();
 
   return (
     <div className="flex flex-col gap-3">
@@ -69,7 +75,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                     </td>
                     <td className="py-2 pr-3">
                       <p className="font-medium" data-testid="due-date">
-                        {item.dueDate ?? "No date yet"}
+                        {item.dueDate ? <time dateTime={item.dueDate}>{formatDay(item.dueDate)}</time> : "No date yet"}
                       </p>
                       <p className="text-xs text-graphite-500">{whenOf(item)}</p>
                     </td>
@@ -146,7 +152,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                           {item.history.map((e) => (
                             <li key={e.id}>
                               <time dateTime={e.at} className="text-graphite-500">
-                                {new Date(e.at).toLocaleString()}
+                                {formatInstant(e.at, timeZone)}
                               </time>{" "}
                               <span className="font-medium">{e.actorName}</span>
                               {e.actorKind === "sponsor" ? " (sponsor)" : ""} {describe(e)}
@@ -207,7 +213,7 @@ function AddItemForm({ channelId, dealId, members, onDone }: { channelId: string
       await add.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["kind", "title", "anchor", "offsetDays", "fixedDate", "ownerId"]));
+      setFormError(applyServerErrors(error, form.setError, ["kind", "title", "anchor", "offsetDays", "fixedDate", "ownerId"]));
     }
   });
   return (
@@ -226,14 +232,7 @@ function AddItemForm({ channelId, dealId, members, onDone }: { channelId: string
         <TextField label="Days" inputMode="numeric" {...form.register("offsetDays")} error={errors.offsetDays?.message} />
       )}
       <SelectField label="Owner" options={[{ value: "", label: "Me" }, ...members.map((m) => ({ value: m.userId, label: m.name }))]} {...form.register("ownerId")} error={errors.ownerId?.message} />
-      <div className="flex items-end gap-2">
-        <Button type="submit" busy={add.isPending}>
-          Add item
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex items-end gap-2" submit="Add item" busy={add.isPending} onCancel={onDone} />
     </form>
   );
 }

@@ -2,8 +2,9 @@ import { Link, useSearchParams } from "react-router-dom";
 import { deliverableKindLabels, deskGroupLabels, type DeskGroup } from "@shared/sponsors/deliverables";
 import type { DeskItem } from "@shared/sponsors/schemas";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { useCurrentChannel } from "../../../lib/session";
+import { Empty, QueryState } from "../../../components/States";
+import { formatDay } from "../../../lib/format";
+import { useChannel } from "../../../lib/session";
 import { useDesk } from "../api/get-desk";
 import { StatusTag } from "./labels";
 
@@ -18,8 +19,7 @@ const groupAccent: Record<DeskGroup, string> = {
 
 /** The producer's desk: every open deliverable across episodes, by what needs doing first. */
 export function DeskPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   return <Desk channelId={channel.channelId} />;
 }
 
@@ -36,34 +36,34 @@ function Desk({ channelId }: { channelId: string }) {
 
   return (
     <div className="mx-auto max-w-5xl">
-      <PageHeader title="Desk" subtitle={desk.data ? `Every open sponsor item, as of ${desk.data.today}.` : "Every open sponsor item."} />
-      {desk.isPending && <Loading label="Loading the desk…" />}
-      {desk.isError && <LoadError error={desk.error} retry={() => void desk.refetch()} />}
-      {desk.data && (
-        <>
-          <ul aria-label="Counts" className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-4">
-            {shownOrder.map((group) => (
-              <li key={group} className={`rounded-lg border-l-4 bg-white p-3 shadow-sm ${groupAccent[group]}`}>
-                <a href={`#desk-${group}`} className="block">
-                  <span className="block text-2xl font-bold" data-testid={`count-${group}`}>
-                    {desk.data.counts[group]}
-                  </span>
-                  <span className="text-sm">{deskGroupLabels[group]}</span>
-                </a>
-              </li>
-            ))}
-          </ul>
-          <div className="mb-6 flex flex-wrap gap-4">
-            <FilterSelect label="Sponsor" value={filter.sponsorId ?? ""} onChange={(v) => setFilter("sponsor", v)} options={desk.data.sponsors.map((s) => ({ value: s.id, label: s.company }))} />
-            <FilterSelect label="Episode" value={filter.episodeId ?? ""} onChange={(v) => setFilter("episode", v)} options={desk.data.episodes.map((e) => ({ value: e.id, label: e.title }))} />
-          </div>
-          {desk.data.items.length === 0 ? (
-            <Empty title="Nothing open">{filter.sponsorId || filter.episodeId ? "No open items for this filter." : "Deals' deliverables appear here once a deal has items."}</Empty>
-          ) : (
-            shownOrder.map((group) => <Group key={group} channelId={channelId} group={group} items={desk.data.items.filter((i) => i.group === group)} />)
-          )}
-        </>
-      )}
+      <PageHeader title="Desk" subtitle={desk.data ? `Every open sponsor item, as of ${formatDay(desk.data.today)}.` : "Every open sponsor item."} />
+      <QueryState query={desk} loading="Loading the desk…" page>
+        {(data) => (
+          <>
+            <ul aria-label="Counts" className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-4">
+              {shownOrder.map((group) => (
+                <li key={group} className={`rounded-lg border-l-4 bg-white p-3 shadow-sm ${groupAccent[group]}`}>
+                  <a href={`#desk-${group}`} className="block">
+                    <span className="block text-2xl font-bold" data-testid={`count-${group}`}>
+                      {data.counts[group]}
+                    </span>
+                    <span className="text-sm">{deskGroupLabels[group]}</span>
+                  </a>
+                </li>
+              ))}
+            </ul>
+            <div className="mb-6 flex flex-wrap gap-4">
+              <FilterSelect label="Sponsor" value={filter.sponsorId ?? ""} onChange={(v) => setFilter("sponsor", v)} options={data.sponsors.map((s) => ({ value: s.id, label: s.company }))} />
+              <FilterSelect label="Episode" value={filter.episodeId ?? ""} onChange={(v) => setFilter("episode", v)} options={data.episodes.map((e) => ({ value: e.id, label: e.title }))} />
+            </div>
+            {data.items.length === 0 ? (
+              <Empty title="Nothing open">{filter.sponsorId || filter.episodeId ? "No open items for this filter." : "Deals' deliverables appear here once a deal has items."}</Empty>
+            ) : (
+              shownOrder.map((group) => <Group key={group} channelId={channelId} group={group} items={data.items.filter((i) => i.group === group)} />)
+            )}
+          </>
+        )}
+      </QueryState>
     </div>
   );
 }
@@ -98,7 +98,7 @@ function Group({ channelId, group, items }: { channelId: string; group: DeskGrou
         {items.map((item) => (
           <li key={item.id} className="grid gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
             <span className={`text-sm font-semibold ${group === "overdue" ? "text-alarm-600" : ""}`}>
-              {item.dueDate ?? "No date"}
+              {formatDay(item.dueDate) || "No date"}
               {item.daysLate > 0 && <span className="block text-xs font-normal">{item.daysLate} days late</span>}
             </span>
             <span>

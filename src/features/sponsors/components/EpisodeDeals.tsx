@@ -1,11 +1,9 @@
-import { useEffect, useState } from "react";
-import { useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { roleMay } from "@shared/access/roles";
 import { Button } from "../../../components/Button";
-import { Empty, LoadError, Loading } from "../../../components/States";
+import { Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useEpisodeDeals } from "../api/episode-deals";
-import { sponsorKeys } from "../api/keys";
 import { DealCard } from "./DealCard";
 import { NewDealForm } from "./NewDealForm";
 
@@ -13,28 +11,18 @@ import { NewDealForm } from "./NewDealForm";
 export function EpisodeDeals({ channelId, episodeId, role }: EpisodeSectionProps) {
   const deals = useEpisodeDeals(channelId, episodeId);
   const [adding, setAdding] = useState(false);
-  const queryClient = useQueryClient();
-  // Another section's change (the slate's publish date, above all) can move this episode's item dates:
-  // after any successful write on the page, the deals are read again.
-  useEffect(
-    () =>
-      queryClient.getMutationCache().subscribe((event) => {
-        if (event.type === "updated" && event.action.type === "success") void queryClient.invalidateQueries({ queryKey: sponsorKeys.episodeDeals(channelId, episodeId) });
-      }),
-    [queryClient, channelId, episodeId],
-  );
   const canCreate = roleMay(role, "sponsors", "W");
   if (!roleMay(role, "sponsors", "R")) return null;
   return (
     <div className="flex flex-col gap-4">
-      {deals.isPending && <Loading label="Loading the deals…" />}
-      {deals.isError && <LoadError error={deals.error} retry={() => void deals.refetch()} />}
-      {deals.data && deals.data.length === 0 && !adding && (
-        <Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>
-      )}
-      {deals.data?.map((deal) => (
-        <DealCard key={deal.id} channelId={channelId} deal={deal} role={role} />
-      ))}
+      <QueryState
+        query={deals}
+        loading="Loading the deals…"
+        isEmpty={(list) => list.length === 0}
+        empty={!adding && <Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>}
+      >
+        {(list) => list.map((deal) => <DealCard key={deal.id} channelId={channelId} deal={deal} role={role} />)}
+      </QueryState>
       {canCreate &&
         (adding ? (
           <NewDealForm channelId={channelId} episodeId={episodeId} onDone={() => setAdding(false)} />

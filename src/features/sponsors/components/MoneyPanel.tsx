@@ -3,12 +3,12 @@ import { useForm } from "react-hook-form";
 import { moneySchema, paymentTermsFrom, paymentTermsLabels, type DealView, type Money } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { useUpdateMoney } from "../api/save-deal";
-import { money as formatMoney } from "./labels";
-import { numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { useUpdateMoney } from "../api/update-money";
+import { formatDay, formatMoney } from "../../../lib/format";
+import { FormActions, SelectField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface MoneyForm {
   fee: string;
@@ -55,7 +55,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
       await update.mutateAsync({ ...body, version: record.version });
       setEditing(false);
     } catch (error) {
-      setFormError(record.conflictIn(error) ?? placeServerErrors(error, form.setError, names));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, names));
     }
   });
 
@@ -69,8 +69,8 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
           <span className="text-graphite-500">Paid</span> {value.paymentTermsDays} days {paymentTermsLabels[value.paymentTermsFrom]}
         </p>
         <p>
-          <span className="text-graphite-500">Invoice</span> {value.invoiceNumber ? `${value.invoiceNumber}${value.invoicedOn ? ` of ${value.invoicedOn}` : ""}` : "not yet"}
-          {value.paidOn ? `, paid ${value.paidOn}` : ""}
+          <span className="text-graphite-500">Invoice</span> {value.invoiceNumber ? `${value.invoiceNumber}${value.invoicedOn ? ` of ${formatDay(value.invoicedOn)}` : ""}` : "not yet"}
+          {value.paidOn ? `, paid ${formatDay(value.paidOn)}` : ""}
         </p>
         <Button tone="quiet" className="px-2 py-1" onClick={open}>
           Edit money
@@ -92,14 +92,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
       <TextField label="Invoice number" {...form.register("invoiceNumber")} error={errors.invoiceNumber?.message} />
       <TextField label="Invoiced on" type="date" {...form.register("invoicedOn")} error={errors.invoicedOn?.message} />
       <TextField label="Paid on" type="date" {...form.register("paidOn")} error={errors.paidOn?.message} />
-      <div className="flex items-end gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save
-        </Button>
-        <Button type="button" tone="quiet" onClick={() => setEditing(false)}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex items-end gap-2" submit="Save" busy={update.isPending} onCancel={() => setEditing(false)} />
     </form>
   );
 }

@@ -2,15 +2,15 @@ import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { Link } from "react-router-dom";
 import { describeDating } from "@shared/sponsors/deliverables";
-import { createDealSchema, dealStateLabels, dealStates, paymentTermsFrom, paymentTermsLabels, placementLabels, placements } from "@shared/sponsors/schemas";
-import { Button } from "../../../components/Button";
+import { createDealSchema, dealStateLabels, dealStates, paymentTermsFrom, paymentTermsLabels, placementLabels, placements, type DealTemplate, type SponsorSummary } from "@shared/sponsors/schemas";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
-import { TextField } from "../../../components/TextField";
-import { useCreateDeal } from "../api/save-deal";
+import { allOf, QueryState } from "../../../components/States";
+import { useCreateDeal } from "../api/create-deal";
 import { useSponsors } from "../api/list-sponsors";
-import { useTemplates } from "../api/templates";
-import { TextArea, errorAt, linesOf, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { useTemplates } from "../api/list-templates";
+import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, linesOf, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 interface DealForm {
   sponsorId: string;
@@ -56,8 +56,28 @@ const toBody = (episodeId: string) => (v: DealForm) => ({
 
 /** A new deal on this episode: the segment it buys, the money, and the template its items come from. */
 export function NewDealForm({ channelId, episodeId, onDone }: { channelId: string; episodeId: string; onDone: () => void }) {
-  const sponsors = useSponsors(channelId);
-  const templates = useTemplates(channelId);
+  const choices = allOf(useSponsors(channelId), useTemplates(channelId));
+  return (
+    <QueryState
+      query={choices}
+      loading="Loading the sponsors and templates…"
+      isEmpty={([sponsors]) => sponsors.length === 0}
+      empty={
+        <Notice>
+          No sponsors yet.{" "}
+          <Link className="font-semibold underline" to={`/c/${channelId}/sponsors`}>
+            Add the sponsor
+          </Link>{" "}
+          first, then make the deal here.
+        </Notice>
+      }
+    >
+      {([sponsors, templates]) => <DealFormFields channelId={channelId} episodeId={episodeId} sponsors={sponsors} templates={templates} onDone={onDone} />}
+    </QueryState>
+  );
+}
+
+function DealFormFields({ channelId, episodeId, sponsors, templates, onDone }: { channelId: string; episodeId: string; sponsors: SponsorSummary[]; templates: DealTemplate[]; onDone: () => void }) {
   const create = useCreateDeal(channelId);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<DealForm, unknown, ReturnType<typeof createDealSchema.parse>>({
@@ -82,8 +102,8 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
   });
   const sponsorId = useWatch({ control: form.control, name: "sponsorId" });
   const templateId = useWatch({ control: form.control, name: "templateId" });
-  const chosen = sponsors.data?.find((s) => s.id === sponsorId);
-  const template = templates.data?.find((t) => t.id === templateId);
+  const chosen = sponsors.find((s) => s.id === sponsorId);
+  const template = templates.find((t) => t.id === templateId);
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (body) => {
@@ -92,21 +112,9 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
       await create.mutateAsync(body);
       onDone();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, fieldNames, fieldFor));
+      setFormError(applyServerErrors(error, form.setError, fieldNames, fieldFor));
     }
   });
-
-  if (sponsors.data && sponsors.data.length === 0) {
-    return (
-      <Notice>
-        No sponsors yet.{" "}
-        <Link className="font-semibold underline" to={`/c/${channelId}/sponsors`}>
-          Add the sponsor
-        </Link>{" "}
-        first, then make the deal here.
-      </Notice>
-    );
-  }
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="New deal" className="flex flex-col gap-4 rounded-lg border border-ply-300 bg-white p-5">
@@ -114,7 +122,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
       <div className="grid gap-4 sm:grid-cols-3">
         <SelectField
           label="Sponsor"
-          options={[{ value: "", label: "Pick a sponsor…" }, ...(sponsors.data ?? []).map((s) => ({ value: s.id, label: s.company }))]}
+          options={[{ value: "", label: "Pick a sponsor…" }, ...sponsors.map((s) => ({ value: s.id, label: s.company }))]}
           {...form.register("sponsorId")}
           error={errors.sponsorId?.message}
         />
@@ -126,7 +134,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
         />
         <SelectField
           label="Deliverables from template"
-          options={[{ value: "", label: "No template: add items by hand" }, ...(templates.data ?? []).map((t) => ({ value: t.id, label: t.name }))]}
+          options={[{ value: "", label: "No template: add items by hand" }, ...templates.map((t) => ({ value: t.id, label: t.name }))]}
           {...form.register("templateId")}
           error={errors.templateId?.message}
         />
@@ -141,7 +149,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
         <SelectField label="Placement" options={placements.map((p) => ({ value: p, label: placementLabels[p] }))} {...form.register("placement")} error={errors.placement?.message} />
         <TextField label="Contracted length (seconds)" inputMode="numeric" {...form.register("segmentSeconds")} error={errors.segmentSeconds?.message} />
       </div>
-      <TextArea label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
+      <TextAreaField label="Required talking points" rows={3} hint="One per line." {...form.register("talkingPoints")} error={errorAt(errors, "talkingPoints")} />
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Link" placeholder="https://" {...form.register("link")} error={errors.link?.message} />
         <TextField label="Promo code" {...form.register("promoCode")} error={errors.promoCode?.message} />
@@ -155,14 +163,7 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
         <TextField label="Payment terms (days)" inputMode="numeric" {...form.register("paymentTermsDays")} error={errors.paymentTermsDays?.message} />
         <SelectField label="Counted from" options={paymentTermsFrom.map((p) => ({ value: p, label: paymentTermsLabels[p] }))} {...form.register("paymentTermsFrom")} error={errors.paymentTermsFrom?.message} />
       </fieldset>
-      <div className="flex gap-2">
-        <Button type="submit" busy={create.isPending}>
-          Create deal
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submit="Create deal" busy={create.isPending} onCancel={onDone} />
     </form>
   );
 }

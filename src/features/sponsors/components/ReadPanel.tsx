@@ -1,15 +1,15 @@
 import { useState } from "react";
 import { checkDisclosure } from "@shared/sponsors/disclosure";
-import { SPEAKING_RATE_SOURCE, analyseRead, formatSeconds, mentionsCode, mentionsLink } from "@shared/sponsors/read";
+import { SPEAKING_RATE_SOURCE, analyseRead, mentionsCode, mentionsLink } from "@shared/sponsors/read";
 import type { DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { SelectField } from "../../../components/SelectField";
 import { changedFields, useOpenedRecord } from "../../../lib/conflicts";
-import { useUpdateDeal } from "../api/save-deal";
-import { useSponsorSettings } from "../api/settings";
+import { formatSeconds } from "../../../lib/format";
+import { useUpdateDeal } from "../api/update-deal";
+import { useSponsorSettings } from "../api/get-settings";
 import { DisclosureGuidance } from "./labels";
-import { TextArea } from "./form-tools";
+import { SelectField, TextAreaField } from "../../../components/form-fields";
 
 /** The read's own fields as the deal holds them. */
 const readOf = (deal: DealView) => ({ script: deal.script, descriptionCopy: deal.descriptionCopy ?? "", hostId: deal.host.id ?? "" });
@@ -72,8 +72,8 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
       <div className="flex flex-col gap-3">
         {canEdit ? (
           <>
-            <TextArea label="Script of the segment" rows={8} value={script} onChange={(e) => setScript(e.target.value)} />
-            <TextArea
+            <TextAreaField label="Script of the segment" rows={8} value={script} onChange={(e) => setScript(e.target.value)} />
+            <TextAreaField
               label="Description text for this sponsor"
               rows={3}
               value={description}

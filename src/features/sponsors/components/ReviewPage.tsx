@@ -1,16 +1,18 @@
 import { useState, type ReactNode } from "react";
+import { useForm } from "react-hook-form";
 import { useParams } from "react-router-dom";
-import { formatSeconds } from "@shared/sponsors/read";
-import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
-import { fieldMessages } from "@shared/http/errors";
+import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewDecisionInput, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Loading } from "../../../components/States";
+import { allOf, QueryState } from "../../../components/States";
 import { Wordmark } from "../../../components/Wordmark";
-import { ApiError } from "../../../lib/api-client";
-import { useMe } from "../../../lib/session";
-import { useDecide, useReview } from "../api/review";
-import { TextArea } from "./form-tools";
+import { formatInstant, formatSeconds } from "../../../lib/format";
+import { useMe, useTimeZone } from "../../../lib/session";
+import { useDecide } from "../api/decide-review";
+import { useReview } from "../api/get-review";
+import { TextAreaField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 function Frame({ children }: { children: ReactNode }) {
   return (
@@ -41,42 +43,25 @@ export function ReviewPage() {
   // The page's CSRF token comes from /api/auth/me, like every page's.
   const me = useMe();
   const review = useReview(token);
-  if (review.isPending || me.isPending) {
-    return (
-      <Frame>
-        <Loading label="Opening the review…" />
-      </Frame>
-    );
-  }
-  if (review.isError) {
-    const invalid = review.error instanceof ApiError && review.error.status === 404;
-    return (
-      <Frame>
-        <Closed title={invalid ? "This review link isn't valid" : "This review didn't open"}>
-          <p>{invalid ? "Check that you copied the whole link from the e-mail, or ask the channel for a new one." : review.error.message}</p>
-          {!invalid && (
-            <Button tone="quiet" className="mt-4" onClick={() => void review.refetch()}>
-              Try again
-            </Button>
-          )}
-        </Closed>
-      </Frame>
-    );
-  }
   return (
     <Frame>
-      <Body token={token} page={review.data} />
+      <QueryState query={allOf(review, me)} loading="Opening the review…" missing={invalidLink}>
+        {([page]) => <Body token={token} page={page} />}
+      </QueryState>
     </Frame>
   );
 }
 
+const invalidLink = { title: "This review link isn't valid", text: "Check that you copied the whole link from the e-mail, or ask the channel for a new one." };
+
 function Body({ token, page }: { token: string; page: ReviewPageData }) {
+  const timeZone = useTimeZone();
   switch (page.state) {
     case "decided":
       return (
         <Closed title="Thank you: your decision is recorded">
           <p>
-            {page.contactName} {decisionText[page.decision]} on {new Date(page.decidedAt).toLocaleString()}. {page.channelName} has been told by e-mail.
+            {page.contactName} {decisionText[page.decision]} on {formatInstant(page.decidedAt, timeZone)}. {page.channelName} has been told by e-mail.
           </p>
           <p className="mt-2 text-sm text-graphite-500">This link works for one decision only. For another round, the channel will send a new link.</p>
         </Closed>
@@ -100,24 +85,33 @@ function Body({ token, page }: { token: string; page: ReviewPageData }) {
         </Closed>
       );
     case "open":
-      return <OpenReview token={token} page={page} />;
+      // Keyed by what the page shows: a decision is always made against the page as it is now.
+      return <OpenReview key={page.seen} token={token} page={page} />;
   }
 }
 
+interface DecisionValues {
+  decision: ReviewDecision | null;
+  comment: string;
+}
+
+/** `seen` says what the page showed: if the channel changed it since, the server answers 409 and the page reloads. */
+const decisionResolver = (seen: string) => schemaResolver(reviewDecisionSchema, (v: DecisionValues) => ({ ...v, seen }));
+
 function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageData, { state: "open" }> }) {
   const decide = useDecide(token);
-  const [decision, setDecision] = useState<ReviewDecision | null>(null);
-  const [comment, setComment] = useState("");
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const submit = async () => {
-    // `seen` says what this page showed: if the channel changed it since, the server answers 409 and the page reloads.
-    const parsed = reviewDecisionSchema.safeParse({ decision, comment, seen: page.seen });
-    if (!parsed.success) return setErrors(fieldMessages(parsed.error.issues));
-    setErrors({});
-    await decide.mutateAsync(parsed.data).catch((error: unknown) => {
-      if (error instanceof ApiError) setErrors(error.fields);
-    });
-  };
+  const timeZone = useTimeZone();
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<DecisionValues, unknown, ReviewDecisionInput>({ resolver: decisionResolver(page.seen), defaultValues: { decision: null, comment: "" } });
+  const errors = form.formState.errors;
+  const onSubmit = form.handleSubmit(async (body) => {
+    setFormError(null);
+    try {
+      await decide.mutateAsync(body);
+    } catch (error) {
+      setFormError(applyServerErrors(error, form.setError, ["decision", "comment"]));
+    }
+  });
   return (
     <>
       <header className="rounded-xl border border-ply-300 bg-white p-6 shadow-sm">
@@ -126,7 +120,7 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
         </p>
         <h1 className="mt-1 text-2xl font-bold">Review: {page.deliverableTitle}</h1>
         <p className="mt-1 text-graphite-700">
-          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {new Date(page.expiresAt).toLocaleString()}.
+          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {formatInstant(page.expiresAt, timeZone)}.
         </p>
       </header>
       <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-6">
@@ -158,30 +152,30 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
           </video>
         </section>
       )}
-      <section aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+      <form onSubmit={onSubmit} noValidate aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
         <h2 id="decision-heading" className="mb-3 text-lg font-semibold">
           Your decision
         </h2>
         <fieldset className="mb-3 flex flex-wrap gap-4">
           <legend className="sr-only">Decision</legend>
           <label className="flex items-center gap-2">
-            <input type="radio" name="decision" checked={decision === "approved"} onChange={() => setDecision("approved")} /> Approve
+            <input type="radio" value="approved" {...form.register("decision")} /> Approve
           </label>
           <label className="flex items-center gap-2">
-            <input type="radio" name="decision" checked={decision === "changes_asked"} onChange={() => setDecision("changes_asked")} /> Ask for changes
+            <input type="radio" value="changes_asked" {...form.register("decision")} /> Ask for changes
           </label>
         </fieldset>
-        {errors.decision && <p className="mb-2 text-sm text-alarm-600">{errors.decision}</p>}
-        <TextArea label="Comment" rows={4} value={comment} onChange={(e) => setComment(e.target.value)} hint="Needed when you ask for changes: say what should change." error={errors.comment} />
-        {decide.isError && !(decide.error instanceof ApiError && Object.keys(decide.error.fields).length) && (
+        {errors.decision && <p className="mb-2 text-sm text-alarm-600">{errors.decision.message}</p>}
+        <TextAreaField label="Comment" rows={4} {...form.register("comment")} hint="Needed when you ask for changes: say what should change." error={errors.comment?.message} />
+        {formError && (
           <div className="mt-3">
-            <Notice kind="error">{decide.error.message}</Notice>
+            <Notice kind="error">{formError}</Notice>
           </div>
         )}
-        <Button className="mt-4" busy={decide.isPending} onClick={() => void submit()}>
+        <Button type="submit" className="mt-4" busy={decide.isPending}>
           Send decision
         </Button>
-      </section>
+      </form>
     </>
   );
 }

@@ -4,10 +4,12 @@ import { settingsInputSchema, speakingRateSchema } from "@shared/sponsors/schema
 import { fieldMessages } from "@shared/http/errors";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
-import { useSaveSettings, useSaveSpeakingRate, useSponsorSettings } from "../api/settings";
-import { numberFrom } from "./form-tools";
+import { QueryState } from "../../../components/States";
+import { useSponsorSettings } from "../api/get-settings";
+import { useSaveSettings } from "../api/save-settings";
+import { useSaveSpeakingRate } from "../api/save-speaking-rate";
+import { TextField } from "../../../components/form-fields";
+import { numberFrom } from "../../../lib/forms";
 
 /** How early reminders go out, and each host's speaking rate for the read's estimate. */
 export function SettingsSection({ channelId, canEditReminders, canEditRates }: { channelId: string; canEditReminders: boolean; canEditRates: boolean }) {
@@ -17,21 +19,21 @@ export function SettingsSection({ channelId, canEditReminders, canEditRates }: {
       <h2 id="settings-heading" className="mb-3 text-lg font-semibold">
         Reminders and speaking rates
       </h2>
-      {settings.isPending && <Loading />}
-      {settings.isError && <LoadError error={settings.error} retry={() => void settings.refetch()} />}
-      {settings.data && (
-        <div className="grid items-start gap-6 md:grid-cols-2">
-          <Reminders key={settings.data.reminderDaysBefore} channelId={channelId} days={settings.data.reminderDaysBefore} canEdit={canEditReminders} />
-          <div className="rounded-lg border border-ply-300 bg-white p-4">
-            <p className="mb-3 text-sm text-graphite-700">Read time uses the host's rate. Kerf starts everyone at {SPEAKING_RATE_SOURCE.split(";")[0]}.</p>
-            <ul className="flex flex-col gap-2">
-              {settings.data.hosts.map((host) => (
-                <Rate key={`${host.userId}-${host.wordsPerMinute}`} channelId={channelId} host={host} canEdit={canEditRates} />
-              ))}
-            </ul>
+      <QueryState query={settings} loading="Loading the reminder and speaking-rate settings…">
+        {(data) => (
+          <div className="grid items-start gap-6 md:grid-cols-2">
+            <Reminders key={data.reminderDaysBefore} channelId={channelId} days={data.reminderDaysBefore} canEdit={canEditReminders} />
+            <div className="rounded-lg border border-ply-300 bg-white p-4">
+              <p className="mb-3 text-sm text-graphite-700">Read time uses the host's rate. Kerf starts everyone at {SPEAKING_RATE_SOURCE.split(";")[0]}.</p>
+              <ul className="flex flex-col gap-2">
+                {data.hosts.map((host) => (
+                  <Rate key={`${host.userId}-${host.wordsPerMinute}`} channelId={channelId} host={host} canEdit={canEditRates} />
+                ))}
+              </ul>
+            </div>
           </div>
-        </div>
-      )}
+        )}
+      </QueryState>
     </section>
   );
 }

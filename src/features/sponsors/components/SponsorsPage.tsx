@@ -6,21 +6,24 @@ import { contactInputSchema, dealStateLabels, placementLabels, sponsorInputSchem
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { Empty, QueryState } from "../../../components/States";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { useCurrentChannel } from "../../../lib/session";
+import { formatDay, formatMoney } from "../../../lib/format";
+import { useChannel } from "../../../lib/session";
 import { useSponsor } from "../api/get-sponsor";
 import { useSponsors } from "../api/list-sponsors";
-import { useAddContact, useCreateSponsor, useRemoveContact, useUpdateSponsor } from "../api/save-sponsor";
-import { money } from "./labels";
+import { useAddContact } from "../api/add-contact";
+import { useCreateSponsor } from "../api/create-sponsor";
+import { useRemoveContact } from "../api/remove-contact";
+import { useUpdateSponsor } from "../api/update-sponsor";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
-import { TextArea, placeServerErrors, schemaResolver } from "./form-tools";
+import { FormActions, TextAreaField, TextField } from "../../../components/form-fields";
+import { applyServerErrors } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 export function SponsorsPage() {
-  const channel = useCurrentChannel();
-  if (!channel) return <Loading />;
+  const channel = useChannel();
   const canEdit = roleMay(channel.role, "sponsors", "W");
   return (
     <div className="mx-auto max-w-6xl">
@@ -41,28 +44,32 @@ function Directory({ channelId, canEdit }: { channelId: string; canEdit: boolean
   return (
     <div className="grid gap-6 lg:grid-cols-[18rem_1fr]">
       <div className="flex flex-col gap-4">
-        {sponsors.isPending && <Loading label="Loading sponsors…" />}
-        {sponsors.isError && <LoadError error={sponsors.error} retry={() => void sponsors.refetch()} />}
-        {sponsors.data && sponsors.data.length === 0 && <Empty title="No sponsors yet">{canEdit ? "Add the first one below." : "A producer adds them."}</Empty>}
-        {sponsors.data && sponsors.data.length > 0 && (
-          <ul aria-label="Sponsors" className="flex flex-col gap-1">
-            {sponsors.data.map((s) => (
-              <li key={s.id}>
-                <button
-                  type="button"
-                  onClick={() => select(s.id)}
-                  aria-current={s.id === selected ? "true" : undefined}
-                  className={`w-full rounded-md border px-3 py-2 text-left ${s.id === selected ? "border-rust-600 bg-white" : "border-ply-300 bg-ply-50 hover:bg-white"}`}
-                >
-                  <span className="block font-medium">{s.company}</span>
-                  <span className="text-xs text-graphite-500">
-                    {s.contacts.length} {s.contacts.length === 1 ? "contact" : "contacts"} · {s.dealCount} {s.dealCount === 1 ? "deal" : "deals"}
-                  </span>
-                </button>
-              </li>
-            ))}
-          </ul>
-        )}
+        <QueryState
+          query={sponsors}
+          loading="Loading sponsors…"
+          isEmpty={(list) => list.length === 0}
+          empty={<Empty title="No sponsors yet">{canEdit ? "Add the first one below." : "A producer adds them."}</Empty>}
+        >
+          {(list) => (
+            <ul aria-label="Sponsors" className="flex flex-col gap-1">
+              {list.map((s) => (
+                <li key={s.id}>
+                  <button
+                    type="button"
+                    onClick={() => select(s.id)}
+                    aria-current={s.id === selected ? "true" : undefined}
+                    className={`w-full rounded-md border px-3 py-2 text-left ${s.id === selected ? "border-rust-600 bg-white" : "border-ply-300 bg-ply-50 hover:bg-white"}`}
+                  >
+                    <span className="block font-medium">{s.company}</span>
+                    <span className="text-xs text-graphite-500">
+                      {s.contacts.length} {s.contacts.length === 1 ? "contact" : "contacts"} · {s.dealCount} {s.dealCount === 1 ? "deal" : "deals"}
+                    </span>
+                  </button>
+                </li>
+              ))}
+            </ul>
+          )}
+        </QueryState>
         {canEdit && <NewSponsorForm channelId={channelId} onMade={select} />}
       </div>
       <div>{selected ? <SponsorPanel channelId={channelId} sponsorId={selected} canEdit={canEdit} /> : null}</div>
@@ -90,7 +97,7 @@ function NewSponsorForm({ channelId, onMade }: { channelId: string; onMade: (id:
       form.reset();
       onMade(sponsor.id);
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["company", "website", "notes"]));
+      setFormError(applyServerErrors(error, form.setError, ["company", "website", "notes"]));
     }
   });
   return (
@@ -108,9 +115,11 @@ function NewSponsorForm({ channelId, onMade }: { channelId: string; onMade: (id:
 
 function SponsorPanel({ channelId, sponsorId, canEdit }: { channelId: string; sponsorId: string; canEdit: boolean }) {
   const sponsor = useSponsor(channelId, sponsorId);
-  if (sponsor.isPending) return <Loading label="Loading the sponsor…" />;
-  if (sponsor.isError) return <LoadError error={sponsor.error} retry={() => void sponsor.refetch()} />;
-  return <SponsorDetailView key={sponsor.data.id} channelId={channelId} sponsor={sponsor.data} canEdit={canEdit} />;
+  return (
+    <QueryState query={sponsor} loading="Loading the sponsor…" back={{ to: `/c/${channelId}/sponsors`, label: "Sponsors" }}>
+      {(detail) => <SponsorDetailView key={detail.id} channelId={channelId} sponsor={detail} canEdit={canEdit} />}
+    </QueryState>
+  );
 }
 
 function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string; sponsor: SponsorDetail; canEdit: boolean }) {
@@ -165,8 +174,8 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                   </td>
                   <td className="py-2">{dealStateLabels[deal.state]}</td>
                   <td className="py-2">{placementLabels[deal.placement]}</td>
-                  <td className="py-2">{deal.publishDate ?? "No date"}</td>
-                  {deal.money && <td className="py-2 text-right">{money(deal.money.fee, deal.money.currency)}</td>}
+                  <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
+                  {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
                 </tr>
               ))}
             </tbody>
@@ -193,7 +202,7 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
       await update.mutateAsync({ ...body, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(record.conflictIn(error) ?? placeServerErrors(error, form.setError, ["company", "website", "notes"]));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["company", "website", "notes"]));
     }
   });
   return (
@@ -203,15 +212,8 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
         <TextField label="Company" {...form.register("company")} error={form.formState.errors.company?.message} />
         <TextField label="Website" {...form.register("website")} error={form.formState.errors.website?.message} />
       </div>
-      <TextArea label="Notes" rows={3} {...form.register("notes")} error={form.formState.errors.notes?.message} />
-      <div className="flex gap-2">
-        <Button type="submit" busy={update.isPending}>
-          Save
-        </Button>
-        <Button type="button" tone="quiet" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <TextAreaField label="Notes" rows={3} {...form.register("notes")} error={form.formState.errors.notes?.message} />
+      <FormActions submit="Save" busy={update.isPending} onCancel={onDone} />
     </form>
   );
 }
@@ -236,7 +238,7 @@ function Contacts({ channelId, sponsor, canEdit }: { channelId: string; sponsor:
       await add.mutateAsync(body);
       form.reset();
     } catch (error) {
-      setFormError(placeServerErrors(error, form.setError, ["name", "email", "role"]));
+      setFormError(applyServerErrors(error, form.setError, ["name", "email", "role"]));
     }
   });
   return (

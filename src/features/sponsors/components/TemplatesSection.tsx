@@ -4,11 +4,14 @@ import { anchorLabels, describeDating, deliverableKindLabels, deliverableKinds, 
 import { templateInputSchema, type DealTemplate } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { Empty, LoadError, Loading } from "../../../components/States";
-import { TextField } from "../../../components/TextField";
+import { Empty, QueryState } from "../../../components/States";
 import { useOpenedRecord } from "../../../lib/conflicts";
-import { useDeleteTemplate, useSaveTemplate, useTemplates } from "../api/templates";
-import { errorAt, numberFrom, placeServerErrors, schemaResolver } from "./form-tools";
+import { useDeleteTemplate } from "../api/delete-template";
+import { useTemplates } from "../api/list-templates";
+import { useSaveTemplate } from "../api/save-template";
+import { TextField } from "../../../components/form-fields";
+import { applyServerErrors, errorAt, numberFrom } from "../../../lib/forms";
+import { schemaResolver } from "../../../lib/schema-resolver";
 
 const ownerRoleLabels = { "": "Whoever makes the deal", owner: "Owner", producer: "Producer", editor: "Editor" } as const;
 
@@ -25,47 +28,51 @@ export function TemplatesSection({ channelId, canEdit }: { channelId: string; ca
         </h2>
         {canEdit && editing === null && <Button onClick={() => setEditing("new")}>New template</Button>}
       </div>
-      {templates.isPending && <Loading label="Loading templates…" />}
-      {templates.isError && <LoadError error={templates.error} retry={() => void templates.refetch()} />}
       {editing !== null && <TemplateForm channelId={channelId} template={editing === "new" ? null : editing} onDone={() => setEditing(null)} />}
-      {templates.data && templates.data.length === 0 && editing === null && (
-        <Empty title="No templates yet">{canEdit ? "A template lists a deal's items and when each is due; a new deal copies them." : "A producer sets them up."}</Empty>
-      )}
-      <ul className="mt-3 grid gap-3 md:grid-cols-2">
-        {templates.data?.map((t) => (
-          <li key={t.id} className="rounded-lg border border-ply-300 bg-white p-4">
-            <div className="mb-2 flex items-baseline justify-between gap-2">
-              <h3 className="font-semibold">{t.name}</h3>
-              {canEdit && (
-                <span className="flex gap-1">
-                  <Button tone="quiet" className="px-2 py-1" onClick={() => setEditing(t)}>
-                    Edit
-                  </Button>
-                  <Button
-                    tone="danger"
-                    className="px-2 py-1"
-                    onClick={() => {
-                      if (window.confirm(`Delete the template "${t.name}"? Deals made from it keep their items.`)) remove.mutate(t.id);
-                    }}
-                  >
-                    Delete
-                  </Button>
-                </span>
-              )}
-            </div>
-            <ol className="flex flex-col gap-0.5 text-sm">
-              {t.items.map((item, i) => (
-                <li key={i} className="flex justify-between gap-3">
-                  <span>{item.title}</span>
-                  <span className="whitespace-nowrap text-graphite-500">
-                    {describeDating(item.anchor, item.offsetDays)}
-                  </span>
-                </li>
-              ))}
-            </ol>
-          </li>
-        ))}
-      </ul>
+      <QueryState
+        query={templates}
+        loading="Loading templates…"
+        isEmpty={(list) => list.length === 0}
+        empty={editing === null && <Empty title="No templates yet">{canEdit ? "A template lists a deal's items and when each is due; a new deal copies them." : "A producer sets them up."}</Empty>}
+      >
+        {(list) => (
+          <ul className="mt-3 grid gap-3 md:grid-cols-2">
+            {list.map((t) => (
+              <li key={t.id} className="rounded-lg border border-ply-300 bg-white p-4">
+                <div className="mb-2 flex items-baseline justify-between gap-2">
+                  <h3 className="font-semibold">{t.name}</h3>
+                  {canEdit && (
+                    <span className="flex gap-1">
+                      <Button tone="quiet" className="px-2 py-1" onClick={() => setEditing(t)}>
+                        Edit
+                      </Button>
+                      <Button
+                        tone="danger"
+                        className="px-2 py-1"
+                        onClick={() => {
+                          if (window.confirm(`Delete the template "${t.name}"? Deals made from it keep their items.`)) remove.mutate(t.id);
+                        }}
+                      >
+                        Delete
+                      </Button>
+                    </span>
+                  )}
+                </div>
+                <ol className="flex flex-col gap-0.5 text-sm">
+                  {t.items.map((item, i) => (
+                    <li key={i} className="flex justify-between gap-3">
+                      <span>{item.title}</span>
+                      <span className="whitespace-nowrap text-graphite-500">
+                        {describeDating(item.anchor, item.offsetDays)}
+                      </span>
+                    </li>
+                  ))}
+                </ol>
+              </li>
+            ))}
+          </ul>
+        )}
+      </QueryState>
     </section>
   );
 }
@@ -104,7 +111,7 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
       await save.mutateAsync({ id: template?.id ?? null, input, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(record.conflictIn(error) ?? placeServerErrors(error, form.setError, ["name"]));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["name"]));
     }
   });
   return (

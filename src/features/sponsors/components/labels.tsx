@@ -1,7 +1,7 @@
+import type { ReactNode } from "react";
 import { deliverableStatusLabels, type DeliverableStatus } from "@shared/sponsors/deliverables";
 import { disclosureGuidance, DISCLOSURE_LAW_NOTE } from "@shared/sponsors/disclosure";
 import { dealStateLabels, type DealState } from "@shared/sponsors/schemas";
-import { Tag } from "./form-tools";
 
 const statusTone: Record<DeliverableStatus, "neutral" | "warn" | "good" | "alarm"> = {
   not_started: "neutral",
@@ -42,10 +42,14 @@ export function DisclosureGuidance() {
   );
 }
 
-export const money = (amount: number, currency: string) => {
-  try {
-    return new Intl.NumberFormat(undefined, { style: "currency", currency }).format(amount);
-  } catch {
-    return `${amount.toFixed(2)} ${currency}`;
-  }
+type Tone = "neutral" | "warn" | "alarm" | "good";
+const tones: Record<Tone, string> = {
+  neutral: "bg-ply-200 text-graphite-700",
+  warn: "bg-amber-cut/30 text-graphite-900",
+  alarm: "bg-alarm-600/10 text-alarm-600",
+  good: "bg-moss-600/10 text-moss-600",
 };
+
+export function Tag({ tone = "neutral", children }: { tone?: Tone; children: ReactNode }) {
+  return <span className={`inline-flex items-center rounded px-2 py-0.5 text-xs font-semibold ${tones[tone]}`}>{children}</span>;
+}

@@ -1,0 +1,158 @@
+import { formatBytes } from "@shared/rushes/limits";
+
+/**
+ * How Kerf writes dates, times, durations, sizes and money, the same way on every page. It is the
+ * only module of the client that formats them: lint forbids `toLocale*String`, `Intl.DateTimeFormat`,
+ * `Intl.NumberFormat` and date-fns' `format` everywhere else in src/.
+ *
+ * - A calendar date (a due date, a publish date; stored as "YYYY-MM-DD", the same day in every zone):
+ *   "Fri 5 Mar 2027", or "Fri 5 Mar" where the year goes without saying.
+ * - An instant (a comment, a move, an expiry), in the member's own time zone and always naming it,
+ *   since the reader may be somewhere else: "Fri 5 Mar 2027, 14:05 UTC+1". Only its day, where the
+ *   time of day doesn't matter: "Fri 5 Mar 2027".
+ * - A duration, in its two largest units with the smaller one in two digits: "1 h 05 min",
+ *   "4 min 07 s", "45 s", "3 d 4 h".
+ * - A size in binary units, as storage counts them and as the server's messages write them, with
+ *   one decimal below ten: "812 KiB", "8.5 MiB", "12 MiB", "3.1 GiB".
+ * - Money with its currency: "€1,800.50", "US$250.00".
+ * English words and 24-hour times for everyone, whatever the browser's language.
+ */
+
+const weekdays = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"] as const;
+const months = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"] as const;
+
+/** A moment's calendar and clock as seen in one time zone. */
+interface Reading {
+  year: number;
+  month: number;
+  day: number;
+  hour: number;
+  minute: number;
+  zone: string;
+}
+
+const readers = new Map<string, Intl.DateTimeFormat>();
+
+/** Building a formatter costs far more than using one; a page may show hundreds of times. */
+function readerFor(timeZone: string): Intl.DateTimeFormat {
+  let reader = readers.get(timeZone);
+  if (!reader) {
+    reader = new Intl.DateTimeFormat("en-GB", {
+      timeZone,
+      year: "numeric",
+      month: "numeric",
+      day: "numeric",
+      hour: "numeric",
+      minute: "numeric",
+      hourCycle: "h23",
+      timeZoneName: "shortOffset",
+    });
+    readers.set(timeZone, reader);
+  }
+  return reader;
+}
+
+/** The one place a moment becomes words: its parts in the zone, read by Intl, written in Kerf's order. */
+function read(moment: Date, timeZone: string): Reading {
+  let parts: Intl.DateTimeFormatPart[];
+  try {
+    parts = readerFor(timeZone).formatToParts(moment);
+  } catch {
+    // An unknown zone name (a stale setting) must not blank the page: UTC, and it says so.
+    parts = readerFor("UTC").formatToParts(moment);
+  }
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
+  // Intl names the offset from GMT ("GMT+9", "GMT+0"); Kerf writes it from UTC, as ISO 8601 does.
+  const zone = part("timeZoneName").replace(/^GMT/, "UTC").replace(/^UTC(\+0)?$/, "UTC") || "UTC";
+  return { year: Number(part("year")), month: Number(part("month")), day: Number(part("day")), hour: Number(part("hour")), minute: Number(part("minute")), zone };
+}
+
+function dayWords({ year, month, day }: Pick<Reading, "year" | "month" | "day">, withYear: boolean): string {
+  // The weekday of a calendar day is the same in every zone: count it in UTC.
+  const weekday = weekdays[new Date(Date.UTC(year, month - 1, day)).getUTCDay()];
+  return `${weekday} ${day} ${months[month - 1]}${withYear ? ` ${year}` : ""}`;
+}
+
+const isoDate = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+/** A calendar date ("2027-03-05") as people read it: "Fri 5 Mar 2027". Empty for no date. */
+export function formatDay(date: string | null | undefined, { withYear = true }: { withYear?: boolean } = {}): string {
+  if (!date) return "";
+  const match = isoDate.exec(date);
+  if (!match) return date;
+  return dayWords({ year: Number(match[1]), month: Number(match[2]), day: Number(match[3]) }, withYear);
+}
+
+/** An instant with its time of day, in the reader's zone and naming it: "Fri 5 Mar 2027, 14:05 UTC+1". */
+export function formatInstant(instant: string | Date, timeZone: string): string {
+  const reading = read(new Date(instant), timeZone);
+  const clock = `${String(reading.hour).padStart(2, "0")}:${String(reading.minute).padStart(2, "0")}`;
+  return `${dayWords(reading, true)}, ${clock} ${reading.zone}`;
+}
+
+/** The day an instant fell on in the reader's zone, where its time of day doesn't matter: "Fri 5 Mar 2027". */
+export function formatInstantDay(instant: string | Date, timeZone: string): string {
+  return dayWords(read(new Date(instant), timeZone), true);
+}
+
+/** The zone this browser is set to: the member's zone until they choose one in their settings. */
+export function browserTimeZone(): string {
+  return new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
+}
+
+const units = [
+  { symbol: "d", ms: 86_400_000 },
+  { symbol: "h", ms: 3_600_000 },
+  { symbol: "min", ms: 60_000 },
+  { symbol: "s", ms: 1_000 },
+] as const;
+
+type DurationUnit = (typeof units)[number]["symbol"];
+
+/**
+ * A length of time in its two largest units: "1 h 05 min", "4 min 07 s", "45 s", "3 d 4 h". Minutes
+ * and seconds after a larger unit take two digits, as on a clock; a zero second unit is left off
+ * ("2 min"). `smallest` says how fine to go: a stay in a stage counts in hours ("under 1 h" below one).
+ */
+export function formatDuration(ms: number, { smallest = "s" }: { smallest?: DurationUnit } = {}): string {
+  const sign = ms < 0 ? "−" : "";
+  const floor = units.findIndex((u) => u.symbol === smallest);
+  const step = units[floor]!.ms;
+  let rest = smallest === "s" ? Math.round(Math.abs(ms) / step) * step : Math.floor(Math.abs(ms) / step) * step;
+  if (rest === 0) return smallest === "s" ? "0 s" : `under 1 ${smallest}`;
+  const first = units.findIndex((u, i) => i <= floor && rest >= u.ms);
+  const words: string[] = [];
+  for (const [i, unit] of units.entries()) {
+    if (i < first || i > Math.min(first + 1, floor)) continue;
+    const count = Math.floor(rest / unit.ms);
+    rest -= count * unit.ms;
+    if (i === first) words.push(`${count} ${unit.symbol}`);
+    else if (count > 0) words.push(`${unit.symbol === "min" || unit.symbol === "s" ? String(count).padStart(2, "0") : count} ${unit.symbol}`);
+  }
+  return sign + words.join(" ");
+}
+
+/** Seconds, as a read or a cut is timed: formatSeconds(62) is "1 min 02 s". */
+export const formatSeconds = (seconds: number) => formatDuration(seconds * 1000);
+
+/** A file or a batch of files: "8.5 MiB" (the same words as the server's size limits). */
+export const formatSize = (bytes: number) => formatBytes(bytes);
+
+const moneyFormats = new Map<string, Intl.NumberFormat | null>();
+
+/** An amount with its currency, "€1,800.50"; an unknown currency code is written after the amount. */
+export function formatMoney(amount: number | string, currency: string): string {
+  const value = typeof amount === "number" ? amount : Number(amount);
+  if (!moneyFormats.has(currency)) {
+    let format: Intl.NumberFormat | null;
+    try {
+      format = new Intl.NumberFormat("en-GB", { style: "currency", currency });
+    } catch {
+      format = null;
+    }
+    moneyFormats.set(currency, format);
+  }
+  const format = moneyFormats.get(currency);
+  if (!Number.isFinite(value)) return `${amount} ${currency}`.trim();
+  return format ? format.format(value) : `${value.toFixed(2)} ${currency}`.trim();
+}
