@@ -191,17 +191,22 @@ export async function refreshMarkCount(db: Executor, clipId: string) {
   await db.execute(sql`update clips set mark_count = (select count(*) from clip_marks where clip_id = ${clipId}) where id = ${clipId}`);
 }
 
-/** The episode of a channel's bench run, or null when the channel has no such run. */
+/** The episode of a channel's bench run, or null when the channel has no such run; the run is held until the transaction ends. */
 export async function benchRunEpisode(db: Executor, channelId: string, runId: string): Promise<string | null> {
-  const rows = await db.select({ episodeId: benchRuns.episodeId }).from(benchRuns).where(and(eq(benchRuns.channelId, channelId), eq(benchRuns.id, runId)));
+  const rows = await db
+    .select({ episodeId: benchRuns.episodeId })
+    .from(benchRuns)
+    .where(and(eq(benchRuns.channelId, channelId), eq(benchRuns.id, runId)))
+    .for("share");
   return rows[0]?.episodeId ?? null;
 }
 
-/** The episode of a channel's build iteration, or null when the channel has no such iteration. */
+/** The episode of a channel's build iteration, or null when the channel has no such iteration; held likewise. */
 export async function buildIterationEpisode(db: Executor, channelId: string, iterationId: string): Promise<string | null> {
   const rows = await db
     .select({ episodeId: buildIterations.episodeId })
     .from(buildIterations)
-    .where(and(eq(buildIterations.channelId, channelId), eq(buildIterations.id, iterationId)));
+    .where(and(eq(buildIterations.channelId, channelId), eq(buildIterations.id, iterationId)))
+    .for("share");
   return rows[0]?.episodeId ?? null;
 }

@@ -105,13 +105,14 @@ export async function updateClip(ctx: RushesContext, caller: Caller, clipId: str
     const day = await shootRepo.findShootDay(ctx.db, caller.channelId, shootDayId);
     if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
   }
-  if (patch.benchRunId && (await repo.benchRunEpisode(ctx.db, caller.channelId, patch.benchRunId)) !== row.episodeId) {
-    throw new AppError("validation_failed", "Some fields need attention.", { benchRunId: "Choose a bench run of this clip's episode." });
-  }
-  if (patch.buildIterationId && (await repo.buildIterationEpisode(ctx.db, caller.channelId, patch.buildIterationId)) !== row.episodeId) {
-    throw new AppError("validation_failed", "Some fields need attention.", { buildIterationId: "Choose a build iteration of this clip's episode." });
-  }
   await ctx.db.transaction(async (tx) => {
+    // Checked in the write's transaction, the run or iteration held until it commits: one deleted meanwhile can't fail the key.
+    if (patch.benchRunId && (await repo.benchRunEpisode(tx, caller.channelId, patch.benchRunId)) !== row.episodeId) {
+      throw new AppError("validation_failed", "Some fields need attention.", { benchRunId: "Choose a bench run of this clip's episode." });
+    }
+    if (patch.buildIterationId && (await repo.buildIterationEpisode(tx, caller.channelId, patch.buildIterationId)) !== row.episodeId) {
+      throw new AppError("validation_failed", "Some fields need attention.", { buildIterationId: "Choose a build iteration of this clip's episode." });
+    }
     await repo.updateClip(tx, caller.channelId, clipId, values);
     if (patch.shotId !== undefined && patch.shotId !== row.shotId) {
       if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
