@@ -1,5 +1,7 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { IterationInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
+import { nextVersion } from "../db/versions";
 import { buildIterations } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
 
@@ -12,7 +14,8 @@ export async function listIterations(db: Queryable, channelId: string, episodeId
 }
 
 export async function insertIteration(db: Queryable, channelId: string, episodeId: string, input: IterationInput, userId: string) {
-  const next = sql<number>`(select coalesce(max(${buildIterations.number}), 0) + 1 from ${buildIterations} where ${buildIterations.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${buildIterations.number}), 0) + 1 from ${buildIterations} where ${buildIterations.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "build_iteration", ownerId: episodeId, channelId, atLeast });
   const [row] = await db
     .insert(buildIterations)
     .values({ channelId, episodeId, number: next, createdBy: userId, ...input })
@@ -21,11 +24,12 @@ export async function insertIteration(db: Queryable, channelId: string, episodeI
   return row;
 }
 
-export async function updateIteration(db: Queryable, channelId: string, episodeId: string, iterationId: string, input: IterationInput) {
+/** Saves an iteration if it is still at `version`; false when it isn't (or isn't this episode's). */
+export async function updateIteration(db: Queryable, channelId: string, episodeId: string, iterationId: string, version: number, input: IterationInput) {
   const rows = await db
     .update(buildIterations)
-    .set({ ...input, updatedAt: new Date() })
-    .where(and(eq(buildIterations.id, iterationId), eq(buildIterations.channelId, channelId), eq(buildIterations.episodeId, episodeId)))
+    .set({ ...input, version: nextVersion(buildIterations.version), updatedAt: new Date() })
+    .where(and(eq(buildIterations.id, iterationId), eq(buildIterations.channelId, channelId), eq(buildIterations.episodeId, episodeId), eq(buildIterations.version, version)))
     .returning({ id: buildIterations.id });
   return rows.length > 0;
 }

@@ -2,7 +2,7 @@ import { iterationInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { addIteration, buildLog, changeIteration, removeIteration } from "./build-log.service";
 
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
@@ -30,8 +30,8 @@ export function buildLogRoutes(db: Database): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = idOf(req, "episodeId");
         const iterationId = idOf(req, "iterationId");
-        const input = parseBody(iterationInputSchema, req.body);
-        res.json({ iteration: await changeIteration(db, callerOf(req).channelId, episodeId, iterationId, input) });
+        const { version, input } = parseVersioned(iterationInputSchema, req.body);
+        res.json({ iteration: await changeIteration(db, callerOf(req).channelId, episodeId, iterationId, version, input) });
       },
     },
     {

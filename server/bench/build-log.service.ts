@@ -1,14 +1,13 @@
 import type { IterationInput, IterationView } from "../../shared/bench/schemas";
 import { iterationThrustToWeight } from "../../shared/bench/runs";
-import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import type { Database, Queryable } from "../db/client";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { withNextNumber } from "./bench.repository";
 import { deleteIteration, insertIteration, listIterations, updateIteration } from "./build-log.repository";
 import { findRunRow, listRunRows } from "./runs.repository";
 
 /** The log, each iteration's thrust-to-weight recomputed from its own all-up mass and its chosen run. */
-export async function buildLog(db: Database, channelId: string, episodeId: string): Promise<IterationView[]> {
+export async function buildLog(db: Queryable, channelId: string, episodeId: string): Promise<IterationView[]> {
   const [iterations, runs] = await Promise.all([listIterations(db, channelId, episodeId), listRunRows(db, channelId, { episodeId })]);
   const runsById = new Map(runs.map((run) => [run.id, run]));
   return iterations.map((row) => {
@@ -25,6 +24,7 @@ export async function buildLog(db: Database, channelId: string, episodeId: strin
       chosenRun: run ? { id: run.id, number: run.number, label: run.label, thrust } : null,
       thrustToWeight: iterationThrustToWeight(thrust, row.allUpMass ?? null),
       createdAt: row.createdAt.toISOString(),
+      version: row.version,
     };
   });
 }
@@ -39,7 +39,7 @@ async function normalise(db: Database, channelId: string, episodeId: string, inp
   return { ...input, chosenRunId };
 }
 
-async function iterationView(db: Database, channelId: string, episodeId: string, iterationId: string) {
+async function iterationView(db: Queryable, channelId: string, episodeId: string, iterationId: string) {
   const view = (await buildLog(db, channelId, episodeId)).find((iteration) => iteration.id === iterationId);
   if (!view) throw notFound("Iteration");
   return view;
@@ -48,13 +48,15 @@ async function iterationView(db: Database, channelId: string, episodeId: string,
 export async function addIteration(db: Database, caller: Caller, episodeId: string, raw: IterationInput) {
   const { channelId } = caller;
   const input = await normalise(db, channelId, episodeId, raw);
-  const { id } = await withNextNumber(() => insertIteration(db, channelId, episodeId, input, caller.userId));
-  return iterationView(db, channelId, episodeId, id);
+  return db.transaction(async (tx) => {
+    const { id } = await insertIteration(tx, channelId, episodeId, input, caller.userId);
+    return iterationView(tx, channelId, episodeId, id);
+  });
 }
 
-export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, raw: IterationInput) {
+export async function changeIteration(db: Database, channelId: string, episodeId: string, iterationId: string, version: number, raw: IterationInput) {
   const input = await normalise(db, channelId, episodeId, raw);
-  if (!(await updateIteration(db, channelId, episodeId, iterationId, input))) throw notFound("Iteration");
+  if (!(await updateIteration(db, channelId, episodeId, iterationId, version, input))) throw staleSave("iteration", await iterationView(db, channelId, episodeId, iterationId));
   return iterationView(db, channelId, episodeId, iterationId);
 }
 

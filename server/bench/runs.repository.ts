@@ -1,5 +1,7 @@
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import type { RunInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
+import { nextVersion } from "../db/versions";
 import { benchParts, benchRunParts, benchRuns } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
 
@@ -52,7 +54,8 @@ async function replaceParts(db: Queryable, channelId: string, runId: string, par
 }
 
 export async function insertRun(db: Queryable, channelId: string, episodeId: string, input: RunInput, userId: string) {
-  const next = sql<number>`(select coalesce(max(${benchRuns.number}), 0) + 1 from ${benchRuns} where ${benchRuns.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${benchRuns.number}), 0) + 1 from ${benchRuns} where ${benchRuns.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "bench_run", ownerId: episodeId, channelId, atLeast });
   const [row] = await db
     .insert(benchRuns)
     .values({ channelId, episodeId, number: next, createdBy: userId, ...runColumns(input) })
@@ -62,11 +65,12 @@ export async function insertRun(db: Queryable, channelId: string, episodeId: str
   return row;
 }
 
-export async function updateRun(db: Queryable, channelId: string, episodeId: string, runId: string, input: RunInput) {
+/** Saves a run if it is still at `version`; false when it isn't (or isn't this episode's). */
+export async function updateRun(db: Queryable, channelId: string, episodeId: string, runId: string, version: number, input: RunInput) {
   const rows = await db
     .update(benchRuns)
-    .set({ ...runColumns(input), updatedAt: new Date() })
-    .where(and(eq(benchRuns.id, runId), eq(benchRuns.channelId, channelId), eq(benchRuns.episodeId, episodeId)))
+    .set({ ...runColumns(input), version: nextVersion(benchRuns.version), updatedAt: new Date() })
+    .where(and(eq(benchRuns.id, runId), eq(benchRuns.channelId, channelId), eq(benchRuns.episodeId, episodeId), eq(benchRuns.version, version)))
     .returning({ id: benchRuns.id });
   if (rows.length === 0) return false;
   await replaceParts(db, channelId, runId, input.parts);

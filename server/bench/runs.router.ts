@@ -2,7 +2,7 @@ import { runInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { changeRun, createRun, episodeRuns, episodeRunsCsv, removeRun } from "./runs.service";
 
 const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
@@ -43,8 +43,8 @@ export function runsRoutes(db: Database): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = idOf(req, "episodeId");
         const runId = idOf(req, "runId");
-        const input = parseBody(runInputSchema, req.body);
-        res.json({ run: await changeRun(db, callerOf(req).channelId, episodeId, runId, input) });
+        const { version, input } = parseVersioned(runInputSchema, req.body);
+        res.json({ run: await changeRun(db, callerOf(req).channelId, episodeId, runId, version, input) });
       },
     },
     {

@@ -2,9 +2,9 @@ import { runsCsv } from "../../shared/bench/runs-csv";
 import type { PartRunView, RunInput, RunPartView, RunView } from "../../shared/bench/schemas";
 import { evaluateRun, isOverRated, type PlanForRuns } from "../../shared/bench/runs";
 import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { type Queryable, episodeTitle, withNextNumber } from "./bench.repository";
+import { type Queryable, episodeTitle } from "./bench.repository";
 import { type RunRow, deleteRun, findRunRow, insertRun, listRunParts, listRunRows, updateRun } from "./runs.repository";
 import { partsByIds, runsOfPart } from "./shelf.repository";
 import { findPlan, listCriteria } from "./test-plan.repository";
@@ -41,6 +41,7 @@ async function toRunViews(db: Queryable, channelId: string, rows: readonly RunRo
       evaluation,
       createdAt: row.createdAt.toISOString(),
       updatedAt: row.updatedAt.toISOString(),
+      version: row.version,
     };
   });
 }
@@ -80,16 +81,19 @@ export async function createRun(db: Database, caller: Caller, episodeId: string,
   const { channelId } = caller;
   const input = lowerIds(raw);
   await checkParts(db, channelId, input);
-  const { id } = await withNextNumber(() => db.transaction((tx) => insertRun(tx, channelId, episodeId, input, caller.userId)));
-  return runView(db, channelId, episodeId, id);
+  return db.transaction(async (tx) => {
+    const { id } = await insertRun(tx, channelId, episodeId, input, caller.userId);
+    return runView(tx, channelId, episodeId, id);
+  });
 }
 
-export async function changeRun(db: Database, channelId: string, episodeId: string, runId: string, raw: RunInput) {
+export async function changeRun(db: Database, channelId: string, episodeId: string, runId: string, version: number, raw: RunInput) {
   const input = lowerIds(raw);
   await checkParts(db, channelId, input);
-  const changed = await db.transaction((tx) => updateRun(tx, channelId, episodeId, runId, input));
-  if (!changed) throw notFound("Run");
-  return runView(db, channelId, episodeId, runId);
+  return db.transaction(async (tx) => {
+    if (!(await updateRun(tx, channelId, episodeId, runId, version, input))) throw staleSave("run", await runView(tx, channelId, episodeId, runId));
+    return runView(tx, channelId, episodeId, runId);
+  });
 }
 
 export async function removeRun(db: Database, channelId: string, episodeId: string, runId: string) {

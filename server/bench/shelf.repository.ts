@@ -2,6 +2,7 @@ import { and, asc, count, desc, eq, inArray, sql } from "drizzle-orm";
 import type { PartInput } from "../../shared/bench/schemas";
 import { benchParts, benchRunParts, benchRuns } from "../db/schema/bench";
 import { episodes } from "../db/schema/slate";
+import { nextVersion } from "../db/versions";
 import type { Queryable } from "./bench.repository";
 
 export type PartRow = typeof benchParts.$inferSelect;
@@ -58,11 +59,12 @@ export async function insertPart(db: Queryable, channelId: string, input: PartIn
   return row;
 }
 
-export async function updatePart(db: Queryable, channelId: string, partId: string, input: PartInput) {
+/** Saves a part if it is still at `version`; false when it isn't (or isn't this channel's). */
+export async function updatePart(db: Queryable, channelId: string, partId: string, version: number, input: PartInput) {
   const rows = await db
     .update(benchParts)
-    .set({ ...columns(input), updatedAt: new Date() })
-    .where(and(eq(benchParts.id, partId), eq(benchParts.channelId, channelId)))
+    .set({ ...columns(input), version: nextVersion(benchParts.version), updatedAt: new Date() })
+    .where(and(eq(benchParts.id, partId), eq(benchParts.channelId, channelId), eq(benchParts.version, version)))
     .returning({ id: benchParts.id });
   return rows.length > 0;
 }

@@ -2,7 +2,7 @@ import { partInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { addPart, changePart, partPage, removePart, shelf } from "./shelf.service";
 
 const parts = "/api/channels/:channelId/bench/parts";
@@ -34,8 +34,8 @@ export function shelfRoutes(db: Database): RouteSpec[] {
       access: write,
       handler: async (req, res) => {
         const partId = idOf(req, "partId");
-        const input = parseBody(partInputSchema, req.body);
-        res.json({ part: await changePart(db, callerOf(req).channelId, partId, input) });
+        const { version, input } = parseVersioned(partInputSchema, req.body);
+        res.json({ part: await changePart(db, callerOf(req).channelId, partId, version, input) });
       },
     },
     {

@@ -1,6 +1,6 @@
 import type { PartInput, PartView } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import { type PartRow, countRunsOfPart, deletePart, findPart, insertPart, listParts, updatePart } from "./shelf.repository";
 import { runsWithPart } from "./runs.service";
 
@@ -17,6 +17,7 @@ function toPartView(part: PartRow, runCount: number): PartView {
     notes: part.notes,
     runCount,
     updatedAt: part.updatedAt.toISOString(),
+    version: part.version,
   };
 }
 
@@ -41,8 +42,8 @@ export async function addPart(db: Database, channelId: string, input: PartInput)
   return partView(db, channelId, id);
 }
 
-export async function changePart(db: Database, channelId: string, partId: string, input: PartInput) {
-  if (!(await updatePart(db, channelId, partId, input))) throw notFound("Part");
+export async function changePart(db: Database, channelId: string, partId: string, version: number, input: PartInput) {
+  if (!(await updatePart(db, channelId, partId, version, input))) throw staleSave("part", await partView(db, channelId, partId));
   return partView(db, channelId, partId);
 }
 

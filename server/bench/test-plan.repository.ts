@@ -1,6 +1,8 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Criterion } from "../../shared/bench/criteria";
 import type { TestPlanInput } from "../../shared/bench/schemas";
+import { nextNumber } from "../db/counters";
+import { nextVersion } from "../db/versions";
 import { users } from "../db/schema/accounts";
 import { safetyHazards, testCriteria, testPlans } from "../db/schema/bench";
 import type { Queryable } from "./bench.repository";
@@ -14,34 +16,45 @@ export async function findPlan(db: Queryable, channelId: string, episodeId: stri
   return rows[0] ?? null;
 }
 
-export async function upsertPlan(db: Queryable, channelId: string, episodeId: string, input: TestPlanInput, userId: string) {
+/**
+ * Saves the episode's sheet if it is still at `version` (0: not saved yet, so it is made); false
+ * when someone saved it since.
+ */
+export async function savePlan(db: Queryable, channelId: string, episodeId: string, version: number, input: TestPlanInput, userId: string) {
   const values = { ...input, airframeMass: input.airframeMass, updatedBy: userId, updatedAt: new Date() };
-  await db
-    .insert(testPlans)
-    .values({ channelId, episodeId, ...values })
-    .onConflictDoUpdate({ target: testPlans.episodeId, set: values, setWhere: eq(testPlans.channelId, channelId) });
+  const rows =
+    version === 0
+      ? await db.insert(testPlans).values({ channelId, episodeId, ...values }).onConflictDoNothing({ target: testPlans.episodeId }).returning({ version: testPlans.version })
+      : await db
+          .update(testPlans)
+          .set({ ...values, version: nextVersion(testPlans.version) })
+          .where(and(eq(testPlans.episodeId, episodeId), eq(testPlans.channelId, channelId), eq(testPlans.version, version)))
+          .returning({ version: testPlans.version });
+  return rows.length > 0;
 }
 
 export async function listCriteria(db: Queryable, channelId: string, episodeId: string) {
   return db
-    .select({ id: testCriteria.id, position: testCriteria.position, definition: testCriteria.definition })
+    .select({ id: testCriteria.id, position: testCriteria.position, definition: testCriteria.definition, version: testCriteria.version })
     .from(testCriteria)
     .where(and(eq(testCriteria.channelId, channelId), eq(testCriteria.episodeId, episodeId)))
     .orderBy(asc(testCriteria.position), asc(testCriteria.createdAt));
 }
 
 export async function insertCriterion(db: Queryable, channelId: string, episodeId: string, definition: Criterion) {
-  const next = sql<number>`(select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.episodeId} = ${episodeId})`;
+  const atLeast = sql`select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.episodeId} = ${episodeId}`;
+  const next = await nextNumber(db, { scope: "test_criterion", ownerId: episodeId, channelId, atLeast });
   const [row] = await db.insert(testCriteria).values({ channelId, episodeId, definition, position: next }).returning();
   if (!row) throw new Error("criterion insert returned nothing");
   return row;
 }
 
-export async function updateCriterion(db: Queryable, channelId: string, episodeId: string, criterionId: string, definition: Criterion) {
+/** Saves a criterion if it is still at `version`; null when it isn't (or isn't this episode's). */
+export async function updateCriterion(db: Queryable, channelId: string, episodeId: string, criterionId: string, version: number, definition: Criterion) {
   const rows = await db
     .update(testCriteria)
-    .set({ definition, updatedAt: new Date() })
-    .where(and(eq(testCriteria.id, criterionId), eq(testCriteria.channelId, channelId), eq(testCriteria.episodeId, episodeId)))
+    .set({ definition, version: nextVersion(testCriteria.version), updatedAt: new Date() })
+    .where(and(eq(testCriteria.id, criterionId), eq(testCriteria.channelId, channelId), eq(testCriteria.episodeId, episodeId), eq(testCriteria.version, version)))
     .returning();
   return rows[0] ?? null;
 }

@@ -2,7 +2,7 @@ import { criterionInputSchema, hazardChangeSchema, hazardInputSchema, testPlanIn
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { addCriterion, addHazard, changeCriterion, changeHazard, removeCriterion, removeHazard, saveTestPlan, testPlanView } from "./test-plan.service";
 
 const plan = "/api/channels/:channelId/episodes/:episodeId/test-plan";
@@ -24,8 +24,8 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       access: write,
       handler: async (req, res) => {
         const episodeId = idOf(req, "episodeId");
-        const input = parseBody(testPlanInputSchema, req.body);
-        res.json({ plan: await saveTestPlan(db, callerOf(req), episodeId, input) });
+        const { version, input } = parseVersioned(testPlanInputSchema, req.body);
+        res.json({ plan: await saveTestPlan(db, callerOf(req), episodeId, version, input) });
       },
     },
     {
@@ -45,8 +45,8 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
       handler: async (req, res) => {
         const episodeId = idOf(req, "episodeId");
         const criterionId = idOf(req, "criterionId");
-        const criterion = parseBody(criterionInputSchema, req.body);
-        res.json({ criterion: await changeCriterion(db, callerOf(req).channelId, episodeId, criterionId, criterion) });
+        const { version, input } = parseVersioned(criterionInputSchema, req.body);
+        res.json({ criterion: await changeCriterion(db, callerOf(req).channelId, episodeId, criterionId, version, input) });
       },
     },
     {

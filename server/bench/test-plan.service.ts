@@ -2,7 +2,7 @@ import type { Criterion } from "../../shared/bench/criteria";
 import { CUSTOM_HAZARD, hazardCatalogue, hazardLabel, isCatalogueHazard } from "../../shared/bench/hazards";
 import type { CriterionView, HazardChange, HazardInput, HazardView, TestPlanInput, TestPlanView } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { notFound } from "../http/app-error";
+import { notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { iso } from "./bench.repository";
 import {
@@ -16,13 +16,13 @@ import {
   listHazards,
   updateCriterion,
   updateHazard,
-  upsertPlan,
+  savePlan,
 } from "./test-plan.repository";
 
 type CriterionRow = Awaited<ReturnType<typeof listCriteria>>[number];
 type HazardRow = Awaited<ReturnType<typeof listHazards>>[number];
 
-export const toCriterionView = (row: CriterionRow): CriterionView => ({ ...row.definition, id: row.id, position: row.position });
+export const toCriterionView = (row: CriterionRow): CriterionView => ({ ...row.definition, id: row.id, position: row.position, version: row.version });
 
 function toHazardView(row: HazardRow): HazardView {
   return {
@@ -48,22 +48,25 @@ export async function testPlanView(db: Database, channelId: string, episodeId: s
     criteria: criteria.map(toCriterionView),
     hazards: hazards.map(toHazardView),
     updatedAt: iso(plan?.updatedAt ?? null),
+    version: plan?.version ?? 0,
   };
 }
 
-export async function saveTestPlan(db: Database, caller: Caller, episodeId: string, input: TestPlanInput) {
-  await upsertPlan(db, caller.channelId, episodeId, input, caller.userId);
+export async function saveTestPlan(db: Database, caller: Caller, episodeId: string, version: number, input: TestPlanInput) {
+  if (!(await savePlan(db, caller.channelId, episodeId, version, input, caller.userId))) throw staleSave("test plan", await testPlanView(db, caller.channelId, episodeId));
   return testPlanView(db, caller.channelId, episodeId);
 }
 
 export async function addCriterion(db: Database, channelId: string, episodeId: string, criterion: Criterion) {
-  return toCriterionView(await insertCriterion(db, channelId, episodeId, criterion));
+  // Its number and its row together: a refused insert takes no number.
+  return toCriterionView(await db.transaction((tx) => insertCriterion(tx, channelId, episodeId, criterion)));
 }
 
-export async function changeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string, criterion: Criterion) {
-  const row = await updateCriterion(db, channelId, episodeId, criterionId, criterion);
-  if (!row) throw notFound("Criterion");
-  return toCriterionView(row);
+export async function changeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string, version: number, criterion: Criterion) {
+  const row = await updateCriterion(db, channelId, episodeId, criterionId, version, criterion);
+  if (row) return toCriterionView(row);
+  const current = (await listCriteria(db, channelId, episodeId)).find((c) => c.id === criterionId);
+  throw current ? staleSave("criterion", toCriterionView(current)) : notFound("Criterion");
 }
 
 export async function removeCriterion(db: Database, channelId: string, episodeId: string, criterionId: string) {

@@ -2,6 +2,10 @@ import pg from "pg";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 
 export type Database = NodePgDatabase;
+/** What `db.transaction` hands its callback. */
+export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
+/** The pool or a transaction: repository functions take either, so a service can put several writes in one transaction. */
+export type Queryable = Database | Transaction;
 
 export interface DatabaseHandle {
   pool: pg.Pool;

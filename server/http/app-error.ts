@@ -44,3 +44,10 @@ export class AppError extends Error {
 }
 
 export const notFound = (what: string) => new AppError("not_found", `${what} not found.`);
+
+/**
+ * A save made against a version someone else has moved on: 409, nothing saved, and the record as it
+ * is now in `current`, for the form to show (the board's pattern, shared by every versioned record).
+ */
+export const staleSave = (what: string, current: unknown) =>
+  new AppError("conflict", `Someone else changed this ${what} a moment ago. You now see their version; make your change again if it still applies.`, undefined, { current });

@@ -1,5 +1,6 @@
 import type { z } from "zod";
 import { fieldMessages } from "../../shared/http/errors";
+import { versionSchema } from "../../shared/http/version";
 import { AppError } from "./app-error";
 
 interface Visit {
@@ -53,6 +54,26 @@ export function parseBody<S extends z.ZodType>(schema: S, body: unknown): z.infe
     throw new AppError("validation_failed", "Some fields need attention.", fieldMessages(result.error.issues));
   }
   return result.data;
+}
+
+/**
+ * A save's body: the schema's fields and, beside them, `version`, the version of the record they
+ * were made against (shared/http/version.ts). Both are checked, their messages given together.
+ */
+export function parseVersioned<S extends z.ZodType>(schema: S, body: unknown): { version: number; input: z.infer<S> } {
+  const isObject = typeof body === "object" && body !== null && !Array.isArray(body);
+  const { version, ...fields } = isObject ? (body as Record<string, unknown>) : {};
+  const checked = versionSchema.safeParse(version);
+  const versionError: Record<string, string> = checked.success ? {} : { version: checked.error.issues[0]!.message };
+  let input: z.infer<S>;
+  try {
+    input = parseBody(schema, isObject ? fields : body);
+  } catch (error) {
+    if (error instanceof AppError && error.fields) throw new AppError(error.code, error.message, { ...error.fields, ...versionError });
+    throw error;
+  }
+  if (!checked.success) throw new AppError("validation_failed", "Some fields need attention.", versionError);
+  return { version: checked.data, input };
 }
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;

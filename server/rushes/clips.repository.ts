@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { FootageQuery, Cursor } from "../../shared/rushes/footage-query";
 import type { Database } from "../db/client";
+import { benchRuns, buildIterations } from "../db/schema/bench";
 import { clipMarks, clips, shootDays, shots } from "../db/schema/rushes";
 import { episodes } from "../db/schema/slate";
 
@@ -170,4 +171,24 @@ export async function deleteMark(db: Executor, markId: string) {
 
 export async function refreshMarkCount(db: Executor, clipId: string) {
   await db.execute(sql`update clips set mark_count = (select count(*) from clip_marks where clip_id = ${clipId}) where id = ${clipId}`);
+}
+
+/** The episode of a channel's bench run, or null when the channel has no such run; the run is held until the transaction ends. */
+export async function benchRunEpisode(db: Executor, channelId: string, runId: string): Promise<string | null> {
+  const rows = await db
+    .select({ episodeId: benchRuns.episodeId })
+    .from(benchRuns)
+    .where(and(eq(benchRuns.channelId, channelId), eq(benchRuns.id, runId)))
+    .for("share");
+  return rows[0]?.episodeId ?? null;
+}
+
+/** The episode of a channel's build iteration, or null when the channel has no such iteration; held likewise. */
+export async function buildIterationEpisode(db: Executor, channelId: string, iterationId: string): Promise<string | null> {
+  const rows = await db
+    .select({ episodeId: buildIterations.episodeId })
+    .from(buildIterations)
+    .where(and(eq(buildIterations.channelId, channelId), eq(buildIterations.id, iterationId)))
+    .for("share");
+  return rows[0]?.episodeId ?? null;
 }

@@ -66,7 +66,7 @@ export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<Clip
 const toMarkView = (m: MarkRow): MarkView => ({ id: m.id, in: m.inLabel, out: m.outLabel, inFrame: m.inFrame, outFrame: m.outFrame, note: m.note });
 
 export async function listFootage(ctx: RushesContext, caller: Caller, q: FootageQuery): Promise<FootagePage> {
-  const cursor = q.cursor ? decodeCursor(q.cursor) : null;
+  const cursor = q.cursor ? decodeCursor(q.cursor, q.sort) : null;
   if (q.cursor && !cursor) throw new AppError("validation_failed", "That page link is out of date; start from the first page.", { cursor: "Not a page of this list." });
   const [rows, totals] = await Promise.all([repo.listClips(ctx.db, caller.channelId, q, cursor), repo.footageTotals(ctx.db, caller.channelId, q)]);
   const page = rows.slice(0, q.limit);
@@ -106,6 +106,13 @@ export async function updateClip(ctx: RushesContext, caller: Caller, clipId: str
     if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
   }
   await ctx.db.transaction(async (tx) => {
+    // Checked in the write's transaction, the run or iteration held until it commits: one deleted meanwhile can't fail the key.
+    if (patch.benchRunId && (await repo.benchRunEpisode(tx, caller.channelId, patch.benchRunId)) !== row.episodeId) {
+      throw new AppError("validation_failed", "Some fields need attention.", { benchRunId: "Choose a bench run of this clip's episode." });
+    }
+    if (patch.buildIterationId && (await repo.buildIterationEpisode(tx, caller.channelId, patch.buildIterationId)) !== row.episodeId) {
+      throw new AppError("validation_failed", "Some fields need attention.", { buildIterationId: "Choose a build iteration of this clip's episode." });
+    }
     await repo.updateClip(tx, caller.channelId, clipId, values);
     if (patch.shotId !== undefined && patch.shotId !== row.shotId) {
       if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);

@@ -12,7 +12,7 @@ import { TIMELINE_NAME, mediaFileNames } from "../../shared/rushes/exports/media
 import { footageOtio, otioWriter } from "../../shared/rushes/exports/otio";
 import { AppError } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { attachmentDisposition, viaStorage } from "../storage/storage";
+import { attachmentDisposition, isMissingObject, viaStorage } from "../storage/storage";
 import { type ExportRow, type MarkRow, clipBatches, clipsWithMarks, filterOutline } from "./exports.repository";
 import type { RushesContext } from "./rushes.context";
 
@@ -174,10 +174,24 @@ export async function writeEdl(ctx: RushesContext, caller: Caller, q: FootageQue
   await archive.finalize();
 }
 
+/** A clip's file, or null when the store no longer holds it (the clip row outlived its object). */
+async function openIfPresent(ctx: RushesContext, objectKey: string): Promise<Readable | null> {
+  try {
+    return await viaStorage(() => ctx.storage.getStream(objectKey));
+  } catch (error) {
+    if (isMissingObject(error)) return null;
+    throw error;
+  }
+}
+
+const missingNote = (names: string[]) =>
+  `These chosen clips are in Kerf but their files are no longer in footage storage, so this zip leaves them out:\r\n\r\n${names.join("\r\n")}\r\n`;
+
 /**
  * The selection as one zip, streamed: each object is read from the store and written straight out,
  * stored without compression (camera files don't shrink), one at a time, so memory stays flat. Beside the
  * files, a timeline (OpenTimelineIO) of the same clips whose target URLs are the files' names in the zip.
+ * A clip whose file is gone from the store is left out and named in MISSING.txt; when none is there, a 404.
  */
 export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: string[], res: Response): Promise<void> {
   const unique = [...new Set(clipIds)];
@@ -188,8 +202,18 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
   const byId = new Map(exportClips(rows, marks).map((clip) => [clip.id, clip]));
   const ordered = unique.map((id) => byId.get(id)!);
   const names = mediaFileNames(ordered);
-  // The first object is opened before any byte is sent, so a store that is down is still a clean 503.
-  const first = await viaStorage(() => ctx.storage.getStream(ordered[0]!.objectKey));
+  const nameOf = (index: number) => names.get(ordered[index]!.id)!;
+  const missing: string[] = [];
+  // The first file that is there is opened before any byte is sent, so a store that is down is still a
+  // clean 503 and a selection whose files are all gone a clean 404.
+  let next = 0;
+  let first: Readable | null = null;
+  while (!first && next < ordered.length) {
+    first = await openIfPresent(ctx, ordered[next]!.objectKey);
+    if (!first) missing.push(nameOf(next));
+    next++;
+  }
+  if (!first) throw new AppError("not_found", `The files of those clips are no longer in footage storage: ${missing.join(", ")}.`);
 
   startDownload(res, "zip");
   const archive = new ZipArchive({ store: true, forceZip64: false });
@@ -199,18 +223,12 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
   const timelineWritten = new Promise((resolve) => archive.once("entry", resolve));
   archive.append(footageOtio(titleOf(ordered.map((c) => c.episodeTitle)), ordered, names), { name: TIMELINE_NAME });
   await timelineWritten;
-  for (const [index, clip] of ordered.entries()) {
-    const stream = index === 0 ? first : await ctx.storage.getStream(clip.objectKey);
-    const written = new Promise<void>((resolve, reject) => {
-      archive.once("entry", () => resolve());
-      stream.once("error", reject);
-    });
-    archive.append(stream, { name: names.get(clip.id)!, store: true });
-    const failed = await written.then(
-      () => null,
-      (error: Error) => error,
-    );
-    if (failed) {
+  for (let index = next - 1; index < ordered.length; index++) {
+    try {
+      const present = await appendClip(ctx, archive, index === next - 1 ? first : ordered[index]!.objectKey, nameOf(index));
+      if (!present) missing.push(nameOf(index));
+    } catch (error) {
+      const failed = error as Error;
       // Bytes are already on their way: the only honest signal left is to cut the download short.
       console.error(`[rushes] zip cut short: ${failed.message}`);
       archive.abort();
@@ -218,5 +236,22 @@ export async function streamZip(ctx: RushesContext, caller: Caller, clipIds: str
       return;
     }
   }
+  if (missing.length > 0) archive.append(missingNote(missing), { name: missingFileName(names), store: true });
   await archive.finalize();
+}
+
+/** MISSING.txt, unless a clip's own file already has that name. */
+const missingFileName = (names: Map<string, string>) => ([...names.values()].some((n) => n.toLowerCase() === "missing.txt") ? "MISSING (Kerf).txt" : "MISSING.txt");
+
+/** Writes one file into the zip; false when its object is gone from the store. */
+async function appendClip(ctx: RushesContext, archive: ZipArchive, source: Readable | string, name: string): Promise<boolean> {
+  const stream = typeof source === "string" ? await openIfPresent(ctx, source) : source;
+  if (!stream) return false;
+  const written = new Promise<void>((resolve, reject) => {
+    archive.once("entry", () => resolve());
+    stream.once("error", reject);
+  });
+  archive.append(stream, { name, store: true });
+  await written;
+  return true;
 }

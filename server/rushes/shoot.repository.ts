@@ -1,5 +1,6 @@
 import { and, asc, count, eq, inArray, sql } from "drizzle-orm";
-import type { Database } from "../db/client";
+import type { Database, Queryable } from "../db/client";
+import { nextNumber } from "../db/counters";
 import { users } from "../db/schema/accounts";
 import { shootDayCrew, shootDays, shots } from "../db/schema/rushes";
 
@@ -104,12 +105,9 @@ export async function findShot(db: Executor, channelId: string, shotId: string) 
   return rows[0] ?? null;
 }
 
-export async function nextShotPosition(db: Executor, episodeId: string): Promise<number> {
-  const rows = await db
-    .select({ max: sql<number | null>`max(${shots.position})` })
-    .from(shots)
-    .where(eq(shots.episodeId, episodeId));
-  return (rows[0]?.max ?? -1) + 1;
+export async function nextShotPosition(db: Queryable, channelId: string, episodeId: string): Promise<number> {
+  const atLeast = sql`select coalesce(max(${shots.position}), -1) + 1 from ${shots} where ${shots.episodeId} = ${episodeId}`;
+  return nextNumber(db, { scope: "shot_position", ownerId: episodeId, channelId, atLeast });
 }
 
 export async function insertShot(db: Executor, values: typeof shots.$inferInsert) {

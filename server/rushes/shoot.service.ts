@@ -101,8 +101,10 @@ async function shotView(ctx: RushesContext, caller: Caller, shotId: string): Pro
 
 export async function createShot(ctx: RushesContext, caller: Caller, episodeId: string, body: ShotBody) {
   await checkShootDay(ctx, caller, episodeId, body.shootDayId);
-  const position = await repo.nextShotPosition(ctx.db, episodeId);
-  const { id } = await repo.insertShot(ctx.db, { channelId: caller.channelId, episodeId, position, ...body });
+  const { id } = await ctx.db.transaction(async (tx) => {
+    const position = await repo.nextShotPosition(tx, caller.channelId, episodeId);
+    return repo.insertShot(tx, { channelId: caller.channelId, episodeId, position, ...body });
+  });
   return shotView(ctx, caller, id);
 }
 

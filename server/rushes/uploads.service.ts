@@ -137,7 +137,7 @@ export async function recordPart(ctx: RushesContext, caller: Caller, uploadId: s
   mustBeUploading(row);
   checkPartNumber(row, partNumber);
   checkPartSize(row, { partNumber, size: part.size });
-  await repo.recordPart(ctx.db, row.id, { partNumber, etag: part.etag, size: part.size });
+  await ctx.db.transaction((tx) => repo.recordPart(tx, row.id, { partNumber, etag: part.etag, size: part.size }));
   return { partNumber, etag: part.etag, size: part.size };
 }
 

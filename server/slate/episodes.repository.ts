@@ -2,12 +2,11 @@ import { and, asc, eq, getTableColumns, gt, isNull, lt, max, min, ne, sql } from
 import { generateKeyBetween } from "fractional-indexing";
 import type { GateProblem } from "../../shared/slate/gates";
 import type { Stage } from "../../shared/slate/stages";
-import type { Database } from "../db/client";
+import type { Database, Queryable, Transaction as Tx } from "../db/client";
 import { users } from "../db/schema/accounts";
 import { dueOverrides, episodes, stageMoves } from "../db/schema/slate";
+import { nextVersion } from "../db/versions";
 
-type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
-type Queryable = Database | Tx;
 
 const summaryColumns = {
   id: episodes.id,
@@ -158,7 +157,7 @@ async function staleOrMissing(db: Queryable, channelId: string, episodeId: strin
 export async function updateEpisode(db: Queryable, channelId: string, episodeId: string, version: number, values: Partial<EpisodeValues>): Promise<Versioned<{ id: string }>> {
   const [row] = await db
     .update(episodes)
-    .set({ ...values, version: sql`${episodes.version} + 1`, updatedAt: sql`now()` })
+    .set({ ...values, version: nextVersion(episodes.version), updatedAt: sql`now()` })
     .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId), eq(episodes.version, version)))
     .returning({ id: episodes.id });
   return row ? { outcome: "done", row } : staleOrMissing(db, channelId, episodeId);
@@ -196,7 +195,7 @@ export async function moveEpisode(db: Database, move: MoveRequest): Promise<Vers
       .set({
         stage: move.stage,
         rank,
-        version: sql`${episodes.version} + 1`,
+        version: nextVersion(episodes.version),
         updatedAt: sql`now()`,
         ...(changesStage ? { stageEnteredAt: sql`now()` } : {}),
       })

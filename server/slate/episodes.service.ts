@@ -14,8 +14,8 @@ import {
 import { countBack, type DueOverrides } from "../../shared/slate/schedule";
 import type { Stage } from "../../shared/slate/stages";
 import { isMember } from "../db/channel-scope";
-import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import type { Database, Queryable } from "../db/client";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import { collectFlags, type BoardFlagSource } from "../seams/board-flags";
@@ -63,13 +63,10 @@ export const toRecord = (row: EpisodeRow): EpisodeRecord => ({
   updatedAt: row.updatedAt.toISOString(),
 });
 
-const conflict = (current: EpisodeRow) =>
-  new AppError("conflict", "Someone else changed this episode a moment ago. You now see their version; make your change again if it still applies.", undefined, {
-    current: toSummary(current),
-  });
+const conflict = (current: EpisodeRow) => staleSave("episode", toSummary(current));
 
 /** Turns a versioned write's outcome into the row, a 409 with the current state, or a 404. */
-async function settled(db: Database, channelId: string, episodeId: string, outcome: Versioned<unknown>): Promise<EpisodeRow> {
+async function settled(db: Queryable, channelId: string, episodeId: string, outcome: Versioned<unknown>): Promise<EpisodeRow> {
   if (outcome.outcome === "missing") throw notFound("Episode");
   if (outcome.outcome === "stale") throw conflict(outcome.current);
   const row = await findEpisode(db, channelId, episodeId);
@@ -131,12 +128,14 @@ export async function editEpisode(db: Database, followers: readonly PublishDateF
   const merged = parseBody(episodeFieldsSchema, { ...fieldsOf(current), ...fields });
   const values = toValues(merged);
   if (values.ownerId !== current.ownerId) await checkOwner(db, caller.channelId, values.ownerId);
-  const row = await settled(db, caller.channelId, episodeId, await updateEpisode(db, caller.channelId, episodeId, version, values));
-  // Dates other features count from the publish date (sponsor deliverables) move with it.
-  if (row.targetPublishDate !== current.targetPublishDate) {
-    for (const follower of followers) await follower.follow(db, { channelId: caller.channelId, episodeId, actorId: caller.userId });
-  }
-  return row;
+  return db.transaction(async (tx) => {
+    const row = await settled(tx, caller.channelId, episodeId, await updateEpisode(tx, caller.channelId, episodeId, version, values));
+    // Dates other features count from the publish date (sponsor deliverables) move with it, in the same transaction.
+    if (row.targetPublishDate !== current.targetPublishDate) {
+      for (const follower of followers) await follower.follow(tx, { channelId: caller.channelId, episodeId, actorId: caller.userId });
+    }
+    return row;
+  });
 }
 
 export async function setArchived(db: Database, caller: Caller, episodeId: string, version: number, archived: boolean): Promise<EpisodeRow> {

@@ -1,5 +1,7 @@
 import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
-import type { Database } from "../db/client";
+import type { Queryable } from "../db/client";
+import { nextNumber } from "../db/counters";
+import { nextVersion } from "../db/versions";
 import { channels, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors } from "../db/schema/sponsors";
@@ -7,7 +9,7 @@ import { deals, deliverableEvents, deliverables, reviewLinks, speakingRates, spo
 // Every query is scoped by channel: an id from another channel finds nothing and answers 404.
 
 /** A database or a transaction: repositories take either. */
-export type Db = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
+export type Db = Queryable;
 
 export type DealRow = typeof deals.$inferSelect;
 export type DeliverableRow = typeof deliverables.$inferSelect;
@@ -53,18 +55,19 @@ export async function insertDeal(db: Db, values: typeof deals.$inferInsert) {
   return row!;
 }
 
-export async function updateDealRow(db: Db, channelId: string, dealId: string, values: Partial<typeof deals.$inferInsert>) {
+/** Saves some of a deal's own fields if it is still at `version`; null when it isn't (or isn't this channel's). */
+export async function updateDealRow(db: Db, channelId: string, dealId: string, version: number, values: Partial<typeof deals.$inferInsert>) {
   const [row] = await db
     .update(deals)
-    .set({ ...values, updatedAt: new Date() })
-    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)))
+    .set({ ...values, version: nextVersion(deals.version), updatedAt: new Date() })
+    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId), eq(deals.version, version)))
     .returning();
   return row ?? null;
 }
 
 export async function listContactsOf(db: Db, channelId: string, sponsorId: string) {
   return db
-    .select({ id: sponsorContacts.id, name: sponsorContacts.name, email: sponsorContacts.email, role: sponsorContacts.role })
+    .select({ id: sponsorContacts.id, name: sponsorContacts.name, email: sponsorContacts.email, role: sponsorContacts.role, version: sponsorContacts.version })
     .from(sponsorContacts)
     .where(and(eq(sponsorContacts.channelId, channelId), eq(sponsorContacts.sponsorId, sponsorId)))
     .orderBy(asc(sponsorContacts.name));
@@ -151,11 +154,15 @@ export async function insertDeliverables(db: Db, rows: (typeof deliverables.$inf
   return db.insert(deliverables).values(rows).returning();
 }
 
-export async function updateDeliverableRow(db: Db, channelId: string, deliverableId: string, values: Partial<typeof deliverables.$inferInsert>) {
+/**
+ * Changes an item and raises its version; with `version`, only if the item is still at it (a
+ * member's save), else whatever it is (a sponsor's decision, a review link sent or withdrawn).
+ */
+export async function updateDeliverableRow(db: Db, channelId: string, deliverableId: string, values: Partial<typeof deliverables.$inferInsert>, version?: number) {
   const [row] = await db
     .update(deliverables)
-    .set({ ...values, updatedAt: new Date() })
-    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)))
+    .set({ ...values, version: nextVersion(deliverables.version), updatedAt: new Date() })
+    .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId), version === undefined ? undefined : eq(deliverables.version, version)))
     .returning();
   return row ?? null;
 }
@@ -168,9 +175,9 @@ export async function deleteDeliverableRow(db: Db, channelId: string, deliverabl
   return rows.length > 0;
 }
 
-export async function nextPosition(db: Db, dealId: string): Promise<number> {
-  const [row] = await db.select({ top: sql<number>`coalesce(max(${deliverables.position}), -1)::int` }).from(deliverables).where(eq(deliverables.dealId, dealId));
-  return (row?.top ?? -1) + 1;
+export async function nextPosition(db: Db, channelId: string, dealId: string): Promise<number> {
+  const atLeast = sql`select coalesce(max(${deliverables.position}), -1) + 1 from ${deliverables} where ${deliverables.dealId} = ${dealId}`;
+  return nextNumber(db, { scope: "deliverable_position", ownerId: dealId, channelId, atLeast });
 }
 
 export async function insertEvents(db: Db, events: NewEvent[]) {
@@ -192,7 +199,7 @@ export async function listEvents(db: Db, channelId: string, deliverableIds: stri
 export async function listReviewLinks(db: Db, channelId: string, dealIds: string[]) {
   if (dealIds.length === 0) return [];
   return db
-    .select({ link: reviewLinks, deliverableTitle: deliverables.title })
+    .select({ link: reviewLinks, deliverableId: deliverables.id, deliverableTitle: deliverables.title, deliverableStatus: deliverables.status })
     .from(reviewLinks)
     .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
     .where(and(eq(reviewLinks.channelId, channelId), inArray(reviewLinks.dealId, dealIds)))
@@ -230,9 +237,27 @@ export async function findReviewLinkForPage(db: Db, linkId: string) {
     .innerJoin(channels, eq(channels.id, reviewLinks.channelId))
     .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
     .innerJoin(episodes, eq(episodes.id, deals.episodeId))
-    .innerJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
+    .leftJoin(deliverables, eq(deliverables.id, reviewLinks.deliverableId))
     .where(eq(reviewLinks.id, linkId));
   return row ?? null;
+}
+
+/**
+ * Locks what a decision depends on, in the order every writer takes them (deal, then item, then
+ * link), and reads the link's page row: an edit of the deal or the item waits for the decision, or
+ * the decision sees the edit.
+ */
+export async function lockReviewSubject(db: Db, linkId: string) {
+  const [ids] = await db.select({ dealId: reviewLinks.dealId, deliverableId: reviewLinks.deliverableId }).from(reviewLinks).where(eq(reviewLinks.id, linkId));
+  if (!ids) return null;
+  await db.select({ id: deals.id }).from(deals).where(eq(deals.id, ids.dealId)).for("share");
+  if (ids.deliverableId) await lockDeliverable(db, ids.deliverableId);
+  await db.select({ id: reviewLinks.id }).from(reviewLinks).where(eq(reviewLinks.id, linkId)).for("update");
+  return findReviewLinkForPage(db, linkId);
+}
+
+export async function lockDeliverable(db: Db, deliverableId: string) {
+  await db.select({ id: deliverables.id }).from(deliverables).where(eq(deliverables.id, deliverableId)).for("update");
 }
 
 /** Records the decision only if the link is still open: the one place a second decision is refused. */

@@ -2,7 +2,7 @@ import { createDealSchema, cutSchema, moneySchema, updateDealSchema } from "../.
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
+import { parseBody, parseVersioned } from "../http/validate";
 import { listEpisodeDeals } from "./deals.repository";
 import { createDeal, dealView, dealViews, updateCut, updateDeal, updateMoney } from "./deals.service";
 import { catchUpPublishDates } from "./schedule.service";
@@ -47,8 +47,8 @@ export function dealRoutes(db: Database): RouteSpec[] {
       path: deal,
       access: channelAccess("sponsors", "W"),
       handler: async (req, res) => {
-        const input = parseBody(updateDealSchema, req.body);
-        res.json({ deal: await updateDeal(db, callerOf(req), idOf(req, "dealId"), input) });
+        const { version, input } = parseVersioned(updateDealSchema, req.body);
+        res.json({ deal: await updateDeal(db, callerOf(req), idOf(req, "dealId"), version, input) });
       },
     },
     {
@@ -56,8 +56,8 @@ export function dealRoutes(db: Database): RouteSpec[] {
       path: `${deal}/money`,
       access: channelAccess("fees", "W"),
       handler: async (req, res) => {
-        const input = parseBody(moneySchema, req.body);
-        res.json({ deal: await updateMoney(db, callerOf(req), idOf(req, "dealId"), input) });
+        const { version, input } = parseVersioned(moneySchema, req.body);
+        res.json({ deal: await updateMoney(db, callerOf(req), idOf(req, "dealId"), version, input) });
       },
     },
     {
@@ -65,8 +65,8 @@ export function dealRoutes(db: Database): RouteSpec[] {
       path: `${deal}/cut`,
       access: channelAccess("cut", "W", "Only the editor, a producer or an owner can set the cut."),
       handler: async (req, res) => {
-        const input = parseBody(cutSchema, req.body);
-        res.json({ deal: await updateCut(db, callerOf(req), idOf(req, "dealId"), input) });
+        const { version, input } = parseVersioned(cutSchema, req.body);
+        res.json({ deal: await updateCut(db, callerOf(req), idOf(req, "dealId"), version, input) });
       },
     },
   ];

@@ -9,7 +9,7 @@ import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
 import type { z } from "zod";
 import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { findCutClips, listEpisodeClips } from "./cut.repository";
 import {
@@ -25,10 +25,11 @@ import {
   listReviewLinks,
   updateDealRow,
   type DealRow,
+  type Db,
 } from "./deals.repository";
 import { redateDeal, type Actor } from "./schedule.service";
 import { findSponsor, findTemplate, listMembersWithRates } from "./sponsors.repository";
-import { reviewStateOf } from "./review-token";
+import { linkStateOf } from "./review-token";
 
 export const seesFees = (role: Role) => roleMay(role, "fees", "R");
 export const runsDeliverables = (role: Role) => roleMay(role, "deliverables", "W");
@@ -79,7 +80,7 @@ function cutTimingOf(deal: DealRow): DealView["cut"]["timing"] {
  * items they may read; the fee, payment terms and the invoice and payment items are left out of the
  * answer altogether (not blanked), and review links go only to the roles that send them.
  */
-export async function dealViews(db: Database, caller: Caller, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
+export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], now = new Date()): Promise<DealView[]> {
   const dealIds = rows.map((r) => r.deal.id);
   const today = dateInZone(now, caller.timeZone);
   const fees = seesFees(caller.role);
@@ -100,6 +101,7 @@ export async function dealViews(db: Database, caller: Caller, rows: DealWithJoin
     const clip = cutClips.find((c) => c.id === deal.cutClipId);
     const view: DealView = {
       id: deal.id,
+      version: deal.version,
       episodeId: deal.episodeId,
       episodeTitle: row.episodeTitle,
       publishDate: row.publishDate,
@@ -138,6 +140,7 @@ export async function dealViews(db: Database, caller: Caller, rows: DealWithJoin
           status: item.status,
           ownerId: item.ownerId,
           ownerName,
+          version: item.version,
           ...latenessOf(item, today),
           canEdit: runsDeliverables(caller.role) || (deliversCut(caller.role) && isCutKind(item.kind)),
           history: events
@@ -159,16 +162,16 @@ export async function dealViews(db: Database, caller: Caller, rows: DealWithJoin
     if (runsDeliverables(caller.role)) {
       view.reviewLinks = links
         .filter((l) => l.link.dealId === deal.id)
-        .map(({ link, deliverableTitle }): ReviewLinkView => ({
+        .map(({ link, deliverableId, deliverableTitle, deliverableStatus }): ReviewLinkView => ({
           id: link.id,
-          deliverableId: link.deliverableId,
+          deliverableId,
           deliverableTitle,
           contactName: link.contactName,
           contactEmail: link.contactEmail,
           sentByName: link.sentByName,
           sentAt: link.createdAt.toISOString(),
           expiresAt: link.expiresAt.toISOString(),
-          state: reviewStateOf(link, now),
+          state: linkStateOf(link, { contactId: link.contactId, dealState: deal.state, itemStatus: deliverableStatus }, now),
           decision: link.decision,
           comment: link.comment,
           decidedAt: link.decidedAt?.toISOString() ?? null,
@@ -181,7 +184,7 @@ export async function dealViews(db: Database, caller: Caller, rows: DealWithJoin
   return views;
 }
 
-export async function dealView(db: Database, caller: Caller, dealId: string): Promise<DealView> {
+export async function dealView(db: Db, caller: Caller, dealId: string): Promise<DealView> {
   const row = await findDeal(db, caller.channelId, dealId);
   if (!row) throw notFound("Deal");
   const [view] = await dealViews(db, caller, [row]);
@@ -214,7 +217,8 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
   if (input.templateId && !template) throw new AppError("validation_failed", "Some fields need attention.", { templateId: "Pick one of the channel's templates." });
   const members = await listMembersWithRates(db, caller.channelId);
 
-  const dealId = await db.transaction(async (tx) => {
+  // The deal, its items, their history and the answer built from them: all or nothing.
+  return db.transaction(async (tx) => {
     const { money, templateId: _templateId, ...segment } = input;
     const deal = await insertDeal(tx, {
       ...segment,
@@ -248,44 +252,52 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
         note: template ? `From the template "${template.name}"` : null,
       })),
     );
-    return deal.id;
+    return dealView(tx, caller, deal.id);
   });
-  return dealView(db, caller, dealId);
 }
 
-export async function updateDeal(db: Database, caller: Caller, dealId: string, input: z.output<typeof updateDealSchema>): Promise<DealView> {
+/** A deal's save that matched no row: someone saved it since `version` (409 with the deal as it is now), or it is gone. */
+const staleDeal = async (db: Db, caller: Caller, dealId: string) => staleSave("deal", await dealView(db, caller, dealId));
+
+export async function updateDeal(db: Database, caller: Caller, dealId: string, version: number, input: z.output<typeof updateDealSchema>): Promise<DealView> {
   const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
+  if (current.deal.version !== version) throw await staleDeal(db, caller, dealId);
   await checkReferences(db, caller.channelId, current.deal.sponsorId, input);
-  await db.transaction(async (tx) => {
-    const updated = await updateDealRow(tx, caller.channelId, dealId, input);
-    if (updated && input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
+  return db.transaction(async (tx) => {
+    const updated = await updateDealRow(tx, caller.channelId, dealId, version, input);
+    if (!updated) throw await staleDeal(tx, caller, dealId);
+    if (input.goLiveDate !== undefined && input.goLiveDate !== current.deal.goLiveDate) {
       const note = updated.goLiveDate ? `Go-live set to ${updated.goLiveDate}` : "Go-live follows the publish date again";
       await redateDeal(tx, updated, current.publishDate, actorOf(caller), note);
     }
+    return dealView(tx, caller, dealId);
   });
-  return dealView(db, caller, dealId);
 }
 
-export async function updateMoney(db: Database, caller: Caller, dealId: string, money: Money): Promise<DealView> {
-  const updated = await updateDealRow(db, caller.channelId, dealId, moneyColumns(money));
-  if (!updated) throw notFound("Deal");
-  return dealView(db, caller, dealId);
+export async function updateMoney(db: Database, caller: Caller, dealId: string, version: number, money: Money): Promise<DealView> {
+  return db.transaction(async (tx) => {
+    if (!(await updateDealRow(tx, caller.channelId, dealId, version, moneyColumns(money)))) throw await staleDeal(tx, caller, dealId);
+    return dealView(tx, caller, dealId);
+  });
 }
 
-export async function updateCut(db: Database, caller: Caller, dealId: string, input: z.output<typeof cutSchema>): Promise<DealView> {
+export async function updateCut(db: Database, caller: Caller, dealId: string, version: number, input: z.output<typeof cutSchema>): Promise<DealView> {
   const current = await findDeal(db, caller.channelId, dealId);
   if (!current) throw notFound("Deal");
   if (input.clipId) {
     const [clip] = await findCutClips(db, caller.channelId, [input.clipId]);
     if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
   }
-  await updateDealRow(db, caller.channelId, dealId, {
-    cutClipId: input.clipId,
-    cutIn: input.timing?.inTimecode ?? null,
-    cutOut: input.timing?.outTimecode ?? null,
-    cutFrameRate: input.timing?.frameRate ?? null,
-    cutDropFrame: input.timing?.dropFrame ?? null,
+  return db.transaction(async (tx) => {
+    const saved = await updateDealRow(tx, caller.channelId, dealId, version, {
+      cutClipId: input.clipId,
+      cutIn: input.timing?.inTimecode ?? null,
+      cutOut: input.timing?.outTimecode ?? null,
+      cutFrameRate: input.timing?.frameRate ?? null,
+      cutDropFrame: input.timing?.dropFrame ?? null,
+    });
+    if (!saved) throw await staleDeal(tx, caller, dealId);
+    return dealView(tx, caller, dealId);
   });
-  return dealView(db, caller, dealId);
 }

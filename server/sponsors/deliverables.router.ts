@@ -2,8 +2,7 @@ import { newDeliverableSchema, updateDeliverableSchema } from "../../shared/spon
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
-import { dealView } from "./deals.service";
+import { parseBody, parseVersioned } from "../http/validate";
 import { addDeliverable, removeDeliverable, updateDeliverable } from "./deliverables.service";
 
 const base = "/api/channels/:channelId";
@@ -17,9 +16,7 @@ export function deliverableRoutes(db: Database): RouteSpec[] {
       access: channelAccess("deliverables", "W"),
       handler: async (req, res) => {
         const input = parseBody(newDeliverableSchema, req.body);
-        const caller = callerOf(req);
-        await addDeliverable(db, caller, idOf(req, "dealId"), input);
-        res.status(201).json({ deal: await dealView(db, caller, idOf(req, "dealId")) });
+        res.status(201).json({ deal: await addDeliverable(db, callerOf(req), idOf(req, "dealId"), input) });
       },
     },
     {
@@ -29,10 +26,8 @@ export function deliverableRoutes(db: Database): RouteSpec[] {
       // keeps a role that only delivers the cut to the status of the cut items.
       access: channelAccess("cut", "W", "Your role may read this item but not change it."),
       handler: async (req, res) => {
-        const input = parseBody(updateDeliverableSchema, req.body);
-        const caller = callerOf(req);
-        const dealId = await updateDeliverable(db, caller, idOf(req, "deliverableId"), input);
-        res.json({ deal: await dealView(db, caller, dealId) });
+        const { version, input } = parseVersioned(updateDeliverableSchema, req.body);
+        res.json({ deal: await updateDeliverable(db, callerOf(req), idOf(req, "deliverableId"), version, input) });
       },
     },
     {

@@ -3,10 +3,10 @@ import { dueDateFor, isCutKind, isMoneyKind } from "../../shared/sponsors/delive
 import type { newDeliverableSchema, updateDeliverableSchema } from "../../shared/sponsors/schemas";
 import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
-import { AppError, notFound } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type NewEvent } from "./deals.repository";
-import { deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
+import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type Db, type NewEvent } from "./deals.repository";
+import { dealView, deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
 
 async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
   if (ownerId && !(await isMember(db, channelId, ownerId))) {
@@ -19,7 +19,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
   if (!deal) throw notFound("Deal");
   await checkOwner(db, caller.channelId, input.ownerId);
   const dueDate = dueDateFor(input, { publishDate: deal.publishDate, goLiveDate: deal.deal.goLiveDate });
-  await db.transaction(async (tx) => {
+  return db.transaction(async (tx) => {
     const [item] = await insertDeliverables(tx, [
       {
         channelId: caller.channelId,
@@ -30,12 +30,13 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
         offsetDays: input.anchor === "fixed" ? 0 : input.offsetDays,
         dueDate,
         ownerId: input.ownerId ?? caller.userId,
-        position: await nextPosition(tx, dealId),
+        position: await nextPosition(tx, caller.channelId, dealId),
       },
     ]);
     await insertEvents(tx, [
       { ...eventBy(caller, item!.id), what: "created", toStatus: item!.status, toDate: dueDate },
     ]);
+    return dealView(tx, caller, dealId);
   });
 }
 
@@ -44,7 +45,7 @@ export async function addDeliverable(db: Database, caller: Caller, dealId: strin
  * editor) changes only the status (and adds a note) of the cut items; the route lets no one else in.
  * Money items don't exist for roles that can't see fees.
  */
-export async function updateDeliverable(db: Database, caller: Caller, deliverableId: string, input: z.output<typeof updateDeliverableSchema>) {
+export async function updateDeliverable(db: Database, caller: Caller, deliverableId: string, version: number, input: z.output<typeof updateDeliverableSchema>) {
   const found = await findDeliverable(db, caller.channelId, deliverableId);
   if (!found || (isMoneyKind(found.item.kind) && !seesFees(caller.role))) throw notFound("Deliverable");
   const item = found.item;
@@ -53,6 +54,8 @@ export async function updateDeliverable(db: Database, caller: Caller, deliverabl
     if (!(deliversCut(caller.role) && isCutKind(item.kind))) throw new AppError("forbidden", "Your role may read this item but not change it.");
     if (!onlyStatus) throw new AppError("forbidden", "An editor can change the status of the cut items they deliver, not their dates, owner or title.");
   }
+  const stale = async (tx: Db) => staleSave("item", await dealView(tx, caller, item.dealId));
+  if (item.version !== version) throw await stale(db);
   await checkOwner(db, caller.channelId, input.ownerId);
 
   const deal = await findDeal(db, caller.channelId, item.dealId);
@@ -74,18 +77,12 @@ export async function updateDeliverable(db: Database, caller: Caller, deliverabl
   if (input.title !== undefined && input.title !== item.title) events.push({ ...base, what: "edited", note: `Renamed from "${item.title}"` });
   if (input.note && !events.some((e) => e.what === "status")) events.push({ ...base, what: "note", note: input.note });
 
-  await db.transaction(async (tx) => {
-    await updateDeliverableRow(tx, caller.channelId, deliverableId, {
-      title: input.title,
-      status: input.status,
-      ownerId: input.ownerId,
-      anchor,
-      offsetDays,
-      dueDate,
-    });
+  return db.transaction(async (tx) => {
+    const saved = await updateDeliverableRow(tx, caller.channelId, deliverableId, { title: input.title, status: input.status, ownerId: input.ownerId, anchor, offsetDays, dueDate }, version);
+    if (!saved) throw await stale(tx);
     await insertEvents(tx, events);
+    return dealView(tx, caller, item.dealId);
   });
-  return found.item.dealId;
 }
 
 export async function removeDeliverable(db: Database, caller: Caller, deliverableId: string) {

@@ -3,9 +3,9 @@ import type { Database } from "../db/client";
 import { notFound } from "../http/app-error";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
-import { contactOf, sponsorDetail, sponsorSummaries } from "./directory.service";
-import { deleteContact, insertContact, insertSponsor, updateContact, updateSponsor } from "./sponsors.repository";
+import { parseBody, parseVersioned } from "../http/validate";
+import { changeContact, changeSponsor, contactOf, sponsorDetail, sponsorSummaries } from "./directory.service";
+import { deleteContact, insertContact, insertSponsor } from "./sponsors.repository";
 
 const list = "/api/channels/:channelId/sponsors";
 const sponsor = `${list}/:sponsorId`;
@@ -23,7 +23,7 @@ export function directoryRoutes(db: Database): RouteSpec[] {
       handler: async (req, res) => {
         const input = parseBody(sponsorInputSchema, req.body);
         const row = await insertSponsor(db, callerOf(req).channelId, input);
-        res.status(201).json({ sponsor: { id: row.id, company: row.company, website: row.website, notes: row.notes, contacts: [], dealCount: 0 } });
+        res.status(201).json({ sponsor: { id: row.id, company: row.company, website: row.website, notes: row.notes, contacts: [], dealCount: 0, version: row.version } });
       },
     },
     { method: "get", path: sponsor, access: read, handler: async (req, res) => res.json({ sponsor: await sponsorDetail(db, callerOf(req), idOf(req, "sponsorId")) }) },
@@ -32,10 +32,8 @@ export function directoryRoutes(db: Database): RouteSpec[] {
       path: sponsor,
       access: write,
       handler: async (req, res) => {
-        const input = parseBody(sponsorInputSchema, req.body);
-        const row = await updateSponsor(db, callerOf(req).channelId, idOf(req, "sponsorId"), input);
-        if (!row) throw notFound("Sponsor");
-        res.json({ sponsor: { id: row.id, company: row.company, website: row.website, notes: row.notes } });
+        const { version, input } = parseVersioned(sponsorInputSchema, req.body);
+        res.json({ sponsor: await changeSponsor(db, callerOf(req), idOf(req, "sponsorId"), version, input) });
       },
     },
     {
@@ -52,10 +50,8 @@ export function directoryRoutes(db: Database): RouteSpec[] {
       path: `${sponsor}/contacts/:contactId`,
       access: write,
       handler: async (req, res) => {
-        const input = parseBody(contactInputSchema, req.body);
-        const row = await updateContact(db, callerOf(req).channelId, idOf(req, "sponsorId"), idOf(req, "contactId"), input);
-        if (!row) throw notFound("Contact");
-        res.json({ contact: contactOf(row) });
+        const { version, input } = parseVersioned(contactInputSchema, req.body);
+        res.json({ contact: await changeContact(db, callerOf(req), idOf(req, "sponsorId"), idOf(req, "contactId"), version, input) });
       },
     },
     {

@@ -1,5 +1,6 @@
 import { createHmac, timingSafeEqual } from "node:crypto";
-import type { ReviewLinkState } from "../../shared/sponsors/schemas";
+import { isSettled, type DeliverableStatus } from "../../shared/sponsors/deliverables";
+import type { DealState, ReviewLinkState } from "../../shared/sponsors/schemas";
 
 /**
  * A sponsor's review link carries `<link id>.<expiry>.<signature>`: the signature is an HMAC-SHA-256
@@ -43,4 +44,28 @@ export function reviewStateOf(link: { revokedAt: Date | null; decidedAt: Date | 
   if (link.decidedAt) return "decided";
   if (link.expiresAt.getTime() <= now.getTime()) return "expired";
   return "open";
+}
+
+/** Why a link closed with what it belongs to. */
+export type ReviewClosure = "item_removed" | "deal_cancelled" | "contact_removed" | "item_settled";
+
+/** What a link belongs to, as it is now: its contact (null once removed), its deal, its item (null once removed). */
+export interface ReviewSubject {
+  contactId: string | null;
+  dealState: DealState;
+  itemStatus: DeliverableStatus | null;
+}
+
+export function closureOf(subject: ReviewSubject): ReviewClosure | null {
+  if (subject.itemStatus === null) return "item_removed";
+  if (subject.dealState === "cancelled") return "deal_cancelled";
+  if (subject.contactId === null) return "contact_removed";
+  if (isSettled(subject.itemStatus)) return "item_settled";
+  return null;
+}
+
+/** A link's state with what it belongs to: a withdrawn or used link stays so; otherwise it closes with its contact, deal or item. */
+export function linkStateOf(link: Parameters<typeof reviewStateOf>[0], subject: ReviewSubject, now = new Date()): ReviewLinkState {
+  const own = reviewStateOf(link, now);
+  return own !== "revoked" && own !== "decided" && closureOf(subject) ? "closed" : own;
 }

@@ -1,6 +1,7 @@
+import { createHash } from "node:crypto";
 import { addDays } from "date-fns";
 import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/sponsors/read";
-import { deliverableStatusLabels, isMoneyKind } from "../../shared/sponsors/deliverables";
+import { deliverableStatusLabels, isMoneyKind, isSettled } from "../../shared/sponsors/deliverables";
 import type { ReviewDecision, ReviewLinkView, ReviewPage, reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
 import type { z } from "zod";
 import type { Database } from "../db/client";
@@ -23,12 +24,14 @@ import {
   insertEvents,
   insertReviewLink,
   listContactsOf,
+  lockDeliverable,
+  lockReviewSubject,
   revokeReviewLink,
   updateDeliverableRow,
 } from "./deals.repository";
 import type { Caller } from "../http/route-table";
 import { eventBy } from "./deals.service";
-import { reviewStateOf, type ReviewTokens } from "./review-token";
+import { closureOf, linkStateOf, type ReviewClosure, type ReviewTokens } from "./review-token";
 
 export interface ReviewDeps {
   db: Database;
@@ -57,9 +60,14 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
   requireConfirmedAddress(caller);
   const deal = await findDeal(db, caller.channelId, dealId);
   if (!deal) throw notFound("Deal");
+  if (deal.deal.state === "cancelled") throw new AppError("conflict", "This deal is cancelled: there is nothing left for the sponsor to review.");
   const target = await findDeliverable(db, caller.channelId, input.deliverableId);
   if (!target || target.item.dealId !== dealId || isMoneyKind(target.item.kind)) {
     throw new AppError("validation_failed", "Some fields need attention.", { deliverableId: "Pick one of this deal's items for the sponsor to review." });
+  }
+  if (isSettled(target.item.status)) {
+    const label = deliverableStatusLabels[target.item.status];
+    throw new AppError("validation_failed", "Some fields need attention.", { deliverableId: `This item is already settled (${label}); pick one still open.` });
   }
   const contact = (await listContactsOf(db, caller.channelId, deal.deal.sponsorId)).find((c) => c.id === input.contactId);
   if (!contact) throw new AppError("validation_failed", "Some fields need attention.", { contactId: "Pick one of this sponsor's contacts." });
@@ -100,7 +108,7 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
     url: reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt)),
     link: {
       id: link.id,
-      deliverableId: link.deliverableId,
+      deliverableId: target.item.id,
       deliverableTitle: target.item.title,
       contactName: link.contactName,
       contactEmail: link.contactEmail,
@@ -115,12 +123,12 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
   };
 }
 
-/** Builds the review link's mail when it is sent; a link withdrawn, used or expired meanwhile sends nothing. */
+/** Builds the review link's mail when it is sent; a link withdrawn, used, expired or closed meanwhile sends nothing. */
 export function reviewLinkMailRenderer(deps: Pick<ReviewDeps, "db" | "appUrl" | "tokens">): MailRenderers {
   return reviewLinkMail.renderer(async ({ linkId }) => {
     const row = await findReviewLinkForPage(deps.db, linkId);
     if (!row) return { skip: "the review link is gone" };
-    const state = reviewStateOf(row.link);
+    const state = linkStateOf(row.link, subjectOf(row));
     if (state !== "open") return { skip: `the review link is ${state}` };
     const { link } = row;
     return {
@@ -149,8 +157,10 @@ export async function revokeLink(db: Database, caller: Caller, dealId: string, l
   if (link.decidedAt) throw new AppError("conflict", "This link has been used: the sponsor's decision stands. Send a new link for another round.");
   if (link.revokedAt) return;
   await db.transaction(async (tx) => {
+    // The item before the link: the order a decision locks them in.
+    if (link.deliverableId) await lockDeliverable(tx, link.deliverableId);
     await revokeReviewLink(tx, caller.channelId, dealId, linkId);
-    const target = await findDeliverable(tx, caller.channelId, link.deliverableId);
+    const target = link.deliverableId ? await findDeliverable(tx, caller.channelId, link.deliverableId) : null;
     if (!target) return;
     const backTo = target.item.status === "sent" ? "not_started" : target.item.status;
     if (backTo !== target.item.status) await updateDeliverableRow(tx, caller.channelId, target.item.id, { status: backTo });
@@ -175,13 +185,36 @@ async function openToken(deps: ReviewDeps, token: string) {
   return row;
 }
 
-/** What the contact sees. A link that can no longer be used shows only that, and which channel sent it. */
+type LinkRow = NonNullable<Awaited<ReturnType<typeof findReviewLinkForPage>>>;
+
+const subjectOf = (row: LinkRow) => ({ contactId: row.link.contactId, dealState: row.deal.state, itemStatus: row.deliverableStatus });
+
+const closureMessages: Record<ReviewClosure, (row: LinkRow) => string> = {
+  contact_removed: () => "This link closed: the channel no longer lists you as the sponsor's contact. Ask them if you still need to review.",
+  deal_cancelled: () => "This link closed: the deal was cancelled, so there is nothing left to review.",
+  item_removed: () => "This link closed: the item it asked you to review was removed from the deal.",
+  item_settled: (row) => `This link closed: the item is already settled (${deliverableStatusLabels[row.deliverableStatus!]}), so there is nothing left to decide.`,
+};
+
+/**
+ * A fingerprint of what the open page shows the sponsor (the segment, the cut, the item and its
+ * status): a decision applies only while it is unchanged. The presigned cut address changes on every
+ * read, so the clip and its in and out stand for it.
+ */
+function seenOf(row: LinkRow): string {
+  const { deal } = row;
+  const shown = [deal.script, deal.segmentSeconds, deal.talkingPoints, deal.link, deal.promoCode, deal.disclosureText, deal.placement, deal.cutClipId, deal.cutIn, deal.cutOut, row.deliverableTitle, row.deliverableStatus];
+  return createHash("sha256").update(JSON.stringify(shown)).digest("base64url").slice(0, 22);
+}
+
+/** What the contact sees. A link that can no longer be used shows only that, why, and which channel sent it. */
 export async function reviewPage(deps: ReviewDeps, token: string): Promise<ReviewPage> {
   const row = await openToken(deps, token);
-  const state = reviewStateOf(row.link);
+  const state = linkStateOf(row.link, subjectOf(row));
   if (state === "decided") {
     return { state, channelName: row.channelName, decision: row.link.decision!, decidedAt: row.link.decidedAt!.toISOString(), contactName: row.link.contactName };
   }
+  if (state === "closed") return { state, channelName: row.channelName, reason: closureMessages[closureOf(subjectOf(row))!](row) };
   if (state !== "open") return { state, channelName: row.channelName };
   const deal = row.deal;
   const host = deal.hostId ? await findHost(deps.db, deal.channelId, deal.hostId) : null;
@@ -191,7 +224,7 @@ export async function reviewPage(deps: ReviewDeps, token: string): Promise<Revie
     company: row.company,
     contactName: row.link.contactName,
     episodeTitle: row.episodeTitle,
-    deliverableTitle: row.deliverableTitle,
+    deliverableTitle: row.deliverableTitle!,
     expiresAt: row.link.expiresAt.toISOString(),
     script: deal.script,
     segmentSeconds: deal.segmentSeconds,
@@ -202,6 +235,7 @@ export async function reviewPage(deps: ReviewDeps, token: string): Promise<Revie
     disclosureText: deal.disclosureText,
     placement: deal.placement,
     cutUrl: await cutUrlFor(deps, deal.channelId, deal.cutClipId),
+    seen: seenOf(row),
   };
 }
 
@@ -217,24 +251,38 @@ async function cutUrlFor(deps: ReviewDeps, channelId: string, clipId: string | n
   }
 }
 
-const closedMessages = {
+const refusals = {
   decided: "This link has already been used: the decision was recorded. Ask the channel for a new link if something else needs review.",
   expired: "This link has expired. Ask the channel for a new one.",
   revoked: "This link was withdrawn by the channel. Ask them for a new one if you still need to review.",
   open: "This link can't take a decision right now. Reload the page and try again.",
 };
 
-/** The contact approves or asks for changes: once per link, recorded under their name, and mailed to the sender. */
+/** Why a link takes no decision, in the sponsor's words: 410, and nothing used up. */
+function refusal(row: LinkRow): AppError {
+  const state = linkStateOf(row.link, subjectOf(row));
+  return new AppError("gone", state === "closed" ? closureMessages[closureOf(subjectOf(row))!](row) : refusals[state]);
+}
+
+/**
+ * The contact approves or asks for changes: once per link, recorded under their name, and mailed to
+ * the sender; only while the link is open and the review shows what the contact read (`seen`), else
+ * 410 (closed) or 409 with the page as it is now, and nothing changes.
+ */
 export async function decide(deps: ReviewDeps, token: string, input: z.output<typeof reviewDecisionSchema>): Promise<ReviewPage> {
-  const row = await openToken(deps, token);
-  const decided = await inTransaction(deps.db, async (tx, sql) => {
+  const opened = await openToken(deps, token);
+  const outcome = await inTransaction(deps.db, async (tx, sql) => {
+    const row = await lockReviewSubject(tx, opened.link.id);
+    if (!row) throw invalidLink();
+    if (linkStateOf(row.link, subjectOf(row)) !== "open") throw refusal(row);
+    if (seenOf(row) !== input.seen) return { stale: true } as const;
     const claimed = await claimReviewDecision(tx, row.link.id, input.decision, input.comment);
-    if (!claimed) return null;
-    await updateDeliverableRow(tx, claimed.channelId, claimed.deliverableId, { status: input.decision });
+    if (!claimed) throw refusal(row);
+    await updateDeliverableRow(tx, claimed.channelId, row.link.deliverableId!, { status: input.decision });
     await insertEvents(tx, [
       {
         channelId: claimed.channelId,
-        deliverableId: claimed.deliverableId,
+        deliverableId: row.link.deliverableId!,
         actorId: null,
         actorName: claimed.contactName,
         actorKind: "sponsor",
@@ -245,12 +293,12 @@ export async function decide(deps: ReviewDeps, token: string, input: z.output<ty
       },
     ]);
     await deps.jobs.enqueueMail(decisionMail(deps, row, claimed, input), { db: sql });
-    return claimed;
+    return { decided: claimed, row } as const;
   });
-  if (!decided) {
-    const state = reviewStateOf((await findReviewLinkForPage(deps.db, row.link.id))?.link ?? row.link);
-    throw new AppError("gone", closedMessages[state]);
+  if ("stale" in outcome) {
+    throw new AppError("conflict", "The channel changed this review after you opened it. Read it again below, then decide.", undefined, { page: await reviewPage(deps, token) });
   }
+  const { decided, row } = outcome;
   return { state: "decided", channelName: row.channelName, decision: input.decision, decidedAt: decided.decidedAt!.toISOString(), contactName: decided.contactName };
 }
 

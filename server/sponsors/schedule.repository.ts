@@ -2,6 +2,7 @@ import { and, eq, sql } from "drizzle-orm";
 import { users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { deals, deliverables } from "../db/schema/sponsors";
+import { nextVersion } from "../db/versions";
 import type { Db } from "./deals.repository";
 
 /** A deal's items with how each is dated. */
@@ -13,7 +14,7 @@ export async function datingOfItems(db: Db, channelId: string, dealId: string) {
 }
 
 export async function setDueDate(db: Db, deliverableId: string, dueDate: string | null) {
-  await db.update(deliverables).set({ dueDate, updatedAt: new Date() }).where(eq(deliverables.id, deliverableId));
+  await db.update(deliverables).set({ dueDate, version: nextVersion(deliverables.version), updatedAt: new Date() }).where(eq(deliverables.id, deliverableId));
 }
 
 export async function episodePublishDate(db: Db, channelId: string, episodeId: string) {

@@ -4,6 +4,7 @@ import { memberships, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
 import { dealTemplates, deals, speakingRates, sponsorContacts, sponsorSettings, sponsors } from "../db/schema/sponsors";
 import type { DealTemplate } from "../../shared/sponsors/schemas";
+import { nextVersion } from "../db/versions";
 
 // Every query here is scoped by channel: an id from another channel finds nothing (404).
 
@@ -58,11 +59,12 @@ export async function insertSponsor(db: Database, channelId: string, input: { co
   return row!;
 }
 
-export async function updateSponsor(db: Database, channelId: string, sponsorId: string, input: { company: string; website: string | null; notes: string | null }) {
+/** Saves a sponsor if it is still at `version`; null when it isn't (or isn't this channel's). */
+export async function updateSponsor(db: Database, channelId: string, sponsorId: string, version: number, input: { company: string; website: string | null; notes: string | null }) {
   const [row] = await db
     .update(sponsors)
-    .set({ ...input, updatedAt: new Date() })
-    .where(and(eq(sponsors.id, sponsorId), eq(sponsors.channelId, channelId)))
+    .set({ ...input, version: nextVersion(sponsors.version), updatedAt: new Date() })
+    .where(and(eq(sponsors.id, sponsorId), eq(sponsors.channelId, channelId), eq(sponsors.version, version)))
     .returning();
   return row ?? null;
 }
@@ -75,11 +77,12 @@ export async function insertContact(db: Database, channelId: string, sponsorId: 
   return row!;
 }
 
-export async function updateContact(db: Database, channelId: string, sponsorId: string, contactId: string, input: { name: string; email: string; role: string | null }) {
+/** Saves a contact if it is still at `version`; null when it isn't (or isn't this sponsor's). */
+export async function updateContact(db: Database, channelId: string, sponsorId: string, contactId: string, version: number, input: { name: string; email: string; role: string | null }) {
   const [row] = await db
     .update(sponsorContacts)
-    .set(input)
-    .where(and(eq(sponsorContacts.id, contactId), eq(sponsorContacts.sponsorId, sponsorId), eq(sponsorContacts.channelId, channelId)))
+    .set({ ...input, version: nextVersion(sponsorContacts.version) })
+    .where(and(eq(sponsorContacts.id, contactId), eq(sponsorContacts.sponsorId, sponsorId), eq(sponsorContacts.channelId, channelId), eq(sponsorContacts.version, version)))
     .returning();
   return row ?? null;
 }
@@ -94,29 +97,32 @@ export async function deleteContact(db: Database, channelId: string, sponsorId: 
 
 // ── Templates ──────────────────────────────────────────────────────────
 
+const templateColumns = { id: dealTemplates.id, name: dealTemplates.name, items: dealTemplates.items, version: dealTemplates.version };
+
 export async function listTemplates(db: Database, channelId: string) {
-  return db.select({ id: dealTemplates.id, name: dealTemplates.name, items: dealTemplates.items }).from(dealTemplates).where(eq(dealTemplates.channelId, channelId)).orderBy(asc(dealTemplates.name));
+  return db.select(templateColumns).from(dealTemplates).where(eq(dealTemplates.channelId, channelId)).orderBy(asc(dealTemplates.name));
 }
 
 export async function findTemplate(db: Database, channelId: string, templateId: string) {
   const [row] = await db
-    .select({ id: dealTemplates.id, name: dealTemplates.name, items: dealTemplates.items })
+    .select(templateColumns)
     .from(dealTemplates)
     .where(and(eq(dealTemplates.id, templateId), eq(dealTemplates.channelId, channelId)));
   return row ?? null;
 }
 
 export async function insertTemplate(db: Database, channelId: string, input: { name: string; items: DealTemplate["items"] }) {
-  const [row] = await db.insert(dealTemplates).values({ channelId, ...input }).returning({ id: dealTemplates.id, name: dealTemplates.name, items: dealTemplates.items });
+  const [row] = await db.insert(dealTemplates).values({ channelId, ...input }).returning(templateColumns);
   return row!;
 }
 
-export async function updateTemplate(db: Database, channelId: string, templateId: string, input: { name: string; items: DealTemplate["items"] }) {
+/** Saves a template if it is still at `version`; null when it isn't (or isn't this channel's). */
+export async function updateTemplate(db: Database, channelId: string, templateId: string, version: number, input: { name: string; items: DealTemplate["items"] }) {
   const [row] = await db
     .update(dealTemplates)
-    .set({ ...input, updatedAt: new Date() })
-    .where(and(eq(dealTemplates.id, templateId), eq(dealTemplates.channelId, channelId)))
-    .returning({ id: dealTemplates.id, name: dealTemplates.name, items: dealTemplates.items });
+    .set({ ...input, version: nextVersion(dealTemplates.version), updatedAt: new Date() })
+    .where(and(eq(dealTemplates.id, templateId), eq(dealTemplates.channelId, channelId), eq(dealTemplates.version, version)))
+    .returning(templateColumns);
   return row ?? null;
 }
 

@@ -3,8 +3,9 @@ import type { Database } from "../db/client";
 import { notFound } from "../http/app-error";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
-import { parseBody } from "../http/validate";
-import { deleteTemplate, insertTemplate, listTemplates, updateTemplate } from "./sponsors.repository";
+import { parseBody, parseVersioned } from "../http/validate";
+import { deleteTemplate, insertTemplate, listTemplates } from "./sponsors.repository";
+import { changeTemplate } from "./templates.service";
 
 const list = "/api/channels/:channelId/deal-templates";
 
@@ -28,10 +29,8 @@ export function templateRoutes(db: Database): RouteSpec[] {
       path: `${list}/:templateId`,
       access: write,
       handler: async (req, res) => {
-        const input = parseBody(templateInputSchema, req.body);
-        const row = await updateTemplate(db, callerOf(req).channelId, idOf(req, "templateId"), input);
-        if (!row) throw notFound("Template");
-        res.json({ template: row });
+        const { version, input } = parseVersioned(templateInputSchema, req.body);
+        res.json({ template: await changeTemplate(db, callerOf(req).channelId, idOf(req, "templateId"), version, input) });
       },
     },
     {

@@ -56,6 +56,9 @@ export function isStorageDown(error: unknown): boolean {
   return e.cause !== undefined && e.cause !== error && isStorageDown(e.cause);
 }
 
+/** The store answered that the object is not there (404 NoSuchKey). */
+export const isMissingObject = (error: unknown) => statusOf(error) === 404 || (error as { name?: string } | null)?.name === "NoSuchKey";
+
 export const storageDown = () => new AppError("unavailable", "Footage storage is not reachable right now; nothing was changed. Try again in a moment.");
 
 /** Runs a storage call; a store that is down becomes the 503 above. */

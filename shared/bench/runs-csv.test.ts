@@ -8,12 +8,12 @@ const q = (value: number, unit: string) => ({ value, unit });
 
 describe("CSV export of the runs", () => {
   const criteria: CriterionView[] = [
-    { id: "c1", position: 1, ...criterionSchema.parse({ metric: "thrust_per_watt", comparator: "gte", threshold: q(5, "gf/W"), required: true }) },
+    { id: "c1", position: 1, version: 1, ...criterionSchema.parse({ metric: "thrust_per_watt", comparator: "gte", threshold: q(5, "gf/W"), required: true }) },
   ];
   const plan = { airframeMass: q(420, "g"), criteria: criteria.map((c) => ({ id: c.id, criterion: c })) };
   const view = (number: number, label: string, notes: string, measurements: RunView["measurements"], supply: RunView["supply"]): RunView => {
     const parts = [{ partId: "p1", name: 'Tarn 2216, "880 kV"', kind: "motor" as const, count: 1, mass: q(68, "g"), ratedVoltage: q(16.8, "V") }];
-    return { id: `r${number}`, episodeId: "e", number, label, parts, supply, measurements, notes, evaluation: evaluateRun({ supply, measurements, parts }, plan), createdAt: "", updatedAt: "" };
+    return { id: `r${number}`, episodeId: "e", number, label, parts, supply, measurements, notes, evaluation: evaluateRun({ supply, measurements, parts }, plan), createdAt: "", updatedAt: "", version: 1 };
   };
 
   it("writes CRLF records, quotes fields with commas, quotes or line breaks, and doubles inner quotes (RFC 4180, section 2)", () => {

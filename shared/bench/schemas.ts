@@ -60,7 +60,7 @@ export type TestPlanInput = z.infer<typeof testPlanInputSchema>;
 
 export const criterionInputSchema = criterionSchema;
 export type CriterionInput = Criterion;
-export type CriterionView = Criterion & { id: string; position: number };
+export type CriterionView = Criterion & { id: string; position: number; version: number };
 
 // ── Safety ───────────────────────────────────────────────────────────────────
 
@@ -108,6 +108,8 @@ export interface TestPlanView {
   criteria: CriterionView[];
   hazards: HazardView[];
   updatedAt: string | null;
+  /** The sheet's version (0 until first saved); a save sends it. */
+  version: number;
 }
 
 // ── Bench shelf ──────────────────────────────────────────────────────────────
@@ -146,6 +148,7 @@ export interface PartView extends PartInput {
   id: string;
   runCount: number;
   updatedAt: string;
+  version: number;
 }
 
 // ── Bench runs ───────────────────────────────────────────────────────────────
@@ -234,6 +237,7 @@ export interface RunView {
   evaluation: RunEvaluation;
   createdAt: string;
   updatedAt: string;
+  version: number;
 }
 
 /** A run as the part's page lists it: with its episode. */
@@ -276,4 +280,5 @@ export interface IterationView extends IterationInput {
   chosenRun: { id: string; number: number; label: string; thrust: Quantity | null } | null;
   thrustToWeight: Figure;
   createdAt: string;
+  version: number;
 }

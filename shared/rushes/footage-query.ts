@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { oneLine } from "../fields/text";
+import { isIsoDate } from "../slate/dates";
 import { clipRatings, shotKinds } from "./vocabulary";
 
 /**
@@ -73,11 +74,34 @@ export function encodeCursor(cursor: Cursor): string {
 
 const cursorSchema = z.tuple([z.union([z.string().max(300), z.number()]), z.uuid()]);
 
-/** null for a cursor that isn't one of ours (tampered or stale): the caller answers 400. */
-export function decodeCursor(text: string): Cursor | null {
+/** Postgres's text form of a timestamptz, e.g. "2026-12-03 23:41:43.123+00". */
+const timestampPattern = /^(\d{4}-\d{2}-\d{2}) ([01]\d|2[0-3]):[0-5]\d:[0-5]\d(\.\d{1,6})?[+-]\d{2}(:\d{2}){0,2}$/;
+const INT4_MAX = 2_147_483_647;
+
+/**
+ * Can the database read this value back as the sort column's type? A cursor is the client's to send,
+ * so one that decodes but carries, say, "ten" for a duration is refused here instead of failing the
+ * query's cast.
+ */
+const sortValueFits: Record<FootageSort, (v: string | number) => boolean> = {
+  recorded: (v) => isTimestampText(v),
+  uploaded: (v) => isTimestampText(v),
+  name: (v) => typeof v === "string" && !v.includes("\u0000"),
+  duration: (v) => /^-?\d{1,10}$/.test(String(v)) && Math.abs(Number(v)) <= INT4_MAX,
+  size: (v) => /^-?\d{1,18}$/.test(String(v)),
+};
+
+function isTimestampText(v: string | number): boolean {
+  const match = typeof v === "string" ? timestampPattern.exec(v) : null;
+  return match !== null && isIsoDate(match[1]!) && match[1]! >= "1000";
+}
+
+/** null for a cursor that isn't one of ours for this sort (tampered or stale): the caller answers 400. */
+export function decodeCursor(text: string, sort: FootageSort): Cursor | null {
   try {
     const parsed = cursorSchema.safeParse(JSON.parse(fromBase64Url(text)));
-    return parsed.success ? { v: parsed.data[0], id: parsed.data[1] } : null;
+    if (!parsed.success || !sortValueFits[sort](parsed.data[0])) return null;
+    return { v: parsed.data[0], id: parsed.data[1] };
   } catch {
     return null;
   }

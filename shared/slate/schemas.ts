@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { calendarDateSchema } from "../fields/dates";
 import { multiLine, oneLine } from "../fields/text";
+import { versionSchema } from "../http/version";
 import type { BoardFlag } from "./flags";
 import type { GateProblem } from "./gates";
 import type { RiskReason, ScheduledStage, StageLengths } from "./schedule";
@@ -64,7 +65,6 @@ export const emptyEpisodeFields: EpisodeFields = {
   targetPublishDate: "",
 };
 
-const versionSchema = z.number({ error: "Send the version you last saw." }).int().min(1);
 
 /** An edit: any subset of the fields, against the version the editor saw. */
 export const episodeChangesSchema = episodeFieldsObject.partial().extend({ version: versionSchema });

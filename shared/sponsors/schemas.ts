@@ -52,6 +52,7 @@ export interface Contact {
   name: string;
   email: string;
   role: string | null;
+  version: number;
 }
 
 export interface SponsorSummary {
@@ -61,6 +62,7 @@ export interface SponsorSummary {
   notes: string | null;
   contacts: Contact[];
   dealCount: number;
+  version: number;
 }
 
 export interface SponsorDealRow {
@@ -102,6 +104,7 @@ export interface DealTemplate {
   id: string;
   name: string;
   items: z.infer<typeof templateItemSchema>[];
+  version: number;
 }
 
 // ── Deals ──────────────────────────────────────────────────────────────
@@ -178,6 +181,7 @@ export const createDealSchema = z.strictObject({
 });
 export type CreateDealInput = z.input<typeof createDealSchema>;
 
+/** A change of some segment fields: the form sends only those it changed (and, beside them, the deal's version). */
 export const updateDealSchema = z
   .strictObject(segmentFields)
   .partial()
@@ -266,6 +270,7 @@ export interface DeliverableView {
   status: (typeof deliverableStatuses)[number];
   ownerId: string | null;
   ownerName: string | null;
+  version: number;
   late: boolean;
   daysLate: number;
   /** May the caller change this item (status at least)? */
@@ -284,7 +289,8 @@ export const sendReviewSchema = z.strictObject({
 });
 export type SendReviewInput = z.input<typeof sendReviewSchema>;
 
-export const reviewLinkStates = ["open", "decided", "expired", "revoked"] as const;
+/** "closed": what the link belongs to is gone (its contact removed, its deal cancelled, its item removed or settled). */
+export const reviewLinkStates = ["open", "decided", "expired", "revoked", "closed"] as const;
 export type ReviewLinkState = (typeof reviewLinkStates)[number];
 export const reviewDecisions = ["approved", "changes_asked"] as const;
 export type ReviewDecision = (typeof reviewDecisions)[number];
@@ -308,6 +314,8 @@ export const reviewDecisionSchema = z
   .strictObject({
     decision: z.enum(reviewDecisions, { error: "Approve, or ask for changes." }),
     comment: optionalLines(2000, "comment").default(null),
+    /** The page's `seen`: the decision applies only if the review still shows what the sponsor read. */
+    seen: z.string({ error: "Reload the page, then decide." }).regex(/^[A-Za-z0-9_-]{16,64}$/, "Reload the page, then decide."),
   })
   .refine((v) => v.decision !== "changes_asked" || v.comment !== null, { message: "Say what should change.", path: ["comment"] });
 export type ReviewDecisionInput = z.input<typeof reviewDecisionSchema>;
@@ -332,9 +340,12 @@ export type ReviewPage =
       placement: Placement;
       /** A presigned address of the attached cut, when there is one and storage is configured. */
       cutUrl: string | null;
+      /** A fingerprint of what this page shows; the decision sends it back. */
+      seen: string;
     }
   | { state: "decided"; channelName: string; decision: ReviewDecision; decidedAt: string; contactName: string }
-  | { state: "expired" | "revoked"; channelName: string };
+  | { state: "expired" | "revoked"; channelName: string }
+  | { state: "closed"; channelName: string; reason: string };
 
 // ── Deal view ──────────────────────────────────────────────────────────
 
@@ -348,6 +359,8 @@ export interface CutTiming {
 
 export interface DealView {
   id: string;
+  /** The deal's version: its segment, script, money and cut saves each name it. */
+  version: number;
   episodeId: string;
   episodeTitle: string;
   publishDate: string | null;

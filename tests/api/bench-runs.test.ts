@@ -118,7 +118,7 @@ describe("entering bench runs", () => {
     const { crew, base, channel, episode, owner, motor } = await setting();
     const made = await createRun(app.db, channel.id, episode.id, owner.id, { label: "Before", measurements: { thrust: q(100, "gf") } });
     const changed = await crew
-      .send("put", `${base}/${made.id}`, { label: "After", parts: [{ partId: motor.id, count: 2 }], supply: null, measurements: { mass: q(150, "g"), voltage: q(11.1, "V"), current: q(10, "A"), thrust: q(1, "kgf") }, notes: "reweighed" })
+      .send("put", `${base}/${made.id}`, { label: "After", parts: [{ partId: motor.id, count: 2 }], supply: null, measurements: { mass: q(150, "g"), voltage: q(11.1, "V"), current: q(10, "A"), thrust: q(1, "kgf") }, notes: "reweighed", version: 1 })
       .expect(200);
     // Own derivation: 1000 gf / 111 W = 9.009 gf/W; 1000 gf over 570 g = 1.754.
     expect(changed.body.run).toMatchObject({ id: made.id, label: "After", notes: "reweighed", evaluation: { verdict: "pass", massSource: "measured" } });

@@ -60,7 +60,7 @@ describe("the bench shelf", () => {
     const runs = `/api/channels/${channel.id}/episodes/${episode.id}/bench-runs`;
     // Own derivation: 760 gf over 400 + 100 g = 1.52 ≥ 1.5; over 400 + 150 g = 1.38 < 1.5.
     expect((await crew.get(runs).expect(200)).body.runs[0].evaluation.verdict).toBe("pass");
-    await crew.send("put", `${base}/${part.id}`, { ...motor, mass: q(150, "g") }).expect(200);
+    await crew.send("put", `${base}/${part.id}`, { ...motor, mass: q(150, "g"), version: 1 }).expect(200);
     expect((await crew.get(runs).expect(200)).body.runs[0].evaluation.verdict).toBe("fail");
   });
 
@@ -107,7 +107,7 @@ describe("the bench shelf", () => {
     const elsewhere = await createChannel(app.db, other, "Elsewhere");
     const theirs = await createPart(app.db, elsewhere.id, { name: "Their motor" });
     await crew.get(`${base}/${theirs.id}`).expect(404);
-    await crew.send("put", `${base}/${theirs.id}`, motor).expect(404);
+    await crew.send("put", `${base}/${theirs.id}`, { ...motor, version: 1 }).expect(404);
     await crew.send("delete", `${base}/${theirs.id}`).expect(404);
     expect((await app.database.pool.query("select name from bench_parts where id = $1", [theirs.id])).rows).toEqual([{ name: "Their motor" }]);
     expect((await crew.get(base).expect(200)).body.parts).toEqual([]);
@@ -157,7 +157,7 @@ describe("the build log", () => {
   it("when an iteration is changed or deleted, then the log follows", async () => {
     const { crew, log, channel, episode, owner } = await logSetting();
     const iteration = await createIteration(app.db, channel.id, episode.id, owner.id);
-    const changed = await crew.send("put", `${log}/${iteration.id}`, { change: "Lighter arms", allUpMass: q(0.6, "kg"), outcome: "failed", chosenRunId: null, notes: "Cracked on landing" }).expect(200);
+    const changed = await crew.send("put", `${log}/${iteration.id}`, { change: "Lighter arms", allUpMass: q(0.6, "kg"), outcome: "failed", chosenRunId: null, notes: "Cracked on landing", version: 1 }).expect(200);
     expect(changed.body.iteration).toMatchObject({ change: "Lighter arms", outcome: "failed", notes: "Cracked on landing" });
     await crew.send("delete", `${log}/${iteration.id}`).expect(204);
     expect((await crew.get(log).expect(200)).body.iterations).toEqual([]);

@@ -42,8 +42,8 @@ describe("the test plan sheet", () => {
 
   it("when the producer saves the sheet, then everyone on the channel reads it back as entered", async () => {
     const { producer, crew, editor, base } = await setting();
-    const saved = await (await app.signedIn(producer)).send("put", base, sheet).expect(200);
-    expect(saved.body.plan).toMatchObject(sheet);
+    const saved = await (await app.signedIn(producer)).send("put", base, { ...sheet, version: 0 }).expect(200);
+    expect(saved.body.plan).toMatchObject({ ...sheet, version: 1 });
     for (const person of [crew, editor]) {
       const read = await (await app.signedIn(person)).get(base).expect(200);
       expect(read.body.plan).toMatchObject({ ...sheet, updatedAt: expect.any(String) });
@@ -52,8 +52,8 @@ describe("the test plan sheet", () => {
 
   it("when a quantity's unit is of the wrong kind, then it answers 400 on that field and keeps the old sheet", async () => {
     const { agent, base } = await setting();
-    await agent.send("put", base, sheet).expect(200);
-    const wrong = { ...sheet, hypothesis: "Changed", quantities: [{ name: "Static thrust", symbol: "T", measures: "thrust", unit: "g" }] };
+    await agent.send("put", base, { ...sheet, version: 0 }).expect(200);
+    const wrong = { ...sheet, hypothesis: "Changed", quantities: [{ name: "Static thrust", symbol: "T", measures: "thrust", unit: "g" }], version: 1 };
     const response = await agent.send("put", base, wrong).expect(400);
     expect(response.body.error.fields).toEqual({ "quantities.0.unit": "Thrust is measured in gf, kgf, N" });
     expect((await agent.get(base).expect(200)).body.plan.hypothesis).toBe(sheet.hypothesis);
@@ -61,7 +61,7 @@ describe("the test plan sheet", () => {
 
   it("refuses unknown fields rather than dropping them silently", async () => {
     const { agent, base } = await setting();
-    const response = await agent.send("put", base, { ...sheet, verdict: "pass" }).expect(400);
+    const response = await agent.send("put", base, { ...sheet, verdict: "pass", version: 0 }).expect(400);
     expect(response.body.error.code).toBe("validation_failed");
   });
 });
@@ -98,8 +98,8 @@ describe("pass criteria", () => {
   it("when a criterion is changed or removed, then the sheet follows; another episode's criterion answers 404", async () => {
     const { agent, base, channel, episode } = await setting();
     const made = await createCriterion(app.db, channel.id, episode.id);
-    const changed = await agent.send("put", `${base}/criteria/${made.id}`, { metric: "thrust", comparator: "gte", threshold: q(1, "kgf"), required: false }).expect(200);
-    expect(changed.body.criterion).toMatchObject({ id: made.id, metric: "thrust", required: false });
+    const changed = await agent.send("put", `${base}/criteria/${made.id}`, { metric: "thrust", comparator: "gte", threshold: q(1, "kgf"), required: false, version: 1 }).expect(200);
+    expect(changed.body.criterion).toMatchObject({ id: made.id, metric: "thrust", required: false, version: 2 });
 
     const elsewhere = await createEpisode(app.db, channel.id);
     const otherBase = `/api/channels/${channel.id}/episodes/${elsewhere.id}/test-plan`;
@@ -153,7 +153,7 @@ describe("another channel's sheet", () => {
     const theirs = await createChannel(app.db, outsider, "Elsewhere");
     const agent = await app.signedIn(outsider);
     await agent.get(base).expect(404);
-    await agent.send("put", `/api/channels/${theirs.id}/episodes/${episode.id}/test-plan`, sheet).expect(404);
+    await agent.send("put", `/api/channels/${theirs.id}/episodes/${episode.id}/test-plan`, { ...sheet, version: 0 }).expect(404);
     const made = await createCriterion(app.db, channel.id, episode.id);
     await agent.send("delete", `/api/channels/${theirs.id}/episodes/${episode.id}/test-plan/criteria/${made.id}`).expect(404);
     const rows = await app.database.pool.query("select 1 from test_plans where episode_id = $1", [episode.id]);

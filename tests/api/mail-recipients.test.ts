@@ -125,7 +125,8 @@ describe("mail checks its recipient when it is sent", () => {
     const token = (sent.body.url as string).split("/review/")[1]!;
     const contactVisitor = await kerf.visitor();
     await contactVisitor.get(`/api/review/${token}`).expect(200);
-    await contactVisitor.send("post", `/api/review/${token}/decision`, { decision: "approved", comment: "Looks right.\nShip it." }).expect(200);
+    const { seen } = (await contactVisitor.get(`/api/review/${token}`).expect(200)).body;
+    await contactVisitor.send("post", `/api/review/${token}/decision`, { decision: "approved", comment: "Looks right.\nShip it.", seen }).expect(200);
 
     for (const person of [world.owner, secondProducer]) {
       const mail = await waitForMail(person.email);

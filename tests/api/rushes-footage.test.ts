@@ -6,6 +6,8 @@ import type { Response } from "superagent";
 import { parseEdl } from "../../shared/rushes/exports/edl-parse";
 import { formatOfEdlRate } from "../../shared/rushes/exports/edl-rates";
 import { clipMarks, clips } from "../../server/db/schema/rushes";
+import { createCrewedChannel } from "../factories/accounts";
+import { createIteration, createRun } from "../factories/bench";
 import { createEpisode } from "../factories/episodes";
 import { clipValues, createClip, createShootDay, createShot } from "../factories/rushes";
 import { readLikeOtio } from "../support/cmx3600-otio-rules";
@@ -71,6 +73,8 @@ describe("shoot days and the shot list", () => {
       .send("post", `${world.base}/episodes/${world.episode.id}/shoot-days`, { day: "2026-03-01", crewIds: ["00000000-0000-4000-8000-000000000001"] })
       .expect(400);
     expect(stranger.body.error.fields.crewIds).toBe("Everyone on a shoot day must be a member of this channel.");
+    const yearZero = await world.as.owner.send("post", `${world.base}/episodes/${world.episode.id}/shoot-days`, { day: "0000-01-01", crewIds: [] }).expect(400);
+    expect(yearZero.body.error.fields.day).toBeTruthy();
   });
 
   it("when a shot is linked to a clip of another episode, then it is refused", async () => {
@@ -79,6 +83,45 @@ describe("shoot days and the shot list", () => {
     const clip = await createClip(app.db, world.channel.id, world.episode.id);
     const response = await world.as.editor.send("patch", `${world.base}/clips/${clip.id}`, { shotId: shot.id }).expect(400);
     expect(response.body.error.fields.shotId).toBe("Choose a shot of this clip's episode.");
+  });
+});
+
+describe("a clip's bench run and build iteration", () => {
+  it("when a clip names a run or iteration of another episode or channel, or none at all, then it answers 400 on that field and the clip keeps its links", async () => {
+    const clip = await createClip(app.db, world.channel.id, world.episode.id);
+    const url = `${world.base}/clips/${clip.id}`;
+    const ownRun = await createRun(app.db, world.channel.id, world.episode.id, world.owner.id);
+    const ownIteration = await createIteration(app.db, world.channel.id, world.episode.id, world.owner.id);
+    const linked = await world.as.editor.send("patch", url, { benchRunId: ownRun.id, buildIterationId: ownIteration.id }).expect(200);
+    expect(linked.body.clip).toMatchObject({ benchRunId: ownRun.id, buildIterationId: ownIteration.id });
+
+    const otherEpisode = await createEpisode(app.db, world.channel.id, { title: "Another build" });
+    const elsewhere = await createCrewedChannel(app.db, "Elsewhere Bench");
+    const elsewhereEpisode = await createEpisode(app.db, elsewhere.channel.id, { title: "Theirs" });
+    const refused = [
+      { benchRunId: (await createRun(app.db, world.channel.id, otherEpisode.id, world.owner.id)).id },
+      { benchRunId: (await createRun(app.db, elsewhere.channel.id, elsewhereEpisode.id, elsewhere.owner.id)).id },
+      { benchRunId: "00000000-0000-4000-8000-000000000001" },
+      { buildIterationId: (await createIteration(app.db, world.channel.id, otherEpisode.id, world.owner.id)).id },
+      { buildIterationId: (await createIteration(app.db, elsewhere.channel.id, elsewhereEpisode.id, elsewhere.owner.id)).id },
+    ];
+    for (const patch of refused) {
+      const response = await world.as.editor.send("patch", url, patch);
+      const seen = `${JSON.stringify(patch)}: ${response.status} ${JSON.stringify(response.body)}`;
+      expect(response.status, seen).toBe(400);
+      expect(Object.keys(response.body.error.fields), seen).toEqual(Object.keys(patch));
+    }
+    const after = await world.as.editor.get(url).expect(200);
+    expect(after.body.clip).toMatchObject({ benchRunId: ownRun.id, buildIterationId: ownIteration.id });
+  });
+
+  it("when a linked run or iteration is deleted, then the clip stays and its link is cleared", async () => {
+    const clip = await createClip(app.db, world.channel.id, world.episode.id);
+    const run = await createRun(app.db, world.channel.id, world.episode.id, world.owner.id);
+    await world.as.editor.send("patch", `${world.base}/clips/${clip.id}`, { benchRunId: run.id }).expect(200);
+    await app.database.pool.query("delete from bench_runs where id = $1", [run.id]);
+    const after = await world.as.editor.get(`${world.base}/clips/${clip.id}`).expect(200);
+    expect(after.body.clip.benchRunId).toBeNull();
   });
 });
 
@@ -208,6 +251,25 @@ describe("the footage list", () => {
     expect(stale.body.error.fields.cursor).toBe("Not a page of this list.");
   });
 
+  it("when a cursor is well formed but its value is not of the sort's kind, then it answers 400, not 500", async () => {
+    const id = "00000000-0000-4000-8000-000000000001";
+    const forged = (v: unknown) => Buffer.from(JSON.stringify([v, id])).toString("base64url");
+    const cases: [string, unknown][] = [
+      ["recorded", "not a time"],
+      ["recorded", "0000-01-01 00:00:00+00"],
+      ["uploaded", "2026-02-30 10:00:00+00"],
+      ["duration", "ten"],
+      ["duration", 1e30],
+      ["size", "9".repeat(40)],
+      ["name", "nul\u0000byte"],
+    ];
+    for (const [sort, v] of cases) {
+      const response = await world.as.editor.get(`${world.base}/clips?sort=${sort}&cursor=${forged(v)}`);
+      expect(response.status, `${sort} ${JSON.stringify(v)}: ${JSON.stringify(response.body)}`).toBe(400);
+      expect(response.body.error.fields.cursor).toBe("Not a page of this list.");
+    }
+  });
+
   it("when another channel's member asks, then they see none of it", async () => {
     const { createUser, createChannel } = await import("../factories/accounts");
     const outsider = await createUser(app.db);
@@ -296,6 +358,27 @@ describe("bulk download and photos", () => {
     expect(body.includes(Buffer.from("zip-one.mov"))).toBe(true);
     expect(body.includes(Buffer.from("zip-one (2).mov"))).toBe(true);
     expect(body.includes(patternBytes(5000, 2))).toBe(true);
+  });
+
+  it("when a chosen clip's file is missing from storage, then the zip holds the others and a MISSING.txt naming it; all missing is a 404", async () => {
+    const present = await uploadFile(world.as.editor, world.base, world.episode.id, "kept-take.mov", patternBytes(2000, 3));
+    const lost = await createClip(app.db, world.channel.id, world.episode.id, { fileName: "lost-take.mov" });
+    const response = await world.as.editor
+      .get(`${world.base}/exports/footage.zip?ids=${lost.id},${present.body.clip.id}`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c: Buffer) => chunks.push(c));
+        res.on("end", () => done(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    const body = response.body as Buffer;
+    expect(body.includes(patternBytes(2000, 3))).toBe(true);
+    expect(body.includes(Buffer.from("MISSING.txt"))).toBe(true);
+    expect(body.includes(Buffer.from("lost-take.mov"))).toBe(true);
+
+    const none = await world.as.editor.get(`${world.base}/exports/footage.zip?ids=${lost.id}`).expect(404);
+    expect(none.body.error.message).toMatch(/lost-take\.mov/);
   });
 
   it("when a photo streams through the server, then it is stored and readable; a wrong type is 415 and a big one 413", async () => {

@@ -136,10 +136,10 @@ describe("the sponsor's review page", () => {
     expect(noToken.body.error.code).toBe("csrf_failed");
     expect(await itemStatus(sent.item.id)).toBe("sent");
 
-    const blank = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "" }).expect(400);
+    const blank = await decideAsSeen(visitor, sent.token, { decision: "changes_asked", comment: "" }, 400);
     expect(blank.body.error.fields).toEqual({ comment: "Say what should change." });
 
-    const decided = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Please mention the two-year warranty." }).expect(200);
+    const decided = await decideAsSeen(visitor, sent.token, { decision: "changes_asked", comment: "Please mention the two-year warranty." }, 200);
     expect(decided.body).toMatchObject({ state: "decided", decision: "changes_asked", contactName: "Rosa Lindgren" });
     expect(await itemStatus(sent.item.id)).toBe("changes_asked");
 
@@ -156,9 +156,10 @@ describe("the sponsor's review page", () => {
   it("when a used link is opened or decided again, then it says it was used and changes nothing", async () => {
     const sent = await sentLink();
     const visitor = await app.visitor();
-    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(200);
+    const { seen } = (await visitor.get(`/api/review/${sent.token}`).expect(200)).body;
+    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen }).expect(200);
     expect(await itemStatus(sent.item.id)).toBe("approved");
-    const again = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Actually, no." }).expect(410);
+    const again = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Actually, no.", seen }).expect(410);
     expect(again.body.error.message).toMatch(/already been used/);
     expect(await itemStatus(sent.item.id)).toBe("approved");
     expect((await visitor.get(`/api/review/${sent.token}`).expect(200)).body).toMatchObject({ state: "decided", decision: "approved" });
@@ -167,9 +168,10 @@ describe("the sponsor's review page", () => {
   it("when two decisions arrive at once, then exactly one is recorded", async () => {
     const sent = await sentLink();
     const [a, b] = await Promise.all([app.visitor(), app.visitor()]);
+    const { seen } = (await a.get(`/api/review/${sent.token}`).expect(200)).body;
     const answers = await Promise.all([
-      a.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }),
-      b.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Shorter, please." }),
+      a.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen }),
+      b.send("post", `/api/review/${sent.token}/decision`, { decision: "changes_asked", comment: "Shorter, please.", seen }),
     ]);
     expect(answers.map((r) => r.status).sort()).toEqual([200, 410]);
     const events = await app.database.pool.query("select count(*)::int as n from deliverable_events where deliverable_id = $1 and what = 'review_decision'", [sent.item.id]);
@@ -182,7 +184,7 @@ describe("the sponsor's review page", () => {
     expect(await itemStatus(sent.item.id)).toBe("not_started");
     const visitor = await app.visitor();
     expect((await visitor.get(`/api/review/${sent.token}`).expect(200)).body).toEqual({ state: "revoked", channelName: "Review Bench" });
-    const refused = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(410);
+    const refused = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen: "AAAAAAAAAAAAAAAAAAAAAA" }).expect(410);
     expect(refused.body.error.message).toMatch(/withdrawn/);
     expect(await itemStatus(sent.item.id)).toBe("not_started");
   });
@@ -190,7 +192,7 @@ describe("the sponsor's review page", () => {
   it("when a used link is revoked, then the decision stands", async () => {
     const sent = await sentLink();
     const visitor = await app.visitor();
-    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(200);
+    await decideAsSeen(visitor, sent.token, { decision: "approved", comment: null }, 200);
     await producer.send("delete", api(`/deals/${sent.deal.id}/review-links/${sent.link.id}`)).expect(409);
     expect(await itemStatus(sent.item.id)).toBe("approved");
   });
@@ -203,7 +205,7 @@ describe("the sponsor's review page", () => {
     const token = reviewTokens(app.deps.env.SESSION_SECRET).sign(sent.link.id, past);
     const visitor = await app.visitor();
     expect((await visitor.get(`/api/review/${token}`).expect(200)).body).toEqual({ state: "expired", channelName: "Review Bench" });
-    const refused = await visitor.send("post", `/api/review/${token}/decision`, { decision: "approved", comment: null }).expect(410);
+    const refused = await visitor.send("post", `/api/review/${token}/decision`, { decision: "approved", comment: null, seen: "AAAAAAAAAAAAAAAAAAAAAA" }).expect(410);
     expect(refused.body.error.message).toMatch(/expired/);
     expect(await itemStatus(sent.item.id)).toBe("sent");
     // And the old token, whose signed expiry no longer matches the row, is not a link at all.
@@ -221,7 +223,7 @@ describe("the sponsor's review page", () => {
     for (const token of [`${id}.${expiry}.${flipped}`, laterExpiry, forged, otherId, "nonsense", ""]) {
       const answer = await visitor.get(`/api/review/${encodeURIComponent(token)}`);
       expect(answer.status, token).toBe(404);
-      const decision = await visitor.send("post", `/api/review/${encodeURIComponent(token)}/decision`, { decision: "approved", comment: null });
+      const decision = await visitor.send("post", `/api/review/${encodeURIComponent(token)}/decision`, { decision: "approved", comment: null, seen: "AAAAAAAAAAAAAAAAAAAAAA" });
       expect(decision.status, token).toBe(404);
     }
     expect(await itemStatus(sent.item.id)).toBe("sent");
@@ -238,7 +240,7 @@ describe("the sponsor's review page", () => {
       [world.channel.id, sent.episode.id, key, bytes.length],
     );
     const editor = await app.signedIn(world.editor);
-    const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null }).expect(200);
+    const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null, version: 1 }).expect(200);
     expect(set.body.deal.cut.clip).toEqual({ id: clip.rows[0].id, fileName: "segment-v2.mp4", durationSeconds: 62 });
 
     const page = await (await app.visitor()).get(`/api/review/${sent.token}`).expect(200);
@@ -254,7 +256,97 @@ describe("the sponsor's review page", () => {
       `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, recorded_at) values ($1, $2, $3, 'x.mp4', 'video/mp4', 1, now()) returning id`,
       [world.channel.id, elsewhere.id, `${key}-other`],
     );
-    const wrong = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: otherClip.rows[0].id, timing: null }).expect(400);
+    const wrong = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: otherClip.rows[0].id, timing: null, version: 2 }).expect(400);
     expect(wrong.body.error.fields).toEqual({ clipId: "Pick a clip of this episode's footage." });
+  });
+});
+
+/** The decision as the page sends it: with what the page showed when it was read. */
+async function decideAsSeen(visitor: Visitor, token: string, body: { decision: string; comment: string | null }, status: number) {
+  const page = await visitor.get(`/api/review/${token}`).expect(200);
+  return visitor.send("post", `/api/review/${token}/decision`, { ...body, seen: page.body.seen }).expect(status);
+}
+
+async function linkRow(id: string) {
+  return (await app.database.pool.query("select decided_at, decision from review_links where id = $1", [id])).rows[0];
+}
+
+describe("a review link closes with what it belongs to", () => {
+  const closings: [string, (sent: Awaited<ReturnType<typeof sentLink>>) => Promise<unknown>, RegExp][] = [
+    ["the contact is deleted", (sent) => producer.send("delete", api(`/sponsors/${sent.sponsor.id}/contacts/${sent.contact.id}`)).expect(204), /no longer lists you/],
+    ["the deal is cancelled", (sent) => app.database.pool.query("update deals set state = 'cancelled' where id = $1", [sent.deal.id]), /deal was cancelled/],
+    ["the item is removed", (sent) => producer.send("delete", api(`/deliverables/${sent.item.id}`)).expect(204), /item .* was removed/],
+    ["the item is marked done", (sent) => app.database.pool.query("update deliverables set status = 'done' where id = $1", [sent.item.id]), /already settled/],
+  ];
+
+  it.each(closings)("when %s, then the link's page says it closed, a decision answers 410 and nothing is used up or changed", async (_when, close, reason) => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const opened = await visitor.get(`/api/review/${sent.token}`).expect(200);
+    await close(sent);
+    const statusBefore = (await app.database.pool.query("select status::text from deliverables where id = $1", [sent.item.id])).rows[0]?.status ?? null;
+
+    const page = await visitor.get(`/api/review/${sent.token}`).expect(200);
+    expect(page.body).toMatchObject({ state: "closed", channelName: "Review Bench", reason: expect.stringMatching(reason) });
+    const refused = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen: opened.body.seen }).expect(410);
+    expect(refused.body.error).toMatchObject({ code: "gone", message: expect.stringMatching(reason) });
+    expect(await linkRow(sent.link.id)).toMatchObject({ decided_at: null, decision: null });
+    const statusAfter = (await app.database.pool.query("select status::text from deliverables where id = $1", [sent.item.id])).rows[0]?.status ?? null;
+    expect(statusAfter).toBe(statusBefore);
+    expect((await app.database.pool.query("select count(*)::int as n from deliverable_events where deliverable_id = $1 and what = 'review_decision'", [sent.item.id])).rows[0].n).toBe(0);
+  });
+
+  it("when the deal is cancelled, then the producer sees the link closed and can't send a new one", async () => {
+    const sent = await sentLink();
+    await app.database.pool.query("update deals set state = 'cancelled' where id = $1", [sent.deal.id]);
+    const deal = (await producer.get(api(`/deals/${sent.deal.id}`)).expect(200)).body.deal as DealView;
+    expect(deal.reviewLinks![0]).toMatchObject({ id: sent.link.id, state: "closed" });
+    const refused = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: sent.contact.id }).expect(409);
+    expect(refused.body.error.message).toBe("This deal is cancelled: there is nothing left for the sponsor to review.");
+  });
+
+  it("when the item is already done, then no link is sent for it", async () => {
+    const sent = await sentLink();
+    await app.database.pool.query("update deliverables set status = 'done' where id = $1", [sent.item.id]);
+    const refused = await producer.send("post", api(`/deals/${sent.deal.id}/review-links`), { deliverableId: sent.item.id, contactId: sent.contact.id }).expect(400);
+    expect(refused.body.error.fields).toEqual({ deliverableId: "This item is already settled (Done); pick one still open." });
+    expect((await app.database.pool.query("select count(*)::int as n from review_links where deal_id = $1", [sent.deal.id])).rows[0].n).toBe(1);
+  });
+});
+
+describe("a decision applies to what the sponsor saw", () => {
+  it("when the script changes after the page was read, then the decision answers 409 with the page as it is now and changes nothing", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const seen = (await visitor.get(`/api/review/${sent.token}`).expect(200)).body.seen as string;
+    expect(seen).toMatch(/^[A-Za-z0-9_-]{16,}$/);
+    await app.database.pool.query("update deals set script = $2 where id = $1", [sent.deal.id, `${SCRIPT} Now with a lifetime warranty.`]);
+
+    const stale = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen }).expect(409);
+    expect(stale.body.error).toMatchObject({ code: "conflict", message: "The channel changed this review after you opened it. Read it again below, then decide." });
+    expect(stale.body.page).toMatchObject({ state: "open", script: `${SCRIPT} Now with a lifetime warranty.` });
+    expect(stale.body.page.seen).not.toBe(seen);
+    expect(await linkRow(sent.link.id)).toMatchObject({ decided_at: null });
+    expect(await itemStatus(sent.item.id)).toBe("sent");
+
+    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen: stale.body.page.seen }).expect(200);
+    expect(await itemStatus(sent.item.id)).toBe("approved");
+  });
+
+  it("when the item's status was changed after the page was read, then the old page's decision does not flip it", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const seen = (await visitor.get(`/api/review/${sent.token}`).expect(200)).body.seen as string;
+    await app.database.pool.query("update deliverables set status = 'changes_asked' where id = $1", [sent.item.id]);
+    await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null, seen }).expect(409);
+    expect(await itemStatus(sent.item.id)).toBe("changes_asked");
+  });
+
+  it("when the decision names no page it saw, then it is refused", async () => {
+    const sent = await sentLink();
+    const visitor = await app.visitor();
+    const refused = await visitor.send("post", `/api/review/${sent.token}/decision`, { decision: "approved", comment: null }).expect(400);
+    expect(refused.body.error.fields).toEqual({ seen: "Reload the page, then decide." });
+    expect(await itemStatus(sent.item.id)).toBe("sent");
   });
 });

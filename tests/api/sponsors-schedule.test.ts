@@ -93,7 +93,7 @@ describe("when the publish date moves", () => {
     const episode = await createEpisode(app.db, world.channel.id, { targetPublishDate: "2027-03-02" });
     const sponsor = await createSponsor(app.db, world.channel.id);
     const made = await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, publishDate: "2027-03-02" });
-    await producer.send("patch", api(`/deals/${made.deal.id}`), { goLiveDate: "2027-03-10" }).expect(200);
+    await producer.send("patch", api(`/deals/${made.deal.id}`), { goLiveDate: "2027-03-10", version: 1 }).expect(200);
     expect((await datesOf(made.deal.id)).report).toBe("2027-04-09"); // 10 Mar + 30: 10 Mar + 21 = 31 Mar, + 9 = 9 Apr
     await app.database.pool.query("update episodes set target_publish_date = '2027-03-20' where id = $1", [episode.id]);
     await followPublishDate(app.db, { channelId: world.channel.id, episodeId: episode.id });

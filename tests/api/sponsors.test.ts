@@ -94,7 +94,7 @@ describe("sponsors and contacts", () => {
     const elsewhere = await createCrewedChannel(app.db, "Elsewhere");
     const theirs = await createSponsor(app.db, elsewhere.channel.id);
     await as.producer.get(api(`/sponsors/${theirs.id}`)).expect(404);
-    await as.producer.send("patch", api(`/sponsors/${theirs.id}`), { company: "Mine now", website: null, notes: null }).expect(404);
+    await as.producer.send("patch", api(`/sponsors/${theirs.id}`), { company: "Mine now", website: null, notes: null, version: 1 }).expect(404);
     const kept = await app.database.pool.query("select company from sponsors where id = $1", [theirs.id]);
     expect(kept.rows).toEqual([{ company: theirs.company }]);
   });
@@ -190,9 +190,9 @@ describe("the fee is for owner and producer only", () => {
   });
 
   it("when the editor tries to change the fee or reach an invoice item, then it is refused and nothing changes", async () => {
-    await as.editor.send("put", api(`/deals/${dealId}/money`), { fee: 1, currency: "EUR", paymentTermsDays: 0, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null }).expect(403);
+    await as.editor.send("put", api(`/deals/${dealId}/money`), { fee: 1, currency: "EUR", paymentTermsDays: 0, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null, version: 1 }).expect(403);
     const invoice = await app.database.pool.query("select id from deliverables where deal_id = $1 and kind = 'invoice'", [dealId]);
-    const refused = await as.editor.send("patch", api(`/deliverables/${invoice.rows[0].id}`), { status: "done" }).expect(404);
+    const refused = await as.editor.send("patch", api(`/deliverables/${invoice.rows[0].id}`), { status: "done", version: 1 }).expect(404);
     expect(JSON.stringify(refused.body)).not.toContain("invoice");
     const after = await app.database.pool.query("select fee_amount, (select status from deliverables where id = $2) as status from deals where id = $1", [dealId, invoice.rows[0].id]);
     expect(after.rows[0]).toEqual({ fee_amount: "4321.00", status: "not_started" });
@@ -209,18 +209,23 @@ describe("who may change a deliverable", () => {
     dealId = made.deal.id;
     itemOf = (kind) => made.items.find((i) => i.kind === kind)!.id;
   });
+  /** A change of an item as its editor sends it: against the version the item has now. */
+  const change = async (as: Visitor, kind: string, body: object, status: number) => {
+    const { version } = (await app.database.pool.query("select version from deliverables where id = $1", [itemOf(kind)])).rows[0];
+    return as.send("patch", api(`/deliverables/${itemOf(kind)}`), { ...body, version }).expect(status);
+  };
 
   it("when the editor marks the draft cut sent, then it changes and the history names them", async () => {
-    const done = await as.editor.send("patch", api(`/deliverables/${itemOf("draft_cut")}`), { status: "sent", note: "Uploaded v2" }).expect(200);
+    const done = await change(as.editor, "draft_cut", { status: "sent", note: "Uploaded v2" }, 200);
     const item = done.body.deal.deliverables.find((d: { kind: string }) => d.kind === "draft_cut");
     expect(item.status).toBe("sent");
     expect(item.history[0]).toMatchObject({ what: "status", actorName: "Edda Editor", fromStatus: "not_started", toStatus: "sent", note: "Uploaded v2" });
   });
 
   it("when the editor tries anything else, then it is refused and the item is as it was", async () => {
-    await as.editor.send("patch", api(`/deliverables/${itemOf("draft_cut")}`), { offsetDays: 1 }).expect(403);
-    await as.editor.send("patch", api(`/deliverables/${itemOf("script_draft")}`), { status: "done" }).expect(403);
-    await as.crew.send("patch", api(`/deliverables/${itemOf("draft_cut")}`), { status: "done" }).expect(403);
+    await change(as.editor, "draft_cut", { offsetDays: 1 }, 403);
+    await change(as.editor, "script_draft", { status: "done" }, 403);
+    await change(as.crew, "draft_cut", { status: "done" }, 403);
     const rows = await app.database.pool.query("select kind, status, due_date::text from deliverables where deal_id = $1 and kind in ('draft_cut', 'script_draft') order by kind::text", [dealId]);
     expect(rows.rows).toEqual([
       { kind: "draft_cut", status: "sent", due_date: "2027-06-23" }, // 30 June − 7
@@ -229,20 +234,20 @@ describe("who may change a deliverable", () => {
   });
 
   it("when the producer sets a fixed date, then the item keeps it and says so", async () => {
-    const changed = await as.producer.send("patch", api(`/deliverables/${itemOf("report")}`), { anchor: "fixed", fixedDate: "2027-08-15" }).expect(200);
+    const changed = await change(as.producer, "report", { anchor: "fixed", fixedDate: "2027-08-15" }, 200);
     const item = changed.body.deal.deliverables.find((d: { kind: string }) => d.kind === "report");
     expect(item).toMatchObject({ anchor: "fixed", dueDate: "2027-08-15" });
     expect(item.history[0]).toMatchObject({ what: "due_moved", fromDate: "2027-07-30", toDate: "2027-08-15" }); // 30 June + 30 = 30 July
-    const bad = await as.producer.send("patch", api(`/deliverables/${itemOf("report")}`), { status: "later" }).expect(400);
+    const bad = await change(as.producer, "report", { status: "later" }, 400);
     expect(bad.body.error.fields).toEqual({ status: "Pick a status." });
   });
 
   it("when an open item's date has passed, then it reads as late, counted in days", async () => {
     const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
-    await as.producer.send("patch", api(`/deliverables/${itemOf("script_approval")}`), { anchor: "fixed", fixedDate: yesterday }).expect(200);
+    await change(as.producer, "script_approval", { anchor: "fixed", fixedDate: yesterday }, 200);
     const deal = (await as.producer.get(api(`/deals/${dealId}`)).expect(200)).body.deal as DealView;
     expect(deal.deliverables.find((d) => d.kind === "script_approval")).toMatchObject({ late: true, daysLate: 1 });
-    await as.producer.send("patch", api(`/deliverables/${itemOf("script_approval")}`), { status: "approved" }).expect(200);
+    await change(as.producer, "script_approval", { status: "approved" }, 200);
     const after = (await as.producer.get(api(`/deals/${dealId}`)).expect(200)).body.deal as DealView;
     expect(after.deliverables.find((d) => d.kind === "script_approval")).toMatchObject({ late: false, daysLate: 0 });
   });
@@ -256,7 +261,7 @@ describe("the read", () => {
     const made = await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, talkingPoints: ["Holds 0.1 mV ripple", "Two-year warranty"] });
     await as.producer.send("put", api(`/speaking-rates/${world.owner.id}`), { wordsPerMinute: 120 }).expect(200);
     const script = "This video is sponsored by Northbeam. Their supply holds 0.1 mV ripple. Get ten percent off at northbeam.example/gantry with code GANTRY10.";
-    const changed = await as.producer.send("patch", api(`/deals/${made.deal.id}`), { script, hostId: world.owner.id, contactId: contact.id }).expect(200);
+    const changed = await as.producer.send("patch", api(`/deals/${made.deal.id}`), { script, hostId: world.owner.id, contactId: contact.id, version: 1 }).expect(200);
     const deal: DealView = changed.body.deal;
     // 6 + 6 + 9 = 21 words at the host's 120 words a minute: 21 ÷ 120 × 60 = 10.5 s, against 60 s contracted.
     expect(deal.read).toMatchObject({ words: 21, wordsPerMinute: 120, estimatedSeconds: 10.5, contractedSeconds: 60, overBySeconds: -49.5, pointsCovered: 1, linkInScript: true, codeInScript: true });
@@ -275,15 +280,15 @@ describe("the read", () => {
     // 29.97 DF: 00:10:00;00 to 00:11:00;02 is 1800 frames, as 00:00:00;00 to 00:01:00;02 is (OpenTimelineIO,
     // tests/test_opentime.py, TestTime.test_dropframe_timecode_2997fps: 30 × 59 + 30 = 1800); 1800 × 1001 / 30000 = 60.06 s.
     const set = await as.editor
-      .send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: { inTimecode: "00:10:00;00", outTimecode: "00:11:00;02", frameRate: "29.97", dropFrame: true } })
+      .send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: { inTimecode: "00:10:00;00", outTimecode: "00:11:00;02", frameRate: "29.97", dropFrame: true }, version: 1 })
       .expect(200);
     expect(set.body.deal.cut.timing.measuredSeconds).toBeCloseTo(60.06, 6);
     const bad = await as.editor
-      .send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: { inTimecode: "00:01:00;00", outTimecode: "00:00:10;00", frameRate: "29.97", dropFrame: true } })
+      .send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: { inTimecode: "00:01:00;00", outTimecode: "00:00:10;00", frameRate: "29.97", dropFrame: true }, version: 2 })
       .expect(400);
     // 00:01:00;00 is a label drop-frame skips (minute 1 is not divisible by ten).
     expect(bad.body.error.fields).toEqual({ "timing.inTimecode": expect.stringMatching(/.+/) });
-    await as.crew.send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: null }).expect(403);
+    await as.crew.send("put", api(`/deals/${made.deal.id}/cut`), { clipId: null, timing: null, version: 2 }).expect(403);
     const kept = await app.database.pool.query("select cut_in, cut_out from deals where id = $1", [made.deal.id]);
     expect(kept.rows[0]).toEqual({ cut_in: "00:10:00;00", cut_out: "00:11:00;02" });
   });

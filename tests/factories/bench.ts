@@ -5,7 +5,7 @@ import type { Database } from "../../server/db/client";
 import { insertIteration } from "../../server/bench/build-log.repository";
 import { insertRun } from "../../server/bench/runs.repository";
 import { insertPart } from "../../server/bench/shelf.repository";
-import { insertCriterion, insertHazard, updateHazard, upsertPlan } from "../../server/bench/test-plan.repository";
+import { findPlan, insertCriterion, insertHazard, savePlan, updateHazard } from "../../server/bench/test-plan.repository";
 
 export const q = (value: number, unit: string) => ({ value, unit });
 
@@ -28,7 +28,8 @@ export async function createPart(db: Database, channelId: string, overrides: Par
 
 export async function saveTestPlan(db: Database, channelId: string, episodeId: string, userId: string, overrides: Partial<TestPlanInput> = {}) {
   const input: TestPlanInput = { hypothesis: "It lifts itself.", method: "Clamp it and read the scale.", quantities: [], airframeMass: q(420, "g"), ...overrides };
-  await upsertPlan(db, channelId, episodeId, input, userId);
+  const current = await findPlan(db, channelId, episodeId);
+  await savePlan(db, channelId, episodeId, current?.version ?? 0, input, userId);
   return input;
 }
 

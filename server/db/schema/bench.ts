@@ -1,5 +1,5 @@
 import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
-import { id, timestamps } from "./columns";
+import { id, timestamps, version } from "./columns";
 import type { Criterion } from "../../../shared/bench/criteria";
 import type { Quantity } from "../../../shared/bench/quantity";
 import { iterationOutcomes, partKinds, type PlannedQuantity, type RunInput, type Supply } from "../../../shared/bench/schemas";
@@ -23,6 +23,7 @@ export const testPlans = pgTable("test_plans", {
   quantities: jsonb("quantities").$type<PlannedQuantity[]>().notNull().default([]),
   airframeMass: jsonb("airframe_mass").$type<Quantity>(),
   updatedBy: personRef("updated_by"),
+  version: version(),
   ...timestamps(),
 });
 
@@ -34,6 +35,7 @@ export const testCriteria = pgTable(
     episodeId: episodeRef(),
     position: integer("position").notNull(),
     definition: jsonb("definition").$type<Criterion>().notNull(),
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("test_criteria_episode_idx").on(table.channelId, table.episodeId, table.position)],
@@ -69,6 +71,7 @@ export const benchParts = pgTable(
     priceCurrency: text("price_currency"),
     supplier: text("supplier").notNull().default(""),
     notes: text("notes").notNull().default(""),
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("bench_parts_channel_idx").on(table.channelId, table.name)],
@@ -87,6 +90,7 @@ export const benchRuns = pgTable(
     measurements: jsonb("measurements").$type<RunInput["measurements"]>().notNull().default({}),
     notes: text("notes").notNull().default(""),
     createdBy: personRef("created_by"),
+    version: version(),
     ...timestamps(),
   },
   (table) => [unique("bench_runs_episode_number_key").on(table.episodeId, table.number), index("bench_runs_channel_episode_idx").on(table.channelId, table.episodeId)],
@@ -122,6 +126,7 @@ export const buildIterations = pgTable(
     chosenRunId: uuid("chosen_run_id").references(() => benchRuns.id, { onDelete: "set null" }),
     notes: text("notes").notNull().default(""),
     createdBy: personRef("created_by"),
+    version: version(),
     ...timestamps(),
   },
   (table) => [unique("build_iterations_episode_number_key").on(table.episodeId, table.number), index("build_iterations_channel_episode_idx").on(table.channelId, table.episodeId)],

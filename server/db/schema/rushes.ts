@@ -4,6 +4,7 @@ import { createdAt, id } from "./columns";
 import { clipRatings, shotKinds, shotPriorities, shotStatuses, uploadStatuses } from "../../../shared/rushes/vocabulary";
 import type { ClipMetadata } from "../../../shared/rushes/schemas";
 import { channelRef, personRef, users } from "./accounts";
+import { benchRuns, buildIterations } from "./bench";
 import { episodeRef, episodes } from "./slate";
 
 export const shotKindEnum = pgEnum("shot_kind", shotKinds);
@@ -114,9 +115,9 @@ export const clips = pgTable(
     episodeId: episodeRef(),
     shootDayId: uuid("shoot_day_id").references(() => shootDays.id, { onDelete: "set null" }),
     shotId: uuid("shot_id").references(() => shots.id, { onDelete: "set null" }),
-    // Bench runs and build iterations belong to the bench feature; linked by id only.
-    benchRunId: uuid("bench_run_id"),
-    buildIterationId: uuid("build_iteration_id"),
+    // The bench run or build iteration the clip shows: of the clip's own episode (the service checks).
+    benchRunId: uuid("bench_run_id").references(() => benchRuns.id, { onDelete: "set null" }),
+    buildIterationId: uuid("build_iteration_id").references(() => buildIterations.id, { onDelete: "set null" }),
     uploadedBy: personRef("uploaded_by"),
     objectKey: text("object_key").notNull().unique(),
     posterKey: text("poster_key"),

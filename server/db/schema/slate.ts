@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
-import { bigint, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
-import { createdAt, id, updatedAt } from "./columns";
+import { bigint, date, index, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { createdAt, id, updatedAt, version } from "./columns";
 import { origins } from "../../../shared/slate/schemas";
 import type { GateProblem } from "../../../shared/slate/gates";
 import type { StageLengths } from "../../../shared/slate/schedule";
@@ -27,7 +27,7 @@ export const episodes = pgTable(
     // Fractional index, compared byte by byte (the column is COLLATE "C", set in the migration
     // slate_board_revision): a move rewrites one row, never the column.
     rank: text("rank").notNull(),
-    version: integer("version").notNull().default(1),
+    version: version(),
     ownerId: personRef("owner_id"),
     targetPublishDate: date("target_publish_date"),
     // When the current stage began; the history holds every stay, this is the board's shortcut.

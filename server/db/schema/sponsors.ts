@@ -1,5 +1,5 @@
 import { boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
-import { createdAt, id, timestamps, updatedAt } from "./columns";
+import { createdAt, id, timestamps, updatedAt, version } from "./columns";
 import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
 import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
 import { channelRef, channels, personRef, users } from "./accounts";
@@ -21,6 +21,7 @@ export const sponsors = pgTable(
     company: text("company").notNull(),
     website: text("website"),
     notes: text("notes"),
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("sponsors_channel_idx").on(table.channelId)],
@@ -37,6 +38,7 @@ export const sponsorContacts = pgTable(
     name: text("name").notNull(),
     email: text("email").notNull(),
     role: text("role"),
+    version: version(),
     createdAt: createdAt(),
   },
   (table) => [index("sponsor_contacts_sponsor_idx").on(table.sponsorId)],
@@ -50,6 +52,7 @@ export const dealTemplates = pgTable(
     name: text("name").notNull(),
     // Checked by templateInputSchema on the way in; read whole, never queried inside.
     items: jsonb("items").$type<DealTemplate["items"]>().notNull(),
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("deal_templates_channel_idx").on(table.channelId)],
@@ -95,6 +98,8 @@ export const deals = pgTable(
     cutFrameRate: text("cut_frame_rate"),
     cutDropFrame: boolean("cut_drop_frame"),
     createdBy: personRef("created_by"),
+    // Raised by every save of the deal's own fields (segment, script, money, cut), not by re-dating.
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("deals_channel_episode_idx").on(table.channelId, table.episodeId), index("deals_sponsor_idx").on(table.sponsorId)],
@@ -116,6 +121,7 @@ export const deliverables = pgTable(
     status: deliverableStatusEnum("status").notNull().default("not_started"),
     ownerId: personRef("owner_id"),
     position: integer("position").notNull().default(0),
+    version: version(),
     ...timestamps(),
   },
   (table) => [index("deliverables_deal_idx").on(table.dealId), index("deliverables_channel_due_idx").on(table.channelId, table.dueDate)],
@@ -154,9 +160,8 @@ export const reviewLinks = pgTable(
     dealId: uuid("deal_id")
       .notNull()
       .references(() => deals.id, { onDelete: "cascade" }),
-    deliverableId: uuid("deliverable_id")
-      .notNull()
-      .references(() => deliverables.id, { onDelete: "cascade" }),
+    // Kept when the item or the contact is removed (null), so the link can say why it closed.
+    deliverableId: uuid("deliverable_id").references(() => deliverables.id, { onDelete: "set null" }),
     contactId: uuid("contact_id").references(() => sponsorContacts.id, { onDelete: "set null" }),
     // Copied at sending: the decision is recorded under the name the link was sent to.
     contactName: text("contact_name").notNull(),

@@ -65,7 +65,8 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const episode = await freshEpisode();
         return {
           params: { episodeId: episode.id },
-          body: { hypothesis: "Matrix hypothesis", method: "", quantities: [], airframeMass: null },
+          // Version 0: the episode has no sheet yet.
+          body: { hypothesis: "Matrix hypothesis", method: "", quantities: [], airframeMass: null, version: 0 },
           intact: async () => expect(await count("test_plans", "episode_id", episode.id)).toBe(0),
         };
       },
@@ -84,7 +85,7 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const criterion = await createCriterion(app.db, channelId, episode.id);
         return {
           params: { episodeId: episode.id, criterionId: criterion.id },
-          body: criterionBody,
+          body: { ...criterionBody, version: 1 },
           intact: async () => expect((await rows("select definition->>'metric' as metric from test_criteria where id = $1", [criterion.id]))[0]?.metric).toBe("thrust_to_weight"),
         };
       },
@@ -146,7 +147,7 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const part = await createPart(app.db, channelId, { name: "Before" });
         return {
           params: { partId: part.id },
-          body: { ...partBody, name: "After" },
+          body: { ...partBody, name: "After", version: 1 },
           intact: async () => expect(await rows("select name from bench_parts where id = $1", [part.id])).toEqual([{ name: "Before" }]),
         };
       },
@@ -174,7 +175,7 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const run = await createRun(app.db, channelId, episode.id, ownerId, { label: "Before" });
         return {
           params: { episodeId: episode.id, runId: run.id },
-          body: runBody,
+          body: { ...runBody, version: 1 },
           intact: async () => expect(await rows("select label from bench_runs where id = $1", [run.id])).toEqual([{ label: "Before" }]),
         };
       },
@@ -202,7 +203,7 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const iteration = await createIteration(app.db, channelId, episode.id, ownerId, { change: "Before" });
         return {
           params: { episodeId: episode.id, iterationId: iteration.id },
-          body: iterationBody,
+          body: { ...iterationBody, version: 1 },
           intact: async () => expect(await rows("select change from build_iterations where id = $1", [iteration.id])).toEqual([{ change: "Before" }]),
         };
       },

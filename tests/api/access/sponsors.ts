@@ -93,7 +93,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       ok: 200,
       prepare: async () => {
         const sponsor = await createSponsor(app.db, channelId, { company: "Before" });
-        return { params: { sponsorId: sponsor.id }, body: { company: "After", website: null, notes: null }, intact: async () => expect(await sponsorCompany(sponsor.id)).toBe("Before") };
+        return { params: { sponsorId: sponsor.id }, body: { company: "After", website: null, notes: null, version: 1 }, intact: async () => expect(await sponsorCompany(sponsor.id)).toBe("Before") };
       },
     },
     [`POST ${c}/sponsors/:sponsorId/contacts`]: {
@@ -114,7 +114,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const contact = await createContact(app.db, channelId, sponsor.id, { name: "Before" });
         return {
           params: { sponsorId: sponsor.id, contactId: contact.id },
-          body: { name: "After", email: contact.email, role: null },
+          body: { name: "After", email: contact.email, role: null, version: 1 },
           intact: async () => expect((await one("select name from sponsor_contacts where id = $1", [contact.id])).name).toBe("Before"),
         };
       },
@@ -141,7 +141,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const template = await createTemplate(app.db, channelId, suggestedTemplateItems, "Before");
         return {
           params: { templateId: template.id },
-          body: { name: "After", items: suggestedTemplateItems.slice(0, 1) },
+          body: { name: "After", items: suggestedTemplateItems.slice(0, 1), version: 1 },
           intact: async () => expect((await one("select name from deal_templates where id = $1", [template.id])).name).toBe("Before"),
         };
       },
@@ -186,14 +186,14 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       ok: 200,
       prepare: async () => {
         const { deal } = await freshDeal();
-        return { params: { dealId: deal.id }, body: { script: "Changed" }, intact: async () => expect((await one("select script from deals where id = $1", [deal.id])).script).toBe("") };
+        return { params: { dealId: deal.id }, body: { script: "Changed", version: 1 }, intact: async () => expect((await one("select script from deals where id = $1", [deal.id])).script).toBe("") };
       },
     },
     [`PUT ${c}/deals/:dealId/money`]: {
       ok: 200,
       prepare: async () => {
         const { deal } = await freshDeal();
-        return { params: { dealId: deal.id }, body: { ...money, fee: 1 }, intact: async () => expect((await one("select fee_amount from deals where id = $1", [deal.id])).fee_amount).toBe("4321.00") };
+        return { params: { dealId: deal.id }, body: { ...money, fee: 1, version: 1 }, intact: async () => expect((await one("select fee_amount from deals where id = $1", [deal.id])).fee_amount).toBe("4321.00") };
       },
     },
     [`PUT ${c}/deals/:dealId/cut`]: {
@@ -202,7 +202,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const { deal } = await freshDeal();
         return {
           params: { dealId: deal.id },
-          body: { clipId: null, timing: { inTimecode: "00:00:10:00", outTimecode: "00:01:10:00", frameRate: "25", dropFrame: false } },
+          body: { clipId: null, timing: { inTimecode: "00:00:10:00", outTimecode: "00:01:10:00", frameRate: "25", dropFrame: false }, version: 1 },
           intact: async () => expect((await one("select cut_in from deals where id = $1", [deal.id])).cut_in).toBeNull(),
         };
       },
@@ -224,7 +224,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       prepare: async () => {
         const { item } = await freshDeal();
         const cut = item("draft_cut");
-        return { params: { deliverableId: cut.id }, body: { status: "sent" }, intact: async () => expect((await one("select status::text from deliverables where id = $1", [cut.id])).status).toBe("not_started") };
+        return { params: { deliverableId: cut.id }, body: { status: "sent", version: 1 }, intact: async () => expect((await one("select status::text from deliverables where id = $1", [cut.id])).status).toBe("not_started") };
       },
     },
     [`DELETE ${c}/deliverables/:deliverableId`]: {
@@ -256,7 +256,12 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
     ["GET /api/review/:token"]: { ok: 200, prepare: async () => ({ params: { token: (await openLink()).token } }) },
     ["POST /api/review/:token/decision"]: {
       ok: 200,
-      prepare: async () => ({ params: { token: (await openLink()).token }, body: { decision: "approved", comment: null } }),
+      // The decision names what the page showed (its "seen"), as the review page sends it.
+      prepare: async () => {
+        const { token } = await openLink();
+        const page = await (await app.visitor()).get(`/api/review/${token}`);
+        return { params: { token }, body: { decision: "approved", comment: null, seen: page.body.seen } };
+      },
     },
     [`GET ${c}/desk`]: { ok: 200 },
     [`GET ${c}/sponsor-settings`]: { ok: 200 },

@@ -8,6 +8,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
 import { useBuildLog } from "../api/get-build-log";
@@ -141,17 +142,18 @@ function IterationForm({ channelId, episodeId, runs, iteration, onDone }: { chan
   const update = useUpdateIteration(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<IterationFormValues, unknown, IterationInput>({ resolver: schemaResolver(iterationInputSchema, toInput), defaultValues: toValues(iteration) });
+  const record = useOpenedRecord<IterationView>(iteration ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      if (iteration) await update.mutateAsync({ id: iteration.id, input });
+      if (iteration) await update.mutateAsync({ id: iteration.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
       onDone?.();
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, ["change", "allUpMass", "allUpMass.value", "allUpMass.unit", "outcome", "chosenRunId", "notes"]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["change", "allUpMass", "allUpMass.value", "allUpMass.unit", "outcome", "chosenRunId", "notes"]);
       if (message) setProblem(message);
     }
   });

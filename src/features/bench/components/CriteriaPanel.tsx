@@ -8,6 +8,7 @@ import { criterionInputSchema, type CriterionInput, type CriterionView } from "@
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useAddCriterion } from "../api/add-criterion";
 import { useDeleteCriterion } from "../api/delete-criterion";
 import { useUpdateCriterion } from "../api/update-criterion";
@@ -118,6 +119,7 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
   const update = useUpdateCriterion(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<CriterionFormValues, unknown, CriterionInput>({ resolver: schemaResolver(criterionInputSchema, toInput), defaultValues: toValues(criterion) });
+  const record = useOpenedRecord<CriterionView>(criterion ?? null, (current) => form.reset(toValues(current)));
   const [metric, comparator] = useWatch({ control: form.control, name: ["metric", "comparator"] });
   const errors = form.formState.errors;
   const suggestions = unitsForMetric(metric);
@@ -126,12 +128,12 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
   const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      if (criterion) await update.mutateAsync({ id: criterion.id, input });
+      if (criterion) await update.mutateAsync({ id: criterion.id, input, version: record.version });
       else await add.mutateAsync(input);
       form.reset(toValues());
       onDone?.();
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, formFields);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, formFields);
       if (message) setProblem(message);
     }
   });

@@ -4,6 +4,7 @@ import { unitsByDimension } from "@shared/bench/quantity";
 import { partInputSchema, partKindLabels, partKinds, type PartInput, type PartKind, type PartView } from "@shared/bench/schemas";
 import { Notice } from "../../../components/Notice";
 import { FormActions, QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 
@@ -46,18 +47,20 @@ function toInput(values: PartFormValues, read = converter()) {
 
 const fields = ["name", "kind", "mass", "mass.value", "ratedVoltage", "ratedVoltage.value", "ratedCurrent", "ratedCurrent.value", "price.amount", "price.currency", "supplier", "notes"] as const;
 
-export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput) => Promise<unknown>; onCancel?: () => void }) {
+/** A new part, or a change of one against the version the form opened with (`onSave`'s second argument). */
+export function PartForm({ part, busy, onSave, onCancel }: { part?: PartView; busy: boolean; onSave: (input: PartInput, version: number) => Promise<unknown>; onCancel?: () => void }) {
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<PartFormValues, unknown, PartInput>({ resolver: schemaResolver(partInputSchema, toInput), defaultValues: toValues(part) });
+  const record = useOpenedRecord<PartView>(part ?? null, (current) => form.reset(toValues(current)));
   const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      await onSave(input);
+      await onSave(input, record.version);
       if (!part) form.reset(toValues());
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, fields);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, fields);
       if (message) setProblem(message);
     }
   });

@@ -80,8 +80,8 @@ function PartSheet({ channelId, part, runs, canWrite }: { channelId: string; par
       )}
       {editing ? (
         <Panel className="mb-6">
-          <PartForm part={part} busy={update.isPending} onSave={async (input) => {
-              await update.mutateAsync({ id: part.id, input });
+          <PartForm part={part} busy={update.isPending} onSave={async (input, version) => {
+              await update.mutateAsync({ id: part.id, input, version });
               setEditing(false);
             }} onCancel={() => setEditing(false)} />
         </Panel>

@@ -8,6 +8,7 @@ import { highestSupplyVoltage } from "@shared/bench/runs";
 import { measurementLabels, partKindLabels, runInputSchema, type PartView, type RunInput, type RunView, type Supply, type TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useAddRun } from "../api/add-run";
 import { useUpdateRun } from "../api/update-run";
 import { Caution } from "./marks";
@@ -72,6 +73,7 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
   const update = useUpdateRun(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<RunFormValues, unknown, RunInput>({ resolver: schemaResolver(runInputSchema, toInput), defaultValues: toValues(plan, run) });
+  const record = useOpenedRecord<RunView>(run ?? null, (current) => form.reset(toValues(plan, current)));
   const chosen = useFieldArray({ control: form.control, name: "parts" });
   const errors = form.formState.errors;
   const [supplyKind, watchedParts, watchedSupply, watchedVoltage] = useWatch({ control: form.control, name: ["supply.kind", "parts", "supply", "measurements.voltage"] });
@@ -79,12 +81,12 @@ export function RunForm({ channelId, episodeId, parts, plan, run, onDone }: { ch
   const onSubmit = form.handleSubmit(async (input) => {
     setProblem(null);
     try {
-      if (run) await update.mutateAsync({ id: run.id, input });
+      if (run) await update.mutateAsync({ id: run.id, input, version: record.version });
       else await add.mutateAsync(input);
       onDone();
     } catch (error) {
       const partFields = input.parts.flatMap((_part, index) => [`parts.${index}.partId`, `parts.${index}.count`] as Path<RunFormValues>[]);
-      const message = applyServerErrors(error, form.setError, [...serverFields, ...partFields]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, [...serverFields, ...partFields]);
       if (message) setProblem(message);
     }
   });

@@ -9,6 +9,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useTestPlan } from "../api/get-test-plan";
 import { useSaveTestPlan } from "../api/save-test-plan";
 import { CriteriaPanel } from "./CriteriaPanel";
@@ -93,6 +94,8 @@ function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId
   const save = useSaveTestPlan(channelId, episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const form = useForm<PlanFormValues, unknown, TestPlanInput>({ resolver: schemaResolver(testPlanInputSchema, toInput), defaultValues: toValues(plan) });
+  // The sheet as this form opened it: a save is made against its version (0 before the first save).
+  const record = useOpenedRecord(plan, (current) => form.reset(toValues(current)));
   const quantities = useFieldArray({ control: form.control, name: "quantities" });
   const measures = useWatch({ control: form.control, name: "quantities" });
   const errors = form.formState.errors;
@@ -100,11 +103,10 @@ function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId
   const onSubmit = form.handleSubmit(async (input) => {
     setNotice(null);
     try {
-      const saved = await save.mutateAsync(input);
-      form.reset(toValues(saved));
+      record.startFrom(await save.mutateAsync({ ...input, version: record.version }));
       setNotice({ kind: "success", text: "Test plan saved." });
     } catch (error) {
-      const message = applyServerErrors(error, form.setError, ["hypothesis", "method", "airframeMass", "airframeMass.value", "airframeMass.unit"]);
+      const message = record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["hypothesis", "method", "airframeMass", "airframeMass.value", "airframeMass.unit"]);
       if (message) setNotice({ kind: "error", text: message });
     }
   });

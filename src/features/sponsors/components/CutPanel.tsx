@@ -4,6 +4,7 @@ import { cutSchema, type CutInput, type DealView } from "@shared/sponsors/schema
 import { frameRateNames } from "@shared/timecode/rates";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { formatSeconds } from "../../../lib/format";
 import { useUpdateCut } from "../api/update-cut";
 import { CheckboxField, SelectField, TextField } from "../../../components/form-fields";
@@ -17,6 +18,16 @@ interface CutValues {
 
 const cutFields = ["clipId", "timing", "timing.inTimecode", "timing.outTimecode", "timing.frameRate", "timing.dropFrame"];
 const cutResolver = schemaResolver(cutSchema, (v: CutValues) => ({ clipId: v.clipId || null, timing: v.timing.inTimecode || v.timing.outTimecode ? v.timing : null }));
+/** The cut's fields as the deal holds them. */
+const cutValues = (deal: DealView): CutValues => ({
+  clipId: deal.cut.clip?.id ?? "",
+  timing: {
+    inTimecode: deal.cut.timing?.inTimecode ?? "",
+    outTimecode: deal.cut.timing?.outTimecode ?? "",
+    frameRate: deal.cut.timing?.frameRate ?? "25",
+    dropFrame: deal.cut.timing?.dropFrame ?? false,
+  },
+});
 
 /** The editor's part: the clip the sponsor reviews, and the segment's in and out in the cut. */
 export function CutPanel({ channelId, deal, canEdit }: { channelId: string; deal: DealView; canEdit: boolean }) {
@@ -40,20 +51,16 @@ function CutForm({ channelId, deal }: { channelId: string; deal: DealView }) {
   const timing = deal.cut.timing;
   const measured = timing ? timing.measuredSeconds : null;
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<CutValues, unknown, CutInput>({
-    resolver: cutResolver,
-    defaultValues: {
-      clipId: deal.cut.clip?.id ?? "",
-      timing: { inTimecode: timing?.inTimecode ?? "", outTimecode: timing?.outTimecode ?? "", frameRate: timing?.frameRate ?? "25", dropFrame: timing?.dropFrame ?? false },
-    },
-  });
+  const form = useForm<CutValues, unknown, CutInput>({ resolver: cutResolver, defaultValues: cutValues(deal) });
+  // The cut as the editor started from it: the save is made against the deal's version then.
+  const record = useOpenedRecord(deal, (from) => form.reset(cutValues(from)));
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(null);
     try {
-      await update.mutateAsync(body);
+      record.startFrom(await update.mutateAsync({ ...body, version: record.version }));
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, cutFields));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, cutFields));
     }
   });
   return (

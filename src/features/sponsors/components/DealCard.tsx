@@ -4,6 +4,7 @@ import { roleMay, type Role } from "@shared/access/roles";
 import { dealStateLabels, dealStates, placementLabels, placements, updateDealSchema, type DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { changedFields, useOpenedRecord } from "../../../lib/conflicts";
 import { formatDay, formatSeconds } from "../../../lib/format";
 import { useUpdateDeal } from "../api/update-deal";
 import { CutPanel } from "./CutPanel";
@@ -122,36 +123,40 @@ interface SegmentValues {
 const segmentNames = ["state", "placement", "segmentSeconds", "talkingPoints", "link", "promoCode", "disclosureText", "exclusivityNotes", "contactId", "goLiveDate"];
 const segmentField = (path: string) => (path.startsWith("talkingPoints") ? "talkingPoints" : path);
 
+const segmentBody = (v: SegmentValues) => ({ ...v, segmentSeconds: numberFrom(v.segmentSeconds), talkingPoints: linesOf(v.talkingPoints), contactId: v.contactId || null });
+
+const segmentValues = (deal: DealView): SegmentValues => ({
+  state: deal.state,
+  placement: deal.placement,
+  segmentSeconds: String(deal.segmentSeconds),
+  talkingPoints: deal.talkingPoints.join("\n"),
+  link: deal.link ?? "",
+  promoCode: deal.promoCode ?? "",
+  disclosureText: deal.disclosureText ?? "",
+  exclusivityNotes: deal.exclusivityNotes ?? "",
+  contactId: deal.contact?.id ?? "",
+  goLiveDate: deal.goLiveDate ?? "",
+});
+
+/** Sends only the fields its editor changed, against the version the form opened with. */
 function SegmentForm({ channelId, deal, onDone }: { channelId: string; deal: DealView; onDone: () => void }) {
   const update = useUpdateDeal(channelId, deal.id);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<SegmentValues, unknown, ReturnType<typeof updateDealSchema.parse>>({
-    resolver: schemaResolver(
-      updateDealSchema,
-      (v: SegmentValues) => ({ ...v, segmentSeconds: numberFrom(v.segmentSeconds), talkingPoints: linesOf(v.talkingPoints), contactId: v.contactId || null }),
-      segmentField,
-    ),
-    defaultValues: {
-      state: deal.state,
-      placement: deal.placement,
-      segmentSeconds: String(deal.segmentSeconds),
-      talkingPoints: deal.talkingPoints.join("\n"),
-      link: deal.link ?? "",
-      promoCode: deal.promoCode ?? "",
-      disclosureText: deal.disclosureText ?? "",
-      exclusivityNotes: deal.exclusivityNotes ?? "",
-      contactId: deal.contact?.id ?? "",
-      goLiveDate: deal.goLiveDate ?? "",
-    },
+    resolver: schemaResolver(updateDealSchema, segmentBody, segmentField),
+    defaultValues: segmentValues(deal),
   });
+  const record = useOpenedRecord(deal, (current) => form.reset(segmentValues(current)));
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(null);
+    const changes = changedFields(updateDealSchema.parse(segmentBody(segmentValues(record.opened))), body);
+    if (Object.keys(changes).length === 0) return onDone();
     try {
-      await update.mutateAsync(body);
+      await update.mutateAsync({ ...changes, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, segmentNames, segmentField));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, segmentNames, segmentField));
     }
   });
   return (

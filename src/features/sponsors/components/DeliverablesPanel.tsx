@@ -88,7 +88,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                           <select
                             id={`status-${item.id}`}
                             value={item.status}
-                            onChange={(e) => update.mutate({ id: item.id, input: { status: e.target.value as DeliverableStatus } })}
+                            onChange={(e) => update.mutate({ id: item.id, input: { status: e.target.value as DeliverableStatus, version: item.version } })}
                             className="rounded-md border border-ply-300 bg-white px-2 py-1"
                           >
                             {deliverableStatuses.map((s) => (
@@ -112,7 +112,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                           <select
                             id={`owner-${item.id}`}
                             value={item.ownerId ?? ""}
-                            onChange={(e) => update.mutate({ id: item.id, input: { ownerId: e.target.value || null } })}
+                            onChange={(e) => update.mutate({ id: item.id, input: { ownerId: e.target.value || null, version: item.version } })}
                             className="max-w-40 rounded-md border border-ply-300 bg-white px-2 py-1"
                           >
                             <option value="">No owner</option>

@@ -3,6 +3,7 @@ import { useForm } from "react-hook-form";
 import { moneySchema, paymentTermsFrom, paymentTermsLabels, type DealView, type Money } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useUpdateMoney } from "../api/update-money";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { FormActions, SelectField, TextField } from "../../../components/form-fields";
@@ -19,6 +20,16 @@ interface MoneyForm {
   paidOn: string;
 }
 
+const moneyValues = (value: Money): MoneyForm => ({
+  fee: String(value.fee),
+  currency: value.currency,
+  paymentTermsDays: String(value.paymentTermsDays),
+  paymentTermsFrom: value.paymentTermsFrom,
+  invoiceNumber: value.invoiceNumber ?? "",
+  invoicedOn: value.invoicedOn ?? "",
+  paidOn: value.paidOn ?? "",
+});
+
 const names = ["fee", "currency", "paymentTermsDays", "paymentTermsFrom", "invoiceNumber", "invoicedOn", "paidOn"];
 
 /** The fee, its terms and the invoice: only owners and producers ever receive these from the API. */
@@ -28,24 +39,23 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<MoneyForm, unknown, Money>({
     resolver: schemaResolver(moneySchema, (v: MoneyForm) => ({ ...v, fee: numberFrom(v.fee), paymentTermsDays: numberFrom(v.paymentTermsDays) })),
-    defaultValues: {
-      fee: String(value.fee),
-      currency: value.currency,
-      paymentTermsDays: String(value.paymentTermsDays),
-      paymentTermsFrom: value.paymentTermsFrom,
-      invoiceNumber: value.invoiceNumber ?? "",
-      invoicedOn: value.invoicedOn ?? "",
-      paidOn: value.paidOn ?? "",
-    },
+    defaultValues: moneyValues(value),
   });
+  // The deal as the form opened: the save is made against its version.
+  const record = useOpenedRecord(deal, (current) => current.money && form.reset(moneyValues(current.money)));
   const errors = form.formState.errors;
+  const open = () => {
+    record.startFrom(deal);
+    setFormError(null);
+    setEditing(true);
+  };
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(null);
     try {
-      await update.mutateAsync(body);
+      await update.mutateAsync({ ...body, version: record.version });
       setEditing(false);
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, names));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, names));
     }
   });
 
@@ -62,7 +72,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
           <span className="text-graphite-500">Invoice</span> {value.invoiceNumber ? `${value.invoiceNumber}${value.invoicedOn ? ` of ${formatDay(value.invoicedOn)}` : ""}` : "not yet"}
           {value.paidOn ? `, paid ${formatDay(value.paidOn)}` : ""}
         </p>
-        <Button tone="quiet" className="px-2 py-1" onClick={() => setEditing(true)}>
+        <Button tone="quiet" className="px-2 py-1" onClick={open}>
           Edit money
         </Button>
       </div>

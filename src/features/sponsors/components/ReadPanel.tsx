@@ -4,11 +4,15 @@ import { SPEAKING_RATE_SOURCE, analyseRead, mentionsCode, mentionsLink, readTime
 import type { DealView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { changedFields, useOpenedRecord } from "../../../lib/conflicts";
 import { formatSeconds } from "../../../lib/format";
 import { useUpdateDeal } from "../api/update-deal";
 import { useSponsorSettings } from "../api/get-settings";
 import { DisclosureGuidance } from "./labels";
 import { SelectField, TextAreaField } from "../../../components/form-fields";
+
+/** The read's own fields as the deal holds them. */
+const readOf = (deal: DealView) => ({ script: deal.script, descriptionCopy: deal.descriptionCopy ?? "", hostId: deal.host.id ?? "" });
 
 function Check({ ok, label, missing }: { ok: boolean | null; label: string; missing?: string }) {
   if (ok === null) return null;
@@ -28,7 +32,14 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
   const [script, setScript] = useState(deal.script);
   const [description, setDescription] = useState(deal.descriptionCopy ?? "");
   const [hostId, setHostId] = useState(deal.host.id ?? "");
+  // What the editor started from: the deal's read and its version. A save sends only what changed since.
+  const record = useOpenedRecord(deal, (from) => {
+    setScript(from.script);
+    setDescription(from.descriptionCopy ?? "");
+    setHostId(from.host.id ?? "");
+  });
   const [saved, setSaved] = useState(false);
+  const [conflict, setConflict] = useState<{ message: string; myScript: string } | null>(null);
   const settings = useSponsorSettings(channelId);
   const update = useUpdateDeal(channelId, deal.id);
   const hosts = settings.data?.hosts ?? [];
@@ -38,12 +49,23 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
   const disclosure = checkDisclosure({ script, description, wording: deal.disclosureText });
   // Judged as shown: a difference that rounds to 0:00 is on the mark, not "0:00 long".
   const over = Math.round(read.overBySeconds ?? 0);
-  const dirty = script !== deal.script || description !== (deal.descriptionCopy ?? "") || hostId !== (deal.host.id ?? "");
+  const now = { script, descriptionCopy: description, hostId };
+  const dirty = Object.keys(changedFields(readOf(record.opened), now)).length > 0;
+  // Someone else's save shows at once while this editor has changed nothing.
+  if (deal.version !== record.version && !dirty && !update.isPending) record.startFrom(deal);
 
   const save = async () => {
     setSaved(false);
-    await update.mutateAsync({ script, descriptionCopy: description, hostId: hostId || null });
-    setSaved(true);
+    setConflict(null);
+    const { hostId: host, ...text } = changedFields(readOf(record.opened), now);
+    try {
+      record.startFrom(await update.mutateAsync({ ...text, ...(host === undefined ? {} : { hostId: host || null }), version: record.version }));
+      setSaved(true);
+    } catch (error) {
+      const myScript = script;
+      const message = record.conflictIn(error);
+      if (message) setConflict({ message, myScript });
+    }
   };
 
   return (
@@ -73,7 +95,24 @@ export function ReadPanel({ channelId, deal, canEdit }: { channelId: string; dea
               </Button>
               {saved && !dirty && <span className="text-sm text-moss-600">Saved.</span>}
             </div>
-            {update.isError && <Notice kind="error">{update.error.message}</Notice>}
+            {conflict ? (
+              <Notice kind="error">
+                <p>{conflict.message}</p>
+                <details className="mt-2">
+                  <summary className="cursor-pointer">Your script, not saved</summary>
+                  <p className="mt-1 whitespace-pre-wrap text-graphite-700">{conflict.myScript}</p>
+                  <Button tone="quiet" className="mt-2 px-2 py-1" onClick={() => {
+                      setScript(conflict.myScript);
+                      setConflict(null);
+                    }}
+                  >
+                    Put my script back
+                  </Button>
+                </details>
+              </Notice>
+            ) : (
+              update.isError && <Notice kind="error">{update.error.message}</Notice>
+            )}
           </>
         ) : (
           <div>

@@ -78,8 +78,15 @@ function Body({ token, page }: { token: string; page: ReviewPageData }) {
           <p>{page.channelName} withdrew it. If you still need to review, ask them for a new link.</p>
         </Closed>
       );
+    case "closed":
+      return (
+        <Closed title="This review link has closed">
+          <p>{page.reason}</p>
+        </Closed>
+      );
     case "open":
-      return <OpenReview token={token} page={page} />;
+      // Keyed by what the page shows: a decision is always made against the page as it is now.
+      return <OpenReview key={page.seen} token={token} page={page} />;
   }
 }
 
@@ -88,13 +95,14 @@ interface DecisionValues {
   comment: string;
 }
 
-const decisionResolver = schemaResolver(reviewDecisionSchema, (v: DecisionValues) => v);
+/** `seen` says what the page showed: if the channel changed it since, the server answers 409 and the page reloads. */
+const decisionResolver = (seen: string) => schemaResolver(reviewDecisionSchema, (v: DecisionValues) => ({ ...v, seen }));
 
 function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageData, { state: "open" }> }) {
   const decide = useDecide(token);
   const timeZone = useTimeZone();
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<DecisionValues, unknown, ReviewDecisionInput>({ resolver: decisionResolver, defaultValues: { decision: null, comment: "" } });
+  const form = useForm<DecisionValues, unknown, ReviewDecisionInput>({ resolver: decisionResolver(page.seen), defaultValues: { decision: null, comment: "" } });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(null);

@@ -13,8 +13,9 @@ import { applyServerErrors, numberFrom } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
 import { Tag } from "./labels";
 
-const stateTone: Record<ReviewLinkState, "neutral" | "warn" | "good" | "alarm"> = { open: "warn", decided: "good", expired: "neutral", revoked: "neutral" };
-const stateLabel: Record<ReviewLinkState, string> = { open: "Open", decided: "Decided", expired: "Expired", revoked: "Withdrawn" };
+const stateTone: Record<ReviewLinkState, "neutral" | "warn" | "good" | "alarm"> = { open: "warn", decided: "good", expired: "neutral", revoked: "neutral", closed: "neutral" };
+// "Closed": its contact was removed, its deal cancelled, or its item removed or settled.
+const stateLabel: Record<ReviewLinkState, string> = { open: "Open", decided: "Decided", expired: "Expired", revoked: "Withdrawn", closed: "Closed" };
 
 interface SendValues {
   deliverableId: string;

@@ -7,6 +7,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { useChannel } from "../../../lib/session";
 import { useSponsor } from "../api/get-sponsor";
@@ -185,20 +186,23 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
   );
 }
 
+const sponsorValues = (sponsor: SponsorDetail): SponsorValues => ({ company: sponsor.company, website: sponsor.website ?? "", notes: sponsor.notes ?? "" });
+
 function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sponsor: SponsorDetail; onDone: () => void }) {
   const update = useUpdateSponsor(channelId, sponsor.id);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<SponsorValues, unknown, ReturnType<typeof sponsorInputSchema.parse>>({
     resolver: schemaResolver(sponsorInputSchema, (v: SponsorValues) => v),
-    defaultValues: { company: sponsor.company, website: sponsor.website ?? "", notes: sponsor.notes ?? "" },
+    defaultValues: sponsorValues(sponsor),
   });
+  const record = useOpenedRecord(sponsor, (current) => form.reset(sponsorValues(current)));
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(null);
     try {
-      await update.mutateAsync(body);
+      await update.mutateAsync({ ...body, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ["company", "website", "notes"]));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["company", "website", "notes"]));
     }
   });
   return (

@@ -5,6 +5,7 @@ import { templateInputSchema, type DealTemplate } from "@shared/sponsors/schemas
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty, QueryState } from "../../../components/States";
+import { useOpenedRecord } from "../../../lib/conflicts";
 import { useDeleteTemplate } from "../api/delete-template";
 import { useTemplates } from "../api/list-templates";
 import { useSaveTemplate } from "../api/save-template";
@@ -101,15 +102,16 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
     })),
     defaultValues: { name: template?.name ?? "", items: toValues(template?.items ?? suggestedTemplateItems) },
   });
+  const record = useOpenedRecord<DealTemplate>(template, (current) => form.reset({ name: current.name, items: toValues(current.items) }));
   const items = useFieldArray({ control: form.control, name: "items" });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (input) => {
     setFormError(null);
     try {
-      await save.mutateAsync({ id: template?.id ?? null, input });
+      await save.mutateAsync({ id: template?.id ?? null, input, version: record.version });
       onDone();
     } catch (error) {
-      setFormError(applyServerErrors(error, form.setError, ["name"]));
+      setFormError(record.conflictIn(error) ?? applyServerErrors(error, form.setError, ["name"]));
     }
   });
   return (

@@ -1,0 +1,6 @@
+-- Written by hand: links made before the check named runs and iterations of any episode or channel, or
+-- none; they are cleared so that the keys below hold.
+UPDATE "clips" SET "bench_run_id" = NULL WHERE "bench_run_id" IS NOT NULL AND NOT EXISTS (SELECT 1 FROM "bench_runs" r WHERE r."id" = "clips"."bench_run_id" AND r."channel_id" = "clips"."channel_id" AND r."episode_id" = "clips"."episode_id");--> statement-breakpoint
+UPDATE "clips" SET "build_iteration_id" = NULL WHERE "build_iteration_id" IS NOT NULL AND NOT EXISTS (SELECT 1 FROM "build_iterations" i WHERE i."id" = "clips"."build_iteration_id" AND i."channel_id" = "clips"."channel_id" AND i."episode_id" = "clips"."episode_id");--> statement-breakpoint
+ALTER TABLE "clips" ADD CONSTRAINT "clips_bench_run_id_bench_runs_id_fk" FOREIGN KEY ("bench_run_id") REFERENCES "public"."bench_runs"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "clips" ADD CONSTRAINT "clips_build_iteration_id_build_iterations_id_fk" FOREIGN KEY ("build_iteration_id") REFERENCES "public"."build_iterations"("id") ON DELETE set null ON UPDATE no action;
