@@ -29,6 +29,9 @@ test("an editor marks in and out from the picture by keyboard on a 29.97 drop-fr
   const player = panel.getByRole("group", { name: "Player" });
   const shown = player.getByRole("status", { name: "Playhead timecode" });
   await expect(shown).toHaveText("01:00:59;18");
+  // Once the picture has data, the first frame replaces the poster (taken from further in).
+  await expect.poll(() => player.locator("video").evaluate((v: HTMLVideoElement) => v.readyState)).toBeGreaterThanOrEqual(2);
+  await player.screenshot({ path: path.resolve(import.meta.dirname, "../../.kerf/test-output/screenshots/player-00-first-frame.png") });
   // The keys are on the player's buttons, and in the sheet "?" opens; Escape closes only the sheet.
   await expect(player.getByRole("button", { name: "In here" })).toHaveAttribute("aria-keyshortcuts", "I");
   await player.focus();

@@ -103,7 +103,7 @@ export function ClipPlayer({ clip, format, url, draft, onUnplayable, playerRef }
 }
 
 function Kbd({ children }: { children: ReactNode }) {
-  return <kbd className="rounded border border-graphite-500 px-1 font-mono text-ply-50">{children}</kbd>;
+  return <kbd className="rounded border border-graphite-500 px-1 font-sans text-ply-50">{children}</kbd>;
 }
 
 function Control({ action, onClick, children }: { action: PlayerAction; onClick: () => void; children: ReactNode }) {
@@ -111,7 +111,7 @@ function Control({ action, onClick, children }: { action: PlayerAction; onClick:
   return (
     <Button tone="quiet" onClick={onClick} aria-keyshortcuts={key.aria} className="px-2.5 py-1.5">
       {children}
-      <kbd aria-hidden className="rounded border border-ply-300 px-1 font-mono text-xs text-graphite-500">
+      <kbd aria-hidden className="rounded border border-ply-300 px-1 font-sans text-xs text-graphite-500">
         {key.keys}
       </kbd>
     </Button>

@@ -28,7 +28,7 @@ export function KeysSheet({ open, onClose }: { open: boolean; onClose: () => voi
           {playerKeys.map((k) => (
             <tr key={k.action} className="border-t border-ply-200">
               <th scope="row" className="py-1.5 pr-3 text-left align-top whitespace-nowrap">
-                <kbd className="rounded border border-ply-300 bg-ply-50 px-1.5 font-mono">{k.keys}</kbd>
+                <kbd className="rounded border border-ply-300 bg-ply-50 px-1.5 font-sans">{k.keys}</kbd>
               </th>
               <td className="py-1.5">{k.does}</td>
             </tr>

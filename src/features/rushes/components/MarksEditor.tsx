@@ -72,11 +72,13 @@ export function MarksEditor({ channelId, clip, marking }: { channelId: string; c
           {clip.marks.length > 0 && (
             <ul className="mb-3 divide-y divide-ply-200 text-sm" aria-label="Marks on this clip">
               {clip.marks.map((m) => (
-                <li key={m.id} className="flex flex-wrap items-center gap-x-3 py-1.5">
-                  <span className="font-mono">
-                    {m.in} → {m.out}
-                  </span>
-                  <span className="min-w-0 flex-1 break-words">{m.note}</span>
+                <li key={m.id} className="flex items-center gap-3 py-1.5">
+                  <div className="min-w-0 flex-1">
+                    <span className="block font-mono">
+                      {m.in} → {m.out}
+                    </span>
+                    {m.note && <span className="block break-words">{m.note}</span>}
+                  </div>
                   <Button tone="quiet" aria-label={`Remove mark ${m.in} to ${m.out}`} onClick={() => deleteMark.mutate(m.id)}>
                     Remove
                   </Button>

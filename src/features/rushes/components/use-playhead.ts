@@ -72,9 +72,10 @@ export function usePlayhead(rate: FrameRate, lastFrame: number): Playhead {
       wanted.current = Math.min(shown(), lastFrame);
       element.currentTime = secondsForFrame(wanted.current, rate);
     };
-    // A new element (a fresh preview link) opens where the playhead was.
+    // Seeking once loaded hides the poster (a frame from elsewhere in the clip) behind the playhead's
+    // own frame, and a new element (a fresh preview link) opens where the playhead was.
     const onLoaded = () => {
-      if (wanted.current > 0) element.currentTime = secondsForFrame(wanted.current, rate);
+      element.currentTime = secondsForFrame(wanted.current, rate);
     };
     element.addEventListener("loadedmetadata", onLoaded);
     element.addEventListener("seeked", onSeeked);
