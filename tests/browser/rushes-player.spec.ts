@@ -1,5 +1,6 @@
 import path from "node:path";
 import { expect, test } from "@playwright/test";
+import { expectNoSeriousA11yViolations } from "./axe";
 import { hostWithEpisode, member, signInOn, snap, sql } from "./support";
 
 // D003_C007.mov: 90 frames of 192×108 H.264 at 30000/1001 fps, QuickTime timecode track starting at
@@ -76,6 +77,7 @@ test("an editor marks in and out from the picture by keyboard on a 29.97 drop-fr
   await player.getByRole("button", { name: "Go to mark 01:00:59;23 → 01:01:00;24, chine catches spray" }).click();
   await expect(shown).toHaveText("01:00:59;23");
   await snap(page, "player-03-strip");
+  await expectNoSeriousA11yViolations(page, "the clip player");
 
   // Typed timecode is still there, beside the picture.
   const typed = panel.getByRole("form", { name: "Add a mark" });
