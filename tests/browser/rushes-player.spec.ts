@@ -1,5 +1,7 @@
 import path from "node:path";
 import { expect, test } from "@playwright/test";
+import { frameAtSeconds, sourceLabel } from "../../shared/timecode/playhead";
+import { frameRates } from "../../shared/timecode/rates";
 import { expectNoSeriousA11yViolations } from "./axe";
 import { hostWithEpisode, member, signInOn, snap, sql } from "./support";
 
@@ -10,6 +12,8 @@ import { hostWithEpisode, member, signInOn, snap, sql } from "./support";
 //     -vf "drawtext=fontfile=DejaVuSansMono-Bold.ttf:timecode='01\:00\:59\;18':rate=30000/1001:fontsize=18:fontcolor=white:x=(w-tw)/2:y=(h-th)/2" \
 //     -c:v libx264 -profile:v baseline -pix_fmt yuv420p -crf 30 -g 30 -timecode "01:00:59;18" -movflags +faststart D003_C007.mov
 const clipFile = path.resolve(import.meta.dirname, "../fixtures/rushes/D003_C007.mov");
+const ntsc = frameRates["29.97"];
+const df = { rate: ntsc, dropFrame: true };
 
 test("an editor marks in and out from the picture by keyboard on a 29.97 drop-frame clip", async ({ page, browser }) => {
   test.setTimeout(120_000);
@@ -70,6 +74,18 @@ test("an editor marks in and out from the picture by keyboard on a 29.97 drop-fr
   await expect(player).toBeFocused();
   const [row] = await sql<{ in_label: string; out_label: string }>("select in_label, out_label from clip_marks m join clips c on c.id = m.clip_id where c.file_name = $1 and c.channel_id = $2", ["D003_C007.mov", channelId]);
   expect(row).toEqual({ in_label: "01:00:59;23", out_label: "01:01:00;24" });
+
+  // Play and stop: the playhead parks on a whole frame and names the one the picture is on.
+  await page.keyboard.press("Home");
+  await expect(shown).toHaveText("01:00:59;18");
+  await page.keyboard.press(" ");
+  await expect(player.getByRole("button", { name: "Stop" })).toBeVisible();
+  await page.keyboard.press(" ");
+  await expect(player.getByRole("button", { name: "Play" })).toBeVisible();
+  const video = player.locator("video");
+  await expect
+    .poll(async () => (await shown.textContent()) === sourceLabel("01:00:59;18", frameAtSeconds(await video.evaluate((v: HTMLVideoElement) => v.currentTime), ntsc), df) && (await video.evaluate((v: HTMLVideoElement) => !v.seeking)))
+    .toBe(true);
 
   // Away and back by the strip under the picture.
   await page.keyboard.press("End");

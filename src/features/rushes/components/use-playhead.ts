@@ -53,7 +53,9 @@ export function usePlayhead(rate: FrameRate, lastFrame: number): Playhead {
     if (!element) return;
     const shown = () => frameAtSeconds(element.currentTime, rate);
     let callback = 0;
-    // While playing, each painted frame reports its own presentation time.
+    // While playing, each painted frame reports its own presentation time; a browser without frame
+    // callbacks follows the coarser time updates instead.
+    const framesReported = typeof element.requestVideoFrameCallback === "function";
     const follow = (_now: number, meta: VideoFrameCallbackMetadata) => {
       setFrame(frameAtSeconds(meta.mediaTime, rate));
       callback = element.requestVideoFrameCallback(follow);
@@ -61,13 +63,16 @@ export function usePlayhead(rate: FrameRate, lastFrame: number): Playhead {
     const onSeeked = () => {
       if (element.paused) setFrame(shown());
     };
+    const onTimeUpdate = () => {
+      if (!framesReported && !element.paused) setFrame(Math.min(shown(), lastFrame));
+    };
     const onPlay = () => {
       setPlaying(true);
-      callback = element.requestVideoFrameCallback(follow);
+      if (framesReported) callback = element.requestVideoFrameCallback(follow);
     };
     const onPause = () => {
       setPlaying(false);
-      element.cancelVideoFrameCallback(callback);
+      if (framesReported) element.cancelVideoFrameCallback(callback);
       // Park on a whole frame, so the label and the picture agree while stopped.
       wanted.current = Math.min(shown(), lastFrame);
       element.currentTime = secondsForFrame(wanted.current, rate);
@@ -79,14 +84,16 @@ export function usePlayhead(rate: FrameRate, lastFrame: number): Playhead {
     };
     element.addEventListener("loadedmetadata", onLoaded);
     element.addEventListener("seeked", onSeeked);
+    element.addEventListener("timeupdate", onTimeUpdate);
     element.addEventListener("play", onPlay);
     element.addEventListener("pause", onPause);
     return () => {
       element.removeEventListener("loadedmetadata", onLoaded);
       element.removeEventListener("seeked", onSeeked);
+      element.removeEventListener("timeupdate", onTimeUpdate);
       element.removeEventListener("play", onPlay);
       element.removeEventListener("pause", onPause);
-      element.cancelVideoFrameCallback(callback);
+      if (framesReported) element.cancelVideoFrameCallback(callback);
     };
   }, [element, rate, lastFrame]);
 
