@@ -5,6 +5,7 @@ import { roleMay } from "../../shared/access/roles";
 import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
 import type { ClipDetail, ClipView, FootagePage, MarkInput, MarkView, markInputSchema, updateClipSchema } from "../../shared/rushes/schemas";
 import { type TimecodeFormat, describeFormat } from "../../shared/timecode/rates";
+import { frameCount } from "../../shared/timecode/playhead";
 import { markRangeAt } from "../../shared/timecode/schemas";
 import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
 import { fieldMessages } from "../../shared/http/errors";
@@ -155,7 +156,7 @@ function checkMark(row: ClipRow, input: { in: string; out: string }): { inFrame:
   const inFrame = parseTimecode(input.in, format);
   const outFrame = parseTimecode(input.out, format);
   const start = row.startTimecode ? parseTimecode(row.startTimecode, format) : 0;
-  const length = Math.round((row.durationMs / 1000) * (format.rate.numerator / format.rate.denominator));
+  const length = frameCount(row.durationMs, format.rate);
   const fields: Record<string, string> = {};
   const label = (f: number) => formatTimecode(f, format);
   if (inFrame < start) fields.in = `The clip starts at ${label(start)}; the in point can't be before it.`;

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type FormEvent } from "react";
+import { useEffect, useRef, useState, type FormEvent, type ReactNode } from "react";
 import type { ClipDetail, ShootDayView, ShotView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
@@ -14,7 +14,8 @@ import { useUpdateClip } from "../api/update-clip";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { clipFormatText } from "./labels";
-import { MarksEditor } from "./MarksEditor";
+import { ClipPlayer } from "./ClipPlayer";
+import { clipFormat, MarksEditor, useMarkForm } from "./MarksEditor";
 
 /** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks). */
 export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId: string; clipId: string; canDelete: boolean; onClose: () => void }) {
@@ -22,7 +23,7 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
   const heading = useRef<HTMLHeadingElement>(null);
   useEffect(() => heading.current?.focus(), [clipId]);
   useEffect(() => {
-    const onKey = (e: KeyboardEvent) => e.key === "Escape" && onClose();
+    const onKey = (e: KeyboardEvent) => e.key === "Escape" && !e.defaultPrevented && onClose();
     window.addEventListener("keydown", onKey);
     return () => window.removeEventListener("keydown", onKey);
   }, [onClose]);
@@ -37,43 +38,35 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
         </Button>
       </div>
       <QueryState query={clip} loading="Loading the clip…">
-        {(detail) => <ClipBody channelId={channelId} clip={detail} canDelete={canDelete} onDeleted={onClose} />}
+        {(detail) => <ClipBody key={detail.id} channelId={channelId} clip={detail} canDelete={canDelete} onDeleted={onClose} />}
       </QueryState>
     </aside>
   );
 }
 
 function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string; clip: ClipDetail; canDelete: boolean; onDeleted: () => void }) {
-  const preview = usePreview(channelId, clip.id);
   const remove = useDeleteClip(channelId);
-  const [unplayable, setUnplayable] = useState(false);
   const timeZone = useTimeZone();
+  const player = useRef<HTMLDivElement | null>(null);
+  // After a mark is saved the keys go back to the player, ready for the next in point.
+  const marking = useMarkForm(channelId, clip, () => player.current?.focus());
+  const format = clipFormat(clip);
   const download = async () => {
     const { url } = await fetchDownloadLink(channelId, clip.id);
     window.location.assign(url);
   };
   return (
     <div className="flex flex-col gap-5">
-      <div className="overflow-hidden rounded-md bg-graphite-900">
-        {preview.data && !unplayable ? (
-          <video
-            key={preview.data.url}
-            src={preview.data.url}
-            poster={clip.posterUrl ?? undefined}
-            controls
-            preload="metadata"
-            onError={() => setUnplayable(true)}
-            className="aspect-video w-full"
-            aria-label={`Preview of ${clip.fileName}`}
-          />
-        ) : unplayable ? (
-          <div className="flex aspect-video items-center justify-center p-6 text-center text-sm text-ply-200">
-            This browser can't play this file here (a camera codec it doesn't decode, or no file in storage behind a demo clip). Download the original to view it.
-          </div>
-        ) : (
-          <div className="flex aspect-video items-center justify-center text-sm text-ply-200">{preview.isError ? "Storage is not reachable; no preview right now." : "Loading preview…"}</div>
-        )}
-      </div>
+      <ClipPreview channelId={channelId} clip={clip}>
+        {(url, onUnplayable) =>
+          format ? (
+            <ClipPlayer clip={clip} format={format} url={url} draft={marking.draft} onUnplayable={onUnplayable} playerRef={(element) => void (player.current = element)} />
+          ) : (
+            <video key={url} src={url} poster={clip.posterUrl ?? undefined} controls preload="metadata" onError={onUnplayable} className="aspect-video w-full rounded-md bg-graphite-900" aria-label={`Preview of ${clip.fileName}`} />
+          )
+        }
+      </ClipPreview>
+      <MarksEditor channelId={channelId} clip={clip} marking={marking} />
       <div>
         <Button tone="quiet" onClick={() => void download()}>
           Download original
@@ -96,7 +89,6 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
         <dd className="font-mono text-xs break-all">{clip.sha256 ? `SHA-256 ${clip.sha256}` : clip.storageEtag ? `storage ETag ${clip.storageEtag}` : "none"}</dd>
       </dl>
       <ClipLog channelId={channelId} clip={clip} />
-      <MarksEditor channelId={channelId} clip={clip} />
       {canDelete && (
         <div className="border-t border-ply-200 pt-4">
           <Button
@@ -113,6 +105,19 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
       )}
     </div>
   );
+}
+
+/** The clip's picture from a short-lived link, or why there is none. */
+function ClipPreview({ channelId, clip, children }: { channelId: string; clip: ClipDetail; children: (url: string, onUnplayable: () => void) => ReactNode }) {
+  const preview = usePreview(channelId, clip.id);
+  const [unplayable, setUnplayable] = useState(false);
+  if (preview.data && !unplayable) return children(preview.data.url, () => setUnplayable(true));
+  const message = unplayable
+    ? "This browser can't play this file here (a camera codec it doesn't decode, or no file in storage behind a demo clip). Download the original to view it; marks can still be typed below."
+    : preview.isError
+      ? "Storage is not reachable; no preview right now."
+      : "Loading preview…";
+  return <div className="flex aspect-video items-center justify-center rounded-md bg-graphite-900 p-6 text-center text-sm text-ply-200">{message}</div>;
 }
 
 const select = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";

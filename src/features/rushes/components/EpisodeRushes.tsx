@@ -11,7 +11,7 @@ const Uploader = lazy(() => import("./Uploader").then((m) => ({ default: m.Uploa
 /** The episode page's shoot and footage section: the plan, the uploads, and this episode's footage. */
 export function EpisodeRushes({ channelId, episodeId, role }: EpisodeSectionProps) {
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       {roleMay(role, "shoot", "R") && <ShootPlan channelId={channelId} episodeId={episodeId} />}
       {roleMay(role, "footage", "W") && (
         <Suspense fallback={<Loading label="Loading the uploader…" />}>

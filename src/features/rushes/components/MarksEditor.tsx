@@ -1,22 +1,62 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useForm } from "react-hook-form";
+import type { BaseSyntheticEvent } from "react";
+import { useForm, useWatch, type UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import type { ClipDetail } from "@shared/rushes/schemas";
+import type { TimecodeFormat } from "@shared/timecode/rates";
 import { markRangeAt } from "@shared/timecode/schemas";
 import { Button } from "../../../components/Button";
 import { useAddMark } from "../api/add-mark";
 import { useDeleteMark } from "../api/delete-mark";
 import { clipFormatText } from "./labels";
+import type { MarkDraft } from "./ClipPlayer";
 import { TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 
-/** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
-export function MarksEditor({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
+type MarkValues = { in: string; out: string; note: string };
+
+export interface MarkForm {
+  form: UseFormReturn<MarkValues>;
+  submit: (event?: BaseSyntheticEvent) => Promise<void>;
+  draft: MarkDraft;
+}
+
+const separatorOf = (format: TimecodeFormat | null) => (format?.dropFrame ? ";" : ":");
+export const clipFormat = (clip: ClipDetail): TimecodeFormat | null => (clip.frameRate ? { rate: clip.frameRate, dropFrame: clip.dropFrame } : null);
+
+/**
+ * The mark being made, shared by the player (which sets in and out from the picture and opens the
+ * note) and the typed form below it. `onSaved` runs after a mark is stored.
+ */
+export function useMarkForm(channelId: string, clip: ClipDetail, onSaved: () => void): MarkForm {
   const addMark = useAddMark(channelId, clip.id);
+  const format = clipFormat(clip);
+  // The shared rule (shared/timecode) checks both labels in the browser; the server checks them again with the clip's bounds.
+  const range = format ? markRangeAt(format) : z.object({ in: z.string(), out: z.string() });
+  const schema = range.and(z.object({ note: z.string().max(500, "Keep the note under 500 characters.") }));
+  const start = clip.startTimecode ?? `00:00:00${separatorOf(format)}00`;
+  const form = useForm<MarkValues>({ resolver: zodResolver(schema), defaultValues: { in: start, out: "", note: "" } });
+  const submit = form.handleSubmit(async (values) => {
+    try {
+      await addMark.mutateAsync(values);
+      form.reset({ in: values.out, out: "", note: "" });
+      onSaved();
+    } catch (error) {
+      const message = applyServerErrors(error, form.setError, ["in", "out", "note"]);
+      if (message) form.setError("root", { message });
+    }
+  });
+  const set = (field: "in" | "out") => (label: string) => form.setValue(field, label, { shouldValidate: form.formState.isSubmitted });
+  const [inLabel, outLabel] = useWatch({ control: form.control, name: ["in", "out"] });
+  const draft: MarkDraft = { in: inLabel, out: outLabel, setIn: set("in"), setOut: set("out"), writeNote: () => form.setFocus("note") };
+  return { form, submit, draft };
+}
+
+/** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
+export function MarksEditor({ channelId, clip, marking }: { channelId: string; clip: ClipDetail; marking: MarkForm }) {
   const deleteMark = useDeleteMark(channelId, clip.id);
-  const format = clip.frameRate ? { rate: clip.frameRate, dropFrame: clip.dropFrame } : null;
-  const separator = clip.dropFrame ? ";" : ":";
-  const start = clip.startTimecode ?? `00:00:00${separator}00`;
+  const format = clipFormat(clip);
+  const separator = separatorOf(format);
   return (
     <section aria-labelledby="marks-heading" className="rounded-md border border-ply-300 p-3">
       <h3 id="marks-heading" className="font-semibold">
@@ -27,16 +67,18 @@ export function MarksEditor({ channelId, clip }: { channelId: string; clip: Clip
       ) : (
         <>
           <p className="mb-2 text-xs text-graphite-500">
-            {clipFormatText(clip)}: write HH:MM:SS{separator}FF. The clip starts at <span className="font-mono">{start}</span>; the out point is the first frame after the mark.
+            {clipFormatText(clip)}: set in and out from the picture, or write HH:MM:SS{separator}FF. The clip starts at <span className="font-mono">{clip.startTimecode ?? `00:00:00${separator}00`}</span>; the out point is the first frame after the mark.
           </p>
           {clip.marks.length > 0 && (
             <ul className="mb-3 divide-y divide-ply-200 text-sm" aria-label="Marks on this clip">
               {clip.marks.map((m) => (
                 <li key={m.id} className="flex items-center gap-3 py-1.5">
-                  <span className="font-mono">
-                    {m.in} → {m.out}
-                  </span>
-                  <span className="flex-1">{m.note}</span>
+                  <div className="min-w-0 flex-1">
+                    <span className="block font-mono">
+                      {m.in} → {m.out}
+                    </span>
+                    {m.note && <span className="block break-words">{m.note}</span>}
+                  </div>
                   <Button tone="quiet" aria-label={`Remove mark ${m.in} to ${m.out}`} onClick={() => deleteMark.mutate(m.id)}>
                     Remove
                   </Button>
@@ -49,31 +91,19 @@ export function MarksEditor({ channelId, clip }: { channelId: string; clip: Clip
               {deleteMark.error.message}
             </p>
           )}
-          <MarkForm key={clip.id} format={format} start={start} onAdd={(v) => addMark.mutateAsync(v)} />
+          <MarkFields marking={marking} />
         </>
       )}
     </section>
   );
 }
 
-function MarkForm({ format, start, onAdd }: { format: { rate: { numerator: number; denominator: number }; dropFrame: boolean }; start: string; onAdd: (v: { in: string; out: string; note: string }) => Promise<unknown> }) {
-  // The shared rule (shared/timecode) checks both labels in the browser; the server checks them again with the clip's bounds.
-  const schema = markRangeAt(format).and(z.object({ note: z.string().max(500, "Keep the note under 500 characters.") }));
-  const form = useForm<{ in: string; out: string; note: string }>({ resolver: zodResolver(schema), defaultValues: { in: start, out: "", note: "" } });
-  const submit = form.handleSubmit(async (values) => {
-    try {
-      await onAdd(values);
-      form.reset({ in: values.out, out: "", note: "" });
-    } catch (error) {
-      const message = applyServerErrors(error, form.setError, ["in", "out", "note"]);
-      if (message) form.setError("root", { message });
-    }
-  });
+function MarkFields({ marking: { form, submit } }: { marking: MarkForm }) {
   const errors = form.formState.errors;
   return (
-    <form onSubmit={submit} noValidate className="grid grid-cols-2 items-start gap-2" aria-label="Add a mark">
-      <TextField label="In" autoComplete="off" spellCheck={false} size={12} {...form.register("in")} error={errors.in?.message} />
-      <TextField label="Out" autoComplete="off" spellCheck={false} size={12} {...form.register("out")} error={errors.out?.message} />
+    <form onSubmit={(e) => void submit(e)} noValidate className="grid grid-cols-2 items-start gap-2" aria-label="Add a mark">
+      <TextField label="In" autoComplete="off" spellCheck={false} size={12} className="min-w-0" {...form.register("in")} error={errors.in?.message} />
+      <TextField label="Out" autoComplete="off" spellCheck={false} size={12} className="min-w-0" {...form.register("out")} error={errors.out?.message} />
       <div className="col-span-2">
         <TextField label="Note" {...form.register("note")} error={errors.note?.message} placeholder="e.g. the moment it fails" />
       </div>

@@ -31,7 +31,7 @@ export function ShootPlan({ channelId, episodeId }: { channelId: string; episode
 function Plan({ channelId, episodeId, days, shots }: { channelId: string; episodeId: string; days: ShootDayView[]; shots: ShotView[] }) {
   const removeDay = useDeleteShootDay(channelId, episodeId);
   return (
-    <div className="grid gap-6">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-6">
       <section aria-labelledby="days-heading">
         <h3 id="days-heading" className="mb-2 font-semibold">
           Shoot days
