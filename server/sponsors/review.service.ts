@@ -28,6 +28,7 @@ import {
 } from "./deals.repository";
 import type { Caller } from "../http/route-table";
 import { eventBy } from "./deals.service";
+import { approvePairedItems } from "./deliverables.service";
 import { reviewStateOf, type ReviewTokens } from "./review-token";
 
 export interface ReviewDeps {
@@ -244,6 +245,10 @@ export async function decide(deps: ReviewDeps, token: string, input: z.output<ty
         note: input.comment,
       },
     ]);
+    if (input.decision === "approved") {
+      const sponsor = { channelId: claimed.channelId, actorId: null, actorName: claimed.contactName, actorKind: "sponsor" } as const;
+      await approvePairedItems(tx, sponsor, { id: claimed.deliverableId, title: row.deliverableTitle });
+    }
     await deps.jobs.enqueueMail(decisionMail(deps, row, claimed, input), { db: sql });
     return claimed;
   });
