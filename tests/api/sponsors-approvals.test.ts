@@ -77,7 +77,7 @@ describe("a sponsor's decision through a review link", () => {
     expect(items.script_draft!.status).toBe("approved");
     expect(items.script_approval!.status).toBe("approved");
     // The paired item's history says why it moved, under the contact's name.
-    expect(items.script_approval!.history.at(-1)).toMatchObject({ what: "status", actorKind: "sponsor", actorName: "Ada Brenner", fromStatus: "not_started", toStatus: "approved", note: 'Approved with "Script draft to the sponsor"' });
+    expect(items.script_approval!.history[0]).toMatchObject({ what: "status", actorKind: "sponsor", actorName: "Ada Brenner", fromStatus: "not_started", toStatus: "approved", note: 'Approved with "Script draft to the sponsor"' });
     // Items the template doesn't pair with the script are left as they were.
     expect(items.report!.status).toBe("not_started");
   });
