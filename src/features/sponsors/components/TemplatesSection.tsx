@@ -60,7 +60,10 @@ export function TemplatesSection({ channelId, canEdit }: { channelId: string; ca
                 <ol className="flex flex-col gap-0.5 text-sm">
                   {t.items.map((item, i) => (
                     <li key={i} className="flex justify-between gap-3">
-                      <span>{item.title}</span>
+                      <span>
+                        {item.title}
+                        {item.approves != null && t.items[item.approves] && <span className="block text-xs text-graphite-500">Approves: {t.items[item.approves]!.title}</span>}
+                      </span>
                       <span className="whitespace-nowrap text-graphite-500">
                         {describeDating(item.anchor, item.offsetDays)}
                       </span>
@@ -167,7 +170,7 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
                 </option>
               ))}
             </select>
-            <div>
+            <div className="sm:col-span-5 lg:col-span-1">
               <select aria-label={`Approval of, item ${index + 1}`} className="w-full rounded-md border border-ply-300 bg-white px-2 py-2" {...form.register(`items.${index}.approves`)}>
                 <option value="">Approves no other item</option>
                 {titles.map((title, other) =>
