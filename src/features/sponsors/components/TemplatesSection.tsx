@@ -172,7 +172,7 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
             </select>
             <div className="sm:col-span-5 lg:col-span-1">
               <select aria-label={`Approval of, item ${index + 1}`} className="w-full rounded-md border border-ply-300 bg-white px-2 py-2" {...form.register(`items.${index}.approves`)}>
-                <option value="">Approves no other item</option>
+                <option value="">Approves: none</option>
                 {titles.map((title, other) =>
                   other === index ? null : (
                     <option key={other} value={String(other)}>
