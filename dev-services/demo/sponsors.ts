@@ -1,5 +1,6 @@
+import { randomUUID } from "node:crypto";
 import { addDays, addHours, subDays } from "date-fns";
-import { generateDeliverables, suggestedTemplateItems, type DeliverableStatus } from "../../shared/sponsors/deliverables";
+import { generateDeliverables, pairedByTemplate, suggestedTemplateItems, type DeliverableStatus } from "../../shared/sponsors/deliverables";
 import { dealTemplates, deals, deliverableEvents, deliverables, reviewLinks, speakingRates, sponsorContacts, sponsors, sponsorSettings } from "../../server/db/schema/sponsors";
 import type { DemoContext } from "./context";
 
@@ -144,7 +145,9 @@ export async function seedSponsorsDemo(context: DemoContext): Promise<void> {
     const items = await db
       .insert(deliverables)
       .values(
-        generated.map((item) => ({
+        pairedByTemplate(generated, generated.map(() => randomUUID())).map((item) => ({
+          id: item.id,
+          approvesId: item.approvesId,
           channelId,
           dealId: deal!.id,
           kind: item.kind,

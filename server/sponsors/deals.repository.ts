@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, ne, notInArray, or, sql } from "drizzle-orm";
 import type { Queryable } from "../db/client";
 import { nextNumber } from "../db/counters";
 import { nextVersion } from "../db/versions";
@@ -119,6 +119,7 @@ export async function openDeliverables(db: Db, channelId: string) {
       title: deliverables.title,
       dueDate: deliverables.dueDate,
       status: deliverables.status,
+      version: deliverables.version,
       ownerName: users.name,
     })
     .from(deliverables)
@@ -165,6 +166,24 @@ export async function updateDeliverableRow(db: Db, channelId: string, deliverabl
     .where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId), version === undefined ? undefined : eq(deliverables.version, version)))
     .returning();
   return row ?? null;
+}
+
+/**
+ * The open items paired with one item: those that are the sponsor's approval of it, and the item it is
+ * the approval of. Pairs are always within one deal, so the channel scope is the deal's.
+ */
+export async function openPairedItems(db: Db, channelId: string, deliverableId: string) {
+  const approvedByIt = db.select({ id: deliverables.approvesId }).from(deliverables).where(and(eq(deliverables.id, deliverableId), eq(deliverables.channelId, channelId)));
+  return db
+    .select({ id: deliverables.id, status: deliverables.status })
+    .from(deliverables)
+    .where(
+      and(
+        eq(deliverables.channelId, channelId),
+        notInArray(deliverables.status, ["approved", "done"]),
+        or(eq(deliverables.approvesId, deliverableId), inArray(deliverables.id, approvedByIt)),
+      ),
+    );
 }
 
 export async function deleteDeliverableRow(db: Db, channelId: string, deliverableId: string): Promise<boolean> {

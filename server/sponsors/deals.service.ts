@@ -1,6 +1,7 @@
+import { randomUUID } from "node:crypto";
 import { roleMay, type Role } from "../../shared/access/roles";
 import { dateInZone } from "../../shared/sponsors/dates";
-import { generateDeliverables, isCutKind, isMoneyKind, latenessOf, type TemplateItem } from "../../shared/sponsors/deliverables";
+import { generateDeliverables, pairedByTemplate, isCutKind, type DeliverableKind, isMoneyKind, latenessOf, type TemplateItem } from "../../shared/sponsors/deliverables";
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import { DEFAULT_WORDS_PER_MINUTE, analyseRead, measuredSeconds, mentionsCode, mentionsLink } from "../../shared/sponsors/read";
 import type { DealView, DeliverableEvent, DeliverableView, Money, ReviewLinkView } from "../../shared/sponsors/schemas";
@@ -35,6 +36,9 @@ export const seesFees = (role: Role) => roleMay(role, "fees", "R");
 export const runsDeliverables = (role: Role) => roleMay(role, "deliverables", "W");
 /** Whoever delivers the cut (the role table's "cut": the editor too) attaches it, measures the segment and moves the cut items. */
 export const deliversCut = (role: Role) => roleMay(role, "cut", "W");
+
+/** Whether a role may change an item: those who run deliverables any item, whoever delivers the cut the cut items. */
+export const mayChangeItem = (role: Role, kind: DeliverableKind) => runsDeliverables(role) || (deliversCut(role) && isCutKind(kind));
 
 export const actorOf = (caller: Caller): Actor => ({ id: caller.userId, name: caller.name, kind: "member" });
 
@@ -142,7 +146,7 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
           ownerName,
           version: item.version,
           ...latenessOf(item, today),
-          canEdit: runsDeliverables(caller.role) || (deliversCut(caller.role) && isCutKind(item.kind)),
+          canEdit: mayChangeItem(caller.role, item.kind),
           history: events
             .filter((e) => e.deliverableId === item.id)
             .map((e): DeliverableEvent => ({
@@ -230,7 +234,9 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
     const generated = generateDeliverables(template?.items ?? [], { publishDate: episode.publishDate, goLiveDate: deal.goLiveDate });
     const inserted = await insertDeliverables(
       tx,
-      generated.map((item) => ({
+      pairedByTemplate(generated, generated.map(() => randomUUID())).map((item) => ({
+        id: item.id,
+        approvesId: item.approvesId,
         channelId: caller.channelId,
         dealId: deal.id,
         kind: item.kind,

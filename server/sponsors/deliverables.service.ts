@@ -5,7 +5,7 @@ import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, updateDeliverableRow, type Db, type NewEvent } from "./deals.repository";
+import { deleteDeliverableRow, findDeal, findDeliverable, insertDeliverables, insertEvents, nextPosition, openPairedItems, updateDeliverableRow, type Db, type NewEvent } from "./deals.repository";
 import { dealView, deliversCut, eventBy, runsDeliverables, seesFees } from "./deals.service";
 
 async function checkOwner(db: Database, channelId: string, ownerId: string | null | undefined) {
@@ -89,4 +89,21 @@ export async function removeDeliverable(db: Database, caller: Caller, deliverabl
   const found = await findDeliverable(db, caller.channelId, deliverableId);
   if (!found) throw notFound("Deliverable");
   await deleteDeliverableRow(db, caller.channelId, deliverableId);
+}
+
+/** Who an item's history names for a change: a member, the sponsor's contact, or Kerf itself. */
+export type EventActor = Pick<NewEvent, "channelId" | "actorId" | "actorName" | "actorKind">;
+
+/**
+ * The sponsor approved an item: the items the deal's template pairs with it (its approval item, or the
+ * item it is the approval of) are approved with it, each with a line in its history. Run inside the
+ * transaction that records the approval.
+ */
+export async function approvePairedItems(tx: Db, actor: EventActor, approved: { id: string; title: string }) {
+  const paired = await openPairedItems(tx, actor.channelId, approved.id);
+  for (const item of paired) await updateDeliverableRow(tx, actor.channelId, item.id, { status: "approved" });
+  await insertEvents(
+    tx,
+    paired.map((item) => ({ ...actor, deliverableId: item.id, what: "status" as const, fromStatus: item.status, toStatus: "approved", note: `Approved with "${approved.title}"` })),
+  );
 }

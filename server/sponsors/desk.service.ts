@@ -4,7 +4,7 @@ import type { DeskItem, DeskView } from "../../shared/sponsors/schemas";
 import type { Database } from "../db/client";
 import type { Caller } from "../http/route-table";
 import { openDeliverables } from "./deals.repository";
-import { seesFees } from "./deals.service";
+import { mayChangeItem, seesFees } from "./deals.service";
 import { catchUpPublishDates } from "./schedule.service";
 
 export async function desk(db: Database, caller: Caller, filter: { sponsorId?: string; episodeId?: string }, now = new Date()): Promise<DeskView> {
@@ -24,7 +24,7 @@ export async function desk(db: Database, caller: Caller, filter: { sponsorId?: s
   const chosen = grouped.filter(({ row }) => (!filter.sponsorId || row.sponsorId === filter.sponsorId) && (!filter.episodeId || row.episodeId === filter.episodeId));
   const counts = Object.fromEntries(deskGroups.map((g) => [g, 0])) as Record<DeskGroup, number>;
   for (const { group } of chosen) counts[group]++;
-  const items: DeskItem[] = chosen.map(({ row, group }) => ({ ...row, group, daysLate: latenessOf(row, today).daysLate }));
+  const items: DeskItem[] = chosen.map(({ row, group }) => ({ ...row, group, daysLate: latenessOf(row, today).daysLate, canEdit: mayChangeItem(caller.role, row.kind) }));
   return {
     today,
     counts,

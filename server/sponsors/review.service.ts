@@ -31,6 +31,7 @@ import {
 } from "./deals.repository";
 import type { Caller } from "../http/route-table";
 import { eventBy } from "./deals.service";
+import { approvePairedItems } from "./deliverables.service";
 import { closureOf, linkStateOf, type ReviewClosure, type ReviewTokens } from "./review-token";
 
 export interface ReviewDeps {
@@ -292,6 +293,10 @@ export async function decide(deps: ReviewDeps, token: string, input: z.output<ty
         note: input.comment,
       },
     ]);
+    if (input.decision === "approved") {
+      const sponsor = { channelId: claimed.channelId, actorId: null, actorName: claimed.contactName, actorKind: "sponsor" } as const;
+      await approvePairedItems(tx, sponsor, { id: row.link.deliverableId!, title: row.deliverableTitle ?? "the item" });
+    }
     await deps.jobs.enqueueMail(decisionMail(deps, row, claimed, input), { db: sql });
     return { decided: claimed, row } as const;
   });

@@ -23,7 +23,7 @@ const dueAndLate: BoardFlagSource = {
       const group = deskGroupOf(row, today);
       const line = `${row.company}: ${row.title} (${row.dueDate})`;
       if (group === "overdue") late.set(row.episodeId, [...(late.get(row.episodeId) ?? []), line]);
-      else if (group === "due_soon" || (group === "waiting" && row.dueDate !== null && row.dueDate <= shiftDate(today, DUE_SOON_DAYS))) {
+      else if (group !== null && row.dueDate !== null && row.dueDate <= shiftDate(today, DUE_SOON_DAYS)) {
         due.set(row.episodeId, [...(due.get(row.episodeId) ?? []), line]);
       }
     }

@@ -7,6 +7,7 @@ import {
   followedDueDates,
   generateDeliverables,
   latenessOf,
+  pairedByTemplate,
   reminderFor,
 } from "./deliverables";
 
@@ -64,6 +65,17 @@ describe("due dates from a template", () => {
   it("when the episode has no publish date, then the items have no date yet", () => {
     const generated = generateDeliverables([item("before_publish", 7), item("after_go_live", 30)], { publishDate: null, goLiveDate: null });
     expect(generated.map((g) => g.dueDate)).toEqual([null, null]);
+  });
+
+  it("links each approval item to the item it approves, by the template's positions", () => {
+    const paired = pairedByTemplate([{ approves: null }, { approves: 0 }, { approves: 2 }, { approves: 9 }], ["a", "b", "c", "d"]);
+    // Pointing at itself or past the end pairs with nothing.
+    expect(paired.map((p) => [p.id, p.approvesId])).toEqual([
+      ["a", null],
+      ["b", "a"],
+      ["c", null],
+      ["d", null],
+    ]);
   });
 
   it("keeps the template's order as positions", () => {
@@ -146,9 +158,16 @@ describe("the desk's groups", () => {
     expect(deskGroupOf({ status: "sent", dueDate: "2027-03-03" }, today)).toBe("waiting");
     expect(deskGroupOf({ status: "not_started", dueDate: "2027-03-01" }, today)).toBe("due_soon");
     // 1 March + 7 = 8 March: still inside the seven days; 9 March is later.
-    expect(deskGroupOf({ status: "changes_asked", dueDate: "2027-03-08" }, today)).toBe("due_soon");
+    expect(deskGroupOf({ status: "not_started", dueDate: "2027-03-08" }, today)).toBe("due_soon");
     expect(deskGroupOf({ status: "not_started", dueDate: "2027-03-09" }, today)).toBe("later");
     expect(deskGroupOf({ status: "not_started", dueDate: null }, today)).toBe("later");
+  });
+
+  it("puts changes the sponsor asked for among the things to act on now, whatever the date, unless already overdue", () => {
+    expect(deskGroupOf({ status: "changes_asked", dueDate: "2027-03-08" }, today)).toBe("changes_asked");
+    expect(deskGroupOf({ status: "changes_asked", dueDate: "2027-09-30" }, today)).toBe("changes_asked");
+    expect(deskGroupOf({ status: "changes_asked", dueDate: null }, today)).toBe("changes_asked");
+    expect(deskGroupOf({ status: "changes_asked", dueDate: "2027-02-28" }, today)).toBe("overdue");
   });
 
   it("leaves settled items off the desk", () => {

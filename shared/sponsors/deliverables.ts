@@ -115,6 +115,11 @@ export interface TemplateItem {
   offsetDays: number;
   /** Who usually does it; the deal picks a member with this role as the item's owner. */
   ownerRole: "owner" | "producer" | "editor" | null;
+  /**
+   * The position (in the same template) of the item this one is the sponsor's approval of: when the
+   * sponsor approves that item through a review link, this one is approved with it.
+   */
+  approves?: number | null;
 }
 
 export interface GeneratedItem extends TemplateItem {
@@ -125,6 +130,19 @@ export interface GeneratedItem extends TemplateItem {
 /** A deal's deliverables from its template, each dated from the episode's publish date or the go-live. */
 export function generateDeliverables(items: readonly TemplateItem[], basis: ScheduleBasis): GeneratedItem[] {
   return items.map((item, position) => ({ ...item, position, dueDate: dueDateFor(item, basis) }));
+}
+
+/**
+ * Gives generated items their ids and links each approval item to the item it approves, by the
+ * template's positions: rows inserted together can then name each other. A pairing that points
+ * nowhere (or at the item itself) is dropped.
+ */
+export function pairedByTemplate<T extends { approves?: number | null }>(items: readonly T[], ids: readonly string[]): (T & { id: string; approvesId: string | null })[] {
+  return items.map((item, index) => {
+    const target = item.approves ?? null;
+    const approvesId = target !== null && target !== index ? (ids[target] ?? null) : null;
+    return { ...item, id: ids[index]!, approvesId };
+  });
 }
 
 export interface MovableItem extends DatedItem {
@@ -166,11 +184,12 @@ export function latenessOf(item: { status: DeliverableStatus; dueDate: IsoDate |
   return days > 0 ? { late: true, daysLate: days } : { late: false, daysLate: 0 };
 }
 
-export const deskGroups = ["overdue", "due_soon", "waiting", "later"] as const;
+export const deskGroups = ["overdue", "changes_asked", "due_soon", "waiting", "later"] as const;
 export type DeskGroup = (typeof deskGroups)[number];
 
 export const deskGroupLabels: Record<DeskGroup, string> = {
   overdue: "Overdue",
+  changes_asked: "The sponsor asked for changes",
   due_soon: "Due in the next 7 days",
   waiting: "Waiting on the sponsor",
   later: "Later",
@@ -181,12 +200,14 @@ export const DUE_SOON_DAYS = 7;
 
 /**
  * One group per open item, in this precedence: overdue first (it needs action whoever holds it), then
+ * changes the sponsor asked for (the ball is back with the channel now, whatever the due date), then
  * waiting on the sponsor (the ball is in their court), then due in the next seven days, then later
  * (including items with no date yet). Settled items are not on the desk: null.
  */
 export function deskGroupOf(item: { status: DeliverableStatus; dueDate: IsoDate | null }, today: IsoDate): DeskGroup | null {
   if (isSettled(item.status)) return null;
   if (latenessOf(item, today).late) return "overdue";
+  if (item.status === "changes_asked") return "changes_asked";
   if (waitsOnSponsor(item.status)) return "waiting";
   if (item.dueDate !== null && daysBetween(today, item.dueDate) <= DUE_SOON_DAYS) return "due_soon";
   return "later";
@@ -213,9 +234,9 @@ export function reminderFor(item: { status: DeliverableStatus; dueDate: IsoDate 
  */
 export const suggestedTemplateItems: TemplateItem[] = [
   { kind: "script_draft", title: "Script draft to the sponsor", anchor: "before_publish", offsetDays: 21, ownerRole: "producer" },
-  { kind: "script_approval", title: "Sponsor approves the script", anchor: "before_publish", offsetDays: 14, ownerRole: "producer" },
+  { kind: "script_approval", title: "Sponsor approves the script", anchor: "before_publish", offsetDays: 14, ownerRole: "producer", approves: 0 },
   { kind: "draft_cut", title: "Draft cut of the segment to the sponsor", anchor: "before_publish", offsetDays: 7, ownerRole: "editor" },
-  { kind: "final_approval", title: "Sponsor's final approval", anchor: "before_publish", offsetDays: 3, ownerRole: "producer" },
+  { kind: "final_approval", title: "Sponsor's final approval", anchor: "before_publish", offsetDays: 3, ownerRole: "producer", approves: 2 },
   { kind: "go_live", title: "Video goes live", anchor: "after_go_live", offsetDays: 0, ownerRole: "owner" },
   { kind: "report", title: "Figures report to the sponsor", anchor: "after_go_live", offsetDays: 30, ownerRole: "producer" },
   { kind: "invoice", title: "Invoice the sponsor", anchor: "after_go_live", offsetDays: 1, ownerRole: "producer" },

@@ -92,18 +92,31 @@ export const templateItemSchema = z.strictObject({
     .min(0, "Use 0 or more days.")
     .max(365, "Use at most 365 days."),
   ownerRole: z.enum(["owner", "producer", "editor"]).nullable(),
+  approves: z.number({ error: "Pick the item this one approves." }).int("Pick the item this one approves.").min(0, "Pick the item this one approves.").nullable().default(null),
 });
 
 export const templateInputSchema = z.strictObject({
   name: requiredText(80, "Name the template."),
-  items: z.array(templateItemSchema).min(1, "Add at least one item.").max(30, "Keep a template to 30 items."),
+  items: z
+    .array(templateItemSchema)
+    .min(1, "Add at least one item.")
+    .max(30, "Keep a template to 30 items.")
+    .superRefine((items, ctx) => {
+      items.forEach((item, index) => {
+        if (item.approves === null) return;
+        if (item.approves === index || item.approves >= items.length) {
+          ctx.addIssue({ code: "custom", path: [index, "approves"], message: "Pick another item of this template for this one to approve." });
+        }
+      });
+    }),
 });
 export type TemplateInput = z.input<typeof templateInputSchema>;
 
 export interface DealTemplate {
   id: string;
   name: string;
-  items: z.infer<typeof templateItemSchema>[];
+  // Input shape: templates saved before items could be paired have no "approves".
+  items: z.input<typeof templateItemSchema>[];
   version: number;
 }
 
@@ -409,9 +422,13 @@ export interface DeskItem {
   title: string;
   dueDate: string | null;
   status: (typeof deliverableStatuses)[number];
+  /** The item's version, sent back with a status changed from the desk. */
+  version: number;
   ownerName: string | null;
   group: (typeof deskGroups)[number];
   daysLate: number;
+  /** Whether the caller may change this item's status from the desk. */
+  canEdit: boolean;
 }
 
 export interface DeskView {

@@ -164,7 +164,7 @@ describe("the desk and the board", () => {
 
   it("groups open items as overdue, due in 7 days, waiting on the sponsor and later, with counts", async () => {
     const view = (await desk.get(`/api/channels/${channel.channel.id}/desk`).expect(200)).body as DeskView;
-    expect(view.counts).toEqual({ overdue: 2, due_soon: 1, waiting: 1, later: 2 });
+    expect(view.counts).toEqual({ overdue: 2, changes_asked: 0, due_soon: 1, waiting: 1, later: 2 });
     expect(view.items.filter((i) => i.group === "overdue").map((i) => [i.title, i.daysLate])).toEqual([
       ["Script draft", 3],
       ["Invoice", 2],

@@ -34,6 +34,10 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await producer.getByRole("button", { name: "New template" }).click();
   const templateForm = producer.getByRole("form", { name: "New template" });
   await templateForm.getByLabel("Template name").fill("Mid-roll read");
+  // The suggested outline pairs each approval with what it approves: the sponsor's approval of a sent item carries to it.
+  await expect(templateForm.getByLabel("Approval of, item 2")).toHaveValue("0");
+  await expect(templateForm.getByLabel("Approval of, item 2").locator("option:checked")).toHaveText("Approves: Script draft to the sponsor");
+  await snap(producer, "sponsors-02a-template-form");
   await templateForm.getByRole("button", { name: "Save template" }).click();
   await expect(producer.getByRole("heading", { name: "Mid-roll read" })).toBeVisible();
   await snap(producer, "sponsors-02-sponsor-and-template");

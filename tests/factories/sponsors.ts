@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { shiftDate } from "../../shared/sponsors/dates";
-import { generateDeliverables, suggestedTemplateItems, type TemplateItem } from "../../shared/sponsors/deliverables";
+import { generateDeliverables, pairedByTemplate, suggestedTemplateItems, type TemplateItem } from "../../shared/sponsors/deliverables";
 import type { DeliverableKind, DeliverableStatus } from "../../shared/sponsors/deliverables";
 import type { Database } from "../../server/db/client";
 import { dealTemplates, deals, deliverables, sponsorContacts, sponsors } from "../../server/db/schema/sponsors";
@@ -80,7 +80,9 @@ export async function createDeal(db: Database, channelId: string, episodeId: str
     ? await db
         .insert(deliverables)
         .values(
-          generated.map((item, index) => ({
+          pairedByTemplate(generated, generated.map(() => randomUUID())).map((item, index) => ({
+            id: item.id,
+            approvesId: item.approvesId,
             channelId,
             dealId: deal!.id,
             kind: item.kind,

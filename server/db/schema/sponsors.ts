@@ -1,4 +1,4 @@
-import { boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { type AnyPgColumn, boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { createdAt, id, timestamps, updatedAt, version } from "./columns";
 import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
 import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
@@ -122,9 +122,16 @@ export const deliverables = pgTable(
     ownerId: personRef("owner_id"),
     position: integer("position").notNull().default(0),
     version: version(),
+    // The item of the same deal this one is the sponsor's approval of (from the template's pairing):
+    // when the sponsor approves that item through a review link, this one is approved with it.
+    approvesId: uuid("approves_id").references((): AnyPgColumn => deliverables.id, { onDelete: "set null" }),
     ...timestamps(),
   },
-  (table) => [index("deliverables_deal_idx").on(table.dealId), index("deliverables_channel_due_idx").on(table.channelId, table.dueDate)],
+  (table) => [
+    index("deliverables_deal_idx").on(table.dealId),
+    index("deliverables_channel_due_idx").on(table.channelId, table.dueDate),
+    index("deliverables_approves_idx").on(table.approvesId),
+  ],
 );
 
 export const deliverableEvents = pgTable(

@@ -1,17 +1,20 @@
+import { useState } from "react";
 import { Link, useSearchParams } from "react-router-dom";
-import { deliverableKindLabels, deskGroupLabels, type DeskGroup } from "@shared/sponsors/deliverables";
+import { deliverableKindLabels, deliverableStatusLabels, deliverableStatuses, deskGroupLabels, type DeliverableStatus, type DeskGroup } from "@shared/sponsors/deliverables";
 import type { DeskItem } from "@shared/sponsors/schemas";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
 import { useChannel } from "../../../lib/session";
 import { useDesk } from "../api/get-desk";
+import { useUpdateDeliverable } from "../api/update-deliverable";
 import { StatusTag } from "./labels";
 
 // The order the producer reads the desk in; each item sits in exactly one group (see deskGroupOf).
-const shownOrder: DeskGroup[] = ["overdue", "due_soon", "waiting", "later"];
+const shownOrder: DeskGroup[] = ["overdue", "changes_asked", "due_soon", "waiting", "later"];
 const groupAccent: Record<DeskGroup, string> = {
   overdue: "border-alarm-600 text-alarm-600",
+  changes_asked: "border-rust-600 text-rust-600",
   due_soon: "border-amber-cut text-graphite-900",
   waiting: "border-graphite-500 text-graphite-700",
   later: "border-ply-300 text-graphite-700",
@@ -27,6 +30,8 @@ function Desk({ channelId }: { channelId: string }) {
   const [params, setParams] = useSearchParams();
   const filter = { sponsorId: params.get("sponsor") ?? undefined, episodeId: params.get("episode") ?? undefined };
   const desk = useDesk(channelId, filter);
+  // Said once a status change is saved: the row may move to another group or leave the desk.
+  const [announcement, setAnnouncement] = useState("");
   const setFilter = (key: "sponsor" | "episode", value: string) => {
     const next = new URLSearchParams(params);
     if (value) next.set(key, value);
@@ -40,7 +45,7 @@ function Desk({ channelId }: { channelId: string }) {
       <QueryState query={desk} loading="Loading the desk…" page>
         {(data) => (
           <>
-            <ul aria-label="Counts" className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-4">
+            <ul aria-label="Counts" className="mb-6 grid grid-cols-2 gap-3 sm:grid-cols-5">
               {shownOrder.map((group) => (
                 <li key={group} className={`rounded-lg border-l-4 bg-white p-3 shadow-sm ${groupAccent[group]}`}>
                   <a href={`#desk-${group}`} className="block">
@@ -59,8 +64,11 @@ function Desk({ channelId }: { channelId: string }) {
             {data.items.length === 0 ? (
               <Empty title="Nothing open">{filter.sponsorId || filter.episodeId ? "No open items for this filter." : "Deals' deliverables appear here once a deal has items."}</Empty>
             ) : (
-              shownOrder.map((group) => <Group key={group} channelId={channelId} group={group} items={data.items.filter((i) => i.group === group)} />)
+              shownOrder.map((group) => <Group key={group} channelId={channelId} group={group} items={data.items.filter((i) => i.group === group)} onSaved={setAnnouncement} />)
             )}
+            <p role="status" className="sr-only" data-testid="desk-announcement">
+              {announcement}
+            </p>
           </>
         )}
       </QueryState>
@@ -87,7 +95,7 @@ function FilterSelect({ label, value, onChange, options }: { label: string; valu
   );
 }
 
-function Group({ channelId, group, items }: { channelId: string; group: DeskGroup; items: DeskItem[] }) {
+function Group({ channelId, group, items, onSaved }: { channelId: string; group: DeskGroup; items: DeskItem[]; onSaved: (announcement: string) => void }) {
   if (items.length === 0) return null;
   return (
     <section id={`desk-${group}`} aria-labelledby={`desk-${group}-heading`} className="mb-6">
@@ -110,10 +118,50 @@ function Group({ channelId, group, items }: { channelId: string; group: DeskGrou
               </span>
             </span>
             <span className="text-sm text-graphite-700">{item.ownerName ?? "No owner"}</span>
-            <StatusTag status={item.status} />
+            {item.canEdit ? <StatusControl channelId={channelId} item={item} onSaved={onSaved} /> : <StatusTag status={item.status} />}
           </li>
         ))}
       </ul>
     </section>
+  );
+}
+
+/**
+ * The item's status, changed in place. The new status shows at once and stays while the desk is
+ * fetched again (the mutation is pending until then); a refusal puts the old one back and says why.
+ */
+function StatusControl({ channelId, item, onSaved }: { channelId: string; item: DeskItem; onSaved: (announcement: string) => void }) {
+  const update = useUpdateDeliverable(channelId);
+  const shown = update.isPending ? (update.variables.input.status ?? item.status) : item.status;
+  const id = `desk-status-${item.id}`;
+  const change = (status: DeliverableStatus) =>
+    update.mutate({ id: item.id, input: { status, version: item.version } }, { onSuccess: () => onSaved(`"${item.title}" is now ${deliverableStatusLabels[status].toLowerCase()}.`) });
+  return (
+    <div className="flex flex-col gap-1">
+      <label className="sr-only" htmlFor={id}>
+        Status of {item.title}
+      </label>
+      <select
+        id={id}
+        value={shown}
+        aria-busy={update.isPending}
+        aria-invalid={update.isError}
+        aria-describedby={update.isError ? `${id}-error` : undefined}
+        onChange={(e) => change(e.target.value as DeliverableStatus)}
+        className="rounded-md border border-ply-300 bg-white px-2 py-1 text-sm aria-busy:opacity-70"
+      >
+        {deliverableStatuses.map((s) => (
+          <option key={s} value={s}>
+            {deliverableStatusLabels[s]}
+          </option>
+        ))}
+      </select>
+      {update.isPending && <span className="text-xs text-graphite-500">Saving…</span>}
+      {update.isError && (
+        <span id={`${id}-error`} role="alert" className="text-xs text-alarm-600">
+          Not saved: {update.error.message}
+        </span>
+      )}
+    </div>
   );
 }

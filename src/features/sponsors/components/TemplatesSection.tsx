@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useFieldArray, useForm } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { anchorLabels, describeDating, deliverableKindLabels, deliverableKinds, suggestedTemplateItems, templateAnchors } from "@shared/sponsors/deliverables";
 import { templateInputSchema, type DealTemplate } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
@@ -61,7 +61,10 @@ export function TemplatesSection({ channelId, canEdit }: { channelId: string; ca
                 <ol className="flex flex-col gap-0.5 text-sm">
                   {t.items.map((item, i) => (
                     <li key={i} className="flex justify-between gap-3">
-                      <span>{item.title}</span>
+                      <span>
+                        {item.title}
+                        {item.approves != null && t.items[item.approves] && <span className="block text-xs text-graphite-500">Approves: {t.items[item.approves]!.title}</span>}
+                      </span>
                       <span className="whitespace-nowrap text-graphite-500">
                         {describeDating(item.anchor, item.offsetDays)}
                       </span>
@@ -83,6 +86,8 @@ interface ItemValues {
   anchor: string;
   offsetDays: string;
   ownerRole: string;
+  /** The position of the item this one approves, or "" for none. */
+  approves: string;
 }
 interface TemplateValues {
   name: string;
@@ -90,7 +95,19 @@ interface TemplateValues {
 }
 
 const toValues = (items: DealTemplate["items"]): ItemValues[] =>
-  items.map((i) => ({ kind: i.kind, title: i.title, anchor: i.anchor, offsetDays: String(i.offsetDays), ownerRole: i.ownerRole ?? "" }));
+  items.map((i) => ({ kind: i.kind, title: i.title, anchor: i.anchor, offsetDays: String(i.offsetDays), ownerRole: i.ownerRole ?? "", approves: i.approves == null ? "" : String(i.approves) }));
+
+/** The rows left when one is removed, with each pairing still naming the same item (or none, if it was the one removed). */
+function withoutRow(values: ItemValues[], removed: number): ItemValues[] {
+  return values
+    .filter((_, index) => index !== removed)
+    .map((item) => {
+      if (item.approves === "") return item;
+      const target = Number(item.approves);
+      if (target === removed) return { ...item, approves: "" };
+      return target > removed ? { ...item, approves: String(target - 1) } : item;
+    });
+}
 
 function TemplateForm({ channelId, template, onDone }: { channelId: string; template: DealTemplate | null; onDone: () => void }) {
   const save = useSaveTemplate(channelId);
@@ -98,12 +115,13 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
   const form = useForm<TemplateValues, unknown, ReturnType<typeof templateInputSchema.parse>>({
     resolver: schemaResolver(templateInputSchema, (v: TemplateValues) => ({
       name: v.name,
-      items: v.items.map((i) => ({ kind: i.kind, title: i.title, anchor: i.anchor, offsetDays: numberFrom(i.offsetDays), ownerRole: i.ownerRole || null })),
+      items: v.items.map((i) => ({ kind: i.kind, title: i.title, anchor: i.anchor, offsetDays: numberFrom(i.offsetDays), ownerRole: i.ownerRole || null, approves: i.approves === "" ? null : Number(i.approves) })),
     })),
     defaultValues: { name: template?.name ?? "", items: toValues(template?.items ?? suggestedTemplateItems) },
   });
   const record = useOpenedRecord<DealTemplate>(template, (current) => form.reset({ name: current.name, items: toValues(current.items) }));
   const items = useFieldArray({ control: form.control, name: "items" });
+  const titles = useWatch({ control: form.control, name: "items" }).map((item, index) => item.title.trim() || `Item ${index + 1}`);
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (input) => {
     setFormError(null);
@@ -124,7 +142,7 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
       {errorAt(errors, "items") && <p className="text-sm text-alarm-600">{errorAt(errors, "items")}</p>}
       <ol className="flex flex-col gap-2">
         {items.fields.map((field, index) => (
-          <li key={field.id} className="grid items-start gap-2 rounded-md border border-ply-200 p-2 sm:grid-cols-[10rem_1fr_5rem_11rem_10rem_auto]">
+          <li key={field.id} className="grid items-start gap-2 rounded-md border border-ply-200 p-2 sm:grid-cols-[10rem_1fr_5rem_11rem_10rem_auto] lg:grid-cols-[10rem_1fr_5rem_11rem_10rem_12rem_auto]">
             <select aria-label={`Kind of item ${index + 1}`} className="rounded-md border border-ply-300 bg-white px-2 py-2" {...form.register(`items.${index}.kind`)}>
               {deliverableKinds.map((k) => (
                 <option key={k} value={k}>
@@ -154,14 +172,27 @@ function TemplateForm({ channelId, template, onDone }: { channelId: string; temp
                 </option>
               ))}
             </select>
-            <Button type="button" tone="quiet" className="px-2" aria-label={`Remove item ${index + 1}`} onClick={() => items.remove(index)}>
+            <div className="sm:col-span-5 lg:col-span-1">
+              <select aria-label={`Approval of, item ${index + 1}`} className="w-full rounded-md border border-ply-300 bg-white px-2 py-2" {...form.register(`items.${index}.approves`)}>
+                <option value="">Approves: none</option>
+                {titles.map((title, other) =>
+                  other === index ? null : (
+                    <option key={other} value={String(other)}>
+                      Approves: {title}
+                    </option>
+                  ),
+                )}
+              </select>
+              {errorAt(errors, `items.${index}.approves`) && <p className="text-xs text-alarm-600">{errorAt(errors, `items.${index}.approves`)}</p>}
+            </div>
+            <Button type="button" tone="quiet" className="px-2" aria-label={`Remove item ${index + 1}`} onClick={() => items.replace(withoutRow(form.getValues("items"), index))}>
               ✕
             </Button>
           </li>
         ))}
       </ol>
       <div className="flex flex-wrap gap-2">
-        <Button type="button" tone="quiet" onClick={() => items.append({ kind: "other", title: "", anchor: "before_publish", offsetDays: "7", ownerRole: "" })}>
+        <Button type="button" tone="quiet" onClick={() => items.append({ kind: "other", title: "", anchor: "before_publish", offsetDays: "7", ownerRole: "", approves: "" })}>
           Add a row
         </Button>
         <Button type="submit" busy={save.isPending}>
