@@ -51,7 +51,8 @@ async function sendForReview(dealId: string, deliverableId: string, contactId: s
 
 async function decide(token: string, decision: "approved" | "changes_asked", comment: string | null = null) {
   const visitor = await app.visitor();
-  await visitor.send("post", `/api/review/${token}/decision`, { decision, comment }).expect(200);
+  const { seen } = (await visitor.get(`/api/review/${token}`).expect(200)).body;
+  await visitor.send("post", `/api/review/${token}/decision`, { decision, comment, seen }).expect(200);
 }
 
 const publishProblems = (episodeId: string) => gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId, from: "sponsor_read", to: "publish" });
