@@ -67,7 +67,7 @@ test("an editor marks in and out from the picture by keyboard on a 29.97 drop-fr
   // N writes the note, Enter saves it; the keys are back on the player for the next mark.
   await page.keyboard.press("n");
   // Letters typed before the note has the focus are the player's keys ("i" sets in): wait for it.
-  await expect(panel.getByRole("textbox", { name: "Note" })).toBeFocused();
+  await expect(panel.getByRole("textbox", { name: "Note", exact: true })).toBeFocused();
   await page.keyboard.type("chine catches spray");
   await page.keyboard.press("Enter");
   const saved = panel.getByRole("list", { name: "Marks on this clip" });
