@@ -62,7 +62,7 @@ describe("incompatible units", () => {
     const values: MetricValues = { thrust_per_watt: q(7, "gf/W") };
     expect(evaluateCriterion(wrong, values)).toEqual({
       error: "incompatible_units",
-      message: "threshold is in g but thrust_per_watt is in gf/W",
+      message: "The threshold is in g but thrust per watt is in gf/W",
     });
   });
 
@@ -70,7 +70,7 @@ describe("incompatible units", () => {
     const wrong: Criterion = { metric: "thrust_to_weight", comparator: "between", low: q(1, "1"), high: q(3, "N"), required: true };
     expect(evaluateCriterion(wrong, { thrust_to_weight: q(2, "1") })).toEqual({
       error: "incompatible_units",
-      message: "high is in N but thrust_to_weight is a plain ratio (unit 1)",
+      message: "The high bound is in N but thrust-to-weight is a plain ratio (unit 1)",
     });
   });
 
@@ -79,7 +79,7 @@ describe("incompatible units", () => {
     expect(result.success).toBe(false);
     expect(result.error?.issues[0]).toMatchObject({
       path: ["threshold", "unit"],
-      message: "threshold is in g but thrust_per_watt is in gf/W",
+      message: "The threshold is in g but thrust per watt is in gf/W",
     });
   });
 

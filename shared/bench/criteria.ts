@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { oneLine } from "../fields/text";
+import { metricLabels } from "./format";
 import {
   type Figure,
   type FigureName,
@@ -103,7 +104,9 @@ function bounds(criterion: Criterion): Record<string, Quantity> {
 }
 
 function mismatch(field: string, boundUnit: string, metric: MetricName, measuredUnit: string) {
-  return `${field} is ${describeUnit(boundUnit)} but ${metric} is ${describeUnit(measuredUnit)}`;
+  const figure = metricLabels[metric].toLowerCase();
+  const bound = field === "low" || field === "high" ? `${field} bound` : field;
+  return `The ${bound} is ${describeUnit(boundUnit)} but ${figure} is ${describeUnit(measuredUnit)}`;
 }
 
 // A value converted between units in binary floating point can land a hair off the exact

@@ -42,7 +42,7 @@ describe("numbers and figures for people", () => {
 
   it("labels outcomes, errors with their message", () => {
     expect(outcomeLabel("not_measured")).toBe("not measured");
-    expect(outcomeLabel({ error: "incompatible_units", message: "threshold is in g but thrust_per_watt is in gf/W" })).toBe("error: threshold is in g but thrust_per_watt is in gf/W");
+    expect(outcomeLabel({ error: "incompatible_units", message: "The threshold is in g but thrust per watt is in gf/W" })).toBe("error: The threshold is in g but thrust per watt is in gf/W");
   });
 });
 

@@ -82,7 +82,7 @@ describe("pass criteria", () => {
   it("when a criterion's threshold is in a unit of another kind, then the error sits on the threshold's unit and nothing is saved", async () => {
     const { agent, base } = await setting();
     const response = await agent.send("post", `${base}/criteria`, { metric: "thrust_per_watt", comparator: "gte", threshold: q(5, "g"), required: true }).expect(400);
-    expect(response.body.error.fields).toEqual({ "threshold.unit": "threshold is in g but thrust_per_watt is in gf/W" });
+    expect(response.body.error.fields).toEqual({ "threshold.unit": "The threshold is in g but thrust per watt is in gf/W" });
     expect((await agent.get(base).expect(200)).body.plan.criteria).toEqual([]);
   });
 

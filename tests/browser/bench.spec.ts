@@ -72,7 +72,7 @@ test("a host plans a test, measures three candidates in mixed units and sees the
 
   // A criterion in the wrong unit: thrust per watt against grams is refused on the unit, with the units that fit.
   await addCriterion(newCriterion, "thrust_per_watt", "5", "g");
-  await expect(newCriterion.getByText("threshold is in g but thrust_per_watt is in gf/W")).toBeVisible();
+  await expect(newCriterion.getByText("The threshold is in g but thrust per watt is in gf/W")).toBeVisible();
   await expect(newCriterion.getByText("In gf/W, kgf/W, N/W.")).toBeVisible();
   await snap(page, "bench-02-criterion-wrong-unit");
   await newCriterion.getByLabel("Unit of threshold").fill("gf/W");

@@ -88,6 +88,7 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
                 </table>
               </div>
             )}
+            {(history.length > 0 || page.nextCursor) && (
             <nav aria-label="Pages" className="mt-3 flex gap-2">
               <Button
                 tone="quiet"
@@ -111,6 +112,7 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
                 Next page
               </Button>
             </nav>
+            )}
           </>
         )}
       </QueryState>
