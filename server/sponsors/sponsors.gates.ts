@@ -1,5 +1,5 @@
 import { daysBetween } from "../../shared/sponsors/dates";
-import { deliverableStatusLabels, isSettled } from "../../shared/sponsors/deliverables";
+import { isSettled, openStatusPhrases } from "../../shared/sponsors/deliverables";
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import type { GateProblem } from "../../shared/slate/gates";
 import { entersStageForward, type GateContext, type StageGate } from "../seams/stage-gates";
@@ -28,7 +28,7 @@ const unapprovedItems: StageGate = {
         if (!beforePublish) continue;
         problems.push({
           code: "sponsors.unapproved_item",
-          message: `${deal.company}: "${item.title}" is ${deliverableStatusLabels[item.status].toLowerCase()}, not approved or done.`,
+          message: `${deal.company}: "${item.title}" ${openStatusPhrases[item.status]}; it must be approved or done before publishing.`,
         });
       }
     }

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { amountTextSchema, plainAmount } from "../fields/amounts";
 import { calendarDateSchema } from "../fields/dates";
 import { multiLine, oneLine } from "../fields/text";
 import { versionSchema } from "../http/version";
@@ -35,7 +36,7 @@ const episodeFieldsObject = z.strictObject({
   whyWorthIt: multiLine(2000, { tooLong: "Keep this under 2,000 characters." }),
   ownerId: blankOr(z.uuid({ error: "Pick a member of this channel." })),
   tags: z.array(tagSchema).max(12, "Use at most 12 tags."),
-  budgetAmount: blankOr(z.string().trim().regex(/^\d{1,9}(\.\d{1,2})?$/, "Write the budget as a number, e.g. 250 or 249.99.")),
+  budgetAmount: blankOr(amountTextSchema("budget")).transform(plainAmount),
   budgetCurrency: blankOr(z.string().regex(/^[A-Z]{3}$/, "Pick a currency (a three-letter code such as EUR).")),
   targetPublishDate: blankOr(isoDateSchema),
 });

@@ -45,6 +45,15 @@ export const deliverableStatusLabels: Record<DeliverableStatus, string> = {
   done: "Done",
 };
 
+/** How a gate or a message says where an open item stands, in a sentence. */
+export const openStatusPhrases: Record<DeliverableStatus, string> = {
+  not_started: "has not been started",
+  sent: "was sent and waits on the sponsor",
+  changes_asked: "came back: changes were asked",
+  approved: "is approved",
+  done: "is done",
+};
+
 /**
  * An approved or done item has happened: it is never late and its date no longer moves. (Approval is
  * the end of an approval item; asking for a separate "done" after the sponsor approved would be busywork.)

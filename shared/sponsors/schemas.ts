@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { amountNumberSchema } from "../fields/amounts";
 import { type FrameRateName, frameRateNames, frameRates, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
 import { emailSchema } from "../auth/schemas";
@@ -164,11 +165,7 @@ const segmentFields = {
 };
 
 export const moneySchema = z.strictObject({
-  fee: z
-    .number({ error: "Enter the fee." })
-    .min(0, "The fee can't be negative.")
-    .max(1_000_000_000, "That fee is too large.")
-    .refine((v) => Math.abs(v * 100 - Math.round(v * 100)) < 1e-6, { message: "Use at most two decimals." }),
+  fee: amountNumberSchema("fee", 1_000_000_000),
   currency: z
     .string({ error: "Enter a currency code." })
     .trim()

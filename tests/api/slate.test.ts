@@ -68,7 +68,7 @@ describe("creating an episode", () => {
     expect(response.body.error.fields).toEqual({
       title: "Give the episode a working title.",
       question: "Keep this to one line.",
-      budgetAmount: "Write the budget as a number, e.g. 250 or 249.99.",
+      budgetAmount: "Write the budget as a number, e.g. 1800.50 or 1,800.50.",
       budgetCurrency: "Pick the budget's currency.",
       targetPublishDate: "That date doesn't exist.",
       "tags.1": "Tags are words: letters, digits, spaces and dashes.",
@@ -87,6 +87,19 @@ describe("creating an episode", () => {
     expect(notMember.body.error.fields).toEqual({ ownerId: "Pick a member of this channel." });
     const unknownField = await agent.send("post", `/api/channels/${channel.id}/episodes`, { ...fields(), stage: "publish" }).expect(400);
     expect(unknownField.body.error.code).toBe("validation_failed");
+  });
+});
+
+describe("a budget as people type it", () => {
+  it("when the budget is typed with grouping marks, then it is kept as the plain amount; a negative one is told it must be zero or more", async () => {
+    const { channel, owner } = await createCrewedChannel(app.db);
+    const agent = await app.signedIn(owner);
+    const grouped = await newEpisode(agent, channel.id, { budgetAmount: "1,800.50", budgetCurrency: "EUR" });
+    expect(grouped.budgetAmount).toBe("1800.50");
+    const european = await newEpisode(agent, channel.id, { budgetAmount: "1.800,50", budgetCurrency: "EUR" });
+    expect(european.budgetAmount).toBe("1800.50");
+    const negative = await agent.send("post", `/api/channels/${channel.id}/episodes`, fields({ budgetAmount: "-20", budgetCurrency: "EUR" })).expect(400);
+    expect(negative.body.error.fields).toEqual({ budgetAmount: "The budget must be zero or more." });
   });
 });
 

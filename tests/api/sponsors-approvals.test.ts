@@ -67,8 +67,8 @@ describe("a sponsor's decision through a review link", () => {
     const made = await dealAwaitingScript();
     const before = await publishProblems(made.episode.id);
     expect(before.map((p) => p.message)).toEqual([
-      'Quillon Clamps: "Script draft to the sponsor" is not started, not approved or done.',
-      'Quillon Clamps: "Sponsor approves the script" is not started, not approved or done.',
+      'Quillon Clamps: "Script draft to the sponsor" has not been started; it must be approved or done before publishing.',
+      'Quillon Clamps: "Sponsor approves the script" has not been started; it must be approved or done before publishing.',
     ]);
 
     await decide(await sendForReview(made.deal.id, made.draft.id, made.contact.id), "approved");
@@ -91,8 +91,8 @@ describe("a sponsor's decision through a review link", () => {
     expect(items.script_draft!.status).toBe("changes_asked");
     expect(items.script_approval!.status).toBe("not_started");
     expect((await publishProblems(made.episode.id)).map((p) => p.message)).toEqual([
-      'Quillon Clamps: "Script draft to the sponsor" is changes asked, not approved or done.',
-      'Quillon Clamps: "Sponsor approves the script" is not started, not approved or done.',
+      'Quillon Clamps: "Script draft to the sponsor" came back: changes were asked; it must be approved or done before publishing.',
+      'Quillon Clamps: "Sponsor approves the script" has not been started; it must be approved or done before publishing.',
     ]);
   });
 

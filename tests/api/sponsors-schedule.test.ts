@@ -110,7 +110,7 @@ describe("the publish gate", () => {
     await createDeal(app.db, world.channel.id, episode.id, { sponsorId: sponsor.id, publishDate: "2027-09-30", statuses: { 0: "done", 1: "approved", 2: "approved" }, script: "Great tools, check them out." });
     const problems = await gateProblems(slatePlugs.stageGates, { db: app.db, channelId: world.channel.id, episodeId: episode.id, from: "sponsor_read", to: "publish" });
     expect(problems.map((p) => p.code).sort()).toEqual(["sponsors.no_disclosure_in_description", "sponsors.no_disclosure_in_segment", "sponsors.unapproved_item"].sort());
-    expect(problems.find((p) => p.code === "sponsors.unapproved_item")!.message).toBe('Gatewright: "Sponsor\'s final approval" is not started, not approved or done.');
+    expect(problems.find((p) => p.code === "sponsors.unapproved_item")!.message).toBe('Gatewright: "Sponsor\'s final approval" has not been started; it must be approved or done before publishing.');
   });
 
   it("when everything due before publish is approved and the disclosure is in both places, then the move is clear", async () => {

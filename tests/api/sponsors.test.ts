@@ -128,6 +128,16 @@ describe("a deal made from a template", () => {
     expect(deal.money).toEqual({ fee: 4321.5, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null });
   });
 
+  it("when the fee is sent as typed, 1,800.50, then it is understood; words are not", async () => {
+    const episode = await createEpisode(app.db, world.channel.id);
+    const sponsor = await createSponsor(app.db, world.channel.id);
+    const money = { fee: "1,800.50", currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null };
+    const made = await as.producer.send("post", api("/deals"), newDeal(episode.id, sponsor.id, { money })).expect(201);
+    expect(made.body.deal.money.fee).toBe(1800.5);
+    const words = await as.producer.send("post", api("/deals"), newDeal(episode.id, sponsor.id, { money: { ...money, fee: "lots" } })).expect(400);
+    expect(words.body.error.fields).toEqual({ "money.fee": "Write the fee as a number, e.g. 1800.50 or 1,800.50." });
+  });
+
   it("when the deal's input is bad, then each field says why and no deal is made", async () => {
     const episode = await createEpisode(app.db, world.channel.id);
     const sponsor = await createSponsor(app.db, world.channel.id);
@@ -141,6 +151,7 @@ describe("a deal made from a template", () => {
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(
       ["link", "money.currency", "money.fee", "money.invoicedOn", "money.paymentTermsDays", "money.paymentTermsFrom", "promoCode", "segmentSeconds"].sort(),
     );
+    expect(bad.body.error.fields["money.fee"]).toBe("The fee must be zero or more.");
     const other = await createCrewedChannel(app.db, "Other");
     const theirEpisode = await createEpisode(app.db, other.channel.id);
     const wrongEpisode = await as.producer.send("post", api("/deals"), newDeal(theirEpisode.id, sponsor.id)).expect(400);

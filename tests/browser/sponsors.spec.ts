@@ -55,9 +55,9 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await dealForm.getByLabel("Promo code").fill("MILLRACE10");
   await dealForm.getByLabel("Fee").fill("-3");
   await dealForm.getByRole("button", { name: "Create deal" }).click();
-  await expect(dealForm.getByText("The fee can't be negative.")).toBeVisible();
+  await expect(dealForm.getByText("The fee must be zero or more.")).toBeVisible();
   await snap(producer, "sponsors-03-deal-form-errors");
-  await dealForm.getByLabel("Fee").fill("2750");
+  await dealForm.getByLabel("Fee").fill("2,750.00");
   await dealForm.getByRole("button", { name: "Create deal" }).click();
   await expect(deals.getByRole("heading", { name: "Halvard Power Supplies" })).toBeVisible();
   // 2 March 2027 − 7 days = 23 February (2027 has no 29 February); + 30 days after go-live = 1 April.

@@ -38,7 +38,7 @@ export function MoneyPanel({ channelId, deal, value }: { channelId: string; deal
   const update = useUpdateMoney(channelId, deal.id);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<MoneyForm, unknown, Money>({
-    resolver: schemaResolver(moneySchema, (v: MoneyForm) => ({ ...v, fee: numberFrom(v.fee), paymentTermsDays: numberFrom(v.paymentTermsDays) })),
+    resolver: schemaResolver(moneySchema, (v: MoneyForm) => ({ ...v, fee: v.fee, paymentTermsDays: numberFrom(v.paymentTermsDays) })),
     defaultValues: moneyValues(value),
   });
   // The deal as the form opened: the save is made against its version.

@@ -51,7 +51,7 @@ const toBody = (episodeId: string) => (v: DealForm) => ({
   script: "",
   hostId: null,
   goLiveDate: null,
-  money: { fee: numberFrom(v.fee), currency: v.currency, paymentTermsDays: numberFrom(v.paymentTermsDays), paymentTermsFrom: v.paymentTermsFrom, invoiceNumber: null, invoicedOn: null, paidOn: null },
+  money: { fee: v.fee, currency: v.currency, paymentTermsDays: numberFrom(v.paymentTermsDays), paymentTermsFrom: v.paymentTermsFrom, invoiceNumber: null, invoicedOn: null, paidOn: null },
 });
 
 /** A new deal on this episode: the segment it buys, the money, and the template its items come from. */
