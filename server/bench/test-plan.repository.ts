@@ -84,10 +84,10 @@ export async function listHazards(db: Queryable, channelId: string, episodeId: s
     .orderBy(asc(safetyHazards.createdAt), asc(safetyHazards.id));
 }
 
+/** The new hazard's row id, or null when that listed hazard is already on the episode's plan. */
 export async function insertHazard(db: Queryable, values: { channelId: string; episodeId: string; kind: string; title: string | null; mitigation: string }) {
-  const [row] = await db.insert(safetyHazards).values(values).returning({ id: safetyHazards.id });
-  if (!row) throw new Error("hazard insert returned nothing");
-  return row;
+  const [row] = await db.insert(safetyHazards).values(values).onConflictDoNothing().returning({ id: safetyHazards.id });
+  return row ?? null;
 }
 
 export async function findHazard(db: Queryable, channelId: string, episodeId: string, hazardId: string) {

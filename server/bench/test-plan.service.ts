@@ -2,7 +2,7 @@ import type { Criterion } from "../../shared/bench/criteria";
 import { CUSTOM_HAZARD, hazardCatalogue, hazardLabel, isCatalogueHazard } from "../../shared/bench/hazards";
 import type { CriterionView, HazardChange, HazardInput, HazardView, TestPlanInput, TestPlanView } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
-import { notFound, staleSave } from "../http/app-error";
+import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { iso } from "./bench.repository";
 import {
@@ -81,8 +81,9 @@ async function hazardView(db: Database, channelId: string, episodeId: string, ha
 
 export async function addHazard(db: Database, channelId: string, episodeId: string, input: HazardInput) {
   const title = input.kind === CUSTOM_HAZARD ? (input.title ?? null) : null;
-  const { id } = await insertHazard(db, { channelId, episodeId, kind: input.kind, title, mitigation: input.mitigation });
-  return hazardView(db, channelId, episodeId, id);
+  const made = await insertHazard(db, { channelId, episodeId, kind: input.kind, title, mitigation: input.mitigation });
+  if (!made) throw new AppError("conflict", "This hazard is already on the plan: change its precautions there.", { kind: "Already on the plan." });
+  return hazardView(db, channelId, episodeId, made.id);
 }
 
 /**

@@ -198,8 +198,9 @@ export async function episodeDetail(db: Database, flagSources: readonly BoardFla
   ]);
   const dueOverrides: DueOverrides = Object.fromEntries(overrides.map((o) => [o.stage, o.dueDate]));
   const skipped = skips.find((s) => s.toStage === row.stage && s.movedAt.getTime() === row.stageEnteredAt.getTime());
+  const enteredOn = localDate(row.stageEnteredAt, timeZone);
   const own = slateFlags({ stage: row.stage, targetPublishDate: row.targetPublishDate, dueOverrides }, state.stageLengths, {
-    enteredOn: localDate(row.stageEnteredAt, timeZone),
+    enteredOn,
     today,
     skipped: skipped ? { problems: skipped.skipped, reason: skipped.reason } : null,
   });
@@ -210,6 +211,7 @@ export async function episodeDetail(db: Database, flagSources: readonly BoardFla
     risks: own.risks,
     flags: [...own.flags, ...(external[episodeId] ?? [])],
     today,
+    stageEnteredOn: enteredOn,
   };
 }
 

@@ -178,6 +178,8 @@ export interface EpisodeDetail {
   risks: RiskReason[];
   flags: BoardFlag[];
   today: string;
+  /** The day the episode entered its stage, in the viewer's zone: the current stage's real start. */
+  stageEnteredOn: string;
 }
 
 export interface HistoryEntry {

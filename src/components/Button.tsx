@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from "react";
+import type { ComponentProps } from "react";
 
 type Tone = "primary" | "quiet" | "danger";
 
@@ -8,7 +8,7 @@ const tones: Record<Tone, string> = {
   danger: "bg-ply-50 text-alarm-600 border border-alarm-600/40 hover:bg-alarm-600 hover:text-white",
 };
 
-export function Button({ tone = "primary", busy = false, className = "", children, disabled, ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; busy?: boolean }) {
+export function Button({ tone = "primary", busy = false, className = "", children, disabled, ...rest }: ComponentProps<"button"> & { tone?: Tone; busy?: boolean }) {
   return (
     <button
       {...rest}

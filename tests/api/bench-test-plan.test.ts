@@ -122,6 +122,20 @@ describe("safety", () => {
     });
   });
 
+  it("when a listed hazard is added twice, even at once, then it is on the plan once and the second is told", async () => {
+    const { agent, base } = await setting();
+    const body = { kind: "spinning_blades", mitigation: "Guard fitted." };
+    const answers = await Promise.all([agent.send("post", `${base}/hazards`, body), agent.send("post", `${base}/hazards`, body), agent.send("post", `${base}/hazards`, body)]);
+    expect(answers.map((a) => a.status).sort()).toEqual([201, 409, 409]);
+    const refused = answers.find((a) => a.status === 409)!;
+    expect(refused.body.error.message).toBe("This hazard is already on the plan: change its precautions there.");
+    const plan = await agent.get(`${base}`).expect(200);
+    expect(plan.body.plan.hazards.filter((h: { kind: string }) => h.kind === "spinning_blades")).toHaveLength(1);
+    // Typed-in hazards are told apart by their names, so two are fine.
+    await agent.send("post", `${base}/hazards`, { kind: "custom", title: "Hot glue", mitigation: "Stand." }).expect(201);
+    await agent.send("post", `${base}/hazards`, { kind: "custom", title: "Solder fumes", mitigation: "Extractor." }).expect(201);
+  });
+
   it("when a hazard is typed in, then it needs a name and a mitigation", async () => {
     const { agent, base } = await setting();
     const missing = await agent.send("post", `${base}/hazards`, { kind: "custom", mitigation: "" }).expect(400);

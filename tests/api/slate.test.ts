@@ -283,7 +283,9 @@ describe("what crew may do", () => {
     const made = await newEpisode(await app.signedIn(owner), channel.id);
     const agent = await app.signedIn(crew);
     await agent.get(`/api/channels/${channel.id}/episodes`).expect(200);
-    await agent.get(`/api/channels/${channel.id}/episodes/${made.id}`).expect(200);
+    const detail = await agent.get(`/api/channels/${channel.id}/episodes/${made.id}`).expect(200);
+    // The stage under way started today, the day it was made, whatever the plan counts back to.
+    expect(detail.body.stageEnteredOn).toBe(detail.body.today);
     await agent.send("post", `/api/channels/${channel.id}/episodes/${made.id}/move`, { version: 1, stage: "test_plan" }).expect(403);
     await agent.send("patch", `/api/channels/${channel.id}/episodes/${made.id}`, { version: 1, title: "Crew's title" }).expect(403);
     await agent.send("post", `/api/channels/${channel.id}/episodes`, fields()).expect(403);

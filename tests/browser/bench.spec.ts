@@ -87,6 +87,19 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   const blades = page.getByRole("listitem", { name: "Spinning blades and propellers" });
   await blades.getByRole("button", { name: "Mark as checked by me" }).click();
   await expect(blades.getByText("Checked by Saga Ellingsen")).toBeVisible();
+  // A listed hazard goes on the plan once; removing one asks first.
+  await expect(hazard.locator('option[value="spinning_blades"]')).toHaveCount(0);
+  await hazard.getByLabel("Hazard").selectOption("custom");
+  await hazard.getByLabel("Name of the hazard").fill("Hot glue gun");
+  await hazard.getByLabel("Mitigation").fill("Stand and silicone mat.");
+  await hazard.getByRole("button", { name: "Add hazard" }).click();
+  const glue = page.getByRole("listitem", { name: "Hot glue gun" });
+  await glue.getByRole("button", { name: "Remove" }).click();
+  await expect(glue.getByText("Remove “Hot glue gun” from the plan?")).toBeVisible();
+  await glue.getByRole("button", { name: "Keep it" }).click();
+  await glue.getByRole("button", { name: "Remove" }).click();
+  await glue.getByRole("button", { name: "Yes, remove it" }).click();
+  await expect(glue).toHaveCount(0);
   await expect(page.getByText("Local codes, manufacturer ratings and licensed practice govern.")).toBeVisible();
   await expect(page.getByText("Flying rules differ by country")).toBeVisible();
   await snap(page, "bench-03-test-plan");

@@ -50,6 +50,15 @@ async function dragByKeyboard(page: Page, key: "ArrowRight" | "ArrowLeft", from:
   await expect(page.getByRole("status").filter({ hasText: `${TITLE} is now in ${to}.` })).toBeAttached();
 }
 
+/** Creating an episode opens its page; these journeys go on from the board. */
+async function createAndReturnToSlate(page: Page) {
+  await page.getByRole("button", { name: "Create episode" }).click();
+  await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
+  await expect(page.getByText(`“${TITLE}” is on the board, at the top of Challenge.`)).toBeVisible();
+  await page.getByRole("link", { name: "← Slate" }).click();
+  await expect(cardIn(page, "challenge")).toBeVisible();
+}
+
 test("the owner makes an episode and moves it along the board by mouse and by keyboard", async ({ page }) => {
   await signUp(page, uniqueEmail("slate-owner"));
   await page.getByRole("button", { name: "New episode" }).click();
@@ -60,8 +69,7 @@ test("the owner makes an episode and moves it along the board by mouse and by ke
   await page.getByLabel("Working title").fill(TITLE);
   await page.getByLabel("The question, in one line").fill("Can a kite hold a camera steady enough to map roof heat loss?");
   await page.getByLabel("Target publish date").fill("2027-03-05");
-  await page.getByRole("button", { name: "Create episode" }).click();
-  await expect(cardIn(page, "challenge")).toBeVisible();
+  await createAndReturnToSlate(page);
   await snap(page, "slate-02-on-the-board");
 
   await dragByMouse(page, "challenge", "test_plan");
@@ -95,8 +103,7 @@ test("when two sessions move the same card, the second is told and sees the firs
   await signUp(page, email);
   await page.getByRole("button", { name: "New episode" }).click();
   await page.getByLabel("Working title").fill(TITLE);
-  await page.getByRole("button", { name: "Create episode" }).click();
-  await expect(cardIn(page, "challenge")).toBeVisible();
+  await createAndReturnToSlate(page);
 
   const otherContext = await browser.newContext();
   const other = await otherContext.newPage();
@@ -124,12 +131,15 @@ test("when the publish date moves a week, the episode's due dates move with it",
   await page.getByRole("button", { name: "New episode" }).click();
   await page.getByLabel("Working title").fill(TITLE);
   await page.getByLabel("Target publish date").fill("2027-03-05");
+  // A new episode opens its own page.
   await page.getByRole("button", { name: "Create episode" }).click();
-  await cardIn(page, "challenge").click();
+  await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
 
   // Check values derived by hand in shared/slate/schedule.test.ts (default lengths, Fri 5 Mar 2027).
   await expect(page.getByTestId("due-build")).toHaveText("Mon 15 Feb");
   await expect(page.getByTestId("due-edit")).toHaveText("Mon 1 Mar");
+  // The stage under way shows when it really started, never the plan's (possibly later) start.
+  await expect(page.locator('tr[aria-current="step"] td').nth(1)).toHaveText(/^Started /);
   await snap(page, "slate-06-schedule");
 
   await page.getByRole("button", { name: "Edit details" }).click();

@@ -45,6 +45,7 @@ export async function createHazard(
   fields: { kind?: HazardChoice; title?: string; mitigation?: string; checkedBy?: string } = {},
 ) {
   const row = await insertHazard(db, { channelId, episodeId, kind: fields.kind ?? "spinning_blades", title: fields.title ?? null, mitigation: fields.mitigation ?? "Guard fitted." });
+  if (!row) throw new Error(`the episode already lists the hazard ${fields.kind ?? "spinning_blades"}`);
   if (fields.checkedBy) await updateHazard(db, channelId, row.id, { checkedBy: fields.checkedBy, checkedAt: new Date() });
   return row;
 }

@@ -1,4 +1,5 @@
-import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { id, timestamps, version } from "./columns";
 import type { Criterion } from "../../../shared/bench/criteria";
 import type { Quantity } from "../../../shared/bench/quantity";
@@ -54,7 +55,11 @@ export const safetyHazards = pgTable(
     checkedAt: timestamp("checked_at", { withTimezone: true }),
     ...timestamps(),
   },
-  (table) => [index("safety_hazards_episode_idx").on(table.channelId, table.episodeId)],
+  (table) => [
+    index("safety_hazards_episode_idx").on(table.channelId, table.episodeId),
+    // A listed hazard once per episode; custom ones are told apart by their titles.
+    uniqueIndex("safety_hazards_kind_once").on(table.channelId, table.episodeId, table.kind).where(sql`${table.kind} <> 'custom'`),
+  ],
 );
 
 export const benchParts = pgTable(

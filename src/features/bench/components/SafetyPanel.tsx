@@ -3,6 +3,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { CUSTOM_HAZARD, FLYING_NOTE, SAFETY_NOTE, hazardCatalogue, hazardKinds, type HazardChoice } from "@shared/bench/hazards";
 import { hazardInputSchema, type HazardInput, type HazardView } from "@shared/bench/schemas";
+import { AskFirst } from "../../../components/AskFirst";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
@@ -15,8 +16,9 @@ import { Caution, Panel } from "./marks";
 import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 
-const hazardOptions = [
-  ...hazardKinds.map((kind) => ({ value: kind, label: hazardCatalogue[kind].label })),
+/** The listed hazards not on the plan yet, then "other": a listed hazard goes on a plan once. */
+const hazardOptionsBesides = (listed: Set<string>) => [
+  ...hazardKinds.filter((kind) => !listed.has(kind)).map((kind) => ({ value: kind, label: hazardCatalogue[kind].label })),
   { value: CUSTOM_HAZARD, label: "Other: type it in" },
 ];
 
@@ -44,7 +46,7 @@ export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { chann
           </ul>
         </>
       )}
-      {canWrite && <HazardForm channelId={channelId} episodeId={episodeId} />}
+      {canWrite && <HazardForm key={hazards.length} channelId={channelId} episodeId={episodeId} listed={new Set(hazards.map((hazard) => hazard.kind))} />}
     </Panel>
   );
 }
@@ -110,9 +112,7 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
           >
             Edit mitigation
           </Button>
-          <Button tone="danger" busy={remove.isPending} onClick={() => void act(remove.mutateAsync(hazard.id))}>
-            Remove
-          </Button>
+          <AskFirst label="Remove" question={`Remove “${hazard.title}” from the plan?`} yes="Yes, remove it" busy={remove.isPending} onYes={() => void act(remove.mutateAsync(hazard.id))} />
         </div>
       )}
       {problem && (
@@ -124,11 +124,13 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
   );
 }
 
-function HazardForm({ channelId, episodeId }: { channelId: string; episodeId: string }) {
+function HazardForm({ channelId, episodeId, listed }: { channelId: string; episodeId: string; listed: Set<string> }) {
   const add = useAddHazard(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const first = hazardKinds[0];
-  const form = useForm<HazardInput>({ resolver: zodResolver(hazardInputSchema), defaultValues: { kind: first, title: "", mitigation: hazardCatalogue[first].suggestedMitigation } });
+  const options = hazardOptionsBesides(listed);
+  const first = (options[0]?.value ?? CUSTOM_HAZARD) as HazardChoice;
+  const startingValues = { kind: first, title: "", mitigation: first === CUSTOM_HAZARD ? "" : hazardCatalogue[first].suggestedMitigation };
+  const form = useForm<HazardInput>({ resolver: zodResolver(hazardInputSchema), defaultValues: startingValues });
   const kind = useWatch({ control: form.control, name: "kind" });
   const errors = form.formState.errors;
 
@@ -136,7 +138,6 @@ function HazardForm({ channelId, episodeId }: { channelId: string; episodeId: st
     setProblem(null);
     try {
       await add.mutateAsync(values);
-      form.reset({ kind: first, title: "", mitigation: hazardCatalogue[first].suggestedMitigation });
     } catch (error) {
       const message = applyServerErrors(error, form.setError, ["kind", "title", "mitigation"]);
       if (message) setProblem(message);
@@ -148,7 +149,7 @@ function HazardForm({ channelId, episodeId }: { channelId: string; episodeId: st
       <h4 className="text-sm font-semibold">Add a hazard</h4>
       <SelectField
         label="Hazard"
-        options={hazardOptions}
+        options={options}
         {...form.register("kind", {
           onChange: (event) => {
             // Offer the list's starting mitigation unless the person already wrote their own.

@@ -1,8 +1,9 @@
 import type { ReactNode } from "react";
-import { Link, useParams } from "react-router-dom";
+import { Link, useLocation, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import type { EpisodeDetail } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
+import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { QueryState } from "../../../components/States";
 import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
@@ -44,6 +45,7 @@ function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
 function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }) {
   const e = detail.episode;
   const canEdit = roleMay(role, "episodes", "W");
+  const justCreated = (useLocation().state as { created?: boolean } | null)?.created === true;
   const contents = [
     { id: "overview", title: "Overview" },
     { id: "schedule", title: "Schedule" },
@@ -70,6 +72,11 @@ function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSe
           </>
         }
       />
+      {justCreated && (
+        <div className="mb-3">
+          <Notice kind="success">“{e.title}” is on the board, at the top of Challenge.</Notice>
+        </div>
+      )}
       <nav aria-label="On this page" className="flex flex-wrap gap-3 text-sm">
         {contents.map((c) => (
           <a key={c.id} href={`#${c.id}`} className="text-rust-600 underline">

@@ -10,6 +10,13 @@ import { useOverrideDueDate } from "../api/override-due-date";
 import { Flag } from "./Flag";
 import { formatDay } from "../../../lib/format";
 
+/** A stage under way started when the episode entered it, whatever the plan says; one behind it is done. */
+function startCell(fromCurrent: number, plannedStart: string, enteredOn: string) {
+  if (fromCurrent < 0) return <span className="text-graphite-500">done</span>;
+  if (fromCurrent === 0) return `Started ${formatDay(enteredOn, { withYear: false })}`;
+  return formatDay(plannedStart, { withYear: false });
+}
+
 /** Each stage's dates, counted back in working days from the target publish date; one can be set by hand. */
 export function ScheduleSection({ channelId, detail, canEdit }: { channelId: string; detail: EpisodeDetail; canEdit: boolean }) {
   const { episode, schedule, today } = detail;
@@ -68,7 +75,7 @@ export function ScheduleSection({ channelId, detail, canEdit }: { channelId: str
                 {i === current && <span className="ml-2 text-xs font-normal text-graphite-500">(now)</span>}
               </th>
               <td className="py-2 pr-3">{row.lengthDays}</td>
-              <td className="py-2 pr-3">{formatDay(row.start, { withYear: false })}</td>
+              <td className="py-2 pr-3">{startCell(i - current, row.start, detail.stageEnteredOn)}</td>
               <td className={`py-2 pr-3 ${i >= current && row.due < today && row.stage !== "publish" ? "font-semibold text-alarm-600" : ""}`} data-testid={`due-${row.stage}`}>
                 {formatDay(row.due, { withYear: false })}
                 {row.overridden && <span className="ml-2 text-xs text-graphite-500">(counted: {formatDay(row.countedDue, { withYear: false })})</span>}

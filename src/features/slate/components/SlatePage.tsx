@@ -1,9 +1,8 @@
 import { useDeferredValue, useState } from "react";
-import { Link, useSearchParams } from "react-router-dom";
+import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import { boardFilterKeys, boardFiltersSchema, emptyEpisodeFields, type BoardFilters } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
-import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, Loading, QueryState } from "../../../components/States";
 import { useChannel } from "../../../lib/session";
@@ -51,7 +50,7 @@ function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId:
   const firstPaint = useDeferredValue(board.data);
   const people = usePeople(channelId);
   const [creating, setCreating] = useState(false);
-  const [created, setCreated] = useState<string | null>(null);
+  const navigate = useNavigate();
   const create = useCreateEpisode(channelId);
   const filtered = Object.values(filters).some(Boolean);
 
@@ -72,11 +71,6 @@ function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId:
         }
       />
       <BoardFilterBar filters={filters} onChange={setFilters} people={people.data ?? []} board={board.data} />
-      {created && (
-        <div className="mb-3">
-          <Notice kind="success">{created}</Notice>
-        </div>
-      )}
       <QueryState query={board} loading="Loading the slate…" page>
         {(data) => (
           <>
@@ -107,7 +101,8 @@ function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId:
           onSubmit={async (fields) => {
             const episode = await create.mutateAsync(fields);
             setCreating(false);
-            setCreated(`“${episode.title}” is on the board, at the top of Challenge.`);
+            // The next step on a new episode is on its own page; the board shows it on the way back.
+            await navigate(`/c/${channelId}/episodes/${episode.id}`, { state: { created: true } });
           }}
         />
       </Dialog>
