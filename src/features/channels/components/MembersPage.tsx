@@ -13,6 +13,7 @@ import { useChangeRole } from "../api/change-role";
 import { useInvite } from "../api/invite-member";
 import { useMembers } from "../api/list-members";
 import { useRemoveMember } from "../api/remove-member";
+import { RoleTable } from "./RoleTable";
 import { useRevokeInvitation } from "../api/revoke-invitation";
 import { SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
@@ -46,6 +47,7 @@ function Members({ channelId, canManage, channelName }: { channelId: string; can
         )}
       </QueryState>
       {!canManage && <p className="mt-6 text-sm text-graphite-500">Only an owner can invite people or change roles.</p>}
+      <RoleTable />
     </div>
   );
 }
