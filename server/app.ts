@@ -23,6 +23,7 @@ import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
+import type { ChannelStarter } from "./seams/channel-starters";
 import type { SlatePlugs } from "./seams/slate-plugs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
@@ -31,6 +32,7 @@ import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
+import { startWithDealTemplate } from "./sponsors/templates.service";
 
 /** Settings of one app that are not dependencies (tests tighten them). */
 export interface AppOptions {
@@ -64,10 +66,13 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
   };
 }
 
+/** What every new channel starts with, made in the transaction that makes the channel. */
+export const channelStarters: readonly ChannelStarter[] = [startWithDealTemplate];
+
 /** Every API route with who may call it: the one table the authorisation tests read. */
 export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] {
   const db = deps.database.db;
-  const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs };
+  const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs, channelStarters };
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
     ...authRoutes(mailing, options.signInLimits ?? defaultSignInLimits),

@@ -5,8 +5,9 @@ import { parseBody } from "../http/validate";
 import { checkCredentials, describeMe, endSession, signUp, startSession } from "./auth.service";
 import { signInRateLimits, signUpRateLimit, type SignInLimits } from "./rate-limits";
 import type { VerificationDeps } from "./verification.service";
+import type { ChannelStarters } from "../seams/channel-starters";
 
-export function authRoutes(deps: VerificationDeps, limits: SignInLimits): RouteSpec[] {
+export function authRoutes(deps: VerificationDeps & ChannelStarters, limits: SignInLimits): RouteSpec[] {
   const { db } = deps;
   return [
     {

@@ -1,6 +1,7 @@
 import type { Request } from "express";
 import type { Me, SignUpInput } from "../../shared/auth/schemas";
 import type { Database } from "../db/client";
+import type { ChannelStarters } from "../seams/channel-starters";
 import { addChannelWithOwner, listMembershipsOf } from "../channels/channels.repository";
 import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
@@ -19,12 +20,12 @@ export async function checkCredentials(db: Database, email: string, password: st
 }
 
 /** The account, its first channel and the mail that confirms its address: all three, or none. */
-export async function signUp(deps: VerificationDeps, input: SignUpInput): Promise<Express.User> {
+export async function signUp(deps: VerificationDeps & ChannelStarters, input: SignUpInput): Promise<Express.User> {
   const passwordHash = await hashPassword(input.password);
   return inTransaction(deps.db, async (tx, sql) => {
     const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
     if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
-    await addChannelWithOwner(tx, input.channelName, user.id);
+    await addChannelWithOwner(tx, input.channelName, user.id, deps.channelStarters);
     await queueVerificationMail(deps, tx, sql, user.id);
     return user;
   });

@@ -1,5 +1,6 @@
 import { and, asc, eq, gt, isNull, ne, sql } from "drizzle-orm";
 import { rolesAllowed, type Role } from "../../shared/access/roles";
+import type { ChannelStarter } from "../seams/channel-starters";
 import type { Database } from "../db/client";
 import { channels, invitations, memberships, users } from "../db/schema/accounts";
 import { findUserById, insertUser, markEmailVerified } from "../auth/users.repository";
@@ -46,15 +47,16 @@ export async function listOpenInvitations(db: Database, channelId: string) {
 }
 
 
-export async function insertChannelWithOwner(db: Database, name: string, ownerId: string) {
-  return db.transaction((tx) => addChannelWithOwner(tx, name, ownerId));
+export async function insertChannelWithOwner(db: Database, name: string, ownerId: string, starters: readonly ChannelStarter[]) {
+  return db.transaction((tx) => addChannelWithOwner(tx, name, ownerId, starters));
 }
 
-/** The channel and its owner's membership, inside a transaction the caller holds. */
-export async function addChannelWithOwner(tx: Pick<Database, "insert">, name: string, ownerId: string) {
+/** The channel, its owner's membership and what each feature starts it with, inside the caller's transaction. */
+export async function addChannelWithOwner(tx: Database, name: string, ownerId: string, starters: readonly ChannelStarter[]) {
   const [channel] = await tx.insert(channels).values({ name }).returning();
   if (!channel) throw new Error("channel insert returned nothing");
   await tx.insert(memberships).values({ channelId: channel.id, userId: ownerId, role: "owner" });
+  for (const start of starters) await start(tx, channel.id);
   return channel;
 }
 

@@ -14,12 +14,13 @@ import {
   revokeInvitation,
 } from "./channels.repository";
 import { acceptInvitation, inviteMember, previewInvitation, type InvitationDeps } from "./invitations.service";
+import type { ChannelStarters } from "../seams/channel-starters";
 
 const newChannelSchema = z.strictObject({ name: channelNameSchema });
 
 const lastOwner = () => new AppError("unprocessable", "A channel needs at least one owner. Make someone else owner first.");
 
-export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
+export function channelRoutes(deps: InvitationDeps & ChannelStarters): RouteSpec[] {
   const { db } = deps;
   return [
     {
@@ -28,7 +29,7 @@ export function channelRoutes(deps: InvitationDeps): RouteSpec[] {
       access: anyAccount,
       handler: async (req, res) => {
         const { name } = parseBody(newChannelSchema, req.body);
-        const channel = await insertChannelWithOwner(db, name, signedInUser(req).id);
+        const channel = await insertChannelWithOwner(db, name, signedInUser(req).id, deps.channelStarters);
         res.status(201).json({ id: channel.id, name: channel.name });
       },
     },

@@ -2,6 +2,7 @@ import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { CSRF_HEADER } from "../../server/http/csrf";
 import { SESSION_COOKIE } from "../../server/http/session";
+import { starterTemplate } from "../../shared/sponsors/starter-template";
 import { createChannel, createUser } from "../factories/accounts";
 import { uniqueEmail } from "../factories/invitations";
 import { startTestApp, type TestApp } from "../support/test-app";
@@ -63,6 +64,18 @@ describe("signing up, in and out", () => {
       [body.email],
     );
     expect(stored.rows).toEqual([{ role: "owner", name: "Thrust Lab" }]);
+  });
+
+  it("when a channel is made, by signing up or later, then it starts with one deal template to adjust", async () => {
+    const visitor = await app.visitor();
+    const made = await visitor.send("post", "/api/auth/sign-up", signUpBody({ channelName: "Starter Lab" })).expect(201);
+    const someone = await app.signedIn(await createUser(app.db));
+    const later = await someone.send("post", "/api/channels", { name: "Second Lab" }).expect(201);
+    for (const [agent, channelId] of [[visitor, made.body.memberships[0].channelId], [someone, later.body.id]] as const) {
+      const templates = await agent.get(`/api/channels/${channelId}/deal-templates`).expect(200);
+      expect(templates.body.templates).toHaveLength(1);
+      expect(templates.body.templates[0]).toMatchObject({ name: starterTemplate.name, items: starterTemplate.items });
+    }
   });
 
   it("when an e-mail already has an account, then signing up with it again answers 409 with a message on the e-mail field", async () => {
