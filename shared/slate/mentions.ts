@@ -26,3 +26,36 @@ export function mentionedIn(body: string, people: Mentionable[]): string[] {
   }
   return found;
 }
+
+/** The "@…" being typed just before the caret: where its "@" is and what follows it so far. */
+export function mentionAt(text: string, caret: number): { start: number; query: string } | null {
+  const before = text.slice(0, caret);
+  const start = before.lastIndexOf("@");
+  if (start === -1 || (start > 0 && wordChar.test(before[start - 1]!))) return null;
+  const query = before.slice(start + 1);
+  // Names have spaces, so the query may too; a line break, a second "@" or a long run ends it.
+  if (/[\n@]/.test(query) || query.length > 40 || query.startsWith(" ")) return null;
+  return { start, query };
+}
+
+/**
+ * Members whose name starts with the query, then those with a later word that does; case and
+ * accents don't matter ("noor h" and "Noor H" find "Noor Halvorsen"; "alv" finds nobody).
+ */
+export function mentionSuggestions<P extends Mentionable>(query: string, people: readonly P[], limit = 6): P[] {
+  const fold = (text: string) => text.normalize("NFD").replace(/\p{M}/gu, "").toLowerCase();
+  const wanted = fold(query);
+  const first = people.filter((p) => fold(p.name).startsWith(wanted));
+  const later = people.filter((p) => !first.includes(p) && fold(p.name).split(/\s+/).some((word) => word.startsWith(wanted)));
+  return [...first, ...later].slice(0, limit);
+}
+
+/** The text with the "@…" being typed replaced by the chosen name and a space, and where the caret goes. */
+export function completeMention(text: string, caret: number, name: string): { text: string; caret: number } {
+  const typing = mentionAt(text, caret);
+  const start = typing?.start ?? caret;
+  const rest = text.slice(caret);
+  // A space to go on typing, unless a space or punctuation follows already.
+  const inserted = /^[\s,.;:!?)]/.test(rest) ? `@${name}` : `@${name} `;
+  return { text: text.slice(0, start) + inserted + rest, caret: start + inserted.length };
+}

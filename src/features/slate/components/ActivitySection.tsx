@@ -9,6 +9,7 @@ import { useTimeZone } from "../../../lib/session";
 import { useAddComment } from "../api/add-comment";
 import { useComments } from "../api/get-comments";
 import { usePeople } from "../api/get-people";
+import { useMentionSuggestions } from "./MentionSuggestions";
 
 /** Comments on the episode; "@Name" mentions a member, who gets an e-mail. */
 export function ActivitySection({ channelId, episodeId }: { channelId: string; episodeId: string }) {
@@ -62,6 +63,7 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
   const [error, setError] = useState<string | null>(null);
   const [sent, setSent] = useState<string | null>(null);
   const box = useRef<HTMLTextAreaElement>(null);
+  const suggestions = useMentionSuggestions({ box, text: body, setText: setBody, people: people.data ?? [] });
 
   const mention = (name: string) => {
     const el = box.current;
@@ -106,8 +108,10 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
         value={body}
         onChange={(e) => setBody(e.target.value)}
         error={error ?? undefined}
-        hint="Type @ and a member's name, or pick one below, to send them an e-mail."
+        hint="Type @ and a member's name (arrows and Enter pick a suggestion), or pick one below, to send them an e-mail."
+        {...suggestions.boxProps}
       />
+      {suggestions.list}
       <div className="mt-2 flex flex-wrap items-center gap-1 text-xs">
         <span className="text-graphite-500">Mention:</span>
         {(people.data ?? []).map((p) => (
