@@ -106,7 +106,6 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
         label="Add a comment"
         ref={box}
         value={body}
-        onChange={(e) => setBody(e.target.value)}
         error={error ?? undefined}
         hint="Type @ and a member's name (arrows and Enter pick a suggestion), or pick one below, to send them an e-mail."
         {...suggestions.boxProps}

@@ -1,4 +1,4 @@
-import { useId, useState, type KeyboardEvent, type RefObject } from "react";
+import { useId, useState, type ChangeEvent, type KeyboardEvent, type RefObject, type SyntheticEvent } from "react";
 import { completeMention, mentionAt, mentionSuggestions, type Mentionable } from "@shared/slate/mentions";
 
 /**
@@ -41,8 +41,8 @@ export function useMentionSuggestions({ box, text, setText, people }: { box: Ref
     move();
   };
 
-  const track = () => {
-    setCaret(box.current?.selectionStart ?? 0);
+  const track = (at: number) => {
+    setCaret(at);
     setHighlight(0);
   };
 
@@ -51,7 +51,11 @@ export function useMentionSuggestions({ box, text, setText, people }: { box: Ref
     "aria-controls": open ? listId : undefined,
     "aria-activedescendant": open ? `${listId}-${active}` : undefined,
     onKeyDown,
-    onSelect: track,
+    onChange: (event: ChangeEvent<HTMLTextAreaElement>) => {
+      setText(event.target.value);
+      track(event.target.selectionStart);
+    },
+    onSelect: (event: SyntheticEvent<HTMLTextAreaElement>) => track(event.currentTarget.selectionStart),
   };
 
   const list = open ? (
