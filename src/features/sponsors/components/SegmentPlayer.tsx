@@ -30,7 +30,7 @@ const AT_END = 1 / 120;
  * lands back inside, and playing stops at the out point and says so. The scrubber spans the segment
  * only; times are from its in point.
  */
-export function SegmentPlayer({ url, segment, label, ref }: { url: string; segment: ReviewSegment; label: string; ref?: Ref<SegmentPlayerHandle> }) {
+export function SegmentPlayer({ url, segment, label, startAt = 0, ref }: { url: string; segment: ReviewSegment; label: string; startAt?: number; ref?: Ref<SegmentPlayerHandle> }) {
   const video = useRef<HTMLVideoElement>(null);
   const [state, setState] = useState<PlayState>("loading");
   const [offset, setOffset] = useState(0);
@@ -79,10 +79,12 @@ export function SegmentPlayer({ url, segment, label, ref }: { url: string; segme
   const onLoaded = () => {
     const v = video.current;
     if (!v) return;
-    if (segment.wholeFile && Number.isFinite(v.duration) && v.duration > 0) setEnd(v.duration);
-    v.currentTime = start;
-    setOffset(0);
-    setState("ready");
+    const fileEnd = segment.wholeFile && Number.isFinite(v.duration) && v.duration > 0 ? v.duration : end;
+    setEnd(fileEnd);
+    const from = Math.min(Math.max(startAt, 0), fileEnd - start);
+    v.currentTime = start + from;
+    setOffset(from);
+    setState(from > 0 ? "paused" : "ready");
   };
 
   /** A seek by the browser's own means (keys on the element, a media key) is kept inside the segment. */
