@@ -160,7 +160,9 @@ function CutWatch({ channelId, deal }: { channelId: string; deal: DealView }) {
         <QueryState query={query} loading="Opening the cut…">
           {(cut) =>
             cut.url && cut.segment ? (
-              <SegmentPlayer key={`${cut.url}-${startAt}`} ref={player} url={cut.url} segment={cut.segment} startAt={startAt} label="Cut player" />
+              <div className="max-w-2xl">
+                <SegmentPlayer key={`${cut.url}-${startAt}`} ref={player} url={cut.url} segment={cut.segment} startAt={startAt} label="Cut player" />
+              </div>
             ) : (
               <p className="text-graphite-500">{cut.url ? "The segment's in and out don't fit the clip: correct them above." : "The cut can't be played right now: storage isn't reachable."}</p>
             )
