@@ -46,11 +46,10 @@ export function reviewRoutes(review: ReviewDeps): RouteSpec[] {
       },
     },
     {
-      // A comment pinned to a moment of the segment: a few words, so a small body.
+      // A comment pinned to a moment of the segment, within the public routes' body limit.
       method: "post",
       path: "/api/review/:token/pins",
       access: publicAccess,
-      bodyLimit: 8 * 1024,
       handler: async (req, res) => {
         const input = parseBody(reviewPinSchema, req.body);
         res.status(201).json({ pin: await addPin(review, String(req.params.token), input) });

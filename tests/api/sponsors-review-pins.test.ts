@@ -134,7 +134,7 @@ describe("comments pinned to a moment of the segment", () => {
       expect(answer.status, JSON.stringify(body)).toBe(400);
       if (field) expect(Object.keys(answer.body.error.fields ?? {}), JSON.stringify(body)).toContain(field);
     }
-    const huge = await visitor.send("post", `/api/review/${token}/pins`, { atSeconds: 1, note: "y".repeat(9000) });
+    const huge = await visitor.send("post", `/api/review/${token}/pins`, { atSeconds: 1, note: "y".repeat(17 * 1024) });
     expect(huge.status).toBe(413);
     expect(await pinCount(link.id)).toBe(0);
   });
