@@ -6,13 +6,15 @@ import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import { DEFAULT_WORDS_PER_MINUTE, analyseRead, measuredSeconds, mentionsCode, mentionsLink } from "../../shared/sponsors/read";
 import type { DealView, DeliverableEvent, DeliverableView, Money, ReviewLinkView } from "../../shared/sponsors/schemas";
 import type { createDealSchema, cutSchema, updateDealSchema } from "../../shared/sponsors/schemas";
+import { segmentProblems } from "../../shared/sponsors/segment";
 import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
 import type { z } from "zod";
 import { isMember } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
-import { findCutClips, listEpisodeClips } from "./cut.repository";
+import { findCutClips, listDealPins, listEpisodeClips } from "./cut.repository";
+import { clipRateName, pinLabel, pinViewOf, segmentClipOf, segmentOf } from "./cut.service";
 import {
   findDeal,
   findEpisodeInChannel,
@@ -94,6 +96,8 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
   const clipIds = rows.map((r) => r.deal.cutClipId).filter((id): id is string => id !== null);
   const cutClips = await findCutClips(db, caller.channelId, clipIds);
   const choices = deliversCut(caller.role) ? await listEpisodeClips(db, caller.channelId, [...new Set(rows.map((r) => r.deal.episodeId))]) : [];
+  // The sponsor's pinned comments go to whoever sends the review or delivers the cut.
+  const pins = runsDeliverables(caller.role) || deliversCut(caller.role) ? await listDealPins(db, caller.channelId, dealIds) : [];
 
   const views: DealView[] = [];
   for (const row of rows) {
@@ -130,7 +134,18 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
         linkInDescription: deal.link ? mentionsLink(description, deal.link) : null,
         codeInDescription: deal.promoCode ? mentionsCode(description, deal.promoCode) : null,
       },
-      cut: { clip: clip ? { id: clip.id, fileName: clip.fileName, durationSeconds: clip.durationMs / 1000 } : null, timing: cutTimingOf(deal) },
+      cut: {
+        clip: clip ? { id: clip.id, fileName: clip.fileName, durationSeconds: clip.durationMs / 1000, frameRate: clipRateName(clip) } : null,
+        timing: cutTimingOf(deal),
+        segment: clip ? segmentOf(clip, deal) : null,
+        ...(runsDeliverables(caller.role) || deliversCut(caller.role)
+          ? {
+              pins: pins
+                .filter((p) => p.pin.dealId === deal.id)
+                .map(({ pin, deliverableTitle }) => ({ ...pinViewOf(pin), timecode: pinLabel(clip ?? null, deal, pin.offsetMs / 1000), deliverableTitle })),
+            }
+          : {}),
+      },
       deliverables: items
         .filter((i) => i.item.dealId === deal.id)
         .map(({ item, ownerName }): DeliverableView => ({
@@ -181,7 +196,7 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
           decidedAt: link.decidedAt?.toISOString() ?? null,
         }));
     }
-    if (deliversCut(caller.role)) view.cutChoices = choices.filter((c) => c.episodeId === deal.episodeId).map((c) => ({ id: c.id, fileName: c.fileName }));
+    if (deliversCut(caller.role)) view.cutChoices = choices.filter((c) => c.episodeId === deal.episodeId).map((c) => ({ id: c.id, fileName: c.fileName, frameRate: clipRateName(c), dropFrame: c.dropFrame, startTimecode: c.startTimecode }));
     if (fees) view.money = moneyOf(deal);
     views.push(view);
   }
@@ -294,6 +309,9 @@ export async function updateCut(db: Database, caller: Caller, dealId: string, ve
   if (input.clipId) {
     const [clip] = await findCutClips(db, caller.channelId, [input.clipId]);
     if (!clip || clip.episodeId !== current.deal.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { clipId: "Pick a clip of this episode's footage." });
+    // The in and out are the clip's own frames: its frame rate, within its first and last frame.
+    const problems = input.timing ? segmentProblems(segmentClipOf(clip), input.timing) : null;
+    if (problems) throw new AppError("validation_failed", "Some fields need attention.", problems);
   }
   return db.transaction(async (tx) => {
     const saved = await updateDealRow(tx, caller.channelId, dealId, version, {

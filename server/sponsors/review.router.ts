@@ -1,8 +1,8 @@
-import { reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
+import { reviewDecisionSchema, reviewPinSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, publicAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
-import { decide, reviewPage, revokeLink, sendReviewLink, type ReviewDeps } from "./review.service";
+import { addPin, cutPlayer, decide, reviewPage, revokeLink, sendReviewLink, type ReviewDeps } from "./review.service";
 
 const deal = "/api/channels/:channelId/deals/:dealId";
 
@@ -43,6 +43,25 @@ export function reviewRoutes(review: ReviewDeps): RouteSpec[] {
       handler: async (req, res) => {
         const input = parseBody(reviewDecisionSchema, req.body);
         res.json(await decide(review, String(req.params.token), input));
+      },
+    },
+    {
+      // A comment pinned to a moment of the segment, within the public routes' body limit.
+      method: "post",
+      path: "/api/review/:token/pins",
+      access: publicAccess,
+      handler: async (req, res) => {
+        const input = parseBody(reviewPinSchema, req.body);
+        res.status(201).json({ pin: await addPin(review, String(req.params.token), input) });
+      },
+    },
+    {
+      // The members' player of the cut the sponsor reviews (the pins come with the deal).
+      method: "get",
+      path: `${deal}/cut/player`,
+      access: channelAccess("sponsors", "R"),
+      handler: async (req, res) => {
+        res.json(await cutPlayer(review, callerOf(req), idOf(req, "dealId")));
       },
     },
   ];

@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import { addDays } from "date-fns";
 import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/sponsors/read";
 import { deliverableStatusLabels, isMoneyKind, isSettled } from "../../shared/sponsors/deliverables";
-import type { ReviewDecision, ReviewLinkView, ReviewPage, reviewDecisionSchema, sendReviewSchema } from "../../shared/sponsors/schemas";
+import { PINS_PER_LINK, PINS_PER_MINUTE, type ReviewDecision, type ReviewLinkView, type ReviewPage, type ReviewPinView, type ReviewSegment, type reviewDecisionSchema, type reviewPinSchema, type sendReviewSchema } from "../../shared/sponsors/schemas";
 import type { z } from "zod";
 import type { Database } from "../db/client";
 import { inTransaction } from "../db/transaction";
@@ -13,7 +13,8 @@ import { memberMail } from "../mail/member-mail";
 import { takeMailQuota } from "../mail/quotas";
 import { requireConfirmedAddress } from "../mail/senders";
 import type { Storage } from "../storage/storage";
-import { findCutClips } from "./cut.repository";
+import { countLinkPins, insertReviewPin, listLinkPins } from "./cut.repository";
+import { cutClipOf, playUrlOf, pinViewOf, segmentOf } from "./cut.service";
 import {
   claimReviewDecision,
   findDeal,
@@ -235,21 +236,17 @@ export async function reviewPage(deps: ReviewDeps, token: string): Promise<Revie
     promoCode: deal.promoCode,
     disclosureText: deal.disclosureText,
     placement: deal.placement,
-    cutUrl: await cutUrlFor(deps, deal.channelId, deal.cutClipId),
+    ...(await cutOfPage(deps, row)),
+    pins: (await listLinkPins(deps.db, row.link.id)).map(pinViewOf),
     seen: seenOf(row),
   };
 }
 
-async function cutUrlFor(deps: ReviewDeps, channelId: string, clipId: string | null): Promise<string | null> {
-  if (!clipId || !deps.storage) return null;
-  const [clip] = await findCutClips(deps.db, channelId, [clipId]);
-  if (!clip) return null;
-  try {
-    // One object, one hour: long enough to watch a segment, short enough not to become a share link.
-    return await deps.storage.presignGet(clip.objectKey, { expiresInSeconds: 3600, contentType: clip.contentType });
-  } catch {
-    return null;
-  }
+/** The cut's address and where its segment runs; no address, no segment (the page then shows the script alone). */
+async function cutOfPage(deps: ReviewDeps, row: LinkRow) {
+  const clip = await cutClipOf(deps.db, row.deal.channelId, row.deal.cutClipId);
+  const cutUrl = clip ? await playUrlOf(deps.storage, clip) : null;
+  return { cutUrl, segment: clip && cutUrl ? segmentOf(clip, row.deal) : null };
 }
 
 const refusals = {
@@ -333,4 +330,46 @@ function decisionMail(deps: ReviewDeps, row: LinkPage, decided: DecidedLink, inp
       `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}#sponsor-deals`,
     ].join("\n"),
   });
+}
+
+const tooManyPins = () => new AppError("rate_limited", `This link has taken many comments; a link takes at most ${PINS_PER_LINK}, and ${PINS_PER_MINUTE} a minute. Wait a minute, or put the rest in your decision's comment.`);
+
+/**
+ * The contact pins a comment to a moment of the segment: only while the link is open (410 otherwise,
+ * like a decision), at a moment inside the segment, and a bounded number per link and per minute.
+ */
+export async function addPin(deps: ReviewDeps, token: string, input: z.output<typeof reviewPinSchema>): Promise<ReviewPinView> {
+  const opened = await openToken(deps, token);
+  return deps.db.transaction(async (tx) => {
+    const row = await lockReviewSubject(tx, opened.link.id);
+    if (!row) throw invalidLink();
+    if (linkStateOf(row.link, subjectOf(row)) !== "open") throw refusal(row);
+    const clip = await cutClipOf(tx, row.deal.channelId, row.deal.cutClipId);
+    const segment = clip ? segmentOf(clip, row.deal) : null;
+    if (!segment) throw new AppError("validation_failed", "Some fields need attention.", { atSeconds: "There is no cut to pin a comment to: leave it in your decision's comment." });
+    const length = segment.endSeconds - segment.startSeconds;
+    if (input.atSeconds > length + 0.001) throw new AppError("validation_failed", "Some fields need attention.", { atSeconds: "That moment is past the segment's end." });
+    const counted = await countLinkPins(tx, row.link.id, new Date(Date.now() - 60_000));
+    if (counted.all >= PINS_PER_LINK || counted.recent >= PINS_PER_MINUTE) throw tooManyPins();
+    const pin = await insertReviewPin(tx, {
+      channelId: row.link.channelId,
+      dealId: row.link.dealId,
+      linkId: row.link.id,
+      deliverableId: row.link.deliverableId,
+      offsetMs: Math.round(Math.min(input.atSeconds, length) * 1000),
+      note: input.note,
+      contactName: row.link.contactName,
+    });
+    return pinViewOf(pin);
+  });
+}
+
+/** The deal's cut as a member's player gets it: a short-lived address and where the segment runs; nulls without a cut. */
+export async function cutPlayer(deps: ReviewDeps, caller: Caller, dealId: string): Promise<{ url: string | null; segment: ReviewSegment | null }> {
+  const deal = await findDeal(deps.db, caller.channelId, dealId);
+  if (!deal) throw notFound("Deal");
+  const clip = await cutClipOf(deps.db, caller.channelId, deal.deal.cutClipId);
+  if (!clip) return { url: null, segment: null };
+  const url = await playUrlOf(deps.storage, clip);
+  return { url, segment: url ? segmentOf(clip, deal.deal) : null };
 }

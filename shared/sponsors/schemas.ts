@@ -330,6 +330,39 @@ export const reviewDecisionSchema = z
   .refine((v) => v.decision !== "changes_asked" || v.comment !== null, { message: "Say what should change.", path: ["comment"] });
 export type ReviewDecisionInput = z.input<typeof reviewDecisionSchema>;
 
+/** Most comments one review link may pin, and how many in one minute (a person types a few; a script would not stop). */
+export const PINS_PER_LINK = 100;
+export const PINS_PER_MINUTE = 12;
+
+/** A comment the sponsor pins to a moment of the segment: seconds from the segment's in point. */
+export const reviewPinSchema = z.strictObject({
+  atSeconds: z.number({ error: "Pause the player where the comment belongs." }).min(0, "Pause the player where the comment belongs.").max(24 * 3600, "That moment is past the segment's end."),
+  note: multiLine(1000, { blank: "Write the comment.", tooLong: tooLong(1000, "comment") }),
+});
+export type ReviewPinInput = z.input<typeof reviewPinSchema>;
+
+/** A pinned comment as the review page and the deal's cut show it. */
+export interface ReviewPinView {
+  id: string;
+  atSeconds: number;
+  note: string;
+  contactName: string;
+  createdAt: string;
+  /** The clip's timecode label of the frame on screen at that moment (members only; null without a frame rate). */
+  timecode?: string | null;
+  deliverableTitle?: string | null;
+}
+
+/** The part of the file the sponsor reviews: the player plays from start to end and nowhere else. */
+export interface ReviewSegment {
+  startSeconds: number;
+  endSeconds: number;
+  /** A draft cut file is the segment as a whole. */
+  wholeFile: boolean;
+  /** The clip's frame rate, as the cut counts its frames ("25"); null when the clip doesn't say. */
+  frameRate: string | null;
+}
+
 /** What the sponsor's contact sees through a link: one deal's segment, never its fee. */
 export type ReviewPage =
   | {
@@ -350,6 +383,10 @@ export type ReviewPage =
       placement: Placement;
       /** A presigned address of the attached cut, when there is one and storage is configured. */
       cutUrl: string | null;
+      /** Where in that file the segment runs; null without a cut. */
+      segment: ReviewSegment | null;
+      /** The comments pinned through this link, in the segment's order. */
+      pins: ReviewPinView[];
       /** A fingerprint of what this page shows; the decision sends it back. */
       seen: string;
     }
@@ -391,9 +428,18 @@ export interface DealView {
   host: { id: string | null; name: string | null; wordsPerMinute: number };
   read: ReadReport;
   disclosure: DisclosureCheck & { linkInDescription: boolean | null; codeInDescription: boolean | null };
-  cut: { clip: { id: string; fileName: string; durationSeconds: number } | null; timing: CutTiming | null };
+  cut: {
+    clip: { id: string; fileName: string; durationSeconds: number; frameRate: string | null } | null;
+    timing: CutTiming | null;
+    /** Where the segment runs in the clip, when a clip is attached and its in and out fit it. */
+    segment?: ReviewSegment | null;
+    /** A presigned address to play the clip (an hour), for the members who see the cut. */
+    playUrl?: string | null;
+    /** The sponsor's comments pinned to moments of the segment, through every review link of the deal. */
+    pins?: ReviewPinView[];
+  };
   /** Clips of the episode that can be attached as the cut; only for roles that deliver the cut. */
-  cutChoices?: { id: string; fileName: string }[];
+  cutChoices?: { id: string; fileName: string; frameRate: string | null; dropFrame: boolean; startTimecode: string | null }[];
   deliverables: DeliverableView[];
   /** Only for roles that run deliverables (owner, producer). */
   reviewLinks?: ReviewLinkView[];

@@ -156,3 +156,10 @@ export function formatMoney(amount: number | string, currency: string): string {
   if (!Number.isFinite(value)) return `${amount} ${currency}`.trim();
   return format ? format.format(value) : `${value.toFixed(2)} ${currency}`.trim();
 }
+
+/** A player's position, as a clock shows it to a tenth: formatClock(62.34) is "1:02.3". */
+export function formatClock(seconds: number): string {
+  const tenths = Math.max(0, Math.floor(seconds * 10 + 1e-6));
+  const whole = Math.floor(tenths / 10);
+  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, "0")}.${tenths % 10}`;
+}

@@ -241,7 +241,8 @@ describe("the sponsor's review page", () => {
     );
     const editor = await app.signedIn(world.editor);
     const set = await editor.send("put", api(`/deals/${sent.deal.id}/cut`), { clipId: clip.rows[0].id, timing: null, version: 1 }).expect(200);
-    expect(set.body.deal.cut.clip).toEqual({ id: clip.rows[0].id, fileName: "segment-v2.mp4", durationSeconds: 62 });
+    expect(set.body.deal.cut.clip).toEqual({ id: clip.rows[0].id, fileName: "segment-v2.mp4", durationSeconds: 62, frameRate: null });
+    expect(set.body.deal.cut.segment).toEqual({ startSeconds: 0, endSeconds: 62, wholeFile: true, frameRate: null });
 
     const page = await (await app.visitor()).get(`/api/review/${sent.token}`).expect(200);
     const url = new URL(page.body.cutUrl);

@@ -187,6 +187,31 @@ export const reviewLinks = pgTable(
 );
 
 /**
+ * A sponsor's comment pinned to a moment of the segment under review, left through a review link:
+ * seconds into the segment (from its in point, in milliseconds), under the contact's name as the link
+ * was sent to them. Kept with the deal; the item is kept as it was when pinned (null once removed).
+ */
+export const reviewPins = pgTable(
+  "review_pins",
+  {
+    id: id(),
+    channelId: channelRef(),
+    dealId: uuid("deal_id")
+      .notNull()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    linkId: uuid("link_id")
+      .notNull()
+      .references(() => reviewLinks.id, { onDelete: "cascade" }),
+    deliverableId: uuid("deliverable_id").references(() => deliverables.id, { onDelete: "set null" }),
+    offsetMs: integer("offset_ms").notNull(),
+    note: text("note").notNull(),
+    contactName: text("contact_name").notNull(),
+    createdAt: createdAt(),
+  },
+  (table) => [index("review_pins_deal_idx").on(table.dealId, table.offsetMs), index("review_pins_link_idx").on(table.linkId, table.createdAt)],
+);
+
+/**
  * One row per reminder ever sent: the unique key is what makes a reminder go out once, however many
  * app instances scan at the same moment. A moved due date is a new key, so it earns fresh reminders.
  */

@@ -42,6 +42,8 @@ export const access: FeatureAccess = {
     [`DELETE ${c}/deals/:dealId/review-links/:linkId`,           401, ok, ok, 403, 403, 404],
     ["GET /api/review/:token",                                   ok,  ok, ok, ok,  ok,  ok],
     ["POST /api/review/:token/decision",                         ok,  ok, ok, ok,  ok,  ok],
+    ["POST /api/review/:token/pins",                             ok,  ok, ok, ok,  ok,  ok],
+    [`GET ${c}/deals/:dealId/cut/player`,                        401, ok, ok, ok,  ok,  404],
     [`GET ${c}/desk`,                                            401, ok, ok, ok,  ok,  404],
     [`GET ${c}/sponsor-settings`,                                401, ok, ok, ok,  ok,  404],
     [`PUT ${c}/sponsor-settings`,                                401, ok, ok, 403, 403, 404],
@@ -263,6 +265,23 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         return { params: { token }, body: { decision: "approved", comment: null, seen: page.body.seen } };
       },
     },
+    // A pin needs a segment: the link's deal gets a clip row (the page reads no bytes of it).
+    ["POST /api/review/:token/pins"]: {
+      ok: 201,
+      prepare: async () => {
+        const { link, token } = await openLink();
+        const [clip] = (
+          await app.database.pool.query(
+            `insert into clips (channel_id, episode_id, object_key, file_name, content_type, size_bytes, duration_ms, recorded_at)
+             values ($1, $2, $3, 'draft.mp4', 'video/mp4', 1, 6000, now()) returning id`,
+            [channelId, world.episode.id, `${channelId}/${world.episode.id}/${randomUUID()}`],
+          )
+        ).rows;
+        await app.database.pool.query("update deals set cut_clip_id = $1 where id = $2", [clip.id, link.dealId]);
+        return { params: { token }, body: { atSeconds: 1.5, note: "Logo too small here" }, intact: async () => expect(await one("select count(*)::int as n from review_pins where link_id = $1", [link.id])).toEqual({ n: 0 }) };
+      },
+    },
+    [`GET ${c}/deals/:dealId/cut/player`]: { ok: 200, prepare: async () => ({ params: { dealId: (await freshDeal()).deal.id } }) },
     [`GET ${c}/desk`]: { ok: 200 },
     [`GET ${c}/sponsor-settings`]: { ok: 200 },
     [`PUT ${c}/sponsor-settings`]: {

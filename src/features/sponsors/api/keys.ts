@@ -11,6 +11,7 @@ export const sponsorKeys = {
   desk: (channelId: string, filter: { sponsorId?: string; episodeId?: string }) => [...sponsorKeys.desks(channelId), filter] as const,
   settings: (channelId: string) => [...sponsorKeys.channel(channelId), "settings"] as const,
   review: (token: string) => [...sponsorKeys.all, "review", token] as const,
+  cutPlayer: (channelId: string, dealId: string) => [...sponsorKeys.deals(channelId), "cut-player", dealId] as const,
 };
 
 export const channelBase = (channelId: string) => `/api/channels/${channelId}`;

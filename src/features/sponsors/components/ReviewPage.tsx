@@ -1,18 +1,30 @@
-import { useState, type ReactNode } from "react";
+import { useRef, useState, type FormEvent, type ReactNode } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import { useParams } from "react-router-dom";
-import { placementLabels, reviewDecisionSchema, type ReviewDecision, type ReviewDecisionInput, type ReviewPage as ReviewPageData } from "@shared/sponsors/schemas";
+import {
+  placementLabels,
+  reviewDecisionSchema,
+  reviewPinSchema,
+  type ReviewDecision,
+  type ReviewDecisionInput,
+  type ReviewPage as ReviewPageData,
+  type ReviewPinView,
+  type ReviewSegment,
+} from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
 import { Wordmark } from "../../../components/Wordmark";
-import { formatInstant, formatSeconds } from "../../../lib/format";
+import { formatClock, formatInstant, formatSeconds } from "../../../lib/format";
 import { useMe, useTimeZone } from "../../../lib/session";
+import { useAddReviewPin } from "../api/add-review-pin";
 import { useDecide } from "../api/decide-review";
 import { useReview } from "../api/get-review";
 import { TextAreaField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
+import { SegmentPlayer, type SegmentPlayerHandle } from "./SegmentPlayer";
 
 function Frame({ children }: { children: ReactNode }) {
   return (
@@ -142,16 +154,7 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
           <dd>{page.disclosureText ?? "A plain label such as “Sponsored”"}</dd>
         </dl>
       </section>
-      {page.cutUrl && (
-        <section aria-labelledby="cut-heading" className="rounded-xl border border-ply-300 bg-white p-6">
-          <h2 id="cut-heading" className="mb-2 text-lg font-semibold">
-            The cut
-          </h2>
-          <video controls preload="metadata" src={page.cutUrl} className="w-full rounded-md bg-graphite-900">
-            Your browser can't play this video here.
-          </video>
-        </section>
-      )}
+      {page.cutUrl && page.segment && <SegmentReview token={token} url={page.cutUrl} segment={page.segment} contractSeconds={page.segmentSeconds} pins={page.pins} />}
       <form onSubmit={onSubmit} noValidate aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
         <h2 id="decision-heading" className="mb-3 text-lg font-semibold">
           Your decision
@@ -177,5 +180,83 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
         </Button>
       </form>
     </>
+  );
+}
+
+/** The segment's running time against the contract, in words. */
+export function runningTimeWords(segmentSeconds: number, contractSeconds: number): string {
+  const gap = Math.round(segmentSeconds - contractSeconds);
+  const verdict = gap === 0 ? "on the length" : gap < 0 ? `${formatSeconds(-gap)} short` : `${formatSeconds(gap)} over`;
+  return `The segment runs ${formatSeconds(segmentSeconds)}; the contract asks for ${formatSeconds(contractSeconds)} (${verdict}).`;
+}
+
+interface PinValues {
+  note: string;
+}
+
+const pinNoteSchema = reviewPinSchema.pick({ note: true });
+
+/** The segment and its player; a comment is pinned to the moment the player is at when it is sent. */
+function SegmentReview({ token, url, segment, contractSeconds, pins }: { token: string; url: string; segment: ReviewSegment; contractSeconds: number; pins: ReviewPinView[] }) {
+  const player = useRef<SegmentPlayerHandle>(null);
+  const addPin = useAddReviewPin(token);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [pinnedAt, setPinnedAt] = useState<number | null>(null);
+  const form = useForm<PinValues>({ resolver: zodResolver(pinNoteSchema), defaultValues: { note: "" } });
+  const pausePlayer = () => player.current?.pause();
+  // The moment is where the player is when the comment is sent: the sponsor paused there, or it stopped there.
+  const momentNow = () => player.current?.position() ?? 0;
+  const send = async ({ note }: PinValues) => {
+    setFormError(null);
+    try {
+      const pin = await addPin.mutateAsync({ note, atSeconds: momentNow() });
+      setPinnedAt(pin.atSeconds);
+      form.reset({ note: "" });
+    } catch (error) {
+      setFormError(applyServerErrors(error, form.setError, ["note"]));
+    }
+  };
+  const onSubmit = (event: FormEvent) => void form.handleSubmit(send)(event);
+  const length = segment.endSeconds - segment.startSeconds;
+  return (
+    <section aria-labelledby="cut-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+      <h2 id="cut-heading" className="mb-1 text-lg font-semibold">
+        {segment.wholeFile ? "The draft cut" : "Your segment in the cut"}
+      </h2>
+      <p className="mb-3 text-sm text-graphite-700">{runningTimeWords(length, contractSeconds)}</p>
+      <SegmentPlayer ref={player} url={url} segment={segment} label="Segment player" />
+      <form onSubmit={onSubmit} noValidate aria-label="Comment on a moment" className="mt-4 flex flex-col gap-2">
+        <TextAreaField
+          label="Comment on this moment"
+          rows={2}
+          hint="Pause where it matters; the comment is pinned to where the player is when you send it."
+          {...form.register("note")}
+          onFocus={pausePlayer}
+          error={form.formState.errors.note?.message}
+        />
+        {formError && <Notice kind="error">{formError}</Notice>}
+        <div className="flex flex-wrap items-center gap-3">
+          <Button type="submit" tone="quiet" busy={addPin.isPending}>
+            Pin comment here
+          </Button>
+          {pinnedAt !== null && <span className="text-sm text-graphite-700" role="status">Pinned at {formatClock(pinnedAt)}.</span>}
+        </div>
+      </form>
+      <h3 className="mt-4 text-base font-semibold">Your pinned comments</h3>
+      {pins.length === 0 ? (
+        <p className="text-sm text-graphite-500">None yet. The channel sees each one at its moment of the cut.</p>
+      ) : (
+        <ol aria-label="Your pinned comments" className="mt-1 flex flex-col gap-1">
+          {pins.map((pin) => (
+            <li key={pin.id} className="flex flex-wrap items-baseline gap-2 text-sm">
+              <button type="button" className="font-mono text-rust-700 underline" onClick={() => player.current?.seek(pin.atSeconds)} aria-label={`Go to ${formatClock(pin.atSeconds)}`}>
+                {formatClock(pin.atSeconds)}
+              </button>
+              <span className="whitespace-pre-wrap">{pin.note}</span>
+            </li>
+          ))}
+        </ol>
+      )}
+    </section>
   );
 }
