@@ -34,7 +34,7 @@ const STDERR_KEPT = 4_000;
 /** Runs one tool to its end; answers its standard output, or throws MediaToolError. */
 export function runTool(tool: "ffmpeg" | "ffprobe", args: string[], limits: ToolLimits, what: string): Promise<string> {
   return new Promise((resolve, reject) => {
-    const child = spawn(tool, ["-hide_banner", "-nostdin", "-loglevel", "error", ...args], { stdio: ["ignore", "pipe", "pipe"], shell: false });
+    const child = spawn(tool, ["-hide_banner", ...(tool === "ffmpeg" ? ["-nostdin"] : []), "-loglevel", "error", ...args], { stdio: ["ignore", "pipe", "pipe"], shell: false });
     const out: Buffer[] = [];
     let outBytes = 0;
     let errTail = "";
@@ -43,7 +43,7 @@ export function runTool(tool: "ffmpeg" | "ffprobe", args: string[], limits: Tool
       stopped ??= error;
       child.kill("SIGKILL");
     };
-    const timer = setTimeout(() => stop(new MediaToolError(`${what} took longer than ${Math.round(limits.timeoutMs / 1000)} seconds, so the server stopped it.`, "time limit")), limits.timeoutMs);
+    const timer = setTimeout(() => stop(new MediaToolError(`${what} took longer than ${spell(limits.timeoutMs)}, so the server stopped it.`, "time limit")), limits.timeoutMs);
     child.stdout.on("data", (chunk: Buffer) => {
       outBytes += chunk.length;
       if (limits.maxStdoutBytes !== undefined && outBytes > limits.maxStdoutBytes) stop(new MediaToolError(`${what} gave more output than the server reads.`, "output limit"));
@@ -66,6 +66,13 @@ export function runTool(tool: "ffmpeg" | "ffprobe", args: string[], limits: Tool
   });
 }
 
+function spell(ms: number): string {
+  if (ms >= 120_000) return `${Math.round(ms / 60_000)} minutes`;
+  const seconds = Math.max(1, Math.ceil(ms / 1000));
+  return seconds === 1 ? "1 second" : `${seconds} seconds`;
+}
+
+/** The tool's last word, with any URL (a presigned link is a key to the file) left out. */
 function lastLine(text: string): string {
-  return text.trim().split("\n").at(-1)?.slice(0, 300) ?? "";
+  return text.trim().split("\n").at(-1)?.replace(/https?:\/\/\S+/g, "the file").slice(0, 300) ?? "";
 }
