@@ -6,7 +6,8 @@ export const rushesKeys = {
   footageList: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "list", query] as const,
   edlRates: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "edl-rates", query] as const,
   clip: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "clip", clipId] as const,
-  preview: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "preview", clipId] as const,
+  /** The link changes from the original to the proxy once the server has made one. */
+  preview: (channelId: string, clipId: string, proxy = false) => [...rushesKeys.footage(channelId), "preview", clipId, proxy ? "proxy" : "original"] as const,
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
   shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
   shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,

@@ -14,6 +14,7 @@ import { useUpdateClip } from "../api/update-clip";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { clipFormatText } from "./labels";
+import { ClipMediaStatus } from "./ClipMedia";
 import { ClipPlayer } from "./ClipPlayer";
 import { clipFormat, MarksEditor, useMarkForm } from "./MarksEditor";
 
@@ -66,6 +67,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
           )
         }
       </ClipPreview>
+      <ClipMediaStatus channelId={channelId} clip={clip} />
       <MarksEditor channelId={channelId} clip={clip} marking={marking} />
       <div>
         <Button tone="quiet" onClick={() => void download()}>
@@ -109,7 +111,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
 
 /** The clip's picture from a short-lived link, or why there is none. */
 function ClipPreview({ channelId, clip, children }: { channelId: string; clip: ClipDetail; children: (url: string, onUnplayable: () => void) => ReactNode }) {
-  const preview = usePreview(channelId, clip.id);
+  const preview = usePreview(channelId, clip.id, clip.media.hasProxy);
   const [unplayable, setUnplayable] = useState(false);
   if (preview.data && !unplayable) return children(preview.data.url, () => setUnplayable(true));
   const message = unplayable
