@@ -71,9 +71,12 @@ test("the server makes a poster and proxy for an HEVC clip, and a file it can't 
   await page.setViewportSize({ width: 1280, height: 800 });
   await panel.getByRole("button", { name: "Close" }).click();
 
-  // Waiting shows in the list; a failure (here set straight in the database) retries to ready.
+  // Waiting shows in the list and is looked at again until it changes; a failure (both set straight
+  // in the database here) retries to ready.
   const [clip] = await sql<{ id: string }>("select id from clips where file_name = $1 and channel_id = $2", ["C010_HEVC.mp4", channelId]);
   await sql("update clips set media_state = 'waiting' where id = $1", [clip!.id]);
+  // Nothing on the page is pending, so nothing polls: the page is opened again, as a person would.
+  await page.reload();
   await expect(hevcRow.getByText("Making poster and proxy…")).toBeVisible({ timeout: 15_000 });
   await sql("update clips set media_state = 'failed', media_failure = $2 where id = $1", [clip!.id, "Footage storage could not be reached while making the poster and proxy; retry in a moment."]);
   await expect(hevcRow.getByText(/No poster or proxy: Footage storage could not be reached/)).toBeVisible({ timeout: 15_000 });
