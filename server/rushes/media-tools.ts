@@ -74,5 +74,5 @@ function spell(ms: number): string {
 
 /** The tool's last word, with any URL (a presigned link is a key to the file) left out. */
 function lastLine(text: string): string {
-  return text.trim().split("\n").at(-1)?.replace(/https?:\/\/\S+/g, "the file").slice(0, 300) ?? "";
+  return text.trim().split("\n").at(-1)?.replace(/https?:\/\/\S+/g, (url) => (url.endsWith(":") ? "the file:" : "the file")).slice(0, 300) ?? "";
 }
