@@ -33,7 +33,7 @@ test.beforeAll(async () => {
 test.afterAll(() => rm(folder, { recursive: true, force: true }));
 
 test("the server makes a poster and proxy for an HEVC clip, and a file it can't read says why and offers a retry", async ({ page, browser }) => {
-  test.setTimeout(180_000);
+  test.setTimeout(300_000);
   const hostContext = await browser.newContext();
   const { channelId, episodeId } = await hostWithEpisode(await hostContext.newPage(), {
     host: { name: "Ilse Varga", channel: "Kiln Notes" },
