@@ -28,6 +28,12 @@ if ! ls /usr/lib/postgresql/*/bin/initdb >/dev/null 2>&1; then
   apt_install postgresql
 fi
 
+# The server makes each clip's poster and proxy with Debian's ffmpeg and ffprobe (one package, about
+# 92 with what it needs); npm's ffmpeg packages download a binary at install or ship an old build.
+if ! command -v ffmpeg >/dev/null || ! command -v ffprobe >/dev/null; then
+  apt_install ffmpeg
+fi
+
 # The S3 stand-in: Swift's four servers (its proxy carries the S3 layer) and memcached for its tokens.
 # Without --no-install-recommends apt pulls about 145 packages instead of 64.
 missing=0

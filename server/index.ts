@@ -6,7 +6,7 @@ import { readEnv, type Env } from "./env";
 import { startJobs } from "./jobs/queue";
 import { scheduleMailHousekeeping } from "./mail/housekeeping";
 import { createMailer } from "./mail/mailer";
-import { scheduleRushesJobs } from "./rushes/rushes.jobs";
+import { scheduleRushesJobs, startClipMediaWorkers } from "./rushes/rushes.jobs";
 import { scheduleSponsorJobs } from "./sponsors/reminders";
 import { createS3Storage, storageSettingsFrom } from "./storage/storage";
 
@@ -22,6 +22,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await jobs.startMailWorker(mailRenderers({ env, database }));
   const storage = createS3Storage(storageSettingsFrom(env));
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
+  await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs });
   await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL });
   await scheduleMailHousekeeping(jobs.boss, database.db);
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };

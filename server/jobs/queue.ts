@@ -13,10 +13,22 @@ const BOSS_SCHEMA = "pgboss";
 /** Mail jobs one fetch takes; each is sent, completed or failed on its own. */
 const MAIL_BATCH = 10;
 
+/** How a feature's queued job is retried and how long one run may take before pg-boss gives up on it. */
+export interface QueueOptions {
+  retryLimit: number;
+  expireInSeconds: number;
+}
+
 export interface Jobs {
   boss: PgBoss;
   /** `db` sends the job inside the caller's transaction (pg-boss's executor), so it exists only if that commits. */
   enqueueMail(job: MailJob, options?: { db?: SqlExecutor }): Promise<void>;
+  /**
+   * Queues a feature's job, its channel taking turns with others: the job's priority is minus the
+   * number of that channel's jobs of the queue already waiting (as mail's is). The queue is made on
+   * first use; `db` sends it inside the caller's transaction.
+   */
+  enqueue(queue: string, data: { channelId: string } & Record<string, unknown>, options: QueueOptions & { db?: SqlExecutor }): Promise<void>;
   /** Starts this instance's mail worker; the renderers build each mail when its job runs. */
   startMailWorker(renderers: MailRenderers): Promise<void>;
   stop(): Promise<void>;
@@ -48,6 +60,31 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
     await boss.send(MAIL_QUEUE, job as unknown as object, { priority: -waiting, retryLimit: 14, retryDelay: 10, retryBackoff: true, db });
   }
 
+  const madeQueues = new Map<string, Promise<void>>();
+  /** pg-boss takes jobs only for a queue it holds; made once per process, outside any caller's transaction. */
+  function ensureQueue(queue: string): Promise<void> {
+    let made = madeQueues.get(queue);
+    if (!made) {
+      made = boss.createQueue(queue).catch((error: unknown) => {
+        madeQueues.delete(queue);
+        throw error;
+      });
+      madeQueues.set(queue, made);
+    }
+    return made;
+  }
+
+  async function enqueue(queue: string, data: { channelId: string } & Record<string, unknown>, sendOptions: QueueOptions & { db?: SqlExecutor }): Promise<void> {
+    await ensureQueue(queue);
+    const db = sendOptions.db ?? boss.getDb();
+    const { rows } = await db.executeSql(
+      `select count(*)::int as waiting from ${BOSS_SCHEMA}.job where name = $1 and state < 'active' and data->>'channelId' = $2`,
+      [queue, data.channelId],
+    );
+    const waiting = (rows[0] as { waiting: number } | undefined)?.waiting ?? 0;
+    await boss.send(queue, data, { priority: -waiting, retryLimit: sendOptions.retryLimit, expireInSeconds: sendOptions.expireInSeconds, db });
+  }
+
   async function deliver(renderers: MailRenderers, job: MailJob | OutgoingMail): Promise<MailOutcome> {
     // A job queued before mail was rendered at send time carries its finished mail.
     if (!("kind" in job)) {
@@ -69,6 +106,7 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
   return {
     boss,
     enqueueMail,
+    enqueue,
     async startMailWorker(renderers) {
       const work = { pollingIntervalSeconds: options.pollSeconds ?? 2, batchSize: MAIL_BATCH, includeMetadata: true as const };
       await boss.work<MailJob | OutgoingMail>(MAIL_QUEUE, work, async (jobs) => {

@@ -70,6 +70,12 @@ const clipColumns = {
   tags: clips.tags,
   notes: clips.notes,
   markCount: clips.markCount,
+  mediaState: clips.mediaState,
+  mediaFailure: clips.mediaFailure,
+  mediaAttempts: clips.mediaAttempts,
+  mediaMismatches: clips.mediaMismatches,
+  serverPosterKey: clips.serverPosterKey,
+  proxyKey: clips.proxyKey,
   uploadedBy: clips.uploadedBy,
   createdAt: clips.createdAt,
 };

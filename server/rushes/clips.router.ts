@@ -5,6 +5,7 @@ import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import * as clips from "./clips.service";
+import { retryClipMedia } from "./media.service";
 import type { RushesContext } from "./rushes.context";
 
 const list = "/api/channels/:channelId/clips";
@@ -63,6 +64,17 @@ export function clipRoutes(ctx: RushesContext): RouteSpec[] {
       access: write,
       body: "multipart",
       handler: async (req, res) => res.status(201).json({ clip: await clips.setPoster(ctx, callerOf(req), idOf(req, "clipId"), req, res) }),
+    },
+    {
+      method: "post",
+      path: `${clip}/media/retry`,
+      // Anyone who may upload and log footage may ask again for a failed clip's poster and proxy.
+      access: write,
+      body: "none",
+      handler: async (req, res) => {
+        await retryClipMedia(ctx, callerOf(req), idOf(req, "clipId"));
+        res.status(202).json({ clip: await clips.getClip(ctx, callerOf(req), idOf(req, "clipId")) });
+      },
     },
     {
       method: "post",

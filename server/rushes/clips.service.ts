@@ -24,9 +24,11 @@ type MarkRow = Awaited<ReturnType<typeof repo.marksOf>>[number];
 const POSTER_URL_SECONDS = 30 * 60;
 
 async function posterUrl(ctx: RushesContext, row: ClipRow): Promise<string | null> {
-  if (!row.posterKey) return null;
+  // The server's poster is read from the file itself; the browser's stands in until then.
+  const key = row.serverPosterKey ?? row.posterKey;
+  if (!key) return null;
   // Signing is local arithmetic (no call to the store), so a list of fifty costs nothing to sign.
-  return ctx.storage.presignGet(row.posterKey, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
+  return ctx.storage.presignGet(key, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
 }
 
 export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<ClipView> {
@@ -61,6 +63,7 @@ export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<Clip
     posterUrl: await posterUrl(ctx, row),
     uploadedBy: row.uploadedBy,
     createdAt: row.createdAt.toISOString(),
+    media: { state: row.mediaState, failure: row.mediaFailure, attempts: row.mediaAttempts, mismatches: row.mediaMismatches, hasProxy: row.proxyKey !== null },
   };
 }
 
@@ -127,7 +130,7 @@ export async function updateClip(ctx: RushesContext, caller: Caller, clipId: str
 export async function deleteClip(ctx: RushesContext, caller: Caller, clipId: string): Promise<void> {
   const row = await clipOrNotFound(ctx, caller, clipId);
   await viaStorage(() => ctx.storage.remove(row.objectKey));
-  if (row.posterKey) await ctx.storage.remove(row.posterKey).catch(() => undefined);
+  for (const key of [row.posterKey, row.serverPosterKey, row.proxyKey]) if (key) await ctx.storage.remove(key).catch(() => undefined);
   await ctx.db.transaction(async (tx) => {
     await repo.deleteClip(tx, caller.channelId, clipId);
     if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
@@ -200,8 +203,12 @@ export async function deleteMark(ctx: RushesContext, caller: Caller, clipId: str
 /** A short-lived link to one object: the preview player streams straight from the store. */
 export async function previewUrl(ctx: RushesContext, caller: Caller, clipId: string, download: boolean) {
   const row = await clipOrNotFound(ctx, caller, clipId);
+  // The player gets the server's proxy once there is one (any browser plays it); a download is always the original.
+  const proxy = !download && row.proxyKey !== null;
   const url = await viaStorage(() =>
-    ctx.storage.presignGet(row.objectKey, { expiresInSeconds: PREVIEW_URL_SECONDS, contentType: row.contentType, fileName: download ? row.fileName : undefined }),
+    proxy
+      ? ctx.storage.presignGet(row.proxyKey!, { expiresInSeconds: PREVIEW_URL_SECONDS, contentType: "video/mp4" })
+      : ctx.storage.presignGet(row.objectKey, { expiresInSeconds: PREVIEW_URL_SECONDS, contentType: row.contentType, fileName: download ? row.fileName : undefined }),
   );
-  return { url, expiresAt: new Date(Date.now() + PREVIEW_URL_SECONDS * 1000).toISOString() };
+  return { url, expiresAt: new Date(Date.now() + PREVIEW_URL_SECONDS * 1000).toISOString(), source: proxy ? ("proxy" as const) : ("original" as const) };
 }

@@ -24,3 +24,8 @@ const keyPattern = /^[0-9a-f-]{36}\/([0-9a-f-]{36}|stills)\/[0-9a-f-]{36}$/;
 export function isKerfKey(key: string): boolean {
   return keyPattern.test(key);
 }
+
+/** The server's small playable copy of a clip, beside its footage. */
+export function proxyKey(channelId: string, episodeId: string): string {
+  return `${channelId}/${episodeId}/${randomUUID()}`;
+}

@@ -1,5 +1,6 @@
 import type PgBoss from "pg-boss";
 import type { RushesContext } from "./rushes.context";
+import { CLIP_MEDIA_QUEUE, MEDIA_WORKERS, makeClipMedia, type ClipMediaJob } from "./media.service";
 import { sweepAbandonedUploads } from "./uploads.service";
 
 /**
@@ -10,7 +11,7 @@ import { sweepAbandonedUploads } from "./uploads.service";
 export const ABANDONED_UPLOADS_QUEUE = "rushes-abandoned-uploads";
 export const ABANDONED_UPLOADS_CRON = "17 * * * *";
 
-export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number } = {}): Promise<void> {
+export async function scheduleRushesJobs(boss: PgBoss, ctx: Pick<RushesContext, "db" | "storage">, options: { pollSeconds?: number } = {}): Promise<void> {
   await boss.createQueue(ABANDONED_UPLOADS_QUEUE);
   await boss.schedule(ABANDONED_UPLOADS_QUEUE, ABANDONED_UPLOADS_CRON, {}, { tz: "UTC" });
   // The sweep's tally (abandoned, deferred, which failed and why) becomes the job's output, where an operator can read it.
@@ -20,4 +21,17 @@ export async function scheduleRushesJobs(boss: PgBoss, ctx: RushesContext, optio
     if (swept.deferred > 0) console.error(`[rushes] ${swept.deferred} abandoned upload(s) left for the next sweep`);
     return swept;
   });
+}
+
+/**
+ * The clip media workers of this instance: MEDIA_WORKERS jobs at a time, one each, taken by priority
+ * (each channel's n-th waiting clip before any channel's (n+1)-th), so one channel's card of big files
+ * takes turns with everyone else's. What a job made (or why it was skipped) is its output; a failure
+ * is the job's failure, recorded by pg-boss, and the clip says why.
+ */
+export async function startClipMediaWorkers(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number; workers?: number } = {}): Promise<void> {
+  await boss.createQueue(CLIP_MEDIA_QUEUE);
+  for (let n = 0; n < (options.workers ?? MEDIA_WORKERS); n++) {
+    await boss.work<ClipMediaJob>(CLIP_MEDIA_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeClipMedia(ctx, job!.data));
+  }
 }

@@ -8,6 +8,6 @@ import { uploadRoutes } from "./uploads.router";
 
 /** Footage (uploads, clips and marks, photos, exports), shoot days and the shot list. */
 export function rushesRoutes(deps: AppDeps): RouteSpec[] {
-  const ctx = { db: deps.database.db, storage: deps.storage };
+  const ctx = { db: deps.database.db, storage: deps.storage, jobs: deps.jobs };
   return [...uploadRoutes(ctx), ...clipRoutes(ctx), ...exportRoutes(ctx), ...stillRoutes(ctx), ...shootRoutes(ctx)];
 }

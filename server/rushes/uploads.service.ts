@@ -5,6 +5,8 @@ import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { eachItem, emptyTally, mergeTallies, type ItemTally } from "../jobs/each-item";
 import { isStorageDown, storageDown, viaStorage } from "../storage/storage";
+import { inTransaction } from "../db/transaction";
+import { queueClipMedia } from "./media.service";
 import { footageKey } from "./object-keys";
 import type { RushesContext } from "./rushes.context";
 import * as repo from "./uploads.repository";
@@ -171,6 +173,7 @@ function clipValues(row: UploadRow, metadata: ClipMetadata | null, storageEtag: 
     startTimecode: metadata?.startTimecode ?? null,
     camera: metadata?.camera ?? "",
     recordedAt: metadata?.recordedAt ? new Date(metadata.recordedAt) : new Date(),
+    mediaState: "waiting" as const,
   };
 }
 
@@ -180,7 +183,7 @@ function clipValues(row: UploadRow, metadata: ClipMetadata | null, storageEtag: 
  * is removed from storage and the upload closed as refused, so nothing Kerf didn't accept stays.
  */
 export async function completeUpload(ctx: RushesContext, caller: Caller, uploadId: string, body: { sha256?: string; metadata?: ClipMetadata }) {
-  const done = await ctx.db.transaction(async (tx) => {
+  const done = await inTransaction(ctx.db, async (tx, sql) => {
     const row = await repo.lockUpload(tx, caller.channelId, uploadId);
     if (!row) throw notFound("Upload");
     if (row.status === "completed" && row.clipId) return { clipId: row.clipId, alreadyComplete: true };
@@ -207,6 +210,8 @@ export async function completeUpload(ctx: RushesContext, caller: Caller, uploadI
     if (!object || object.size !== row.sizeBytes) return { refused: await refuse(ctx, tx, row, object?.size ?? 0) };
     const clip = await repo.insertClip(tx, clipValues(row, body.metadata ?? row.metadata, etag ?? object.etag, body.sha256));
     await repo.finishUpload(tx, row.id, "completed", clip.id);
+    // The server's poster, proxy and probe: queued with the clip, so neither exists without the other.
+    await queueClipMedia(ctx, { channelId: row.channelId, clipId: clip.id }, sql);
     return { clipId: clip.id, alreadyComplete: false };
   });
   // Thrown after the commit: the refusal (and the removal it records) stands.
@@ -248,7 +253,7 @@ export async function cancelUpload(ctx: RushesContext, caller: Caller, uploadId:
  * abandoned, one at a time. One that fails (storage can't discard it now, a row that can't change) is
  * logged, counted and stays open for the next sweep; the sweep goes on with the rest.
  */
-export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()): Promise<{ abandoned: number; deferred: number } & ItemTally> {
+export async function sweepAbandonedUploads(ctx: Pick<RushesContext, "db" | "storage">, now = new Date()): Promise<{ abandoned: number; deferred: number } & ItemTally> {
   const before = new Date(now.getTime() - ABANDONED_AFTER_HOURS * 3600 * 1000);
   let abandoned = 0;
   let tally = emptyTally();
@@ -263,7 +268,7 @@ export async function sweepAbandonedUploads(ctx: RushesContext, now = new Date()
   }
 }
 
-async function abandon(ctx: RushesContext, uploadId: string, before: Date): Promise<boolean> {
+async function abandon(ctx: Pick<RushesContext, "db" | "storage">, uploadId: string, before: Date): Promise<boolean> {
   return ctx.db.transaction(async (tx) => {
     // Still open and still stale: a completion or a part since the list was read keeps it alive.
     const row = await repo.lockStaleUpload(tx, uploadId, before);

@@ -9,7 +9,7 @@ export interface AppDeps {
   env: Env;
   database: DatabaseHandle;
   mailer: Mailer;
-  jobs: Pick<Jobs, "enqueueMail">;
+  jobs: Pick<Jobs, "enqueueMail" | "enqueue">;
   /** Object storage (S3 protocol): footage, posters, photos. */
   storage: Storage;
 }

@@ -3,7 +3,8 @@ import { calendarDateSchema, recordedInstantSchema } from "../fields/dates";
 import { multiLine, oneLine } from "../fields/text";
 import { frameRateSchema, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
-import { clipRatings, shotKinds, shotPriorities, shotStatuses, type ClipRating, type ShotKind, type ShotPriority, type ShotStatus, type UploadStatus } from "./vocabulary";
+import type { MediaMismatch } from "./media-check";
+import { clipRatings, shotKinds, shotPriorities, shotStatuses, type ClipMediaState, type ClipRating, type ShotKind, type ShotPriority, type ShotStatus, type UploadStatus } from "./vocabulary";
 
 // Request bodies are strict: a key the schema doesn't name is refused, never silently dropped.
 const id = (what: string) => z.uuid({ message: `Choose a ${what}.` });
@@ -235,9 +236,23 @@ export interface ClipView {
   tags: string[];
   notes: string;
   markCount: number;
+  /** The server's poster when it has made one, else the one the browser sent, else none. */
   posterUrl: string | null;
   uploadedBy: string | null;
   createdAt: string;
+  media: ClipMediaView;
+}
+
+/** The server's work on a clip: its state, why it failed, and where the file and the browser disagree. */
+export interface ClipMediaView {
+  state: ClipMediaState;
+  /** Plain words, when it failed. */
+  failure: string | null;
+  attempts: number;
+  /** The file's values are the clip's; these are what the browser said instead. */
+  mismatches: MediaMismatch[];
+  /** A small H.264/AAC copy any browser plays: the preview link points at it when there is one. */
+  hasProxy: boolean;
 }
 
 export interface ClipDetail extends ClipView {

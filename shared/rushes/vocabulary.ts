@@ -29,3 +29,10 @@ export const clipRatingLabels: Record<ClipRating, string> = { select: "Select", 
 
 export const uploadStatuses = ["uploading", "completed", "cancelled", "abandoned", "refused"] as const;
 export type UploadStatus = (typeof uploadStatuses)[number];
+
+/**
+ * Where the server is with a clip's own poster, proxy and probe: waiting for the queue, making them,
+ * ready, or failed (with a reason in plain words, and a retry).
+ */
+export const clipMediaStates = ["waiting", "making", "ready", "failed"] as const;
+export type ClipMediaState = (typeof clipMediaStates)[number];

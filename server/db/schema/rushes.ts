@@ -1,8 +1,9 @@
 import { sql } from "drizzle-orm";
 import { bigint, boolean, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { createdAt, id } from "./columns";
-import { clipRatings, shotKinds, shotPriorities, shotStatuses, uploadStatuses } from "../../../shared/rushes/vocabulary";
+import { clipMediaStates, clipRatings, shotKinds, shotPriorities, shotStatuses, uploadStatuses } from "../../../shared/rushes/vocabulary";
 import type { ClipMetadata } from "../../../shared/rushes/schemas";
+import type { MediaMismatch, ProbedMedia } from "../../../shared/rushes/media-check";
 import { channelRef, personRef, users } from "./accounts";
 import { benchRuns, buildIterations } from "./bench";
 import { episodeRef, episodes } from "./slate";
@@ -12,6 +13,7 @@ export const shotPriorityEnum = pgEnum("shot_priority", shotPriorities);
 export const shotStatusEnum = pgEnum("shot_status", shotStatuses);
 export const clipRatingEnum = pgEnum("clip_rating", clipRatings);
 export const uploadStatusEnum = pgEnum("upload_status", uploadStatuses);
+export const clipMediaStateEnum = pgEnum("clip_media_state", clipMediaStates);
 
 export const shootDays = pgTable(
   "shoot_days",
@@ -144,6 +146,17 @@ export const clips = pgTable(
     tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
     notes: text("notes").notNull().default(""),
     markCount: integer("mark_count").notNull().default(0),
+    /**
+     * The server's poster, proxy and probe (server/rushes/media.service.ts). A clip completed from an
+     * upload starts "waiting" with its job queued; rows made any other way have nothing to wait for.
+     */
+    mediaState: clipMediaStateEnum("media_state").notNull().default("ready"),
+    mediaFailure: text("media_failure"),
+    mediaAttempts: integer("media_attempts").notNull().default(0),
+    serverPosterKey: text("server_poster_key"),
+    proxyKey: text("proxy_key"),
+    probed: jsonb("probed").$type<ProbedMedia>(),
+    mediaMismatches: jsonb("media_mismatches").$type<MediaMismatch[]>().notNull().default([]),
     createdAt: createdAt(),
   },
   (t) => [

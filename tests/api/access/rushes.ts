@@ -39,6 +39,7 @@ export const access: FeatureAccess = {
     [`DELETE ${clip}`,                                 401,  ok,   ok,   ok,   403,  404],
     [`GET ${clip}/preview`,                            401,  ok,   ok,   ok,   ok,   404],
     [`POST ${clip}/poster`,                            401,  ok,   ok,   ok,   ok,   404],
+    [`POST ${clip}/media/retry`,                       401,  ok,   ok,   ok,   ok,   404],
     [`POST ${clip}/marks`,                             401,  ok,   ok,   ok,   ok,   404],
     [`PATCH ${clip}/marks/:markId`,                    401,  ok,   ok,   ok,   ok,   404],
     [`DELETE ${clip}/marks/:markId`,                   401,  ok,   ok,   ok,   403,  404],
@@ -158,6 +159,20 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       prepare: async () => {
         const c = await freshClip();
         return { params: { clipId: c.id }, intact: async () => expect(await one("select poster_key from clips where id = $1", [c.id])).toEqual({ poster_key: null }) };
+      },
+    },
+    [`POST ${clip}/media/retry`]: {
+      ok: 202,
+      // A clip whose server media failed; a refused caller leaves it failed with no job queued.
+      prepare: async () => {
+        const c = await createClip(app.db, channelId, episodeId, { fileName: "matrix.mov", mediaState: "failed", mediaFailure: "matrix" });
+        return {
+          params: { clipId: c.id },
+          intact: async () => {
+            expect(await one("select media_state from clips where id = $1", [c.id])).toEqual({ media_state: "failed" });
+            expect(await rows("select 1 from pgboss.job where data->>'clipId' = $1", [c.id])).toEqual([]);
+          },
+        };
       },
     },
     [`POST ${clip}/marks`]: {

@@ -6,7 +6,9 @@ export const rushesKeys = {
   footageList: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "list", query] as const,
   edlRates: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "edl-rates", query] as const,
   clip: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "clip", clipId] as const,
-  preview: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "preview", clipId] as const,
+  /** The link to the original, or to the proxy the server made on its n-th attempt (a new attempt, a new proxy). */
+  preview: (channelId: string, clipId: string, proxyOfAttempt: number | null = null) =>
+    [...rushesKeys.footage(channelId), "preview", clipId, proxyOfAttempt === null ? "original" : `proxy-${proxyOfAttempt}`] as const,
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
   shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
   shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,

@@ -14,6 +14,7 @@ import { useUpdateClip } from "../api/update-clip";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { clipFormatText } from "./labels";
+import { ClipMediaStatus } from "./ClipMedia";
 import { ClipPlayer } from "./ClipPlayer";
 import { clipFormat, MarksEditor, useMarkForm } from "./MarksEditor";
 
@@ -66,6 +67,7 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
           )
         }
       </ClipPreview>
+      <ClipMediaStatus channelId={channelId} clip={clip} />
       <MarksEditor channelId={channelId} clip={clip} marking={marking} />
       <div>
         <Button tone="quiet" onClick={() => void download()}>
@@ -107,13 +109,25 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
   );
 }
 
-/** The clip's picture from a short-lived link, or why there is none. */
+/**
+ * The clip's picture from a short-lived link, or why there is none. The proxy plays once the server
+ * has made it; a panel already playing the original keeps it (a new source would lose the playhead)
+ * unless this browser couldn't play the original at all.
+ */
 function ClipPreview({ channelId, clip, children }: { channelId: string; clip: ClipDetail; children: (url: string, onUnplayable: () => void) => ReactNode }) {
-  const preview = usePreview(channelId, clip.id);
-  const [unplayable, setUnplayable] = useState(false);
-  if (preview.data && !unplayable) return children(preview.data.url, () => setUnplayable(true));
-  const message = unplayable
-    ? "This browser can't play this file here (a camera codec it doesn't decode, or no file in storage behind a demo clip). Download the original to view it; marks can still be typed below."
+  const [openedWithProxy] = useState(clip.media.hasProxy);
+  const [unplayableUrl, setUnplayableUrl] = useState<string | null>(null);
+  const proxy = clip.media.hasProxy && (openedWithProxy || unplayableUrl !== null);
+  const preview = usePreview(channelId, clip.id, proxy ? clip.media.attempts : null);
+  if (preview.data && preview.data.url !== unplayableUrl) {
+    const { url } = preview.data;
+    return children(url, () => setUnplayableUrl(url));
+  }
+  const pending = clip.media.state === "waiting" || clip.media.state === "making";
+  const message = unplayableUrl
+    ? pending
+      ? "This browser can't play this file here (a camera codec it doesn't decode). The server is making a copy it can play; it shows here when ready."
+      : "This browser can't play this file here (a camera codec it doesn't decode, or no file in storage behind a demo clip). Download the original to view it; marks can still be typed below."
     : preview.isError
       ? "Storage is not reachable; no preview right now."
       : "Loading preview…";

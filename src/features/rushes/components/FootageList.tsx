@@ -12,6 +12,7 @@ import { useShots } from "../api/list-shots";
 import { ClipPanel } from "./ClipPanel";
 import { ExportLinks } from "./ExportLinks";
 import { formatDay, formatDuration, formatInstant, formatSize } from "../../../lib/format";
+import { ClipMediaNote } from "./ClipMedia";
 import { useTimeZone } from "../../../lib/session";
 
 const input = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
@@ -147,6 +148,7 @@ function ClipRow({ clip, selected, onToggle, onOpen }: { clip: ClipView; selecte
           {clip.fileName}
         </button>
         <p className="text-xs text-graphite-500">{clip.camera || clip.episodeTitle}</p>
+        <ClipMediaNote clip={clip} />
       </td>
       <td className="px-2 py-1.5 whitespace-nowrap">{formatInstant(clip.recordedAt, timeZone)}</td>
       <td className="px-2 py-1.5 tabular-nums">{formatDuration(clip.durationMs)}</td>

@@ -1,7 +1,7 @@
 /**
  * A poster frame from the chosen file itself: the browser decodes it in a hidden <video>, draws one
  * frame to a canvas, and the JPEG streams through Kerf's server into storage. Files the browser can't
- * decode (many camera codecs) simply get no poster.
+ * decode (many camera codecs) simply get no poster: the server makes one from the stored file.
  */
 export async function posterFrom(file: File): Promise<Blob | null> {
   const url = URL.createObjectURL(file);
@@ -21,8 +21,11 @@ export async function posterFrom(file: File): Promise<Blob | null> {
         video.currentTime = at;
       }), 8_000);
     }
+    // A file whose picture the browser can't decode (HEVC, ProRes, DNxHR in Chromium) still fires
+    // loadeddata when its sound plays, with no picture size: a capture then would be a black frame.
+    if (video.videoWidth === 0 || video.videoHeight === 0) return null;
     const width = 480;
-    const height = Math.round((width * (video.videoHeight || 9)) / (video.videoWidth || 16));
+    const height = Math.round((width * video.videoHeight) / video.videoWidth);
     const canvas = document.createElement("canvas");
     canvas.width = width;
     canvas.height = height;
