@@ -12,6 +12,8 @@ const clipColumns = {
   durationMs: clips.durationMs,
   objectKey: clips.objectKey,
   contentType: clips.contentType,
+  mediaState: clips.mediaState,
+  proxyKey: clips.proxyKey,
   episodeId: clips.episodeId,
   frameRateNumerator: clips.frameRateNumerator,
   frameRateDenominator: clips.frameRateDenominator,

@@ -27,10 +27,11 @@ export function timingOf(deal: Pick<DealRow, "cutIn" | "cutOut" | "cutFrameRate"
 }
 
 /**
- * The one place that says which stored object plays a cut. Today the clip's own file; where a lighter
- * copy made for playback exists, this is where it would be preferred.
+ * The one place that says which stored object plays a cut: the web proxy the server made (H.264/AAC,
+ * which every browser plays) once it is ready, else the clip's own file.
  */
-export function playableKey(clip: Pick<CutClipRow, "objectKey" | "contentType">): { key: string; contentType: string } {
+export function playableKey(clip: Pick<CutClipRow, "objectKey" | "contentType" | "mediaState" | "proxyKey">): { key: string; contentType: string } {
+  if (clip.mediaState === "ready" && clip.proxyKey) return { key: clip.proxyKey, contentType: "video/mp4" };
   return { key: clip.objectKey, contentType: clip.contentType };
 }
 

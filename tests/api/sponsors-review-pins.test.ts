@@ -1,5 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { playableKey } from "../../server/sponsors/cut.service";
 import { PINS_PER_MINUTE, type DealView } from "../../shared/sponsors/schemas";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
@@ -160,5 +161,14 @@ describe("comments pinned to a moment of the segment", () => {
     const refused = await visitor.send("post", `/api/review/${token}/pins`, { atSeconds: 1.9, note: "One too many" }).expect(429);
     expect(refused.body.error.message).toMatch(/at most/);
     expect(await pinCount(link.id)).toBe(PINS_PER_MINUTE);
+  });
+});
+
+describe("which file the segment plays from", () => {
+  const clip = { objectKey: "footage/a.mov", contentType: "video/quicktime", proxyKey: "proxies/a.mp4" };
+  it("plays the server's web proxy once it is ready, and the clip's own file until then", () => {
+    expect(playableKey({ ...clip, mediaState: "ready" })).toEqual({ key: "proxies/a.mp4", contentType: "video/mp4" });
+    expect(playableKey({ ...clip, mediaState: "making" })).toEqual({ key: "footage/a.mov", contentType: "video/quicktime" });
+    expect(playableKey({ ...clip, mediaState: "ready", proxyKey: null })).toEqual({ key: "footage/a.mov", contentType: "video/quicktime" });
   });
 });
