@@ -42,6 +42,8 @@ interface UploadJob {
   stored: Map<number, number>;
   /** Parts on their way: number → bytes sent so far. */
   sending: Map<number, number>;
+  /** Failed tries per part since the last start or Retry. */
+  failures: Map<number, number>;
   metadata: ClipMetadata | null;
   sha256: string | null;
   duplicate: Duplicate | null;
@@ -74,7 +76,9 @@ export interface QueueHooks {
 /** Parts sent at once (for all files together). */
 const PARALLEL_PARTS = 4;
 /** Waits before each new try of a part or a signature: backing off, then giving the person the choice. */
-export const RETRY_DELAYS_MS = [0, 1_000, 3_000, 5_000];
+export const RETRY_DELAYS_MS = [0, 1_000, 3_000, 5_000, 10_000];
+/** After this many failed tries of one part the upload stops (its stored parts kept) and asks the person. */
+const TRIES_PER_PART = 4;
 const PARTS_FAILED = "Some parts didn't reach storage. Retry sends just those.";
 
 export const fingerprintOf = (file: File) => `${file.name}:${file.size}:${file.lastModified}`;
@@ -341,10 +345,23 @@ export class UploadQueue {
       job.stored.set(partNumber, size);
       (options.onComplete as (tag: string) => void)(etag ?? answer.ETag ?? "");
       return answer;
+    } catch (error) {
+      if ((error as Error).name !== "AbortError") this.partFailed(job, partNumber);
+      throw error;
     } finally {
       job.sending.delete(partNumber);
       this.emit();
     }
+  }
+
+  /** Uppy tries again with growing waits; after a few tries Kerf stops the file and offers Retry. */
+  private partFailed(job: UploadJob, partNumber: number) {
+    const tries = (job.failures.get(partNumber) ?? 0) + 1;
+    job.failures.set(partNumber, tries);
+    if (tries < TRIES_PER_PART || job.status !== "uploading" || !job.uppyId) return;
+    if (this.uppy.getFile(job.uppyId)?.isPaused !== true) this.uppy.pauseResume(job.uppyId);
+    job.sending.clear();
+    this.fail(job, PARTS_FAILED);
   }
 
   private async complete(job: UploadJob, uploadId: string) {
@@ -396,8 +413,16 @@ export class UploadQueue {
     const job = this.find(id);
     if (!job || job.status !== "failed") return;
     job.error = null;
+    job.failures.clear();
     if (!job.uppyId) {
       void this.begin(job);
+      return;
+    }
+    if (this.uppy.getFile(job.uppyId)?.isPaused) {
+      // Stopped by Kerf after failed tries: carry on from the recorded parts.
+      job.status = "uploading";
+      this.uppy.pauseResume(job.uppyId);
+      this.emit(true);
       return;
     }
     // Uppy forgets the upload's id on an error; Kerf still has it open.
@@ -448,6 +473,7 @@ function blankJob(id: string, episodeId: string, fileName: string, size: number,
     partCount: 0,
     stored: new Map(),
     sending: new Map(),
+    failures: new Map(),
     metadata: null,
     sha256: null,
     duplicate: null,
