@@ -146,7 +146,7 @@ test("after a reload, choosing the same file again sends only the parts Kerf has
   page.on("dialog", (dialog) => void dialog.accept());
   await page.reload();
   await first.stop();
-  await expect(row(page, name).getByText(/Unfinished: choose this file again/)).toBeVisible();
+  await expect(row(page, name).getByText(/Unfinished: choose this file again/)).toBeVisible({ timeout: 60_000 });
   await expect(row(page, name)).toContainText("3 of 6 parts stored");
 
   const after = await gateParts(page, 6);
