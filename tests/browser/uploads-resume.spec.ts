@@ -81,7 +81,7 @@ async function hostOnEpisode(page: Page, channel: string) {
     episode: { title: "Flywheel bench", question: "How much does a heavier rim store?", origin: "idea", stage: "shoot" },
   });
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
-  await expect(page.getByRole("heading", { name: "Upload footage" })).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Upload footage" })).toBeVisible({ timeout: 60_000 });
   return { channelId, episodeId };
 }
 
