@@ -120,3 +120,15 @@ export async function lockStaleUpload(db: Executor, uploadId: string, before: Da
   return rows[0] ?? null;
 }
 
+
+/** The oldest clip of the channel with this SHA-256, and its episode's title. */
+export async function clipWithChecksum(db: Executor, channelId: string, sha256: string) {
+  const rows = await db
+    .select({ id: clips.id, fileName: clips.fileName, episodeId: clips.episodeId, episodeTitle: episodes.title })
+    .from(clips)
+    .innerJoin(episodes, eq(episodes.id, clips.episodeId))
+    .where(and(eq(clips.channelId, channelId), eq(clips.sha256, sha256)))
+    .orderBy(asc(clips.createdAt))
+    .limit(1);
+  return rows[0] ?? null;
+}

@@ -39,6 +39,14 @@ export function uploadRoutes(ctx: RushesContext): RouteSpec[] {
       },
     },
     {
+      // Asked before a file is sent, so a file already in the channel is flagged first.
+      method: "get",
+      path: "/api/channels/:channelId/footage-checksums/:sha256",
+      access: read,
+      valueParams: ["sha256"],
+      handler: async (req, res) => res.json(await uploads.findByChecksum(ctx, callerOf(req), String(req.params.sha256))),
+    },
+    {
       method: "get",
       path: `${upload}/:uploadId`,
       access: read,

@@ -1,6 +1,6 @@
 import { roleMay } from "../../shared/access/roles";
 import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
-import type { ClipMetadata, PartUrlsAnswer, UploadView } from "../../shared/rushes/schemas";
+import { sha256Pattern, type ChecksumAnswer, type ClipMetadata, type PartUrlsAnswer, type UploadView } from "../../shared/rushes/schemas";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { eachItem, emptyTally, mergeTallies, type ItemTally } from "../jobs/each-item";
@@ -99,6 +99,17 @@ export async function listOpenUploads(ctx: RushesContext, caller: Caller, episod
   const rows = await repo.openUploads(ctx.db, caller.channelId, { episodeId, createdBy: caller.userId });
   const parts = await repo.partsOfMany(ctx.db, rows.map((r) => r.id));
   return rows.map((row) => toView(row, parts.filter((p) => p.uploadId === row.id).map(({ partNumber, etag, size }) => ({ partNumber, etag, size }))));
+}
+
+/**
+ * Before a file is sent: is a clip with this SHA-256 in the channel already? Only this channel's clips
+ * are looked at; a checksum that isn't 64 hex digits is refused.
+ */
+export async function findByChecksum(ctx: RushesContext, caller: Caller, sha256: string): Promise<ChecksumAnswer> {
+  if (!sha256Pattern.test(sha256)) {
+    throw new AppError("validation_failed", "A checksum is 64 hex digits (SHA-256).", { sha256: "Write the SHA-256 as 64 hex digits, lower case." });
+  }
+  return { clip: await repo.clipWithChecksum(ctx.db, caller.channelId, sha256) };
 }
 
 /** A part's size must be the one the upload's plan gives it: that length is what its URL will accept. */

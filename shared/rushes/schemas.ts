@@ -116,6 +116,14 @@ export interface UploadView {
   createdAt: string;
 }
 
+/** A SHA-256 written as 64 lower-case hex digits, as the browser's hash gives it. */
+export const sha256Pattern = /^[0-9a-f]{64}$/;
+
+/** The clip of this channel that has the file's checksum already, if one has. */
+export interface ChecksumAnswer {
+  clip: { id: string; fileName: string; episodeId: string; episodeTitle: string } | null;
+}
+
 const place = oneLine(200, { tooLong: "Keep the place under 200 characters." });
 const shootNotes = multiLine(2000, { tooLong: "Keep the notes under 2,000 characters." });
 export const shootDaySchema = z.strictObject({

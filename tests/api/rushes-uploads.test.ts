@@ -2,6 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { MiB } from "../../shared/rushes/limits";
 import { sweepAbandonedUploads } from "../../server/rushes/uploads.service";
 import { ABANDONED_UPLOADS_QUEUE, scheduleRushesJobs } from "../../server/rushes/rushes.jobs";
+import { createCrewedChannel } from "../factories/accounts";
+import { createEpisode } from "../factories/episodes";
+import { createClip } from "../factories/rushes";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { patternBytes, rushesWorld, sampleMetadata, sendPart, uploadFile } from "./rushes-helpers";
 
@@ -209,5 +212,37 @@ describe("the file's checksum", () => {
     const done = await world.as.editor.send("post", `${world.base}/uploads/${started.body.upload.id}/complete`, { sha256 }).expect(201);
     expect(done.body.clip.sha256).toBe(sha256);
     expect(done.body.clip.storageEtag).toMatch(/^[0-9a-f]{32}(-\d+)?$/);
+  });
+});
+
+describe("asking whether a file is in the channel already", () => {
+  const digest = (text: string) => import("node:crypto").then(({ createHash }) => createHash("sha256").update(text).digest("hex"));
+
+  it("when a clip of the channel has the checksum, then the answer names the clip and its episode", async () => {
+    const sha256 = await digest("kerf-duplicate-one");
+    const clip = await createClip(app.db, world.channel.id, world.episode.id, { fileName: "A003_C010.mov", sha256 });
+    const response = await world.as.crew.get(`${world.base}/footage-checksums/${sha256}`).expect(200);
+    expect(response.body).toEqual({ clip: { id: clip.id, fileName: "A003_C010.mov", episodeId: world.episode.id, episodeTitle: "Bottle rocket" } });
+  });
+
+  it("when no clip has it, then the answer is no clip", async () => {
+    const response = await world.as.editor.get(`${world.base}/footage-checksums/${await digest("kerf-nowhere")}`).expect(200);
+    expect(response.body).toEqual({ clip: null });
+  });
+
+  it("when only another channel's clip has the checksum, then this channel hears nothing of it", async () => {
+    const sha256 = await digest("kerf-elsewhere");
+    const other = await createCrewedChannel(app.db, "Other Channel");
+    const otherEpisode = await createEpisode(app.db, other.channel.id, { title: "Their episode", stage: "shoot" });
+    await createClip(app.db, other.channel.id, otherEpisode.id, { fileName: "theirs.mov", sha256 });
+    const response = await world.as.editor.get(`${world.base}/footage-checksums/${sha256}`).expect(200);
+    expect(response.body).toEqual({ clip: null });
+  });
+
+  it("when the checksum isn't 64 lower-case hex digits, then it answers 400 naming the field", async () => {
+    for (const bad of ["abc", "G".repeat(64), "A".repeat(64), "0".repeat(65)]) {
+      const response = await world.as.editor.get(`${world.base}/footage-checksums/${bad}`).expect(400);
+      expect(response.body.error.fields.sha256).toBe("Write the SHA-256 as 64 hex digits, lower case.");
+    }
   });
 });

@@ -64,14 +64,14 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   }
   await snap(page, "rushes-02-shot-list");
 
-  // Storage answers slowly enough to pause; part 2 of the large file fails three times, then works on retry.
-  let failuresLeft = 3;
+  // Storage answers slowly enough to pause; part 2 of the large file fails every try (each after a
+  // longer wait) until the person asks for Retry.
+  let refusePartTwo = true;
   await page.route(`${storage}/**`, async (route) => {
     const url = new URL(route.request().url());
     if (route.request().method() === "PUT") {
       await new Promise((r) => setTimeout(r, 400));
-      if (url.searchParams.get("partNumber") === "2" && (route.request().postDataBuffer()?.length ?? 0) > 1e6 && failuresLeft > 0) {
-        failuresLeft--;
+      if (url.searchParams.get("partNumber") === "2" && (route.request().postDataBuffer()?.length ?? 0) > 1e6 && refusePartTwo) {
         return route.abort("connectionreset");
       }
     }
@@ -86,6 +86,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   // The large one: it stops on the failing part; Retry sends just that part.
   await expect(upload(page, "C003_WIDE.mov").getByText("Some parts didn't reach storage. Retry sends just those.")).toBeVisible({ timeout: 60_000 });
   await snap(page, "rushes-03-part-failed");
+  refusePartTwo = false;
   await upload(page, "C003_WIDE.mov").getByRole("button", { name: "Retry" }).click();
   await upload(page, "C003_WIDE.mov").getByRole("button", { name: "Pause" }).click();
   await expect(upload(page, "C003_WIDE.mov").getByText(/^Paused/)).toBeVisible();

@@ -161,6 +161,8 @@ export const clips = pgTable(
   },
   (t) => [
     index("clips_channel_episode_recorded_idx").on(t.channelId, t.episodeId, t.recordedAt, t.id),
+    // "Is this file already in the channel?" asked before each upload.
+    index("clips_channel_sha256_idx").on(t.channelId, t.sha256).where(sql`${t.sha256} is not null`),
     index("clips_channel_recorded_idx").on(t.channelId, t.recordedAt, t.id),
     index("clips_channel_rating_idx").on(t.channelId, t.rating, t.recordedAt, t.id),
     index("clips_shot_idx").on(t.shotId),

@@ -6,6 +6,7 @@ import { useSignOut } from "../../features/auth/api/sign-out";
 import { ConfirmAddressNotice } from "../../features/auth/components/ConfirmAddressNotice";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
 import { channelNav } from "../nav";
+import { BackgroundWorkBar } from "./BackgroundWorkBar";
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-3 py-1.5 text-sm font-medium ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
@@ -57,6 +58,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
+      <BackgroundWorkBar />
       <ConfirmAddressNotice />
       <main id="main" className="mx-auto max-w-[96rem] px-4 py-6">
         <Outlet />

@@ -9,9 +9,11 @@ import { sendPoster } from "../api/send-poster";
 import { posterFrom } from "../uploader/poster";
 import { sha256Of } from "../uploader/hash";
 import { probeFile } from "../uploader/probe";
-import { UploadQueue, type JobView } from "../uploader/upload-queue";
+import { uploadQueueFor, type JobView, type UploadQueue } from "../uploader/upload-queue";
 
 const statusWords: Record<JobView["status"], string> = {
+  checking: "Looking for this file in the channel…",
+  duplicate: "Already in the channel",
   reading: "Reading metadata…",
   queued: "Waiting",
   uploading: "Uploading",
@@ -23,36 +25,32 @@ const statusWords: Record<JobView["status"], string> = {
   "needs-file": "Unfinished: choose this file again to carry on",
 };
 
-/** Camera files for one episode: straight to storage in parts, with progress per file and for the batch. */
+/**
+ * Camera files for one episode: straight to storage in parts, with progress per file and for the batch.
+ * The queue belongs to the channel, not to this page: uploads go on while the person works elsewhere in
+ * Kerf (the app's top bar shows how far they are), and this list shows them again on return.
+ */
 export function Uploader({ channelId, episodeId }: { channelId: string; episodeId: string }) {
   const footageArrived = useFootageArrived(channelId);
   const queue = useMemo(
     () =>
-      new UploadQueue(channelId, episodeId, {
+      uploadQueueFor(channelId, {
         probe: probeFile,
         hash: sha256Of,
-        afterComplete: async (job) => {
-          if (!job.file || !job.clip) return;
-          const poster = await posterFrom(job.file);
-          if (poster) await sendPoster(channelId, job.clip.id, poster);
+        afterComplete: async (clip, file) => {
+          const poster = await posterFrom(file);
+          if (poster) await sendPoster(channelId, clip.id, poster);
         },
         onChange: footageArrived,
       }),
-    [channelId, episodeId, footageArrived],
+    [channelId, footageArrived],
   );
-  const jobs = useSyncExternalStore(queue.subscribe, queue.getSnapshot);
+  const allJobs = useSyncExternalStore(queue.subscribe, queue.getSnapshot);
+  const jobs = useMemo(() => allJobs.filter((j) => j.episodeId === episodeId), [allJobs, episodeId]);
   const open = useOpenUploads(channelId, episodeId);
   useEffect(() => {
     if (open.data) queue.remember(open.data);
   }, [open.data, queue]);
-  // Leaving mid-upload loses nothing (the server keeps the parts), but the person should know.
-  const busy = jobs.some((j) => ["reading", "queued", "uploading", "completing"].includes(j.status));
-  useEffect(() => {
-    if (!busy) return;
-    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener("beforeunload", warn);
-    return () => window.removeEventListener("beforeunload", warn);
-  }, [busy]);
 
   const [refused, setRefused] = useState<string[]>([]);
   const input = useRef<HTMLInputElement>(null);
@@ -64,7 +62,10 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
     const files = [...list];
     const problems = files.map((f) => checkClipFile(f.name, f.size)).flatMap((c) => (c.ok ? [] : [c.message]));
     setRefused(problems);
-    queue.add(files.filter((f) => checkClipFile(f.name, f.size).ok));
+    queue.add(
+      files.filter((f) => checkClipFile(f.name, f.size).ok),
+      episodeId,
+    );
     if (input.current) input.current.value = "";
   };
 
@@ -112,10 +113,10 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
             <span className="text-sm text-graphite-700" aria-live="polite">
               {formatSize(sent)} of {formatSize(total)}
             </span>
-            <Button tone="quiet" onClick={() => queue.pauseAll()}>
+            <Button tone="quiet" onClick={() => queue.pauseAll(episodeId)}>
               Pause all
             </Button>
-            <Button tone="quiet" onClick={() => queue.resumeAll()}>
+            <Button tone="quiet" onClick={() => queue.resumeAll(episodeId)}>
               Resume all
             </Button>
           </div>
@@ -153,6 +154,11 @@ function JobRow({ job, queue }: { job: JobView; queue: UploadQueue }) {
           {job.partCount > 0 && ` · ${job.partsStored} of ${job.partCount} parts stored`}
         </p>
         {job.error && <p className="text-sm text-alarm-600">{job.error}</p>}
+        {job.status === "duplicate" && job.duplicate && (
+          <p className="text-sm text-graphite-700">
+            This file is already in the channel as {job.duplicate.fileName} (episode “{job.duplicate.episodeTitle}”).
+          </p>
+        )}
       </div>
       <Progress label={`${job.fileName} progress`} value={job.sent} max={job.size} />
       <div className="flex gap-2">
@@ -164,6 +170,11 @@ function JobRow({ job, queue }: { job: JobView; queue: UploadQueue }) {
         {job.status === "paused" && (
           <Button tone="quiet" onClick={() => queue.resume(job.id)}>
             Resume
+          </Button>
+        )}
+        {job.status === "duplicate" && (
+          <Button tone="quiet" onClick={() => queue.uploadAnyway(job.id)}>
+            Upload anyway
           </Button>
         )}
         {job.status === "failed" && (

@@ -1,0 +1,1 @@
+CREATE INDEX "clips_channel_sha256_idx" ON "clips" USING btree ("channel_id","sha256") WHERE "clips"."sha256" is not null;
