@@ -105,7 +105,7 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   const birch = page.getByRole("listitem", { name: "Run 2: Birch on 3S" });
   await expect(birch.getByText("Meets the plan", { exact: true })).toBeVisible();
   await expect(birch.getByText("2.4 oz = 68.04 g")).toBeVisible();
-  await expect(birch.getByText("6.99 gf/W")).toBeVisible();
+  await expect(birch.getByText("6.99 gf/W", { exact: true })).toBeVisible();
 
   form = await enterRun(page, { label: "Cedar fan on the bench supply", part: "Cedar 120 mm fan (Fan)", supply: "bench", benchVolts: "12", readings: [["Voltage", "12", "V"], ["Current", "1600", "mA"], ["Thrust", "95", "gf"]] });
   await form.getByRole("button", { name: "Save run" }).click();
