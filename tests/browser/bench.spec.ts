@@ -40,8 +40,8 @@ async function enterRun(
 }
 
 test("a host plans a test, measures three candidates in mixed units and sees the plan pick one", async ({ page }) => {
-  // One long journey through four screens.
-  test.setTimeout(120_000);
+  // One long journey through four screens, with full-page screenshots of a long page.
+  test.setTimeout(180_000);
   const { channelId, episodeId } = await hostWithEpisode(page, {
     host: { name: "Saga Ellingsen", channel: "Wharf Street Lift Lab" },
     episode: { title: "Can one rotor lift the frame?", question: "Which motor lifts a 400 g frame best?", origin: "idea", stage: "test_plan" },
