@@ -78,7 +78,7 @@ export function ComparisonTable({ runs, bestId, criteria = [] }: { runs: RunView
                   aria-label={`Unit for ${label.toLowerCase()}`}
                   value={unit}
                   onChange={(event) => setPicked((now) => ({ ...now, [row.key]: event.target.value }))}
-                  className="ml-2 rounded border border-ply-300 bg-white px-1 py-0.5 text-xs font-normal"
+                  className="mt-1 block rounded border border-ply-300 bg-white px-1 py-0.5 text-xs font-normal sm:mt-0 sm:ml-2 sm:inline-block"
                 >
                   {choices.map((choice) => (
                     <option key={choice} value={choice}>
