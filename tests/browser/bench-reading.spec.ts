@@ -38,6 +38,8 @@ test("the host reads a criterion against its run, switches a unit, finds a part 
   // The run card reads the criterion in its own unit: 400 gf = 3.92 N (NIST SP 811 (2008), B.8: 1 gf = 0.00980665 N).
   await page.goto(`/c/${channelId}/episodes/${episodeId}`);
   const run = page.getByRole("listitem", { name: "Run 1: Rowan on 4S" });
+  // The episode page's first visit fetches its sections' code: on a busy machine that can take a while.
+  await expect(run).toBeVisible({ timeout: 30_000 });
   const line = run.getByRole("list", { name: "Criteria for run 1" }).getByRole("listitem");
   await expect(line).toContainText("Thrust 3.92 N ≥ 3.5 N");
   await expect(line).toContainText("pass");
@@ -74,6 +76,7 @@ test("the host reads a criterion against its run, switches a unit, finds a part 
   // The shelf: masses in one unit, a search, and its empty answer.
   await page.goto(`/c/${channelId}/shelf`);
   const table = page.getByRole("table", { name: "Parts on the shelf" });
+  await expect(table).toBeVisible({ timeout: 30_000 });
   await page.getByLabel("Masses in").selectOption("g");
   // 1.1 oz = 31.18 g (NIST SP 811 (2008), B.8: 1 oz = 28.349523125 g).
   await expect(table.getByRole("row", { name: /Rowan 2306 motor/ })).toContainText("31.18");
