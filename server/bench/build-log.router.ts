@@ -3,12 +3,13 @@ import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody, parseVersioned } from "../http/validate";
+import type { Storage } from "../storage/storage";
 import { addIteration, buildLog, changeIteration, removeIteration } from "./build-log.service";
 
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
 
 /** The build log: owner, producer and crew write; the editor reads (the spec's "bench" row). */
-export function buildLogRoutes(db: Database): RouteSpec[] {
+export function buildLogRoutes(db: Database, storage: Storage): RouteSpec[] {
   const read = channelAccess("bench", "R");
   const write = channelAccess("bench", "W");
   return [
@@ -39,7 +40,7 @@ export function buildLogRoutes(db: Database): RouteSpec[] {
       path: `${log}/:iterationId`,
       access: write,
       handler: async (req, res) => {
-        await removeIteration(db, callerOf(req).channelId, idOf(req, "episodeId"), idOf(req, "iterationId"));
+        await removeIteration(db, storage, callerOf(req).channelId, idOf(req, "episodeId"), idOf(req, "iterationId"));
         res.status(204).end();
       },
     },

@@ -4,6 +4,8 @@ import type { Database, Queryable } from "../db/client";
 import { AppError, notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { deleteIteration, insertIteration, listIterations, updateIteration } from "./build-log.repository";
+import { type Storage, viaStorage } from "../storage/storage";
+import { photoKeysOfIteration } from "./build-photos.repository";
 import { findRunRow, listRunRows } from "./runs.repository";
 
 /** The log, each iteration's thrust-to-weight recomputed from its own all-up mass and its chosen run. */
@@ -60,6 +62,11 @@ export async function changeIteration(db: Database, channelId: string, episodeId
   return iterationView(db, channelId, episodeId, iterationId);
 }
 
-export async function removeIteration(db: Database, channelId: string, episodeId: string, iterationId: string) {
-  if (!(await deleteIteration(db, channelId, episodeId, iterationId))) throw notFound("Iteration");
+/** The iteration goes with its photos, rows and objects: a store that is down leaves all of it as it was (503). */
+export async function removeIteration(db: Database, storage: Storage, channelId: string, episodeId: string, iterationId: string) {
+  await db.transaction(async (tx) => {
+    const keys = await photoKeysOfIteration(tx, channelId, iterationId);
+    if (!(await deleteIteration(tx, channelId, episodeId, iterationId))) throw notFound("Iteration");
+    for (const key of keys) await viaStorage(() => storage.remove(key));
+  });
 }

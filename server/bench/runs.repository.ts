@@ -26,6 +26,7 @@ export async function listRunParts(db: Queryable, channelId: string, runIds: rea
       partId: benchParts.id,
       name: benchParts.name,
       kind: benchParts.kind,
+      powered: benchParts.powered,
       count: benchRunParts.count,
       mass: benchParts.mass,
       ratedVoltage: benchParts.ratedVoltage,

@@ -40,6 +40,7 @@ function columns(input: PartInput) {
   return {
     name: input.name,
     kind: input.kind,
+    powered: input.powered,
     mass: input.mass,
     ratedVoltage: input.ratedVoltage,
     ratedCurrent: input.ratedCurrent,

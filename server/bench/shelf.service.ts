@@ -9,6 +9,7 @@ function toPartView(part: PartRow, runCount: number): PartView {
     id: part.id,
     name: part.name,
     kind: part.kind,
+    powered: part.powered,
     mass: part.mass ?? null,
     ratedVoltage: part.ratedVoltage ?? null,
     ratedCurrent: part.ratedCurrent ?? null,

@@ -3,7 +3,7 @@ import type { PgColumn } from "drizzle-orm/pg-core";
 import type { Role } from "../../shared/access/roles";
 import type { Database } from "./client";
 import { channels, invitations, memberships, users } from "./schema/accounts";
-import { benchParts, benchRuns, buildIterations, safetyHazards, testCriteria } from "./schema/bench";
+import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
 import { episodes } from "./schema/slate";
 import { dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
@@ -29,6 +29,7 @@ export const channelChildren = {
   partId: child("Part", benchParts),
   runId: child("Run", benchRuns),
   iterationId: child("Iteration", buildIterations),
+  photoId: child("Photo", buildPhotos),
   uploadId: child("Upload", uploads),
   clipId: child("Clip", clips),
   markId: child("Mark", clipMarks),

@@ -16,7 +16,7 @@ import * as repo from "./clips.repository";
 import { posterKey } from "./object-keys";
 import type { RushesContext } from "./rushes.context";
 import * as shootRepo from "./shoot.repository";
-import { receiveStill } from "./still-stream";
+import { receiveStill } from "../storage/photo-stream";
 
 type ClipRow = repo.ClipRow;
 type MarkRow = Awaited<ReturnType<typeof repo.marksOf>>[number];

@@ -5,7 +5,7 @@ import type { Caller } from "../http/route-table";
 import { viaStorage } from "../storage/storage";
 import { stillKey } from "./object-keys";
 import type { RushesContext } from "./rushes.context";
-import { receiveStill } from "./still-stream";
+import { receiveStill } from "../storage/photo-stream";
 import * as repo from "./stills.repository";
 import { episodeInChannel } from "./uploads.repository";
 

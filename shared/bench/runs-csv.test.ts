@@ -12,7 +12,7 @@ describe("CSV export of the runs", () => {
   ];
   const plan = { airframeMass: q(420, "g"), criteria: criteria.map((c) => ({ id: c.id, criterion: c })) };
   const view = (number: number, label: string, notes: string, measurements: RunView["measurements"], supply: RunView["supply"]): RunView => {
-    const parts = [{ partId: "p1", name: 'Tarn 2216, "880 kV"', kind: "motor" as const, count: 1, mass: q(68, "g"), ratedVoltage: q(16.8, "V") }];
+    const parts = [{ partId: "p1", name: 'Tarn 2216, "880 kV"', kind: "motor" as const, powered: true, count: 1, mass: q(68, "g"), ratedVoltage: q(16.8, "V") }];
     return { id: `r${number}`, episodeId: "e", number, label, parts, supply, measurements, notes, evaluation: evaluateRun({ supply, measurements, parts }, plan), createdAt: "", updatedAt: "", version: 1 };
   };
 

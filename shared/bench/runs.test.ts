@@ -120,6 +120,12 @@ describe("evaluating a run against the plan", () => {
     expect(prop?.check.status).toBe("no_rating");
   });
 
+  it("asks no rating of a part that takes no power", () => {
+    const frame = { ...part("Frame", q(120, "g")), powered: false };
+    const evaluation = evaluateRun({ supply: { kind: "lipo", cells: 4 }, measurements: { voltage: q(16.4, "V") }, parts: [part("Fjell 2814", q(110, "g"), q(24, "V")), frame] }, plan);
+    expect(evaluation.ratings.map((flag) => flag.partName)).toEqual(["Fjell 2814"]);
+  });
+
   it("warns when a pack was run below about 3.0 V a cell", () => {
     // Common practice: about 3.0 V a cell minimum, so 9.0 V for 3S; 8.7 V is below it.
     const evaluation = evaluateRun({ supply: { kind: "lipo", cells: 3 }, measurements: { voltage: q(8.7, "V") }, parts: [] }, plan);

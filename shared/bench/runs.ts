@@ -13,7 +13,7 @@ export interface PlanForRuns {
 export interface RunForEvaluation {
   supply: Supply | null;
   measurements: RunInput["measurements"];
-  parts: readonly Pick<RunPartView, "partId" | "name" | "count" | "mass" | "ratedVoltage">[];
+  parts: readonly (Pick<RunPartView, "partId" | "name" | "count" | "mass" | "ratedVoltage"> & { powered?: boolean })[];
 }
 
 /**
@@ -42,7 +42,8 @@ export function highestSupplyVoltage(supply: Supply | null, measured: Quantity |
 
 function ratingFlags(parts: RunForEvaluation["parts"], supplyVoltage: Quantity | null): RatingFlag[] {
   if (!supplyVoltage) return [];
-  return parts.map((part) => ({
+  // A part that takes no power (a frame, a passive fan) has no voltage rating to check.
+  return parts.filter((part) => part.powered !== false).map((part) => ({
     partId: part.partId,
     partName: part.name,
     check: checkVoltageRating(supplyVoltage, part.ratedVoltage ?? undefined),

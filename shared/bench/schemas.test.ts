@@ -39,6 +39,14 @@ describe("parts on the shelf", () => {
     expect(partInputSchema.safeParse(part).success).toBe(true);
   });
 
+  it("takes a part to need power unless told, and wants no rated voltage for one that doesn't", () => {
+    expect(partInputSchema.parse(part).powered).toBe(true);
+    expect(partInputSchema.safeParse({ ...part, kind: "frame", powered: false, ratedVoltage: null }).success).toBe(true);
+    expect(messages(partInputSchema.safeParse({ ...part, kind: "fan", powered: false }))).toEqual({
+      ratedVoltage: "A part that takes no power has no rated voltage: clear it, or mark the part as needing power.",
+    });
+  });
+
   it("says which field is wrong", () => {
     const bad = { ...part, mass: q(68, "V"), ratedVoltage: q(16.8, "A"), price: { amount: "24,90", currency: "euro" } };
     expect(messages(partInputSchema.safeParse(bad))).toEqual({

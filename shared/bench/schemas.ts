@@ -132,16 +132,28 @@ export const priceSchema = z.strictObject({
 });
 export type Price = z.infer<typeof priceSchema>;
 
-export const partInputSchema = z.strictObject({
-  name: requiredLine(120, "the name", "Name the part."),
-  kind: z.enum(partKinds, { error: "Pick what kind of part it is." }),
-  mass: nonNegative(quantityOfSchema("mass", "mass"), "Mass").nullable(),
-  ratedVoltage: nonNegative(quantityOfSchema("voltage", "rated voltage"), "The rated voltage").nullable(),
-  ratedCurrent: nonNegative(quantityOfSchema("current", "rated current"), "The rated current").nullable(),
-  price: priceSchema.nullable(),
-  supplier: line(200, "the supplier"),
-  notes: lines(2000, "the notes"),
-});
+/**
+ * A part. `powered` false is a part that never takes power (a passive fan, a frame, a propeller): it
+ * has no rated voltage, and runs don't ask for one. Left out, a part is taken to need power, as every
+ * part did before the choice existed.
+ */
+export const partInputSchema = z
+  .strictObject({
+    name: requiredLine(120, "the name", "Name the part."),
+    kind: z.enum(partKinds, { error: "Pick what kind of part it is." }),
+    powered: z.boolean({ error: "Say whether the part takes power." }).default(true),
+    mass: nonNegative(quantityOfSchema("mass", "mass"), "Mass").nullable(),
+    ratedVoltage: nonNegative(quantityOfSchema("voltage", "rated voltage"), "The rated voltage").nullable(),
+    ratedCurrent: nonNegative(quantityOfSchema("current", "rated current"), "The rated current").nullable(),
+    price: priceSchema.nullable(),
+    supplier: line(200, "the supplier"),
+    notes: lines(2000, "the notes"),
+  })
+  .superRefine((part, ctx) => {
+    if (!part.powered && part.ratedVoltage !== null) {
+      ctx.addIssue({ code: "custom", path: ["ratedVoltage"], message: "A part that takes no power has no rated voltage: clear it, or mark the part as needing power." });
+    }
+  });
 export type PartInput = z.infer<typeof partInputSchema>;
 
 export interface PartView extends PartInput {
@@ -199,6 +211,7 @@ export interface RunPartView {
   partId: string;
   name: string;
   kind: PartKind;
+  powered: boolean;
   count: number;
   mass: Quantity | null;
   ratedVoltage: Quantity | null;
@@ -282,3 +295,17 @@ export interface IterationView extends IterationInput {
   createdAt: string;
   version: number;
 }
+
+/** A photo of an iteration, with a short-lived link to the image. */
+export interface BuildPhotoView {
+  id: string;
+  iterationId: string;
+  fileName: string;
+  contentType: string;
+  size: number;
+  url: string;
+  createdAt: string;
+}
+
+/** How many photos one iteration keeps: enough for a build's angles, not a place to store a shoot. */
+export const MAX_PHOTOS_PER_ITERATION = 12;

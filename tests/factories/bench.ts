@@ -14,6 +14,7 @@ export async function createPart(db: Database, channelId: string, overrides: Par
   const input: PartInput = {
     name: "Test motor",
     kind: "motor",
+    powered: true,
     mass: q(68, "g"),
     ratedVoltage: q(16.8, "V"),
     ratedCurrent: q(25, "A"),

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, boolean, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { id, timestamps, version } from "./columns";
 import type { Criterion } from "../../../shared/bench/criteria";
 import type { Quantity } from "../../../shared/bench/quantity";
@@ -69,6 +69,8 @@ export const benchParts = pgTable(
     channelId: channelRef(),
     name: text("name").notNull(),
     kind: partKindEnum("kind").notNull(),
+    // False for a part that takes no power (a frame, a passive fan); parts from before the choice need power.
+    powered: boolean("powered").notNull().default(true),
     mass: jsonb("mass").$type<Quantity>(),
     ratedVoltage: jsonb("rated_voltage").$type<Quantity>(),
     ratedCurrent: jsonb("rated_current").$type<Quantity>(),
@@ -135,4 +137,24 @@ export const buildIterations = pgTable(
     ...timestamps(),
   },
   (table) => [unique("build_iterations_episode_number_key").on(table.episodeId, table.number), index("build_iterations_channel_episode_idx").on(table.channelId, table.episodeId)],
+);
+
+/** Photos of a build iteration, streamed into storage like shoot-day stills; they go with their iteration. */
+export const buildPhotos = pgTable(
+  "build_photos",
+  {
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    iterationId: uuid("iteration_id")
+      .notNull()
+      .references(() => buildIterations.id, { onDelete: "cascade" }),
+    objectKey: text("object_key").notNull().unique(),
+    fileName: text("file_name").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    uploadedBy: personRef("uploaded_by"),
+    ...timestamps(),
+  },
+  (table) => [index("build_photos_iteration_idx").on(table.channelId, table.iterationId, table.createdAt)],
 );

@@ -1,5 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { expect } from "vitest";
+import { buildPhotos } from "../../../server/db/schema/bench";
 import { createEpisode } from "../../factories/episodes";
 import { createCriterion, createHazard, createIteration, createPart, createRun, q } from "../../factories/bench";
 import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matrix";
@@ -9,11 +10,14 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
  * - test plan sheet: owner W, producer W, editor R, crew R;
  * - bench runs, bench shelf, build log: owner W, producer W, editor R, crew W.
  * "outsider" is the owner of another channel: 404, never 403.
+ * The photo upload takes a multipart form; the matrix sends none, so a caller let through meets the
+ * form's own 400 ("choose a photo").
  */
 const plan = "/api/channels/:channelId/episodes/:episodeId/test-plan";
 const parts = "/api/channels/:channelId/bench/parts";
 const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
+const photos = "/api/channels/:channelId/episodes/:episodeId/build-photos";
 
 export const access: FeatureAccess = {
   rows: [
@@ -40,6 +44,9 @@ export const access: FeatureAccess = {
     [`POST ${log}`,                                   401,  ok,   ok,   403,  ok,   404],
     [`PUT ${log}/:iterationId`,                       401,  ok,   ok,   403,  ok,   404],
     [`DELETE ${log}/:iterationId`,                    401,  ok,   ok,   403,  ok,   404],
+    [`POST ${log}/:iterationId/photos`,               401,  ok,   ok,   403,  ok,   404],
+    [`GET ${photos}`,                                 401,  ok,   ok,   ok,   ok,   404],
+    [`DELETE ${photos}/:photoId`,                     401,  ok,   ok,   403,  ok,   404],
   ],
   recipes: benchRecipes,
 };
@@ -214,6 +221,26 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const episode = await freshEpisode();
         const iteration = await createIteration(app.db, channelId, episode.id, ownerId);
         return { params: { episodeId: episode.id, iterationId: iteration.id }, intact: async () => expect(await count("build_iterations", "id", iteration.id)).toBe(1) };
+      },
+    },
+    [`POST ${log}/:iterationId/photos`]: {
+      ok: 400,
+      prepare: async () => {
+        const iteration = await createIteration(app.db, channelId, world.episode.id, ownerId);
+        return { params: { episodeId: world.episode.id, iterationId: iteration.id } };
+      },
+    },
+    [`GET ${photos}`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
+    [`DELETE ${photos}/:photoId`]: {
+      ok: 204,
+      prepare: async () => {
+        const episode = await freshEpisode();
+        const iteration = await createIteration(app.db, channelId, episode.id, ownerId);
+        const [photo] = await app.db
+          .insert(buildPhotos)
+          .values({ channelId, episodeId: episode.id, iterationId: iteration.id, objectKey: `${channelId}/${episode.id}/${randomUUID()}`, fileName: "m.jpg", contentType: "image/jpeg", sizeBytes: 4 })
+          .returning();
+        return { params: { episodeId: episode.id, photoId: photo!.id }, intact: async () => expect(await count("build_photos", "id", photo!.id)).toBe(1) };
       },
     },
   };

@@ -45,7 +45,7 @@ function Bench({ channelId, episodeId, canWrite, runs, plan, parts }: { channelI
                 Download the runs as CSV
               </a>
             </div>
-            <ComparisonTable runs={runs} bestId={best?.id ?? null} />
+            <ComparisonTable runs={runs} bestId={best?.id ?? null} criteria={criteria} />
           </Panel>
           <Panel>
             <ComparisonChart runs={runs} best={best} criteria={criteria} />

@@ -3,13 +3,28 @@ import { useForm } from "react-hook-form";
 import { roleMay } from "@shared/access/roles";
 import { formatFigure } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
-import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationInput, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
+import {
+  type BuildPhotoView,
+  iterationInputSchema,
+  iterationOutcomeLabels,
+  iterationOutcomes,
+  type IterationInput,
+  type IterationOutcome,
+  type IterationView,
+  MAX_PHOTOS_PER_ITERATION,
+  type RunView,
+} from "@shared/bench/schemas";
+import { MAX_STILL_BYTES, stillTypes } from "@shared/rushes/limits";
+import { formatSize } from "../../../lib/format";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useOpenedRecord } from "../../../lib/conflicts";
+import { useAddBuildPhoto } from "../api/add-build-photo";
 import { useAddIteration } from "../api/add-iteration";
+import { useDeleteBuildPhoto } from "../api/delete-build-photo";
+import { useBuildPhotos } from "../api/list-build-photos";
 import { useDeleteIteration } from "../api/delete-iteration";
 import { useBuildLog } from "../api/get-build-log";
 import { useRuns } from "../api/list-runs";
@@ -28,15 +43,15 @@ const outcomeStyles: Record<IterationOutcome, string> = {
 
 /** Numbered iterations of the build, each with its own all-up mass and the thrust-to-weight that mass gives. */
 export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionProps) {
-  const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId));
+  const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId), useBuildPhotos(channelId, episodeId));
   return (
     <QueryState query={buildLog} loading="Loading the build log…">
-      {([log, runs]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} />}
+      {([log, runs, photos]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} photos={photos} />}
     </QueryState>
   );
 }
 
-function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[] }) {
+function BuildLog({ channelId, episodeId, canWrite, log, runs, photos }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[]; photos: BuildPhotoView[] }) {
   const [editing, setEditing] = useState<string | null>(null);
 
   return (
@@ -53,7 +68,15 @@ function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: st
                 </Panel>
               </li>
             ) : (
-              <IterationItem key={iteration.id} channelId={channelId} episodeId={episodeId} iteration={iteration} canWrite={canWrite} onEdit={() => setEditing(iteration.id)} />
+              <IterationItem
+                key={iteration.id}
+                channelId={channelId}
+                episodeId={episodeId}
+                iteration={iteration}
+                photos={photos.filter((photo) => photo.iterationId === iteration.id)}
+                canWrite={canWrite}
+                onEdit={() => setEditing(iteration.id)}
+              />
             ),
           )}
         </ol>
@@ -68,7 +91,21 @@ function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: st
   );
 }
 
-function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { channelId: string; episodeId: string; iteration: IterationView; canWrite: boolean; onEdit: () => void }) {
+function IterationItem({
+  channelId,
+  episodeId,
+  iteration,
+  photos,
+  canWrite,
+  onEdit,
+}: {
+  channelId: string;
+  episodeId: string;
+  iteration: IterationView;
+  photos: BuildPhotoView[];
+  canWrite: boolean;
+  onEdit: () => void;
+}) {
   const remove = useDeleteIteration(channelId, episodeId);
   return (
     <li aria-label={`Iteration ${iteration.number}`} className="grid grid-cols-[3rem_1fr] gap-3 rounded-lg border border-ply-300 bg-white p-4">
@@ -98,6 +135,7 @@ function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { 
           </div>
         </dl>
         {iteration.notes && <p className="mt-2 whitespace-pre-wrap text-sm text-graphite-700">{iteration.notes}</p>}
+        <IterationPhotos channelId={channelId} episodeId={episodeId} iteration={iteration} photos={photos} canWrite={canWrite} />
         {canWrite && (
           <div className="mt-2 flex gap-2">
             <Button tone="quiet" onClick={onEdit}>
@@ -110,6 +148,95 @@ function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { 
         )}
       </div>
     </li>
+  );
+}
+
+const photoAccept = [...new Set(Object.values(stillTypes))].join(",");
+
+/** The iteration's photos as thumbnails, each opening full size; the crew adds and removes them. */
+function IterationPhotos({ channelId, episodeId, iteration, photos, canWrite }: { channelId: string; episodeId: string; iteration: IterationView; photos: BuildPhotoView[]; canWrite: boolean }) {
+  const add = useAddBuildPhoto(channelId, episodeId);
+  const remove = useDeleteBuildPhoto(channelId, episodeId);
+  const [problem, setProblem] = useState<string | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+  const full = photos.length >= MAX_PHOTOS_PER_ITERATION;
+  if (photos.length === 0 && !canWrite) return null;
+
+  return (
+    <div className="mt-3" role="group" aria-label={`Photos of iteration ${iteration.number}`}>
+      {photos.length > 0 ? (
+        <ul className="flex flex-wrap gap-2">
+          {photos.map((photo) => (
+            <li key={photo.id} className="flex flex-col items-start gap-1">
+              <a href={photo.url} target="_blank" rel="noreferrer" className="block rounded border border-ply-300 focus-visible:outline-2 focus-visible:outline-rust-600">
+                <img src={photo.url} alt={`Iteration ${iteration.number}: ${photo.fileName}`} className="size-24 rounded object-cover" loading="lazy" />
+              </a>
+              {canWrite && (
+                <button
+                  type="button"
+                  className="text-xs text-alarm-600 underline disabled:opacity-50"
+                  disabled={remove.isPending}
+                  aria-label={`Remove photo ${photo.fileName}`}
+                  onClick={async () => {
+                    if (!window.confirm(`Remove the photo ${photo.fileName} from iteration ${iteration.number}? It is deleted from storage too.`)) return;
+                    setProblem(null);
+                    setDone(null);
+                    try {
+                      await remove.mutateAsync(photo.id);
+                      setDone(`${photo.fileName} removed.`);
+                    } catch (error) {
+                      setProblem((error as Error).message);
+                    }
+                  }}
+                >
+                  Remove
+                </button>
+              )}
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <p className="text-xs text-graphite-500">No photos of this iteration yet.</p>
+      )}
+      {canWrite && !full && (
+        <label className="mt-2 inline-flex cursor-pointer items-center gap-2 rounded-md border border-ply-300 bg-ply-50 px-3 py-1.5 text-sm font-medium focus-within:outline-2 focus-within:outline-rust-600">
+          {add.isPending ? "Adding the photo…" : "Add a photo"}
+          <input
+            type="file"
+            accept={photoAccept}
+            className="sr-only"
+            disabled={add.isPending}
+            aria-describedby={`photo-hint-${iteration.id}`}
+            onChange={async (event) => {
+              const file = event.target.files?.[0];
+              event.target.value = "";
+              if (!file) return;
+              setProblem(null);
+              setDone(null);
+              try {
+                await add.mutateAsync({ iterationId: iteration.id, file });
+                setDone(`${file.name} added.`);
+              } catch (error) {
+                setProblem((error as Error).message);
+              }
+            }}
+          />
+        </label>
+      )}
+      {canWrite && (
+        <p id={`photo-hint-${iteration.id}`} className="mt-1 text-xs text-graphite-500">
+          {full ? `This iteration holds its ${MAX_PHOTOS_PER_ITERATION} photos; remove one to add another.` : `JPEG, PNG or WebP, up to ${formatSize(MAX_STILL_BYTES)}; at most ${MAX_PHOTOS_PER_ITERATION} photos an iteration.`}
+        </p>
+      )}
+      <p role="status" className="sr-only">
+        {done}
+      </p>
+      {problem && (
+        <div className="mt-2">
+          <Notice kind="error">{problem}</Notice>
+        </div>
+      )}
+    </div>
   );
 }
 

@@ -61,7 +61,7 @@ export function ComparisonChart({ runs, best, criteria }: { runs: RunView[]; bes
           <h3 className="font-semibold">Pick at a glance</h3>
           <p className={`text-sm ${best ? "font-semibold text-moss-600" : "text-graphite-500"}`}>{summary}</p>
         </figcaption>
-        <div className="flex gap-2">
+        <div className="flex flex-wrap gap-2">
           <SelectField label="Up the side" value={yKey} onChange={(event) => setYKey(event.target.value as ComparisonKey)} options={yChoices.map((key) => ({ value: key, label: metricLabels[key] }))} />
           <SelectField label="Along the bottom" value={xKey} onChange={(event) => setXKey(event.target.value as ComparisonKey)} options={xChoices.map((key) => ({ value: key, label: metricLabels[key] }))} />
         </div>

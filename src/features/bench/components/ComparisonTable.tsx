@@ -1,21 +1,31 @@
-import { useState } from "react";
-import { columnHeading, comparisonColumns, figureIn, sortRuns, type SortDirection, type SortKey } from "@shared/bench/comparison";
-import { formatNumber } from "@shared/bench/format";
+import { type ReactNode, useState } from "react";
+import { type ComparisonKey, comparisonColumns, figureIn, sortRuns, type SortDirection, type SortKey } from "@shared/bench/comparison";
+import { formatNumber, metricLabels, unitsForMetric } from "@shared/bench/format";
+import { RATIO_UNIT } from "@shared/bench/quantity";
 import { isOverRated } from "@shared/bench/runs";
-import type { RunView } from "@shared/bench/schemas";
+import type { CriterionView, RunView } from "@shared/bench/schemas";
 import { VerdictBadge } from "./marks";
 
 /**
  * Candidates side by side: one column per run, one row per figure, each figure in one unit so the
- * runs line up. Any row sorts the columns; runs without that figure stay at the end.
+ * runs line up: the unit of the plan's criterion on it, else the bench's usual one, and any unit of its
+ * kind the person picks. Any row sorts the columns; runs without that figure stay at the end.
  */
-export function ComparisonTable({ runs, bestId }: { runs: RunView[]; bestId: string | null }) {
+export function ComparisonTable({ runs, bestId, criteria = [] }: { runs: RunView[]; bestId: string | null; criteria?: CriterionView[] }) {
   const [sort, setSort] = useState<{ key: SortKey; direction: SortDirection }>({ key: "number", direction: "ascending" });
+  const [picked, setPicked] = useState<Partial<Record<ComparisonKey, string>>>({});
+  const unitsOf = (key: ComparisonKey, usual: string) => {
+    const planned = criteria.find((criterion) => criterion.metric === key);
+    const plannedUnit = planned ? (planned.comparator === "between" ? planned.low.unit : planned.threshold.unit) : undefined;
+    const choices = [...unitsForMetric(key)];
+    if (plannedUnit && !choices.includes(plannedUnit)) choices.unshift(plannedUnit);
+    return { choices, unit: picked[key] ?? plannedUnit ?? usual };
+  };
   // Figures nobody measured would only be a row of dashes.
   const rows = comparisonColumns.filter((column) => runs.some((run) => figureIn(run.evaluation.values[column.key], column.unit) !== null));
   const sorted = sortRuns(runs, sort.key, sort.direction);
 
-  const rowHeader = (key: SortKey, label: string) => {
+  const rowHeader = (key: SortKey, label: string, unitSwitch?: ReactNode) => {
     const active = sort.key === key;
     // Figures start with the largest first; the run number starts at 1.
     const first: SortDirection = key === "number" ? "ascending" : "descending";
@@ -28,6 +38,7 @@ export function ComparisonTable({ runs, bestId }: { runs: RunView[]; bestId: str
             {active ? (sort.direction === "ascending" ? "▲" : "▼") : "↕"}
           </span>
         </button>
+        {unitSwitch}
       </th>
     );
   };
@@ -58,11 +69,29 @@ export function ComparisonTable({ runs, bestId }: { runs: RunView[]; bestId: str
               </td>
             ))}
           </tr>
-          {rows.map((row) => (
+          {rows.map((row) => {
+            const { choices, unit } = unitsOf(row.key, row.unit);
+            const label = metricLabels[row.key];
+            const unitSwitch =
+              unit === RATIO_UNIT ? null : (
+                <select
+                  aria-label={`Unit for ${label.toLowerCase()}`}
+                  value={unit}
+                  onChange={(event) => setPicked((now) => ({ ...now, [row.key]: event.target.value }))}
+                  className="mt-1 block rounded border border-ply-300 bg-white px-1 py-0.5 text-xs font-normal sm:mt-0 sm:ml-2 sm:inline-block"
+                >
+                  {choices.map((choice) => (
+                    <option key={choice} value={choice}>
+                      {choice}
+                    </option>
+                  ))}
+                </select>
+              );
+            return (
             <tr key={row.key} className="border-b border-ply-200">
-              {rowHeader(row.key, columnHeading(row.key))}
+              {rowHeader(row.key, label, unitSwitch)}
               {sorted.map((run) => {
-                const value = figureIn(run.evaluation.values[row.key], row.unit);
+                const value = figureIn(run.evaluation.values[row.key], unit);
                 return (
                   <td key={run.id} className={`px-2 py-1.5 text-right tabular-nums ${run.id === bestId ? "bg-moss-600/10" : ""}`}>
                     {value === null ? <span className="text-graphite-500">–</span> : formatNumber(value)}
@@ -70,7 +99,8 @@ export function ComparisonTable({ runs, bestId }: { runs: RunView[]; bestId: str
                 );
               })}
             </tr>
-          ))}
+            );
+          })}
         </tbody>
       </table>
     </div>

@@ -101,7 +101,7 @@ function PartSheet({ channelId, part, runs, canWrite }: { channelId: string; par
 function PartDetails({ part }: { part: PartView }) {
   const rows: [string, string][] = [
     ["Mass", part.mass ? formatQuantity(part.mass) : "not weighed"],
-    ["Rated voltage", part.ratedVoltage ? formatQuantity(part.ratedVoltage) : "not recorded: check the maker's rating"],
+    ["Rated voltage", part.ratedVoltage ? formatQuantity(part.ratedVoltage) : part.powered ? "not recorded: check the maker's rating" : "takes no power"],
     ["Rated current", part.ratedCurrent ? formatQuantity(part.ratedCurrent) : "not recorded"],
     ["Price", priceText(part) ?? "–"],
     ["Supplier", part.supplier || "–"],

@@ -2,7 +2,7 @@ import { useState } from "react";
 import { Link } from "react-router-dom";
 import { columnUnit, describeSupply } from "@shared/bench/comparison";
 import { type Figure, figureNames, isQuantity, measurementSymbols } from "@shared/bench/figures";
-import { describeCriterion, formatFigure, formatQuantity, metricLabels } from "@shared/bench/format";
+import { formatFigure, formatQuantity, metricLabels, readCriterion } from "@shared/bench/format";
 import type { CriterionView, RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
@@ -99,8 +99,8 @@ export function RunCard({
             const criterion = byId.get(result.criterionId);
             return (
               <li key={result.criterionId} className="flex flex-wrap justify-between gap-2">
-                <span>
-                  {criterion ? describeCriterion(criterion) : "A criterion"}
+                <span className="tabular-nums">
+                  {criterion ? readCriterion(criterion, e.values[criterion.metric]) : "A criterion"}
                   {!result.required && <span className="text-graphite-500"> (informative)</span>}
                 </span>
                 <OutcomeMark outcome={result.outcome} />

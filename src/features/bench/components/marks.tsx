@@ -24,8 +24,18 @@ export function VerdictBadge({ verdict }: { verdict: PlanVerdict }) {
 }
 
 export function OutcomeMark({ outcome }: { outcome: CriterionOutcome }) {
-  if (outcome === "pass") return <span className="font-semibold text-moss-600">✓ pass</span>;
-  if (outcome === "fail") return <span className="font-semibold text-alarm-600">✕ fail</span>;
+  if (outcome === "pass")
+    return (
+      <span className="font-semibold text-moss-600">
+        <span aria-hidden>✓</span> pass
+      </span>
+    );
+  if (outcome === "fail")
+    return (
+      <span className="font-semibold text-alarm-600">
+        <span aria-hidden>✗</span> fail
+      </span>
+    );
   if (outcome === "not_measured") return <span className="text-graphite-500">– not measured</span>;
   return (
     <span role="alert" className="font-semibold text-alarm-600">

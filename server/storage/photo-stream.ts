@@ -3,11 +3,11 @@ import type { Request, Response } from "express";
 import multer, { MulterError, type StorageEngine } from "multer";
 import { checkStillFile, MAX_STILL_BYTES, formatBytes } from "../../shared/rushes/limits";
 import { AppError } from "../http/app-error";
-import { type Storage, storageDown, isStorageDown } from "../storage/storage";
+import { type Storage, storageDown, isStorageDown } from "./storage";
 
 /**
- * Small files (photos, poster frames) through the server: multer hands over the file as a stream and
- * this engine pipes it straight into storage, so a photo is never held in memory or on disk whole.
+ * Small files (photos, poster frames) through the server, for any feature (shoot-day stills, posters,
+ * build-log photos): multer hands over the file as a stream and this engine pipes it straight into storage, so a photo is never held in memory or on disk whole.
  * The form must send a `size` field (the file's bytes) before the file itself: S3 wants the length
  * of an object up front, and the stream is checked against it as it passes.
  */
