@@ -1,10 +1,11 @@
-import { and, eq, isNull, sql } from "drizzle-orm";
+import { and, eq, isNull, lt, sql } from "drizzle-orm";
 import type { Queryable } from "../db/client";
 import { passwordResets } from "../db/schema/accounts";
 
-/** A new link ends the account's earlier ones: only the newest mail works. */
+/** A new link ends the account's earlier ones (only the newest mail works) and forgets those expired. */
 export async function replaceResetLink(db: Queryable, values: { userId: string; tokenHash: string; expiresAt: Date }): Promise<void> {
-  await db.delete(passwordResets).where(eq(passwordResets.userId, values.userId));
+  await db.delete(passwordResets).where(and(eq(passwordResets.userId, values.userId), lt(passwordResets.expiresAt, sql`now()`)));
+  await db.update(passwordResets).set({ usedAt: sql`now()` }).where(and(eq(passwordResets.userId, values.userId), isNull(passwordResets.usedAt)));
   await db.insert(passwordResets).values(values);
 }
 
