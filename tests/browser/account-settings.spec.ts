@@ -21,6 +21,7 @@ async function mailWithSubject(address: string, subject: string): Promise<{ text
 }
 
 test("a host who forgot the password gets a link by mail, sets a new one, and the browser still signed in is signed out", async ({ page, browser }) => {
+  test.setTimeout(150_000);
   const email = uniqueEmail("forgetful");
   // The older session: signed in on one browser, and left open.
   await signUpThroughPage(page, { name: "Ines Okafor", email, channel: "Lathe Lane" });
@@ -71,6 +72,8 @@ test("a host who forgot the password gets a link by mail, sets a new one, and th
 });
 
 test("a member changes name, time zone and mail on the account page, signs out another browser, and the page fits a phone", async ({ page, browser }) => {
+  // Two browsers, two sign-ins and an accessibility pass: longer than one page's journey.
+  test.setTimeout(150_000);
   const email = uniqueEmail("settings");
   await signUpThroughPage(page, { name: "Tomas Rike", email, channel: "Solder Shed" });
   const other = await (await browser.newContext()).newPage();
