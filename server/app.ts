@@ -2,11 +2,14 @@ import path from "node:path";
 import { existsSync } from "node:fs";
 import express, { type Express } from "express";
 import helmet from "helmet";
+import { accountRoutes } from "./auth/account.router";
 import { authRoutes } from "./auth/auth.router";
+import { passwordResetRoutes } from "./auth/password-reset.router";
+import { passwordResetMailRenderer } from "./auth/password-reset.service";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
 import { findUserById } from "./auth/users.repository";
 import { verificationRoutes } from "./auth/verification.router";
-import { verificationMailRenderer } from "./auth/verification.service";
+import { addressChangeMailRenderer, verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
@@ -61,6 +64,8 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
   return {
     ...memberMailRenderer(db),
     ...verificationMailRenderer({ db, appUrl }),
+    ...addressChangeMailRenderer({ db, appUrl }),
+    ...passwordResetMailRenderer({ db, appUrl }),
     ...invitationMailRenderer({ db, appUrl }),
     ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
   };
@@ -73,10 +78,13 @@ export const channelStarters: readonly ChannelStarter[] = [startWithDealTemplate
 export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] {
   const db = deps.database.db;
   const mailing = { db, appUrl: deps.env.APP_URL, jobs: deps.jobs, channelStarters };
+  const limits = options.signInLimits ?? defaultSignInLimits;
   return [
     ...healthRoutes(db, deps.mailer, deps.storage),
-    ...authRoutes(mailing, options.signInLimits ?? defaultSignInLimits),
+    ...authRoutes(mailing, limits),
     ...verificationRoutes(mailing),
+    ...passwordResetRoutes(mailing, limits),
+    ...accountRoutes(mailing, limits),
     ...channelRoutes(mailing),
     ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),

@@ -7,6 +7,7 @@ import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
 import { csrfTokenFor } from "../http/csrf";
 import { SESSION_COOKIE } from "../http/session";
+import { describeDevice } from "./devices";
 import { decoyHash, hashPassword, passwordMatches } from "./password";
 import { findUserWithHashByEmail, insertUser } from "./users.repository";
 import { queueVerificationMail, type VerificationDeps } from "./verification.service";
@@ -31,9 +32,14 @@ export async function signUp(deps: VerificationDeps & ChannelStarters, input: Si
   });
 }
 
-/** passport 0.6+ regenerates the session inside req.login, which is what defeats session fixation. */
-export function startSession(req: Request, user: Express.User): Promise<void> {
-  return new Promise((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())));
+/**
+ * passport 0.6+ regenerates the session inside req.login, which is what defeats session fixation.
+ * The new session notes when it started and from what, for the account's list of sessions.
+ */
+export async function startSession(req: Request, user: Express.User): Promise<void> {
+  await new Promise<void>((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())));
+  req.session.startedAt = new Date().toISOString();
+  req.session.device = describeDevice(req.get("user-agent"));
 }
 
 /**

@@ -11,6 +11,8 @@ export interface SignInLimits {
   perAddress: number;
   /** Sign-ups (accounts made or addresses found taken) allowed from one address in the window (default 10). */
   signUpsPerAddress?: number;
+  /** "Forgot password" requests allowed from one address in the window (default 10). */
+  resetsPerAddress?: number;
   windowMs: number;
 }
 
@@ -62,5 +64,40 @@ export function signUpRateLimit(limits: SignInLimits): RequestHandler {
     keyGenerator: addressOf,
     skipFailedRequests: true,
     requestWasSuccessful: (_req, res) => res.statusCode !== 400,
+  });
+}
+
+/**
+ * "Forgot password" requests per address, every one counted (a mail may go out for each). Each
+ * address asked about also has its own allowance of mails (server/mail/quotas.ts).
+ */
+export function passwordResetRateLimit(limits: SignInLimits): RequestHandler {
+  return rateLimit({
+    ...refusal("Too many requests for password links from this network. Wait a few minutes and try again."),
+    windowMs: limits.windowMs,
+    limit: limits.resetsPerAddress ?? 10,
+    keyGenerator: addressOf,
+  });
+}
+
+/** Links tried from one address: a wrong or used one counts, so nobody can guess at tokens for long. */
+export function resetLinkRateLimit(limits: SignInLimits): RequestHandler {
+  return rateLimit({
+    ...refusal("Too many tries from this network. Wait a few minutes and try again."),
+    windowMs: limits.windowMs,
+    limit: limits.perAddress,
+    keyGenerator: addressOf,
+    skipSuccessfulRequests: true,
+  });
+}
+
+/** Wrong current passwords on the account page, per account: a stolen session can't guess the password for long. */
+export function currentPasswordRateLimit(limits: SignInLimits): RequestHandler {
+  return rateLimit({
+    ...refusal("Too many wrong passwords. Wait a few minutes and try again."),
+    windowMs: limits.windowMs,
+    limit: limits.perAccount,
+    keyGenerator: (req) => `account ${req.user?.id ?? "(none)"}`,
+    skipSuccessfulRequests: true,
   });
 }

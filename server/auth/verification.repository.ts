@@ -1,4 +1,4 @@
-import { and, eq, isNull, lt, sql } from "drizzle-orm";
+import { and, eq, isNull, lt, ne, sql } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { emailVerifications, users } from "../db/schema/accounts";
 
@@ -12,6 +12,7 @@ export async function findVerificationByHash(db: Database, tokenHash: string) {
       id: emailVerifications.id,
       userId: emailVerifications.userId,
       email: emailVerifications.email,
+      changesAddress: emailVerifications.changesAddress,
       expiresAt: emailVerifications.expiresAt,
       usedAt: emailVerifications.usedAt,
       currentEmail: users.email,
@@ -42,4 +43,33 @@ export async function findAccountToVerify(db: Database, userId: string) {
 /** Forgets an account's links that have expired, used or not. */
 export async function deleteExpiredVerifications(db: Database, userId: string): Promise<void> {
   await db.delete(emailVerifications).where(and(eq(emailVerifications.userId, userId), lt(emailVerifications.expiresAt, sql`now()`)));
+}
+
+/** A new address-change link ends the account's earlier ones that were not used. */
+export async function replaceAddressChangeLink(db: Database, values: { userId: string; email: string; tokenHash: string; expiresAt: Date }): Promise<void> {
+  await db
+    .delete(emailVerifications)
+    .where(and(eq(emailVerifications.userId, values.userId), eq(emailVerifications.changesAddress, true), isNull(emailVerifications.usedAt)));
+  await db.insert(emailVerifications).values({ ...values, changesAddress: true });
+}
+
+/**
+ * Moves the account to an address it has just proven it holds, confirmed; false when another account
+ * has it. The account's other open links (for its old address or another new one) stop working.
+ */
+export async function moveToAddress(db: Database, userId: string, email: string): Promise<boolean> {
+  const taken = await db.select({ id: users.id }).from(users).where(and(eq(users.email, email), ne(users.id, userId)));
+  if (taken.length > 0) return false;
+  const moved = await db
+    .update(users)
+    .set({ email, emailVerifiedAt: sql`now()` })
+    .where(eq(users.id, userId))
+    .returning({ id: users.id })
+    .catch((error: { code?: string }) => {
+      if (error.code === "23505") return [];
+      throw error;
+    });
+  if (moved.length === 0) return false;
+  await db.update(emailVerifications).set({ usedAt: sql`now()` }).where(and(eq(emailVerifications.userId, userId), isNull(emailVerifications.usedAt)));
+  return true;
 }

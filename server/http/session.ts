@@ -30,6 +30,17 @@ class SessionStore extends PgStore {
 }
 
 export const SESSION_COOKIE = "kerf.sid";
+/** A session ends fourteen days after its last request (rolling), so its last request was `expire` minus this. */
+export const SESSION_MAX_AGE_MS = 14 * 24 * 60 * 60 * 1000;
+
+declare module "express-session" {
+  interface SessionData {
+    /** When the person signed in (ISO instant), for their list of sessions. */
+    startedAt?: string;
+    /** Browser and system the session signed in from, in a few words. */
+    device?: string;
+  }
+}
 
 /** Sessions live in PostgreSQL so any app instance can serve any signed-in person. */
 export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler {
@@ -45,7 +56,7 @@ export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler
       sameSite: "lax",
       // Secure whenever the request arrived over TLS (directly, or through a trusted proxy).
       secure: "auto",
-      maxAge: 14 * 24 * 60 * 60 * 1000,
+      maxAge: SESSION_MAX_AGE_MS,
     },
   });
 }

@@ -1,4 +1,5 @@
 import { roleMay, rolesAllowed, type Area, type Need } from "../../shared/access/roles";
+import type { MailTopic } from "../../shared/auth/account";
 import type { Database } from "../db/client";
 import { channelShare, mailKind, type MailRenderers } from "./mail-jobs";
 import { findMemberAddress, listMembersInRoles } from "./recipients.repository";
@@ -19,6 +20,8 @@ export interface MemberMail {
    * mail instead (a sponsor's decision reaches the channel's current producers), with `note` added.
    */
   otherwise?: Permission & { note: string };
+  /** What the mail is about: a recipient who turned that topic off on their account page gets nothing. */
+  topic: MailTopic;
   subject: string;
   text: string;
 }
@@ -34,6 +37,7 @@ export const memberMail = (mail: MemberMail) => memberMailKind.job(mail, channel
 export function memberMailRenderer(db: Database): MailRenderers {
   return memberMailKind.renderer(async (mail) => {
     const member = mail.userId ? await findMemberAddress(db, mail.channelId, mail.userId) : null;
+    if (member?.mailOptOuts.includes(mail.topic)) return { skip: `the recipient turned off mail about ${mail.topic}` };
     if (member && roleMay(member.role, mail.needs.area, mail.needs.need)) {
       return { send: { to: member.email, subject: mail.subject, text: mail.text } };
     }
@@ -43,6 +47,6 @@ export function memberMailRenderer(db: Database): MailRenderers {
     const others = (await listMembersInRoles(db, mail.channelId, rolesAllowed(needs.area, needs.need))).filter((m) => m.userId !== mail.userId);
     if (others.length === 0) return { skip: `${reason}, and nobody holds the role now` };
     const text = `${mail.text}\n\n${note}`;
-    return { instead: others.map((other) => memberMail({ channelId: mail.channelId, userId: other.userId, needs, subject: mail.subject, text })) };
+    return { instead: others.map((other) => memberMail({ channelId: mail.channelId, userId: other.userId, needs, topic: mail.topic, subject: mail.subject, text })) };
   });
 }

@@ -3,7 +3,7 @@ import { AppError } from "../http/app-error";
 import { lockScope, recordUse, usesSince } from "./quotas.repository";
 
 /** Mail that members cause to be sent to other people (or, for confirmation, to themselves). */
-export type MailPurpose = "invitation" | "review_link" | "mention" | "verification";
+export type MailPurpose = "invitation" | "review_link" | "mention" | "verification" | "password_reset";
 
 interface Allowance {
   limit: number;
@@ -26,6 +26,8 @@ export const mailAllowances: Record<MailPurpose, { account: Allowance; channel?:
   review_link: { account: { limit: 30, window: "hour" }, channel: { limit: 100, window: "day" } },
   mention: { account: { limit: 60, window: "hour" }, channel: { limit: 300, window: "day" } },
   verification: { account: { limit: 3, window: "hour" } },
+  // Counted per address asked about, whether or not an account has it, so the answer tells nothing.
+  password_reset: { account: { limit: 5, window: "hour" } },
 };
 
 const nouns: Record<MailPurpose, string> = {
@@ -33,6 +35,7 @@ const nouns: Record<MailPurpose, string> = {
   review_link: "review links",
   mention: "mails about mentions",
   verification: "confirmation mails",
+  password_reset: "password links",
 };
 
 export type QuotaHolder = "account" | "channel";

@@ -55,6 +55,7 @@ export async function addComment(deps: CommentDeps, caller: Caller, episodeId: s
       const mail = memberMail({
         channelId: caller.channelId,
         userId,
+        topic: "mentions",
         needs: { area: "comments", need: "R" },
         subject: `${caller.name} mentioned you on “${episode.title}”`,
         text: `${caller.name} mentioned you in a comment on “${episode.title}” (${channelName}):\n\n${body}\n\nOpen the episode: ${link}\n`,

@@ -38,6 +38,7 @@ function reminderMail(item: Candidate, kind: "before" | "late", today: string, a
   return memberMail({
     channelId: item.channelId,
     userId: item.ownerId,
+    topic: "reminders",
     needs: isMoneyKind(item.kind) ? { area: "fees", need: "R" } : { area: "deliverables", need: "R" },
     subject: kind === "late" ? `Late: ${item.title} (${item.company})` : `Due soon: ${item.title} (${item.company})`,
     text: [

@@ -318,6 +318,7 @@ function decisionMail(deps: ReviewDeps, row: LinkPage, decided: DecidedLink, inp
   return memberMail({
     channelId: decided.channelId,
     userId: decided.sentBy,
+    topic: "decisions",
     needs: { area: "deliverables", need: "R" },
     otherwise: { area: "deliverables", need: "W", note: `You get this because ${decided.sentByName}, who sent the review link, is no longer in the channel.` },
     subject: `${decided.contactName} of ${row.company} ${decisionWords[input.decision]} "${row.deliverableTitle}"`,

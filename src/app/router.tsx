@@ -25,6 +25,8 @@ export const router = createBrowserRouter([
         ],
       },
       { path: "/invite/:token", lazy: page(() => import("../features/channels/components/AcceptInvitePage"), (m) => m.AcceptInvitePage) },
+      { path: "/forgot-password", lazy: page(() => import("../features/auth/components/ForgotPasswordPage"), (m) => m.ForgotPasswordPage) },
+      { path: "/new-password/:token", lazy: page(() => import("../features/auth/components/NewPasswordPage"), (m) => m.NewPasswordPage) },
       { path: "/verify/:token", lazy: page(() => import("../features/auth/components/VerifyEmailPage"), (m) => m.VerifyEmailPage) },
       { path: "/review/:token", lazy: page(() => import("../features/sponsors/components/ReviewPage"), (m) => m.ReviewPage) },
       {
@@ -37,6 +39,7 @@ export const router = createBrowserRouter([
               {
                 errorElement: <RouteError inShell />,
                 children: [
+                  { path: "/account", lazy: page(() => import("../features/auth/components/AccountPage"), (m) => m.AccountPage) },
                   { path: "/channels/new", lazy: page(() => import("../features/channels/components/NewChannelPage"), (m) => m.NewChannelPage) },
                   {
                     path: "/c/:channelId",

@@ -94,7 +94,8 @@ export function TextAreaField({ label, hint, error, ref, className = "", ...text
   );
 }
 
-export function CheckboxField({ label, hint, ...input }: UseFormRegisterReturn & { label: string; hint?: string }) {
+/** One box; several registered under one name, each with its own `value`, make a list of the values ticked. */
+export function CheckboxField({ label, hint, ...input }: UseFormRegisterReturn & { label: string; hint?: string; value?: string }) {
   const id = useId();
   return (
     <div className="flex items-start gap-2">

@@ -2,7 +2,7 @@ import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { addDays } from "date-fns";
 import type { Role } from "../../shared/access/roles";
 import type { Database } from "../../server/db/client";
-import { emailVerifications, invitations } from "../../server/db/schema/accounts";
+import { emailVerifications, invitations, passwordResets } from "../../server/db/schema/accounts";
 
 /** An address nobody else in the run uses, so tests never read each other's mail or rows. */
 export function uniqueEmail(label = "person"): string {
@@ -39,5 +39,12 @@ export async function createInvitation(
 export async function createVerification(db: Database, user: { id: string; email: string }, expiresAt = addDays(new Date(), 1)): Promise<string> {
   const token = randomBytes(32).toString("base64url");
   await db.insert(emailVerifications).values({ userId: user.id, email: user.email, tokenHash: sha256Hex(token), expiresAt });
+  return token;
+}
+
+/** An open "set a new password" link for this account, made straight in the database; answers its token. */
+export async function createPasswordReset(db: Database, user: { id: string }, expiresAt = new Date(Date.now() + 3_600_000)): Promise<string> {
+  const token = randomBytes(32).toString("base64url");
+  await db.insert(passwordResets).values({ userId: user.id, tokenHash: sha256Hex(token), expiresAt });
   return token;
 }

@@ -42,6 +42,7 @@ const JOB_ROW = ["data", "output", "priority", "completed_on"];
 export function mailJobsTo(pool: pg.Pool, address: string): Promise<JobRecord[]> {
   const to = `name = $1 and (
     lower(data->>'to') = lower($2)
+    or (data->>'kind' in ('password-reset', 'address-change') and lower(data->'data'->>'email') = lower($2))
     or (data->>'kind' in ('member', 'verification') and data->'data'->>'userId' in (select id::text from users where lower(email) = lower($2)))
     or (data->>'kind' = 'invitation' and data->'data'->>'invitationId' in (select id::text from invitations where lower(email) = lower($2)))
     or (data->>'kind' = 'review-link' and data->'data'->>'linkId' in (select id::text from review_links where lower(contact_email) = lower($2)))

@@ -71,7 +71,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
   const deps: AppDeps = { env, database, mailer, jobs, storage };
   const startMailWorker = () => jobs.startMailWorker(mailRenderers(deps));
   if (!options.holdMail) await startMailWorker();
-  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, signUpsPerAddress: 1000, windowMs: 60_000 } });
+  const app = createApp(deps, { signInLimits: options.signInLimits ?? { perAccount: 5, perAddress: 1000, signUpsPerAddress: 1000, resetsPerAddress: 1000, windowMs: 60_000 } });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });

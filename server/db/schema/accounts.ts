@@ -1,6 +1,7 @@
 
-import { index, json, pgEnum, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
-import { createdAt, id } from "./columns";
+import { sql } from "drizzle-orm";
+import { boolean, index, json, pgEnum, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
+import { createdAt, id, version } from "./columns";
 import { roles } from "../../../shared/access/roles";
 
 export const roleEnum = pgEnum("role", roles);
@@ -13,6 +14,9 @@ export const users = pgTable("users", {
   timeZone: text("time_zone").notNull().default("UTC"),
   // Set when the person opened the link mailed to this address: until then Kerf sends nothing to others on their behalf.
   emailVerifiedAt: timestamp("email_verified_at", { withTimezone: true }),
+  // The mail topics the person turned off (shared/auth/account.ts); mail about their own account is always sent.
+  mailOptOuts: text("mail_opt_outs").array().notNull().default(sql`'{}'::text[]`),
+  version: version(),
   createdAt: createdAt(),
 });
 
@@ -80,6 +84,8 @@ export const emailVerifications = pgTable(
       .references(() => users.id, { onDelete: "cascade" }),
     // The address the link was mailed to: a link confirms that address and no other.
     email: text("email").notNull(),
+    // Set when the link moves the account to `email` (a change of address) rather than confirming its current one.
+    changesAddress: boolean("changes_address").notNull().default(false),
     tokenHash: text("token_hash").notNull().unique(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     usedAt: timestamp("used_at", { withTimezone: true }),
@@ -88,14 +94,38 @@ export const emailVerifications = pgTable(
   (table) => [index("email_verifications_user_idx").on(table.userId)],
 );
 
-/** The table connect-pg-simple expects, owned by our migrations rather than created at run time. */
+/**
+ * Links that set a new password ("forgot password"). Only the SHA-256 of a link's token is kept, the token
+ * is made when the mail is sent, each link works once and expires; a new link or a new password ends the others.
+ */
+export const passwordResets = pgTable(
+  "password_resets",
+  {
+    id: id(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (table) => [index("password_resets_user_idx").on(table.userId)],
+);
+
+/**
+ * The table connect-pg-simple expects, owned by our migrations rather than created at run time.
+ * `user_id` is computed by PostgreSQL from the session's data (passport keeps the account's id there),
+ * so the store writes rows as it always does and an account's sessions are found through an index.
+ */
 export const sessions = pgTable(
   "session",
   {
     sid: varchar("sid").primaryKey(),
     sess: json("sess").notNull(),
     expire: timestamp("expire", { precision: 6 }).notNull(),
+    userId: uuid("user_id").generatedAlwaysAs(sql`((sess -> 'passport' ->> 'user')::uuid)`),
   },
-  (table) => [index("IDX_session_expire").on(table.expire)],
+  (table) => [index("IDX_session_expire").on(table.expire), index("session_user_idx").on(table.userId)],
 );
 

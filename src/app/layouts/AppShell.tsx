@@ -43,8 +43,10 @@ export function AppShell() {
           )}
           <div className="ml-auto flex items-center gap-3 text-sm">
             {user && (
-              <span>
-                {user.name}
+              <span className="flex items-center">
+                <NavLink to="/account" aria-label={`Your account (${user.name})`} className={navClass}>
+                  {user.name}
+                </NavLink>
                 {channel && <span className="ml-2 rounded bg-graphite-700 px-2 py-0.5 text-xs">{roleLabels[channel.role]}</span>}
               </span>
             )}

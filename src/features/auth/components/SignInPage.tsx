@@ -36,6 +36,9 @@ export function SignInPage() {
         {formError && <Notice kind="error">{formError}</Notice>}
         <TextField label="E-mail" type="email" autoComplete="email" autoFocus {...form.register("email")} error={form.formState.errors.email?.message} />
         <TextField label="Password" type="password" autoComplete="current-password" {...form.register("password")} error={form.formState.errors.password?.message} />
+        <Link className="-mt-2 self-end text-sm font-semibold text-rust-600 underline" to="/forgot-password">
+          Forgot your password?
+        </Link>
         <Button type="submit" busy={signIn.isPending}>
           Sign in
         </Button>
