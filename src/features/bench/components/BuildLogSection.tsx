@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { roleMay } from "@shared/access/roles";
+import { type Role, roleMay } from "@shared/access/roles";
 import { formatFigure } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
 import { iterationInputSchema, iterationOutcomeLabels, iterationOutcomes, type IterationInput, type IterationOutcome, type IterationView, type RunView } from "@shared/bench/schemas";
@@ -9,6 +9,7 @@ import { Notice } from "../../../components/Notice";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useOpenedRecord } from "../../../lib/conflicts";
+import { FootageShown } from "../../../lib/footage-shown";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteIteration } from "../api/delete-iteration";
 import { useBuildLog } from "../api/get-build-log";
@@ -31,12 +32,13 @@ export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionPr
   const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId));
   return (
     <QueryState query={buildLog} loading="Loading the build log…">
-      {([log, runs]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} />}
+      {([log, runs]) => <BuildLog channelId={channelId} episodeId={episodeId} role={role} log={log} runs={runs} />}
     </QueryState>
   );
 }
 
-function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[] }) {
+function BuildLog({ channelId, episodeId, role, log, runs }: { channelId: string; episodeId: string; role: Role; log: IterationView[]; runs: RunView[] }) {
+  const canWrite = roleMay(role, "bench", "W");
   const [editing, setEditing] = useState<string | null>(null);
 
   return (
@@ -53,7 +55,7 @@ function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: st
                 </Panel>
               </li>
             ) : (
-              <IterationItem key={iteration.id} channelId={channelId} episodeId={episodeId} iteration={iteration} canWrite={canWrite} onEdit={() => setEditing(iteration.id)} />
+              <IterationItem key={iteration.id} channelId={channelId} episodeId={episodeId} iteration={iteration} role={role} onEdit={() => setEditing(iteration.id)} />
             ),
           )}
         </ol>
@@ -68,14 +70,15 @@ function BuildLog({ channelId, episodeId, canWrite, log, runs }: { channelId: st
   );
 }
 
-function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { channelId: string; episodeId: string; iteration: IterationView; canWrite: boolean; onEdit: () => void }) {
+function IterationItem({ channelId, episodeId, iteration, role, onEdit }: { channelId: string; episodeId: string; iteration: IterationView; role: Role; onEdit: () => void }) {
+  const canWrite = roleMay(role, "bench", "W");
   const remove = useDeleteIteration(channelId, episodeId);
   return (
     <li aria-label={`Iteration ${iteration.number}`} className="grid grid-cols-[3rem_1fr] gap-3 rounded-lg border border-ply-300 bg-white p-4">
       <span className="flex size-10 items-center justify-center rounded-full bg-graphite-900 text-lg font-bold text-amber-cut" aria-hidden>
         {iteration.number}
       </span>
-      <div>
+      <div className="min-w-0">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <p className="font-semibold">
             <span className="sr-only">Iteration {iteration.number}: </span>
@@ -98,6 +101,7 @@ function IterationItem({ channelId, episodeId, iteration, canWrite, onEdit }: { 
           </div>
         </dl>
         {iteration.notes && <p className="mt-2 whitespace-pre-wrap text-sm text-graphite-700">{iteration.notes}</p>}
+        <FootageShown channelId={channelId} episodeId={episodeId} role={role} shows={{ kind: "iteration", id: iteration.id, number: iteration.number }} />
         {canWrite && (
           <div className="mt-2 flex gap-2">
             <Button tone="quiet" onClick={onEdit}>

@@ -7,6 +7,7 @@ export const rushesKeys = {
   edlRates: (channelId: string, query: string) => [...rushesKeys.footage(channelId), "edl-rates", query] as const,
   clip: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "clip", clipId] as const,
   preview: (channelId: string, clipId: string) => [...rushesKeys.footage(channelId), "preview", clipId] as const,
+  footageLinks: (channelId: string, episodeId: string) => [...rushesKeys.footage(channelId), "links", episodeId] as const,
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
   shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
   shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,
