@@ -11,15 +11,16 @@ export const LINKABLE_CLIPS = 500;
 export async function footageLinks(ctx: RushesContext, caller: Caller, episodeId: string): Promise<FootageLinks> {
   const { channelId } = caller;
   // One snapshot for the five reads, so a link moved meanwhile is never counted twice or lost.
+  // One after another: a transaction is one connection, which takes one query at a time.
   const [runs, iterations, clips, linked, marks] = await ctx.db.transaction(
-    (tx) =>
-      Promise.all([
-        repo.episodeRuns(tx, channelId, episodeId),
-        repo.episodeIterations(tx, channelId, episodeId),
-        repo.episodeClips(tx, channelId, episodeId, LINKABLE_CLIPS + 1),
-        repo.linkedClips(tx, channelId, episodeId),
-        repo.linkedMarks(tx, channelId, episodeId),
-      ]),
+    async (tx) =>
+      [
+        await repo.episodeRuns(tx, channelId, episodeId),
+        await repo.episodeIterations(tx, channelId, episodeId),
+        await repo.episodeClips(tx, channelId, episodeId, LINKABLE_CLIPS + 1),
+        await repo.linkedClips(tx, channelId, episodeId),
+        await repo.linkedMarks(tx, channelId, episodeId),
+      ] as const,
     { isolationLevel: "repeatable read", accessMode: "read only" },
   );
   const byRun = new Map<string, ShowingFootage[]>(runs.map((r) => [r.id, []]));
