@@ -3,12 +3,13 @@ import type { z } from "zod";
 import { decodeCursor, encodeCursor, type FootageQuery } from "../../shared/rushes/footage-query";
 import { roleMay } from "../../shared/access/roles";
 import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
-import type { ClipDetail, ClipView, FootagePage, MarkInput, MarkView, markInputSchema, updateClipSchema } from "../../shared/rushes/schemas";
+import type { ClipDetail, ClipView, FootagePage, MarkPatch, MarkView, markInputSchema, updateClipSchema } from "../../shared/rushes/schemas";
 import { type TimecodeFormat, describeFormat } from "../../shared/timecode/rates";
 import { frameCount } from "../../shared/timecode/playhead";
 import { markRangeAt } from "../../shared/timecode/schemas";
 import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
 import { fieldMessages } from "../../shared/http/errors";
+import type { Queryable } from "../db/client";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { viaStorage } from "../storage/storage";
@@ -23,13 +24,15 @@ type MarkRow = Awaited<ReturnType<typeof repo.marksOf>>[number];
 
 const POSTER_URL_SECONDS = 30 * 60;
 
-async function posterUrl(ctx: RushesContext, row: ClipRow): Promise<string | null> {
-  // The server's poster is read from the file itself; the browser's stands in until then.
-  const key = row.serverPosterKey ?? row.posterKey;
-  if (!key) return null;
+/** A short-lived GET of a clip's poster frame, or null when it has none. */
+export async function posterUrlOf(ctx: RushesContext, posterKey: string | null): Promise<string | null> {
+  if (!posterKey) return null;
   // Signing is local arithmetic (no call to the store), so a list of fifty costs nothing to sign.
-  return ctx.storage.presignGet(key, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
+  return ctx.storage.presignGet(posterKey, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
 }
+
+// The server's poster is read from the file itself; the browser's stands in until then.
+const posterUrl = (ctx: RushesContext, row: ClipRow) => posterUrlOf(ctx, row.serverPosterKey ?? row.posterKey);
 
 export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<ClipView> {
   return {
@@ -67,7 +70,29 @@ export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<Clip
   };
 }
 
-const toMarkView = (m: MarkRow): MarkView => ({ id: m.id, in: m.inLabel, out: m.outLabel, inFrame: m.inFrame, outFrame: m.outFrame, note: m.note });
+const toMarkView = (m: MarkRow): MarkView => ({
+  id: m.id,
+  in: m.inLabel,
+  out: m.outLabel,
+  inFrame: m.inFrame,
+  outFrame: m.outFrame,
+  note: m.note,
+  benchRunId: m.benchRunId,
+  buildIterationId: m.buildIterationId,
+});
+
+/**
+ * What a clip or a mark says it shows must be a bench run or build iteration of the clip's own
+ * episode; another episode's, another channel's or none at all is the same plain 400. Checked in the
+ * write's transaction, the run or iteration held until it commits: one deleted meanwhile can't fail the key.
+ */
+async function checkShows(tx: Queryable, channelId: string, episodeId: string, links: { benchRunId?: string | null; buildIterationId?: string | null }, what: "clip" | "mark") {
+  const whose = what === "clip" ? "this clip's episode" : "the episode of this mark's clip";
+  const fields: Record<string, string> = {};
+  if (links.benchRunId && (await repo.benchRunEpisode(tx, channelId, links.benchRunId)) !== episodeId) fields.benchRunId = `Choose a bench run of ${whose}.`;
+  if (links.buildIterationId && (await repo.buildIterationEpisode(tx, channelId, links.buildIterationId)) !== episodeId) fields.buildIterationId = `Choose a build iteration of ${whose}.`;
+  if (Object.keys(fields).length > 0) throw new AppError("validation_failed", "Some fields need attention.", fields);
+}
 
 export async function listFootage(ctx: RushesContext, caller: Caller, q: FootageQuery): Promise<FootagePage> {
   const cursor = q.cursor ? decodeCursor(q.cursor, q.sort) : null;
@@ -110,13 +135,7 @@ export async function updateClip(ctx: RushesContext, caller: Caller, clipId: str
     if (!day || day.episodeId !== row.episodeId) throw new AppError("validation_failed", "Some fields need attention.", { shootDayId: "Choose a shoot day of this clip's episode." });
   }
   await ctx.db.transaction(async (tx) => {
-    // Checked in the write's transaction, the run or iteration held until it commits: one deleted meanwhile can't fail the key.
-    if (patch.benchRunId && (await repo.benchRunEpisode(tx, caller.channelId, patch.benchRunId)) !== row.episodeId) {
-      throw new AppError("validation_failed", "Some fields need attention.", { benchRunId: "Choose a bench run of this clip's episode." });
-    }
-    if (patch.buildIterationId && (await repo.buildIterationEpisode(tx, caller.channelId, patch.buildIterationId)) !== row.episodeId) {
-      throw new AppError("validation_failed", "Some fields need attention.", { buildIterationId: "Choose a build iteration of this clip's episode." });
-    }
+    await checkShows(tx, caller.channelId, row.episodeId, patch, "clip");
     await repo.updateClip(tx, caller.channelId, clipId, values);
     if (patch.shotId !== undefined && patch.shotId !== row.shotId) {
       if (row.shotId) await shootRepo.refreshShotStatus(tx, row.shotId);
@@ -173,19 +192,38 @@ export async function addMark(ctx: RushesContext, caller: Caller, clipId: string
   const row = await clipOrNotFound(ctx, caller, clipId);
   const range = checkMark(row, input);
   const mark = await ctx.db.transaction(async (tx) => {
-    const made = await repo.insertMark(tx, { channelId: caller.channelId, clipId, ...range, note: input.note, createdBy: caller.userId });
+    await checkShows(tx, caller.channelId, row.episodeId, input, "mark");
+    const made = await repo.insertMark(tx, {
+      channelId: caller.channelId,
+      clipId,
+      ...range,
+      note: input.note,
+      benchRunId: input.benchRunId ?? null,
+      buildIterationId: input.buildIterationId ?? null,
+      createdBy: caller.userId,
+    });
     await repo.refreshMarkCount(tx, clipId);
     return made;
   });
   return toMarkView(mark);
 }
 
-export async function updateMark(ctx: RushesContext, caller: Caller, clipId: string, markId: string, input: Partial<MarkInput>): Promise<MarkView> {
+/** A mark's in, out and note, and what it shows; a field the patch leaves out stays as it is. */
+export async function updateMark(ctx: RushesContext, caller: Caller, clipId: string, markId: string, input: MarkPatch): Promise<MarkView> {
   const row = await clipOrNotFound(ctx, caller, clipId);
   const mark = await repo.findMark(ctx.db, caller.channelId, clipId, markId);
   if (!mark) throw notFound("Mark");
-  const range = checkMark(row, { in: input.in ?? mark.inLabel, out: input.out ?? mark.outLabel });
-  return toMarkView(await repo.updateMark(ctx.db, markId, { ...range, note: input.note ?? mark.note }));
+  const range = input.in !== undefined || input.out !== undefined ? checkMark(row, { in: input.in ?? mark.inLabel, out: input.out ?? mark.outLabel }) : {};
+  const values = {
+    ...range,
+    ...(input.note !== undefined && { note: input.note }),
+    ...(input.benchRunId !== undefined && { benchRunId: input.benchRunId }),
+    ...(input.buildIterationId !== undefined && { buildIterationId: input.buildIterationId }),
+  };
+  return ctx.db.transaction(async (tx) => {
+    await checkShows(tx, caller.channelId, row.episodeId, input, "mark");
+    return toMarkView(Object.keys(values).length > 0 ? await repo.updateMark(tx, markId, values) : mark);
+  });
 }
 
 /** A role that may not remove footage (crew) logs and marks, and takes back only the marks it made. */

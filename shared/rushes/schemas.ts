@@ -199,13 +199,19 @@ export const markInputSchema = z.strictObject({
   in: oneLine(40, { blank: "Enter the in point." }),
   out: oneLine(40, { blank: "Enter the out point." }),
   note: markNote.default(""),
+  /** What the marked moment shows: a bench run or build iteration of the clip's episode, or none. */
+  benchRunId: z.uuid({ message: "Choose a bench run." }).nullable().optional(),
+  buildIterationId: z.uuid({ message: "Choose a build iteration." }).nullable().optional(),
 });
 export type MarkInput = z.input<typeof markInputSchema>;
 export const markPatchSchema = z.strictObject({
   in: markInputSchema.shape.in.optional(),
   out: markInputSchema.shape.out.optional(),
   note: markNote.optional(),
+  benchRunId: markInputSchema.shape.benchRunId,
+  buildIterationId: markInputSchema.shape.buildIterationId,
 });
+export type MarkPatch = z.input<typeof markPatchSchema>;
 
 export interface MarkView {
   id: string;
@@ -214,6 +220,36 @@ export interface MarkView {
   inFrame: number;
   outFrame: number;
   note: string;
+  benchRunId: string | null;
+  buildIterationId: string | null;
+}
+
+/** A bench run or build iteration of an episode, as footage names it: its number and title. */
+export interface FootageTarget {
+  id: string;
+  number: number;
+  title: string;
+}
+
+/** A clip, or one mark of it, that shows a run or an iteration. */
+export interface ShowingFootage {
+  clipId: string;
+  fileName: string;
+  posterUrl: string | null;
+  /** Null when the whole clip is linked; the mark otherwise. */
+  mark: { id: string; in: string; out: string; note: string } | null;
+}
+
+/**
+ * `GET /episodes/:episodeId/footage-links`: the episode's runs and iterations, each with the footage
+ * that shows it, and the episode's clips (newest first) to link from a run or an iteration.
+ */
+export interface FootageLinks {
+  runs: (FootageTarget & { footage: ShowingFootage[] })[];
+  iterations: (FootageTarget & { footage: ShowingFootage[] })[];
+  clips: { id: string; fileName: string; benchRunId: string | null; buildIterationId: string | null }[];
+  /** True when the episode has more clips than the list holds. */
+  moreClips: boolean;
 }
 
 export interface ClipView {

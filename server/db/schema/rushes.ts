@@ -185,6 +185,9 @@ export const clipMarks = pgTable(
     inLabel: text("in_label").notNull(),
     outLabel: text("out_label").notNull(),
     note: text("note").notNull().default(""),
+    // What the marked moment shows: a bench run or build iteration of the clip's own episode (the service checks).
+    benchRunId: uuid("bench_run_id").references(() => benchRuns.id, { onDelete: "set null" }),
+    buildIterationId: uuid("build_iteration_id").references(() => buildIterations.id, { onDelete: "set null" }),
     createdBy: personRef("created_by"),
     createdAt: createdAt(),
   },

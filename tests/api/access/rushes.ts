@@ -56,6 +56,7 @@ export const access: FeatureAccess = {
     [`POST ${C}/episodes/:episodeId/shots`,            401,  ok,   ok,   ok,   ok,   404],
     [`PATCH ${C}/shots/:shotId`,                       401,  ok,   ok,   ok,   ok,   404],
     [`DELETE ${C}/shots/:shotId`,                      401,  ok,   ok,   ok,   ok,   404],
+    [`GET ${C}/episodes/:episodeId/footage-links`,     401,  ok,   ok,   ok,   ok,   404],
   ],
   recipes: rushesRecipes,
 };
@@ -234,6 +235,7 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       },
     },
     [`GET ${C}/episodes/:episodeId/shots`]: { ok: 200, prepare: async () => ({ params: { episodeId } }) },
+    [`GET ${C}/episodes/:episodeId/footage-links`]: { ok: 200, prepare: async () => ({ params: { episodeId } }) },
     [`POST ${C}/episodes/:episodeId/shots`]: {
       ok: 201,
       prepare: async () => {

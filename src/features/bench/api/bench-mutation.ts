@@ -9,6 +9,8 @@ export function useBenchMutation<V, R>(channelId: string, send: (variables: V) =
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: send,
+    // What shows a run or an iteration (the footage's links) follows the bench.
+    meta: { changes: ["bench"] },
     onSettled: () => queryClient.invalidateQueries({ queryKey: benchKeys.channel(channelId) }),
   });
 }

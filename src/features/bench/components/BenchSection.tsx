@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { Link } from "react-router-dom";
-import { roleMay } from "@shared/access/roles";
+import { type Role, roleMay } from "@shared/access/roles";
 import { bestRun } from "@shared/bench/comparison";
 import type { PartView, RunView, TestPlanView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
@@ -21,12 +21,13 @@ export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps
   const bench = allOf(useRuns(channelId, episodeId), useTestPlan(channelId, episodeId), useParts(channelId));
   return (
     <QueryState query={bench} loading="Loading the bench runs…">
-      {([runs, plan, parts]) => <Bench channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} runs={runs} plan={plan} parts={parts} />}
+      {([runs, plan, parts]) => <Bench channelId={channelId} episodeId={episodeId} role={role} runs={runs} plan={plan} parts={parts} />}
     </QueryState>
   );
 }
 
-function Bench({ channelId, episodeId, canWrite, runs, plan, parts }: { channelId: string; episodeId: string; canWrite: boolean; runs: RunView[]; plan: TestPlanView; parts: PartView[] }) {
+function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: string; episodeId: string; role: Role; runs: RunView[]; plan: TestPlanView; parts: PartView[] }) {
+  const canWrite = roleMay(role, "bench", "W");
   const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<string | null>(null);
   const best = bestRun(runs);
@@ -64,7 +65,7 @@ function Bench({ channelId, episodeId, canWrite, runs, plan, parts }: { channelI
                 </Panel>
               </li>
             ) : (
-              <RunCard key={run.id} channelId={channelId} episodeId={episodeId} run={run} criteria={criteria} isBest={run.id === best?.id} canWrite={canWrite} onEdit={() => setEditing(run.id)} />
+              <RunCard key={run.id} channelId={channelId} episodeId={episodeId} run={run} criteria={criteria} isBest={run.id === best?.id} role={role} onEdit={() => setEditing(run.id)} />
             ),
           )}
         </ol>

@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { roleMay } from "@shared/access/roles";
+import { type Role, roleMay } from "@shared/access/roles";
 import { formatFigure } from "@shared/bench/format";
 import { unitsByDimension } from "@shared/bench/quantity";
 import {
@@ -22,6 +22,7 @@ import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useOpenedRecord } from "../../../lib/conflicts";
 import { useAddBuildPhoto } from "../api/add-build-photo";
+import { FootageShown } from "../../../lib/footage-shown";
 import { useAddIteration } from "../api/add-iteration";
 import { useDeleteBuildPhoto } from "../api/delete-build-photo";
 import { useBuildPhotos } from "../api/list-build-photos";
@@ -46,12 +47,13 @@ export function BuildLogSection({ channelId, episodeId, role }: EpisodeSectionPr
   const buildLog = allOf(useBuildLog(channelId, episodeId), useRuns(channelId, episodeId), useBuildPhotos(channelId, episodeId));
   return (
     <QueryState query={buildLog} loading="Loading the build log…">
-      {([log, runs, photos]) => <BuildLog channelId={channelId} episodeId={episodeId} canWrite={roleMay(role, "bench", "W")} log={log} runs={runs} photos={photos} />}
+      {([log, runs, photos]) => <BuildLog channelId={channelId} episodeId={episodeId} role={role} log={log} runs={runs} photos={photos} />}
     </QueryState>
   );
 }
 
-function BuildLog({ channelId, episodeId, canWrite, log, runs, photos }: { channelId: string; episodeId: string; canWrite: boolean; log: IterationView[]; runs: RunView[]; photos: BuildPhotoView[] }) {
+function BuildLog({ channelId, episodeId, role, log, runs, photos }: { channelId: string; episodeId: string; role: Role; log: IterationView[]; runs: RunView[]; photos: BuildPhotoView[] }) {
+  const canWrite = roleMay(role, "bench", "W");
   const [editing, setEditing] = useState<string | null>(null);
 
   return (
@@ -74,7 +76,7 @@ function BuildLog({ channelId, episodeId, canWrite, log, runs, photos }: { chann
                 episodeId={episodeId}
                 iteration={iteration}
                 photos={photos.filter((photo) => photo.iterationId === iteration.id)}
-                canWrite={canWrite}
+                role={role}
                 onEdit={() => setEditing(iteration.id)}
               />
             ),
@@ -96,23 +98,24 @@ function IterationItem({
   episodeId,
   iteration,
   photos,
-  canWrite,
+  role,
   onEdit,
 }: {
   channelId: string;
   episodeId: string;
   iteration: IterationView;
   photos: BuildPhotoView[];
-  canWrite: boolean;
+  role: Role;
   onEdit: () => void;
 }) {
+  const canWrite = roleMay(role, "bench", "W");
   const remove = useDeleteIteration(channelId, episodeId);
   return (
     <li aria-label={`Iteration ${iteration.number}`} className="grid grid-cols-[3rem_1fr] gap-3 rounded-lg border border-ply-300 bg-white p-4">
       <span className="flex size-10 items-center justify-center rounded-full bg-graphite-900 text-lg font-bold text-amber-cut" aria-hidden>
         {iteration.number}
       </span>
-      <div>
+      <div className="min-w-0">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <p className="font-semibold">
             <span className="sr-only">Iteration {iteration.number}: </span>
@@ -136,6 +139,7 @@ function IterationItem({
         </dl>
         {iteration.notes && <p className="mt-2 whitespace-pre-wrap text-sm text-graphite-700">{iteration.notes}</p>}
         <IterationPhotos channelId={channelId} episodeId={episodeId} iteration={iteration} photos={photos} canWrite={canWrite} />
+        <FootageShown channelId={channelId} episodeId={episodeId} role={role} shows={{ kind: "iteration", id: iteration.id, number: iteration.number }} />
         {canWrite && (
           <div className="mt-2 flex gap-2">
             <Button tone="quiet" onClick={onEdit}>

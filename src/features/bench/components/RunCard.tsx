@@ -1,11 +1,13 @@
 import { useState } from "react";
 import { Link } from "react-router-dom";
+import { type Role, roleMay } from "@shared/access/roles";
 import { columnUnit, describeSupply } from "@shared/bench/comparison";
 import { type Figure, figureNames, isQuantity, measurementSymbols } from "@shared/bench/figures";
 import { formatFigure, formatQuantity, metricLabels, readCriterion } from "@shared/bench/format";
 import type { CriterionView, RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
+import { FootageShown } from "../../../lib/footage-shown";
 import { useDeleteRun } from "../api/delete-run";
 import { asEntered, Caution, OutcomeMark, VerdictBadge } from "./marks";
 
@@ -16,7 +18,7 @@ export function RunCard({
   run,
   criteria,
   isBest,
-  canWrite,
+  role,
   onEdit,
 }: {
   channelId: string;
@@ -24,9 +26,10 @@ export function RunCard({
   run: RunView;
   criteria: CriterionView[];
   isBest: boolean;
-  canWrite: boolean;
+  role: Role;
   onEdit: () => void;
 }) {
+  const canWrite = roleMay(role, "bench", "W");
   const remove = useDeleteRun(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const e = run.evaluation;
@@ -126,6 +129,8 @@ export function RunCard({
       </div>
 
       {run.notes && <p className="mt-3 whitespace-pre-wrap text-sm text-graphite-700">{run.notes}</p>}
+
+      <FootageShown channelId={channelId} episodeId={episodeId} role={role} shows={{ kind: "run", id: run.id, number: run.number }} />
 
       {canWrite && (
         <div className="mt-3 flex gap-2">

@@ -9,6 +9,7 @@ export const rushesKeys = {
   /** The link to the original, or to the proxy the server made on its n-th attempt (a new attempt, a new proxy). */
   preview: (channelId: string, clipId: string, proxyOfAttempt: number | null = null) =>
     [...rushesKeys.footage(channelId), "preview", clipId, proxyOfAttempt === null ? "original" : `proxy-${proxyOfAttempt}`] as const,
+  footageLinks: (channelId: string, episodeId: string) => [...rushesKeys.footage(channelId), "links", episodeId] as const,
   shoot: (channelId: string, episodeId: string) => [...rushesKeys.channel(channelId), "shoot", episodeId] as const,
   shootDays: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "days"] as const,
   shots: (channelId: string, episodeId: string) => [...rushesKeys.shoot(channelId, episodeId), "shots"] as const,

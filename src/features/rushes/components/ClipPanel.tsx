@@ -1,11 +1,12 @@
 import { useEffect, useRef, useState, type FormEvent, type ReactNode } from "react";
-import type { ClipDetail, ShootDayView, ShotView } from "@shared/rushes/schemas";
+import type { ClipDetail, FootageLinks, ShootDayView, ShotView } from "@shared/rushes/schemas";
 import { clipRatingLabels, clipRatings, shotKindLabels, shotKinds } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
 import { ApiError } from "../../../lib/api-client";
 import { useDeleteClip } from "../api/delete-clip";
+import { useFootageLinks } from "../api/footage-links";
 import { useClip } from "../api/get-clip";
 import { fetchDownloadLink, usePreview } from "../api/get-preview";
 import { useShootDays } from "../api/list-shoot-days";
@@ -136,13 +137,17 @@ function ClipPreview({ channelId, clip, children }: { channelId: string; clip: C
 
 const select = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
-/** The log waits for the episode's days and shots, so its menus open on the clip's own choices. */
+/** The log waits for the episode's days, shots, runs and iterations, so its menus open on the clip's own choices. */
 function ClipLog({ channelId, clip }: { channelId: string; clip: ClipDetail }) {
-  const plan = allOf(useShootDays(channelId, clip.episodeId), useShots(channelId, clip.episodeId));
-  return <QueryState query={plan} loading="Loading the log…">{([days, shots]) => <LogForm channelId={channelId} clip={clip} days={days} shots={shots} />}</QueryState>;
+  const plan = allOf(useShootDays(channelId, clip.episodeId), useShots(channelId, clip.episodeId), useFootageLinks(channelId, clip.episodeId));
+  return (
+    <QueryState query={plan} loading="Loading the log…">
+      {([days, shots, links]) => <LogForm channelId={channelId} clip={clip} days={days} shots={shots} links={links} />}
+    </QueryState>
+  );
 }
 
-function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: ClipDetail; days: ShootDayView[]; shots: ShotView[] }) {
+function LogForm({ channelId, clip, days, shots, links }: { channelId: string; clip: ClipDetail; days: ShootDayView[]; shots: ShotView[]; links: FootageLinks }) {
   const update = useUpdateClip(channelId, clip.id);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const submit = async (event: FormEvent<HTMLFormElement>) => {
@@ -154,6 +159,8 @@ function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: Cl
       await update.mutateAsync({
         shootDayId: text("shootDayId") || null,
         shotId: text("shotId") || null,
+        benchRunId: text("benchRunId") || null,
+        buildIterationId: text("buildIterationId") || null,
         rating: (text("rating") || null) as ClipDetail["rating"],
         kind: (text("kind") || null) as ClipDetail["kind"],
         tags: text("tags")
@@ -170,7 +177,7 @@ function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: Cl
     }
   };
   return (
-    <form key={`${clip.id}-${clip.shotId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 grid-cols-1 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
+    <form key={`${clip.id}-${clip.shotId}-${clip.benchRunId}-${clip.buildIterationId}-${clip.rating}-${clip.tags.join()}`} onSubmit={submit} className="grid min-w-0 grid-cols-1 gap-3 rounded-md border border-ply-300 p-3 sm:grid-cols-2" aria-label="Log this clip">
       <h3 className="font-semibold sm:col-span-2">Log</h3>
       <label className="flex flex-col gap-1 text-sm font-medium">
         Shot
@@ -228,9 +235,28 @@ function LogForm({ channelId, clip, days, shots }: { channelId: string; clip: Cl
         Notes
         <textarea name="notes" defaultValue={clip.notes} rows={3} className={select} />
       </label>
-      <p className="text-xs text-graphite-500 sm:col-span-2">
-        Bench runs and build iterations: {clip.benchRunId || clip.buildIterationId ? "linked" : "none linked"}.
-      </p>
+      <label className="flex min-w-0 flex-col gap-1 text-sm font-medium">
+        Bench run shown
+        <select name="benchRunId" defaultValue={clip.benchRunId ?? ""} className={select}>
+          <option value="">No run</option>
+          {links.runs.map((r) => (
+            <option key={r.id} value={r.id}>
+              Run {r.number} · {r.title}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex min-w-0 flex-col gap-1 text-sm font-medium">
+        Build iteration shown
+        <select name="buildIterationId" defaultValue={clip.buildIterationId ?? ""} className={select}>
+          <option value="">No iteration</option>
+          {links.iterations.map((i) => (
+            <option key={i.id} value={i.id}>
+              Iteration {i.number} · {i.title}
+            </option>
+          ))}
+        </select>
+      </label>
       <div className="flex items-center gap-3 sm:col-span-2">
         <Button type="submit" busy={update.isPending}>
           Save log

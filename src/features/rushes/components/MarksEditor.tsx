@@ -2,12 +2,14 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { BaseSyntheticEvent } from "react";
 import { useForm, useWatch, type UseFormReturn } from "react-hook-form";
 import { z } from "zod";
-import type { ClipDetail } from "@shared/rushes/schemas";
+import type { ClipDetail, FootageLinks, MarkView } from "@shared/rushes/schemas";
 import type { TimecodeFormat } from "@shared/timecode/rates";
 import { markRangeAt } from "@shared/timecode/schemas";
 import { Button } from "../../../components/Button";
 import { useAddMark } from "../api/add-mark";
 import { useDeleteMark } from "../api/delete-mark";
+import { useFootageLinks } from "../api/footage-links";
+import { useUpdateMark } from "../api/update-mark";
 import { clipFormatText } from "./labels";
 import type { MarkDraft } from "./ClipPlayer";
 import { TextField } from "../../../components/form-fields";
@@ -55,6 +57,7 @@ export function useMarkForm(channelId: string, clip: ClipDetail, onSaved: () => 
 /** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
 export function MarksEditor({ channelId, clip, marking }: { channelId: string; clip: ClipDetail; marking: MarkForm }) {
   const deleteMark = useDeleteMark(channelId, clip.id);
+  const links = useFootageLinks(channelId, clip.episodeId);
   const format = clipFormat(clip);
   const separator = separatorOf(format);
   return (
@@ -78,6 +81,7 @@ export function MarksEditor({ channelId, clip, marking }: { channelId: string; c
                       {m.in} → {m.out}
                     </span>
                     {m.note && <span className="block break-words">{m.note}</span>}
+                    {links.data && <MarkShows channelId={channelId} clipId={clip.id} mark={m} links={links.data} />}
                   </div>
                   <Button tone="quiet" aria-label={`Remove mark ${m.in} to ${m.out}`} onClick={() => deleteMark.mutate(m.id)}>
                     Remove
@@ -95,6 +99,57 @@ export function MarksEditor({ channelId, clip, marking }: { channelId: string; c
         </>
       )}
     </section>
+  );
+}
+
+/**
+ * What the marked moment shows: one of the episode's runs or iterations, saved as soon as it is
+ * chosen. Choosing one clears the other; a mark linked to both (through the API) shows its run here.
+ */
+function MarkShows({ channelId, clipId, mark, links }: { channelId: string; clipId: string; mark: MarkView; links: FootageLinks }) {
+  const update = useUpdateMark(channelId, clipId);
+  const current = mark.benchRunId ? `run:${mark.benchRunId}` : mark.buildIterationId ? `iteration:${mark.buildIterationId}` : "";
+  const choose = (value: string) => {
+    const [kind, id] = value.split(":");
+    update.mutate({ markId: mark.id, patch: { benchRunId: kind === "run" ? id : null, buildIterationId: kind === "iteration" ? id : null } });
+  };
+  if (links.runs.length === 0 && links.iterations.length === 0 && !current) return null;
+  return (
+    <label className="mt-1 flex min-w-0 flex-wrap items-center gap-2 text-xs text-graphite-700">
+      Shows
+      <select
+        value={current}
+        disabled={update.isPending}
+        aria-label={`What the mark ${mark.in} to ${mark.out} shows`}
+        onChange={(e) => choose(e.target.value)}
+        className="max-w-full min-w-0 rounded-md border border-ply-300 bg-white px-1.5 py-1 text-xs"
+      >
+        <option value="">Nothing linked</option>
+        {links.runs.length > 0 && (
+          <optgroup label="Bench runs">
+            {links.runs.map((r) => (
+              <option key={r.id} value={`run:${r.id}`}>
+                Run {r.number} · {r.title}
+              </option>
+            ))}
+          </optgroup>
+        )}
+        {links.iterations.length > 0 && (
+          <optgroup label="Build iterations">
+            {links.iterations.map((i) => (
+              <option key={i.id} value={`iteration:${i.id}`}>
+                Iteration {i.number} · {i.title}
+              </option>
+            ))}
+          </optgroup>
+        )}
+      </select>
+      {update.isError && (
+        <span role="alert" className="text-alarm-600">
+          {update.error.message}
+        </span>
+      )}
+    </label>
   );
 }
 
