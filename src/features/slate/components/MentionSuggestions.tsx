@@ -41,7 +41,9 @@ export function useMentionSuggestions({ box, text, setText, people }: { box: Ref
     move();
   };
 
+  // React also reports "select" when only the keys moved through the list: a highlight stays unless the caret moved.
   const track = (at: number) => {
+    if (at === caret) return;
     setCaret(at);
     setHighlight(0);
   };
