@@ -31,8 +31,10 @@ export async function posterUrlOf(ctx: RushesContext, posterKey: string | null):
   return ctx.storage.presignGet(posterKey, { expiresInSeconds: POSTER_URL_SECONDS, contentType: "image/jpeg" });
 }
 
-// The server's poster is read from the file itself; the browser's stands in until then.
-const posterUrl = (ctx: RushesContext, row: ClipRow) => posterUrlOf(ctx, row.serverPosterKey ?? row.posterKey);
+/** The server's poster is read from the file itself; the browser's stands in until then. */
+export const posterKeyOf = (row: { serverPosterKey: string | null; posterKey: string | null }) => row.serverPosterKey ?? row.posterKey;
+
+const posterUrl = (ctx: RushesContext, row: ClipRow) => posterUrlOf(ctx, posterKeyOf(row));
 
 export async function toClipView(ctx: RushesContext, row: ClipRow): Promise<ClipView> {
   return {

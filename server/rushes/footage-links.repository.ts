@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, isNotNull, or, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, or } from "drizzle-orm";
 import type { Queryable } from "../db/client";
 import { benchRuns, buildIterations } from "../db/schema/bench";
 import { clipMarks, clips } from "../db/schema/rushes";
@@ -27,7 +27,8 @@ export function episodeIterations(db: Queryable, channelId: string, episodeId: s
 const clipLinkColumns = {
   id: clips.id,
   fileName: clips.fileName,
-  posterKey: sql<string | null>`coalesce(${clips.serverPosterKey}, ${clips.posterKey})`,
+  posterKey: clips.posterKey,
+  serverPosterKey: clips.serverPosterKey,
   benchRunId: clips.benchRunId,
   buildIterationId: clips.buildIterationId,
 };
@@ -63,7 +64,8 @@ export function linkedMarks(db: Queryable, channelId: string, episodeId: string)
       buildIterationId: clipMarks.buildIterationId,
       clipId: clips.id,
       fileName: clips.fileName,
-      posterKey: sql<string | null>`coalesce(${clips.serverPosterKey}, ${clips.posterKey})`,
+      posterKey: clips.posterKey,
+  serverPosterKey: clips.serverPosterKey,
     })
     .from(clipMarks)
     .innerJoin(clips, eq(clips.id, clipMarks.clipId))

@@ -1,6 +1,6 @@
 import type { FootageLinks, ShowingFootage } from "../../shared/rushes/schemas";
 import type { Caller } from "../http/route-table";
-import { posterUrlOf } from "./clips.service";
+import { posterKeyOf, posterUrlOf } from "./clips.service";
 import * as repo from "./footage-links.repository";
 import type { RushesContext } from "./rushes.context";
 
@@ -30,11 +30,11 @@ export async function footageLinks(ctx: RushesContext, caller: Caller, episodeId
     if (iterationId) byIteration.get(iterationId)?.push(item);
   };
   for (const clip of linked) {
-    place({ clipId: clip.id, fileName: clip.fileName, posterUrl: await posterUrlOf(ctx, clip.posterKey), mark: null }, clip.benchRunId, clip.buildIterationId);
+    place({ clipId: clip.id, fileName: clip.fileName, posterUrl: await posterUrlOf(ctx, posterKeyOf(clip)), mark: null }, clip.benchRunId, clip.buildIterationId);
   }
   for (const m of marks) {
     const mark = { id: m.id, in: m.inLabel, out: m.outLabel, note: m.note };
-    place({ clipId: m.clipId, fileName: m.fileName, posterUrl: await posterUrlOf(ctx, m.posterKey), mark }, m.benchRunId, m.buildIterationId);
+    place({ clipId: m.clipId, fileName: m.fileName, posterUrl: await posterUrlOf(ctx, posterKeyOf(m)), mark }, m.benchRunId, m.buildIterationId);
   }
   return {
     runs: runs.map((r) => ({ ...r, footage: byRun.get(r.id) ?? [] })),

@@ -235,28 +235,8 @@ function LogForm({ channelId, clip, days, shots, links }: { channelId: string; c
         Notes
         <textarea name="notes" defaultValue={clip.notes} rows={3} className={select} />
       </label>
-      <label className="flex min-w-0 flex-col gap-1 text-sm font-medium">
-        Bench run shown
-        <select name="benchRunId" defaultValue={clip.benchRunId ?? ""} className={select}>
-          <option value="">No run</option>
-          {links.runs.map((r) => (
-            <option key={r.id} value={r.id}>
-              Run {r.number} · {r.title}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="flex min-w-0 flex-col gap-1 text-sm font-medium">
-        Build iteration shown
-        <select name="buildIterationId" defaultValue={clip.buildIterationId ?? ""} className={select}>
-          <option value="">No iteration</option>
-          {links.iterations.map((i) => (
-            <option key={i.id} value={i.id}>
-              Iteration {i.number} · {i.title}
-            </option>
-          ))}
-        </select>
-      </label>
+      <ShownSelect label="Bench run shown" name="benchRunId" none="No run" noun="Run" value={clip.benchRunId} things={links.runs} />
+      <ShownSelect label="Build iteration shown" name="buildIterationId" none="No iteration" noun="Iteration" value={clip.buildIterationId} things={links.iterations} />
       <div className="flex items-center gap-3 sm:col-span-2">
         <Button type="submit" busy={update.isPending}>
           Save log
@@ -264,5 +244,22 @@ function LogForm({ channelId, clip, days, shots, links }: { channelId: string; c
         {notice && <Notice kind={notice.kind}>{notice.text}</Notice>}
       </div>
     </form>
+  );
+}
+
+/** Which run or iteration of the episode the clip shows, saved with the log. */
+function ShownSelect({ label, name, none, noun, value, things }: { label: string; name: string; none: string; noun: string; value: string | null; things: { id: string; number: number; title: string }[] }) {
+  return (
+    <label className="flex min-w-0 flex-col gap-1 text-sm font-medium">
+      {label}
+      <select name={name} defaultValue={value ?? ""} className={select}>
+        <option value="">{none}</option>
+        {things.map((thing) => (
+          <option key={thing.id} value={thing.id}>
+            {noun} {thing.number} · {thing.title}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
