@@ -1,5 +1,4 @@
 import path from "node:path";
-import { existsSync } from "node:fs";
 import express, { type Express } from "express";
 import helmet from "helmet";
 import { accountRoutes } from "./auth/account.router";
@@ -16,6 +15,7 @@ import { channelRoutes } from "./channels/channels.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { healthRoutes } from "./health/health.router";
 import { noStoreByDefault } from "./http/cache";
+import { serveClient } from "./http/client-files";
 import { csrfProtection } from "./http/csrf";
 import { apiNotFound, errorMiddleware } from "./http/error-middleware";
 import { guardsFor } from "./http/guards";
@@ -138,14 +138,4 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   serveClient(app, path.resolve(env.CLIENT_DIST));
   app.use(errorMiddleware);
   return app;
-}
-
-/** The built client, with every non-API path answered by index.html so client routes survive a reload. */
-function serveClient(app: Express, dist: string): void {
-  if (!existsSync(path.join(dist, "index.html"))) return;
-  app.use(express.static(dist, { index: false, maxAge: "1h" }));
-  app.get("/{*splat}", (req, res, next) => {
-    if (req.path.startsWith("/api")) return next();
-    res.sendFile(path.join(dist, "index.html"));
-  });
 }

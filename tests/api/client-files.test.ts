@@ -1,0 +1,56 @@
+import { mkdtempSync, mkdirSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { brotliCompressSync, gzipSync } from "node:zlib";
+import express from "express";
+import request from "supertest";
+import { describe, expect, it } from "vitest";
+import { IMMUTABLE, REVALIDATE, serveClient } from "../../server/http/client-files";
+
+// A built client as the build writes it: hashed assets beside their .br and .gz copies.
+function builtClient(): string {
+  const dist = mkdtempSync(path.join(tmpdir(), "kerf-client-"));
+  mkdirSync(path.join(dist, "assets"));
+  writeFileSync(path.join(dist, "index.html"), "<!doctype html><title>Kerf</title>");
+  const script = "console.log('kerf');\n".repeat(200);
+  writeFileSync(path.join(dist, "assets", "index-abc123.js"), script);
+  writeFileSync(path.join(dist, "assets", "index-abc123.js.br"), brotliCompressSync(script));
+  writeFileSync(path.join(dist, "assets", "index-abc123.js.gz"), gzipSync(script));
+  writeFileSync(path.join(dist, "favicon.svg"), "<svg xmlns='http://www.w3.org/2000/svg'/>");
+  return dist;
+}
+
+const app = express();
+serveClient(app, builtClient());
+
+describe("the built client's files", () => {
+  it("sends brotli to a browser that takes it, with a year's immutable cache for a hashed file", async () => {
+    const res = await request(app).get("/assets/index-abc123.js").set("Accept-Encoding", "gzip, deflate, br");
+    expect(res.status).toBe(200);
+    expect(res.headers["content-encoding"]).toBe("br");
+    expect(res.headers["content-type"]).toMatch(/javascript/);
+    expect(res.headers["cache-control"]).toBe(IMMUTABLE);
+    expect(res.headers.vary).toMatch(/Accept-Encoding/);
+  });
+
+  it("sends gzip when brotli is not accepted, and the plain file when nothing is", async () => {
+    const gz = await request(app).get("/assets/index-abc123.js").set("Accept-Encoding", "gzip");
+    expect(gz.headers["content-encoding"]).toBe("gzip");
+    const plain = await request(app).get("/assets/index-abc123.js").set("Accept-Encoding", "identity");
+    expect(plain.headers["content-encoding"]).toBeUndefined();
+    expect(plain.text).toContain("console.log('kerf');");
+  });
+
+  it("revalidates index.html and files without a hash, so a new release is seen at once", async () => {
+    for (const address of ["/", "/channels/x/slate", "/favicon.svg"]) {
+      const res = await request(app).get(address);
+      expect(res.status).toBe(200);
+      expect(res.headers["cache-control"]).toBe(REVALIDATE);
+    }
+  });
+
+  it("leaves /api paths to the API", async () => {
+    const res = await request(app).get("/api/nothing");
+    expect(res.status).toBe(404);
+  });
+});
