@@ -114,6 +114,11 @@ test("an editor on a phone filters the rushes and opens a clip as a full-screen 
   await page.goto(`/c/${channelId}/rushes`);
   const clip = page.getByRole("button", { name: "A001_C014_WELD_CLOSEUP.mov" });
   await expect(clip).toBeVisible();
+  // The filters fold under one button on a phone, so the clips come first.
+  const filters = page.getByRole("form", { name: "Filter footage" });
+  await expect(filters).toBeHidden();
+  await page.getByRole("button", { name: "Filters" }).click();
+  await expect(filters.getByRole("button", { name: "Apply filters" })).toBeVisible();
   await fits(page, "rushes");
 
   await clip.click();

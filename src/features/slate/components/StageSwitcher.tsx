@@ -15,16 +15,13 @@ export function StageSwitcher({ shown, counts, onShow }: { shown: Stage; counts:
         <button type="button" className={step} disabled={index === 0} onClick={() => onShow(stages[index - 1]!)} aria-label="Previous stage">
           <span aria-hidden>‹</span>
         </button>
-        <label className="flex min-w-0 flex-1 flex-col">
-          <span className="sr-only">Stage</span>
-          <select value={shown} onChange={(e) => onShow(e.target.value as Stage)} className="w-full min-w-0 rounded-md border border-ply-300 bg-white px-2 py-2 text-sm font-semibold">
-            {stages.map((stage, i) => (
-              <option key={stage} value={stage}>
-                {i + 1} {stageLabels[stage]} ({counts[stage]})
-              </option>
-            ))}
-          </select>
-        </label>
+        <select aria-label="Stage" value={shown} onChange={(e) => onShow(e.target.value as Stage)} className="min-w-0 flex-1 rounded-md border border-ply-300 bg-white px-2 py-2 text-sm font-semibold">
+          {stages.map((stage, i) => (
+            <option key={stage} value={stage}>
+              {i + 1} {stageLabels[stage]} ({counts[stage]})
+            </option>
+          ))}
+        </select>
         <button type="button" className={step} disabled={index === stages.length - 1} onClick={() => onShow(stages[index + 1]!)} aria-label="Next stage">
           <span aria-hidden>›</span>
         </button>
