@@ -1,4 +1,4 @@
-import { useRef, useState, type KeyboardEvent } from "react";
+import { useEffect, useRef, useState } from "react";
 import { NavLink, useLocation, useNavigate } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import { useCurrentChannel, useMe } from "../../lib/session";
@@ -19,11 +19,16 @@ export function SiteMenu() {
   const [openOn, setOpenOn] = useState<string | null>(null);
   const open = openOn === pathname;
   const button = useRef<HTMLButtonElement>(null);
-  const onKey = (event: KeyboardEvent) => {
-    if (event.key !== "Escape") return;
-    setOpenOn(null);
-    button.current?.focus();
-  };
+  useEffect(() => {
+    if (!open) return;
+    const onKey = (event: KeyboardEvent) => {
+      if (event.key !== "Escape") return;
+      setOpenOn(null);
+      button.current?.focus();
+    };
+    window.addEventListener("keydown", onKey);
+    return () => window.removeEventListener("keydown", onKey);
+  }, [open]);
   const me = useMe();
   const channel = useCurrentChannel();
   const signOut = useSignOut();
@@ -47,7 +52,7 @@ export function SiteMenu() {
         </span>
         Menu
       </button>
-      <div id="site-menu" onKeyDown={onKey} className={`${sheet} sm:static sm:z-auto sm:flex sm:flex-1 sm:flex-row sm:flex-wrap sm:items-center sm:gap-4 sm:overflow-visible sm:p-0`}>
+      <div id="site-menu" className={`${sheet} sm:static sm:z-auto sm:flex sm:flex-1 sm:flex-row sm:flex-wrap sm:items-center sm:gap-4 sm:overflow-visible sm:p-0`}>
         <ChannelSwitcher />
         {channel && (
           <nav aria-label="Channel pages" className="flex flex-col gap-1 sm:flex-row sm:flex-wrap">
