@@ -144,7 +144,7 @@ test("an editor on a phone filters the rushes and opens a clip as a full-screen 
 
   // The episode's shoot plan and upload are the crew's on set: the upload hint and "Add shot" fit too.
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
-  await expect(page.getByRole("button", { name: "Add shot" })).toBeVisible();
+  await expect(page.getByRole("button", { name: "Add shot" })).toBeVisible({ timeout: 30_000 });
   await expectFitsPhone(page, "episode's shoot and footage");
   await snap(page, "phone-episode-shoot");
 });
