@@ -17,7 +17,8 @@ interface FrameProps {
 /** Most hints give way to the error; a value-and-unit field keeps its hint (it lists the units the error is about). */
 type HintRule = { keepHint?: boolean };
 
-const controlClass = (error?: string) => `rounded-md border bg-white px-3 py-2 text-base shadow-inner disabled:bg-ply-100 ${error ? "border-alarm-600" : "border-ply-300"}`;
+// min-w-0: a long option or value never pushes its form wider than a phone.
+const controlClass = (error?: string) => `min-w-0 max-w-full rounded-md border bg-white px-3 py-2 text-base shadow-inner disabled:bg-ply-100 ${error ? "border-alarm-600" : "border-ply-300"}`;
 
 /** The ids a field's control points at: its error, and its hint while it shows. */
 function useFrame({ hint, error, keepHint = false }: Omit<FrameProps, "label"> & HintRule) {
@@ -28,7 +29,7 @@ function useFrame({ hint, error, keepHint = false }: Omit<FrameProps, "label"> &
 
 function Frame({ id, label, hint, error, keepHint = false, children }: FrameProps & HintRule & { id: string; children: ReactNode }) {
   return (
-    <div className="flex flex-col gap-1">
+    <div className="flex min-w-0 flex-col gap-1">
       <label htmlFor={id} className="text-sm font-medium text-graphite-700">
         {label}
       </label>
@@ -154,7 +155,7 @@ export function QuantityField({
 }
 
 /** A form's buttons: the one that sends it and, where the form can be closed, Cancel. */
-export function FormActions({ submit, busy, onCancel, className = "flex gap-2" }: { submit: ReactNode; busy: boolean; onCancel?: () => void; className?: string }) {
+export function FormActions({ submit, busy, onCancel, className = "flex flex-wrap gap-2" }: { submit: ReactNode; busy: boolean; onCancel?: () => void; className?: string }) {
   return (
     <div className={className}>
       <Button type="submit" busy={busy}>

@@ -1,7 +1,7 @@
 import path from "node:path";
 import { expect, test, type Locator, type Page } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { hostWithEpisode, uniqueEmail } from "./support";
+import { dealWithReviewLink, hostWithEpisode } from "./support";
 
 const TITLE = "Gantry crane from extrusion offcuts";
 const fixtures = path.resolve(import.meta.dirname, "../fixtures/rushes");
@@ -28,43 +28,6 @@ async function tabUntilFocused(page: Page, target: Locator, limit: number): Prom
     await page.keyboard.press("Tab");
   }
   await expect(target).toBeFocused();
-}
-
-/** A sponsor, a contact, a one-item template and a deal on the episode, through the sponsors' API; answers the review link's address. */
-async function dealWithReviewLink(page: Page, channelId: string, episodeId: string, csrfToken: string): Promise<string> {
-  const base = `/api/channels/${channelId}`;
-  const post = async (url: string, data: object) => {
-    const answer = await page.request.post(`${base}${url}`, { headers: { "x-csrf-token": csrfToken }, data });
-    expect(answer.status(), `${url}: ${await answer.text()}`).toBe(201);
-    return answer.json();
-  };
-  const { sponsor } = await post("/sponsors", { company: "Tarnvik Linear Rail", website: "https://tarnvik.example", notes: "" });
-  const { contact } = await post(`/sponsors/${sponsor.id}/contacts`, { name: "Elin Sandqvist", email: uniqueEmail("a11y-contact"), role: "" });
-  const { template } = await post("/deal-templates", {
-    name: "Single read",
-    items: [{ kind: "script_approval", title: "Sponsor approves the script", anchor: "before_publish", offsetDays: 14, ownerRole: null }],
-  });
-  const { deal } = await post("/deals", {
-    episodeId,
-    sponsorId: sponsor.id,
-    templateId: template.id,
-    state: "signed",
-    placement: "middle",
-    segmentSeconds: 60,
-    talkingPoints: ["Carriages roll on sealed bearings"],
-    link: "https://tarnvik.example/offcut",
-    promoCode: "OFFCUT15",
-    disclosureText: null,
-    exclusivityNotes: null,
-    descriptionCopy: null,
-    script: "This video is sponsored by Tarnvik. Their carriages roll on sealed bearings; use code OFFCUT15 at tarnvik.example/offcut.",
-    contactId: contact.id,
-    hostId: null,
-    goLiveDate: null,
-    money: { fee: 1200, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "go_live", invoiceNumber: null, invoicedOn: null, paidOn: null },
-  });
-  const { url } = await post(`/deals/${deal.id}/review-links`, { deliverableId: deal.deliverables[0].id, contactId: contact.id });
-  return url as string;
 }
 
 test.setTimeout(120_000);

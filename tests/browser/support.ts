@@ -12,6 +12,40 @@ export async function snap(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
 }
 
+/** A phone held upright (390 × 844 CSS pixels), the size every page must fit without sideways scrolling. */
+export const PHONE = { width: 390, height: 844 };
+export const DESK = { width: 1280, height: 800 };
+
+/** What a page shows that does not fit a narrow screen: read in the page, so the report names each culprit. */
+function misfitsOnPage(): string[] {
+  const doc = document.documentElement;
+  const width = doc.clientWidth;
+  const found: string[] = [];
+  if (doc.scrollWidth > width) found.push(`the page scrolls sideways: ${doc.scrollWidth} px wide in ${width} px`);
+  const name = (el: Element) => (el.getAttribute("aria-label") ?? el.textContent ?? "").trim().replace(/\s+/g, " ").slice(0, 60) || el.outerHTML.slice(0, 80);
+  // A box the person can scroll sideways (a wide table) may hold a button out of view; it is not cut.
+  const inSideScroller = (el: Element) => {
+    for (let up = el.parentElement; up && up !== doc; up = up.parentElement) {
+      const overflow = getComputedStyle(up).overflowX;
+      if ((overflow === "auto" || overflow === "scroll") && up.scrollWidth > up.clientWidth) return true;
+    }
+    return false;
+  };
+  for (const el of document.querySelectorAll("button, [role=button], a[class*='rounded-md']")) {
+    const box = el.getBoundingClientRect();
+    const style = getComputedStyle(el);
+    if (box.width === 0 || box.height === 0 || style.visibility === "hidden" || el.closest("[aria-hidden=true], .sr-only")) continue;
+    if (el.scrollWidth > el.clientWidth + 1) found.push(`the label of “${name(el)}” is cut: ${el.scrollWidth} px in ${el.clientWidth} px`);
+    if ((box.left < -1 || box.right > width + 1) && !inSideScroller(el)) found.push(`“${name(el)}” reaches past the screen: ${Math.round(box.left)}–${Math.round(box.right)} px of ${width} px`);
+  }
+  return found;
+}
+
+/** Fails when the page scrolls sideways, or a visible button's label is cut or reaches past the screen's edge. */
+export async function expectFitsPhone(page: Page, label: string): Promise<void> {
+  expect(await page.evaluate(misfitsOnPage), `${label}: what does not fit a ${page.viewportSize()?.width ?? "?"} px screen`).toEqual([]);
+}
+
 export function uniqueEmail(label: string): string {
   return `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.com`;
 }
@@ -118,4 +152,41 @@ export async function hostWithEpisode(page: Page, { host, episode }: HostAndEpis
   }
   expect(made.stage).toBe(episode.stage);
   return { channelId, episodeId: made.id, csrfToken };
+}
+
+/** A sponsor, a contact, a one-item template and a deal on the episode, through the sponsors' API; answers the review link's address. */
+export async function dealWithReviewLink(page: Page, channelId: string, episodeId: string, csrfToken: string): Promise<string> {
+  const base = `/api/channels/${channelId}`;
+  const post = async (url: string, data: object) => {
+    const answer = await page.request.post(`${base}${url}`, { headers: { "x-csrf-token": csrfToken }, data });
+    expect(answer.status(), `${url}: ${await answer.text()}`).toBe(201);
+    return answer.json();
+  };
+  const { sponsor } = await post("/sponsors", { company: "Tarnvik Linear Rail", website: "https://tarnvik.example", notes: "" });
+  const { contact } = await post(`/sponsors/${sponsor.id}/contacts`, { name: "Elin Sandqvist", email: uniqueEmail("a11y-contact"), role: "" });
+  const { template } = await post("/deal-templates", {
+    name: "Single read",
+    items: [{ kind: "script_approval", title: "Sponsor approves the script", anchor: "before_publish", offsetDays: 14, ownerRole: null }],
+  });
+  const { deal } = await post("/deals", {
+    episodeId,
+    sponsorId: sponsor.id,
+    templateId: template.id,
+    state: "signed",
+    placement: "middle",
+    segmentSeconds: 60,
+    talkingPoints: ["Carriages roll on sealed bearings"],
+    link: "https://tarnvik.example/offcut",
+    promoCode: "OFFCUT15",
+    disclosureText: null,
+    exclusivityNotes: null,
+    descriptionCopy: null,
+    script: "This video is sponsored by Tarnvik. Their carriages roll on sealed bearings; use code OFFCUT15 at tarnvik.example/offcut.",
+    contactId: contact.id,
+    hostId: null,
+    goLiveDate: null,
+    money: { fee: 1200, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "go_live", invoiceNumber: null, invoicedOn: null, paidOn: null },
+  });
+  const { url } = await post(`/deals/${deal.id}/review-links`, { deliverableId: deal.deliverables[0].id, contactId: contact.id });
+  return url as string;
 }

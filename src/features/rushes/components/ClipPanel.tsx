@@ -30,12 +30,12 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
     return () => window.removeEventListener("keydown", onKey);
   }, [onClose]);
   return (
-    <aside role="dialog" aria-modal="false" aria-labelledby="clip-heading" className="fixed inset-y-0 right-0 z-20 w-full max-w-xl overflow-x-hidden overflow-y-auto border-l border-ply-300 bg-white p-5 shadow-xl">
+    <aside role="dialog" aria-modal="false" aria-labelledby="clip-heading" className="fixed inset-0 z-40 w-full overflow-x-hidden overflow-y-auto bg-white p-4 shadow-xl sm:left-auto sm:z-20 sm:max-w-xl sm:border-l sm:border-ply-300 sm:p-5">
       <div className="mb-3 flex items-start justify-between gap-3">
-        <h2 id="clip-heading" ref={heading} tabIndex={-1} className="text-lg font-bold break-all">
+        <h2 id="clip-heading" ref={heading} tabIndex={-1} className="min-w-0 text-lg font-bold break-all">
           {clip.data?.fileName ?? "Clip"}
         </h2>
-        <Button tone="quiet" onClick={onClose}>
+        <Button tone="quiet" className="shrink-0" onClick={onClose}>
           Close
         </Button>
       </div>

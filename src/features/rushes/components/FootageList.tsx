@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from "react";
+import { useId, useState, type FormEvent } from "react";
 import { useSearchParams } from "react-router-dom";
 import { filterKeys, footageQuerySchema, footageSearchParams, footageSortLabels, type FootageSort } from "@shared/rushes/footage-query";
 import type { ClipView } from "@shared/rushes/schemas";
@@ -15,7 +15,7 @@ import { formatDay, formatDuration, formatInstant, formatSize } from "../../../l
 import { ClipMediaNote } from "./ClipMedia";
 import { useTimeZone } from "../../../lib/session";
 
-const input = "rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
+const input = "w-full min-w-0 rounded-md border border-ply-300 bg-white px-2 py-1.5 text-sm";
 
 /** The editor's footage list: filters live in the URL, sorting and pages come from the server. */
 export function FootageList({ channelId, episodeId, canDelete }: { channelId: string; episodeId?: string; canDelete: boolean }) {
@@ -179,65 +179,75 @@ function Filters({ channelId, episodeId, values, onApply }: { channelId: string;
     onApply(next);
   };
   const formKey = filterKeys.map((k) => values[k] ?? "").join("|");
+  // On a phone the filters fold away under one button, so the clips come first.
+  const [unfolded, setUnfolded] = useState(false);
+  const set = filterKeys.filter((k) => values[k] && !(k === "episodeId" && episodeId)).length;
+  const formId = useId();
   return (
-    <form key={formKey} onSubmit={submit} aria-label="Filter footage" className="grid gap-2 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid-cols-4 lg:grid-cols-5">
-      {!episodeId && (
-        <Field label="Episode">
-          <select name="episodeId" defaultValue={values.episodeId ?? ""} className={input}>
-            <option value="">Every episode</option>
-            {episodes.data?.map((e) => (
-              <option key={e.id} value={e.id}>
-                {e.title}
+    <>
+      <button type="button" aria-expanded={unfolded} aria-controls={formId} onClick={() => setUnfolded((u) => !u)} className="mb-2 rounded-md border border-ply-300 bg-ply-50 px-3 py-2 text-sm font-semibold hover:bg-ply-200 sm:hidden">
+        {unfolded ? "Hide the filters" : "Filters"}
+        {set > 0 && ` (${set} set)`}
+      </button>
+      <form id={formId} key={formKey} onSubmit={submit} aria-label="Filter footage" className={`${unfolded ? "grid" : "hidden"} grid-cols-1 gap-2 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid sm:grid-cols-4 lg:grid-cols-5`}>
+        {!episodeId && (
+          <Field label="Episode">
+            <select name="episodeId" defaultValue={values.episodeId ?? ""} className={input}>
+              <option value="">Every episode</option>
+              {episodes.data?.map((e) => (
+                <option key={e.id} value={e.id}>
+                  {e.title}
+                </option>
+              ))}
+            </select>
+          </Field>
+        )}
+        {chosenEpisode && <EpisodeFilters channelId={channelId} episodeId={chosenEpisode} values={values} />}
+        <Field label="Tag">
+          <input name="tag" defaultValue={values.tag ?? ""} className={input} placeholder="e.g. wiring" />
+        </Field>
+        <Field label="Rating">
+          <select name="rating" defaultValue={values.rating ?? ""} className={input}>
+            <option value="">Any rating</option>
+            {clipRatings.map((r) => (
+              <option key={r} value={r}>
+                {clipRatingLabels[r]}
+              </option>
+            ))}
+            <option value="unrated">Not rated yet</option>
+          </select>
+        </Field>
+        <Field label="Kind">
+          <select name="kind" defaultValue={values.kind ?? ""} className={input}>
+            <option value="">Any kind</option>
+            {shotKinds.map((k) => (
+              <option key={k} value={k}>
+                {shotKindLabels[k]}
               </option>
             ))}
           </select>
         </Field>
-      )}
-      {chosenEpisode && <EpisodeFilters channelId={channelId} episodeId={chosenEpisode} values={values} />}
-      <Field label="Tag">
-        <input name="tag" defaultValue={values.tag ?? ""} className={input} placeholder="e.g. wiring" />
-      </Field>
-      <Field label="Rating">
-        <select name="rating" defaultValue={values.rating ?? ""} className={input}>
-          <option value="">Any rating</option>
-          {clipRatings.map((r) => (
-            <option key={r} value={r}>
-              {clipRatingLabels[r]}
-            </option>
-          ))}
-          <option value="unrated">Not rated yet</option>
-        </select>
-      </Field>
-      <Field label="Kind">
-        <select name="kind" defaultValue={values.kind ?? ""} className={input}>
-          <option value="">Any kind</option>
-          {shotKinds.map((k) => (
-            <option key={k} value={k}>
-              {shotKindLabels[k]}
-            </option>
-          ))}
-        </select>
-      </Field>
-      <Field label="Marks">
-        <select name="hasMarks" defaultValue={values.hasMarks ?? ""} className={input}>
-          <option value="">With or without</option>
-          <option value="yes">Has marks</option>
-          <option value="no">No marks yet</option>
-        </select>
-      </Field>
-      <Field label="Camera">
-        <input name="camera" defaultValue={values.camera ?? ""} className={input} placeholder="e.g. A cam" />
-      </Field>
-      <Field label="Text in notes">
-        <input name="q" type="search" defaultValue={values.q ?? ""} className={input} placeholder="e.g. fails" />
-      </Field>
-      <div className="flex items-end gap-2">
-        <Button type="submit">Apply filters</Button>
-        <Button type="button" tone="quiet" onClick={() => onApply(Object.fromEntries(filterKeys.filter((k) => !(k === "episodeId" && episodeId)).map((k) => [k, undefined])))}>
-          Clear
-        </Button>
-      </div>
-    </form>
+        <Field label="Marks">
+          <select name="hasMarks" defaultValue={values.hasMarks ?? ""} className={input}>
+            <option value="">With or without</option>
+            <option value="yes">Has marks</option>
+            <option value="no">No marks yet</option>
+          </select>
+        </Field>
+        <Field label="Camera">
+          <input name="camera" defaultValue={values.camera ?? ""} className={input} placeholder="e.g. A cam" />
+        </Field>
+        <Field label="Text in notes">
+          <input name="q" type="search" defaultValue={values.q ?? ""} className={input} placeholder="e.g. fails" />
+        </Field>
+        <div className="flex flex-wrap items-end gap-2">
+          <Button type="submit">Apply filters</Button>
+          <Button type="button" tone="quiet" onClick={() => onApply(Object.fromEntries(filterKeys.filter((k) => !(k === "episodeId" && episodeId)).map((k) => [k, undefined])))}>
+            Clear
+          </Button>
+        </div>
+      </form>
+    </>
   );
 }
 
@@ -272,7 +282,7 @@ function EpisodeFilters({ channelId, episodeId, values }: { channelId: string; e
 
 function Field({ label, children }: { label: string; children: React.ReactNode }) {
   return (
-    <label className="flex flex-col gap-1 text-xs font-medium text-graphite-700">
+    <label className="flex min-w-0 flex-col gap-1 text-xs font-medium text-graphite-700">
       {label}
       {children}
     </label>

@@ -58,7 +58,7 @@ function ShootDaySheet({ channelId, detail: { shootDay, shots, missing, episodeT
         </h2>
         <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white text-sm">
           {done.map((shot) => (
-            <li key={shot.id} className="flex justify-between px-4 py-2">
+            <li key={shot.id} className="flex justify-between gap-3 px-4 py-2">
               <span>{shot.description}</span>
               <span className="text-graphite-500">
                 {shotStatusLabels[shot.status]} · {shot.clipCount} {shot.clipCount === 1 ? "clip" : "clips"}

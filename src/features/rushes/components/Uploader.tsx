@@ -89,7 +89,7 @@ export function Uploader({ channelId, episodeId }: { channelId: string; episodeI
           setDragging(false);
           take(e.dataTransfer.files);
         }}
-        className={`flex flex-wrap items-center gap-3 rounded-md border-2 border-dashed p-4 ${dragging ? "border-amber-cut bg-ply-100" : "border-ply-300"}`}
+        className={`relative flex flex-wrap items-center gap-3 rounded-md border-2 border-dashed p-4 ${dragging ? "border-amber-cut bg-ply-100" : "border-ply-300"}`}
       >
         <label className="cursor-pointer rounded-md bg-rust-600 px-4 py-2 text-sm font-semibold text-white focus-within:outline-2 focus-within:outline-offset-2 focus-within:outline-graphite-900 hover:bg-rust-700">
           Choose camera files

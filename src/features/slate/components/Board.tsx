@@ -29,6 +29,7 @@ import { gateProblemsOf, useMoveEpisode, type MoveVariables } from "../api/move-
 import { CardFace, SortableEpisodeCard } from "./EpisodeCard";
 import { GateDialog } from "./GateDialog";
 import { boardKeyboardCoordinates } from "./keyboard-coordinates";
+import { StageSwitcher } from "./StageSwitcher";
 
 type Columns = Record<Stage, string[]>;
 
@@ -70,6 +71,9 @@ export function Board({ channelId, board, canMove }: { channelId: string; board:
   const [problem, setProblem] = useState<string | null>(null);
   const [settled, setSettled] = useState("");
   const [gate, setGate] = useState<{ variables: MoveVariables; problems: GateProblem[] } | null>(null);
+  // A phone shows one stage: the one picked, else the first that holds an episode.
+  const [picked, setPicked] = useState<Stage | null>(null);
+  const shown = picked ?? stages.find((s) => columns[s].length > 0) ?? stages[0];
 
   // After a card crosses into another column the layout shifts under the pointer; holding the last
   // target for a frame keeps the card from bouncing between the two columns (dnd-kit's own recipe).
@@ -213,9 +217,10 @@ export function Board({ channelId, board, canMove }: { channelId: string; board:
         }}
         accessibility={{ announcements, screenReaderInstructions: { draggable: instructions } }}
       >
-        <div className="flex gap-3 overflow-x-auto pb-4" data-testid="board">
+        <StageSwitcher shown={shown} counts={Object.fromEntries(stages.map((s) => [s, columns[s].length])) as Record<Stage, number>} onShow={setPicked} />
+        <div className="relative flex gap-3 overflow-x-auto pb-4" data-testid="board">
           {stages.map((stage, index) => (
-            <Column key={stage} stage={stage} number={index + 1} ids={columns[stage]} byId={byId} channelId={channelId} flags={board.flags} canMove={canMove} />
+            <Column key={stage} stage={stage} number={index + 1} current={stage === shown} ids={columns[stage]} byId={byId} channelId={channelId} flags={board.flags} canMove={canMove} />
           ))}
         </div>
         <DragOverlay>{active ? <CardFace channelId={channelId} card={active} extraFlags={board.flags[active.id]} withHandle={false} lifted /> : null}</DragOverlay>
@@ -240,7 +245,7 @@ export function Board({ channelId, board, canMove }: { channelId: string; board:
 const FIRST_CARDS = 8;
 const MORE_CARDS = 16;
 
-function Column({ stage, number, ids, byId, channelId, flags, canMove }: { stage: Stage; number: number; ids: string[]; byId: Map<string, BoardCard>; channelId: string; flags: BoardData["flags"]; canMove: boolean }) {
+function Column({ stage, number, current, ids, byId, channelId, flags, canMove }: { stage: Stage; number: number; current: boolean; ids: string[]; byId: Map<string, BoardCard>; channelId: string; flags: BoardData["flags"]; canMove: boolean }) {
   const { setNodeRef, isOver } = useDroppable({ id: stage, data: { type: "column", count: ids.length } });
   const [shown, setShown] = useState(FIRST_CARDS);
   const list = useRef<HTMLUListElement | null>(null);
@@ -257,7 +262,7 @@ function Column({ stage, number, ids, byId, channelId, flags, canMove }: { stage
   }, [hidden]);
   const visible = hidden === 0 ? ids : ids.slice(0, shown);
   return (
-    <section aria-labelledby={`lane-${stage}`} className={`flex min-w-[12.5rem] flex-1 basis-0 flex-col rounded-lg p-2 ${isOver ? "bg-amber-cut/20" : "bg-ply-200/70"}`}>
+    <section aria-labelledby={`lane-${stage}`} className={`${current ? "flex" : "hidden sm:flex"} relative min-w-[12.5rem] flex-1 basis-0 flex-col rounded-lg p-2 ${isOver ? "bg-amber-cut/20" : "bg-ply-200/70"}`}>
       <h2 id={`lane-${stage}`} className="flex items-baseline justify-between px-2 py-1 text-sm font-semibold text-graphite-700">
         <span>
           <span className="mr-1 text-graphite-500">{number}</span> {stageLabels[stage]}

@@ -21,10 +21,11 @@ export function Dialog({ open, title, onClose, children, wide = false }: { open:
         event.preventDefault();
         onClose();
       }}
-      className={`m-auto w-[calc(100%-2rem)] rounded-xl border border-ply-300 bg-white p-0 text-graphite-900 shadow-xl backdrop:bg-graphite-900/40 ${wide ? "max-w-3xl" : "max-w-lg"}`}
+      // A phone gives the whole screen to the dialog; a desk shows it as a card over the page.
+      className={`m-0 h-full max-h-none w-full max-w-none border-ply-300 bg-white p-0 text-graphite-900 shadow-xl backdrop:bg-graphite-900/40 sm:m-auto sm:h-auto sm:max-h-[calc(100%-2rem)] sm:w-[calc(100%-2rem)] sm:rounded-xl sm:border ${wide ? "sm:max-w-3xl" : "sm:max-w-lg"}`}
     >
       {open && (
-        <div className="p-6">
+        <div className="p-4 sm:p-6">
           <h2 id="dialog-title" className="mb-4 text-lg font-bold">
             {title}
           </h2>

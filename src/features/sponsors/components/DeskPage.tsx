@@ -79,11 +79,11 @@ function Desk({ channelId }: { channelId: string }) {
 function FilterSelect({ label, value, onChange, options }: { label: string; value: string; onChange: (value: string) => void; options: { value: string; label: string }[] }) {
   const id = `desk-filter-${label.toLowerCase()}`;
   return (
-    <div className="flex items-center gap-2 text-sm">
+    <div className="flex min-w-0 max-w-full items-center gap-2 text-sm">
       <label htmlFor={id} className="font-medium text-graphite-700">
         {label}
       </label>
-      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className="rounded-md border border-ply-300 bg-white px-2 py-1">
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className="min-w-0 max-w-full rounded-md border border-ply-300 bg-white px-2 py-1">
         <option value="">All</option>
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -104,7 +104,7 @@ function Group({ channelId, group, items, onSaved }: { channelId: string; group:
       </h2>
       <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white">
         {items.map((item) => (
-          <li key={item.id} className="grid gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
+          <li key={item.id} className="grid grid-cols-1 gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
             <span className={`text-sm font-semibold ${group === "overdue" ? "text-alarm-600" : ""}`}>
               {formatDay(item.dueDate) || "No date"}
               {item.daysLate > 0 && <span className="block text-xs font-normal">{item.daysLate} days late</span>}

@@ -28,7 +28,7 @@ import { SegmentPlayer, type SegmentPlayerHandle } from "./SegmentPlayer";
 
 function Frame({ children }: { children: ReactNode }) {
   return (
-    <main className="min-h-screen bg-ply-100 px-4 py-8">
+    <main className="min-h-screen bg-ply-100 px-4 py-4 sm:py-8">
       <div className="mx-auto flex max-w-3xl flex-col gap-6">
         <Wordmark className="text-xl" />
         {children}
@@ -40,7 +40,7 @@ function Frame({ children }: { children: ReactNode }) {
 
 function Closed({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <section className="rounded-xl border border-ply-300 bg-white p-8 shadow-sm">
+    <section className="rounded-xl border border-ply-300 bg-white p-5 shadow-sm sm:p-8">
       <h1 className="mb-3 text-xl font-bold">{title}</h1>
       <div className="text-graphite-700">{children}</div>
     </section>
@@ -126,16 +126,16 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
   });
   return (
     <>
-      <header className="rounded-xl border border-ply-300 bg-white p-6 shadow-sm">
+      <header className="rounded-xl border border-ply-300 bg-white p-4 sm:p-6 shadow-sm">
         <p className="text-sm text-graphite-500">
           {page.channelName} · for {page.contactName} of {page.company}
         </p>
-        <h1 className="mt-1 text-2xl font-bold">Review: {page.deliverableTitle}</h1>
+        <h1 className="mt-1 text-xl font-bold break-words sm:text-2xl">Review: {page.deliverableTitle}</h1>
         <p className="mt-1 text-graphite-700">
           {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {formatInstant(page.expiresAt, timeZone)}.
         </p>
       </header>
-      <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+      <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-4 sm:p-6">
         <h2 id="script-heading" className="mb-2 text-lg font-semibold">
           The script
         </h2>
@@ -143,11 +143,11 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
           Reads in about {formatSeconds(page.estimatedSeconds)}; the contract asks for {formatSeconds(page.segmentSeconds)}.
         </p>
         <p className="whitespace-pre-wrap rounded-md bg-ply-50 p-4 leading-relaxed">{page.script || "The script isn't written yet."}</p>
-        <dl className="mt-4 grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[10rem_1fr]">
+        <dl className="mt-4 grid grid-cols-1 gap-x-4 gap-y-1 text-sm sm:grid-cols-[10rem_1fr]">
           <dt className="text-graphite-500">Talking points</dt>
           <dd>{page.talkingPoints.length ? page.talkingPoints.join(" · ") : "None listed"}</dd>
           <dt className="text-graphite-500">Link</dt>
-          <dd>{page.link ?? "None"}</dd>
+          <dd className="break-all">{page.link ?? "None"}</dd>
           <dt className="text-graphite-500">Promo code</dt>
           <dd>{page.promoCode ?? "None"}</dd>
           <dt className="text-graphite-500">Disclosure</dt>
@@ -155,7 +155,7 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
         </dl>
       </section>
       {page.cutUrl && page.segment && <SegmentReview token={token} url={page.cutUrl} segment={page.segment} contractSeconds={page.segmentSeconds} pins={page.pins} />}
-      <form onSubmit={onSubmit} noValidate aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+      <form onSubmit={onSubmit} noValidate aria-labelledby="decision-heading" className="rounded-xl border border-ply-300 bg-white p-4 sm:p-6">
         <h2 id="decision-heading" className="mb-3 text-lg font-semibold">
           Your decision
         </h2>
@@ -219,7 +219,7 @@ function SegmentReview({ token, url, segment, contractSeconds, pins }: { token: 
   const onSubmit = (event: FormEvent) => void form.handleSubmit(send)(event);
   const length = segment.endSeconds - segment.startSeconds;
   return (
-    <section aria-labelledby="cut-heading" className="rounded-xl border border-ply-300 bg-white p-6">
+    <section aria-labelledby="cut-heading" className="rounded-xl border border-ply-300 bg-white p-4 sm:p-6">
       <h2 id="cut-heading" className="mb-1 text-lg font-semibold">
         {segment.wholeFile ? "The draft cut" : "Your segment in the cut"}
       </h2>

@@ -42,8 +42,8 @@ function Directory({ channelId, canEdit }: { channelId: string; canEdit: boolean
   const select = (id: string) => setParams({ sponsor: id }, { replace: true });
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[18rem_1fr]">
-      <div className="flex flex-col gap-4">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[18rem_1fr]">
+      <div className="flex min-w-0 flex-col gap-4">
         <QueryState
           query={sponsors}
           loading="Loading sponsors…"
@@ -125,7 +125,7 @@ function SponsorPanel({ channelId, sponsorId, canEdit }: { channelId: string; sp
 function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string; sponsor: SponsorDetail; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
   return (
-    <article aria-label={sponsor.company} className="flex flex-col gap-5 rounded-lg border border-ply-300 bg-white p-5">
+    <article aria-label={sponsor.company} className="flex min-w-0 flex-col gap-5 rounded-lg border border-ply-300 bg-white p-4 sm:p-5">
       {editing ? (
         <EditSponsorForm channelId={channelId} sponsor={sponsor} onDone={() => setEditing(false)} />
       ) : (
@@ -154,32 +154,34 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
         {sponsor.deals.length === 0 ? (
           <p className="text-sm text-graphite-500">No deals yet. Make one from the episode's page.</p>
         ) : (
-          <table className="w-full text-left text-sm">
-            <thead className="text-xs uppercase tracking-wide text-graphite-500">
-              <tr>
-                <th className="py-1">Episode</th>
-                <th className="py-1">State</th>
-                <th className="py-1">Placement</th>
-                <th className="py-1">Publish</th>
-                {sponsor.deals.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-ply-200">
-              {sponsor.deals.map((deal) => (
-                <tr key={deal.id}>
-                  <td className="py-2">
-                    <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}#sponsor-deals`}>
-                      {deal.episodeTitle}
-                    </Link>
-                  </td>
-                  <td className="py-2">{dealStateLabels[deal.state]}</td>
-                  <td className="py-2">{placementLabels[deal.placement]}</td>
-                  <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
-                  {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="text-xs uppercase tracking-wide text-graphite-500">
+                <tr>
+                  <th className="py-1">Episode</th>
+                  <th className="py-1">State</th>
+                  <th className="py-1">Placement</th>
+                  <th className="py-1">Publish</th>
+                  {sponsor.deals.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody className="divide-y divide-ply-200">
+                {sponsor.deals.map((deal) => (
+                  <tr key={deal.id}>
+                    <td className="py-2">
+                      <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}#sponsor-deals`}>
+                        {deal.episodeTitle}
+                      </Link>
+                    </td>
+                    <td className="py-2">{dealStateLabels[deal.state]}</td>
+                    <td className="py-2">{placementLabels[deal.placement]}</td>
+                    <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
+                    {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
         )}
       </section>
     </article>
@@ -208,7 +210,7 @@ function EditSponsorForm({ channelId, sponsor, onDone }: { channelId: string; sp
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Edit sponsor" className="flex flex-col gap-3">
       {formError && <Notice kind="error">{formError}</Notice>}
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <TextField label="Company" {...form.register("company")} error={form.formState.errors.company?.message} />
         <TextField label="Website" {...form.register("website")} error={form.formState.errors.website?.message} />
       </div>
@@ -266,7 +268,7 @@ function Contacts({ channelId, sponsor, canEdit }: { channelId: string; sponsor:
         </ul>
       )}
       {canEdit && (
-        <form onSubmit={onSubmit} noValidate aria-label="Add a contact" className="grid items-start gap-3 sm:grid-cols-[1fr_1fr_1fr_auto]">
+        <form onSubmit={onSubmit} noValidate aria-label="Add a contact" className="grid grid-cols-1 items-start gap-3 sm:grid-cols-[1fr_1fr_1fr_auto]">
           {formError && (
             <div className="sm:col-span-4">
               <Notice kind="error">{formError}</Notice>
