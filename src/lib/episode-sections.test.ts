@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { stages } from "@shared/slate/stages";
 import { openPart, partFromFragment } from "./episode-sections";
 
-const parts = ["overview", "schedule", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "history", "activity"];
+const parts = ["overview", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "history", "activity"];
 
 describe("the part the episode page opens on", () => {
   it.each([
@@ -39,6 +39,7 @@ describe("old links with a #fragment", () => {
   it("land on the part of that name, or on its new name", () => {
     expect(partFromFragment("#bench", parts)).toBe("bench");
     expect(partFromFragment("#shoot-footage", parts)).toBe("shoot");
+    expect(partFromFragment("#schedule", parts)).toBe("overview");
     expect(partFromFragment("#main", parts)).toBeUndefined();
     expect(partFromFragment("", parts)).toBeUndefined();
   });

@@ -20,7 +20,7 @@ export interface EpisodeSection {
  * The part of the episode page each stage's work happens in, so the page opens where the team is:
  * the question while it is a challenge, the sheet while the test is planned, the runs at the bench,
  * the days and shots on set, the footage in the edit, the deals for the sponsor read, and the
- * overview (with its dates) once it is being published.
+ * overview with its dates once it is being published.
  */
 const partForStage: Record<Stage, string> = {
   challenge: "overview",
@@ -40,7 +40,7 @@ export function openPart(stage: Stage, named: string | undefined, parts: readonl
 }
 
 /** Old links pointed at a section with a #fragment; the names they used, and what each part is now. */
-const renamedParts: Record<string, string> = { "shoot-footage": "shoot" };
+const renamedParts: Record<string, string> = { "shoot-footage": "shoot", schedule: "overview", activity: "comments" };
 
 /** The part an old `#fragment` link meant, if it names one of the page's parts. */
 export function partFromFragment(hash: string, parts: readonly string[]): string | undefined {

@@ -41,8 +41,21 @@ interface Part {
 function partsOf({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }): Part[] {
   const canEdit = roleMay(role, "episodes", "W");
   return [
-    { id: "overview", title: "Overview", render: () => <OverviewSection channelId={channelId} detail={detail} canEdit={canEdit} /> },
-    { id: "schedule", title: "Schedule", render: () => <ScheduleSection channelId={channelId} detail={detail} canEdit={canEdit} /> },
+    {
+      id: "overview",
+      title: "Overview and dates",
+      render: () => (
+        <div className="flex flex-col gap-8">
+          <OverviewSection channelId={channelId} detail={detail} canEdit={canEdit} />
+          <section id="schedule" aria-labelledby="schedule-heading">
+            <h3 id="schedule-heading" className="mb-3 font-semibold">
+              Schedule
+            </h3>
+            <ScheduleSection channelId={channelId} detail={detail} canEdit={canEdit} />
+          </section>
+        </div>
+      ),
+    },
     ...sections.map(({ id, title, Component }) => ({ id, title, render: () => <Component channelId={channelId} episodeId={episodeId} role={role} /> })),
     { id: "history", title: "History", render: () => <HistorySection channelId={channelId} episodeId={episodeId} /> },
     { id: "comments", title: "Comments", render: () => <ActivitySection channelId={channelId} episodeId={episodeId} /> },
