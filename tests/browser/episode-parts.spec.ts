@@ -32,6 +32,8 @@ async function expectNoSidewaysScroll(page: Page, label: string) {
   expect.soft(found.scroll, `${label}: the page is ${found.scroll} px wide in a ${found.client} px window; past the edge: ${found.past.join(", ")}`).toBeLessThanOrEqual(found.client);
 }
 
+test.use({ viewport: { width: 1280, height: 800 } });
+
 const rail = (page: Page) => page.getByRole("navigation", { name: "Parts of the episode" });
 
 test("an episode in Build opens on its bench runs, the rail switches parts in the address, and a link lands on its part", async ({ page }) => {
