@@ -2,17 +2,19 @@ import type { EpisodeSection } from "../lib/episode-sections";
 import { BenchSection } from "../features/bench/components/BenchSection";
 import { BuildLogSection } from "../features/bench/components/BuildLogSection";
 import { TestPlanSheet } from "../features/bench/components/TestPlanSheet";
-import { EpisodeRushes } from "../features/rushes/components/EpisodeRushes";
+import { EpisodeFootage, EpisodeShoot } from "../features/rushes/components/EpisodeRushes";
 import { EpisodeDeals } from "../features/sponsors/components/EpisodeDeals";
 
 /**
- * The sections features add to the episode page, in the order of the episode's path. The slate's
- * own sections (overview, schedule, history) come first; each feature adds one line here.
+ * The parts features add to the episode page, in the order of the episode's path; each id is the
+ * part's name in the page's address. The slate's own parts (overview, dates) come first and its
+ * history and comments last; each feature adds one line here.
  */
 export const episodeSections: EpisodeSection[] = [
   { id: "test-plan", title: "Test plan", Component: TestPlanSheet },
   { id: "bench", title: "Bench runs", Component: BenchSection },
   { id: "build-log", title: "Build log", Component: BuildLogSection },
-  { id: "shoot-footage", title: "Shoot and footage", Component: EpisodeRushes },
+  { id: "shoot", title: "Shoot days and shots", Component: EpisodeShoot },
+  { id: "footage", title: "Footage", Component: EpisodeFootage },
   { id: "sponsor-deals", title: "Sponsor deals", Component: EpisodeDeals },
 ];

@@ -48,7 +48,7 @@ export const router = createBrowserRouter([
                       { index: true, element: <HomeRedirect /> },
                       { path: "slate", lazy: page(() => import("../features/slate/components/SlatePage"), (m) => m.SlatePage) },
                       { path: "slate/schedule", lazy: page(() => import("../features/slate/components/StageLengthsPage"), (m) => m.StageLengthsPage) },
-                      { path: "episodes/:episodeId", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },
+                      { path: "episodes/:episodeId/:part?", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },
                       { path: "members", lazy: page(() => import("../features/channels/components/MembersPage"), (m) => m.MembersPage) },
                       { path: "shelf", lazy: page(() => import("../features/bench/components/ShelfPage"), (m) => m.ShelfPage) },
                       { path: "shelf/:partId", lazy: page(() => import("../features/bench/components/PartPage"), (m) => m.PartPage) },

@@ -1,5 +1,6 @@
 import type { ComponentType } from "react";
 import type { Role } from "@shared/access/roles";
+import type { Stage } from "@shared/slate/stages";
 
 /** What every section of the episode page receives. */
 export interface EpisodeSectionProps {
@@ -13,4 +14,37 @@ export interface EpisodeSection {
   id: string;
   title: string;
   Component: ComponentType<EpisodeSectionProps>;
+}
+
+/**
+ * The part of the episode page each stage's work happens in, so the page opens where the team is:
+ * the question while it is a challenge, the sheet while the test is planned, the runs at the bench,
+ * the days and shots on set, the footage in the edit, the deals for the sponsor read, and the
+ * overview with its dates once it is being published.
+ */
+const partForStage: Record<Stage, string> = {
+  challenge: "overview",
+  test_plan: "test-plan",
+  build: "bench",
+  shoot: "shoot",
+  edit: "footage",
+  sponsor_read: "sponsor-deals",
+  publish: "overview",
+};
+
+/** The part to open: the one the address names if the page has it, else the stage's own, else the first. */
+export function openPart(stage: Stage, named: string | undefined, parts: readonly string[]): string {
+  if (named && parts.includes(named)) return named;
+  const own = partForStage[stage];
+  return parts.includes(own) ? own : (parts[0] ?? own);
+}
+
+/** Old links pointed at a section with a #fragment; the names they used, and what each part is now. */
+const renamedParts: Record<string, string> = { "shoot-footage": "shoot", schedule: "overview", activity: "comments" };
+
+/** The part an old `#fragment` link meant, if it names one of the page's parts. */
+export function partFromFragment(hash: string, parts: readonly string[]): string | undefined {
+  const name = hash.replace(/^#/, "");
+  const part = renamedParts[name] ?? name;
+  return parts.includes(part) ? part : undefined;
 }

@@ -43,9 +43,13 @@ test("the slate, an episode, its test plan, the desk and a sponsor's review link
 
   await page.getByRole("link", { name: TITLE }).click();
   await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
-  await expect(page.locator("#sponsor-deals").getByRole("heading", { name: "Tarnvik Linear Rail" })).toBeVisible();
-  await expect(page.getByRole("form", { name: "Test plan" })).toBeVisible();
   await expectNoSeriousA11yViolations(page, "episode");
+  const parts = page.getByRole("navigation", { name: "Parts of the episode" });
+  await parts.getByRole("link", { name: "Sponsor deals" }).click();
+  await expect(page.locator("#sponsor-deals").getByRole("heading", { name: "Tarnvik Linear Rail" })).toBeVisible();
+  await expectNoSeriousA11yViolations(page, "episode's sponsor deals");
+  await parts.getByRole("link", { name: "Test plan" }).click();
+  await expect(page.getByRole("form", { name: "Test plan" })).toBeVisible();
 
   // The test plan sheet with something on it: the plan, one criterion and one hazard.
   const plan = page.getByRole("form", { name: "Test plan" });
@@ -53,12 +57,14 @@ test("the slate, an episode, its test plan, the desk and a sponsor's review link
   await plan.getByLabel("Method").fill("Hang the load mid-span, read the dial gauge after a minute.");
   await plan.getByRole("button", { name: "Save the test plan" }).click();
   await expect(page.getByText("Test plan saved.")).toBeVisible();
+  await page.getByRole("button", { name: "Add a criterion" }).click();
   const criterion = page.getByRole("form", { name: "New criterion" });
   await criterion.getByLabel("Metric").selectOption("thrust_to_weight");
   await criterion.getByLabel("Threshold", { exact: true }).fill("1");
   await criterion.getByLabel("Unit of threshold").fill("1");
   await criterion.getByRole("button", { name: "Add criterion" }).click();
   await expect(page.getByText("Thrust-to-weight ≥ 1", { exact: true })).toBeVisible();
+  await page.getByRole("button", { name: "Add a hazard" }).click();
   const hazard = page.getByRole("form", { name: "New hazard" });
   await hazard.getByLabel("Hazard").selectOption("spinning_blades");
   await hazard.getByRole("button", { name: "Add hazard" }).click();
@@ -90,11 +96,11 @@ test("camera files upload by keyboard alone, and the rushes list passes axe-core
   await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
   const picker = page.getByLabel("Camera files");
 
-  // By keyboard alone: Tab to the page's own contents, Enter on "Shoot and footage", then Tab on to the file control.
-  const onThisPage = page.getByRole("navigation", { name: "On this page" }).getByRole("link", { name: "Shoot and footage" });
-  await tabUntilFocused(page, onThisPage, 40);
+  // By keyboard alone: Tab to the episode's parts, Enter on "Footage", then Tab on to the file control.
+  const footagePart = page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Footage" });
+  await tabUntilFocused(page, footagePart, 40);
   await page.keyboard.press("Enter");
-  await expect(page).toHaveURL(/#shoot-footage$/);
+  await expect(page).toHaveURL(/\/footage$/);
   await tabUntilFocused(page, picker, 40);
   await expect(picker).toBeFocused();
 

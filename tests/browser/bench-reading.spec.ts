@@ -36,7 +36,7 @@ test("the host reads a criterion against its run, switches a unit, finds a part 
   await benchThroughApi(page, channelId, episodeId, csrfToken);
 
   // The run card reads the criterion in its own unit: 400 gf = 3.92 N (NIST SP 811 (2008), B.8: 1 gf = 0.00980665 N).
-  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/bench`);
   const run = page.getByRole("listitem", { name: "Run 1: Rowan on 4S" });
   // The episode page's first visit fetches its sections' code: on a busy machine that can take a while.
   await expect(run).toBeVisible({ timeout: 30_000 });
@@ -53,6 +53,7 @@ test("the host reads a criterion against its run, switches a unit, finds a part 
   await snap(page, "bench-reading-01-criterion-line");
 
   // A photo on the iteration: its thumbnail loads from storage through its signed link.
+  await page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Build log" }).click();
   const iteration = page.getByRole("listitem", { name: "Iteration 1" });
   await expect(iteration.getByText("No photos of this iteration yet.")).toBeVisible();
   await iteration.getByLabel("Add a photo").setInputFiles(photo);

@@ -66,9 +66,15 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   await plan.getByRole("button", { name: "Save the test plan" }).click();
   await expect(page.getByText("Test plan saved.")).toBeVisible();
 
+  // Each add form opens from its button and closes once its entry is saved.
+  const addCriterionButton = page.getByRole("button", { name: "Add a criterion" });
+  await addCriterionButton.click();
   const newCriterion = page.getByRole("form", { name: "New criterion" });
   await addCriterion(newCriterion, "thrust_to_weight", "1", "1");
   await expect(page.getByText("Thrust-to-weight ≥ 1", { exact: true })).toBeVisible();
+  await expect(newCriterion).toHaveCount(0);
+  await expect(addCriterionButton).toBeFocused();
+  await addCriterionButton.click();
 
   // A criterion in the wrong unit: thrust per watt against grams is refused on the unit, with the units that fit.
   await addCriterion(newCriterion, "thrust_per_watt", "5", "g");
@@ -80,6 +86,8 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   await expect(page.getByText("Thrust per watt ≥ 5 gf/W", { exact: true })).toBeVisible();
 
   // Safety: a listed hazard with its usual caution, checked by the host.
+  const addHazardButton = page.getByRole("button", { name: "Add a hazard" });
+  await addHazardButton.click();
   const hazard = page.getByRole("form", { name: "New hazard" });
   await hazard.getByLabel("Hazard").selectOption("spinning_blades");
   await expect(hazard.getByText("A propeller or fan blade can cut deeply")).toBeVisible();
@@ -88,6 +96,8 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   await blades.getByRole("button", { name: "Mark as checked by me" }).click();
   await expect(blades.getByText("Checked by Saga Ellingsen")).toBeVisible();
   // A listed hazard goes on the plan once; removing one asks first.
+  await expect(hazard).toHaveCount(0);
+  await addHazardButton.click();
   await expect(hazard.locator('option[value="spinning_blades"]')).toHaveCount(0);
   await hazard.getByLabel("Hazard").selectOption("custom");
   await hazard.getByLabel("Name of the hazard").fill("Hot glue gun");
@@ -108,6 +118,8 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   // Own derivations: Alder 11.1 V × 8.2 A = 91.02 W, 380 gf / 91.02 W = 4.17 gf/W (fail);
   // Birch 11.1 V × 9.8 A = 108.78 W, 6.99 gf/W; 760 gf over 400 g + 2.4 oz (68.04 g) = 1.62 (pass);
   // Cedar 12 V × 1.6 A = 19.2 W, 95 gf / 19.2 W = 4.95 gf/W (fail), 95 gf over 560 g = 0.17 (fail).
+  const parts = page.getByRole("navigation", { name: "Parts of the episode" });
+  await parts.getByRole("link", { name: "Bench runs" }).click();
   let form = await enterRun(page, { label: "Alder on 3S", part: "Alder 2212 motor (Motor)", supply: "lipo", cells: "3", readings: [["Voltage", "11.1", "V"], ["Current", "8200", "mA"], ["Thrust", "380", "gf"]] });
   await expect(form.getByText("3S LiPo: 11.1 V nominal, 12.6 V full")).toBeVisible();
   await form.getByRole("button", { name: "Save run" }).click();
@@ -152,6 +164,8 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   await snap(page, "bench-05-over-rated");
 
   // The build log takes its thrust from the chosen run and its mass from the scale.
+  await parts.getByRole("link", { name: "Build log" }).click();
+  await page.getByRole("button", { name: "Log an iteration" }).click();
   const iteration = page.getByRole("form", { name: "New iteration" });
   await iteration.getByLabel("What changed").fill("First frame with the Birch motor");
   await iteration.getByLabel("All-up mass", { exact: true }).fill("1.2");

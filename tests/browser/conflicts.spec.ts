@@ -18,8 +18,8 @@ test("two people edit the same deal and test plan: the second save shows the fir
   );
   const producer = await signIn(browser, (await member(channelId, "Per Aune", "producer")).email);
   const episodePage = `/c/${channelId}/episodes/${episodeId}`;
-  await page.goto(episodePage);
-  await producer.goto(episodePage);
+  await page.goto(`${episodePage}/sponsor-deals`);
+  await producer.goto(`${episodePage}/sponsor-deals`);
 
   // Both open the deal's requirements; the producer saves a new link first.
   const ownerDeal = page.locator("#sponsor-deals");
@@ -48,7 +48,9 @@ test("two people edit the same deal and test plan: the second save shows the fir
   // The test plan: the same story on the bench's sheet.
   const ownerPlan = page.getByRole("form", { name: "Test plan" });
   const producerPlan = producer.getByRole("form", { name: "Test plan" });
-  await producer.reload();
+  await page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Test plan" }).click();
+  await expect(ownerPlan.getByLabel("Method")).toBeVisible();
+  await producer.goto(`${episodePage}/test-plan`);
   await expect(producerPlan.getByLabel("Hypothesis")).toBeVisible();
   await producerPlan.getByLabel("Hypothesis").fill("The braided line holds a 3 m drop of 20 kg.");
   await producerPlan.getByRole("button", { name: "Save the test plan" }).click();

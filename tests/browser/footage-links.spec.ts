@@ -25,11 +25,13 @@ test("a clip is tied to the bench run it shows, from the run's card and from the
     episode: { title: "Can a 2207 lift a camera?", question: "Is 900 gf enough?", origin: "idea", stage: "build" },
   });
   await runThroughApi(page, channelId, episodeId, csrfToken);
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
   await page.getByLabel("Camera files").setInputFiles(clipFile);
   await expect(page.getByRole("listitem", { name: "Upload of D003_C007.mov" }).getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
 
   // From the run's card: link the clip; it is listed with its poster; unlink it.
+  const parts = page.getByRole("navigation", { name: "Parts of the episode" });
+  await parts.getByRole("link", { name: /Bench runs/ }).click();
   const footage = page.getByRole("region", { name: "Footage of run 1" });
   const linkForm = footage.getByRole("form", { name: "Link a clip to run 1" });
   await expect(linkForm.getByLabel("Link a clip").locator("option", { hasText: "D003_C007.mov" })).toHaveCount(1);
@@ -43,12 +45,14 @@ test("a clip is tied to the bench run it shows, from the run's card and from the
   await expect(shown).toHaveCount(0);
 
   // From the clip panel: the same link, saved with the log.
+  await parts.getByRole("link", { name: "Footage" }).click();
   await page.getByRole("table").getByRole("button", { name: "D003_C007.mov" }).click();
   const panel = page.getByRole("dialog");
   await panel.getByLabel("Bench run shown").selectOption({ label: "Run 1 · Larch on 4S" });
   await panel.getByRole("button", { name: "Save log" }).click();
   await expect(panel.getByText("Log saved.")).toBeVisible();
   await panel.getByRole("button", { name: "Close" }).click();
+  await parts.getByRole("link", { name: /Bench runs/ }).click();
   await expect(footage.getByRole("listitem", { name: "D003_C007.mov" })).toBeVisible();
 
   // At phone width the card and its footage stay inside the screen.

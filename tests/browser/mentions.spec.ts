@@ -8,7 +8,7 @@ test("typing @ and part of a name suggests members; arrows and Enter pick one, a
   });
   await member(channelId, "Kofi Lindahl", "editor");
   await member(channelId, "Kofi Adeyemi", "crew");
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#activity`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/comments`);
 
   const box = page.getByLabel("Add a comment");
   await box.fill("Footage check, @ko");

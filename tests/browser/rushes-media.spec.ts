@@ -42,7 +42,7 @@ test("the server makes a poster and proxy for an HEVC clip, and a file it can't 
   await hostContext.close();
   const editor = await member(channelId, "Tomasz Brandt", "editor");
   await signInOn(page, editor.email);
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
   await page.getByLabel("Camera files").setInputFiles([hevc, broken]);
   await expect(page.getByRole("listitem", { name: "Upload of C010_HEVC.mp4" }).getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
   await expect(page.getByRole("listitem", { name: "Upload of C011_BROKEN.mov" }).getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });

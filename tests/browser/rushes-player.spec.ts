@@ -25,7 +25,7 @@ test("an editor marks in and out from the picture by keyboard on a 29.97 drop-fr
   await hostContext.close();
   const editor = await member(channelId, "Sindre Holm", "editor");
   await signInOn(page, editor.email);
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
   await page.getByLabel("Camera files").setInputFiles(clipFile);
   await expect(page.getByRole("listitem", { name: "Upload of D003_C007.mov" }).getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
   await page.getByRole("table").getByRole("button", { name: "D003_C007.mov" }).click();

@@ -35,10 +35,11 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   // The editor does the rest, on the test's own page (its trace is kept when the journey fails).
   await signInOn(page, editor.email);
   await expect(page.getByText("Editor", { exact: true })).toBeVisible();
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
-  await expect(page.getByRole("heading", { name: "Shoot and footage" })).toBeVisible();
+  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await expect(page.getByRole("heading", { name: "Shoot days and shots" })).toBeVisible();
 
-  // The shoot plan: one day, two shots on it.
+  // The shoot plan: one day, two shots on it; each form opens from its button.
+  await page.getByRole("button", { name: "Add a shoot day" }).click();
   const dayForm = page.getByRole("form", { name: "Add a shoot day" });
   await dayForm.getByLabel("Call time").fill("7 am");
   await dayForm.getByRole("button", { name: "Add day" }).click();
@@ -51,6 +52,8 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   await dayForm.getByRole("button", { name: "Add day" }).click();
   await expect(page.getByRole("link", { name: "Sat 12 Dec 2026 · Harbour slipway" })).toBeVisible();
 
+  await expect(dayForm).toHaveCount(0);
+  await page.getByRole("button", { name: "Add a shot" }).click();
   const shotForm = page.getByRole("form", { name: "Add a shot" });
   for (const [description, kind] of [
     ["Stage separation in slow motion", "slow_motion"],
@@ -63,6 +66,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
     await expect(page.getByRole("list", { name: "Shots" }).getByText(description)).toBeVisible();
   }
   await snap(page, "rushes-02-shot-list");
+  await page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Footage" }).click();
 
   // Storage answers slowly enough to pause; part 2 of the large file fails every try (each after a
   // longer wait) until the person asks for Retry.
@@ -165,7 +169,7 @@ test("an editor plans the shoot, uploads three files, pauses, reloads, marks and
   expect(otio.tracks.children[0].children[0].source_range.duration.value).toBe(45);
 
   // The crew's view of the day: the linked shot is captured, the other still missing.
-  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/shoot`);
   await page.getByRole("link", { name: "Sat 12 Dec 2026 · Harbour slipway" }).click();
   const missing = page.getByRole("region", { name: /Still to get/ });
   await expect(page.getByRole("heading", { name: "Still to get (1)" })).toBeVisible();

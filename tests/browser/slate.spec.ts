@@ -94,6 +94,7 @@ test("the owner makes an episode and moves it along the board by mouse and by ke
   // The history on the episode page has every stage move.
   await cardIn(page, "challenge").click();
   await expect(page.getByRole("heading", { name: TITLE })).toBeVisible();
+  await page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "History" }).click();
   await expect(page.locator("#history").getByText("moved it from Challenge to Test plan")).toHaveCount(2);
   await expect(page.locator("#history").getByText("moved it from Test plan to Challenge")).toHaveCount(2);
 });

@@ -140,7 +140,7 @@ test("the sponsor's review page plays the segment from its in point and stops at
   // The editor sees the pin at the clip's timecode, and jumps to it: 2 s + 1 s = frame 75 at 25 fps, 00:00:03:00.
   const editorPerson = await member(channelId, "Jonas Ek", "editor");
   const editor = await signIn(browser, editorPerson.email);
-  await editor.goto(`/c/${channelId}/episodes/${episodeId}#sponsor-deals`);
+  await editor.goto(`/c/${channelId}/episodes/${episodeId}/sponsor-deals`);
   const pins = editor.getByRole("region", { name: "Sponsor's pinned comments" });
   await expect(pins).toContainText("Show the blade guard here");
   await expect(pins).toContainText("Ada Voss · Sponsor approves the cut");

@@ -43,7 +43,7 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await snap(producer, "sponsors-02-sponsor-and-template");
 
   // A deal on the episode, from the template: its items are dated from the publish date.
-  await producer.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await producer.goto(`/c/${channelId}/episodes/${episodeId}/sponsor-deals`);
   const deals = producer.locator("#sponsor-deals");
   await deals.getByRole("button", { name: "New deal" }).click();
   const dealForm = producer.getByRole("form", { name: "New deal" });
@@ -126,7 +126,7 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
 
   // The editor opens the same deal: length, talking points, link and code; no fee, on the page or from the API.
   const editor = await signIn(browser, editorPerson.email);
-  await editor.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await editor.goto(`/c/${channelId}/episodes/${episodeId}/sponsor-deals`);
   const editorDeals = editor.locator("#sponsor-deals");
   await expect(editorDeals.getByTestId("segment-length")).toContainText("60 s");
   await expect(editorDeals.getByTestId("talking-points")).toContainText("Holds 0.1 mV ripple");

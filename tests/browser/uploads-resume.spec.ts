@@ -80,7 +80,7 @@ async function hostOnEpisode(page: Page, channel: string) {
     host: { name: "Ragna Dahl", channel },
     episode: { title: "Flywheel bench", question: "How much does a heavier rim store?", origin: "idea", stage: "shoot" },
   });
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
   await expect(page.getByRole("heading", { name: "Upload footage" })).toBeVisible({ timeout: 60_000 });
   return { channelId, episodeId };
 }

@@ -3,7 +3,7 @@ import { Link } from "react-router-dom";
 import { type Role, roleMay } from "@shared/access/roles";
 import { bestRun } from "@shared/bench/comparison";
 import type { PartView, RunView, TestPlanView } from "@shared/bench/schemas";
-import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { runsCsvUrl } from "../api/export-runs";
@@ -28,7 +28,6 @@ export function BenchSection({ channelId, episodeId, role }: EpisodeSectionProps
 
 function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: string; episodeId: string; role: Role; runs: RunView[]; plan: TestPlanView; parts: PartView[] }) {
   const canWrite = roleMay(role, "bench", "W");
-  const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<string | null>(null);
   const best = bestRun(runs);
   const criteria = plan.criteria;
@@ -38,7 +37,7 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
       {runs.length === 0 ? (
         <Empty title="No bench runs yet">{canWrite ? "Enter the first candidate's measurements below." : "Runs appear here as the crew measures candidates."}</Empty>
       ) : (
-        <>
+        <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 xl:grid-cols-2">
           <Panel>
             <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
               <h3 className="font-semibold">Candidates side by side</h3>
@@ -51,11 +50,11 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
           <Panel>
             <ComparisonChart runs={runs} best={best} criteria={criteria} />
           </Panel>
-        </>
+        </div>
       )}
 
       {runs.length > 0 && (
-        <ol className="flex flex-col gap-4" aria-label="Bench runs">
+        <ol className="grid grid-cols-[minmax(0,1fr)] items-start gap-4 xl:grid-cols-2" aria-label="Bench runs">
           {runs.map((run) =>
             editing === run.id ? (
               <li key={run.id}>
@@ -71,26 +70,25 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
         </ol>
       )}
 
-      {canWrite &&
-        (adding ? (
-          <Panel>
-            <h3 className="mb-3 font-semibold">New bench run</h3>
-            {parts.length === 0 && (
-              <p className="mb-3 text-sm text-graphite-500">
-                The shelf is empty: a run can still be entered with its mass weighed, or{" "}
-                <Link to={`/c/${channelId}/shelf`} className="text-rust-600 underline">
-                  add parts to the shelf
-                </Link>{" "}
-                first.
-              </p>
-            )}
-            <RunForm channelId={channelId} episodeId={episodeId} parts={parts} plan={plan} onDone={() => setAdding(false)} />
-          </Panel>
-        ) : (
-          <div>
-            <Button onClick={() => setAdding(true)}>Enter a bench run</Button>
-          </div>
-        ))}
+      {canWrite && (
+        <FormOpener label="Enter a bench run">
+          {(close) => (
+            <Panel>
+              <h3 className="mb-3 font-semibold">New bench run</h3>
+              {parts.length === 0 && (
+                <p className="mb-3 text-sm text-graphite-500">
+                  The shelf is empty: a run can still be entered with its mass weighed, or{" "}
+                  <Link to={`/c/${channelId}/shelf`} className="text-rust-600 underline">
+                    add parts to the shelf
+                  </Link>{" "}
+                  first.
+                </p>
+              )}
+              <RunForm channelId={channelId} episodeId={episodeId} parts={parts} plan={plan} onDone={close} />
+            </Panel>
+          )}
+        </FormOpener>
+      )}
     </div>
   );
 }

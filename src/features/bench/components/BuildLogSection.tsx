@@ -17,6 +17,7 @@ import {
 import { MAX_STILL_BYTES, stillTypes } from "@shared/rushes/limits";
 import { formatSize } from "../../../lib/format";
 import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
@@ -59,7 +60,7 @@ function BuildLog({ channelId, episodeId, role, log, runs, photos }: { channelId
   return (
     <div className="flex flex-col gap-4">
       {log.length === 0 ? (
-        <Empty title="No iterations yet">{canWrite ? "Log the first build below: what it is, what it weighs, how it went." : "Iterations appear here as the build goes."}</Empty>
+        <Empty title="No iterations yet">{canWrite ? "Log the first build: what it is, what it weighs, how it went." : "Iterations appear here as the build goes."}</Empty>
       ) : (
         <ol className="flex flex-col gap-3" aria-label="Build iterations">
           {log.map((iteration) =>
@@ -84,10 +85,14 @@ function BuildLog({ channelId, episodeId, role, log, runs, photos }: { channelId
         </ol>
       )}
       {canWrite && editing === null && (
-        <Panel>
-          <h3 className="mb-3 font-semibold">Log an iteration</h3>
-          <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} />
-        </Panel>
+        <FormOpener label="Log an iteration">
+          {(close) => (
+            <Panel>
+              <h3 className="mb-3 font-semibold">New iteration</h3>
+              <IterationForm channelId={channelId} episodeId={episodeId} runs={runs} onDone={close} />
+            </Panel>
+          )}
+        </FormOpener>
       )}
     </div>
   );

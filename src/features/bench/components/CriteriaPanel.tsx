@@ -6,6 +6,7 @@ import { describeCriterion, metricLabels, unitsForMetric } from "@shared/bench/f
 import { RATIO_UNIT } from "@shared/bench/quantity";
 import { criterionInputSchema, type CriterionInput, type CriterionView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
 import { useOpenedRecord } from "../../../lib/conflicts";
@@ -72,7 +73,7 @@ export function CriteriaPanel({ channelId, episodeId, criteria, canWrite }: { ch
       <h3 className="font-semibold">Pass criteria</h3>
       <p className="mb-3 text-sm text-graphite-500">A run meets the plan only when every required criterion passes; informative ones are shown but do not decide.</p>
       {criteria.length === 0 ? (
-        <Empty title="No pass criteria yet">{canWrite ? "Add one below, such as thrust-to-weight at least 1.2." : "The owner or producer adds them."}</Empty>
+        <Empty title="No pass criteria yet">{canWrite ? "Add one, such as thrust-to-weight at least 1.2." : "The owner or producer adds them."}</Empty>
       ) : (
         <ol className="mb-4 divide-y divide-ply-200 rounded-md border border-ply-200">
           {criteria.map((criterion, index) =>
@@ -105,10 +106,14 @@ export function CriteriaPanel({ channelId, episodeId, criteria, canWrite }: { ch
       )}
       {criteria.length > 0 && required === 0 && <Notice kind="info">None of these is required, so no run can meet the plan yet, and leaving the test plan stage will ask for a reason.</Notice>}
       {canWrite && editing === null && (
-        <div className="mt-4 border-t border-ply-200 pt-4">
-          <h4 className="mb-2 text-sm font-semibold">Add a criterion</h4>
-          <CriterionForm channelId={channelId} episodeId={episodeId} />
-        </div>
+        <FormOpener label="Add a criterion" className="mt-4">
+          {(close) => (
+            <div className="border-t border-ply-200 pt-4">
+              <h4 className="mb-2 text-sm font-semibold">New criterion</h4>
+              <CriterionForm channelId={channelId} episodeId={episodeId} onDone={close} />
+            </div>
+          )}
+        </FormOpener>
       )}
     </Panel>
   );

@@ -5,6 +5,7 @@ import { CUSTOM_HAZARD, FLYING_NOTE, SAFETY_NOTE, hazardCatalogue, hazardKinds, 
 import { hazardInputSchema, type HazardInput, type HazardView } from "@shared/bench/schemas";
 import { AskFirst } from "../../../components/AskFirst";
 import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
 import { formatInstantDay } from "../../../lib/format";
@@ -13,7 +14,7 @@ import { useAddHazard } from "../api/add-hazard";
 import { useDeleteHazard } from "../api/delete-hazard";
 import { useUpdateHazard } from "../api/update-hazard";
 import { Caution, Panel } from "./marks";
-import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 
 /** The listed hazards not on the plan yet, then "other": a listed hazard goes on a plan once. */
@@ -35,7 +36,7 @@ export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { chann
         </Caution>
       </div>
       {hazards.length === 0 ? (
-        <Empty title="No hazards listed yet">{canWrite ? "Pick this build's hazards below: batteries, blades, heat, mains, flying." : "The owner or producer lists them."}</Empty>
+        <Empty title="No hazards listed yet">{canWrite ? "Pick this build's hazards: batteries, blades, heat, mains, flying." : "The owner or producer lists them."}</Empty>
       ) : (
         <>
           {unchecked > 0 && <p className="mb-2 text-sm font-medium text-rust-700">{unchecked === 1 ? "One hazard has" : `${unchecked} hazards have`} not been checked yet.</p>}
@@ -46,7 +47,11 @@ export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { chann
           </ul>
         </>
       )}
-      {canWrite && <HazardForm key={hazards.length} channelId={channelId} episodeId={episodeId} listed={new Set(hazards.map((hazard) => hazard.kind))} />}
+      {canWrite && (
+        <FormOpener label="Add a hazard" className="mt-4">
+          {(close) => <HazardForm channelId={channelId} episodeId={episodeId} listed={new Set(hazards.map((hazard) => hazard.kind))} onDone={close} />}
+        </FormOpener>
+      )}
     </Panel>
   );
 }
@@ -124,7 +129,7 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
   );
 }
 
-function HazardForm({ channelId, episodeId, listed }: { channelId: string; episodeId: string; listed: Set<string> }) {
+function HazardForm({ channelId, episodeId, listed, onDone }: { channelId: string; episodeId: string; listed: Set<string>; onDone: () => void }) {
   const add = useAddHazard(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
   const options = hazardOptionsBesides(listed);
@@ -138,6 +143,7 @@ function HazardForm({ channelId, episodeId, listed }: { channelId: string; episo
     setProblem(null);
     try {
       await add.mutateAsync(values);
+      onDone();
     } catch (error) {
       const message = applyServerErrors(error, form.setError, ["kind", "title", "mitigation"]);
       if (message) setProblem(message);
@@ -145,8 +151,8 @@ function HazardForm({ channelId, episodeId, listed }: { channelId: string; episo
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New hazard" className="mt-4 flex flex-col gap-3 border-t border-ply-200 pt-4">
-      <h4 className="text-sm font-semibold">Add a hazard</h4>
+    <form onSubmit={onSubmit} noValidate aria-label="New hazard" className="flex flex-col gap-3 border-t border-ply-200 pt-4">
+      <h4 className="text-sm font-semibold">New hazard</h4>
       <SelectField
         label="Hazard"
         options={options}
@@ -164,11 +170,7 @@ function HazardForm({ channelId, episodeId, listed }: { channelId: string; episo
       {kind === CUSTOM_HAZARD ? <TextField label="Name of the hazard" {...form.register("title")} error={errors.title?.message} /> : <p className="text-sm text-graphite-700">{hazardCatalogue[kind].caution}</p>}
       <TextAreaField label="Mitigation" {...form.register("mitigation")} error={errors.mitigation?.message} />
       {problem && <Notice kind="error">{problem}</Notice>}
-      <div>
-        <Button type="submit" busy={add.isPending}>
-          Add hazard
-        </Button>
-      </div>
+      <FormActions submit="Add hazard" busy={add.isPending} onCancel={onDone} />
     </form>
   );
 }

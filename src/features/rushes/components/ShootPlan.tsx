@@ -5,6 +5,7 @@ import { Link } from "react-router-dom";
 import { shootDaySchema, shotSchema, type ShootDayInput, type ShootDayView, type ShotInput, type ShotView } from "@shared/rushes/schemas";
 import { shotKindLabels, shotKinds, shotPriorities, shotPriorityLabels, shotStatusLabels } from "@shared/rushes/vocabulary";
 import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { allOf, Empty, QueryState } from "../../../components/States";
 import { formatDay } from "../../../lib/format";
 import { useCreateShootDay } from "../api/add-shoot-day";
@@ -15,7 +16,7 @@ import { useShootCrew } from "../api/list-shoot-crew";
 import { useShootDays } from "../api/list-shoot-days";
 import { useShots } from "../api/list-shots";
 import { useUpdateShot } from "../api/update-shot";
-import { SelectField, TextField } from "../../../components/form-fields";
+import { FormActions, SelectField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 
 /** The episode's shoot days and its shot list, with which shots already have footage. */
@@ -37,7 +38,7 @@ function Plan({ channelId, episodeId, days, shots }: { channelId: string; episod
           Shoot days
         </h3>
         {days.length === 0 ? (
-          <Empty title="No shoot days yet">Add the first day below.</Empty>
+          <Empty title="No shoot days yet">Add the first day: its date, place and call time.</Empty>
         ) : (
           <ul className="divide-y divide-ply-200 rounded-lg border border-ply-300 bg-white">
             {days.map((d) => (
@@ -58,20 +59,24 @@ function Plan({ channelId, episodeId, days, shots }: { channelId: string; episod
             ))}
           </ul>
         )}
-        <ShootDayForm channelId={channelId} episodeId={episodeId} />
+        <FormOpener label="Add a shoot day" className="mt-3">
+          {(close) => <ShootDayForm channelId={channelId} episodeId={episodeId} onDone={close} />}
+        </FormOpener>
       </section>
       <section aria-labelledby="shots-heading">
         <h3 id="shots-heading" className="mb-2 font-semibold">
           Shot list
         </h3>
         <ShotList channelId={channelId} episodeId={episodeId} shots={shots} days={days} />
-        <ShotForm channelId={channelId} episodeId={episodeId} days={days} />
+        <FormOpener label="Add a shot" className="mt-3">
+          {(close) => <ShotForm channelId={channelId} episodeId={episodeId} days={days} onDone={close} />}
+        </FormOpener>
       </section>
     </div>
   );
 }
 
-function ShootDayForm({ channelId, episodeId }: { channelId: string; episodeId: string }) {
+function ShootDayForm({ channelId, episodeId, onDone }: { channelId: string; episodeId: string; onDone: () => void }) {
   const create = useCreateShootDay(channelId, episodeId);
   const people = useShootCrew(channelId);
   const [crew, setCrew] = useState<string[]>([]);
@@ -81,20 +86,17 @@ function ShootDayForm({ channelId, episodeId }: { channelId: string; episodeId: 
     setMessage(null);
     try {
       await create.mutateAsync({ ...values, callTime: values.callTime || null, crewIds: crew });
-      form.reset();
-      setCrew([]);
+      onDone();
     } catch (error) {
       setMessage(applyServerErrors(error, form.setError, ["day", "place", "callTime"]));
     }
   });
   return (
-    <form onSubmit={submit} noValidate aria-label="Add a shoot day" className="mt-3 grid gap-3 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid-cols-[10rem_1fr_8rem_auto] sm:items-start">
+    <form onSubmit={submit} noValidate aria-label="Add a shoot day" className="grid gap-3 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid-cols-[10rem_1fr_8rem_auto] sm:items-start">
       <TextField label="Date" type="date" {...form.register("day")} error={form.formState.errors.day?.message} />
       <TextField label="Place" {...form.register("place")} error={form.formState.errors.place?.message} />
       <TextField label="Call time" placeholder="07:30" {...form.register("callTime", { setValueAs: (v: string) => (v ? v : null) })} error={form.formState.errors.callTime?.message} />
-      <Button type="submit" busy={create.isPending} className="sm:mt-6">
-        Add day
-      </Button>
+      <FormActions className="flex gap-2 sm:mt-6" submit="Add day" busy={create.isPending} onCancel={onDone} />
       {people.data && people.data.length > 0 && (
         <fieldset className="sm:col-span-4">
           <legend className="text-sm font-medium text-graphite-700">Crew on the day</legend>
@@ -154,7 +156,8 @@ function ShotList({ channelId, episodeId, shots, days }: { channelId: string; ep
   );
 }
 
-function ShotForm({ channelId, episodeId, days }: { channelId: string; episodeId: string; days: { id: string; day: string; place: string }[] }) {
+/** Stays open after each shot, the focus back on its description, so a list is typed in one go. */
+function ShotForm({ channelId, episodeId, days, onDone }: { channelId: string; episodeId: string; days: { id: string; day: string; place: string }[]; onDone: () => void }) {
   const create = useCreateShot(channelId, episodeId);
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<ShotInput>({ resolver: zodResolver(shotSchema) as never, defaultValues: { description: "", kind: "build_closeup", priority: "normal", shootDayId: null, status: "planned" } });
@@ -163,12 +166,13 @@ function ShotForm({ channelId, episodeId, days }: { channelId: string; episodeId
     try {
       await create.mutateAsync({ ...values, shootDayId: values.shootDayId || null });
       form.reset({ ...values, description: "" });
+      form.setFocus("description");
     } catch (error) {
       setMessage(applyServerErrors(error, form.setError, ["description", "kind", "priority", "shootDayId"]));
     }
   });
   return (
-    <form onSubmit={submit} noValidate aria-label="Add a shot" className="mt-3 grid gap-3 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid-cols-2 lg:grid-cols-[1fr_10rem_9rem_10rem_auto] lg:items-start">
+    <form onSubmit={submit} noValidate aria-label="Add a shot" className="grid gap-3 rounded-lg border border-ply-300 bg-ply-50 p-3 sm:grid-cols-2 lg:grid-cols-[1fr_10rem_9rem_10rem_auto] lg:items-start">
       <TextField label="Shot" placeholder="e.g. close-up of the solder joints" {...form.register("description")} error={form.formState.errors.description?.message} />
       <SelectField label="Kind" options={shotKinds.map((k) => ({ value: k, label: shotKindLabels[k] }))} {...form.register("kind")} />
       <SelectField label="Priority" options={shotPriorities.map((p) => ({ value: p, label: shotPriorityLabels[p] }))} {...form.register("priority")} />
@@ -177,9 +181,7 @@ function ShotForm({ channelId, episodeId, days }: { channelId: string; episodeId
         options={[{ value: "", label: "Not yet" }, ...days.map((d) => ({ value: d.id, label: `${formatDay(d.day)} ${d.place}` }))]}
         {...form.register("shootDayId", { setValueAs: (v: string) => (v ? v : null) })}
       />
-      <Button type="submit" busy={create.isPending} className="lg:mt-6">
-        Add shot
-      </Button>
+      <FormActions className="flex gap-2 lg:mt-6" submit="Add shot" busy={create.isPending} onCancel={onDone} />
       {message && <p className="text-sm text-alarm-600 sm:col-span-2 lg:col-span-5">{message}</p>}
     </form>
   );

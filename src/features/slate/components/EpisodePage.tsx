@@ -1,15 +1,16 @@
-import type { ReactNode } from "react";
-import { Link, useLocation, useParams } from "react-router-dom";
+import { useEffect, useRef, type ReactNode } from "react";
+import { Link, Navigate, useLocation, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import type { EpisodeDetail } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { QueryState } from "../../../components/States";
-import type { EpisodeSection, EpisodeSectionProps } from "../../../lib/episode-sections";
+import { type EpisodeSection, type EpisodeSectionProps, openPart, partFromFragment } from "../../../lib/episode-sections";
 import { useChannel } from "../../../lib/session";
 import { useEpisode } from "../api/get-episode";
 import { ActivitySection } from "./ActivitySection";
+import { EpisodeParts } from "./EpisodeParts";
 import { Flag } from "./Flag";
 import { HistorySection } from "./HistorySection";
 import { OverviewSection } from "./OverviewSection";
@@ -21,18 +22,7 @@ export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
   return <Episode channelId={channel.channelId} episodeId={episodeId} role={channel.role} sections={sections} />;
 }
 
-function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  return (
-    <section id={id} aria-labelledby={`${id}-heading`} className="mt-8 scroll-mt-4">
-      <h2 id={`${id}-heading`} className="mb-3 text-lg font-semibold">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
-
-/** One episode: the slate's overview, schedule and history, each feature's section, then the comments. */
+/** One episode: the header, then one part at a time (the slate's own and each feature's), chosen in the address. */
 function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   const episode = useEpisode(props.channelId, props.episodeId);
   return (
@@ -42,19 +32,54 @@ function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   );
 }
 
-function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }) {
-  const e = detail.episode;
+interface Part {
+  id: string;
+  title: string;
+  render: () => ReactNode;
+}
+
+function partsOf({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }): Part[] {
   const canEdit = roleMay(role, "episodes", "W");
-  const justCreated = (useLocation().state as { created?: boolean } | null)?.created === true;
-  const contents = [
-    { id: "overview", title: "Overview" },
-    { id: "schedule", title: "Schedule" },
-    { id: "history", title: "History" },
-    ...sections.map(({ id, title }) => ({ id, title })),
-    { id: "activity", title: "Activity" },
+  return [
+    {
+      id: "overview",
+      title: "Overview and dates",
+      render: () => (
+        <div className="flex flex-col gap-8">
+          <OverviewSection channelId={channelId} detail={detail} canEdit={canEdit} />
+          <section id="schedule" aria-labelledby="schedule-heading">
+            <h3 id="schedule-heading" className="mb-3 font-semibold">
+              Schedule
+            </h3>
+            <ScheduleSection channelId={channelId} detail={detail} canEdit={canEdit} />
+          </section>
+        </div>
+      ),
+    },
+    ...sections.map(({ id, title, Component }) => ({ id, title, render: () => <Component channelId={channelId} episodeId={episodeId} role={role} /> })),
+    { id: "history", title: "History", render: () => <HistorySection channelId={channelId} episodeId={episodeId} /> },
+    { id: "comments", title: "Comments", render: () => <ActivitySection channelId={channelId} episodeId={episodeId} /> },
   ];
+}
+
+function EpisodeView(props: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }) {
+  const { channelId, episodeId, detail } = props;
+  const e = detail.episode;
+  const location = useLocation();
+  const { part: named } = useParams();
+  const parts = partsOf(props);
+  const ids = parts.map((p) => p.id);
+  const base = `/c/${channelId}/episodes/${episodeId}`;
+  const open = openPart(e.stage, named ?? partFromFragment(location.hash, ids), ids);
+  const stagePart = openPart(e.stage, undefined, ids);
+  const justCreated = (location.state as { created?: boolean } | null)?.created === true;
+  const current = parts.find((p) => p.id === open);
+
+  // An address without a part (or with one the page lacks) is written out, so it always says what is open.
+  if (!current || named !== open) return <Navigate to={`${base}/${open}`} replace state={location.state} />;
+
   return (
-    <article className="mx-auto max-w-4xl">
+    <article>
       <Link to={`/c/${channelId}/slate`} className="text-sm text-rust-600 underline">
         ← Slate
       </Link>
@@ -77,30 +102,27 @@ function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSe
           <Notice kind="success">“{e.title}” is on the board, at the top of Challenge.</Notice>
         </div>
       )}
-      <nav aria-label="On this page" className="flex flex-wrap gap-3 text-sm">
-        {contents.map((c) => (
-          <a key={c.id} href={`#${c.id}`} className="text-rust-600 underline">
-            {c.title}
-          </a>
-        ))}
-      </nav>
-      <Section id="overview" title="Overview">
-        <OverviewSection channelId={channelId} detail={detail} canEdit={canEdit} />
-      </Section>
-      <Section id="schedule" title="Schedule">
-        <ScheduleSection channelId={channelId} detail={detail} canEdit={canEdit} />
-      </Section>
-      <Section id="history" title="History">
-        <HistorySection channelId={channelId} episodeId={episodeId} />
-      </Section>
-      {sections.map(({ id, title, Component }) => (
-        <Section key={id} id={id} title={title}>
-          <Component channelId={channelId} episodeId={episodeId} role={role} />
-        </Section>
-      ))}
-      <Section id="activity" title="Activity">
-        <ActivitySection channelId={channelId} episodeId={episodeId} />
-      </Section>
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-4 lg:grid-cols-[13rem_minmax(0,1fr)] lg:gap-8">
+        <EpisodeParts base={base} parts={parts} open={open} stagePart={stagePart} stageLabel={stageLabels[e.stage]} />
+        <PartView key={current.id} part={current} />
+      </div>
     </article>
+  );
+}
+
+/** The open part; switching parts from low on the page brings the new one's top into view. */
+function PartView({ part }: { part: Part }) {
+  const section = useRef<HTMLElement>(null);
+  useEffect(() => {
+    const top = section.current?.getBoundingClientRect().top ?? 0;
+    if (top < 0) section.current?.scrollIntoView({ block: "start" });
+  }, []);
+  return (
+    <section ref={section} id={part.id} aria-labelledby={`${part.id}-heading`} className="min-w-0 scroll-mt-16 lg:scroll-mt-4">
+      <h2 id={`${part.id}-heading`} className="mb-3 text-lg font-semibold">
+        {part.title}
+      </h2>
+      {part.render()}
+    </section>
   );
 }

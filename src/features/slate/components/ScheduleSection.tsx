@@ -27,7 +27,7 @@ export function ScheduleSection({ channelId, detail, canEdit }: { channelId: str
   const riskFlags = detail.flags.filter((f) => f.code.startsWith("slate.stage_overdue") || f.code.startsWith("slate.plan_in_past"));
   const current = stageIndex(episode.stage);
   return (
-    <div className="rounded-lg border border-ply-300 bg-white p-5">
+    <div className="rounded-lg border border-ply-300 bg-white p-3 sm:p-5">
       {riskFlags.length > 0 && (
         <div className="mb-3 flex flex-col gap-1">
           {riskFlags.map((flag) => (
@@ -42,57 +42,60 @@ export function ScheduleSection({ channelId, detail, canEdit }: { channelId: str
           <Notice kind="error">{notice}</Notice>
         </div>
       )}
-      <table className="w-full text-left text-sm">
-        <caption className="mb-2 text-left text-xs text-graphite-500">
-          Working days, Monday to Friday (public holidays are not known to Kerf). Publishes {formatDay(episode.targetPublishDate)}; today is {formatDay(today)}.
-        </caption>
-        <thead className="border-b border-ply-300 text-xs uppercase tracking-wide text-graphite-500">
-          <tr>
-            <th scope="col" className="py-2 pr-3 font-semibold">
-              Stage
-            </th>
-            <th scope="col" className="py-2 pr-3 font-semibold">
-              Days
-            </th>
-            <th scope="col" className="py-2 pr-3 font-semibold">
-              Starts
-            </th>
-            <th scope="col" className="py-2 pr-3 font-semibold">
-              Due
-            </th>
-            {canEdit && (
-              <th scope="col" className="py-2 font-semibold">
-                Set by hand
+      {/* On a phone the table with its date fields scrolls within its box, not the page. */}
+      <div className="overflow-x-auto" role="region" aria-label="Stage dates" tabIndex={0}>
+        <table className="w-full text-left text-sm">
+          <caption className="mb-2 text-left text-xs text-graphite-500">
+            Working days, Monday to Friday (public holidays are not known to Kerf). Publishes {formatDay(episode.targetPublishDate)}; today is {formatDay(today)}.
+          </caption>
+          <thead className="border-b border-ply-300 text-xs uppercase tracking-wide text-graphite-500">
+            <tr>
+              <th scope="col" className="py-2 pr-3 font-semibold">
+                Stage
               </th>
-            )}
-          </tr>
-        </thead>
-        <tbody>
-          {schedule.map((row, i) => (
-            <tr key={row.stage} className={`border-b border-ply-200 ${i === current ? "bg-amber-cut/15" : ""}`} aria-current={i === current ? "step" : undefined}>
-              <th scope="row" className="py-2 pr-3 font-medium">
-                {stageLabels[row.stage]}
-                {i === current && <span className="ml-2 text-xs font-normal text-graphite-500">(now)</span>}
+              <th scope="col" className="py-2 pr-3 font-semibold">
+                Days
               </th>
-              <td className="py-2 pr-3">{row.lengthDays}</td>
-              <td className="py-2 pr-3">{startCell(i - current, row.start, detail.stageEnteredOn)}</td>
-              <td className={`py-2 pr-3 ${i >= current && row.due < today && row.stage !== "publish" ? "font-semibold text-alarm-600" : ""}`} data-testid={`due-${row.stage}`}>
-                {formatDay(row.due, { withYear: false })}
-                {row.overridden && <span className="ml-2 text-xs text-graphite-500">(counted: {formatDay(row.countedDue, { withYear: false })})</span>}
-              </td>
+              <th scope="col" className="py-2 pr-3 font-semibold">
+                Starts
+              </th>
+              <th scope="col" className="py-2 pr-3 font-semibold">
+                Due
+              </th>
               {canEdit && (
-                <td className="py-2">
-                  {row.stage === "publish" ? (
-                    <span className="text-xs text-graphite-500">the target date</span>
-                  ) : (
-                    <OverrideControl key={row.due} channelId={channelId} episodeId={episode.id} version={episode.version} row={row} onError={setNotice} />
-                  )}
-                </td>
+                <th scope="col" className="py-2 font-semibold">
+                  Set by hand
+                </th>
               )}
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {schedule.map((row, i) => (
+              <tr key={row.stage} className={`border-b border-ply-200 ${i === current ? "bg-amber-cut/15" : ""}`} aria-current={i === current ? "step" : undefined}>
+                <th scope="row" className="py-2 pr-3 font-medium">
+                  {stageLabels[row.stage]}
+                  {i === current && <span className="ml-2 text-xs font-normal text-graphite-500">(now)</span>}
+                </th>
+                <td className="py-2 pr-3">{row.lengthDays}</td>
+                <td className="py-2 pr-3">{startCell(i - current, row.start, detail.stageEnteredOn)}</td>
+                <td className={`py-2 pr-3 ${i >= current && row.due < today && row.stage !== "publish" ? "font-semibold text-alarm-600" : ""}`} data-testid={`due-${row.stage}`}>
+                  {formatDay(row.due, { withYear: false })}
+                  {row.overridden && <span className="ml-2 text-xs text-graphite-500">(counted: {formatDay(row.countedDue, { withYear: false })})</span>}
+                </td>
+                {canEdit && (
+                  <td className="py-2">
+                    {row.stage === "publish" ? (
+                      <span className="text-xs text-graphite-500">the target date</span>
+                    ) : (
+                      <OverrideControl key={row.due} channelId={channelId} episodeId={episode.id} version={episode.version} row={row} onError={setNotice} />
+                    )}
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }

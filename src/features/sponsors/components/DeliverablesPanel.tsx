@@ -3,6 +3,7 @@ import { useForm, useWatch } from "react-hook-form";
 import { anchorLabels, anchors, describeDating, deliverableKindLabels, deliverableKinds, deliverableStatusLabels, deliverableStatuses, type DeliverableStatus } from "@shared/sponsors/deliverables";
 import { newDeliverableSchema, type DealView, type DeliverableEvent, type DeliverableView } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
 import { formatDay, formatInstant } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
@@ -44,7 +45,6 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
   const remove = useRemoveDeliverable(channelId);
   const settings = useSponsorSettings(channelId);
   const [open, setOpen] = useState<string | null>(null);
-  const [adding, setAdding] = useState(false);
   const members = settings.data?.hosts ?? [];
   const timeZone = useTimeZone();
 
@@ -168,16 +168,11 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
           </table>
         </div>
       )}
-      {canManage &&
-        (adding ? (
-          <AddItemForm channelId={channelId} dealId={deal.id} members={members} onDone={() => setAdding(false)} />
-        ) : (
-          <div>
-            <Button tone="quiet" onClick={() => setAdding(true)}>
-              Add an item
-            </Button>
-          </div>
-        ))}
+      {canManage && (
+        <FormOpener label="Add an item" tone="quiet">
+          {(close) => <AddItemForm channelId={channelId} dealId={deal.id} members={members} onDone={close} />}
+        </FormOpener>
+      )}
     </div>
   );
 }

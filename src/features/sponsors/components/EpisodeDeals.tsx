@@ -1,6 +1,5 @@
-import { useState } from "react";
 import { roleMay } from "@shared/access/roles";
-import { Button } from "../../../components/Button";
+import { FormOpener } from "../../../components/FormOpener";
 import { Empty, QueryState } from "../../../components/States";
 import type { EpisodeSectionProps } from "../../../lib/episode-sections";
 import { useEpisodeDeals } from "../api/episode-deals";
@@ -10,7 +9,6 @@ import { NewDealForm } from "./NewDealForm";
 /** The episode page's sponsor section: every deal on this episode. */
 export function EpisodeDeals({ channelId, episodeId, role }: EpisodeSectionProps) {
   const deals = useEpisodeDeals(channelId, episodeId);
-  const [adding, setAdding] = useState(false);
   const canCreate = roleMay(role, "sponsors", "W");
   if (!roleMay(role, "sponsors", "R")) return null;
   return (
@@ -19,18 +17,11 @@ export function EpisodeDeals({ channelId, episodeId, role }: EpisodeSectionProps
         query={deals}
         loading="Loading the deals…"
         isEmpty={(list) => list.length === 0}
-        empty={!adding && <Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>}
+        empty={<Empty title="No sponsor on this episode">{canCreate ? "A deal made here brings its deliverables and their dates." : "Nothing to read yet."}</Empty>}
       >
         {(list) => list.map((deal) => <DealCard key={deal.id} channelId={channelId} deal={deal} role={role} />)}
       </QueryState>
-      {canCreate &&
-        (adding ? (
-          <NewDealForm channelId={channelId} episodeId={episodeId} onDone={() => setAdding(false)} />
-        ) : (
-          <div>
-            <Button onClick={() => setAdding(true)}>New deal</Button>
-          </div>
-        ))}
+      {canCreate && <FormOpener label="New deal">{(close) => <NewDealForm channelId={channelId} episodeId={episodeId} onDone={close} />}</FormOpener>}
     </div>
   );
 }
