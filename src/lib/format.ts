@@ -27,6 +27,9 @@ export function browserTimeZone(): string {
   return new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
 }
 
+/** A day in milliseconds, for a count of days written as a duration ("Late by 3 d"). */
+export const DAY_MS = 86_400_000;
+
 const units = [
   { symbol: "d", ms: 86_400_000 },
   { symbol: "h", ms: 3_600_000 },

@@ -18,6 +18,7 @@ import { useRemoveContact } from "../api/remove-contact";
 import { useUpdateSponsor } from "../api/update-sponsor";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
+import { WaitingDeals } from "./WaitingDeals";
 import { FormActions, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
@@ -124,6 +125,7 @@ function SponsorPanel({ channelId, sponsorId, canEdit }: { channelId: string; sp
 
 function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string; sponsor: SponsorDetail; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
+  const tied = sponsor.deals.filter((d) => d.episodeId !== null);
   return (
     <article aria-label={sponsor.company} className="flex flex-col gap-5 rounded-lg border border-ply-300 bg-white p-5">
       {editing ? (
@@ -147,12 +149,13 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
         </header>
       )}
       <Contacts channelId={channelId} sponsor={sponsor} canEdit={canEdit} />
+      <WaitingDeals channelId={channelId} sponsor={sponsor} canEdit={canEdit} />
       <section aria-labelledby="deal-history">
         <h3 id="deal-history" className="mb-2 font-semibold">
-          Deals
+          Deals on episodes
         </h3>
-        {sponsor.deals.length === 0 ? (
-          <p className="text-sm text-graphite-500">No deals yet. Make one from the episode's page.</p>
+        {tied.length === 0 ? (
+          <p className="text-sm text-graphite-500">No deals on an episode yet. Make one from the episode's page, or record a signed deal above.</p>
         ) : (
           <table className="w-full text-left text-sm">
             <thead className="text-xs uppercase tracking-wide text-graphite-500">
@@ -161,11 +164,11 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                 <th className="py-1">State</th>
                 <th className="py-1">Placement</th>
                 <th className="py-1">Publish</th>
-                {sponsor.deals.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
+                {tied.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
               </tr>
             </thead>
             <tbody className="divide-y divide-ply-200">
-              {sponsor.deals.map((deal) => (
+              {tied.map((deal) => (
                 <tr key={deal.id}>
                   <td className="py-2">
                     <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}#sponsor-deals`}>
@@ -174,7 +177,7 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                   </td>
                   <td className="py-2">{dealStateLabels[deal.state]}</td>
                   <td className="py-2">{placementLabels[deal.placement]}</td>
-                  <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
+                  <td className="py-2">{formatDay(deal.publishDate) || "Waiting for a publish date"}</td>
                   {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
                 </tr>
               ))}
