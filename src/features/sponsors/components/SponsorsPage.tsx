@@ -43,8 +43,9 @@ function Directory({ channelId, canEdit }: { channelId: string; canEdit: boolean
   const select = (id: string) => setParams({ sponsor: id }, { replace: true });
 
   return (
+    // min-w-0: a grid column is otherwise as wide as its widest word or select option, wider than a phone.
     <div className="grid gap-6 lg:grid-cols-[18rem_1fr]">
-      <div className="flex flex-col gap-4">
+      <div className="flex min-w-0 flex-col gap-4">
         <QueryState
           query={sponsors}
           loading="Loading sponsors…"
@@ -73,7 +74,7 @@ function Directory({ channelId, canEdit }: { channelId: string; canEdit: boolean
         </QueryState>
         {canEdit && <NewSponsorForm channelId={channelId} onMade={select} />}
       </div>
-      <div>{selected ? <SponsorPanel channelId={channelId} sponsorId={selected} canEdit={canEdit} /> : null}</div>
+      <div className="min-w-0">{selected ? <SponsorPanel channelId={channelId} sponsorId={selected} canEdit={canEdit} /> : null}</div>
     </div>
   );
 }
