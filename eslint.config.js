@@ -9,6 +9,8 @@ import tseslint from "typescript-eslint";
 // One-way flow: src/ and server/ never import each other; shared/ imports neither.
 const forbid = (groups, message) => ["error", { patterns: [{ group: groups, message }] }];
 const formatOnce = "Dates, times, durations, sizes and money are written by src/lib/format.ts (formatDay, formatInstant, formatDuration, formatSize, formatMoney).";
+const serverFormatOnce = "Dates and times the server writes for people (mails, board flags) are written by shared/fields/written-dates.ts (formatDay, formatInstantNamingZone), in the reader's zone.";
+const dateMethods = ["toLocaleDateString", "toLocaleTimeString", "toDateString", "toTimeString", "toUTCString"];
 
 /**
  * The server's folders that belong to no feature: every feature may use them, they use no feature.
@@ -123,6 +125,23 @@ export default tseslint.config(
         { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportSpecifier[imported.name=/^(format|lightFormat|intlFormat)/]", message: formatOnce },
         { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportNamespaceSpecifier", message: formatOnce },
         { selector: "ImportDeclaration[source.value=/^@shared\\//] > ImportSpecifier[imported.name=/^(formatBytes|formatSeconds|formatStay)$/]", message: formatOnce },
+        { selector: "ImportDeclaration[source.value=/written-dates$/]", message: formatOnce },
+      ],
+    },
+  },
+  // The same on the server: one module writes the dates and times of mails (proved by tests/unit/server-format.lint.test.ts).
+  {
+    files: ["server/**/*.ts"],
+    rules: {
+      "no-restricted-properties": [
+        "error",
+        ...dateMethods.map((property) => ({ property, message: serverFormatOnce })),
+        ...["DateTimeFormat", "RelativeTimeFormat"].map((property) => ({ object: "Intl", property, message: serverFormatOnce })),
+      ],
+      "no-restricted-syntax": [
+        "error",
+        { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportSpecifier[imported.name=/^(format|lightFormat|intlFormat)/]", message: serverFormatOnce },
+        { selector: "ImportDeclaration[source.value=/^date-fns/] > ImportNamespaceSpecifier", message: serverFormatOnce },
       ],
     },
   },

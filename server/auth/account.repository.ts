@@ -56,7 +56,7 @@ export async function setPasswordHash(db: Queryable, userId: string, passwordHas
 }
 
 export async function findUserIdByEmail(db: Queryable, email: string) {
-  const [row] = await db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.email, email));
+  const [row] = await db.select({ id: users.id, name: users.name, email: users.email, timeZone: users.timeZone }).from(users).where(eq(users.email, email));
   return row ?? null;
 }
 

@@ -24,7 +24,7 @@ export async function checkCredentials(db: Database, email: string, password: st
 export async function signUp(deps: VerificationDeps & ChannelStarters, input: SignUpInput): Promise<Express.User> {
   const passwordHash = await hashPassword(input.password);
   return inTransaction(deps.db, async (tx, sql) => {
-    const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
+    const user = await insertUser(tx, { email: input.email, name: input.name, passwordHash, ...(input.timeZone ? { timeZone: input.timeZone } : {}) });
     if (!user) throw new AppError("conflict", "An account with that e-mail already exists.", { email: "An account with that e-mail already exists; sign in instead." });
     await addChannelWithOwner(tx, input.channelName, user.id, deps.channelStarters);
     await queueVerificationMail(deps, tx, sql, user.id);

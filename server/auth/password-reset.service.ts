@@ -1,4 +1,5 @@
 import { addHours } from "date-fns";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
 import type { Request } from "express";
 import { PASSWORD_RESET_ANSWER, type PasswordResetInput, type PasswordResetRequestAnswer } from "../../shared/auth/account";
 import { inTransaction } from "../db/transaction";
@@ -35,7 +36,8 @@ export function passwordResetMailRenderer(deps: Pick<VerificationDeps, "db" | "a
     const account = await findUserIdByEmail(deps.db, email);
     if (!account) return { skip: "no account has this address" };
     const { token, hash } = newLinkToken();
-    await replaceResetLink(deps.db, { userId: account.id, tokenHash: hash, expiresAt: addHours(new Date(), RESET_LIFETIME_HOURS) });
+    const expiresAt = addHours(new Date(), RESET_LIFETIME_HOURS);
+    await replaceResetLink(deps.db, { userId: account.id, tokenHash: hash, expiresAt });
     return {
       send: {
         to: account.email,
@@ -46,7 +48,7 @@ export function passwordResetMailRenderer(deps: Pick<VerificationDeps, "db" | "a
           "Someone (we hope you) asked to set a new password for your Kerf account. Open this link to choose one:",
           `${deps.appUrl}/new-password/${token}`,
           "",
-          `It works once and expires in ${RESET_LIFETIME_HOURS} hour. Setting the password signs you out everywhere, so you sign in again with the new one.`,
+          `It works once and expires in ${RESET_LIFETIME_HOURS} hour, at ${formatInstantNamingZone(expiresAt, account.timeZone)}. Setting the password signs you out everywhere, so you sign in again with the new one.`,
           "",
           "If you didn't ask for this, ignore this message: your password stays as it is.",
         ].join("\n"),

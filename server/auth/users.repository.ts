@@ -24,7 +24,7 @@ export async function findUserWithHashByEmail(db: Database, email: string) {
   return rows[0] ?? null;
 }
 
-export async function insertUser(db: Database, values: { email: string; name: string; passwordHash: string; emailVerifiedAt?: Date }) {
+export async function insertUser(db: Database, values: { email: string; name: string; passwordHash: string; timeZone?: string; emailVerifiedAt?: Date }) {
   const rows = await db.insert(users).values(values).onConflictDoNothing({ target: users.email }).returning(publicColumns);
   return rows[0] ?? null;
 }

@@ -36,7 +36,7 @@ export async function claimVerification(db: Database, id: string): Promise<boole
 
 /** The account a confirmation mail goes to, read when the mail is sent. */
 export async function findAccountToVerify(db: Database, userId: string) {
-  const [row] = await db.select({ email: users.email, name: users.name, verifiedAt: users.emailVerifiedAt }).from(users).where(eq(users.id, userId));
+  const [row] = await db.select({ email: users.email, name: users.name, verifiedAt: users.emailVerifiedAt, timeZone: users.timeZone }).from(users).where(eq(users.id, userId));
   return row ?? null;
 }
 

@@ -1,4 +1,5 @@
 import { addHours } from "date-fns";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
 import type { Request } from "express";
 import type { VerificationMailAnswer } from "../../shared/auth/schemas";
 import type { Database } from "../db/client";
@@ -39,7 +40,8 @@ export function verificationMailRenderer(deps: Pick<VerificationDeps, "db" | "ap
     if (account.verifiedAt) return { skip: "the address is already confirmed" };
     const { token, hash } = newLinkToken();
     await deleteExpiredVerifications(deps.db, userId);
-    await insertVerification(deps.db, { userId, email: account.email, tokenHash: hash, expiresAt: addHours(new Date(), VERIFICATION_LIFETIME_HOURS) });
+    const expiresAt = addHours(new Date(), VERIFICATION_LIFETIME_HOURS);
+    await insertVerification(deps.db, { userId, email: account.email, tokenHash: hash, expiresAt });
     return {
       send: {
         to: account.email,
@@ -50,7 +52,7 @@ export function verificationMailRenderer(deps: Pick<VerificationDeps, "db" | "ap
           "Open this link to confirm that this address is yours:",
           `${deps.appUrl}/verify/${token}`,
           "",
-          `It works once and expires in ${VERIFICATION_LIFETIME_HOURS} hours. Until the address is confirmed you can use Kerf, but it won't send invitations or review links for you.`,
+          `It works once and expires in ${VERIFICATION_LIFETIME_HOURS} hours, at ${formatInstantNamingZone(expiresAt, account.timeZone)}. Until the address is confirmed you can use Kerf, but it won't send invitations or review links for you.`,
           "",
           "If you didn't make a Kerf account, ignore this message.",
         ].join("\n"),
@@ -70,7 +72,8 @@ export function addressChangeMailRenderer(deps: Pick<VerificationDeps, "db" | "a
     if (!account) return { skip: "the account was deleted" };
     if (account.email === email) return { skip: "the account already uses this address" };
     const { token, hash } = newLinkToken();
-    await replaceAddressChangeLink(deps.db, { userId, email, tokenHash: hash, expiresAt: addHours(new Date(), VERIFICATION_LIFETIME_HOURS) });
+    const expiresAt = addHours(new Date(), VERIFICATION_LIFETIME_HOURS);
+    await replaceAddressChangeLink(deps.db, { userId, email, tokenHash: hash, expiresAt });
     return {
       send: {
         to: email,
@@ -81,7 +84,7 @@ export function addressChangeMailRenderer(deps: Pick<VerificationDeps, "db" | "a
           `You asked Kerf to use this address instead of ${account.email}. Open this link to make the change:`,
           `${deps.appUrl}/verify/${token}`,
           "",
-          `It works once and expires in ${VERIFICATION_LIFETIME_HOURS} hours. Until then Kerf keeps writing to ${account.email}, and you sign in with it.`,
+          `It works once and expires in ${VERIFICATION_LIFETIME_HOURS} hours, at ${formatInstantNamingZone(expiresAt, account.timeZone)}. Until then Kerf keeps writing to ${account.email}, and you sign in with it.`,
           "",
           "If you didn't ask for this, ignore this message: nothing changes.",
         ].join("\n"),

@@ -175,12 +175,15 @@ export async function findInvitationByHash(db: Database, tokenHash: string) {
 }
 
 /** What an invitation's mail needs when it is sent. */
+/** An invitation as its mail says it, with the zone of the account its address already has (null: none, write UTC). */
 export async function findInvitationToMail(db: Database, invitationId: string) {
   const [row] = await invitationsWithSender(db).where(eq(invitations.id, invitationId));
-  return row ?? null;
+  if (!row) return null;
+  const [invitee] = await db.select({ timeZone: users.timeZone }).from(users).where(eq(users.email, row.email));
+  return { ...row, inviteeTimeZone: invitee?.timeZone ?? null };
 }
 
-export type Joiner = { userId: string } | { newAccount: { email: string; name: string; passwordHash: string } };
+export type Joiner = { userId: string } | { newAccount: { email: string; name: string; passwordHash: string; timeZone?: string } };
 
 /**
  * In one transaction: marks the invitation used, makes the newcomer's account (already confirmed:

@@ -1,4 +1,5 @@
 import { addDays } from "date-fns";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
 import { roleLabels, roleMay, type Role } from "../../shared/access/roles";
 import type { AcceptInvitationInput, InvitationPreview } from "../../shared/channels/schemas";
 import type { Database } from "../db/client";
@@ -81,7 +82,7 @@ export function invitationMailRenderer(deps: Pick<InvitationDeps, "db" | "appUrl
         text: [
           `${invitation.invitedBy} invited you to join ${invitation.channelName} on Kerf as ${roleLabels[invitation.role].toLowerCase()}.`,
           "",
-          `Open this link to accept (it works once, for this address, and expires on ${invitation.expiresAt.toUTCString()}):`,
+          `Open this link to accept (it works once, for this address, and expires on ${formatInstantNamingZone(invitation.expiresAt, invitation.inviteeTimeZone ?? "UTC")}):`,
           `${deps.appUrl}/invite/${token}`,
           "",
           "If you weren't expecting this, ignore the message; nothing happens until the link is opened.",
@@ -168,5 +169,5 @@ async function newAccountFor(email: string, input: AcceptInvitationInput) {
       password: "Choose a password.",
     });
   }
-  return { email, name: input.name, passwordHash: await hashPassword(input.password) };
+  return { email, name: input.name, passwordHash: await hashPassword(input.password), ...(input.timeZone ? { timeZone: input.timeZone } : {}) };
 }

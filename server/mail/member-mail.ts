@@ -3,6 +3,7 @@ import type { MailTopic } from "../../shared/auth/account";
 import type { Database } from "../db/client";
 import { channelShare, mailKind, type MailRenderers } from "./mail-jobs";
 import { findMemberAddress, listMembersInRoles } from "./recipients.repository";
+import { writeMoments } from "./times";
 
 /** What the recipient must still be allowed to do, in the spec's role table, when the mail goes out. */
 export interface Permission {
@@ -23,6 +24,7 @@ export interface MemberMail {
   /** What the mail is about: a recipient who turned that topic off on their account page gets nothing. */
   topic: MailTopic;
   subject: string;
+  /** Moments in it are `momentFor(at)`: written when the mail is sent, in the recipient's time zone. */
   text: string;
 }
 
@@ -39,7 +41,7 @@ export function memberMailRenderer(db: Database): MailRenderers {
     const member = mail.userId ? await findMemberAddress(db, mail.channelId, mail.userId) : null;
     if (member?.mailOptOuts.includes(mail.topic)) return { skip: `the recipient turned off mail about ${mail.topic}` };
     if (member && roleMay(member.role, mail.needs.area, mail.needs.need)) {
-      return { send: { to: member.email, subject: mail.subject, text: mail.text } };
+      return { send: { to: member.email, subject: mail.subject, text: writeMoments(mail.text, member.timeZone) } };
     }
     const reason = member ? "the recipient's role no longer allows it" : "the recipient is no longer a member";
     if (!mail.otherwise) return { skip: reason };

@@ -6,7 +6,7 @@ import { memberships, users } from "../db/schema/accounts";
 /** A member's current address and role in a channel; null once they have left it. */
 export async function findMemberAddress(db: Database, channelId: string, userId: string) {
   const [row] = await db
-    .select({ email: users.email, name: users.name, role: memberships.role, mailOptOuts: users.mailOptOuts })
+    .select({ email: users.email, name: users.name, role: memberships.role, mailOptOuts: users.mailOptOuts, timeZone: users.timeZone })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(and(eq(memberships.channelId, channelId), eq(memberships.userId, userId)));

@@ -1,11 +1,10 @@
-import { format } from "date-fns";
-import { parseIsoDate } from "../../shared/slate/dates";
+import { formatDay } from "../../shared/fields/written-dates";
 import { slateFlagCodes, type BoardFlag } from "../../shared/slate/flags";
 import type { GateProblem } from "../../shared/slate/gates";
 import { currentStageDue, episodeRisks, publishDateOf, type DueOverrides, type RiskReason, type StageLengths } from "../../shared/slate/schedule";
 import { stageLabels, type Stage } from "../../shared/slate/stages";
 
-const day = (date: string) => format(parseIsoDate(date), "EEE d MMM");
+const day = (date: string) => formatDay(date, { withYear: false });
 
 export function riskFlag(risk: RiskReason, current: Stage): BoardFlag {
   if (risk.code === "stage_overdue") {

@@ -1,4 +1,4 @@
-import { and, asc, eq, isNotNull, ne, notInArray } from "drizzle-orm";
+import { and, asc, eq, isNotNull, ne, notInArray, sql } from "drizzle-orm";
 import { moneyKinds } from "../../shared/sponsors/deliverables";
 import type { Database } from "../db/client";
 import { deals, deliverables, sponsors } from "../db/schema/sponsors";
@@ -9,7 +9,8 @@ import { episodeIdIn } from "../seams/board-flags";
 /** Open items of live deals on these episodes that have a date; never invoice or payment items (every role sees the board). */
 export async function datedOpenItems(db: Database, channelId: string, episodeIds: string[]) {
   return db
-    .select({ episodeId: deals.episodeId, company: sponsors.company, title: deliverables.title, status: deliverables.status, dueDate: deliverables.dueDate })
+    // Only the board's episodes pass the filter below, so the id is never null here.
+    .select({ episodeId: sql<string>`${deals.episodeId}`, company: sponsors.company, title: deliverables.title, status: deliverables.status, dueDate: deliverables.dueDate })
     .from(deliverables)
     .innerJoin(deals, eq(deals.id, deliverables.dealId))
     .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
@@ -42,5 +43,5 @@ export async function episodesSponsoredBy(db: Database, channelId: string, spons
     .select({ episodeId: deals.episodeId })
     .from(deals)
     .where(and(eq(deals.channelId, channelId), eq(deals.sponsorId, sponsorId), ne(deals.state, "cancelled")));
-  return new Set(rows.map((r) => r.episodeId));
+  return new Set(rows.flatMap((r) => (r.episodeId === null ? [] : [r.episodeId])));
 }

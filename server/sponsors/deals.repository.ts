@@ -26,7 +26,7 @@ export async function findDeal(db: Db, channelId: string, dealId: string) {
   const [row] = await db
     .select(dealColumns)
     .from(deals)
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .leftJoin(episodes, eq(episodes.id, deals.episodeId))
     .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
     .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)));
   return row ?? null;
@@ -47,6 +47,16 @@ export async function findEpisodeInChannel(db: Db, channelId: string, episodeId:
     .select({ id: episodes.id, title: episodes.title, publishDate: episodes.targetPublishDate })
     .from(episodes)
     .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)));
+  return row ?? null;
+}
+
+/** Ties a deal that waits for its episode, if it is still at `version` and still waits; null otherwise. */
+export async function tieDealRow(db: Db, channelId: string, dealId: string, version: number, episode: { id: string; publishDate: string | null }) {
+  const [row] = await db
+    .update(deals)
+    .set({ episodeId: episode.id, publishBasis: episode.publishDate, version: nextVersion(deals.version), updatedAt: new Date() })
+    .where(and(eq(deals.id, dealId), eq(deals.channelId, channelId), eq(deals.version, version), isNull(deals.episodeId)))
+    .returning();
   return row ?? null;
 }
 
@@ -111,7 +121,7 @@ export async function openDeliverables(db: Db, channelId: string) {
     .select({
       id: deliverables.id,
       dealId: deliverables.dealId,
-      episodeId: deals.episodeId,
+      episodeId: episodes.id,
       episodeTitle: episodes.title,
       sponsorId: deals.sponsorId,
       company: sponsors.company,
@@ -249,6 +259,7 @@ export async function findReviewLinkInDeal(db: Db, channelId: string, dealId: st
 
 /** The link a token names, with what its page shows; found by id alone (the token's signature vouches for it). */
 export async function findReviewLinkForPage(db: Db, linkId: string) {
+  // Links are sent only for deals tied to an episode, and a deal stays tied: the inner join finds it.
   const [row] = await db
     .select({ link: reviewLinks, deal: deals, channelName: channels.name, company: sponsors.company, episodeTitle: episodes.title, deliverableTitle: deliverables.title, deliverableStatus: deliverables.status })
     .from(reviewLinks)
@@ -292,7 +303,7 @@ export async function claimReviewDecision(db: Db, linkId: string, decision: "app
 /** Deals whose open items were dated from a publish date the episode no longer has. */
 export async function dealsBehindPublishDate(db: Db, channelId: string | null) {
   return db
-    .select({ dealId: deals.id, channelId: deals.channelId, episodeId: deals.episodeId })
+    .select({ dealId: deals.id, channelId: deals.channelId, episodeId: episodes.id })
     .from(deals)
     .innerJoin(episodes, eq(episodes.id, deals.episodeId))
     .where(

@@ -1,10 +1,10 @@
-import { createDealSchema, cutSchema, moneySchema, updateDealSchema } from "../../shared/sponsors/schemas";
+import { createDealSchema, cutSchema, moneySchema, tieDealSchema, updateDealSchema } from "../../shared/sponsors/schemas";
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody, parseVersioned } from "../http/validate";
 import { listEpisodeDeals } from "./deals.repository";
-import { createDeal, dealView, dealViews, updateCut, updateDeal, updateMoney } from "./deals.service";
+import { createDeal, dealView, dealViews, tieDeal, updateCut, updateDeal, updateMoney } from "./deals.service";
 import { catchUpPublishDates } from "./schedule.service";
 
 const base = "/api/channels/:channelId";
@@ -49,6 +49,15 @@ export function dealRoutes(db: Database): RouteSpec[] {
       handler: async (req, res) => {
         const { version, input } = parseVersioned(updateDealSchema, req.body);
         res.json({ deal: await updateDeal(db, callerOf(req), idOf(req, "dealId"), version, input) });
+      },
+    },
+    {
+      method: "put",
+      path: `${deal}/episode`,
+      access: channelAccess("sponsors", "W"),
+      handler: async (req, res) => {
+        const { version, input } = parseVersioned(tieDealSchema, req.body);
+        res.json({ deal: await tieDeal(db, callerOf(req), idOf(req, "dealId"), version, input) });
       },
     },
     {

@@ -5,7 +5,7 @@ import { generateDeliverables, pairedByTemplate, isCutKind, type DeliverableKind
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import { DEFAULT_WORDS_PER_MINUTE, analyseRead, measuredSeconds, mentionsCode, mentionsLink } from "../../shared/sponsors/read";
 import type { DealView, DeliverableEvent, DeliverableView, Money, ReviewLinkView } from "../../shared/sponsors/schemas";
-import type { createDealSchema, cutSchema, updateDealSchema } from "../../shared/sponsors/schemas";
+import type { createDealSchema, cutSchema, tieDealSchema, updateDealSchema } from "../../shared/sponsors/schemas";
 import { segmentProblems } from "../../shared/sponsors/segment";
 import { frameRates, type FrameRateName } from "../../shared/timecode/rates";
 import type { z } from "zod";
@@ -26,6 +26,7 @@ import {
   listDeliverables,
   listEvents,
   listReviewLinks,
+  tieDealRow,
   updateDealRow,
   type DealRow,
   type Db,
@@ -95,7 +96,8 @@ export async function dealViews(db: Db, caller: Caller, rows: DealWithJoins[], n
   const links = runsDeliverables(caller.role) ? await listReviewLinks(db, caller.channelId, dealIds) : [];
   const clipIds = rows.map((r) => r.deal.cutClipId).filter((id): id is string => id !== null);
   const cutClips = await findCutClips(db, caller.channelId, clipIds);
-  const choices = deliversCut(caller.role) ? await listEpisodeClips(db, caller.channelId, [...new Set(rows.map((r) => r.deal.episodeId))]) : [];
+  const episodeIds = [...new Set(rows.map((r) => r.deal.episodeId).filter((id): id is string => id !== null))];
+  const choices = deliversCut(caller.role) ? await listEpisodeClips(db, caller.channelId, episodeIds) : [];
   // The sponsor's pinned comments go to whoever sends the review or delivers the cut.
   const pins = runsDeliverables(caller.role) || deliversCut(caller.role) ? await listDealPins(db, caller.channelId, dealIds) : [];
 
@@ -226,9 +228,12 @@ function ownerFor(item: TemplateItem, caller: Caller, members: { userId: string;
   return members.find((m) => m.role === item.ownerRole)?.userId ?? caller.userId;
 }
 
+const notThisChannels = () => new AppError("validation_failed", "Some fields need attention.", { episodeId: "Pick an episode of this channel." });
+
 export async function createDeal(db: Database, caller: Caller, input: z.output<typeof createDealSchema>): Promise<DealView> {
-  const episode = await findEpisodeInChannel(db, caller.channelId, input.episodeId);
-  if (!episode) throw new AppError("validation_failed", "Some fields need attention.", { episodeId: "Pick an episode of this channel." });
+  // Without an episode the deal waits: its items have no publish date to count from yet.
+  const episode = input.episodeId === null ? { publishDate: null } : await findEpisodeInChannel(db, caller.channelId, input.episodeId);
+  if (!episode) throw notThisChannels();
   const sponsor = await findSponsor(db, caller.channelId, input.sponsorId);
   if (!sponsor) throw new AppError("validation_failed", "Some fields need attention.", { sponsorId: "Pick a sponsor of this channel." });
   await checkReferences(db, caller.channelId, sponsor.id, input);
@@ -274,6 +279,24 @@ export async function createDeal(db: Database, caller: Caller, input: z.output<t
       })),
     );
     return dealView(tx, caller, deal.id);
+  });
+}
+
+/**
+ * Ties a deal recorded against its sponsor to its episode: from then on its open items are dated from
+ * the episode's publish date (they keep waiting while the episode has none) and follow it as it moves.
+ */
+export async function tieDeal(db: Database, caller: Caller, dealId: string, version: number, input: z.output<typeof tieDealSchema>): Promise<DealView> {
+  const current = await findDeal(db, caller.channelId, dealId);
+  if (!current) throw notFound("Deal");
+  if (current.deal.episodeId !== null) throw new AppError("conflict", `This deal is already tied to "${current.episodeTitle}".`);
+  const episode = await findEpisodeInChannel(db, caller.channelId, input.episodeId);
+  if (!episode) throw notThisChannels();
+  return db.transaction(async (tx) => {
+    const tied = await tieDealRow(tx, caller.channelId, dealId, version, episode);
+    if (!tied) throw await staleDeal(tx, caller, dealId);
+    await redateDeal(tx, tied, episode.publishDate, actorOf(caller), `Tied to the episode "${episode.title}"`);
+    return dealView(tx, caller, dealId);
   });
 }
 

@@ -4,7 +4,7 @@ import type { Database } from "../db/client";
 import { notFound, staleSave } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { seesFees } from "./deals.service";
-import { findSponsor, listSponsorDeals, listSponsors, updateContact, updateSponsor } from "./sponsors.repository";
+import { findSponsor, listOpenEpisodes, listSponsorDeals, listSponsors, updateContact, updateSponsor } from "./sponsors.repository";
 
 export const contactOf = (c: Contact): Contact => ({ id: c.id, name: c.name, email: c.email, role: c.role, version: c.version });
 
@@ -27,6 +27,7 @@ export async function sponsorDetail(db: Database, caller: Caller, sponsorId: str
     dealCount: deals.length,
     version: sponsor.version,
     deals: deals.map(({ feeAmount, currency, ...deal }) => (seesFees(caller.role) ? { ...deal, money: { fee: Number(feeAmount), currency } } : deal)),
+    episodes: await listOpenEpisodes(db, caller.channelId),
   };
 }
 

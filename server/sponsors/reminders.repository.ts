@@ -16,7 +16,7 @@ export async function reminderCandidates(db: Database) {
       title: deliverables.title,
       status: deliverables.status,
       dueDate: deliverables.dueDate,
-      episodeId: deals.episodeId,
+      episodeId: episodes.id,
       episodeTitle: episodes.title,
       company: sponsors.company,
       ownerId: users.id,

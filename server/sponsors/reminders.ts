@@ -1,4 +1,5 @@
 import type PgBoss from "pg-boss";
+import { formatDay } from "../../shared/fields/written-dates";
 import { dateInZone, daysBetween } from "../../shared/sponsors/dates";
 import { isMoneyKind, reminderFor } from "../../shared/sponsors/deliverables";
 import type { Database } from "../db/client";
@@ -32,8 +33,9 @@ type Candidate = Awaited<ReturnType<typeof reminderCandidates>>[number];
 
 /** To the item's owner, if they may still see the item (money items: the fees) when the mail goes out. */
 function reminderMail(item: Candidate, kind: "before" | "late", today: string, appUrl: string) {
-  const due = item.dueDate!;
-  const days = daysBetween(today, due);
+  const days = daysBetween(today, item.dueDate!);
+  // A due date is a calendar day, the same in every zone: written as one ("Fri 5 Mar 2027").
+  const due = formatDay(item.dueDate);
   const when = kind === "late" ? `was due on ${due} and is ${-days} day${days === -1 ? "" : "s"} late` : days === 0 ? `is due today (${due})` : `is due in ${days} day${days === 1 ? "" : "s"}, on ${due}`;
   return memberMail({
     channelId: item.channelId,

@@ -1,4 +1,6 @@
 import { createHash } from "node:crypto";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
+import { momentFor } from "../mail/times";
 import { addDays } from "date-fns";
 import { DEFAULT_WORDS_PER_MINUTE, countWords, readSeconds } from "../../shared/sponsors/read";
 import { deliverableStatusLabels, isMoneyKind, isSettled } from "../../shared/sponsors/deliverables";
@@ -63,6 +65,7 @@ export async function sendReviewLink(deps: ReviewDeps, caller: Caller, dealId: s
   const deal = await findDeal(db, caller.channelId, dealId);
   if (!deal) throw notFound("Deal");
   if (deal.deal.state === "cancelled") throw new AppError("conflict", "This deal is cancelled: there is nothing left for the sponsor to review.");
+  if (deal.deal.episodeId === null) throw new AppError("conflict", "Tie this deal to its episode first: the sponsor reviews the episode's segment.");
   const target = await findDeliverable(db, caller.channelId, input.deliverableId);
   if (!target || target.item.dealId !== dealId || isMoneyKind(target.item.kind)) {
     throw new AppError("validation_failed", "Some fields need attention.", { deliverableId: "Pick one of this deal's items for the sponsor to review." });
@@ -145,7 +148,8 @@ export function reviewLinkMailRenderer(deps: Pick<ReviewDeps, "db" | "appUrl" | 
           "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
           reviewUrl(deps.appUrl, deps.tokens.sign(link.id, link.expiresAt)),
           "",
-          `The link is for this one deal, works for one decision, and expires on ${link.expiresAt.toUTCString()}.`,
+          // The contact has no account, so no zone of their own: UTC, named; the page shows it in their browser's zone.
+          `The link is for this one deal, works for one decision, and expires on ${formatInstantNamingZone(link.expiresAt, "UTC")}.`,
         ].join("\n"),
       },
     };
@@ -323,7 +327,7 @@ function decisionMail(deps: ReviewDeps, row: LinkPage, decided: DecidedLink, inp
     otherwise: { area: "deliverables", need: "W", note: `You get this because ${decided.sentByName}, who sent the review link, is no longer in the channel.` },
     subject: `${decided.contactName} of ${row.company} ${decisionWords[input.decision]} "${row.deliverableTitle}"`,
     text: [
-      `${decided.contactName} (${decided.contactEmail}) ${decisionWords[input.decision]} "${row.deliverableTitle}" for "${row.episodeTitle}" on ${decided.decidedAt!.toUTCString()}.`,
+      `${decided.contactName} (${decided.contactEmail}) ${decisionWords[input.decision]} "${row.deliverableTitle}" for "${row.episodeTitle}" on ${momentFor(decided.decidedAt!)}.`,
       "",
       quoted,
       "",

@@ -1,4 +1,4 @@
-import { and, asc, count, eq, inArray } from "drizzle-orm";
+import { and, asc, count, eq, inArray, isNull } from "drizzle-orm";
 import type { Database } from "../db/client";
 import { memberships, users } from "../db/schema/accounts";
 import { episodes } from "../db/schema/slate";
@@ -37,6 +37,7 @@ export async function listSponsorDeals(db: Database, channelId: string, sponsorI
   return db
     .select({
       id: deals.id,
+      version: deals.version,
       episodeId: deals.episodeId,
       episodeTitle: episodes.title,
       state: deals.state,
@@ -46,9 +47,18 @@ export async function listSponsorDeals(db: Database, channelId: string, sponsorI
       currency: deals.currency,
     })
     .from(deals)
-    .innerJoin(episodes, eq(episodes.id, deals.episodeId))
+    .leftJoin(episodes, eq(episodes.id, deals.episodeId))
     .where(and(eq(deals.channelId, channelId), eq(deals.sponsorId, sponsorId)))
     .orderBy(asc(episodes.targetPublishDate), asc(deals.createdAt));
+}
+
+/** The channel's episodes that aren't archived, soonest publish date first: where a waiting deal can be tied. */
+export async function listOpenEpisodes(db: Database, channelId: string) {
+  return db
+    .select({ id: episodes.id, title: episodes.title, publishDate: episodes.targetPublishDate })
+    .from(episodes)
+    .where(and(eq(episodes.channelId, channelId), isNull(episodes.archivedAt)))
+    .orderBy(asc(episodes.targetPublishDate), asc(episodes.title));
 }
 
 export async function insertSponsor(db: Database, channelId: string, input: { company: string; website: string | null; notes: string | null }) {

@@ -1,6 +1,9 @@
 import { z } from "zod";
 import { versionSchema } from "../http/version";
 import { emailSchema, passwordSchema, personNameSchema } from "./schemas";
+import { timeZoneSchema } from "./time-zones";
+
+export { canonicalTimeZone, knownTimeZones, timeZoneSchema } from "./time-zones";
 
 /**
  * Mail a person may turn off. Mail about their own account (a new password, confirming an address)
@@ -14,34 +17,6 @@ export const mailTopicLabels: Record<MailTopic, { label: string; hint: string }>
   reminders: { label: "Due-date reminders", hint: "A sponsor item you own is due soon or late." },
   decisions: { label: "Sponsor answers", hint: "A sponsor approved or asked for changes through a review link you sent." },
 };
-
-/** "UTC" and the zones this JavaScript engine knows (the IANA time zone database, as ICU ships it). */
-export function knownTimeZones(): string[] {
-  return ["UTC", ...Intl.supportedValuesOf("timeZone").filter((zone) => zone !== "UTC")];
-}
-
-/**
- * The zone's own name as the engine spells it, or null when the engine knows no such zone. Engines
- * accept some names their list leaves out (older or newer spellings, such as Asia/Calcutta and
- * Asia/Kolkata), so the check asks the engine rather than the list.
- */
-export function canonicalTimeZone(zone: string): string | null {
-  if (!/^[A-Za-z][A-Za-z0-9_+\-/]{0,63}$/.test(zone)) return null;
-  try {
-    return new Intl.DateTimeFormat("en", { timeZone: zone }).resolvedOptions().timeZone;
-  } catch {
-    return null;
-  }
-}
-
-export const timeZoneSchema = z
-  .string({ error: "Choose a time zone." })
-  .transform((zone, context) => {
-    const known = canonicalTimeZone(zone);
-    if (known) return known;
-    context.addIssue({ code: "custom", message: "Choose a time zone from the list." });
-    return z.NEVER;
-  });
 
 /** The account as its settings page shows it. */
 export interface AccountSettings {

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { roles } from "../access/roles";
 import { oneLine } from "../fields/text";
+import { timeZoneSchema } from "./time-zones";
 
 export const emailSchema = z
   .string({ error: "Enter an e-mail address." })
@@ -32,6 +33,8 @@ export const signUpSchema = z.strictObject({
   email: emailSchema,
   password: passwordSchema,
   channelName: channelNameSchema,
+  /** The browser's zone, which the new account starts with (UTC when none is sent); changed on the account page. */
+  timeZone: timeZoneSchema.optional(),
 });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { roles } from "../access/roles";
 import { emailSchema, passwordSchema, personNameSchema } from "../auth/schemas";
+import { timeZoneSchema } from "../auth/time-zones";
 
 export const roleSchema = z.enum(roles, { error: "Pick one of owner, producer, editor or crew." });
 
@@ -51,7 +52,8 @@ export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
 /** Accepting as a newcomer creates the account; a signed-in person sends an empty body. */
 export const acceptInvitationSchema = z.union([
-  z.strictObject({ name: personNameSchema, password: passwordSchema }),
+  // A newcomer's account starts in the browser's zone (UTC when none is sent).
+  z.strictObject({ name: personNameSchema, password: passwordSchema, timeZone: timeZoneSchema.optional() }),
   z.strictObject({}),
 ]);
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;

@@ -68,8 +68,11 @@ export interface SponsorSummary {
 
 export interface SponsorDealRow {
   id: string;
-  episodeId: string;
-  episodeTitle: string;
+  /** The deal's version: tying it to an episode names it. */
+  version: number;
+  /** Null while a signed deal waits for its episode. */
+  episodeId: string | null;
+  episodeTitle: string | null;
   state: DealState;
   placement: Placement;
   publishDate: string | null;
@@ -79,6 +82,8 @@ export interface SponsorDealRow {
 
 export interface SponsorDetail extends SponsorSummary {
   deals: SponsorDealRow[];
+  /** The channel's episodes that aren't archived: where a deal waiting for its episode can be tied. */
+  episodes: { id: string; title: string; publishDate: string | null }[];
 }
 
 // ── Templates ──────────────────────────────────────────────────────────
@@ -181,7 +186,8 @@ export type MoneyInput = z.input<typeof moneySchema>;
 export type Money = z.infer<typeof moneySchema>;
 
 export const createDealSchema = z.strictObject({
-  episodeId: id("episode"),
+  // Null: a deal signed before its episode exists, recorded against the sponsor and tied later.
+  episodeId: id("episode").nullable().default(null),
   sponsorId: id("sponsor"),
   templateId: id("template").nullable(),
   ...segmentFields,
@@ -197,6 +203,10 @@ export const updateDealSchema = z
   .partial()
   .refine((v) => Object.keys(v).length > 0, { message: "Change at least one field." });
 export type UpdateDealInput = z.input<typeof updateDealSchema>;
+
+/** Ties a deal recorded against its sponsor to the episode that carries it; its items are dated from then on. */
+export const tieDealSchema = z.strictObject({ episodeId: id("episode") });
+export type TieDealInput = z.input<typeof tieDealSchema>;
 
 export const cutTimingSchema = z
   .strictObject({
@@ -408,8 +418,9 @@ export interface DealView {
   id: string;
   /** The deal's version: its segment, script, money and cut saves each name it. */
   version: number;
-  episodeId: string;
-  episodeTitle: string;
+  /** Null while the deal waits for its episode (its items wait for a publish date too). */
+  episodeId: string | null;
+  episodeTitle: string | null;
   publishDate: string | null;
   sponsor: { id: string; company: string };
   contact: Contact | null;

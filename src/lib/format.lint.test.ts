@@ -27,6 +27,7 @@ describe("only one date format function is used by the client", () => {
     ["date-fns' format under another name", "import { format as write } from 'date-fns/format';\nexport const a = write(new Date(), 'yyyy');"],
     ["all of date-fns at once", "import * as dates from 'date-fns';\nexport const a = dates.format(new Date(), 'yyyy');"],
     ["a formatter of shared/ instead of the client's", "import { formatBytes } from '@shared/rushes/limits';\nexport const a = formatBytes(1);"],
+    ["the shared date module instead of the client's", "import { formatInstant } from '@shared/fields/written-dates';\nexport const a = formatInstant(new Date(), 'UTC');"],
   ])("refuses %s outside src/lib/format.ts", async (_what, code) => {
     const problems = await problemsIn(code);
     expect(problems).toHaveLength(1);

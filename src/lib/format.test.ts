@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDay, formatDuration, formatInstant, formatInstantDay, formatMoney, formatSeconds, formatSize } from "./format";
+import { formatDay, formatDuration, formatInstant, formatInstantDay, formatInstantNamingZone, formatMoney, formatSeconds, formatSize } from "./format";
 
 // Offsets and daylight-saving dates from the IANA time zone database (tzdata, files `asia` and
 // `northamerica`): Asia/Tokyo keeps UTC+9 all year (no daylight saving since 1951); America/Los_Angeles
@@ -51,6 +51,21 @@ describe("formatInstant: a moment in the reader's zone, naming the zone", () => 
   it("gives only the day where the time of day doesn't matter, still in the reader's zone", () => {
     expect(formatInstantDay(nearMidnight, "Asia/Tokyo")).toBe("Sat 6 Mar 2027");
     expect(formatInstantDay(nearMidnight, "America/Los_Angeles")).toBe("Fri 5 Mar 2027");
+  });
+});
+
+describe("formatInstantNamingZone: for a reader who may not know the zone, its name too", () => {
+  const nearMidnight = "2027-03-05T23:30:00Z";
+  // Europe/Berlin is UTC+1 in winter, UTC+2 from the last Sunday of March (tzdata file `europe`, EU rule
+  // of Directive 2000/84/EC): 12 Dec 2026 is in winter; 12 Dec 2026 is a Saturday (GNU `date`).
+  it("writes the offset and the zone's name", () => {
+    expect(formatInstantNamingZone("2026-12-12T17:00:00Z", "Europe/Berlin")).toBe("Sat 12 Dec 2026, 18:00 UTC+1 (Europe/Berlin)");
+    expect(formatInstantNamingZone(nearMidnight, "Asia/Kolkata")).toBe("Sat 6 Mar 2027, 05:00 UTC+5:30 (Asia/Kolkata)");
+  });
+
+  it("lets UTC name itself, and an unknown zone falls back to UTC without borrowing its name", () => {
+    expect(formatInstantNamingZone(nearMidnight, "UTC")).toBe("Fri 5 Mar 2027, 23:30 UTC");
+    expect(formatInstantNamingZone(nearMidnight, "Mars/Olympus_Mons")).toBe("Fri 5 Mar 2027, 23:30 UTC");
   });
 });
 

@@ -1,5 +1,8 @@
 import { formatBytes } from "@shared/rushes/limits";
 
+// Dates and instants are written by the module the server's mails use too, so a page and a mail agree.
+export { formatDay, formatInstant, formatInstantDay, formatInstantNamingZone } from "@shared/fields/written-dates";
+
 /**
  * How Kerf writes dates, times, durations, sizes and money, the same way on every page. It is the
  * only module of the client that formats them: lint forbids `toLocale*String`, `Intl.DateTimeFormat`,
@@ -9,7 +12,8 @@ import { formatBytes } from "@shared/rushes/limits";
  *   "Fri 5 Mar 2027", or "Fri 5 Mar" where the year goes without saying.
  * - An instant (a comment, a move, an expiry), in the member's own time zone and always naming it,
  *   since the reader may be somewhere else: "Fri 5 Mar 2027, 14:05 UTC+1". Only its day, where the
- *   time of day doesn't matter: "Fri 5 Mar 2027".
+ *   time of day doesn't matter: "Fri 5 Mar 2027". Where the reader may not know the zone (a
+ *   signed-out page, an expiry read elsewhere) the zone's name too: "…, 18:00 UTC+1 (Europe/Berlin)".
  * - A duration, in its two largest units with the smaller one in two digits: "1 h 05 min",
  *   "4 min 07 s", "45 s", "3 d 4 h".
  * - A size in binary units, as storage counts them and as the server's messages write them, with
@@ -18,87 +22,13 @@ import { formatBytes } from "@shared/rushes/limits";
  * English words and 24-hour times for everyone, whatever the browser's language.
  */
 
-const weekdays = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"] as const;
-const months = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"] as const;
-
-/** A moment's calendar and clock as seen in one time zone. */
-interface Reading {
-  year: number;
-  month: number;
-  day: number;
-  hour: number;
-  minute: number;
-  zone: string;
-}
-
-const readers = new Map<string, Intl.DateTimeFormat>();
-
-/** Building a formatter costs far more than using one; a page may show hundreds of times. */
-function readerFor(timeZone: string): Intl.DateTimeFormat {
-  let reader = readers.get(timeZone);
-  if (!reader) {
-    reader = new Intl.DateTimeFormat("en-GB", {
-      timeZone,
-      year: "numeric",
-      month: "numeric",
-      day: "numeric",
-      hour: "numeric",
-      minute: "numeric",
-      hourCycle: "h23",
-      timeZoneName: "shortOffset",
-    });
-    readers.set(timeZone, reader);
-  }
-  return reader;
-}
-
-/** The one place a moment becomes words: its parts in the zone, read by Intl, written in Kerf's order. */
-function read(moment: Date, timeZone: string): Reading {
-  let parts: Intl.DateTimeFormatPart[];
-  try {
-    parts = readerFor(timeZone).formatToParts(moment);
-  } catch {
-    // An unknown zone name (a stale setting) must not blank the page: UTC, and it says so.
-    parts = readerFor("UTC").formatToParts(moment);
-  }
-  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
-  // Intl names the offset from GMT ("GMT+9", "GMT+0"); Kerf writes it from UTC, as ISO 8601 does.
-  const zone = part("timeZoneName").replace(/^GMT/, "UTC").replace(/^UTC(\+0)?$/, "UTC") || "UTC";
-  return { year: Number(part("year")), month: Number(part("month")), day: Number(part("day")), hour: Number(part("hour")), minute: Number(part("minute")), zone };
-}
-
-function dayWords({ year, month, day }: Pick<Reading, "year" | "month" | "day">, withYear: boolean): string {
-  // The weekday of a calendar day is the same in every zone: count it in UTC.
-  const weekday = weekdays[new Date(Date.UTC(year, month - 1, day)).getUTCDay()];
-  return `${weekday} ${day} ${months[month - 1]}${withYear ? ` ${year}` : ""}`;
-}
-
-const isoDate = /^(\d{4})-(\d{2})-(\d{2})$/;
-
-/** A calendar date ("2027-03-05") as people read it: "Fri 5 Mar 2027". Empty for no date. */
-export function formatDay(date: string | null | undefined, { withYear = true }: { withYear?: boolean } = {}): string {
-  if (!date) return "";
-  const match = isoDate.exec(date);
-  if (!match) return date;
-  return dayWords({ year: Number(match[1]), month: Number(match[2]), day: Number(match[3]) }, withYear);
-}
-
-/** An instant with its time of day, in the reader's zone and naming it: "Fri 5 Mar 2027, 14:05 UTC+1". */
-export function formatInstant(instant: string | Date, timeZone: string): string {
-  const reading = read(new Date(instant), timeZone);
-  const clock = `${String(reading.hour).padStart(2, "0")}:${String(reading.minute).padStart(2, "0")}`;
-  return `${dayWords(reading, true)}, ${clock} ${reading.zone}`;
-}
-
-/** The day an instant fell on in the reader's zone, where its time of day doesn't matter: "Fri 5 Mar 2027". */
-export function formatInstantDay(instant: string | Date, timeZone: string): string {
-  return dayWords(read(new Date(instant), timeZone), true);
-}
-
 /** The zone this browser is set to: the member's zone until they choose one in their settings. */
 export function browserTimeZone(): string {
   return new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
 }
+
+/** A day in milliseconds, for a count of days written as a duration ("Late by 3 d"). */
+export const DAY_MS = 86_400_000;
 
 const units = [
   { symbol: "d", ms: 86_400_000 },

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
 import { PASSWORD_RESET_ANSWER } from "../../shared/auth/account";
 import { createCrewedChannel, createUser } from "../factories/accounts";
 import { createPasswordReset, sha256Hex, uniqueEmail } from "../factories/invitations";
@@ -48,6 +49,18 @@ describe("forgot password", () => {
     const output = (await jobsIn(app.database.pool, "mail")).find((j) => j.id === job!.id)!.output;
     expect(JSON.stringify(output)).toContain("no account has this address");
     expect(await mailTo(nobody)).toEqual([]);
+  });
+
+  it("when the link is mailed, then its expiry is written in the account's own zone, naming it", async () => {
+    // America/St_Johns is UTC−3:30 in winter (IANA tz database, zone America/St_Johns); a half-hour offset
+    // shows the time is converted, not only relabelled.
+    const person = await createUser(app.db, { timeZone: "America/St_Johns" });
+    const visitor = await app.visitor();
+    await visitor.send("post", "/api/auth/password-reset", { email: person.email }).expect(202);
+    const mail = await waitForMail(person.email);
+    const { expires_at: expiresAt } = (await app.database.pool.query("select expires_at from password_resets where user_id = $1", [person.id])).rows[0];
+    expect(mail.text).toContain(`expires in 1 hour, at ${formatInstantNamingZone(expiresAt, "America/St_Johns")}.`);
+    expect(mail.text).toMatch(/, \d{2}:\d{2} UTC-[23]:30 \(America\/St_Johns\)\./);
   });
 
   it("when the link is used, then the password changes, every session of the account ends, the link works only once, and only its hash was stored", async () => {

@@ -66,6 +66,20 @@ describe("signing up, in and out", () => {
     expect(stored.rows).toEqual([{ role: "owner", name: "Thrust Lab" }]);
   });
 
+  it("when someone signs up from a browser in another zone, then the account starts in that zone; an unknown zone is refused and makes nothing", async () => {
+    const visitor = await app.visitor();
+    const body = signUpBody({ channelName: "Zone Lab" });
+    const made = await visitor.send("post", "/api/auth/sign-up", { ...body, timeZone: "Asia/Tokyo" }).expect(201);
+    expect(made.body.user.timeZone).toBe("Asia/Tokyo");
+    const bad = signUpBody({ channelName: "Nowhere Lab" });
+    const refused = await (await app.visitor()).send("post", "/api/auth/sign-up", { ...bad, timeZone: "Mars/Olympus_Mons" }).expect(400);
+    expect(refused.body.error.fields).toEqual({ timeZone: "Choose a time zone from the list." });
+    expect((await app.database.pool.query("select count(*)::int as n from users where email = $1", [bad.email])).rows[0].n).toBe(0);
+    // Without one (an older client), UTC, as before.
+    const plain = await (await app.visitor()).send("post", "/api/auth/sign-up", signUpBody({ channelName: "Plain Lab" })).expect(201);
+    expect(plain.body.user.timeZone).toBe("UTC");
+  });
+
   it("when a channel is made, by signing up or later, then it starts with one deal template to adjust", async () => {
     const visitor = await app.visitor();
     const made = await visitor.send("post", "/api/auth/sign-up", signUpBody({ channelName: "Starter Lab" })).expect(201);

@@ -103,6 +103,13 @@ describe("inviting by e-mail", () => {
     await app.signedIn({ email, password: NEWCOMER.password });
   });
 
+  it("when a newcomer accepts from a browser in another zone, then their account starts in it", async () => {
+    const { channel, agent } = await ownerWithChannel();
+    const { token } = await invite(agent, channel.id, "crew");
+    const accepted = await accept(token, { ...NEWCOMER, timeZone: "America/Sao_Paulo" }, { status: 200 });
+    expect(accepted.body.me.user.timeZone).toBe("America/Sao_Paulo");
+  });
+
   it("when a link has been used, then using it again answers 410 and its preview says accepted", async () => {
     const { channel, agent } = await ownerWithChannel();
     const { token } = await invite(agent, channel.id);

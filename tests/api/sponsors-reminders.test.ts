@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { formatDay } from "../../shared/fields/written-dates";
 import { startMailCatcher, type MailCatcher } from "../../dev-services/mail";
 import { freePort } from "../../dev-services/processes";
 import { connectDatabase, type DatabaseHandle } from "../../server/db/client";
@@ -111,7 +112,7 @@ describe("deliverable reminders", () => {
     mail = await startMailCatcher({ smtpPort, webPort });
     const fresh = await waitForCount(owner.email, 1);
     expect(fresh.map((m) => m.subject)).toEqual(["Due soon: Due in two days (Alder Optics)"]);
-    expect(fresh[0]!.text).toContain(`is due in 1 day, on ${shiftDate(today, 1)}`);
+    expect(fresh[0]!.text).toContain(`is due in 1 day, on ${formatDay(shiftDate(today, 1))}`);
     expect(await waitForJobStates(database.pool, freshMail)).toEqual(["completed"]);
     expect(await inbox(owner.email)).toHaveLength(1);
   }, 150_000);

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
+import { formatInstantNamingZone } from "../../shared/fields/written-dates";
 import { Readable } from "node:stream";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import { reviewTokens } from "../../server/sponsors/review-token";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
@@ -75,7 +76,7 @@ describe("sending a review link", () => {
         "Open this link to read the script (and watch the cut, if one is attached), then approve it or ask for changes. You don't need an account:",
         sent.url,
         "",
-        `The link is for this one deal, works for one decision, and expires on ${new Date(sent.link.expiresAt).toUTCString()}.`,
+        `The link is for this one deal, works for one decision, and expires on ${formatInstantNamingZone(sent.link.expiresAt, "UTC")}.`,
         "",
       ].join("\n"),
     );
@@ -129,6 +130,9 @@ describe("the sponsor's review page", () => {
   });
 
   it("when the contact asks for changes, then it needs the page's CSRF token, moves the item, records their name and mails the producer", async () => {
+    // The producer reads Kerf in Kolkata (UTC+5:30 all year, no summer time: IANA tz database, zone Asia/Kolkata).
+    await app.database.pool.query("update users set time_zone = 'Asia/Kolkata' where id = $1", [world.producer.id]);
+    onTestFinished(async () => void (await app.database.pool.query("update users set time_zone = 'UTC' where id = $1", [world.producer.id])));
     const sent = await sentLink();
     const visitor = await app.visitor();
     const noToken = await visitor.agent.post(`/api/review/${sent.token}/decision`).send({ decision: "changes_asked", comment: "Mention the warranty." });
@@ -151,6 +155,10 @@ describe("the sponsor's review page", () => {
     const mail = await waitForMail(world.producer.email);
     expect(mail.subject).toBe('Rosa Lindgren of Northbeam Tools asked for changes to "Sponsor approves the script"');
     expect(mail.text).toContain("Please mention the two-year warranty.");
+    // The mail writes when the sponsor decided in the producer's own zone, and names it.
+    const decidedAt = (await app.database.pool.query("select decided_at from review_links where id = $1", [sent.link.id])).rows[0].decided_at as Date;
+    expect(mail.text).toContain(`on ${formatInstantNamingZone(decidedAt, "Asia/Kolkata")}.`);
+    expect(mail.text).toMatch(/, \d{2}:\d{2} UTC\+5:30 \(Asia\/Kolkata\)\./);
   });
 
   it("when a used link is opened or decided again, then it says it was used and changes nothing", async () => {

@@ -49,7 +49,7 @@ interface DealOverrides {
 }
 
 /** A deal with its items dated from the episode's publish date, straight in the database. */
-export async function createDeal(db: Database, channelId: string, episodeId: string, overrides: DealOverrides) {
+export async function createDeal(db: Database, channelId: string, episodeId: string | null, overrides: DealOverrides) {
   const publishDate = overrides.publishDate ?? null;
   const [deal] = await db
     .insert(deals)

@@ -3,7 +3,7 @@ import { createdAt, id, timestamps, updatedAt, version } from "./columns";
 import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
 import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
 import { channelRef, channels, personRef, users } from "./accounts";
-import { episodeRef } from "./slate";
+import { episodes } from "./slate";
 
 export const dealStateEnum = pgEnum("deal_state", dealStates);
 export const placementEnum = pgEnum("deal_placement", placements);
@@ -63,7 +63,8 @@ export const deals = pgTable(
   {
     id: id(),
     channelId: channelRef(),
-    episodeId: episodeRef(),
+    // Null while a signed deal waits for its episode: recorded against the sponsor, tied later.
+    episodeId: uuid("episode_id").references(() => episodes.id, { onDelete: "cascade" }),
     sponsorId: uuid("sponsor_id")
       .notNull()
       .references(() => sponsors.id, { onDelete: "restrict" }),

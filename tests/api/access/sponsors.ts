@@ -33,6 +33,7 @@ export const access: FeatureAccess = {
     [`POST ${c}/deals`,                                          401, ok, ok, 403, 403, 404],
     [`GET ${c}/deals/:dealId`,                                   401, ok, ok, ok,  ok,  404],
     [`PATCH ${c}/deals/:dealId`,                                 401, ok, ok, 403, 403, 404],
+    [`PUT ${c}/deals/:dealId/episode`,                           401, ok, ok, 403, 403, 404],
     [`PUT ${c}/deals/:dealId/money`,                             401, ok, ok, 403, 403, 404],
     [`PUT ${c}/deals/:dealId/cut`,                               401, ok, ok, ok,  403, 404],
     [`POST ${c}/deals/:dealId/deliverables`,                     401, ok, ok, 403, 403, 404],
@@ -189,6 +190,18 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       prepare: async () => {
         const { deal } = await freshDeal();
         return { params: { dealId: deal.id }, body: { script: "Changed", version: 1 }, intact: async () => expect((await one("select script from deals where id = $1", [deal.id])).script).toBe("") };
+      },
+    },
+    [`PUT ${c}/deals/:dealId/episode`]: {
+      ok: 200,
+      prepare: async () => {
+        const sponsor = await createSponsor(app.db, channelId, { company: `Matrix ${randomUUID().slice(0, 6)}` });
+        const { deal } = await createDeal(app.db, channelId, null, { sponsorId: sponsor.id, items: suggestedTemplateItems });
+        return {
+          params: { dealId: deal.id },
+          body: { episodeId: world.episode.id, version: 1 },
+          intact: async () => expect((await one("select episode_id from deals where id = $1", [deal.id])).episode_id).toBeNull(),
+        };
       },
     },
     [`PUT ${c}/deals/:dealId/money`]: {

@@ -7,7 +7,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
-import { formatInstant } from "../../../lib/format";
+import { formatInstantNamingZone } from "../../../lib/format";
 import { useChannel, useMe, useTimeZone } from "../../../lib/session";
 import { useChangeRole } from "../api/change-role";
 import { useInvite } from "../api/invite-member";
@@ -179,7 +179,7 @@ function PendingInvitations({ channelId, invitations, canManage }: { channelId: 
               <div className="flex-1">
                 <p className="font-medium">{invitation.email}</p>
                 <p className="text-sm text-graphite-500">
-                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {formatInstant(invitation.expiresAt, timeZone)}
+                  {roleLabels[invitation.role]} · invited by {invitation.invitedBy} · expires {formatInstantNamingZone(invitation.expiresAt, timeZone)}
                 </p>
               </div>
               {canManage && (

@@ -5,7 +5,7 @@ import { newDeliverableSchema, type DealView, type DeliverableEvent, type Delive
 import { Button } from "../../../components/Button";
 import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
-import { formatDay, formatInstant } from "../../../lib/format";
+import { DAY_MS, formatDay, formatDuration, formatInstant } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useAddDeliverable } from "../api/add-deliverable";
 import { useRemoveDeliverable } from "../api/remove-deliverable";
@@ -75,7 +75,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                     </td>
                     <td className="py-2 pr-3">
                       <p className="font-medium" data-testid="due-date">
-                        {item.dueDate ? <time dateTime={item.dueDate}>{formatDay(item.dueDate)}</time> : "No date yet"}
+                        {item.dueDate ? <time dateTime={item.dueDate}>{formatDay(item.dueDate)}</time> : item.anchor === "fixed" ? "No date yet" : "Waiting for a publish date"}
                       </p>
                       <p className="text-xs text-graphite-500">{whenOf(item)}</p>
                     </td>
@@ -97,7 +97,7 @@ export function DeliverablesPanel({ channelId, deal, canManage }: { channelId: s
                               </option>
                             ))}
                           </select>
-                          {item.late && <Tag tone="alarm">Late by {item.daysLate} d</Tag>}
+                          {item.late && <Tag tone="alarm">Late by {formatDuration(item.daysLate * DAY_MS, { smallest: "d" })}</Tag>}
                         </div>
                       ) : (
                         <StatusTag status={item.status} late={item.late} daysLate={item.daysLate} />

@@ -4,7 +4,7 @@ import { deliverableKindLabels, deliverableStatusLabels, deliverableStatuses, de
 import type { DeskItem } from "@shared/sponsors/schemas";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, QueryState } from "../../../components/States";
-import { formatDay } from "../../../lib/format";
+import { DAY_MS, formatDay, formatDuration } from "../../../lib/format";
 import { useChannel } from "../../../lib/session";
 import { useDesk } from "../api/get-desk";
 import { useUpdateDeliverable } from "../api/update-deliverable";
@@ -107,7 +107,7 @@ function Group({ channelId, group, items, onSaved }: { channelId: string; group:
           <li key={item.id} className="grid grid-cols-1 gap-2 px-4 py-3 sm:grid-cols-[7rem_1fr_12rem_9rem] sm:items-center">
             <span className={`text-sm font-semibold ${group === "overdue" ? "text-alarm-600" : ""}`}>
               {formatDay(item.dueDate) || "No date"}
-              {item.daysLate > 0 && <span className="block text-xs font-normal">{item.daysLate} days late</span>}
+              {item.daysLate > 0 && <span className="block text-xs font-normal">late by {formatDuration(item.daysLate * DAY_MS, { smallest: "d" })}</span>}
             </span>
             <span>
               <Link to={`/c/${channelId}/episodes/${item.episodeId}#sponsor-deals`} className="font-medium text-graphite-900 underline decoration-ply-300 hover:decoration-rust-600">

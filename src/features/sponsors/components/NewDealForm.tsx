@@ -34,7 +34,7 @@ const moneyField: Record<string, string> = { "money.fee": "fee", "money.currency
 const fieldFor = (path: string) => moneyField[path] ?? (path.startsWith("talkingPoints") ? "talkingPoints" : path);
 const fieldNames = ["sponsorId", "contactId", "templateId", "state", "placement", "segmentSeconds", "talkingPoints", "link", "promoCode", "disclosureText", "exclusivityNotes", "fee", "currency", "paymentTermsDays", "paymentTermsFrom"];
 
-const toBody = (episodeId: string) => (v: DealForm) => ({
+const toBody = (episodeId: string | null) => (v: DealForm) => ({
   episodeId,
   sponsorId: v.sponsorId,
   contactId: v.contactId || null,
@@ -54,8 +54,17 @@ const toBody = (episodeId: string) => (v: DealForm) => ({
   money: { fee: v.fee, currency: v.currency, paymentTermsDays: numberFrom(v.paymentTermsDays), paymentTermsFrom: v.paymentTermsFrom, invoiceNumber: null, invoicedOn: null, paidOn: null },
 });
 
-/** A new deal on this episode: the segment it buys, the money, and the template its items come from. */
-export function NewDealForm({ channelId, episodeId, onDone }: { channelId: string; episodeId: string; onDone: () => void }) {
+interface NewDealProps {
+  channelId: string;
+  /** Null: a signed deal recorded against its sponsor, tied to its episode later. */
+  episodeId: string | null;
+  /** The sponsor the form starts with (from the sponsor's page). */
+  sponsorId?: string;
+  onDone: () => void;
+}
+
+/** A new deal, on an episode or waiting for one: the segment it buys, the money, and the template its items come from. */
+export function NewDealForm({ channelId, episodeId, sponsorId, onDone }: NewDealProps) {
   const choices = allOf(useSponsors(channelId), useTemplates(channelId));
   return (
     <QueryState
@@ -72,18 +81,18 @@ export function NewDealForm({ channelId, episodeId, onDone }: { channelId: strin
         </Notice>
       }
     >
-      {([sponsors, templates]) => <DealFormFields channelId={channelId} episodeId={episodeId} sponsors={sponsors} templates={templates} onDone={onDone} />}
+      {([sponsors, templates]) => <DealFormFields channelId={channelId} episodeId={episodeId} sponsorId={sponsorId} sponsors={sponsors} templates={templates} onDone={onDone} />}
     </QueryState>
   );
 }
 
-function DealFormFields({ channelId, episodeId, sponsors, templates, onDone }: { channelId: string; episodeId: string; sponsors: SponsorSummary[]; templates: DealTemplate[]; onDone: () => void }) {
+function DealFormFields({ channelId, episodeId, sponsorId: startingSponsor, sponsors, templates, onDone }: NewDealProps & { sponsors: SponsorSummary[]; templates: DealTemplate[] }) {
   const create = useCreateDeal(channelId);
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm<DealForm, unknown, ReturnType<typeof createDealSchema.parse>>({
     resolver: schemaResolver(createDealSchema, toBody(episodeId), fieldFor),
     defaultValues: {
-      sponsorId: "",
+      sponsorId: startingSponsor ?? "",
       contactId: "",
       templateId: "",
       state: "signed",
@@ -119,6 +128,7 @@ function DealFormFields({ channelId, episodeId, sponsors, templates, onDone }: {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="New deal" className="flex flex-col gap-4 rounded-lg border border-ply-300 bg-white p-5">
       {formError && <Notice kind="error">{formError}</Notice>}
+      {episodeId === null && <p className="text-sm text-graphite-700">Recorded against the sponsor: its items wait for a publish date until you tie it to its episode.</p>}
       <div className="grid gap-4 sm:grid-cols-3">
         <SelectField
           label="Sponsor"

@@ -16,7 +16,7 @@ import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { allOf, QueryState } from "../../../components/States";
 import { Wordmark } from "../../../components/Wordmark";
-import { formatClock, formatInstant, formatSeconds } from "../../../lib/format";
+import { formatClock, formatInstant, formatInstantNamingZone, formatSeconds } from "../../../lib/format";
 import { useMe, useTimeZone } from "../../../lib/session";
 import { useAddReviewPin } from "../api/add-review-pin";
 import { useDecide } from "../api/decide-review";
@@ -132,7 +132,7 @@ function OpenReview({ token, page }: { token: string; page: Extract<ReviewPageDa
         </p>
         <h1 className="mt-1 text-xl font-bold break-words sm:text-2xl">Review: {page.deliverableTitle}</h1>
         <p className="mt-1 text-graphite-700">
-          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {formatInstant(page.expiresAt, timeZone)}.
+          {placementLabels[page.placement]} segment in “{page.episodeTitle}”. This link is open until {formatInstantNamingZone(page.expiresAt, timeZone)}.
         </p>
       </header>
       <section aria-labelledby="script-heading" className="rounded-xl border border-ply-300 bg-white p-4 sm:p-6">

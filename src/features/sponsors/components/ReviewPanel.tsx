@@ -4,7 +4,7 @@ import { isMoneyKind } from "@shared/sponsors/deliverables";
 import { REVIEW_LINK_DEFAULT_DAYS, sendReviewSchema, type DealView, type ReviewLinkState, type SendReviewInput } from "@shared/sponsors/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
-import { formatInstant, formatInstantDay } from "../../../lib/format";
+import { formatInstant, formatInstantDay, formatInstantNamingZone } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useRevokeReviewLink } from "../api/revoke-review-link";
 import { useSendReviewLink } from "../api/send-review-link";
@@ -82,7 +82,7 @@ export function ReviewPanel({ channelId, deal }: { channelId: string; deal: Deal
               <Tag tone={stateTone[link.state]}>{stateLabel[link.state]}</Tag>
               <span className="flex-1">
                 <span className="font-medium">{link.deliverableTitle}</span> to {link.contactName} · sent {formatInstantDay(link.sentAt, timeZone)} by {link.sentByName} · open until{" "}
-                {formatInstant(link.expiresAt, timeZone)}
+                {formatInstantNamingZone(link.expiresAt, timeZone)}
                 {link.decision && (
                   <span className="block text-graphite-700">
                     {link.decision === "approved" ? "Approved" : "Changes asked"} on {formatInstant(link.decidedAt!, timeZone)}

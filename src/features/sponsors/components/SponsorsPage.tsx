@@ -18,6 +18,7 @@ import { useRemoveContact } from "../api/remove-contact";
 import { useUpdateSponsor } from "../api/update-sponsor";
 import { SettingsSection } from "./SettingsSection";
 import { TemplatesSection } from "./TemplatesSection";
+import { WaitingDeals } from "./WaitingDeals";
 import { FormActions, TextAreaField, TextField } from "../../../components/form-fields";
 import { applyServerErrors } from "../../../lib/forms";
 import { schemaResolver } from "../../../lib/schema-resolver";
@@ -72,7 +73,7 @@ function Directory({ channelId, canEdit }: { channelId: string; canEdit: boolean
         </QueryState>
         {canEdit && <NewSponsorForm channelId={channelId} onMade={select} />}
       </div>
-      <div>{selected ? <SponsorPanel channelId={channelId} sponsorId={selected} canEdit={canEdit} /> : null}</div>
+      <div className="min-w-0">{selected ? <SponsorPanel channelId={channelId} sponsorId={selected} canEdit={canEdit} /> : null}</div>
     </div>
   );
 }
@@ -124,6 +125,7 @@ function SponsorPanel({ channelId, sponsorId, canEdit }: { channelId: string; sp
 
 function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string; sponsor: SponsorDetail; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
+  const tied = sponsor.deals.filter((d) => d.episodeId !== null);
   return (
     <article aria-label={sponsor.company} className="flex min-w-0 flex-col gap-5 rounded-lg border border-ply-300 bg-white p-4 sm:p-5">
       {editing ? (
@@ -147,12 +149,13 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
         </header>
       )}
       <Contacts channelId={channelId} sponsor={sponsor} canEdit={canEdit} />
+      <WaitingDeals channelId={channelId} sponsor={sponsor} canEdit={canEdit} />
       <section aria-labelledby="deal-history">
         <h3 id="deal-history" className="mb-2 font-semibold">
-          Deals
+          Deals on episodes
         </h3>
-        {sponsor.deals.length === 0 ? (
-          <p className="text-sm text-graphite-500">No deals yet. Make one from the episode's page.</p>
+        {tied.length === 0 ? (
+          <p className="text-sm text-graphite-500">No deals on an episode yet. Make one from the episode's page, or record a signed deal above.</p>
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
@@ -162,11 +165,11 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                   <th className="py-1">State</th>
                   <th className="py-1">Placement</th>
                   <th className="py-1">Publish</th>
-                  {sponsor.deals.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
+                  {tied.some((d) => d.money) && <th className="py-1 text-right">Fee</th>}
                 </tr>
               </thead>
               <tbody className="divide-y divide-ply-200">
-                {sponsor.deals.map((deal) => (
+                {tied.map((deal) => (
                   <tr key={deal.id}>
                     <td className="py-2">
                       <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}#sponsor-deals`}>
@@ -175,7 +178,7 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                     </td>
                     <td className="py-2">{dealStateLabels[deal.state]}</td>
                     <td className="py-2">{placementLabels[deal.placement]}</td>
-                    <td className="py-2">{formatDay(deal.publishDate) || "No date"}</td>
+                    <td className="py-2">{formatDay(deal.publishDate) || "Waiting for a publish date"}</td>
                     {deal.money && <td className="py-2 text-right">{formatMoney(deal.money.fee, deal.money.currency)}</td>}
                   </tr>
                 ))}

@@ -2,6 +2,7 @@ import type { ReactNode } from "react";
 import { deliverableStatusLabels, type DeliverableStatus } from "@shared/sponsors/deliverables";
 import { disclosureGuidance, DISCLOSURE_LAW_NOTE } from "@shared/sponsors/disclosure";
 import { dealStateLabels, type DealState } from "@shared/sponsors/schemas";
+import { DAY_MS, formatDuration } from "../../../lib/format";
 
 const statusTone: Record<DeliverableStatus, "neutral" | "warn" | "good" | "alarm"> = {
   not_started: "neutral",
@@ -15,7 +16,7 @@ export function StatusTag({ status, late, daysLate }: { status: DeliverableStatu
   return (
     <span className="inline-flex flex-wrap gap-1">
       <Tag tone={statusTone[status]}>{deliverableStatusLabels[status]}</Tag>
-      {late && <Tag tone="alarm">{daysLate ? `Late by ${daysLate} d` : "Late"}</Tag>}
+      {late && <Tag tone="alarm">{daysLate ? `Late by ${formatDuration(daysLate * DAY_MS, { smallest: "d" })}` : "Late"}</Tag>}
     </span>
   );
 }

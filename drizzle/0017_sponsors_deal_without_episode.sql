@@ -1,0 +1,1 @@
+ALTER TABLE "deals" ALTER COLUMN "episode_id" DROP NOT NULL;
