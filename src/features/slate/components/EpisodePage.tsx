@@ -14,6 +14,7 @@ import { Flag } from "./Flag";
 import { HistorySection } from "./HistorySection";
 import { OverviewSection } from "./OverviewSection";
 import { ScheduleSection } from "./ScheduleSection";
+import { useScrollToHash } from "../../../lib/scroll-to-hash";
 
 export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
   const channel = useChannel();
@@ -46,6 +47,7 @@ function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSe
   const e = detail.episode;
   const canEdit = roleMay(role, "episodes", "W");
   const justCreated = (useLocation().state as { created?: boolean } | null)?.created === true;
+  useScrollToHash();
   const contents = [
     { id: "overview", title: "Overview" },
     { id: "schedule", title: "Schedule" },
