@@ -98,7 +98,8 @@ test("crew land on today's shoot day, its shots and the hazards to check, and ch
   await group(page, "Hazards to check before power-on").getByRole("link", { name: /Over-voltage on motors and fans/ }).click();
   const hazard = page.getByRole("listitem", { name: "Over-voltage on motors and fans" });
   await hazard.getByRole("button", { name: "Mark as checked by me" }).click();
-  await expect(hazard.getByText(/Checked by Kwame Lindqvist/)).toBeVisible();
+  // The check is saved, then the sheet read again; on a loaded machine that can take a while.
+  await expect(hazard.getByText(/Checked by Kwame Lindqvist/)).toBeVisible({ timeout: 30_000 });
   // Crew check, but the hazard list and its precautions stay the plan's writers'.
   await expect(hazard.getByRole("button", { name: "Edit mitigation" })).toHaveCount(0);
   await page.getByRole("navigation", { name: "Channel pages" }).getByRole("link", { name: "Home" }).click();
@@ -107,7 +108,7 @@ test("crew land on today's shoot day, its shots and the hazards to check, and ch
   // Put it back, so the demo reads the same on the next run.
   await page.goBack();
   await page.getByRole("listitem", { name: "Over-voltage on motors and fans" }).getByRole("button", { name: "Undo the check" }).click();
-  await expect(page.getByRole("listitem", { name: "Over-voltage on motors and fans" }).getByText("Not checked yet")).toBeVisible();
+  await expect(page.getByRole("listitem", { name: "Over-voltage on motors and fans" }).getByText("Not checked yet")).toBeVisible({ timeout: 30_000 });
 
   await page.getByRole("navigation", { name: "Channel pages" }).getByRole("link", { name: "Home" }).click();
   await group(page, "Shoot day").getByRole("link", { name: /Today: Thermal camera on a kite/ }).click();
