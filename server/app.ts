@@ -13,7 +13,9 @@ import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { channelRoutes } from "./channels/channels.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
+import { benchNeeds } from "./bench/bench.needs";
 import { healthRoutes } from "./health/health.router";
+import { homeRoutes } from "./home/home.router";
 import { noStoreByDefault } from "./http/cache";
 import { serveClient } from "./http/client-files";
 import { csrfProtection } from "./http/csrf";
@@ -24,13 +26,17 @@ import { mountRoutes, type RouteSpec } from "./http/route-table";
 import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
 import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
+import { rushesNeeds } from "./rushes/rushes.needs";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
+import type { NeedSource } from "./seams/home-needs";
 import type { SlatePlugs } from "./seams/slate-plugs";
+import { slateNeeds } from "./slate/slate.needs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
+import { sponsorNeeds } from "./sponsors/sponsors.needs";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
@@ -71,6 +77,9 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
   };
 }
 
+/** What fills members' homes ("what needs me"): the one place a feature's home entries are named. */
+export const needSources: readonly NeedSource[] = [...slateNeeds(slatePlugs), ...benchNeeds, ...rushesNeeds, ...sponsorNeeds];
+
 /** What every new channel starts with, made in the transaction that makes the channel. */
 export const channelStarters: readonly ChannelStarter[] = [startWithDealTemplate];
 
@@ -90,6 +99,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
+    ...homeRoutes(db, needSources),
   ];
 }
 

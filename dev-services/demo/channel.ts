@@ -7,7 +7,7 @@ import { stages, type Stage } from "../../shared/slate/stages";
 import type { Database } from "../../server/db/client";
 import { addMember, createChannel, createUser } from "../../tests/factories/accounts";
 import { createEpisode } from "../../tests/factories/episodes";
-import type { DemoContext } from "./context";
+import { DEMO_TIME_ZONE, type DemoContext } from "./context";
 import { seedSlateDemo } from "./slate";
 import { seedBenchDemo } from "./bench";
 import { seedRushesDemo } from "./rushes";
@@ -72,7 +72,7 @@ export async function seedDemo(db: Database, today = new Date()): Promise<void> 
   const episodes: DemoContext["episodes"] = [];
   for (const account of demoAccounts) {
     // Seeded with confirmed addresses, so the demo can invite people and send review links at once.
-    people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: "Europe/Oslo", verified: true }));
+    people.set(account.role, await createUser(db, { email: account.email, name: account.name, password: DEMO_PASSWORD, timeZone: DEMO_TIME_ZONE, verified: true }));
   }
   const owner = people.get("owner")!;
   const channel = await createChannel(db, owner, DEMO_CHANNEL);

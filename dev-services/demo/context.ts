@@ -10,3 +10,6 @@ export interface DemoContext {
   people: Map<Role, { id: string; email: string; name: string }>;
   episodes: { id: string; stage: Stage; title: string; targetPublishDate: string | null }[];
 }
+
+/** Every demo account's time zone. */
+export const DEMO_TIME_ZONE = "Europe/Oslo";

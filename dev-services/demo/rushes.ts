@@ -2,7 +2,8 @@ import type { ShotKind } from "../../shared/rushes/vocabulary";
 import { formatTimecode, parseTimecode } from "../../shared/timecode/timecode";
 import { clipMarks, shootDayCrew } from "../../server/db/schema/rushes";
 import { createClip, createShootDay, createShot } from "../../tests/factories/rushes";
-import type { DemoContext } from "./context";
+import { localDate } from "../../shared/slate/dates";
+import { DEMO_TIME_ZONE, type DemoContext } from "./context";
 
 /**
  * The demo channel's shoot days, shot lists and clips (invented, like everything in the demo). The
@@ -18,10 +19,10 @@ interface DemoShot {
 
 const plans: Record<string, { place: string; callTime: string; daysAgo: number; shots: DemoShot[] }> = {
   "Thermal camera on a kite": {
-    // Still ahead: nothing is captured yet, so the crew's view lists every shot.
+    // Today: nothing is captured yet, so the crew's home lists every shot.
     place: "Hilltop allotments",
     callTime: "06:45",
-    daysAgo: -3,
+    daysAgo: 0,
     shots: [
       { description: "Host explains why heat leaks show at dawn", kind: "talking_head", priority: "must" },
       { description: "Camera cradle close-up: the two rubber dampers", kind: "build_closeup" },
@@ -78,7 +79,8 @@ export async function seedRushesDemo(context: DemoContext): Promise<void> {
     const plan = plans[episode.title];
     if (!plan) continue;
     const day = new Date(today.getTime() - plan.daysAgo * 86_400_000);
-    const shootDay = await createShootDay(db, channelId, episode.id, { day: day.toISOString().slice(0, 10), place: plan.place, callTime: plan.callTime });
+    // The day as the demo's people (all in Oslo) count it, so "today" is today on their homes.
+    const shootDay = await createShootDay(db, channelId, episode.id, { day: localDate(day, DEMO_TIME_ZONE), place: plan.place, callTime: plan.callTime });
     await db.insert(shootDayCrew).values(crew.map((p) => ({ shootDayId: shootDay.id, userId: p.id })));
     for (const [index, s] of plan.shots.entries()) {
       const hasClips = (s.clips?.length ?? 0) > 0;

@@ -61,7 +61,8 @@ const demoDeals: DemoDeal[] = [
     code: "RELAY15",
     script: "Today's bench supply comes from Northbeam. Its ripple stays under 1 mV, which matters when 120 relays all switch at once.",
     description: null,
-    statuses: { 0: "done", 1: "approved" },
+    // The script came back: the sponsor asked for changes.
+    statuses: { 0: "done", 1: "changes_asked" },
   },
   {
     sponsor: "sunfold",
@@ -170,8 +171,10 @@ export async function seedSponsorsDemo(context: DemoContext): Promise<void> {
       if (item.status === "done") {
         await db.insert(deliverableEvents).values({ channelId, deliverableId: item.id, at: subDays(today, 12), actorId: producer.id, actorName: producer.name, actorKind: "member", what: "status", fromStatus: "not_started", toStatus: "done" });
       }
-      if (item.status === "approved") {
-        // The sponsor approved through a review link: the decision is on record under the contact's name.
+      if (item.status === "approved" || item.status === "changes_asked") {
+        // The sponsor decided through a review link: the decision is on record under the contact's name.
+        const decision = item.status;
+        const comment = decision === "approved" ? "Reads well. Approved as written." : "Please name the network remote in the first sentence, not the last.";
         const sentAt = subDays(today, 9);
         const decidedAt = addHours(sentAt, 20);
         await db.insert(reviewLinks).values({
@@ -186,13 +189,13 @@ export async function seedSponsorsDemo(context: DemoContext): Promise<void> {
           sentByEmail: producer.email,
           expiresAt: addDays(sentAt, 7),
           decidedAt,
-          decision: "approved",
-          comment: "Reads well. Approved as written.",
+          decision,
+          comment,
           createdAt: sentAt,
         });
         await db.insert(deliverableEvents).values([
           { channelId, deliverableId: item.id, at: sentAt, actorId: producer.id, actorName: producer.name, actorKind: "member", what: "review_sent", fromStatus: "not_started", toStatus: "sent", note: `Review link sent to ${sponsor.contactName} <${sponsor.contactEmail}>` },
-          { channelId, deliverableId: item.id, at: decidedAt, actorName: sponsor.contactName, actorKind: "sponsor", what: "review_decision", fromStatus: "sent", toStatus: "approved", note: "Reads well. Approved as written." },
+          { channelId, deliverableId: item.id, at: decidedAt, actorName: sponsor.contactName, actorKind: "sponsor", what: "review_decision", fromStatus: "sent", toStatus: decision, note: comment },
         ]);
       }
       if (item.status === "sent") {

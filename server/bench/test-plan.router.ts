@@ -1,4 +1,4 @@
-import { criterionInputSchema, hazardChangeSchema, hazardInputSchema, testPlanInputSchema } from "../../shared/bench/schemas";
+import { criterionInputSchema, hazardChangeSchema, hazardCheckSchema, hazardInputSchema, testPlanInputSchema } from "../../shared/bench/schemas";
 import type { Database } from "../db/client";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
@@ -7,7 +7,10 @@ import { addCriterion, addHazard, changeCriterion, changeHazard, removeCriterion
 
 const plan = "/api/channels/:channelId/episodes/:episodeId/test-plan";
 
-/** The test plan sheet: owner and producer write, editor and crew read (the spec's "test plan sheet" row). */
+/**
+ * The test plan sheet: owner and producer write, editor and crew read (the spec's "test plan sheet" row).
+ * Checking a listed hazard is the "safety checks" row: crew check at power-on too.
+ */
 export function testPlanRoutes(db: Database): RouteSpec[] {
   const read = channelAccess("testPlan", "R");
   const write = channelAccess("testPlan", "W");
@@ -77,6 +80,15 @@ export function testPlanRoutes(db: Database): RouteSpec[] {
         const hazardId = idOf(req, "hazardId");
         const change = parseBody(hazardChangeSchema, req.body);
         res.json({ hazard: await changeHazard(db, callerOf(req), episodeId, hazardId, change) });
+      },
+    },
+    {
+      method: "put",
+      path: `${plan}/hazards/:hazardId/check`,
+      access: channelAccess("safetyChecks", "W"),
+      handler: async (req, res) => {
+        const { checked } = parseBody(hazardCheckSchema, req.body);
+        res.json({ hazard: await changeHazard(db, callerOf(req), idOf(req, "episodeId"), idOf(req, "hazardId"), { checked }) });
       },
     },
     {

@@ -138,7 +138,7 @@ function keeps(card: BoardCard, filters: BoardFilters): boolean {
   return true;
 }
 
-async function buildCards(db: Database, channelId: string, stageLengths: Parameters<typeof slateFlags>[1], timeZone: string, today: string, withArchived: boolean): Promise<BoardCard[]> {
+export async function buildCards(db: Database, channelId: string, stageLengths: Parameters<typeof slateFlags>[1], timeZone: string, today: string, withArchived: boolean): Promise<BoardCard[]> {
   const [rows, overrides, skips] = await Promise.all([boardRows(db, channelId, withArchived), overridesOf(db, channelId), skippingMoves(db, channelId)]);
   const overridesByEpisode = new Map<string, DueOverrides>();
   for (const o of overrides) (overridesByEpisode.get(o.episodeId) ?? overridesByEpisode.set(o.episodeId, {}).get(o.episodeId)!)[o.stage] = o.dueDate;

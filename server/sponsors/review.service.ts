@@ -332,7 +332,7 @@ function decisionMail(deps: ReviewDeps, row: LinkPage, decided: DecidedLink, inp
       quoted,
       "",
       `The item is now "${deliverableStatusLabels[input.decision]}". Open the episode's sponsor deals in Kerf:`,
-      `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}#sponsor-deals`,
+      `${deps.appUrl}/c/${decided.channelId}/episodes/${row.deal.episodeId}/sponsor-deals`,
     ].join("\n"),
   });
 }

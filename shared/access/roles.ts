@@ -10,6 +10,7 @@ export const areas = [
   "episodes",
   "comments",
   "testPlan",
+  "safetyChecks",
   "bench",
   "shoot",
   "footage",
@@ -30,6 +31,9 @@ export const grants: Record<Area, Record<Role, Grant>> = {
   episodes: { owner: "W", producer: "W", editor: "W", crew: "R" },
   comments: { owner: "W", producer: "W", editor: "W", crew: "W" },
   testPlan: { owner: "W", producer: "W", editor: "R", crew: "R" },
+  // Checking a listed hazard at power-on: crew stand at the bench then (the spec's "safety checks" row),
+  // though listing hazards and their precautions stays with the test plan.
+  safetyChecks: { owner: "W", producer: "W", editor: "R", crew: "W" },
   bench: { owner: "W", producer: "W", editor: "R", crew: "W" },
   shoot: { owner: "W", producer: "W", editor: "W", crew: "W" },
   // Crew upload and log footage; deleting it is the other roles' (the spec: "upload and log; no delete").

@@ -89,6 +89,10 @@ export const hazardChangeSchema = z
   .refine((change) => Object.keys(change).length > 0, { message: "Nothing to change." });
 export type HazardChange = z.infer<typeof hazardChangeSchema>;
 
+/** A safety check at power-on: true records the caller as the person who checked, false takes it back. */
+export const hazardCheckSchema = z.strictObject({ checked: z.boolean({ error: "Say whether the hazard is checked." }) });
+export type HazardCheck = z.infer<typeof hazardCheckSchema>;
+
 export interface HazardView {
   id: string;
   kind: string;

@@ -36,8 +36,10 @@ export function RequireMembership() {
   return <Outlet />;
 }
 
+/** After sign-in, and at a channel's bare address: the member's home in that channel (their first one from "/"). */
 export function HomeRedirect() {
   const me = useMe();
-  const first = me.data?.memberships[0];
-  return <Navigate to={first ? `/c/${first.channelId}/slate` : "/channels/new"} replace />;
+  const { channelId } = useParams();
+  const chosen = channelId ?? me.data?.memberships[0]?.channelId;
+  return <Navigate to={chosen ? `/c/${chosen}/home` : "/channels/new"} replace />;
 }

@@ -8,6 +8,8 @@ export interface NavEntry {
 }
 
 export const channelNav: NavEntry[] = [
+  // Every member reads episodes, so every member has a home.
+  { path: "home", label: "Home", area: "episodes" },
   { path: "slate", label: "Slate", area: "episodes" },
   { path: "shelf", label: "Shelf", area: "bench" },
   { path: "rushes", label: "Rushes", area: "footage" },

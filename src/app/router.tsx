@@ -46,6 +46,7 @@ export const router = createBrowserRouter([
                     element: <RequireMembership />,
                     children: [
                       { index: true, element: <HomeRedirect /> },
+                      { path: "home", lazy: page(() => import("../features/home/components/HomePage"), (m) => m.HomePage) },
                       { path: "slate", lazy: page(() => import("../features/slate/components/SlatePage"), (m) => m.SlatePage) },
                       { path: "slate/schedule", lazy: page(() => import("../features/slate/components/StageLengthsPage"), (m) => m.StageLengthsPage) },
                       { path: "episodes/:episodeId/:part?", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },

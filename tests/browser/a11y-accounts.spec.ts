@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { uniqueEmail } from "./support";
+import { expectHome, uniqueEmail } from "./support";
 
 // The content security policy is helmet's; a page that breaks it logs a violation we catch here.
 test("the signed-out pages and the members page pass axe-core and the content security policy", async ({ page }) => {
@@ -20,7 +20,7 @@ test("the signed-out pages and the members page pass axe-core and the content se
   await page.getByLabel("Password").fill("a-long-enough-password");
   await page.getByLabel("Channel name").fill("Ramp Street Studio");
   await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await expectHome(page);
 
   await page.getByRole("link", { name: "Members" }).click();
   await expect(page.getByRole("heading", { name: "Members" })).toBeVisible();

@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { latestMailTo, snap, uniqueEmail } from "./support";
+import { expectHome, homeToSlate, latestMailTo, snap, uniqueEmail } from "./support";
 
 const PASSWORD = "a-long-enough-password";
 
@@ -19,7 +19,9 @@ test("a newcomer starts a channel, signs out and signs back in", async ({ page }
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByLabel("Channel name").fill("Quarry Road Lab");
   await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await expectHome(page);
+  await expect(page.getByText("Nothing needs you today")).toBeVisible();
+  await homeToSlate(page);
   await expect(page.getByText("No episodes yet")).toBeVisible();
   await snap(page, "03-empty-slate");
 
@@ -34,6 +36,7 @@ test("a newcomer starts a channel, signs out and signs back in", async ({ page }
 
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByRole("button", { name: "Sign in" }).click();
+  // Signed out from the slate, the sign-in leads back there rather than to the home.
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
   await expect(page.getByLabel("Channel", { exact: true })).toHaveValue(/.+/);
 });
@@ -104,7 +107,7 @@ test("an owner confirms their address, invites a crew member, who joins from the
   await crew.getByLabel("Your name").fill("Mina Sato");
   await crew.getByLabel("Choose a password").fill(PASSWORD);
   await crew.getByRole("button", { name: "Create account and join" }).click();
-  await expect(crew.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await expectHome(crew);
   await expect(crew.getByText("Crew", { exact: true })).toBeVisible();
   // Crew cannot manage members, so the page is not offered.
   await expect(crew.getByRole("link", { name: "Members" })).toHaveCount(0);

@@ -85,6 +85,18 @@ export async function sql<T extends pg.QueryResultRow>(text: string, values: unk
   }
 }
 
+/** Where every sign-in lands: the member's home. */
+export async function expectHome(page: Page): Promise<void> {
+  await expect(page.getByRole("heading", { name: "What needs you" })).toBeVisible();
+}
+
+/** From the home (where sign-in lands) to the slate, through the top bar. */
+export async function homeToSlate(page: Page): Promise<void> {
+  await expectHome(page);
+  await page.getByRole("navigation", { name: "Channel pages" }).getByRole("link", { name: "Slate" }).click();
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+}
+
 /** A new account and channel through the sign-up page, ending on the empty slate; the address is confirmed (its own journey is in accounts.spec.ts). */
 export async function signUpThroughPage(page: Page, person: { name: string; email: string; channel: string }): Promise<void> {
   await page.goto("/sign-up");
@@ -93,7 +105,7 @@ export async function signUpThroughPage(page: Page, person: { name: string; emai
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByLabel("Channel name").fill(person.channel);
   await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await homeToSlate(page);
   await sql("update users set email_verified_at = now() where email = $1", [person.email]);
 }
 
@@ -111,7 +123,7 @@ export async function signInOn(page: Page, email: string): Promise<Page> {
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByRole("button", { name: "Sign in" }).click();
-  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
+  await homeToSlate(page);
   return page;
 }
 

@@ -8,6 +8,7 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
 /*
  * The spec's role table, by hand:
  * - test plan sheet: owner W, producer W, editor R, crew R;
+ * - safety checks (a hazard checked before power-on): owner W, producer W, editor R, crew W;
  * - bench runs, bench shelf, build log: owner W, producer W, editor R, crew W.
  * "outsider" is the owner of another channel: 404, never 403.
  * The photo upload takes a multipart form; the matrix sends none, so a caller let through meets the
@@ -29,6 +30,7 @@ export const access: FeatureAccess = {
     [`DELETE ${plan}/criteria/:criterionId`,          401,  ok,   ok,   403,  403,  404],
     [`POST ${plan}/hazards`,                          401,  ok,   ok,   403,  403,  404],
     [`PATCH ${plan}/hazards/:hazardId`,               401,  ok,   ok,   403,  403,  404],
+    [`PUT ${plan}/hazards/:hazardId/check`,           401,  ok,   ok,   403,  ok,   404],
     [`DELETE ${plan}/hazards/:hazardId`,              401,  ok,   ok,   403,  403,  404],
     [`GET ${parts}`,                                  401,  ok,   ok,   ok,   ok,   404],
     [`POST ${parts}`,                                 401,  ok,   ok,   403,  ok,   404],
@@ -56,6 +58,18 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
   const ownerId = world.owner.id;
   const rows = async (sql: string, params: unknown[]) => (await app.database.pool.query(sql, params)).rows;
   const freshEpisode = () => createEpisode(app.db, channelId, { title: "Access episode", stage: "test_plan" });
+  const checkHazard: Recipe = {
+      ok: 200,
+      prepare: async () => {
+        const episode = await freshEpisode();
+        const hazard = await createHazard(app.db, channelId, episode.id);
+        return {
+          params: { episodeId: episode.id, hazardId: hazard.id },
+          body: { checked: true },
+          intact: async () => expect(await rows("select checked_by from safety_hazards where id = $1", [hazard.id])).toEqual([{ checked_by: null }]),
+        };
+      },
+  };
 
   const criterionBody = { metric: "thrust", comparator: "gte", threshold: q(700, "gf"), required: true };
   const partBody = { name: "Matrix motor", kind: "motor", mass: q(68, "g"), ratedVoltage: q(16.8, "V"), ratedCurrent: null, price: null, supplier: "", notes: "" };
@@ -116,18 +130,9 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         };
       },
     },
-    [`PATCH ${plan}/hazards/:hazardId`]: {
-      ok: 200,
-      prepare: async () => {
-        const episode = await freshEpisode();
-        const hazard = await createHazard(app.db, channelId, episode.id);
-        return {
-          params: { episodeId: episode.id, hazardId: hazard.id },
-          body: { checked: true },
-          intact: async () => expect(await rows("select checked_by from safety_hazards where id = $1", [hazard.id])).toEqual([{ checked_by: null }]),
-        };
-      },
-    },
+    // Checking a hazard, through the plan's edit or at power-on: a refused check leaves it unchecked.
+    [`PATCH ${plan}/hazards/:hazardId`]: checkHazard,
+    [`PUT ${plan}/hazards/:hazardId/check`]: checkHazard,
     [`DELETE ${plan}/hazards/:hazardId`]: {
       ok: 204,
       prepare: async () => {

@@ -26,7 +26,7 @@ export function SignUpPage() {
     try {
       const me = await signUp.mutateAsync(values);
       const channel = me.memberships[0];
-      navigate(channel ? `/c/${channel.channelId}/slate` : "/", { replace: true });
+      navigate(channel ? `/c/${channel.channelId}/home` : "/", { replace: true });
     } catch (error) {
       setFormError(applyServerErrors(error, form.setError, fields));
     }

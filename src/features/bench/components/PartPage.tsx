@@ -140,7 +140,7 @@ function PartRuns({ channelId, runs }: { channelId: string; runs: PartRunView[] 
           {runs.map((run) => (
             <tr key={run.runId} className="border-b border-ply-200 last:border-0">
               <td className="px-3 py-2">
-                <Link to={`/c/${channelId}/episodes/${run.episodeId}#bench`} className="text-rust-600 underline">
+                <Link to={`/c/${channelId}/episodes/${run.episodeId}/bench`} className="text-rust-600 underline">
                   {run.episodeTitle}
                 </Link>
               </td>

@@ -11,6 +11,7 @@ import { Empty } from "../../../components/States";
 import { formatInstantDay } from "../../../lib/format";
 import { useTimeZone } from "../../../lib/session";
 import { useAddHazard } from "../api/add-hazard";
+import { useCheckHazard } from "../api/check-hazard";
 import { useDeleteHazard } from "../api/delete-hazard";
 import { useUpdateHazard } from "../api/update-hazard";
 import { Caution, Panel } from "./marks";
@@ -23,8 +24,15 @@ const hazardOptionsBesides = (listed: Set<string>) => [
   { value: CUSTOM_HAZARD, label: "Other: type it in" },
 ];
 
+interface Grants {
+  /** May list hazards and change their precautions (the test plan). */
+  canWrite: boolean;
+  /** May record a check at power-on (crew too). */
+  canCheck: boolean;
+}
+
 /** The build's hazards, each with its mitigation and who checked it, under the usual cautions. */
-export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { channelId: string; episodeId: string; hazards: HazardView[]; canWrite: boolean }) {
+export function SafetyPanel({ channelId, episodeId, hazards, canWrite, canCheck }: { channelId: string; episodeId: string; hazards: HazardView[] } & Grants) {
   const unchecked = hazards.filter((hazard) => !hazard.checkedBy).length;
   return (
     <Panel>
@@ -42,7 +50,7 @@ export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { chann
           {unchecked > 0 && <p className="mb-2 text-sm font-medium text-rust-700">{unchecked === 1 ? "One hazard has" : `${unchecked} hazards have`} not been checked yet.</p>}
           <ul className="flex flex-col gap-3">
             {hazards.map((hazard) => (
-              <HazardItem key={hazard.id} channelId={channelId} episodeId={episodeId} hazard={hazard} canWrite={canWrite} />
+              <HazardItem key={hazard.id} channelId={channelId} episodeId={episodeId} hazard={hazard} canWrite={canWrite} canCheck={canCheck} />
             ))}
           </ul>
         </>
@@ -56,8 +64,9 @@ export function SafetyPanel({ channelId, episodeId, hazards, canWrite }: { chann
   );
 }
 
-function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: string; episodeId: string; hazard: HazardView; canWrite: boolean }) {
+function HazardItem({ channelId, episodeId, hazard, canWrite, canCheck }: { channelId: string; episodeId: string; hazard: HazardView } & Grants) {
   const update = useUpdateHazard(channelId, episodeId);
+  const check = useCheckHazard(channelId, episodeId);
   const remove = useDeleteHazard(channelId, episodeId);
   const [editing, setEditing] = useState(false);
   const [mitigation, setMitigation] = useState(hazard.mitigation);
@@ -103,21 +112,14 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
           {hazard.mitigation}
         </p>
       )}
-      {canWrite && !editing && (
+      {(canWrite || canCheck) && !editing && (
         <div className="mt-2 flex flex-wrap gap-2">
-          <Button tone="quiet" busy={update.isPending} onClick={() => void act(update.mutateAsync({ id: hazard.id, change: { checked: !hazard.checkedBy } }))}>
-            {hazard.checkedBy ? "Undo the check" : "Mark as checked by me"}
-          </Button>
-          <Button
-            tone="quiet"
-            onClick={() => {
-              setMitigation(hazard.mitigation);
-              setEditing(true);
-            }}
-          >
-            Edit mitigation
-          </Button>
-          <AskFirst label="Remove" question={`Remove “${hazard.title}” from the plan?`} yes="Yes, remove it" busy={remove.isPending} onYes={() => void act(remove.mutateAsync(hazard.id))} />
+          {canCheck && (
+            <Button tone="quiet" busy={check.isPending} onClick={() => void act(check.mutateAsync({ id: hazard.id, checked: !hazard.checkedBy }))}>
+              {hazard.checkedBy ? "Undo the check" : "Mark as checked by me"}
+            </Button>
+          )}
+          {canWrite && <HazardChanges hazard={hazard} busy={remove.isPending} onEdit={() => { setMitigation(hazard.mitigation); setEditing(true); }} onRemove={() => void act(remove.mutateAsync(hazard.id))} />}
         </div>
       )}
       {problem && (
@@ -126,6 +128,17 @@ function HazardItem({ channelId, episodeId, hazard, canWrite }: { channelId: str
         </div>
       )}
     </li>
+  );
+}
+
+function HazardChanges({ hazard, busy, onEdit, onRemove }: { hazard: HazardView; busy: boolean; onEdit: () => void; onRemove: () => void }) {
+  return (
+    <>
+      <Button tone="quiet" onClick={onEdit}>
+        Edit mitigation
+      </Button>
+      <AskFirst label="Remove" question={`Remove “${hazard.title}” from the plan?`} yes="Yes, remove it" busy={busy} onYes={onRemove} />
+    </>
   );
 }
 

@@ -29,7 +29,7 @@ export function TestPlanSheet({ channelId, episodeId, role }: EpisodeSectionProp
         <div className="flex flex-col gap-6">
           {canWrite ? <PlanForm channelId={channelId} episodeId={episodeId} plan={sheet} /> : <PlanReadOnly plan={sheet} />}
           <CriteriaPanel channelId={channelId} episodeId={episodeId} criteria={sheet.criteria} canWrite={canWrite} />
-          <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={sheet.hazards} canWrite={canWrite} />
+          <SafetyPanel channelId={channelId} episodeId={episodeId} hazards={sheet.hazards} canWrite={canWrite} canCheck={roleMay(role, "safetyChecks", "W")} />
         </div>
       )}
     </QueryState>

@@ -76,7 +76,7 @@ function useJoin(token: string) {
     accept,
     join: async (input: Newcomer | Record<string, never>) => {
       const { channelId } = await accept.mutateAsync(input);
-      navigate(`/c/${channelId}/slate`, { replace: true });
+      navigate(`/c/${channelId}/home`, { replace: true });
     },
   };
 }

@@ -16,7 +16,7 @@ export function ChannelSwitcher() {
       <select
         id="channel-switcher"
         value={current?.channelId ?? ""}
-        onChange={(event) => navigate(event.target.value === "new" ? "/channels/new" : `/c/${event.target.value}/slate`)}
+        onChange={(event) => navigate(event.target.value === "new" ? "/channels/new" : `/c/${event.target.value}/home`)}
         className="max-w-80 rounded-md border border-graphite-700 bg-graphite-900 px-2 py-1 font-semibold text-ply-50"
       >
         {!current && <option value="">Pick a channel</option>}

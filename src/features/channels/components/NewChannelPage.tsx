@@ -17,7 +17,7 @@ export function NewChannelPage() {
   const form = useForm<{ name: string }>({ resolver: zodResolver(schema), defaultValues: { name: "" } });
   const onSubmit = form.handleSubmit(async (values) => {
     const channel = await create.mutateAsync(values).catch(() => null);
-    if (channel) navigate(`/c/${channel.id}/slate`);
+    if (channel) navigate(`/c/${channel.id}/home`);
   });
   return (
     <div className="mx-auto max-w-lg">

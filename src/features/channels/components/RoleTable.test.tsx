@@ -20,4 +20,11 @@ describe("the role table on the members page", () => {
     expect(fees).toContain("Editor no access");
     expect(fees).toContain("Crew no access");
   });
+
+  it("lets crew check a hazard at power-on, though the hazard list stays the test plan's", () => {
+    const row = (label: string) => html.slice(html.indexOf(label), html.indexOf("</tr>", html.indexOf(label)));
+    expect(row("Checking a hazard before power-on")).toContain("Crew may change");
+    expect(row("Checking a hazard before power-on")).toContain("Editor may read");
+    expect(row("Test plan and its hazard list")).toContain("Crew may read");
+  });
 });

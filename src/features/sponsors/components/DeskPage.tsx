@@ -110,7 +110,7 @@ function Group({ channelId, group, items, onSaved }: { channelId: string; group:
               {item.daysLate > 0 && <span className="block text-xs font-normal">late by {formatDuration(item.daysLate * DAY_MS, { smallest: "d" })}</span>}
             </span>
             <span>
-              <Link to={`/c/${channelId}/episodes/${item.episodeId}#sponsor-deals`} className="font-medium text-graphite-900 underline decoration-ply-300 hover:decoration-rust-600">
+              <Link to={`/c/${channelId}/episodes/${item.episodeId}/sponsor-deals`} className="font-medium text-graphite-900 underline decoration-ply-300 hover:decoration-rust-600">
                 {item.title}
               </Link>
               <span className="block text-xs text-graphite-500">

@@ -172,7 +172,7 @@ function SponsorDetailView({ channelId, sponsor, canEdit }: { channelId: string;
                 {tied.map((deal) => (
                   <tr key={deal.id}>
                     <td className="py-2">
-                      <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}#sponsor-deals`}>
+                      <Link className="underline" to={`/c/${channelId}/episodes/${deal.episodeId}/sponsor-deals`}>
                         {deal.episodeTitle}
                       </Link>
                     </td>
