@@ -18,6 +18,7 @@ const parts = "/api/channels/:channelId/bench/parts";
 const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
 const photos = "/api/channels/:channelId/episodes/:episodeId/build-photos";
+const card = "/api/channels/:channelId/episodes/:episodeId/results-card";
 
 export const access: FeatureAccess = {
   rows: [
@@ -47,6 +48,8 @@ export const access: FeatureAccess = {
     [`POST ${log}/:iterationId/photos`,               401,  ok,   ok,   403,  ok,   404],
     [`GET ${photos}`,                                 401,  ok,   ok,   ok,   ok,   404],
     [`DELETE ${photos}/:photoId`,                     401,  ok,   ok,   403,  ok,   404],
+    [`GET ${card}`,                                   401,  ok,   ok,   ok,   ok,   404],
+    [`POST ${card}`,                                  401,  ok,   ok,   403,  ok,   404],
   ],
   recipes: benchRecipes,
 };
@@ -241,6 +244,15 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
           .values({ channelId, episodeId: episode.id, iterationId: iteration.id, objectKey: `${channelId}/${episode.id}/${randomUUID()}`, fileName: "m.jpg", contentType: "image/jpeg", sizeBytes: 4 })
           .returning();
         return { params: { episodeId: episode.id, photoId: photo!.id }, intact: async () => expect(await count("build_photos", "id", photo!.id)).toBe(1) };
+      },
+    },
+    [`GET ${card}`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
+    [`POST ${card}`]: {
+      ok: 202,
+      prepare: async () => {
+        const episode = await freshEpisode();
+        await createRun(app.db, channelId, episode.id, ownerId, { label: "Card run" });
+        return { params: { episodeId: episode.id }, intact: async () => expect(await count("bench_results_cards", "episode_id", episode.id)).toBe(0) };
       },
     },
   };
