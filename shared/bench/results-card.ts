@@ -13,7 +13,7 @@ import { RATIO_UNIT } from "./quantity";
 export const CARD_WIDTH = 1920;
 export const CARD_HEIGHT = 1080;
 /** Rows that fit at a size read across a room; the best run always among them. */
-export const CARD_ROWS = 6;
+export const CARD_ROWS = 5;
 const FIGURE_COLUMNS = 3;
 /** Figures shown when the plan names fewer: what decides a lift test first. */
 const usualFigures: ComparisonKey[] = ["thrust_per_watt", "thrust_to_weight", "thrust", "electrical_power", "mass"];
@@ -104,13 +104,33 @@ export function clip(text: string, max: number): string {
   return chars.length <= max ? text : `${chars.slice(0, max - 1).join("").trimEnd()}…`;
 }
 
+/** Words over at most `lines` lines of `width` characters; what doesn't fit ends the last line with "…". */
+export function wrap(text: string, width: number, lines: number): string[] {
+  const out: string[] = [];
+  let line = "";
+  // A hyphenated word may break after its hyphens ("Thrust-to-" / "weight").
+  const words = text.split(/\s+/).flatMap((word) => word.split(/(?<=-)(?=.)/)).filter(Boolean);
+  const join = (a: string, b: string) => (!a ? b : a.endsWith("-") ? `${a}${b}` : `${a} ${b}`);
+  for (const [i, word] of words.entries()) {
+    const next = join(line, word);
+    if ([...next].length <= width || !line) {
+      line = next;
+      continue;
+    }
+    if (out.length === lines - 1) return [...out, clip(words.slice(i).reduce(join, line), width)];
+    out.push(line);
+    line = word;
+  }
+  return [...out, clip(line, width)].filter(Boolean);
+}
+
 const FONT = "'Work Sans', 'DejaVu Sans', 'Liberation Sans', Arial, sans-serif";
 const MARGIN = 96;
-const RUN_WIDTH = 600;
-const VERDICT_WIDTH = 420;
-const TABLE_TOP = 330;
-const HEAD_HEIGHT = 90;
-const ROW_HEIGHT = 100;
+const RUN_WIDTH = 640;
+const VERDICT_WIDTH = 400;
+const TABLE_TOP = 250;
+const HEAD_HEIGHT = 130;
+const ROW_HEIGHT = 120;
 
 function verdictMark(verdict: PlanVerdict, x: number, y: number, colour: string, background: string): string {
   if (verdict === "pass") return `<circle cx="${x}" cy="${y}" r="15" fill="${colour}"/>`;
@@ -140,7 +160,8 @@ export function resultsCardSvg(input: CardInput, colours: CardColours, fontFaces
   text(MARGIN, headY - 24, 30, "Candidate", ` font-weight="700"`);
   text(MARGIN + RUN_WIDTH, headY - 24, 30, "Verdict", ` font-weight="700"`);
   table.columns.forEach((column, i) => {
-    text(figureRight(i), headY - 56, 30, column.heading, ` font-weight="700" text-anchor="end"`);
+    const lines = wrap(column.heading, 11, 2);
+    lines.forEach((line, n) => text(figureRight(i), headY - 56 - (lines.length - 1 - n) * 34, 30, line, ` font-weight="700" text-anchor="end"`));
     text(figureRight(i), headY - 18, 26, column.unit === RATIO_UNIT ? "ratio" : column.unit, ` text-anchor="end"`);
   });
   parts.push(`<rect x="${MARGIN}" y="${headY}" width="${CARD_WIDTH - 2 * MARGIN}" height="4" fill="${colours.ink}"/>`);
@@ -154,14 +175,17 @@ export function resultsCardSvg(input: CardInput, colours: CardColours, fontFaces
       parts.push(`<rect x="${MARGIN - 24}" y="${top - 14}" width="120" height="40" rx="8" fill="${tagFill}"/>`);
       parts.push(`<text x="${MARGIN + 36}" y="${top + 15}" font-size="26" font-weight="700" text-anchor="middle" fill="${textOn(tagFill, colours)}">BEST</text>`);
     }
-    text(MARGIN, base, 42, clip(`${row.number}  ${row.label}`, 22), row.best ? ` font-weight="700"` : "");
+    const weight = row.best ? ` font-weight="700"` : "";
+    const label = wrap(row.label, 28, 2);
+    text(MARGIN, base, 42, String(row.number), weight);
+    label.forEach((line, n) => text(MARGIN + 64, base - (label.length - 1) * 21 + n * 42, label.length > 1 ? 34 : 36, line, weight));
     parts.push(verdictMark(row.verdict, MARGIN + RUN_WIDTH + 16, base - 14, verdictColours[row.verdict], colours.background));
     parts.push(`<text x="${MARGIN + RUN_WIDTH + 48}" y="${base}" font-size="36" font-weight="600" fill="${verdictColours[row.verdict]}">${svgText(verdictLabels[row.verdict])}</text>`);
     row.figures.forEach((figure, i) => text(figureRight(i), base, 48, figure, ` font-weight="${row.best ? 700 : 500}" text-anchor="end" font-variant-numeric="tabular-nums"`));
     if (r < table.rows.length - 1) parts.push(`<rect x="${MARGIN}" y="${top + ROW_HEIGHT}" width="${CARD_WIDTH - 2 * MARGIN}" height="2" fill="${colours.ink}" opacity="0.25"/>`);
   });
 
-  const foot = CARD_HEIGHT - 56;
+  const foot = CARD_HEIGHT - 40;
   text(MARGIN, foot, 28, clip(input.channelName, 60), ` font-weight="600"`);
   if (table.more > 0) text(CARD_WIDTH - MARGIN, foot, 28, `${table.more} more run${table.more === 1 ? "" : "s"} on the bench`, ` text-anchor="end"`);
 

@@ -8,5 +8,6 @@ export const benchKeys = {
   testPlan: (channelId: string, episodeId: string) => [...benchKeys.episode(channelId, episodeId), "test-plan"] as const,
   runs: (channelId: string, episodeId: string) => [...benchKeys.episode(channelId, episodeId), "runs"] as const,
   buildLog: (channelId: string, episodeId: string) => [...benchKeys.episode(channelId, episodeId), "build-log"] as const,
+  resultsCard: (channelId: string, episodeId: string) => [...benchKeys.episode(channelId, episodeId), "results-card"] as const,
   buildPhotos: (channelId: string, episodeId: string) => [...benchKeys.episode(channelId, episodeId), "build-photos"] as const,
 };

@@ -13,6 +13,7 @@ import { useRuns } from "../api/list-runs";
 import { ComparisonChart } from "./ComparisonChart";
 import { ComparisonTable } from "./ComparisonTable";
 import { Panel } from "./marks";
+import { ResultsCard } from "./ResultsCard";
 import { RunCard } from "./RunCard";
 import { RunForm } from "./RunForm";
 
@@ -51,6 +52,7 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
           <Panel>
             <ComparisonChart runs={runs} best={best} criteria={criteria} />
           </Panel>
+          <ResultsCard channelId={channelId} episodeId={episodeId} canWrite={canWrite} />
         </>
       )}
 
