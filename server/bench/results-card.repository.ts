@@ -1,4 +1,5 @@
 import { and, eq, inArray } from "drizzle-orm";
+import type { CardColours } from "../../shared/bench/card-colours";
 import type { Queryable } from "../db/client";
 import { channels } from "../db/schema/accounts";
 import { resultsCards } from "../db/schema/bench";
@@ -42,9 +43,13 @@ export async function finishCard(db: Queryable, channelId: string, episodeId: st
     .where(and(eq(resultsCards.channelId, channelId), eq(resultsCards.episodeId, episodeId)));
 }
 
-export async function channelName(db: Queryable, channelId: string): Promise<string> {
-  const [row] = await db.select({ name: channels.name }).from(channels).where(eq(channels.id, channelId));
-  return row?.name ?? "";
+export async function channelLook(db: Queryable, channelId: string): Promise<{ name: string; colours: CardColours | null }> {
+  const [row] = await db.select({ name: channels.name, colours: channels.cardColours }).from(channels).where(eq(channels.id, channelId));
+  return { name: row?.name ?? "", colours: row?.colours ?? null };
+}
+
+export async function saveCardColours(db: Queryable, channelId: string, colours: CardColours | null): Promise<void> {
+  await db.update(channels).set({ cardColours: colours }).where(eq(channels.id, channelId));
 }
 
 /** The card's files as stills of the episode: the footage's small files, where the editor looks. */

@@ -1,12 +1,13 @@
 import { randomUUID } from "node:crypto";
 import { Readable } from "node:stream";
-import { defaultCardColours } from "../../shared/bench/card-colours";
+import { type CardColours, cardColoursInputSchema, colourProblems, defaultCardColours } from "../../shared/bench/card-colours";
 import { CARD_HEIGHT, CARD_WIDTH, resultsCardSvg } from "../../shared/bench/results-card";
 import type { ResultsCardView } from "../../shared/bench/results-card-view";
 import { PREVIEW_URL_SECONDS } from "../../shared/rushes/limits";
 import type { Database, Queryable } from "../db/client";
 import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
+import { parseBody } from "../http/validate";
 import type { Caller } from "../http/route-table";
 import type { Jobs } from "../jobs/queue";
 import type { Storage } from "../storage/storage";
@@ -69,14 +70,14 @@ export async function makeCard(ctx: CardContext, job: ResultsCardJob): Promise<C
   const card = await repo.claimCard(ctx.db, job.channelId, job.episodeId);
   if (!card) return { outcome: "skipped", reason: "the card is gone or not waiting" };
   try {
-    const [title, channelName, runs, plan, fonts] = await Promise.all([
+    const [title, channel, runs, plan, fonts] = await Promise.all([
       episodeTitle(ctx.db, job.channelId, job.episodeId),
-      repo.channelName(ctx.db, job.channelId),
+      repo.channelLook(ctx.db, job.channelId),
       episodeRuns(ctx.db, job.channelId, job.episodeId),
       testPlanView(ctx.db, job.channelId, job.episodeId),
       cardFontFaces(),
     ]);
-    const svg = resultsCardSvg({ title, channelName, runs, criteria: plan.criteria }, defaultCardColours, fonts);
+    const svg = resultsCardSvg({ title, channelName: channel.name, runs, criteria: plan.criteria }, channel.colours ?? defaultCardColours, fonts);
     const png = await svgToPng(svg, ctx.chromiumPath);
     const name = `results-card-${slug(title)}`;
     const stored = async (body: Buffer, extension: string, contentType: string) => {
@@ -94,4 +95,20 @@ export async function makeCard(ctx: CardContext, job: ResultsCardJob): Promise<C
     await repo.finishCard(ctx.db, job.channelId, job.episodeId, { failure: "Drawing the card failed on the server; try again, and tell whoever runs Kerf if it happens again." });
     throw error;
   }
+}
+
+/** The channel's card colours, and whether they are Kerf's own. */
+export async function cardColours(db: Queryable, channelId: string): Promise<{ colours: CardColours; own: boolean }> {
+  const { colours } = await repo.channelLook(db, channelId);
+  return { colours: colours ?? defaultCardColours, own: colours === null };
+}
+
+/** New colours for the channel's cards, refused with the reason when the text would not read; null goes back to Kerf's. */
+export async function changeCardColours(db: Database, channelId: string, body: unknown) {
+  const { colours } = parseBody(cardColoursInputSchema, body);
+  const problem = colours ? colourProblems(colours)[0] : undefined;
+  if (problem) throw new AppError("validation_failed", problem, { "colours.ink": problem });
+  const lower = colours && { background: colours.background.toLowerCase(), ink: colours.ink.toLowerCase(), accent: colours.accent.toLowerCase() };
+  await repo.saveCardColours(db, channelId, lower);
+  return cardColours(db, channelId);
 }

@@ -13,6 +13,8 @@ export const cardColoursSchema = z.strictObject({
   accent: hexColourSchema,
 });
 export type CardColours = z.infer<typeof cardColoursSchema>;
+/** A change of the channel's card colours; null goes back to Kerf's own. */
+export const cardColoursInputSchema = z.strictObject({ colours: cardColoursSchema.nullable() });
 
 /** Kerf's own: plywood paper, graphite ink, the cut-line amber marking the best candidate. */
 export const defaultCardColours: CardColours = { background: "#fbf9f5", ink: "#1f2a2c", accent: "#f2b33d" };

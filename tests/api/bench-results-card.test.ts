@@ -91,4 +91,23 @@ describe("the results card", () => {
     expect(answer.body.error.message).toBe("The card shows the bench's runs: enter a run first.");
     expect((await owner.get(`/api/channels/${channelId}/episodes/${empty.id}/results-card`).expect(200)).body.card).toBeNull();
   });
+
+  it("draws in the channel's colours once set, and refuses colours whose text would not read, changing nothing", async () => {
+    const colours = `/api/channels/${channelId}/results-card-colours`;
+    expect((await editor.get(colours).expect(200)).body).toEqual({ colours: { background: "#fbf9f5", ink: "#1f2a2c", accent: "#f2b33d" }, own: true });
+    const refused = await owner.send("put", colours, { colours: { background: "#ffffff", ink: "#aaaaaa", accent: "#f2b33d" } }).expect(400);
+    expect(refused.body.error.message).toBe("The text colour has 2.3 : 1 contrast with the background; it needs at least 4.5 : 1.");
+    await owner.send("put", colours, { colours: { background: "#notahex", ink: "#000000", accent: "#f2b33d" } }).expect(400);
+    expect((await editor.get(colours).expect(200)).body.own).toBe(true);
+
+    await editor.send("put", colours, { colours: { background: "#102A3C", ink: "#F4F1EA", accent: "#F2B33D" } }).expect(200);
+    await owner.send("post", `${base}/results-card`).expect(202);
+    await settledJobs(app.database.pool, RESULTS_CARD_QUEUE, (job) => job.data.channelId === channelId, 2);
+    const card = (await editor.get(`${base}/results-card`).expect(200)).body.card as ResultsCardView;
+    expect(card.state).toBe("ready");
+    const svg = await (await fetch(card.svg!.url)).text();
+    expect(svg).toContain('<rect width="1920" height="1080" fill="#102a3c"/>');
+    expect(svg).toContain('fill="#f4f1ea"');
+    await owner.send("put", colours, { colours: null }).expect(200);
+  });
 });

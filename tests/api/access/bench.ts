@@ -19,6 +19,7 @@ const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
 const photos = "/api/channels/:channelId/episodes/:episodeId/build-photos";
 const card = "/api/channels/:channelId/episodes/:episodeId/results-card";
+const colours = "/api/channels/:channelId/results-card-colours";
 
 export const access: FeatureAccess = {
   rows: [
@@ -50,6 +51,8 @@ export const access: FeatureAccess = {
     [`DELETE ${photos}/:photoId`,                     401,  ok,   ok,   403,  ok,   404],
     [`GET ${card}`,                                   401,  ok,   ok,   ok,   ok,   404],
     [`POST ${card}`,                                  401,  ok,   ok,   403,  ok,   404],
+    [`GET ${colours}`,                                401,  ok,   ok,   ok,   ok,   404],
+    [`PUT ${colours}`,                                401,  ok,   ok,   ok,   403,  404],
   ],
   recipes: benchRecipes,
 };
@@ -253,6 +256,18 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         const episode = await freshEpisode();
         await createRun(app.db, channelId, episode.id, ownerId, { label: "Card run" });
         return { params: { episodeId: episode.id }, intact: async () => expect(await count("bench_results_cards", "episode_id", episode.id)).toBe(0) };
+      },
+    },
+    [`GET ${colours}`]: { ok: 200 },
+    [`PUT ${colours}`]: {
+      ok: 200,
+      prepare: async () => {
+        // Each cell starts from Kerf's own colours, whoever set them in a cell before.
+        await rows("update channels set card_colours = null where id = $1", [channelId]);
+        return {
+          body: { colours: { background: "#102030", ink: "#f0f0f0", accent: "#f2b33d" } },
+          intact: async () => expect((await rows("select card_colours from channels where id = $1", [channelId]))[0]?.card_colours).toBeNull(),
+        };
       },
     },
   };

@@ -52,7 +52,7 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
           <Panel>
             <ComparisonChart runs={runs} best={best} criteria={criteria} />
           </Panel>
-          <ResultsCard channelId={channelId} episodeId={episodeId} canWrite={canWrite} />
+          <ResultsCard channelId={channelId} episodeId={episodeId} role={role} />
         </>
       )}
 

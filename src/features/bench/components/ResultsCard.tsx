@@ -1,9 +1,11 @@
+import { type Role, roleMay } from "@shared/access/roles";
 import type { ResultsCardView } from "@shared/bench/results-card-view";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QueryState } from "../../../components/States";
 import { useResultsCard } from "../api/get-results-card";
 import { useRequestResultsCard } from "../api/request-results-card";
+import { CardColoursForm } from "./CardColoursForm";
 import { Panel } from "./marks";
 
 const stateWords: Record<ResultsCardView["state"], string> = {
@@ -17,7 +19,8 @@ const stateWords: Record<ResultsCardView["state"], string> = {
  * The results card: the comparison as a 1920 × 1080 picture for the edit, drawn by the server from
  * the same figures as the table, kept with the episode's stills, downloadable as PNG and SVG.
  */
-export function ResultsCard({ channelId, episodeId, canWrite }: { channelId: string; episodeId: string; canWrite: boolean }) {
+export function ResultsCard({ channelId, episodeId, role }: { channelId: string; episodeId: string; role: Role }) {
+  const canWrite = roleMay(role, "bench", "W");
   const card = useResultsCard(channelId, episodeId);
   const request = useRequestResultsCard(channelId, episodeId);
   return (
@@ -38,6 +41,7 @@ export function ResultsCard({ channelId, episodeId, canWrite }: { channelId: str
         <QueryState query={card} loading="Looking for the card…">
           {(view) => (view ? <CardState view={view} /> : <p className="text-sm text-graphite-500">{canWrite ? "No card yet: draw one when the runs are in." : "No card yet: the crew draws one when the runs are in."}</p>)}
         </QueryState>
+        {roleMay(role, "publish", "W") && <CardColoursForm channelId={channelId} />}
       </section>
     </Panel>
   );
