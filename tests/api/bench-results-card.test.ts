@@ -61,7 +61,8 @@ describe("the results card", () => {
       { file_name: "results-card-case-fans-versus-one-big-rotor.png", content_type: "image/png" },
       { file_name: "results-card-case-fans-versus-one-big-rotor.svg", content_type: "image/svg+xml" },
     ]);
-  });
+    // The first card starts the instance's Chromium: on a loaded machine that alone can take many seconds.
+  }, 90_000);
 
   it("shows every figure exactly as the bench table writes it, in the table's units", async () => {
     const card = (await editor.get(`${base}/results-card`).expect(200)).body.card as ResultsCardView;
@@ -109,5 +110,5 @@ describe("the results card", () => {
     expect(svg).toContain('<rect width="1920" height="1080" fill="#102a3c"/>');
     expect(svg).toContain('fill="#f4f1ea"');
     await owner.send("put", colours, { colours: null }).expect(200);
-  });
+  }, 90_000);
 });
