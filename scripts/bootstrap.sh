@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Installs what Kerf needs on a Debian machine when it is missing: npm packages, PostgreSQL's
-# server binaries, OpenStack Swift with memcached (the S3 stand-in) and (with --browser) Debian's
-# Chromium for the browser tests.
+# server binaries, OpenStack Swift with memcached (the S3 stand-in) and Debian's Chromium (the
+# server's results cards, and the browser tests).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -44,6 +44,7 @@ if [ $missing = 1 ]; then
   apt_install --no-install-recommends swift-proxy swift-account swift-container swift-object memcached
 fi
 
-if [ "${1:-}" = "--browser" ] && ! command -v chromium >/dev/null; then
+# The server draws results cards with it, and the browser tests run in it.
+if ! command -v chromium >/dev/null; then
   apt_install chromium
 fi

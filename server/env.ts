@@ -17,6 +17,8 @@ const envSchema = z.object({
   /** Set when the app sits behind a TLS-terminating proxy: cookies become Secure. */
   TRUST_PROXY: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
   CLIENT_DIST: z.string().default("dist/client"),
+  /** The Chromium that draws pictures in jobs (the results card): Debian's, unless set. */
+  CHROMIUM_PATH: z.string().min(1).default("/usr/bin/chromium"),
   /** Sign-ups allowed from one address in 15 minutes: raise it where many people share one address. */
   SIGN_UPS_PER_ADDRESS: z.coerce.number().int().min(1).default(10),
   // Object storage for footage: any S3-compatible store. The defaults point at the local stand-in of

@@ -1,5 +1,7 @@
 import type { Server } from "node:http";
 import { createApp, mailRenderers } from "./app";
+import { startResultsCardWorker } from "./bench/bench.jobs";
+import { closeCardBrowser } from "./bench/card-picture";
 import { defaultSignInLimits } from "./auth/rate-limits";
 import { connectDatabase } from "./db/client";
 import { readEnv, type Env } from "./env";
@@ -23,6 +25,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const storage = createS3Storage(storageSettingsFrom(env));
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
   await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs });
+  await startResultsCardWorker(jobs.boss, { db: database.db, storage, jobs, chromiumPath: env.CHROMIUM_PATH });
   await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL });
   await scheduleMailHousekeeping(jobs.boss, database.db);
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
@@ -38,6 +41,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
       await drain(server);
       await quiet(database.pool);
       await jobs.stop();
+      await closeCardBrowser();
       mailer.close();
       await database.close();
     },

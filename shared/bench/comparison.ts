@@ -1,4 +1,4 @@
-import type { MetricName, PlanVerdict } from "./criteria";
+import type { Criterion, MetricName, PlanVerdict } from "./criteria";
 import { type Figure, isQuantity } from "./figures";
 import { metricLabels, preciseNumber } from "./format";
 import { lipoPack } from "./packs";
@@ -29,6 +29,16 @@ export const columnHeading = (key: ComparisonKey) => {
   const unit = columnUnit(key);
   return unit === RATIO_UNIT ? metricLabels[key] : `${metricLabels[key]} (${unit})`;
 };
+
+/**
+ * The unit a comparison shows a figure in before anyone picks another: the unit of the plan's
+ * criterion on it, so the figure reads against its threshold, else the bench's usual one.
+ */
+export function plannedUnit(criteria: readonly Criterion[], key: ComparisonKey): string {
+  const planned = criteria.find((criterion) => criterion.metric === key);
+  if (!planned) return columnUnit(key);
+  return planned.comparator === "between" ? planned.low.unit : planned.threshold.unit;
+}
 
 /** A figure as a plain number in `unit`; null when it was not measured, could not be computed, or is in another kind of unit. */
 export function figureIn(figure: Figure | undefined, unit: string): number | null {

@@ -1,8 +1,9 @@
 
 import { sql } from "drizzle-orm";
-import { boolean, index, json, pgEnum, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
+import { boolean, index, json, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
 import { createdAt, id, version } from "./columns";
 import { roles } from "../../../shared/access/roles";
+import type { CardColours } from "../../../shared/bench/card-colours";
 
 export const roleEnum = pgEnum("role", roles);
 
@@ -23,6 +24,8 @@ export const users = pgTable("users", {
 export const channels = pgTable("channels", {
   id: id(),
   name: text("name").notNull(),
+  /** The results card's colours; null keeps Kerf's own (shared/bench/card-colours.ts). */
+  cardColours: jsonb("card_colours").$type<CardColours>(),
   createdAt: createdAt(),
 });
 

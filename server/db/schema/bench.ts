@@ -158,3 +158,23 @@ export const buildPhotos = pgTable(
   },
   (table) => [index("build_photos_iteration_idx").on(table.channelId, table.iterationId, table.createdAt)],
 );
+
+export const resultsCardStates = ["queued", "drawing", "ready", "failed"] as const;
+
+/**
+ * The episode's results card, one per episode, drawn again on each request by a job. The picture
+ * and its SVG are also the episode's stills (rushes' `stills` table), so the editor finds them with
+ * the footage; the ids here point at those rows.
+ */
+export const resultsCards = pgTable("bench_results_cards", {
+  episodeId: uuid("episode_id")
+    .primaryKey()
+    .references(() => episodes.id, { onDelete: "cascade" }),
+  channelId: channelRef(),
+  state: text("state", { enum: resultsCardStates }).notNull(),
+  failure: text("failure"),
+  pngStillId: uuid("png_still_id"),
+  svgStillId: uuid("svg_still_id"),
+  requestedBy: personRef("requested_by"),
+  ...timestamps(),
+});

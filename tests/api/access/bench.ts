@@ -19,6 +19,8 @@ const parts = "/api/channels/:channelId/bench/parts";
 const runs = "/api/channels/:channelId/episodes/:episodeId/bench-runs";
 const log = "/api/channels/:channelId/episodes/:episodeId/build-log";
 const photos = "/api/channels/:channelId/episodes/:episodeId/build-photos";
+const card = "/api/channels/:channelId/episodes/:episodeId/results-card";
+const colours = "/api/channels/:channelId/results-card-colours";
 
 export const access: FeatureAccess = {
   rows: [
@@ -49,6 +51,10 @@ export const access: FeatureAccess = {
     [`POST ${log}/:iterationId/photos`,               401,  ok,   ok,   403,  ok,   404],
     [`GET ${photos}`,                                 401,  ok,   ok,   ok,   ok,   404],
     [`DELETE ${photos}/:photoId`,                     401,  ok,   ok,   403,  ok,   404],
+    [`GET ${card}`,                                   401,  ok,   ok,   ok,   ok,   404],
+    [`POST ${card}`,                                  401,  ok,   ok,   403,  ok,   404],
+    [`GET ${colours}`,                                401,  ok,   ok,   ok,   ok,   404],
+    [`PUT ${colours}`,                                401,  ok,   ok,   ok,   403,  404],
   ],
   recipes: benchRecipes,
 };
@@ -246,6 +252,27 @@ function benchRecipes({ app, world }: AccessContext): Record<string, Recipe> {
           .values({ channelId, episodeId: episode.id, iterationId: iteration.id, objectKey: `${channelId}/${episode.id}/${randomUUID()}`, fileName: "m.jpg", contentType: "image/jpeg", sizeBytes: 4 })
           .returning();
         return { params: { episodeId: episode.id, photoId: photo!.id }, intact: async () => expect(await count("build_photos", "id", photo!.id)).toBe(1) };
+      },
+    },
+    [`GET ${card}`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
+    [`POST ${card}`]: {
+      ok: 202,
+      prepare: async () => {
+        const episode = await freshEpisode();
+        await createRun(app.db, channelId, episode.id, ownerId, { label: "Card run" });
+        return { params: { episodeId: episode.id }, intact: async () => expect(await count("bench_results_cards", "episode_id", episode.id)).toBe(0) };
+      },
+    },
+    [`GET ${colours}`]: { ok: 200 },
+    [`PUT ${colours}`]: {
+      ok: 200,
+      prepare: async () => {
+        // Each cell starts from Kerf's own colours, whoever set them in a cell before.
+        await rows("update channels set card_colours = null where id = $1", [channelId]);
+        return {
+          body: { colours: { background: "#102030", ink: "#f0f0f0", accent: "#f2b33d" } },
+          intact: async () => expect((await rows("select card_colours from channels where id = $1", [channelId]))[0]?.card_colours).toBeNull(),
+        };
       },
     },
   };

@@ -13,6 +13,7 @@ import { useRuns } from "../api/list-runs";
 import { ComparisonChart } from "./ComparisonChart";
 import { ComparisonTable } from "./ComparisonTable";
 import { Panel } from "./marks";
+import { ResultsCard } from "./ResultsCard";
 import { RunCard } from "./RunCard";
 import { RunForm } from "./RunForm";
 
@@ -37,20 +38,23 @@ function Bench({ channelId, episodeId, role, runs, plan, parts }: { channelId: s
       {runs.length === 0 ? (
         <Empty title="No bench runs yet">{canWrite ? "Enter the first candidate's measurements below." : "Runs appear here as the crew measures candidates."}</Empty>
       ) : (
-        <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 xl:grid-cols-2">
-          <Panel>
-            <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
-              <h3 className="font-semibold">Candidates side by side</h3>
-              <a href={runsCsvUrl(channelId, episodeId)} download className="text-sm font-semibold text-rust-600 underline">
-                Download the runs as CSV
-              </a>
-            </div>
-            <ComparisonTable runs={runs} bestId={best?.id ?? null} criteria={criteria} />
-          </Panel>
-          <Panel>
-            <ComparisonChart runs={runs} best={best} criteria={criteria} />
-          </Panel>
-        </div>
+        <>
+          <div className="grid grid-cols-[minmax(0,1fr)] items-start gap-6 xl:grid-cols-2">
+            <Panel>
+              <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+                <h3 className="font-semibold">Candidates side by side</h3>
+                <a href={runsCsvUrl(channelId, episodeId)} download className="text-sm font-semibold text-rust-600 underline">
+                  Download the runs as CSV
+                </a>
+              </div>
+              <ComparisonTable runs={runs} bestId={best?.id ?? null} criteria={criteria} />
+            </Panel>
+            <Panel>
+              <ComparisonChart runs={runs} best={best} criteria={criteria} />
+            </Panel>
+          </div>
+          <ResultsCard channelId={channelId} episodeId={episodeId} role={role} />
+        </>
       )}
 
       {runs.length > 0 && (

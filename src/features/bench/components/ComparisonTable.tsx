@@ -1,5 +1,5 @@
 import { type ReactNode, useState } from "react";
-import { type ComparisonKey, comparisonColumns, figureIn, sortRuns, type SortDirection, type SortKey } from "@shared/bench/comparison";
+import { type ComparisonKey, comparisonColumns, figureIn, plannedUnit, sortRuns, type SortDirection, type SortKey } from "@shared/bench/comparison";
 import { formatNumber, metricLabels, unitsForMetric } from "@shared/bench/format";
 import { RATIO_UNIT } from "@shared/bench/quantity";
 import { isOverRated } from "@shared/bench/runs";
@@ -14,12 +14,11 @@ import { VerdictBadge } from "./marks";
 export function ComparisonTable({ runs, bestId, criteria = [] }: { runs: RunView[]; bestId: string | null; criteria?: CriterionView[] }) {
   const [sort, setSort] = useState<{ key: SortKey; direction: SortDirection }>({ key: "number", direction: "ascending" });
   const [picked, setPicked] = useState<Partial<Record<ComparisonKey, string>>>({});
-  const unitsOf = (key: ComparisonKey, usual: string) => {
-    const planned = criteria.find((criterion) => criterion.metric === key);
-    const plannedUnit = planned ? (planned.comparator === "between" ? planned.low.unit : planned.threshold.unit) : undefined;
+  const unitsOf = (key: ComparisonKey) => {
+    const planned = plannedUnit(criteria, key);
     const choices = [...unitsForMetric(key)];
-    if (plannedUnit && !choices.includes(plannedUnit)) choices.unshift(plannedUnit);
-    return { choices, unit: picked[key] ?? plannedUnit ?? usual };
+    if (!choices.includes(planned)) choices.unshift(planned);
+    return { choices, unit: picked[key] ?? planned };
   };
   // Figures nobody measured would only be a row of dashes.
   const rows = comparisonColumns.filter((column) => runs.some((run) => figureIn(run.evaluation.values[column.key], column.unit) !== null));
@@ -70,7 +69,7 @@ export function ComparisonTable({ runs, bestId, criteria = [] }: { runs: RunView
             ))}
           </tr>
           {rows.map((row) => {
-            const { choices, unit } = unitsOf(row.key, row.unit);
+            const { choices, unit } = unitsOf(row.key);
             const label = metricLabels[row.key];
             const unitSwitch =
               unit === RATIO_UNIT ? null : (

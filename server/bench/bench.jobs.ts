@@ -1,0 +1,12 @@
+import type PgBoss from "pg-boss";
+import { type CardContext, makeCard, RESULTS_CARD_QUEUE, type ResultsCardJob } from "./results-card.service";
+
+/**
+ * This instance's results-card worker: one card at a time (one Chromium page), each channel's n-th
+ * waiting card before any channel's (n+1)-th. What it made is the job's output; a failure is the
+ * job's failure and the card says so.
+ */
+export async function startResultsCardWorker(boss: PgBoss, ctx: CardContext, options: { pollSeconds?: number } = {}): Promise<void> {
+  await boss.createQueue(RESULTS_CARD_QUEUE);
+  await boss.work<ResultsCardJob>(RESULTS_CARD_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeCard(ctx, job!.data));
+}
