@@ -12,6 +12,7 @@ import { verificationRoutes } from "./auth/verification.router";
 import { addressChangeMailRenderer, verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
+import { benchPublishSource } from "./bench/bench.publish";
 import { channelRoutes } from "./channels/channels.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { healthRoutes } from "./health/health.router";
@@ -24,6 +25,7 @@ import { mountRoutes, type RouteSpec } from "./http/route-table";
 import { bestEffort, configurePassport, sessionMiddleware } from "./http/session";
 import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
+import { publishRoutes, type PublishPlugs } from "./publish/publish.router";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
@@ -31,6 +33,7 @@ import type { SlatePlugs } from "./seams/slate-plugs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
+import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
@@ -51,6 +54,12 @@ export const slatePlugs: SlatePlugs = {
   boardFlags: [...sponsorFlagSources],
   boardFilters: { sponsor: sponsorBoardFilter },
   publishDateFollowers: [sponsorsFollowPublishDate],
+};
+
+/** What the publish package drafts from and checks against, and who follows the video going live. */
+export const publishPlugs: PublishPlugs = {
+  sources: [sponsorsPublishSource, benchPublishSource],
+  goLiveFollowers: [sponsorsFollowGoLive],
 };
 
 /**
@@ -90,6 +99,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
+    ...publishRoutes(deps, publishPlugs),
   ];
 }
 

@@ -37,3 +37,17 @@ export function thumbnailProblems(facts: ThumbnailFacts): string[] {
 /** A note, not a problem: smaller than the recommended size but still taken. */
 export const belowRecommended = (facts: ThumbnailFacts) =>
   facts.width !== null && facts.width >= THUMBNAIL_MIN_WIDTH && facts.width < THUMBNAIL_RECOMMENDED.width;
+
+/** What Kerf takes as a thumbnail upload: the platform's formats, up to a size that still lets the 2 MB rule be shown. */
+export const THUMBNAIL_UPLOAD_MAX_BYTES = 10 * 1024 * 1024;
+
+export type ThumbnailFileCheck = { ok: true; contentType: string } | { ok: false; status: 413 | 415 | 400; message: string };
+
+export function checkThumbnailFile(fileName: string, size: number): ThumbnailFileCheck {
+  const dot = fileName.lastIndexOf(".");
+  const contentType = dot < 0 ? undefined : thumbnailTypes[fileName.slice(dot + 1).toLowerCase()];
+  if (!contentType) return { ok: false, status: 415, message: "A thumbnail is a .jpg, .jpeg, .png or .gif file, as the platform takes them." };
+  if (!Number.isSafeInteger(size) || size <= 0) return { ok: false, status: 400, message: `"${fileName}" is empty.` };
+  if (size > THUMBNAIL_UPLOAD_MAX_BYTES) return { ok: false, status: 413, message: `"${fileName}" is over 10 MB; the platform takes thumbnails under 2 MB.` };
+  return { ok: true, contentType };
+}
