@@ -2,6 +2,7 @@ import type { EpisodeSection } from "../lib/episode-sections";
 import { BenchSection } from "../features/bench/components/BenchSection";
 import { BuildLogSection } from "../features/bench/components/BuildLogSection";
 import { TestPlanSheet } from "../features/bench/components/TestPlanSheet";
+import { PublishSection } from "../features/publish/components/PublishSection";
 import { EpisodeRushes } from "../features/rushes/components/EpisodeRushes";
 import { EpisodeDeals } from "../features/sponsors/components/EpisodeDeals";
 
@@ -15,4 +16,5 @@ export const episodeSections: EpisodeSection[] = [
   { id: "build-log", title: "Build log", Component: BuildLogSection },
   { id: "shoot-footage", title: "Shoot and footage", Component: EpisodeRushes },
   { id: "sponsor-deals", title: "Sponsor deals", Component: EpisodeDeals },
+  { id: "publish-package", title: "Publish package", Component: PublishSection },
 ];
