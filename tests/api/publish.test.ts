@@ -85,7 +85,7 @@ describe("the publish package", () => {
   it("when essentials are missing, then going live asks for a reason and records it", async () => {
     const { editor, base } = await setting();
     const refused = await editor.send("post", `${base}/go-live`, { videoUrl: "https://video.example/watch/x" }).expect(422);
-    expect(refused.body.error.problems.map((p: { code: string }) => p.code)).toEqual(
+    expect(refused.body.problems.map((p: { code: string }) => p.code)).toEqual(
       expect.arrayContaining(["publish.no_title", "publish.no_disclosure", "publish.no_sponsor_link", "publish.chapters", "publish.no_thumbnail"]),
     );
     expect((await editor.get(base).expect(200)).body.package.publishedAt).toBeNull();
@@ -98,7 +98,7 @@ describe("the publish package", () => {
     const body = { version: 0, titles: ["First"], chosenTitle: 0, description: "", chapters: "", timeZone: "UTC", publishAt: null, thumbnailId: null };
     await editor.send("put", base, body).expect(200);
     const stale = await editor.send("put", base, { ...body, titles: ["Second"] }).expect(409);
-    expect(stale.body.error.current.titles).toEqual(["First"]);
+    expect(stale.body.current.titles).toEqual(["First"]);
   });
 
   it("when the input is bad, then it is refused with a message per field and nothing changes", async () => {
