@@ -1,5 +1,6 @@
 import { crc32 } from "node:zlib";
 import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expectNoSeriousA11yViolations } from "./axe";
 import { hostWithEpisode, snap, sql } from "./support";
 
 test.setTimeout(180_000);
@@ -83,7 +84,15 @@ test("an episode in publish gets its package, passes the gate, and going live st
   await section.getByLabel("Use cover.png").check();
   await section.getByRole("button", { name: "Save the package" }).click();
   await expect(section.getByText("The package has everything the video needs.")).toBeVisible();
+  await section.scrollIntoViewIfNeeded();
   await snap(page, "publish-01-package-ready");
+  await expectNoSeriousA11yViolations(page, "publish package");
+  // On a phone the package fits the screen's width: nothing scrolls sideways.
+  await page.setViewportSize({ width: 390, height: 844 });
+  await section.getByRole("button", { name: "Save the package" }).scrollIntoViewIfNeeded();
+  await snap(page, "publish-01b-package-phone");
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await page.setViewportSize({ width: 1280, height: 800 });
 
   await section.getByLabel("Link to the published video").fill("https://video.example/watch/tidewater-3");
   await section.getByRole("button", { name: "Mark published" }).click();
