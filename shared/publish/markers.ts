@@ -1,4 +1,5 @@
-import { parse } from "csv-parse/sync";
+// The browser build: it brings its own Buffer, so the chapter import runs in the page as in Node.
+import { parse } from "csv-parse/browser/esm/sync";
 import { parseTimecode, TimecodeError, framesToSeconds } from "../timecode/timecode";
 import type { TimecodeFormat } from "../timecode/rates";
 import type { Chapter } from "./chapters";

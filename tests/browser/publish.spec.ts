@@ -60,9 +60,11 @@ test("an episode in publish gets its package, passes the gate, and going live st
   await call(page.request, `${base}/deals/${deal.id}/deliverables`, headers, { kind: "report", title: "Figures at 30 days", anchor: "after_go_live", offsetDays: 30 }, 201);
 
   await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  // The episode page first (on a loaded machine it can take a while), then its publish part.
+  await expect(page.getByRole("heading", { name: "Three packs, one bench" }).first()).toBeVisible({ timeout: 60_000 });
   const section = page.locator("#publish-package");
   const gate = section.getByRole("list", { name: "Missing before go-live" });
-  await expect(gate.getByText("No title is chosen.")).toBeVisible();
+  await expect(gate.getByText("No title is chosen.")).toBeVisible({ timeout: 30_000 });
 
   await section.getByRole("button", { name: "Add a title" }).click();
   await section.getByLabel("Title 1").fill("Which pack lasts? Three cells on one bench");
