@@ -11,6 +11,7 @@ import { verificationRoutes } from "./auth/verification.router";
 import { addressChangeMailRenderer, verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
+import { benchPublishSource } from "./bench/bench.publish";
 import { channelRoutes } from "./channels/channels.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { benchNeeds } from "./bench/bench.needs";
@@ -27,6 +28,7 @@ import { bestEffort, configurePassport, sessionMiddleware } from "./http/session
 import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
 import { rushesNeeds } from "./rushes/rushes.needs";
+import { publishRoutes, type PublishPlugs } from "./publish/publish.router";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
@@ -37,6 +39,7 @@ import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
 import { sponsorNeeds } from "./sponsors/sponsors.needs";
+import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
@@ -57,6 +60,12 @@ export const slatePlugs: SlatePlugs = {
   boardFlags: [...sponsorFlagSources],
   boardFilters: { sponsor: sponsorBoardFilter },
   publishDateFollowers: [sponsorsFollowPublishDate],
+};
+
+/** What the publish package drafts from and checks against, and who follows the video going live. */
+export const publishPlugs: PublishPlugs = {
+  sources: [sponsorsPublishSource, benchPublishSource],
+  goLiveFollowers: [sponsorsFollowGoLive],
 };
 
 /**
@@ -100,6 +109,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
     ...homeRoutes(db, needSources),
+    ...publishRoutes(deps, publishPlugs),
   ];
 }
 

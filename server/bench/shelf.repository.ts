@@ -96,3 +96,14 @@ export async function runsOfPart(db: Queryable, channelId: string, partId: strin
     .where(and(eq(benchRunParts.channelId, channelId), eq(benchRunParts.partId, partId)))
     .orderBy(desc(benchRuns.createdAt), desc(benchRuns.number));
 }
+
+/** The parts the episode's runs used, once each, with where they were bought: the description's parts list. */
+export async function partsUsedInEpisode(db: Queryable, channelId: string, episodeId: string) {
+  return db
+    .selectDistinct({ name: benchParts.name, supplier: benchParts.supplier })
+    .from(benchRunParts)
+    .innerJoin(benchRuns, eq(benchRuns.id, benchRunParts.runId))
+    .innerJoin(benchParts, eq(benchParts.id, benchRunParts.partId))
+    .where(and(eq(benchRunParts.channelId, channelId), eq(benchRuns.episodeId, episodeId)))
+    .orderBy(asc(benchParts.name));
+}

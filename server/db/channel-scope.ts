@@ -3,6 +3,7 @@ import type { PgColumn } from "drizzle-orm/pg-core";
 import type { Role } from "../../shared/access/roles";
 import type { Database } from "./client";
 import { channels, invitations, memberships, users } from "./schema/accounts";
+import { publishThumbnails } from "./schema/publish";
 import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
 import { episodes } from "./schema/slate";
@@ -42,6 +43,7 @@ export const channelChildren = {
   dealId: child("Deal", deals),
   deliverableId: child("Deliverable", deliverables),
   linkId: child("Review link", reviewLinks),
+  thumbnailId: child("Thumbnail", publishThumbnails),
   invitationId: child("Invitation", invitations),
   userId: { what: "Member", id: memberships.userId, channelId: memberships.channelId },
 } satisfies Record<string, ChildRow>;

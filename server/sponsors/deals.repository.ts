@@ -95,7 +95,7 @@ export async function findHost(db: Db, channelId: string, userId: string) {
 /** The episode's deals that aren't cancelled, with what the publish gates read. */
 export async function liveDealsOfEpisode(db: Db, channelId: string, episodeId: string) {
   return db
-    .select({ id: deals.id, company: sponsors.company, script: deals.script, descriptionCopy: deals.descriptionCopy, disclosureText: deals.disclosureText, publishDate: episodes.targetPublishDate })
+    .select({ id: deals.id, company: sponsors.company, script: deals.script, descriptionCopy: deals.descriptionCopy, disclosureText: deals.disclosureText, link: deals.link, promoCode: deals.promoCode, goLiveDate: deals.goLiveDate, publishDate: episodes.targetPublishDate })
     .from(deals)
     .innerJoin(sponsors, eq(sponsors.id, deals.sponsorId))
     .innerJoin(episodes, eq(episodes.id, deals.episodeId))

@@ -41,3 +41,16 @@ export async function userName(db: Db, userId: string): Promise<string | null> {
   const [user] = await db.select({ name: users.name }).from(users).where(eq(users.id, userId));
   return user?.name ?? null;
 }
+
+/** The deal's go-live date, set when the video goes live (the deal's version is left alone: a re-dating, not an edit). */
+export async function setGoLiveDate(db: Db, channelId: string, dealId: string, goLiveDate: string) {
+  await db.update(deals).set({ goLiveDate, updatedAt: new Date() }).where(and(eq(deals.id, dealId), eq(deals.channelId, channelId)));
+}
+
+/** The deal's go-live items, with their status. */
+export async function goLiveItems(db: Db, channelId: string, dealId: string) {
+  return db
+    .select({ id: deliverables.id, status: deliverables.status })
+    .from(deliverables)
+    .where(and(eq(deliverables.dealId, dealId), eq(deliverables.channelId, channelId), eq(deliverables.kind, "go_live")));
+}

@@ -55,7 +55,7 @@ export async function followPublishDate(db: Db, input: { channelId: string; epis
   });
 }
 
-async function memberActor(db: Db, userId: string): Promise<Actor> {
+export async function memberActor(db: Db, userId: string): Promise<Actor> {
   const name = await userName(db, userId);
   return name === null ? systemActor : { id: userId, name, kind: "member" };
 }

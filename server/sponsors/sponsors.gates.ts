@@ -3,36 +3,38 @@ import { isSettled, openStatusPhrases } from "../../shared/sponsors/deliverables
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
 import type { GateProblem } from "../../shared/slate/gates";
 import { entersStageForward, type GateContext, type StageGate } from "../seams/stage-gates";
-import { itemsOfDeals, liveDealsOfEpisode } from "./deals.repository";
+import { itemsOfDeals, liveDealsOfEpisode, type Db } from "./deals.repository";
 
 const liveDeals = (context: GateContext) => liveDealsOfEpisode(context.db, context.channelId, context.episodeId);
 
 /**
- * Entering publish with a sponsor item still open that was due before the video goes out: every item
- * counted back from the publish date (and any hand-dated item due by then) must be approved or done.
+ * Every item still open that was due before the video goes out: counted back from the publish date (or
+ * hand-dated on or before it), not yet approved or done. Read by the gate below and by the publish package.
  */
+export async function openItemsBeforePublish(db: Db, channelId: string, episodeId: string): Promise<string[]> {
+  const found = await liveDealsOfEpisode(db, channelId, episodeId);
+  if (found.length === 0) return [];
+  const items = await itemsOfDeals(db, channelId, found.map((d) => d.id));
+  const open: string[] = [];
+  for (const deal of found) {
+    for (const item of items.filter((i) => i.dealId === deal.id)) {
+      if (isSettled(item.status)) continue;
+      const beforePublish =
+        item.anchor === "before_publish" ||
+        (item.anchor === "fixed" && item.dueDate !== null && deal.publishDate !== null && daysBetween(item.dueDate, deal.publishDate) >= 0);
+      if (beforePublish) open.push(`${deal.company}: "${item.title}" ${openStatusPhrases[item.status]}; it must be approved or done before publishing.`);
+    }
+  }
+  return open;
+}
+
+/** Entering publish with a sponsor item still open that was due before the video goes out. */
 const unapprovedItems: StageGate = {
   name: "sponsors.unapproved_items",
   applies: (from, to) => entersStageForward("publish", from, to),
   async check(context) {
-    const found = await liveDeals(context);
-    if (found.length === 0) return [];
-    const items = await itemsOfDeals(context.db, context.channelId, found.map((d) => d.id));
-    const problems: GateProblem[] = [];
-    for (const deal of found) {
-      for (const item of items.filter((i) => i.dealId === deal.id)) {
-        if (isSettled(item.status)) continue;
-        const beforePublish =
-          item.anchor === "before_publish" ||
-          (item.anchor === "fixed" && item.dueDate !== null && deal.publishDate !== null && daysBetween(item.dueDate, deal.publishDate) >= 0);
-        if (!beforePublish) continue;
-        problems.push({
-          code: "sponsors.unapproved_item",
-          message: `${deal.company}: "${item.title}" ${openStatusPhrases[item.status]}; it must be approved or done before publishing.`,
-        });
-      }
-    }
-    return problems;
+    const open = await openItemsBeforePublish(context.db, context.channelId, context.episodeId);
+    return open.map((message): GateProblem => ({ code: "sponsors.unapproved_item", message }));
   },
 };
 

@@ -1,7 +1,7 @@
 import { Transform, type Readable } from "node:stream";
 import type { Request, Response } from "express";
 import multer, { MulterError, type StorageEngine } from "multer";
-import { checkStillFile, MAX_STILL_BYTES, formatBytes } from "../../shared/rushes/limits";
+import { checkStillFile, MAX_STILL_BYTES, formatBytes, type FileCheck } from "../../shared/rushes/limits";
 import { AppError } from "../http/app-error";
 import { type Storage, storageDown, isStorageDown } from "./storage";
 
@@ -16,13 +16,30 @@ export interface ReceivedFile {
   fileName: string;
   contentType: string;
   size: number;
+  /** The file's first bytes (up to `PhotoRules.keepHead`), where image formats keep their size. */
+  head: Buffer;
 }
 
-function countingGuard(expected: number): Transform {
+/** What a feature takes: the stills' rules unless it says otherwise (thumbnails take other types and sizes). */
+export interface PhotoRules {
+  check: (fileName: string, size: number) => FileCheck;
+  maxBytes: number;
+  /** Bytes of the file's start to keep for the feature to read; none by default. */
+  keepHead?: number;
+}
+
+const stillRules: PhotoRules = { check: checkStillFile, maxBytes: MAX_STILL_BYTES };
+
+function countingGuard(expected: number, head: { keep: number; chunks: Buffer[]; length: number }): Transform {
   let seen = 0;
   return new Transform({
     transform(chunk: Buffer, _enc, done) {
       seen += chunk.length;
+      if (head.length < head.keep) {
+        const part = chunk.subarray(0, head.keep - head.length);
+        head.chunks.push(Buffer.from(part));
+        head.length += part.length;
+      }
       if (seen > expected) return done(new AppError("validation_failed", `The file is larger than the ${expected} bytes its size field said.`));
       done(null, chunk);
     },
@@ -32,7 +49,9 @@ function countingGuard(expected: number): Transform {
   });
 }
 
-function streamingEngine(storage: Storage, keyFor: () => string): StorageEngine {
+type HeldFile = Express.Multer.File & { head?: Buffer };
+
+function streamingEngine(storage: Storage, keyFor: () => string, rules: PhotoRules): StorageEngine {
   return {
     _handleFile(req, file, callback) {
       const declared = Number((req.body as Record<string, unknown> | undefined)?.size);
@@ -43,13 +62,14 @@ function streamingEngine(storage: Storage, keyFor: () => string): StorageEngine 
       if (!Number.isSafeInteger(declared) || declared <= 0) {
         return fail(new AppError("validation_failed", "Send the file's size (in bytes) as the form's size field, before the file.", { size: "Give the file's size." }));
       }
-      const check = checkStillFile(file.originalname, declared);
+      const check = rules.check(file.originalname, declared);
       if (!check.ok) {
         const code = check.status === 413 ? "payload_too_large" : check.status === 415 ? "unsupported_media_type" : "validation_failed";
         return fail(new AppError(code, check.message));
       }
       const key = keyFor();
-      const guard = countingGuard(declared);
+      const head = { keep: rules.keepHead ?? 0, chunks: [] as Buffer[], length: 0 };
+      const guard = countingGuard(declared, head);
       const body: Readable = file.stream.pipe(guard);
       // The guard's complaint is read back below (guard.errored); this keeps it from being "unhandled".
       // A stream that breaks its promise (too short, too long) must end the PUT at once, not leave it waiting.
@@ -58,7 +78,7 @@ function streamingEngine(storage: Storage, keyFor: () => string): StorageEngine 
       file.stream.on("error", (error) => guard.destroy(error));
       storage
         .putStream(key, body, { contentType: check.contentType, size: declared, signal: abort.signal })
-        .then(() => callback(null, { path: key, size: declared, mimetype: check.contentType }))
+        .then(() => callback(null, { path: key, size: declared, mimetype: check.contentType, head: Buffer.concat(head.chunks) } as Partial<HeldFile>))
         .catch((error: unknown) => {
           // The guard's own complaint beats the store's echo of it.
           const reason = guard.errored ?? error;
@@ -71,9 +91,9 @@ function streamingEngine(storage: Storage, keyFor: () => string): StorageEngine 
   };
 }
 
-function fromMulter(error: unknown): unknown {
+function fromMulter(error: unknown, maxBytes: number): unknown {
   if (error instanceof MulterError) {
-    if (error.code === "LIMIT_FILE_SIZE") return new AppError("payload_too_large", `A photo can be at most ${formatBytes(MAX_STILL_BYTES)}.`);
+    if (error.code === "LIMIT_FILE_SIZE") return new AppError("payload_too_large", `A photo can be at most ${formatBytes(maxBytes)}.`);
     if (error.code === "LIMIT_UNEXPECTED_FILE") return new AppError("validation_failed", "Send one file, in the form's file field.", { file: "One file, named file." });
     return new AppError("validation_failed", `The upload form is not right: ${error.message}.`);
   }
@@ -81,18 +101,18 @@ function fromMulter(error: unknown): unknown {
 }
 
 /** Receives the form's one file into storage under a key Kerf makes; answers 400/413/415/503 otherwise. */
-export function receiveStill(req: Request, res: Response, storage: Storage, keyFor: () => string): Promise<{ file: ReceivedFile; fields: Record<string, string> }> {
+export function receiveStill(req: Request, res: Response, storage: Storage, keyFor: () => string, rules: PhotoRules = stillRules): Promise<{ file: ReceivedFile; fields: Record<string, string> }> {
   const upload = multer({
-    storage: streamingEngine(storage, keyFor),
-    limits: { fileSize: MAX_STILL_BYTES, files: 1, fields: 8, fieldSize: 2_000, parts: 10 },
+    storage: streamingEngine(storage, keyFor, rules),
+    limits: { fileSize: rules.maxBytes, files: 1, fields: 8, fieldSize: 2_000, parts: 10 },
   }).single("file");
   return new Promise((resolve, reject) => {
     upload(req, res, (error?: unknown) => {
-      if (error) return reject(fromMulter(error));
-      const file = req.file;
+      if (error) return reject(fromMulter(error, rules.maxBytes));
+      const file = req.file as HeldFile | undefined;
       if (!file) return reject(new AppError("validation_failed", "Choose a photo to upload.", { file: "Choose a photo." }));
       resolve({
-        file: { key: file.path, fileName: file.originalname, contentType: file.mimetype, size: file.size },
+        file: { key: file.path, fileName: file.originalname, contentType: file.mimetype, size: file.size, head: file.head ?? Buffer.alloc(0) },
         fields: { ...(req.body as Record<string, string>) },
       });
     });

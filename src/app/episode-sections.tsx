@@ -3,6 +3,7 @@ import { BenchSection } from "../features/bench/components/BenchSection";
 import { BuildLogSection } from "../features/bench/components/BuildLogSection";
 import { TestPlanSheet } from "../features/bench/components/TestPlanSheet";
 import { EpisodeFootage, EpisodeShoot } from "../features/rushes/components/EpisodeRushes";
+import { PublishSection } from "../features/publish/components/PublishSection";
 import { EpisodeDeals } from "../features/sponsors/components/EpisodeDeals";
 
 /**
@@ -17,4 +18,5 @@ export const episodeSections: EpisodeSection[] = [
   { id: "shoot", title: "Shoot days and shots", Component: EpisodeShoot },
   { id: "footage", title: "Footage", Component: EpisodeFootage },
   { id: "sponsor-deals", title: "Sponsor deals", Component: EpisodeDeals },
+  { id: "publish-package", title: "Publish package", Component: PublishSection },
 ];

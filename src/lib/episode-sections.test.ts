@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { stages } from "@shared/slate/stages";
 import { openPart, partFromFragment } from "./episode-sections";
 
-const parts = ["overview", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "history", "activity"];
+const parts = ["overview", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "publish-package", "history", "activity"];
 
 describe("the part the episode page opens on", () => {
   it.each([
@@ -12,7 +12,7 @@ describe("the part the episode page opens on", () => {
     ["shoot", "shoot"],
     ["edit", "footage"],
     ["sponsor_read", "sponsor-deals"],
-    ["publish", "overview"],
+    ["publish", "publish-package"],
   ] as const)("in %s, with no part in the address, opens %s", (stage, part) => {
     expect(openPart(stage, undefined, parts)).toBe(part);
   });

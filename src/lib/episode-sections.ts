@@ -20,7 +20,7 @@ export interface EpisodeSection {
  * The part of the episode page each stage's work happens in, so the page opens where the team is:
  * the question while it is a challenge, the sheet while the test is planned, the runs at the bench,
  * the days and shots on set, the footage in the edit, the deals for the sponsor read, and the
- * overview with its dates once it is being published.
+ * publish package once it is being published.
  */
 const partForStage: Record<Stage, string> = {
   challenge: "overview",
@@ -29,7 +29,7 @@ const partForStage: Record<Stage, string> = {
   shoot: "shoot",
   edit: "footage",
   sponsor_read: "sponsor-deals",
-  publish: "overview",
+  publish: "publish-package",
 };
 
 /** The part to open: the one the address names if the page has it, else the stage's own, else the first. */

@@ -7,7 +7,7 @@ import { sessionKeys } from "./session";
  * refreshes another feature's data without either importing the other: a mutation says
  * `meta: { changes: ["episode"] }`, a query `meta: { follows: ["episode"] }`.
  */
-export type DataTopic = "episode" | "footage" | "bench";
+export type DataTopic = "episode" | "footage" | "bench" | "publish";
 
 declare module "@tanstack/react-query" {
   interface Register {

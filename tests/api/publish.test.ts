@@ -1,0 +1,115 @@
+import { crc32 } from "node:zlib";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { buildDescription } from "../../shared/publish/description";
+import { createCrewedChannel } from "../factories/accounts";
+import { createEpisode } from "../factories/episodes";
+import { createDeal, createSponsor } from "../factories/sponsors";
+import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+
+let app: TestApp;
+beforeAll(async () => {
+  app = await startTestApp();
+});
+afterAll(() => app.close());
+
+/** A PNG as the PNG specification (W3C, 2nd edition, 5.2 and 11.2.2) lays it out: signature, IHDR with the size, IEND. */
+function png(width: number, height: number): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
+    const length = Buffer.alloc(4);
+    length.writeUInt32BE(data.length);
+    const crc = Buffer.alloc(4);
+    crc.writeUInt32BE(crc32(body));
+    return Buffer.concat([length, body, crc]);
+  };
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(width, 0);
+  header.writeUInt32BE(height, 4);
+  header.set([8, 2, 0, 0, 0], 8);
+  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", header), chunk("IEND", Buffer.alloc(0))]);
+}
+
+const upload = (who: Visitor, path: string, name: string, bytes: Buffer) =>
+  who.agent.post(path).set("x-csrf-token", who.csrf).field("size", String(bytes.length)).attach("file", bytes, { filename: name, contentType: "image/png" });
+
+const chapters = "0:00 Why this test\n0:30 Building the rig\n1:00 Verdict";
+
+async function setting() {
+  const crewed = await createCrewedChannel(app.db, "Publish Bench");
+  const episode = await createEpisode(app.db, crewed.channel.id, { title: "Three packs", stage: "publish" });
+  const sponsor = await createSponsor(app.db, crewed.channel.id, { company: "Ohmwright Cells" });
+  // Every item counted back from the publish date is approved, so only the package decides the gate.
+  const { deal, items } = await createDeal(app.db, crewed.channel.id, episode.id, {
+    sponsorId: sponsor.id,
+    publishDate: "2027-03-05",
+    disclosureText: "Paid partnership with Ohmwright Cells.",
+    link: "https://ohmwright.example/bench",
+    statuses: { 0: "approved", 1: "approved", 2: "approved", 3: "approved" },
+  });
+  const editor = await app.signedIn(crewed.editor);
+  const base = `/api/channels/${crewed.channel.id}/episodes/${episode.id}/publish`;
+  return { ...crewed, episode, deal, items, editor, base };
+}
+
+const item = async (dealId: string, kind: string) =>
+  (await app.database.pool.query("select status, due_date::text as due from deliverables where deal_id = $1 and kind = $2", [dealId, kind])).rows[0] as { status: string; due: string };
+
+describe("the publish package", () => {
+  it("when the editor builds a complete package and marks it published, then the gate passes and the sponsor's after-go-live dates start", async () => {
+    const { editor, base, deal } = await setting();
+    const empty = (await editor.get(base).expect(200)).body.package;
+    expect(empty.version).toBe(0);
+    expect(empty.gate.map((p: { code: string }) => p.code)).toContain("publish.no_title");
+    expect(empty.sources.mentions).toEqual([{ company: "Ohmwright Cells", disclosure: "Paid partnership with Ohmwright Cells.", link: "https://ohmwright.example/bench", code: "GANTRY10" }]);
+
+    const good = (await upload(editor, `${base}/thumbnails`, "cover.png", png(1280, 720)).expect(201)).body.thumbnail;
+    expect(good).toMatchObject({ width: 1280, height: 720, problems: [] });
+    const square = (await upload(editor, `${base}/thumbnails`, "square.png", png(1000, 1000)).expect(201)).body.thumbnail;
+    expect(square.problems).toEqual(["The picture is 1000 × 1000, not 16:9 (1280 × 720 is best)."]);
+
+    const description = buildDescription({ ...empty.sources, summary: "Which pack lasts longest?", chapters: [] });
+    const saved = await editor.send("put", base, { version: 0, titles: ["Which pack lasts?", "Three packs, one bench"], chosenTitle: 0, description, chapters, timeZone: "Europe/Oslo", publishAt: "2027-03-05T16:00:00Z", thumbnailId: good.id })
+      .expect(200);
+    expect(saved.body.package).toMatchObject({ version: 1, chosenTitle: 0, timeZone: "Europe/Oslo", publishAt: "2027-03-05T16:00:00.000Z", gate: [] });
+
+    const live = await editor.send("post", `${base}/go-live`, { videoUrl: "https://video.example/watch/abc", publishedAt: "2027-03-05T23:30:00Z" }).expect(200);
+    expect(live.body.package).toMatchObject({ publishedAt: "2027-03-05T23:30:00.000Z", videoUrl: "https://video.example/watch/abc", goLiveReason: null });
+    // 23:30 UTC is already 6 March in Oslo (UTC+1): the package's zone names the day.
+    const dealRow = (await app.database.pool.query("select go_live_date::text as d from deals where id = $1", [deal.id])).rows[0];
+    expect(dealRow.d).toBe("2027-03-06");
+    expect(await item(deal.id, "go_live")).toMatchObject({ status: "done" });
+    // The starter template's report is due 30 days after go-live (shared/sponsors/deliverables.ts).
+    expect(await item(deal.id, "report")).toMatchObject({ due: "2027-04-05" });
+  });
+
+  it("when essentials are missing, then going live asks for a reason and records it", async () => {
+    const { editor, base } = await setting();
+    const refused = await editor.send("post", `${base}/go-live`, { videoUrl: "https://video.example/watch/x" }).expect(422);
+    expect(refused.body.problems.map((p: { code: string }) => p.code)).toEqual(
+      expect.arrayContaining(["publish.no_title", "publish.no_disclosure", "publish.no_sponsor_link", "publish.chapters", "publish.no_thumbnail"]),
+    );
+    expect((await editor.get(base).expect(200)).body.package.publishedAt).toBeNull();
+    const forced = await editor.send("post", `${base}/go-live`, { videoUrl: "https://video.example/watch/x", reason: "Sponsor agreed by phone" }).expect(200);
+    expect(forced.body.package.goLiveReason).toBe("Sponsor agreed by phone");
+  });
+
+  it("when two people save from the same version, then the second gets the package as it is now and saves nothing", async () => {
+    const { editor, base } = await setting();
+    const body = { version: 0, titles: ["First"], chosenTitle: 0, description: "", chapters: "", timeZone: "UTC", publishAt: null, thumbnailId: null };
+    await editor.send("put", base, body).expect(200);
+    const stale = await editor.send("put", base, { ...body, titles: ["Second"] }).expect(409);
+    expect(stale.body.current.titles).toEqual(["First"]);
+  });
+
+  it("when the input is bad, then it is refused with a message per field and nothing changes", async () => {
+    const { editor, base, channel } = await setting();
+    const other = await createEpisode(app.db, channel.id, { title: "Other", stage: "publish" });
+    const thumbnail = (await upload(editor, `/api/channels/${channel.id}/episodes/${other.id}/publish/thumbnails`, "c.png", png(1280, 720)).expect(201)).body.thumbnail;
+    const body = { version: 0, titles: ["T"], chosenTitle: 0, description: "", chapters: "", timeZone: "UTC", publishAt: null, thumbnailId: thumbnail.id };
+    expect((await editor.send("put", base, body).expect(400)).body.error.fields).toEqual({ thumbnailId: "Choose one of this episode's thumbnails." });
+    expect((await editor.send("put", base, { ...body, thumbnailId: null, chosenTitle: 3 }).expect(400)).body.error.fields.chosenTitle).toBe("Choose one of the titles.");
+    expect((await editor.send("put", base, { ...body, thumbnailId: null, timeZone: "Mars/Base" }).expect(400)).body.error.fields.timeZone).toBeTruthy();
+    expect((await upload(editor, `${base}/thumbnails`, "c.webp", png(1280, 720)).expect(415)).body.error.message).toMatch(/\.jpg, \.jpeg, \.png or \.gif/);
+    expect((await editor.get(base).expect(200)).body.package.version).toBe(0);
+  });
+});

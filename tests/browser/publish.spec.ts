@@ -1,0 +1,117 @@
+import { crc32 } from "node:zlib";
+import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expectNoSeriousA11yViolations } from "./axe";
+import { hostWithEpisode, snap, sql } from "./support";
+
+test.setTimeout(180_000);
+
+/** A call that must succeed: the journey starts only on a setup the product itself would make. */
+async function call(request: APIRequestContext, url: string, headers: Record<string, string>, data: object, status: number) {
+  const answer = await request.post(url, { headers, data });
+  expect(answer.status(), `POST ${url}: ${await answer.text()}`).toBe(status);
+  return answer.json();
+}
+
+/** A 1280 × 720 PNG as the PNG specification (W3C, 2nd edition, 5.2 and 11.2.2) lays one out: signature, IHDR, IEND. */
+function png(width: number, height: number): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
+    const length = Buffer.alloc(4);
+    length.writeUInt32BE(data.length);
+    const crc = Buffer.alloc(4);
+    crc.writeUInt32BE(crc32(body));
+    return Buffer.concat([length, body, crc]);
+  };
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(width, 0);
+  header.writeUInt32BE(height, 4);
+  header.set([8, 0, 0, 0, 0], 8);
+  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", header), chunk("IEND", Buffer.alloc(0))]);
+}
+
+// A CMX 3600 list as SMPTE 258M describes it, with "* LOC:" marker comments (the form OpenTimelineIO's
+// cmx_3600 adapter reads); the programme starts at the first event's record in, 01:00:00:00.
+const edl = [
+  "TITLE: THREE PACKS CUT",
+  "FCM: NON-DROP FRAME",
+  "",
+  "001  A001C003 V     C        10:00:00:00 10:01:00:00 01:00:00:00 01:01:00:00",
+  "* LOC: 01:00:00:00 YELLOW  Why this test",
+  "* LOC: 01:00:20:00 YELLOW  Building the rig",
+  "* LOC: 01:00:45:12 RED     Verdict",
+  "",
+].join("\r\n");
+
+test("an episode in publish gets its package, passes the gate, and going live starts the sponsor's figures dates", async ({ page }) => {
+  const { channelId, episodeId, csrfToken } = await hostWithEpisode(page, {
+    host: { name: "Ines Halloran", channel: "Tidewater Test Bench" },
+    episode: { title: "Three packs, one bench", question: "Which pack holds 5 A longest?", origin: "sponsor", stage: "publish", targetPublishDate: "2027-03-02" },
+  });
+  const headers = { "x-csrf-token": csrfToken };
+  const base = `/api/channels/${channelId}`;
+  const { sponsor } = await call(page.request, `${base}/sponsors`, headers, { company: "Kestrel Cells", website: null, notes: null }, 201);
+  const { deal } = await call(page.request, `${base}/deals`, headers, {
+    episodeId, sponsorId: sponsor.id, templateId: null, state: "signed", placement: "middle", segmentSeconds: 45, talkingPoints: [],
+    link: "https://kestrel.example/bench", promoCode: "TIDE10", disclosureText: "Paid partnership with Kestrel Cells.", exclusivityNotes: null, descriptionCopy: null,
+    script: "This video is sponsored by Kestrel Cells.", contactId: null, hostId: null, goLiveDate: null,
+    money: { fee: 900, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
+  }, 201);
+  await call(page.request, `${base}/deals/${deal.id}/deliverables`, headers, { kind: "go_live", title: "Video goes live", anchor: "after_go_live", offsetDays: 0 }, 201);
+  await call(page.request, `${base}/deals/${deal.id}/deliverables`, headers, { kind: "report", title: "Figures at 30 days", anchor: "after_go_live", offsetDays: 30 }, 201);
+
+  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  // The episode page first (on a loaded machine it can take a while), then its publish part.
+  await expect(page.getByRole("heading", { name: "Three packs, one bench" }).first()).toBeVisible({ timeout: 60_000 });
+  const section = page.locator("#publish-package");
+  const gate = section.getByRole("list", { name: "Missing before go-live" });
+  await expect(gate.getByText("No title is chosen.")).toBeVisible({ timeout: 30_000 });
+
+  await section.getByRole("button", { name: "Add a title" }).click();
+  await section.getByLabel("Title 1").fill("Which pack lasts? Three cells on one bench");
+  await expect(section.getByText("42 / 100 characters")).toBeVisible();
+
+  await section.getByLabel("Import markers (.edl or .csv)").setInputFiles({ name: "three-packs.edl", mimeType: "text/plain", buffer: Buffer.from(edl) });
+  await expect(section.getByText("3 chapters read from three-packs.edl.")).toBeVisible();
+  await expect(section.getByLabel("Chapters")).toHaveValue("0:00 Why this test\n0:20 Building the rig\n0:45 Verdict");
+  await expect(section.getByText("The chapters keep the platform's rules.")).toBeVisible();
+
+  await section.getByRole("button", { name: "Draft from the episode" }).click();
+  const description = section.getByLabel("Description");
+  await expect(description).toHaveValue(/^Paid partnership with Kestrel Cells\./);
+  await expect(description).toHaveValue(/Kestrel Cells: https:\/\/kestrel\.example\/bench/);
+  await expect(description).toHaveValue(/0:45 Verdict/);
+
+  await section.getByLabel("Add a thumbnail").setInputFiles({ name: "cover.png", mimeType: "image/png", buffer: png(1280, 720) });
+  await expect(section.getByText("Keeps the platform's thumbnail rules.")).toBeVisible();
+  await section.getByLabel("Use cover.png").check();
+  await section.getByRole("button", { name: "Save the package" }).click();
+  await expect(section.getByText("The package has everything the video needs.")).toBeVisible();
+  await section.scrollIntoViewIfNeeded();
+  await snap(page, "publish-01-package-ready");
+  await expectNoSeriousA11yViolations(page, "publish package");
+  // On a phone the package fits the screen's width: nothing scrolls sideways.
+  await page.setViewportSize({ width: 390, height: 844 });
+  await section.getByRole("button", { name: "Save the package" }).scrollIntoViewIfNeeded();
+  await snap(page, "publish-01b-package-phone");
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await page.setViewportSize({ width: 1280, height: 800 });
+
+  await section.getByLabel("Link to the published video").fill("https://video.example/watch/tidewater-3");
+  await section.getByRole("button", { name: "Mark published" }).click();
+  await expect(section.getByText(/^Published /)).toBeVisible();
+  await snap(page, "publish-02-live");
+
+  // Going live dated the deal: its go-live day is set, the go-live item done, the figures due 30 days on.
+  const [dated] = await sql<{ live: string; report: string; status: string }>(
+    `select d.go_live_date::text as live, r.due_date::text as report, g.status::text as status
+       from deals d join deliverables r on r.deal_id = d.id and r.kind = 'report' join deliverables g on g.deal_id = d.id and g.kind = 'go_live'
+      where d.id = $1`,
+    [deal.id],
+  );
+  expect(dated!.live).not.toBeNull();
+  expect(dated!.status).toBe("done");
+  const expected = new Date(`${dated!.live}T00:00:00Z`);
+  expected.setUTCDate(expected.getUTCDate() + 30);
+  expect(dated!.report).toBe(expected.toISOString().slice(0, 10));
+  await expect(page.locator("#sponsor-deals").getByTestId("item-report").getByTestId("due-date")).not.toHaveText("");
+});
