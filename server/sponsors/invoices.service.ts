@@ -66,19 +66,21 @@ export async function listInvoices(db: Database, caller: Caller, dealId: string,
   return (await listDealInvoices(db, caller.channelId, dealId)).map((row) => invoiceViewOf(row, today));
 }
 
-/** The sponsor as the provider's customer: made with its first invoice (once, whoever asks first), then kept. */
-async function customerOf(deps: InvoiceDeps, stripe: Stripe, caller: Caller, sponsorId: string, email: string | null): Promise<string> {
+/**
+ * The sponsor as the provider's customer: the one kept, or one made now. A new one is kept by the
+ * transaction that records the invoice; its idempotency key gives back the same customer if that fails.
+ */
+async function customerOf(deps: InvoiceDeps, stripe: Stripe, caller: Caller, sponsorId: string, email: string | null): Promise<{ id: string; isNew: boolean }> {
   const sponsor = await findSponsorCustomer(deps.db, caller.channelId, sponsorId);
   if (!sponsor) throw notFound("Sponsor");
-  if (sponsor.customerId) return sponsor.customerId;
+  if (sponsor.customerId) return { id: sponsor.customerId, isNew: false };
   const customer = await viaProvider(() =>
     stripe.customers.create(
       { name: sponsor.company, ...(email ? { email } : {}), metadata: { kerf_channel: caller.channelId, kerf_sponsor: sponsor.id } },
       { idempotencyKey: `kerf-sponsor-${sponsor.id}` },
     ),
   );
-  await keepSponsorCustomer(deps.db, caller.channelId, sponsor.id, customer.id);
-  return (await findSponsorCustomer(deps.db, caller.channelId, sponsorId))?.customerId ?? customer.id;
+  return { id: customer.id, isNew: true };
 }
 
 /** How much this invoice asks, in minor units: what was typed, or all of the fee still to invoice. */
@@ -105,7 +107,7 @@ export async function createInvoice(deps: InvoiceDeps, caller: Caller, dealId: s
   if (deal.state === "cancelled") throw new AppError("conflict", "This deal is cancelled: there is nothing to invoice.");
   const amountMinor = await amountToInvoice(deps.db, caller, deal, input.amount);
   const contact = (await listContactsOf(deps.db, caller.channelId, deal.sponsorId)).find((c) => c.id === deal.contactId) ?? null;
-  const customer = await customerOf(deps, stripe, caller, deal.sponsorId, contact?.email ?? null);
+  const { id: customer, isNew } = await customerOf(deps, stripe, caller, deal.sponsorId, contact?.email ?? null);
   const id = randomUUID();
   const currency = deal.currency.toLowerCase();
   const metadata = { kerf_channel: caller.channelId, kerf_deal: deal.id, kerf_invoice: id };
@@ -127,6 +129,7 @@ export async function createInvoice(deps: InvoiceDeps, caller: Caller, dealId: s
     return created;
   });
   return deps.db.transaction(async (tx) => {
+    if (isNew) await keepSponsorCustomer(tx, caller.channelId, deal.sponsorId, customer);
     const row = await insertInvoice(tx, {
       id,
       channelId: caller.channelId,
@@ -183,10 +186,13 @@ export async function actOnInvoice(deps: InvoiceDeps, caller: Caller, dealId: st
   if (refusal) throw new AppError("conflict", refusal);
   if (action === "send") requireConfirmedAddress(caller);
   // One key per action and version: a double click sends one request's worth, a later resend is new.
-  const answer = await viaProvider(() => providerCalls[action](stripe, row.providerId, `kerf-${action}-${row.id}-${row.version}`));
+  const key = `kerf-${action}-${row.id}-${row.version}`;
+  // The provider voids only finalised invoices; a draft is deleted there, and Kerf keeps it as cancelled.
+  const draftGone = action === "void" && row.status === "draft";
+  const answer = draftGone ? await viaProvider(() => stripe.invoices.del(row.providerId)).then(() => null) : await viaProvider(() => providerCalls[action](stripe, row.providerId, key));
   return inTransaction(deps.db, async (tx, sql) => {
     const locked = (await lockInvoice(tx, caller.channelId, invoiceId))!;
-    const fields = providerFields(locked, answer, { paidAllowed: false });
+    const fields = answer ? providerFields(locked, answer, { paidAllowed: false }) : { status: "void" as const };
     if (action === "send") {
       await takeMailQuota(tx, "invoice", caller);
       fields.sentAt = new Date();
