@@ -40,6 +40,7 @@ import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flag
 import { sponsorGates } from "./sponsors/sponsors.gates";
 import { sponsorNeeds } from "./sponsors/sponsors.needs";
 import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
+import { invoiceMailRenderer } from "./sponsors/invoice-mail";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
@@ -83,6 +84,7 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
     ...passwordResetMailRenderer({ db, appUrl }),
     ...invitationMailRenderer({ db, appUrl }),
     ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
+    ...invoiceMailRenderer(db),
   };
 }
 
@@ -149,10 +151,11 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   // database work; the health check answers whether or not sessions can be read; then the rest.
   api.use("/api", noStoreByDefault);
   api.use(bodyReaders(routes));
+  mountRoutes(api, routes.filter((route) => route.signedByCaller), guards);
   const sessionWhenReachable = bestEffort(loadSession);
   mountRoutes(api, routes.filter((route) => route.sessionOptional), (spec) => [sessionWhenReachable, ...guards(spec)]);
   api.use("/api", ...loadSession, csrfProtection(env.SESSION_SECRET));
-  mountRoutes(api, routes.filter((route) => !route.sessionOptional), guards);
+  mountRoutes(api, routes.filter((route) => !route.sessionOptional && !route.signedByCaller), guards);
   api.use("/api", apiNotFound);
   app.use(api);
   serveClient(app, path.resolve(env.CLIENT_DIST));

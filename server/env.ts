@@ -33,6 +33,14 @@ const envSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string({ message: "S3_SECRET_ACCESS_KEY must be set (the storage key pair)" }).min(1),
   /** true for the stand-in and most S3-compatible stores; AWS itself takes either. */
   S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true").transform((v) => v === "true"),
+  // The payments provider for sponsor invoices, reached only through its SDK. Empty API URL: the
+  // provider's own; `npm start` points it at the stand-in. Without a key, invoicing answers 503.
+  PAYMENTS_API_URL: z
+    .string()
+    .default("")
+    .refine((v) => v === "" || URL.canParse(v), "PAYMENTS_API_URL must be a URL (or empty for the provider's own API)"),
+  PAYMENTS_SECRET_KEY: z.string().default(""),
+  PAYMENTS_WEBHOOK_SECRET: z.string().default(""),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -7,7 +7,7 @@ import { publishThumbnails } from "./schema/publish";
 import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
 import { episodes } from "./schema/slate";
-import { dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
+import { dealInvoices, dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
 
 /** Where the row a path parameter names lives, and what to call it when it isn't there. */
 interface ChildRow {
@@ -44,6 +44,7 @@ export const channelChildren = {
   deliverableId: child("Deliverable", deliverables),
   linkId: child("Review link", reviewLinks),
   thumbnailId: child("Thumbnail", publishThumbnails),
+  invoiceId: child("Invoice", dealInvoices),
   invitationId: child("Invitation", invitations),
   userId: { what: "Member", id: memberships.userId, channelId: memberships.channelId },
 } satisfies Record<string, ChildRow>;

@@ -2,7 +2,7 @@ import { sql, type SQL } from "drizzle-orm";
 import type { Queryable } from "./client";
 import { counters } from "./schema/counters";
 
-export type CounterScope = "bench_run" | "build_iteration" | "test_criterion" | "deliverable_position" | "shot_position";
+export type CounterScope = "bench_run" | "build_iteration" | "test_criterion" | "deliverable_position" | "shot_position" | "invoice_position";
 
 /**
  * The next number of a numbering, race-free: an upsert on the counter's row, which holds that row's

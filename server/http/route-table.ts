@@ -39,6 +39,11 @@ export interface RouteSpec {
    * and the caller treated as signed out when it can't (health checks).
    */
   sessionOptional?: true;
+  /**
+   * Called by another service, which proves itself by signing the raw body (the payments provider's
+   * webhook): mounted before sessions and CSRF, public, with the body left unread for the handler.
+   */
+  signedByCaller?: true;
   /** Extra middleware that runs after authorisation (e.g. rate limits). */
   before?: RequestHandler[];
   handler: Handler;

@@ -8,6 +8,7 @@ import { eachItem, mergeTallies, type ItemTally } from "../jobs/each-item";
 import type { Jobs } from "../jobs/queue";
 import { memberMail } from "../mail/member-mail";
 import { insertEvents } from "./deals.repository";
+import { remindOverdueInvoices } from "./invoice-reminders";
 import { seesFees } from "./deals.service";
 import { recordReminder, reminderCandidates } from "./reminders.repository";
 import { catchUpPublishDates } from "./schedule.service";
@@ -91,7 +92,8 @@ export async function scanReminders(deps: ReminderDeps, now = new Date()): Promi
     const kind = reminderFor(item, today, item.daysBefore ?? DEFAULT_REMINDER_DAYS_BEFORE);
     if (kind && (await sendOnce(deps, item, kind, today))) sent++;
   });
-  return { sent, ...mergeTallies(caughtUp, scanned) };
+  const invoices = await remindOverdueInvoices(deps, now);
+  return { sent: sent + invoices.sent, ...mergeTallies(mergeTallies(caughtUp, scanned), invoices) };
 }
 
 /** Puts the scan on pg-boss's clock. Every instance may call this; pg-boss hands each tick to one worker. */

@@ -4,12 +4,15 @@ import { dealRoutes } from "./deals.router";
 import { deliverableRoutes } from "./deliverables.router";
 import { deskRoutes } from "./desk.router";
 import { directoryRoutes } from "./directory.router";
+import { invoiceRoutes } from "./invoices.router";
+import { paymentsFrom } from "./payments";
 import { reviewTokens } from "./review-token";
 import { reviewRoutes } from "./review.router";
 import { settingsRoutes } from "./settings.router";
 import { templateRoutes } from "./templates.router";
 
-/** Sponsors and their contacts, deal templates, deals, deliverables, review links, the desk and the settings. */
+/** Sponsors and their contacts, deal templates, deals, deliverables, review links, the desk, the settings, and invoices
+ * through the payments provider (they are the deals' money, so they live with the deals). */
 export function sponsorsRoutes(deps: AppDeps): RouteSpec[] {
   const db = deps.database.db;
   const review = {
@@ -27,5 +30,6 @@ export function sponsorsRoutes(deps: AppDeps): RouteSpec[] {
     ...deliverableRoutes(db),
     ...reviewRoutes(review),
     ...deskRoutes(db),
+    ...invoiceRoutes({ db, payments: paymentsFrom(deps.env), jobs: deps.jobs }),
   ];
 }

@@ -1,3 +1,4 @@
+import { formatMinorUnits } from "@shared/money/minor-units";
 import { formatBytes } from "@shared/rushes/limits";
 
 // Dates and instants are written by the module the server's mails use too, so a page and a mail agree.
@@ -85,6 +86,11 @@ export function formatMoney(amount: number | string, currency: string): string {
   const format = moneyFormats.get(currency);
   if (!Number.isFinite(value)) return `${amount} ${currency}`.trim();
   return format ? format.format(value) : `${value.toFixed(2)} ${currency}`.trim();
+}
+
+/** An amount held in the currency's minor unit (ISO 4217 exponent): formatMinorMoney(180050, "EUR") is "€1,800.50". */
+export function formatMinorMoney(minor: number, currency: string): string {
+  return formatMinorUnits(minor, currency, "en-GB");
 }
 
 /** A player's position, as a clock shows it to a tenth: formatClock(62.34) is "1:02.3". */

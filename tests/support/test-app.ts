@@ -47,6 +47,8 @@ export interface TestAppOptions {
   trustProxy?: boolean;
   /** Queue mail but send none until the test calls `startMailWorker` (to line up a queue first). */
   holdMail?: boolean;
+  /** A payments account of the test's own (createPaymentsAccount); else the stand-in's default account. */
+  payments?: { apiUrl: string; secretKey: string; webhookSecret: string };
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
@@ -62,6 +64,9 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     S3_ACCESS_KEY_ID: (options.s3 ?? testEnv.s3).accessKeyId,
     S3_SECRET_ACCESS_KEY: (options.s3 ?? testEnv.s3).secretAccessKey,
     TRUST_PROXY: options.trustProxy ? "true" : "false",
+    PAYMENTS_API_URL: (options.payments ?? testEnv.payments).apiUrl,
+    PAYMENTS_SECRET_KEY: (options.payments ?? testEnv.payments).secretKey,
+    PAYMENTS_WEBHOOK_SECRET: (options.payments ?? testEnv.payments).webhookSecret,
   });
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: database.url, mailer, pollSeconds: 0.5 });

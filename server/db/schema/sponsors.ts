@@ -1,6 +1,7 @@
-import { type AnyPgColumn, boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { type AnyPgColumn, bigint, boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { createdAt, id, timestamps, updatedAt, version } from "./columns";
 import { anchors, deliverableKinds, deliverableStatuses } from "../../../shared/sponsors/deliverables";
+import { invoiceStatuses } from "../../../shared/sponsors/invoices";
 import { dealStates, paymentTermsFrom, placements, reviewDecisions, type DealTemplate } from "../../../shared/sponsors/schemas";
 import { channelRef, channels, personRef, users } from "./accounts";
 import { episodes } from "./slate";
@@ -12,6 +13,7 @@ export const deliverableKindEnum = pgEnum("deliverable_kind", deliverableKinds);
 export const deliverableStatusEnum = pgEnum("deliverable_status", deliverableStatuses);
 export const deliverableAnchorEnum = pgEnum("deliverable_anchor", anchors);
 export const reviewDecisionEnum = pgEnum("review_decision", reviewDecisions);
+export const invoiceStatusEnum = pgEnum("invoice_status", invoiceStatuses);
 
 export const sponsors = pgTable(
   "sponsors",
@@ -21,6 +23,8 @@ export const sponsors = pgTable(
     company: text("company").notNull(),
     website: text("website"),
     notes: text("notes"),
+    // The sponsor as a customer of the payments provider: made with the first invoice, then kept.
+    paymentsCustomerId: text("payments_customer_id"),
     version: version(),
     ...timestamps(),
   },
@@ -248,4 +252,59 @@ export const speakingRates = pgTable(
     wordsPerMinute: integer("words_per_minute").notNull(),
   },
   (table) => [primaryKey({ columns: [table.channelId, table.userId] })],
+);
+
+/**
+ * An invoice of a deal at the payments provider: the whole fee, or one instalment of it ("half on
+ * signing"). Amounts are integers in the currency's minor unit (ISO 4217 exponent). The status is
+ * the provider's, moved only forward (shared/sponsors/invoices.ts); "paid" comes only from its webhook.
+ */
+export const dealInvoices = pgTable(
+  "deal_invoices",
+  {
+    id: id(),
+    channelId: channelRef(),
+    dealId: uuid("deal_id")
+      .notNull()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    position: integer("position").notNull(),
+    label: text("label").notNull(),
+    amountMinor: bigint("amount_minor", { mode: "number" }).notNull(),
+    currency: text("currency").notNull(),
+    daysUntilDue: integer("days_until_due").notNull(),
+    providerId: text("provider_id").notNull(),
+    number: text("number"),
+    status: invoiceStatusEnum("status").notNull().default("draft"),
+    hostedUrl: text("hosted_url"),
+    dueDate: date("due_date"),
+    finalisedAt: timestamp("finalised_at", { withTimezone: true }),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    paidAt: timestamp("paid_at", { withTimezone: true }),
+    // When the producer was told it is overdue (once per invoice, by the reminder job).
+    overdueRemindedAt: timestamp("overdue_reminded_at", { withTimezone: true }),
+    createdBy: personRef("created_by"),
+    version: version(),
+    ...timestamps(),
+  },
+  (table) => [index("deal_invoices_deal_idx").on(table.dealId, table.position), uniqueIndex("deal_invoices_provider_idx").on(table.providerId), index("deal_invoices_channel_due_idx").on(table.channelId, table.status, table.dueDate)],
+);
+
+/**
+ * Every event the payments provider sent, recorded once by its id: a redelivered event finds its row
+ * and changes nothing. Events about objects Kerf doesn't hold are recorded too (channel null).
+ */
+export const paymentEvents = pgTable(
+  "payment_events",
+  {
+    eventId: text("event_id").primaryKey(),
+    type: text("type").notNull(),
+    objectId: text("object_id"),
+    channelId: uuid("channel_id").references(() => channels.id, { onDelete: "cascade" }),
+    invoiceId: uuid("invoice_id").references(() => dealInvoices.id, { onDelete: "set null" }),
+    /** What Kerf did with it: "applied", "unchanged" (a late or repeated state), "ignored" (nothing of Kerf's). */
+    outcome: text("outcome").$type<"applied" | "unchanged" | "ignored">().notNull(),
+    providerCreatedAt: timestamp("provider_created_at", { withTimezone: true }).notNull(),
+    receivedAt: createdAt(),
+  },
+  (table) => [index("payment_events_invoice_idx").on(table.invoiceId)],
 );

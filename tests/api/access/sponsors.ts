@@ -3,13 +3,15 @@ import { addDays } from "date-fns";
 import { expect } from "vitest";
 import { reviewLinks } from "../../../server/db/schema/sponsors";
 import { reviewTokens } from "../../../server/sponsors/review-token";
+import { actOnInvoice, createInvoice } from "../../../server/sponsors/invoices.service";
+import { paymentsFrom } from "../../../server/sponsors/payments";
 import { suggestedTemplateItems } from "../../../shared/sponsors/deliverables";
 import { createContact, createDeal, createSponsor, createTemplate } from "../../factories/sponsors";
 import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matrix";
 
 /*
  * Sponsors and deals (segment requirements): owner and producer W, editor and crew R.
- * Deals' fee, payment terms and invoices: owner and producer W, editor and crew nothing.
+ * Deals' fee, payment terms and invoices (the role table's fees area): owner and producer W, editor and crew nothing.
  * Deliverables: owner and producer W, editor R (W on the cut items they deliver), crew R; the cut
  * (setting a deal's cut, moving a cut item) is the role table's "cut" area: owner, producer, editor W.
  * The sponsor's review page is public: its signed token is the only key.
@@ -49,6 +51,16 @@ export const access: FeatureAccess = {
     [`GET ${c}/sponsor-settings`,                                401, ok, ok, ok,  ok,  404],
     [`PUT ${c}/sponsor-settings`,                                401, ok, ok, 403, 403, 404],
     [`PUT ${c}/speaking-rates/:userId`,                          401, ok, ok, 403, 403, 404],
+    [`GET ${c}/deals/:dealId/invoices`,                          401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/invoices`,                         401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/finalise`,     401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/send`,         401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/void`,         401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/write-off`,    401, ok, ok, 403, 403, 404],
+    [`GET ${c}/invoices/overdue`,                                401, ok, ok, 403, 403, 404],
+    // The provider's webhook: the signature over the body is the only key, so every caller is read the
+    // same way, and a body without one is refused (tests/api/sponsors-invoices.test.ts signs real ones).
+    ["POST /api/payments/webhook",                               ok,  ok, ok, ok,  ok,  ok],
   ],
   recipes: sponsorRecipes,
 };
@@ -75,6 +87,25 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       .returning();
     return { link: link!, token: reviewTokens(app.deps.env.SESSION_SECRET).sign(link!.id, expiresAt) };
   }
+
+  /** A fresh deal's invoice for its whole fee at the payments stand-in, made as the owner and taken as far as `finalised`. */
+  async function invoiced(finalised: boolean) {
+    const { deal } = await freshDeal();
+    const owner = world.owner;
+    const caller = { userId: owner.id, name: owner.name, email: owner.email, emailVerified: true, timeZone: "UTC", channelId, role: "owner" as const };
+    const deps = { db: app.db, payments: paymentsFrom(app.deps.env), jobs: app.deps.jobs };
+    const invoice = await createInvoice(deps, caller, deal.id, { label: "Whole fee", amount: null });
+    if (finalised) await actOnInvoice(deps, caller, deal.id, invoice.id, "finalise");
+    const row = async () => one("select status, sent_at from deal_invoices where id = $1", [invoice.id]);
+    return { params: { dealId: deal.id, invoiceId: invoice.id }, row };
+  }
+  const invoiceAction = (finalised: boolean, unchanged: { status: string; sent_at?: null }): Recipe => ({
+    ok: 200,
+    prepare: async () => {
+      const { params, row } = await invoiced(finalised);
+      return { params, intact: async () => expect(await row()).toMatchObject(unchanged) };
+    },
+  });
 
   let calls = 0;
   const sponsorCompany = async (id: string) => (await one("select company from sponsors where id = $1", [id]))?.company;
@@ -316,5 +347,24 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         };
       },
     },
+    [`GET ${c}/deals/:dealId/invoices`]: { ok: 200, prepare: async () => ({ params: { dealId: (await freshDeal()).deal.id } }) },
+    [`POST ${c}/deals/:dealId/invoices`]: {
+      ok: 201,
+      prepare: async () => {
+        const { deal } = await freshDeal();
+        return {
+          params: { dealId: deal.id },
+          body: { label: "Whole fee", amount: null },
+          intact: async () => expect(await one("select count(*)::int as n from deal_invoices where deal_id = $1", [deal.id])).toEqual({ n: 0 }),
+        };
+      },
+    },
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/finalise`]: invoiceAction(false, { status: "draft" }),
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/send`]: invoiceAction(true, { status: "open", sent_at: null }),
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/void`]: invoiceAction(true, { status: "open" }),
+    [`POST ${c}/deals/:dealId/invoices/:invoiceId/write-off`]: invoiceAction(true, { status: "open" }),
+    [`GET ${c}/invoices/overdue`]: { ok: 200 },
+    // Unsigned: refused for everyone alike.
+    ["POST /api/payments/webhook"]: { ok: 400, prepare: async () => ({ body: { id: "evt_unsigned", type: "invoice.paid" } }) },
   };
 }

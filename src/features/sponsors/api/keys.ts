@@ -11,6 +11,8 @@ export const sponsorKeys = {
   desk: (channelId: string, filter: { sponsorId?: string; episodeId?: string }) => [...sponsorKeys.desks(channelId), filter] as const,
   settings: (channelId: string) => [...sponsorKeys.channel(channelId), "settings"] as const,
   review: (token: string) => [...sponsorKeys.all, "review", token] as const,
+  invoices: (channelId: string, dealId: string) => [...sponsorKeys.deals(channelId), "invoices", dealId] as const,
+  overdueInvoices: (channelId: string) => [...sponsorKeys.channel(channelId), "overdue-invoices"] as const,
   cutPlayer: (channelId: string, dealId: string) => [...sponsorKeys.deals(channelId), "cut-player", dealId] as const,
 };
 

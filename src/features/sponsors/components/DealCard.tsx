@@ -10,6 +10,7 @@ import { useUpdateDeal } from "../api/update-deal";
 import { CutPanel } from "./CutPanel";
 import { DeliverablesPanel } from "./DeliverablesPanel";
 import { DealStateTag } from "./labels";
+import { InvoicesPanel } from "./InvoicesPanel";
 import { MoneyPanel } from "./MoneyPanel";
 import { ReadPanel } from "./ReadPanel";
 import { ReviewPanel } from "./ReviewPanel";
@@ -42,6 +43,11 @@ export function DealCard({ channelId, deal, role }: { channelId: string; deal: D
         </span>
       </header>
       {deal.money && <MoneyPanel channelId={channelId} deal={deal} value={deal.money} />}
+      {deal.money && (
+        <Part title="Invoices">
+          <InvoicesPanel channelId={channelId} dealId={deal.id} />
+        </Part>
+      )}
       <Part title="Segment requirements">
         <SegmentPanel channelId={channelId} deal={deal} canEdit={canEditDeal} />
       </Part>

@@ -1,4 +1,5 @@
 import { useState } from "react";
+import { roleMay } from "@shared/access/roles";
 import { Link, useSearchParams } from "react-router-dom";
 import { deliverableKindLabels, deliverableStatusLabels, deliverableStatuses, deskGroupLabels, type DeliverableStatus, type DeskGroup } from "@shared/sponsors/deliverables";
 import type { DeskItem } from "@shared/sponsors/schemas";
@@ -9,6 +10,7 @@ import { useChannel } from "../../../lib/session";
 import { useDesk } from "../api/get-desk";
 import { useUpdateDeliverable } from "../api/update-deliverable";
 import { StatusTag } from "./labels";
+import { OverdueInvoices } from "./OverdueInvoices";
 
 // The order the producer reads the desk in; each item sits in exactly one group (see deskGroupOf).
 const shownOrder: DeskGroup[] = ["overdue", "changes_asked", "due_soon", "waiting", "later"];
@@ -23,7 +25,16 @@ const groupAccent: Record<DeskGroup, string> = {
 /** The producer's desk: every open deliverable across episodes, by what needs doing first. */
 export function DeskPage() {
   const channel = useChannel();
-  return <Desk channelId={channel.channelId} />;
+  return (
+    <>
+      <Desk channelId={channel.channelId} />
+      {roleMay(channel.role, "fees", "R") && (
+        <div className="mx-auto max-w-5xl">
+          <OverdueInvoices channelId={channel.channelId} />
+        </div>
+      )}
+    </>
+  );
 }
 
 function Desk({ channelId }: { channelId: string }) {
