@@ -34,6 +34,7 @@ import { sponsorGates } from "./sponsors/sponsors.gates";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
+import { searchRoutes } from "./search/search.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
 import { startWithDealTemplate } from "./sponsors/templates.service";
 
@@ -90,6 +91,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
+    ...searchRoutes(deps),
   ];
 }
 
