@@ -5,6 +5,7 @@ import { useCurrentChannel, useMe } from "../../lib/session";
 import { useSignOut } from "../../features/auth/api/sign-out";
 import { ConfirmAddressNotice } from "../../features/auth/components/ConfirmAddressNotice";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
+import { SearchBox } from "../../features/search/components/SearchBox";
 import { channelNav } from "../nav";
 import { BackgroundWorkBar } from "./BackgroundWorkBar";
 
@@ -41,6 +42,7 @@ export function AppShell() {
                 ))}
             </nav>
           )}
+          {channel && <SearchBox key={channel.channelId} channelId={channel.channelId} />}
           <div className="ml-auto flex items-center gap-3 text-sm">
             {user && (
               <span className="flex items-center">

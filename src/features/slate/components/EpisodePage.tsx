@@ -1,4 +1,4 @@
-import type { ReactNode } from "react";
+import { useEffect, type ReactNode } from "react";
 import { Link, useLocation, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import type { EpisodeDetail } from "@shared/slate/schemas";
@@ -45,7 +45,12 @@ function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
 function EpisodeView({ channelId, episodeId, role, sections, detail }: EpisodeSectionProps & { sections: EpisodeSection[]; detail: EpisodeDetail }) {
   const e = detail.episode;
   const canEdit = roleMay(role, "episodes", "W");
-  const justCreated = (useLocation().state as { created?: boolean } | null)?.created === true;
+  const location = useLocation();
+  const justCreated = (location.state as { created?: boolean } | null)?.created === true;
+  // A link to a section (a search hit, a mailed link) lands on it once the page is there to scroll.
+  useEffect(() => {
+    if (location.hash) document.getElementById(decodeURIComponent(location.hash.slice(1)))?.scrollIntoView({ block: "start" });
+  }, [location.hash, location.key]);
   const contents = [
     { id: "overview", title: "Overview" },
     { id: "schedule", title: "Schedule" },
