@@ -20,29 +20,38 @@ export const HITS_PER_KIND = 6;
 const WORD_SIMILARITY = "0.5";
 
 /**
- * The channel's entries that match the words (accent-blind full text, with English stems) or come
- * close to them (trigrams, for typos and partial words), only in the areas the caller's role reads:
- * the role is a condition of the query itself. Both indexes lead with the channel. Ranked by full-text
- * rank (title words weigh more) plus closeness; the best HITS_PER_KIND of each kind.
+ * The channel's entries that match the words (accent-blind full text, with English stems) or, when
+ * those are few, come close to them (trigrams: typos and partial words), only in the areas the
+ * caller's role reads: the role is a condition of the query itself. Both indexes lead with the
+ * channel. A word match ranks above any near spelling (full-text rank + 1, title words weighing
+ * more); the best HITS_PER_KIND of each kind, their text read only for those.
  */
 export async function findInChannel(db: Database, channelId: string, areas: SearchArea[], query: string): Promise<FoundRow[]> {
+  const readable = sql`d.channel_id = ${channelId} and d.area = any(string_to_array(${areas.join(",")}, ','))`;
   return db.transaction(async (tx) => {
     await tx.execute(sql`select set_config('pg_trgm.word_similarity_threshold', ${WORD_SIMILARITY}, true)`);
     const result = await tx.execute<FoundRow>(sql`
       with q as (select websearch_to_tsquery('kerf_search', ${query}) as words, search_fold(${query}) as folded),
-      found as (
-        select d.kind, d.record_id, d.episode_id, d.place, d.title, d.body,
-               ts_rank(d.words, q.words) + word_similarity(q.folded, d.folded) as score
-        from search_documents d, q
-        where d.channel_id = ${channelId}
-          and d.area = any(string_to_array(${areas.join(",")}, ','))
-          and (d.words @@ q.words or q.folded <% d.folded)
+      worded as materialized (
+        select d.kind, d.record_id, 1 + ts_rank(d.words, q.words) as score
+        from search_documents d, q where ${readable} and d.words @@ q.words
       ),
-      ranked as (select *, row_number() over (partition by kind order by score desc, record_id) as n from found)
-      select r.kind, r.record_id as "id", r.episode_id as "episodeId", e.title as "episodeTitle", r.place, r.title, r.body, r.score::float8 as score
-      from ranked r left join episodes e on e.id = r.episode_id and e.channel_id = ${channelId}
+      near as (
+        select d.kind, d.record_id, word_similarity(q.folded, d.folded) as score
+        from search_documents d, q
+        where (select count(*) from worded) < ${HITS_PER_KIND} and ${readable} and q.folded <% d.folded
+          and not exists (select 1 from worded w where w.kind = d.kind and w.record_id = d.record_id)
+      ),
+      ranked as (
+        select *, row_number() over (partition by kind order by score desc, record_id) as n
+        from (select * from worded union all select * from near) as found
+      )
+      select d.kind, d.record_id as "id", d.episode_id as "episodeId", e.title as "episodeTitle", d.place, d.title, d.body, r.score::float8 as score
+      from ranked r
+      join search_documents d on d.kind = r.kind and d.record_id = r.record_id
+      left join episodes e on e.id = d.episode_id and e.channel_id = ${channelId}
       where r.n <= ${HITS_PER_KIND}
-      order by r.score desc`);
+      order by r.score desc, d.kind, d.record_id`);
     return result.rows;
   });
 }
