@@ -44,6 +44,7 @@ import { invoiceMailRenderer } from "./sponsors/invoice-mail";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
 import { reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
+import { searchRoutes } from "./search/search.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
 import { startWithDealTemplate } from "./sponsors/templates.service";
 
@@ -112,6 +113,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...sponsorsRoutes(deps),
     ...homeRoutes(db, needSources),
     ...publishRoutes(deps, publishPlugs),
+    ...searchRoutes(deps),
   ];
 }
 

@@ -36,3 +36,17 @@ export async function signIn(appUrl: string, person: { email: string; password: 
   keepCookies(jar, signed);
   return { cookie: cookieHeader(jar), csrf: ((await signed.json()) as { csrfToken: string }).csrfToken };
 }
+
+/** Runs a benchmark's main, then its stops in reverse order whatever happened; exits 0 only if main finished. */
+export async function runBench(name: string, main: () => Promise<void>, stops: (() => Promise<void> | void)[]): Promise<never> {
+  let code = 1;
+  try {
+    await main();
+    code = 0;
+  } catch (error) {
+    console.error(`[${name}] ${(error as Error).stack ?? error}`);
+  } finally {
+    for (const stop of stops.reverse()) await stop();
+  }
+  process.exit(code);
+}

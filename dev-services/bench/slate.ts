@@ -11,7 +11,7 @@ import { collectFlags } from "../../server/seams/board-flags";
 import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
-import { percentile, signIn } from "./measure";
+import { percentile, runBench, signIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
@@ -252,13 +252,4 @@ machine: ${figures.cpus} CPUs, load average ${figures.load_average_1min} (other 
   console.log(JSON.stringify(figures));
 }
 
-let code = 1;
-try {
-  await main();
-  code = 0;
-} catch (error) {
-  console.error(`[bench:slate] ${(error as Error).stack ?? error}`);
-} finally {
-  for (const stop of stops.reverse()) await stop();
-}
-process.exit(code);
+await runBench("bench:slate", main, stops);

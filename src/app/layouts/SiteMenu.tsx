@@ -4,6 +4,7 @@ import { roleMay } from "@shared/access/roles";
 import { useCurrentChannel, useMe } from "../../lib/session";
 import { useSignOut } from "../../features/auth/api/sign-out";
 import { ChannelSwitcher } from "../../features/channels/components/ChannelSwitcher";
+import { SearchBox } from "../../features/search/components/SearchBox";
 import { channelNav } from "../nav";
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
@@ -65,6 +66,7 @@ export function SiteMenu() {
               ))}
           </nav>
         )}
+        {channel && <SearchBox key={channel.channelId} channelId={channel.channelId} />}
         <div className="flex flex-wrap items-center gap-3 border-t border-graphite-700 pt-4 text-sm sm:ml-auto sm:border-0 sm:pt-0">
           {user && (
             <span className="flex items-center">

@@ -19,8 +19,8 @@ import { ClipMediaStatus } from "./ClipMedia";
 import { ClipPlayer } from "./ClipPlayer";
 import { clipFormat, MarksEditor, useMarkForm } from "./MarksEditor";
 
-/** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks). */
-export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId: string; clipId: string; canDelete: boolean; onClose: () => void }) {
+/** One clip: its preview, its facts, and its log (links, rating, tags, notes, marks); opened at `markId` when it names one of its marks. */
+export function ClipPanel({ channelId, clipId, markId = null, canDelete, onClose }: { channelId: string; clipId: string; markId?: string | null; canDelete: boolean; onClose: () => void }) {
   const clip = useClip(channelId, clipId);
   const heading = useRef<HTMLHeadingElement>(null);
   useEffect(() => heading.current?.focus(), [clipId]);
@@ -40,13 +40,14 @@ export function ClipPanel({ channelId, clipId, canDelete, onClose }: { channelId
         </Button>
       </div>
       <QueryState query={clip} loading="Loading the clip…">
-        {(detail) => <ClipBody key={detail.id} channelId={channelId} clip={detail} canDelete={canDelete} onDeleted={onClose} />}
+        {(detail) => <ClipBody key={detail.id} channelId={channelId} clip={detail} markId={markId} canDelete={canDelete} onDeleted={onClose} />}
       </QueryState>
     </aside>
   );
 }
 
-function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string; clip: ClipDetail; canDelete: boolean; onDeleted: () => void }) {
+function ClipBody({ channelId, clip, markId, canDelete, onDeleted }: { channelId: string; clip: ClipDetail; markId: string | null; canDelete: boolean; onDeleted: () => void }) {
+  const openMark = clip.marks.find((m) => m.id === markId) ?? null;
   const remove = useDeleteClip(channelId);
   const timeZone = useTimeZone();
   const player = useRef<HTMLDivElement | null>(null);
@@ -62,14 +63,14 @@ function ClipBody({ channelId, clip, canDelete, onDeleted }: { channelId: string
       <ClipPreview channelId={channelId} clip={clip}>
         {(url, onUnplayable) =>
           format ? (
-            <ClipPlayer clip={clip} format={format} url={url} draft={marking.draft} onUnplayable={onUnplayable} playerRef={(element) => void (player.current = element)} />
+            <ClipPlayer clip={clip} format={format} url={url} openAt={openMark} draft={marking.draft} onUnplayable={onUnplayable} playerRef={(element) => void (player.current = element)} />
           ) : (
             <video key={url} src={url} poster={clip.posterUrl ?? undefined} controls preload="metadata" onError={onUnplayable} className="aspect-video w-full rounded-md bg-graphite-900" aria-label={`Preview of ${clip.fileName}`} />
           )
         }
       </ClipPreview>
       <ClipMediaStatus channelId={channelId} clip={clip} />
-      <MarksEditor channelId={channelId} clip={clip} marking={marking} />
+      <MarksEditor channelId={channelId} clip={clip} marking={marking} current={openMark?.id ?? null} />
       <div>
         <Button tone="quiet" onClick={() => void download()}>
           Download original

@@ -1,5 +1,5 @@
-import { useState, type KeyboardEvent, type ReactNode } from "react";
-import type { ClipDetail } from "@shared/rushes/schemas";
+import { useEffect, useState, type KeyboardEvent, type ReactNode } from "react";
+import type { ClipDetail, MarkView } from "@shared/rushes/schemas";
 import type { TimecodeFormat } from "@shared/timecode/rates";
 import { frameCount, frameOfLabel, sourceLabel } from "@shared/timecode/playhead";
 import { checkTimecode } from "@shared/timecode/timecode";
@@ -23,17 +23,23 @@ interface PlayerProps {
   format: TimecodeFormat;
   url: string;
   draft: MarkDraft;
+  /** A mark to start at (the playhead on its in point). */
+  openAt?: MarkView | null;
   onUnplayable: () => void;
   playerRef: (element: HTMLDivElement | null) => void;
 }
 
 /** The clip's picture with its source timecode, frame steps, in and out from the playhead, and its marks. */
-export function ClipPlayer({ clip, format, url, draft, onUnplayable, playerRef }: PlayerProps) {
+export function ClipPlayer({ clip, format, url, openAt = null, draft, onUnplayable, playerRef }: PlayerProps) {
   const frames = Math.max(1, frameCount(clip.durationMs, format.rate));
   const { frame, playing, seek, step, togglePlay, attach } = usePlayhead(format.rate, frames - 1);
   const [keysOpen, setKeysOpen] = useState(false);
   const label = (frame: number) => sourceLabel(clip.startTimecode, frame, format);
   const firstFrame = frameOfLabel(null, label(0), format);
+  const startFrame = openAt ? openAt.inFrame - firstFrame : null;
+  useEffect(() => {
+    if (startFrame !== null) seek(startFrame);
+  }, [seek, startFrame]);
   const draftFrame = (text: string) => (checkTimecode(text, format).ok ? frameOfLabel(clip.startTimecode, text, format) : null);
 
   const actions: Record<PlayerAction, () => void> = {

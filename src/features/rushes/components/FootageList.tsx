@@ -29,6 +29,8 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
   const [history, setHistory] = useState<string[]>([]);
   const [selected, setSelected] = useState<Set<string>>(new Set());
   const openClip = params.get("clip");
+  // A search hit on a mark opens its clip at the mark.
+  const openMark = params.get("mark");
 
   const update = (changes: Record<string, string | undefined>) => {
     const next = new URLSearchParams(params);
@@ -117,7 +119,7 @@ export function FootageList({ channelId, episodeId, canDelete }: { channelId: st
           </>
         )}
       </QueryState>
-      {openClip && <ClipPanel channelId={channelId} clipId={openClip} canDelete={canDelete} onClose={() => update({ clip: undefined, cursor: q.cursor })} />}
+      {openClip && <ClipPanel channelId={channelId} clipId={openClip} markId={openMark} canDelete={canDelete} onClose={() => update({ clip: undefined, mark: undefined, cursor: q.cursor })} />}
     </div>
   );
 }

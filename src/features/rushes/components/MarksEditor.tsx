@@ -1,5 +1,5 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import type { BaseSyntheticEvent } from "react";
+import { useEffect, useRef, type BaseSyntheticEvent } from "react";
 import { useForm, useWatch, type UseFormReturn } from "react-hook-form";
 import { z } from "zod";
 import type { ClipDetail, FootageLinks, MarkView } from "@shared/rushes/schemas";
@@ -54,8 +54,10 @@ export function useMarkForm(channelId: string, clip: ClipDetail, onSaved: () => 
   return { form, submit, draft };
 }
 
-/** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count. */
-export function MarksEditor({ channelId, clip, marking }: { channelId: string; clip: ClipDetail; marking: MarkForm }) {
+/** In and out points with a note, typed as SMPTE timecode at the clip's own rate and count; `current` is the mark the clip was opened at. */
+export function MarksEditor({ channelId, clip, marking, current = null }: { channelId: string; clip: ClipDetail; marking: MarkForm; current?: string | null }) {
+  const currentRow = useRef<HTMLLIElement>(null);
+  useEffect(() => currentRow.current?.scrollIntoView({ block: "nearest" }), [current]);
   const deleteMark = useDeleteMark(channelId, clip.id);
   const links = useFootageLinks(channelId, clip.episodeId);
   const format = clipFormat(clip);
@@ -75,7 +77,12 @@ export function MarksEditor({ channelId, clip, marking }: { channelId: string; c
           {clip.marks.length > 0 && (
             <ul className="mb-3 divide-y divide-ply-200 text-sm" aria-label="Marks on this clip">
               {clip.marks.map((m) => (
-                <li key={m.id} className="flex items-center gap-3 py-1.5">
+                <li
+                  key={m.id}
+                  ref={m.id === current ? currentRow : undefined}
+                  aria-current={m.id === current ? "true" : undefined}
+                  className={`flex items-center gap-3 py-1.5 ${m.id === current ? "-mx-2 rounded-sm bg-amber-cut/25 px-2" : ""}`}
+                >
                   <div className="min-w-0 flex-1">
                     <span className="block font-mono">
                       {m.in} → {m.out}

@@ -1,0 +1,57 @@
+import { sql } from "drizzle-orm";
+import type { SearchArea, SearchKind, SearchPlace } from "../../shared/search/schemas";
+import type { Database } from "../db/client";
+
+export type FoundRow = {
+  kind: SearchKind;
+  id: string;
+  episodeId: string | null;
+  episodeTitle: string | null;
+  place: SearchPlace;
+  title: string;
+  body: string;
+  score: number;
+};
+
+/** Hits kept per kind: a group shows its best few. */
+export const HITS_PER_KIND = 6;
+// How close a misspelt word must come to a word of the text (pg_trgm's word_similarity, 0 to 1):
+// "sholder" in "…at the shoulder" scores 0.75; unrelated words of the same length stay under 0.4.
+const WORD_SIMILARITY = "0.5";
+
+/**
+ * The channel's entries that match the words (accent-blind full text, with English stems) or, when
+ * those are few, come close to them (trigrams: typos and partial words), only in the areas the
+ * caller's role reads: the role is a condition of the query itself. Both indexes lead with the
+ * channel. A word match ranks above any near spelling (full-text rank + 1, title words weighing
+ * more); the best HITS_PER_KIND of each kind, their text read only for those.
+ */
+export async function findInChannel(db: Database, channelId: string, areas: SearchArea[], query: string): Promise<FoundRow[]> {
+  const readable = sql`d.channel_id = ${channelId} and d.area = any(string_to_array(${areas.join(",")}, ','))`;
+  return db.transaction(async (tx) => {
+    await tx.execute(sql`select set_config('pg_trgm.word_similarity_threshold', ${WORD_SIMILARITY}, true)`);
+    const result = await tx.execute<FoundRow>(sql`
+      with q as (select websearch_to_tsquery('kerf_search', ${query}) as words, search_fold(${query}) as folded),
+      worded as materialized (
+        select d.kind, d.record_id, 1 + ts_rank(d.words, q.words) as score
+        from search_documents d, q where ${readable} and d.words @@ q.words
+      ),
+      near as (
+        select d.kind, d.record_id, word_similarity(q.folded, d.folded) as score
+        from search_documents d, q
+        where (select count(*) from worded) < ${HITS_PER_KIND} and ${readable} and q.folded <% d.folded
+          and not exists (select 1 from worded w where w.kind = d.kind and w.record_id = d.record_id)
+      ),
+      ranked as (
+        select *, row_number() over (partition by kind order by score desc, record_id) as n
+        from (select * from worded union all select * from near) as found
+      )
+      select d.kind, d.record_id as "id", d.episode_id as "episodeId", e.title as "episodeTitle", d.place, d.title, d.body, r.score::float8 as score
+      from ranked r
+      join search_documents d on d.kind = r.kind and d.record_id = r.record_id
+      left join episodes e on e.id = d.episode_id and e.channel_id = ${channelId}
+      where r.n <= ${HITS_PER_KIND}
+      order by r.score desc, d.kind, d.record_id`);
+    return result.rows;
+  });
+}
