@@ -1,8 +1,10 @@
-import { expect, test, type Page } from "@playwright/test";
+import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
 import { dealWithReviewLink, DESK, expectFitsPhone, hostWithEpisode, member, PHONE, signInOn, snap, sql } from "./support";
 
 test.use({ viewport: PHONE });
+// Each page is a first visit (its code fetched, its data loaded) on a machine shared with other runs.
+const expect = baseExpect.configure({ timeout: 30_000 });
 test.setTimeout(300_000);
 
 /** The page as it stands fits a phone and passes axe; a screenshot at phone size and one at desk size are kept. */
@@ -144,7 +146,7 @@ test("an editor on a phone filters the rushes and opens a clip as a full-screen 
 
   // The episode's shoot plan and upload are the crew's on set: the upload hint and "Add shot" fit too.
   await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
-  await expect(page.getByRole("button", { name: "Add shot" })).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByRole("button", { name: "Add shot" })).toBeVisible();
   await expectFitsPhone(page, "episode's shoot and footage");
   await snap(page, "phone-episode-shoot");
 });
