@@ -19,7 +19,7 @@ export function EpisodeParts({ base, parts, open, stagePart, stageLabel }: { bas
     const list = strip.current;
     const tab = list?.querySelector<HTMLElement>("[aria-current='page']");
     if (!list || !tab) return;
-    const left = tab.offsetLeft - list.offsetLeft;
+    const left = tab.offsetLeft; // the strip is the tab's offset parent
     if (left < list.scrollLeft || left + tab.offsetWidth > list.scrollLeft + list.clientWidth) list.scrollLeft = left - 16;
   }, [open]);
 
