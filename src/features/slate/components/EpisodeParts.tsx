@@ -14,17 +14,18 @@ export interface EpisodePart {
 export function EpisodeParts({ base, parts, open, stagePart, stageLabel }: { base: string; parts: EpisodePart[]; open: string; stagePart: string; stageLabel: string }) {
   const strip = useRef<HTMLUListElement>(null);
   // On a phone the open part's tab may sit past the strip's edge: bring it into view within the strip only.
+  // The strip is `relative` so its screen-reader-only words stay inside its scroll box, not the page's.
   useEffect(() => {
     const list = strip.current;
     const tab = list?.querySelector<HTMLElement>("[aria-current='page']");
     if (!list || !tab) return;
-    const left = tab.offsetLeft - list.offsetLeft;
+    const left = tab.offsetLeft; // the strip is the tab's offset parent
     if (left < list.scrollLeft || left + tab.offsetWidth > list.scrollLeft + list.clientWidth) list.scrollLeft = left - 16;
   }, [open]);
 
   return (
     <nav aria-label="Parts of the episode" className="sticky top-0 z-10 -mx-4 border-b border-ply-300 bg-ply-100/95 px-4 py-2 backdrop-blur lg:top-4 lg:mx-0 lg:self-start lg:border-0 lg:bg-transparent lg:p-0">
-      <ul ref={strip} className="flex gap-1 overflow-x-auto overscroll-x-contain lg:flex-col lg:gap-0.5 lg:overflow-visible">
+      <ul ref={strip} className="relative flex gap-1 overflow-x-auto overscroll-x-contain lg:flex-col lg:gap-0.5 lg:overflow-visible">
         {parts.map((part) => (
           <li key={part.id} className="shrink-0">
             <NavLink
