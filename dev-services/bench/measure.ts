@@ -1,3 +1,5 @@
+import { freePort } from "../processes";
+
 /** What the benchmarks share: the p-th percentile of sorted timings, and a signed-in client of a running Kerf. */
 export const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] ?? 0;
 
@@ -49,4 +51,25 @@ export async function runBench(name: string, main: () => Promise<void>, stops: (
     for (const stop of stops.reverse()) await stop();
   }
   process.exit(code);
+}
+
+/**
+ * The settings of a Kerf a benchmark starts that sends no mail and keeps no files: the mail server and
+ * the storage endpoint are closed ports, and the storage key pair opens nothing.
+ */
+export async function offlineServerEnv(name: string, settings: { port: number; databaseUrl: string; clientDist: string }): Promise<NodeJS.ProcessEnv> {
+  const appUrl = `http://127.0.0.1:${settings.port}`;
+  return {
+    ...process.env,
+    NODE_ENV: "production",
+    PORT: String(settings.port),
+    APP_URL: appUrl,
+    DATABASE_URL: settings.databaseUrl,
+    SESSION_SECRET: `${name}-bench-secret-`.repeat(4),
+    SMTP_PORT: String(await freePort()),
+    S3_ENDPOINT: `http://127.0.0.1:${await freePort()}`,
+    S3_ACCESS_KEY_ID: `${name}-bench-no-storage`,
+    S3_SECRET_ACCESS_KEY: `${name}-bench-no-storage`,
+    CLIENT_DIST: settings.clientDist,
+  };
 }

@@ -11,7 +11,7 @@ import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
-import { percentile, runBench, signIn } from "./measure";
+import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
 
 /**
  * `npm run bench:search`: a throwaway cluster holding 1,000 channels; one of them has 100,000
@@ -183,20 +183,7 @@ async function main() {
   const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "ignore", "inherit"],
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      PORT: String(appPort),
-      APP_URL: appUrl,
-      DATABASE_URL: databaseUrl,
-      SESSION_SECRET: "search-bench-secret-search-bench-secret",
-      SMTP_PORT: String(await freePort()),
-      // Search touches no storage: a key pair that opens nothing, and an endpoint on a closed port.
-      S3_ENDPOINT: `http://127.0.0.1:${await freePort()}`,
-      S3_ACCESS_KEY_ID: "search-bench-no-storage",
-      S3_SECRET_ACCESS_KEY: "search-bench-no-storage",
-      CLIENT_DIST: path.join(work, "no-client"),
-    },
+    env: await offlineServerEnv("search", { port: appPort, databaseUrl, clientDist: path.join(work, "no-client") }),
   });
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/auth/me`, 60_000);

@@ -11,7 +11,7 @@ import { collectFlags } from "../../server/seams/board-flags";
 import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
-import { percentile, runBench, signIn } from "./measure";
+import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
 import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
@@ -148,17 +148,7 @@ async function main() {
   const server = spawn(process.execPath, [...profile, "--import", "tsx", "server/index.ts"], {
     cwd: repoRoot,
     stdio: ["ignore", "ignore", "inherit"],
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      PORT: String(appPort),
-      APP_URL: appUrl,
-      DATABASE_URL: databaseUrl,
-      SESSION_SECRET: "slate-bench-secret-slate-bench-secret-0",
-      // No mail is sent here; a closed port keeps the queue's worker from reaching anything.
-      SMTP_PORT: String(await freePort()),
-      CLIENT_DIST: render ? clientDir : path.join(work, "no-client"),
-    },
+    env: await offlineServerEnv("slate", { port: appPort, databaseUrl, clientDist: render ? clientDir : path.join(work, "no-client") }),
   });
   stops.push(() => stopChild(server));
   await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
