@@ -12,6 +12,6 @@ export function resultsCardRoutes(ctx: CardContext): RouteSpec[] {
     { method: "post", path: card, access: channelAccess("bench", "W"), handler: async (req, res) => res.status(202).json({ card: await requestCard(ctx, callerOf(req), idOf(req, "episodeId")) }) },
     // The card's colours are the channel's look in the video: those who publish set them.
     { method: "get", path: colours, access: channelAccess("bench", "R"), handler: async (req, res) => res.json(await cardColours(ctx.db, callerOf(req).channelId)) },
-    { method: "put", path: colours, access: channelAccess("publish", "W"), bodyLimit: 1024, handler: async (req, res) => res.json(await changeCardColours(ctx.db, callerOf(req).channelId, req.body)) },
+    { method: "put", path: colours, access: channelAccess("publish", "W"), handler: async (req, res) => res.json(await changeCardColours(ctx.db, callerOf(req).channelId, req.body)) },
   ];
 }

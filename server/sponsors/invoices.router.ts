@@ -24,7 +24,6 @@ export function invoiceRoutes(deps: InvoiceDeps): RouteSpec[] {
       method: "post",
       path: invoices,
       access: channelAccess("fees", "W"),
-      bodyLimit: 4 * 1024,
       handler: async (req, res) => {
         const input = parseBody(newInvoiceSchema, req.body);
         res.status(201).json({ invoice: await createInvoice(deps, callerOf(req), idOf(req, "dealId"), input) });

@@ -108,7 +108,7 @@ test("an owner confirms their address, invites a crew member, who joins from the
   await crew.getByLabel("Choose a password").fill(PASSWORD);
   await crew.getByRole("button", { name: "Create account and join" }).click();
   await expectHome(crew);
-  await expect(crew.getByText("Crew", { exact: true })).toBeVisible();
+  await expect(crew.getByRole("banner").getByText("Crew", { exact: true })).toBeVisible();
   // Crew cannot manage members, so the page is not offered.
   await expect(crew.getByRole("link", { name: "Members" })).toHaveCount(0);
   await snap(crew, "07-crew-slate");

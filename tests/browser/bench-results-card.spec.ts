@@ -33,7 +33,7 @@ test("the bench chart is drawn by the chart library, and the host draws the resu
     episode: { title: "Which motor lifts the slipway frame?", question: "Alder, Birch or Cedar?", origin: "idea", stage: "test_plan" },
   });
   await benchThroughApi(page, channelId, episodeId, csrfToken);
-  await page.goto(`/c/${channelId}/episodes/${episodeId}`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/bench`);
 
   // The chart: the library's drawing inside one named picture, the best run ringed and named.
   const chart = page.getByRole("img", { name: "Thrust per watt against mass, one point per run" });

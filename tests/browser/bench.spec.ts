@@ -137,7 +137,7 @@ test("a host plans a test, measures three candidates in mixed units and sees the
   await expect(page.getByRole("listitem", { name: "Run 3: Cedar fan on the bench supply" }).getByText("Misses the plan", { exact: true })).toBeVisible();
 
   // The comparison and the chart pick the Birch motor.
-  await expect(page.getByRole("paragraph").filter({ hasText: "Best candidate: run 2, Birch on 3S." })).toBeVisible();
+  await expect(page.locator("figcaption").filter({ hasText: "Best candidate: run 2, Birch on 3S." })).toBeVisible();
   const chart = page.getByRole("img", { name: /Thrust per watt against mass/ });
   await expect(chart).toBeVisible();
   await expect(chart.getByText("Best: run 2")).toBeVisible();

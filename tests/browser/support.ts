@@ -90,9 +90,11 @@ export async function expectHome(page: Page): Promise<void> {
   await expect(page.getByRole("heading", { name: "What needs you" })).toBeVisible();
 }
 
-/** From the home (where sign-in lands) to the slate, through the top bar. */
+/** From the home (where sign-in lands) to the slate, through the top bar (on a phone, through its menu). */
 export async function homeToSlate(page: Page): Promise<void> {
   await expectHome(page);
+  const menu = page.getByRole("button", { name: "Menu" });
+  if (await menu.isVisible()) await menu.click();
   await page.getByRole("navigation", { name: "Channel pages" }).getByRole("link", { name: "Slate" }).click();
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 }

@@ -101,7 +101,7 @@ function LinkClipForm({ channelId, data, shows }: { channelId: string; data: Foo
   const field = linkField(shows);
   const numbers = new Map((shows.kind === "run" ? data.runs : data.iterations).map((t) => [t.id, t.number]));
   const choices = data.clips.filter((c) => c[field] !== shows.id);
-  if (data.clips.length === 0) return <p className="text-xs text-graphite-500">This episode has no footage yet; upload clips in its shoot and footage section.</p>;
+  if (data.clips.length === 0) return <p className="text-xs text-graphite-500">This episode has no footage yet; upload clips in its Footage part.</p>;
   if (choices.length === 0) return null;
   const submit = async (event: FormEvent) => {
     event.preventDefault();
