@@ -144,9 +144,12 @@ test("an editor on a phone filters the rushes and opens a clip as a full-screen 
   await panel.getByRole("button", { name: "Close" }).click();
   await expect(panel).toBeHidden();
 
-  // The episode's shoot plan and upload are the crew's on set: the upload hint and "Add shot" fit too.
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
-  await expect(page.getByRole("button", { name: "Add shot" })).toBeVisible();
-  await expectFitsPhone(page, "episode's shoot and footage");
+  // The episode's shoot plan and upload are the crew's on set: "Add a shot" and the upload hint fit too.
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/shoot`);
+  await expect(page.getByRole("button", { name: "Add a shot" })).toBeVisible();
+  await expectFitsPhone(page, "episode's shoot days and shots");
   await snap(page, "phone-episode-shoot");
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
+  await expect(page.getByRole("heading", { level: 2, name: "Footage" })).toBeVisible();
+  await expectFitsPhone(page, "episode's footage");
 });

@@ -1,7 +1,7 @@
 import { crc32 } from "node:zlib";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { hostWithEpisode, snap, sql } from "./support";
+import { expectFitsPhone, hostWithEpisode, snap, sql } from "./support";
 
 test.setTimeout(180_000);
 
@@ -67,7 +67,7 @@ test("an episode in publish gets its package, passes the gate, and going live st
   await expect(gate.getByText("No title is chosen.")).toBeVisible({ timeout: 30_000 });
 
   await section.getByRole("button", { name: "Add a title" }).click();
-  await section.getByLabel("Title 1").fill("Which pack lasts? Three cells on one bench");
+  await section.getByRole("textbox", { name: "Title 1", exact: true }).fill("Which pack lasts? Three cells on one bench");
   await expect(section.getByText("42 / 100 characters")).toBeVisible();
 
   await section.getByLabel("Import markers (.edl or .csv)").setInputFiles({ name: "three-packs.edl", mimeType: "text/plain", buffer: Buffer.from(edl) });
@@ -93,7 +93,7 @@ test("an episode in publish gets its package, passes the gate, and going live st
   await page.setViewportSize({ width: 390, height: 844 });
   await section.getByRole("button", { name: "Save the package" }).scrollIntoViewIfNeeded();
   await snap(page, "publish-01b-package-phone");
-  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await expectFitsPhone(page, "publish package");
   await page.setViewportSize({ width: 1280, height: 800 });
 
   await section.getByLabel("Link to the published video").fill("https://video.example/watch/tidewater-3");

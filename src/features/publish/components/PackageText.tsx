@@ -24,7 +24,7 @@ export function Titles({ draft, change, canWrite }: { draft: Draft; change: (d: 
     change({ titles: draft.titles.filter((_, i) => i !== index), chosenTitle: chosen });
   };
   return (
-    <fieldset className="space-y-2">
+    <fieldset className="min-w-0 space-y-2">
       <legend className="font-semibold text-graphite-900">Titles</legend>
       <p className="text-xs text-graphite-500">Write a few; the one you pick goes out, the others are kept. The platform takes at most {TITLE_MAX_CHARACTERS} characters, without &quot;&lt;&quot; or &quot;&gt;&quot;.</p>
       {draft.titles.length === 0 && <p className="text-sm text-graphite-700">No titles yet.</p>}

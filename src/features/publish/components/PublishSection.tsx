@@ -31,7 +31,7 @@ function PublishTime({ draft, change, canWrite }: { draft: Draft; change: (d: Pa
   const memberZone = useTimeZone();
   const instant = draft.wallTime ? instantOfWallTime(draft.wallTime, draft.timeZone) : null;
   return (
-    <fieldset className="grid gap-2 sm:grid-cols-2">
+    <fieldset className="grid min-w-0 gap-2 sm:grid-cols-2">
       <legend className="font-semibold text-graphite-900">Publish time</legend>
       <TextField label="Date and time" type="datetime-local" value={draft.wallTime} disabled={!canWrite} onChange={(e) => change({ wallTime: e.target.value })} />
       <SelectField label="Time zone" value={draft.timeZone} disabled={!canWrite} onChange={(e) => change({ timeZone: e.target.value })} options={knownTimeZones().map((z) => ({ value: z, label: z }))} hint="The channel's zone unless you change it." />

@@ -21,8 +21,8 @@ function Candidate({ thumbnail, chosen, choose, remove, canWrite }: { thumbnail:
     <li className={`space-y-2 rounded-md border p-3 ${chosen ? "border-rust-600" : "border-ply-300"}`}>
       <div className="flex flex-wrap items-end gap-3">
         {thumbnailPreviewSizes.map((preview) => (
-          <figure key={preview.width} className="space-y-1">
-            <img src={thumbnail.url} alt={`${thumbnail.fileName} at ${preview.width} × ${preview.height}`} width={preview.width} height={preview.height} className="max-w-full rounded object-cover" style={{ aspectRatio: "16 / 9" }} />
+          <figure key={preview.width} className="min-w-0 max-w-full space-y-1">
+            <img src={thumbnail.url} alt={`${thumbnail.fileName} at ${preview.width} × ${preview.height}`} width={preview.width} height={preview.height} className="h-auto max-w-full rounded object-cover" style={{ aspectRatio: "16 / 9" }} />
             <figcaption className="text-xs text-graphite-500">
               {preview.width} × {preview.height}
             </figcaption>
@@ -61,7 +61,7 @@ export function Thumbnails({ channelId, episodeId, thumbnails, chosen, choose, c
   const add = useAddThumbnail(channelId, episodeId);
   const remove = useRemoveThumbnail(channelId, episodeId);
   return (
-    <fieldset className="space-y-2">
+    <fieldset className="min-w-0 space-y-2">
       <legend className="font-semibold text-graphite-900">Thumbnail</legend>
       <p className="text-xs text-graphite-500">The platform asks for 1280 × 720 (at least 640 wide), 16:9, JPG, GIF or PNG, under 2 MB.</p>
       {thumbnails.length === 0 && <p className="text-sm text-graphite-700">No thumbnails yet.</p>}
