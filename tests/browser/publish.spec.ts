@@ -113,5 +113,6 @@ test("an episode in publish gets its package, passes the gate, and going live st
   const expected = new Date(`${dated!.live}T00:00:00Z`);
   expected.setUTCDate(expected.getUTCDate() + 30);
   expect(dated!.report).toBe(expected.toISOString().slice(0, 10));
+  await page.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Sponsor deals" }).click();
   await expect(page.locator("#sponsor-deals").getByTestId("item-report").getByTestId("due-date")).not.toHaveText("");
 });

@@ -14,7 +14,7 @@ test("from the keyboard, a search lands on a clip at its mark", async ({ page })
     host: { name: "Ilse Varga", channel: "Lathe & Loom" },
     episode: { title: "Ducted fan shoulder mount", question: "Does a duct add thrust at hover?", origin: "idea", stage: "shoot" },
   });
-  await page.goto(`/c/${channelId}/episodes/${episodeId}#shoot-footage`);
+  await page.goto(`/c/${channelId}/episodes/${episodeId}/footage`);
   await page.getByLabel("Camera files").setInputFiles(clipFile);
   await expect(page.getByRole("listitem", { name: "Upload of D003_C007.mov" }).getByText(/^Stored/)).toBeVisible({ timeout: 30_000 });
   const [clip] = await sql<{ id: string }>("select id from clips where channel_id = $1 and file_name = $2", [channelId, "D003_C007.mov"]);

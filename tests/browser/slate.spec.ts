@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { snap, uniqueEmail } from "./support";
+import { homeToSlate, snap, uniqueEmail } from "./support";
 
 const PASSWORD = "a-long-enough-password";
 const TITLE = "Kite-lifted thermal camera";
@@ -14,7 +14,7 @@ async function signUp(page: Page, email: string) {
   await page.getByLabel("Password").fill(PASSWORD);
   await page.getByLabel("Channel name").fill("Marsh Lane Rigs");
   await page.getByRole("button", { name: "Create account and channel" }).click();
-  await expect(page.getByRole("heading", { name: "Slate", exact: true })).toBeVisible();
+  await homeToSlate(page);
 }
 
 /** A mouse drag of the card onto another column, in small steps as a hand would. */
