@@ -52,9 +52,10 @@ test("from the keyboard, a search lands on a clip at its mark", async ({ page })
   await expect(finder.getByRole("status")).toBeHidden();
   await snap(page, "search-02-at-the-mark");
 
-  // On a phone the finder takes its own row and its results fit the screen.
+  // On a phone the finder is in the menu's sheet, and its results fit the screen.
   await page.setViewportSize({ width: 390, height: 844 });
   await page.goto(`/c/${channelId}/slate`);
+  await page.getByRole("button", { name: "Menu" }).click();
   await box.fill("ducted shoulder");
   await expect(finder.getByRole("region", { name: "Episodes" }).getByRole("link")).toContainText("Ducted fan shoulder mount");
   // The finder and its results stay inside the screen (the board beside it scrolls on its own).

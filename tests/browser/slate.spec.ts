@@ -112,6 +112,7 @@ test("when two sessions move the same card, the second is told and sees the firs
   await other.getByLabel("E-mail").fill(email);
   await other.getByLabel("Password").fill(PASSWORD);
   await other.getByRole("button", { name: "Sign in" }).click();
+  await homeToSlate(other);
   await expect(cardIn(other, "challenge")).toBeVisible();
 
   await dragByKeyboard(page, "ArrowRight", "Challenge", "Test plan");
