@@ -66,10 +66,14 @@ test("a producer runs a deal from template to the sponsor's review, and the edit
   await expect(deals.getByTestId("deal-fee")).toContainText("2,750");
   await snap(producer, "sponsors-04-deal-with-items");
 
-  // The publish date moves on the slate's own form; the open items follow.
+  // The publish date moves on the slate's own form, in the episode's overview; the open items follow.
+  const parts = producer.getByRole("navigation", { name: "Parts of the episode" });
+  await parts.getByRole("link", { name: "Overview and dates" }).click();
   await producer.getByRole("button", { name: "Edit details" }).click();
   await producer.getByLabel("Target publish date").fill("2027-04-05");
   await producer.getByRole("button", { name: "Save changes" }).click();
+  await expect(producer.getByRole("button", { name: "Edit details" })).toBeVisible();
+  await parts.getByRole("link", { name: "Sponsor deals" }).click();
   // 5 April − 7 = 29 March; 5 April + 30 = 5 May.
   await expect(dueOf(producer, "draft_cut")).toHaveText("Mon 29 Mar 2027");
   await expect(dueOf(producer, "report")).toHaveText("Wed 5 May 2027");
