@@ -1,10 +1,10 @@
-import { crc32 } from "node:zlib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { buildDescription } from "../../shared/publish/description";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+import { png } from "../support/png";
 
 let app: TestApp;
 beforeAll(async () => {
@@ -12,22 +12,6 @@ beforeAll(async () => {
 });
 afterAll(() => app.close());
 
-/** A PNG as the PNG specification (W3C, 2nd edition, 5.2 and 11.2.2) lays it out: signature, IHDR with the size, IEND. */
-function png(width: number, height: number): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
-    const length = Buffer.alloc(4);
-    length.writeUInt32BE(data.length);
-    const crc = Buffer.alloc(4);
-    crc.writeUInt32BE(crc32(body));
-    return Buffer.concat([length, body, crc]);
-  };
-  const header = Buffer.alloc(13);
-  header.writeUInt32BE(width, 0);
-  header.writeUInt32BE(height, 4);
-  header.set([8, 2, 0, 0, 0], 8);
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", header), chunk("IEND", Buffer.alloc(0))]);
-}
 
 const upload = (who: Visitor, path: string, name: string, bytes: Buffer) =>
   who.agent.post(path).set("x-csrf-token", who.csrf).field("size", String(bytes.length)).attach("file", bytes, { filename: name, contentType: "image/png" });

@@ -1,7 +1,7 @@
-import { crc32 } from "node:zlib";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
 import { expectFitsPhone, hostWithEpisode, snap, sql } from "./support";
+import { png } from "../support/png";
 
 test.setTimeout(180_000);
 
@@ -12,22 +12,6 @@ async function call(request: APIRequestContext, url: string, headers: Record<str
   return answer.json();
 }
 
-/** A 1280 × 720 PNG as the PNG specification (W3C, 2nd edition, 5.2 and 11.2.2) lays one out: signature, IHDR, IEND. */
-function png(width: number, height: number): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
-    const length = Buffer.alloc(4);
-    length.writeUInt32BE(data.length);
-    const crc = Buffer.alloc(4);
-    crc.writeUInt32BE(crc32(body));
-    return Buffer.concat([length, body, crc]);
-  };
-  const header = Buffer.alloc(13);
-  header.writeUInt32BE(width, 0);
-  header.writeUInt32BE(height, 4);
-  header.set([8, 0, 0, 0, 0], 8);
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", header), chunk("IEND", Buffer.alloc(0))]);
-}
 
 // A CMX 3600 list as SMPTE 258M describes it, with "* LOC:" marker comments (the form OpenTimelineIO's
 // cmx_3600 adapter reads); the programme starts at the first event's record in, 01:00:00:00.
