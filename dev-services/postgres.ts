@@ -47,7 +47,10 @@ export function isPortOpen(port: number): boolean {
   return spawnSync(path.join(postgresBinDir(), "pg_isready"), ["-h", "127.0.0.1", "-p", String(port), "-q"]).status === 0;
 }
 
-export function startCluster(options: { dataDir: string; port: number; fresh?: boolean }): Cluster {
+/** Server settings for a cluster that takes millions of rows at once (the benchmarks' crowd): memory and WAL room. */
+export const BULK_LOAD_SETTINGS = ["shared_buffers=2GB", "max_wal_size=16GB", "checkpoint_timeout=1h", "wal_level=minimal", "max_wal_senders=0", "work_mem=64MB"];
+
+export function startCluster(options: { dataDir: string; port: number; fresh?: boolean; settings?: string[] }): Cluster {
   const bin = postgresBinDir();
   const dataDir = reachableFolder(options.dataDir, "postgres", "pg");
   if (options.fresh && existsSync(dataDir)) {
@@ -59,7 +62,7 @@ export function startCluster(options: { dataDir: string; port: number; fresh?: b
 
   let startedHere = false;
   if (!isPortOpen(options.port)) {
-    const settings = `-c listen_addresses=127.0.0.1 -p ${options.port} -c unix_socket_directories='' -c fsync=off -c max_connections=200`;
+    const settings = `-c listen_addresses=127.0.0.1 -p ${options.port} -c unix_socket_directories='' -c fsync=off -c max_connections=200${(options.settings ?? []).map((setting) => ` -c ${setting}`).join("")}`;
     runPg(path.join(bin, "pg_ctl"), ["-D", dataDir, "-o", settings, "-l", path.join(dataDir, "server.log"), "-w", "-t", "60", "start"], { quiet: true });
     startedHere = true;
   }

@@ -42,7 +42,7 @@ export async function listCriteria(db: Queryable, channelId: string, episodeId: 
 }
 
 export async function insertCriterion(db: Queryable, channelId: string, episodeId: string, definition: Criterion) {
-  const atLeast = sql`select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.episodeId} = ${episodeId}`;
+  const atLeast = sql`select coalesce(max(${testCriteria.position}), 0) + 1 from ${testCriteria} where ${testCriteria.channelId} = ${channelId} and ${testCriteria.episodeId} = ${episodeId}`;
   const next = await nextNumber(db, { scope: "test_criterion", ownerId: episodeId, channelId, atLeast });
   const [row] = await db.insert(testCriteria).values({ channelId, episodeId, definition, position: next }).returning();
   if (!row) throw new Error("criterion insert returned nothing");

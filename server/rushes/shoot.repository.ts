@@ -106,7 +106,7 @@ export async function findShot(db: Executor, channelId: string, shotId: string) 
 }
 
 export async function nextShotPosition(db: Queryable, channelId: string, episodeId: string): Promise<number> {
-  const atLeast = sql`select coalesce(max(${shots.position}), -1) + 1 from ${shots} where ${shots.episodeId} = ${episodeId}`;
+  const atLeast = sql`select coalesce(max(${shots.position}), -1) + 1 from ${shots} where ${shots.channelId} = ${channelId} and ${shots.episodeId} = ${episodeId}`;
   return nextNumber(db, { scope: "shot_position", ownerId: episodeId, channelId, atLeast });
 }
 

@@ -17,6 +17,7 @@ export async function datedOpenItems(db: Database, channelId: string, episodeIds
     .where(
       and(
         eq(deliverables.channelId, channelId),
+        eq(deals.channelId, channelId),
         episodeIdIn(deals.episodeId, episodeIds),
         ne(deals.state, "cancelled"),
         notInArray(deliverables.status, ["approved", "done"]),

@@ -89,7 +89,9 @@ export const uploads = pgTable(
   },
   (t) => [
     index("uploads_channel_episode_status_idx").on(t.channelId, t.episodeId, t.status),
+    // The sweep for abandoned uploads reads every channel's open ones; a channel's list reads only its own.
     index("uploads_open_activity_idx").on(t.lastActivityAt).where(sql`${t.status} = 'uploading'`),
+    index("uploads_channel_open_idx").on(t.channelId, t.createdAt).where(sql`${t.status} = 'uploading'`),
   ],
 );
 

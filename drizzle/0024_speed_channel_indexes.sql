@@ -1,0 +1,2 @@
+CREATE INDEX "uploads_channel_open_idx" ON "uploads" USING btree ("channel_id","created_at") WHERE "uploads"."status" = 'uploading';--> statement-breakpoint
+CREATE INDEX "stage_moves_channel_skipped_idx" ON "stage_moves" USING btree ("channel_id","episode_id") WHERE jsonb_array_length("stage_moves"."skipped") > 0;
