@@ -15,11 +15,12 @@ import { freePort, stopChild, waitForHttp } from "../processes";
 import { repoRoot, stateDir } from "../paths";
 import { percentile, signIn } from "./measure";
 import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
-import { ensureDatabase, startCluster } from "../postgres";
+import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
+import { describeCrowd, seedCrowd } from "./crowd";
 import { startS3StandIn } from "../s3";
 
 /**
- * `npm run bench:rushes`: (a) the footage list over 50,000 seeded clips with a three-field filter,
+ * `npm run bench:rushes`: among 10,000 other channels (crowd.ts), (a) the footage list over 50,000 seeded clips with a three-field filter,
  * its p95 and its query plan; (b) a 1 GiB upload through the presigned multipart path next to a direct
  * SDK upload of the same file to the same stand-in, with the app server's resident memory watched;
  * (c) the CSV export of a channel of 5,000 clips × 10 marks, and how long another channel waits meanwhile.
@@ -110,10 +111,15 @@ function rssMb(pid: number): number {
 async function main() {
   mkdirSync(work, { recursive: true });
   console.log("── services ──");
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true });
+  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
   stops.push(() => cluster.stop());
   const url = await ensureDatabase(cluster, "kerf_bench");
   await migrateDatabase(url);
+  console.log("seeding the other channels…");
+  const crowdHandle = connectDatabase(url);
+  const crowd = await seedCrowd(crowdHandle.pool);
+  await crowdHandle.close();
+  console.log(`  ${describeCrowd(crowd)}`);
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(work, "s3"), origins: [appUrl] });
@@ -214,6 +220,9 @@ async function main() {
   console.log(`app server RSS:  ${baseline.toFixed(0)} MB before, ${peak.toFixed(0)} MB at most during the upload`);
 
   const result = {
+    other_channels: crowd.channels,
+    other_episodes: crowd.episodes,
+    other_clips: crowd.clips,
     clips: CLIPS,
     list_filter_matches: first.totals.clips,
     list_p50_ms: Number(percentile(timings, 50).toFixed(1)),
