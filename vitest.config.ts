@@ -9,5 +9,8 @@ export default defineConfig({
     testTimeout: 20_000,
     hookTimeout: 60_000,
     pool: "forks",
+    // Vitest's default is one file at a time on a 2-core machine (cores - 1); the API tests spend most of
+    // their time waiting on PostgreSQL and their app, and each file has its own database, so two at once.
+    maxWorkers: 2,
   },
 });

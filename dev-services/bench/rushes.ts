@@ -4,7 +4,7 @@ import { open } from "node:fs/promises";
 import path from "node:path";
 import { CompleteMultipartUploadCommand, CreateMultipartUploadCommand, UploadPartCommand } from "@aws-sdk/client-s3";
 import { footageQuerySchema } from "../../shared/rushes/footage-query";
-import { MiB, partRange, planParts } from "../../shared/rushes/limits";
+import { MiB, partRange, planParts, SIGN_AHEAD } from "../../shared/rushes/limits";
 import { connectDatabase } from "../../server/db/client";
 import { migrateDatabase } from "../../server/db/migrate";
 import { listClips } from "../../server/rushes/clips.repository";
@@ -206,13 +206,30 @@ async function main() {
   started = performance.now();
   const base = `/api/channels/${crewed.channel.id}`;
   const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
+  // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
+  // each part's record sent while the next part goes, all records awaited before completing.
+  const kept = new Map<number, Promise<string>>();
+  const urlFor = (n: number) => {
+    const ready = kept.get(n);
+    if (ready) return ready;
+    const parts = [];
+    for (let next = n; next <= partCount && parts.length < SIGN_AHEAD; next++) {
+      if (kept.has(next)) continue;
+      const { start, end } = partRange(next, partSize, size);
+      parts.push({ partNumber: next, size: end - start });
+    }
+    const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
+    for (const part of parts) kept.set(part.partNumber, signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url));
+    return kept.get(n)!;
+  };
+  const records: Promise<unknown>[] = [];
   await inParallel(partCount, async (n) => {
     const body = await readPart(file, n, partSize, size);
-    const { urls } = (await call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts: [{ partNumber: n, size: body.length }] })) as { urls: { url: string }[] };
-    const put = await fetch(urls[0]!.url, { method: "PUT", body: new Uint8Array(body) });
+    const put = await fetch(await urlFor(n), { method: "PUT", body: new Uint8Array(body) });
     if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
-    await call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length });
+    records.push(call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length }));
   });
+  await Promise.all(records);
   await call("POST", `${base}/uploads/${upload.id}/complete`, {});
   const presignedSeconds = (performance.now() - started) / 1000;
   clearInterval(sampler);

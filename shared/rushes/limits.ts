@@ -75,6 +75,12 @@ export function partRange(partNumber: number, partSize: number, size: number): {
   return { start, end: Math.min(size, start + partSize) };
 }
 
+/**
+ * Parts the browser asks Kerf to sign per request: one round trip buys the URLs of the next few parts,
+ * so the parts in flight wait on storage, not on Kerf.
+ */
+export const SIGN_AHEAD = 8;
+
 /** How long a presigned URL works: short, since each is for one part or one look. */
 export const PART_URL_SECONDS = 15 * 60;
 export const PREVIEW_URL_SECONDS = 10 * 60;

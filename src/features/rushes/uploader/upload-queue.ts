@@ -9,15 +9,16 @@ import { completeUpload } from "../api/complete-upload";
 import { findByChecksum } from "../api/find-by-checksum";
 import { getUpload } from "../api/get-upload";
 import { recordPart } from "../api/record-part";
-import { signParts } from "../api/sign-parts";
 import { startUpload } from "../api/start-upload";
+import { PartSigner } from "./part-signer";
 import { forgetResumeNote, readResumeNote, writeResumeNote } from "./resume-notes";
 
 /**
  * The browser's side of a presigned multipart upload, carried by Uppy's S3 multipart plugin. Every call
- * it makes goes to Kerf's own routes: Kerf opens the upload, signs each part for its exact length, and
- * keeps its own record of each stored part (number, ETag, size); listing parts reads those records, so
- * a paused, failed or reloaded upload carries on from what Kerf recorded. One queue per channel lives
+ * it makes goes to Kerf's own routes: Kerf opens the upload, signs each part for its exact length (a
+ * few parts per request, part-signer.ts), and keeps its own record of each stored part (number, ETag,
+ * size), written while the next part is already on its way and awaited before completing; listing
+ * parts reads those records, so a paused, failed or reloaded upload carries on from what Kerf recorded. One queue per channel lives
  * for the whole visit, so an upload goes on while the person moves to another page of Kerf.
  */
 export type JobStatus = "checking" | "duplicate" | "reading" | "queued" | "uploading" | "paused" | "completing" | "done" | "failed" | "cancelled" | "needs-file";
@@ -44,6 +45,9 @@ interface UploadJob {
   sending: Map<number, number>;
   /** Failed tries per part since the last start or Retry. */
   failures: Map<number, number>;
+  /** Parts in storage whose record Kerf has not confirmed yet: number → the record and its request. */
+  records: Map<number, { part: { etag: string; size: number }; recorded: Promise<void> }>;
+  signer: PartSigner;
   metadata: ClipMetadata | null;
   sha256: string | null;
   duplicate: Duplicate | null;
@@ -187,7 +191,7 @@ export class UploadQueue {
     for (const upload of open) {
       if (this.jobs.some((j) => j.uploadId === upload.id)) continue;
       this.jobs.push({
-        ...blankJob(upload.id, upload.episodeId, upload.fileName, upload.size, upload.fingerprint),
+        ...blankJob(this.channelId, upload.id, upload.episodeId, upload.fileName, upload.size, upload.fingerprint),
         status: "needs-file",
         uploadId: upload.id,
         partSize: upload.partSize,
@@ -208,7 +212,7 @@ export class UploadQueue {
         void this.prepare(waiting, { resuming: true });
         continue;
       }
-      const job: UploadJob = { ...blankJob(crypto.randomUUID(), episodeId, file.name, file.size, fingerprint), file, status: "checking" };
+      const job: UploadJob = { ...blankJob(this.channelId, crypto.randomUUID(), episodeId, file.name, file.size, fingerprint), file, status: "checking" };
       this.jobs.push(job);
       void this.prepare(job, { resuming: readResumeNote(this.channelId, fingerprint) !== null });
     }
@@ -310,11 +314,39 @@ export class UploadQueue {
 
   private async signPart(job: UploadJob, uploadId: string, partNumber: number, size: number): Promise<AwsS3UploadParameters> {
     try {
-      const [signed] = await signParts(this.channelId, uploadId, [{ partNumber, size }]);
-      this.signed.set(signed!.url, { job, partNumber });
-      return { method: "PUT", url: signed!.url };
+      const plan = { uploadId, partSize: job.partSize, size: job.size, partCount: job.partCount };
+      const url = await job.signer.urlFor(plan, partNumber, size, (n) => job.stored.has(n) || job.records.has(n));
+      this.signed.set(url, { job, partNumber });
+      return { method: "PUT", url };
     } catch (error) {
       throw forRetry(error);
+    }
+  }
+
+  /** Records a stored part with Kerf without holding up the next part; complete() waits for it. */
+  private keepRecord(job: UploadJob, partNumber: number, part: { etag: string; size: number }) {
+    job.sending.set(partNumber, part.size);
+    const recorded = recordPart(this.channelId, job.uploadId!, partNumber, part).then(() => {
+      job.stored.set(partNumber, part.size);
+      job.records.delete(partNumber);
+    });
+    recorded
+      .catch(() => undefined)
+      .finally(() => {
+        job.sending.delete(partNumber);
+        this.emit();
+      });
+    job.records.set(partNumber, { part, recorded });
+  }
+
+  /** Before completing: every part's record is in, each failed one tried once more. */
+  private async settleRecords(job: UploadJob) {
+    for (const [partNumber, { part, recorded }] of [...job.records]) {
+      await recorded.catch(async () => {
+        await recordPart(this.channelId, job.uploadId!, partNumber, part);
+        job.stored.set(partNumber, part.size);
+        job.records.delete(partNumber);
+      });
     }
   }
 
@@ -336,20 +368,14 @@ export class UploadQueue {
           etag = tag;
         },
       });
-      const size = (options.body as Blob).size;
-      try {
-        await recordPart(this.channelId, job.uploadId!, partNumber, { etag: etag ?? answer.ETag ?? "", size });
-      } catch (error) {
-        throw forRetry(error);
-      }
-      job.stored.set(partNumber, size);
+      this.keepRecord(job, partNumber, { etag: etag ?? answer.ETag ?? "", size: (options.body as Blob).size });
       (options.onComplete as (tag: string) => void)(etag ?? answer.ETag ?? "");
       return answer;
     } catch (error) {
+      job.sending.delete(partNumber);
       if ((error as Error).name !== "AbortError") this.partFailed(job, partNumber);
       throw error;
     } finally {
-      job.sending.delete(partNumber);
       this.emit();
     }
   }
@@ -367,6 +393,11 @@ export class UploadQueue {
   private async complete(job: UploadJob, uploadId: string) {
     job.status = "completing";
     this.emit(true);
+    try {
+      await this.settleRecords(job);
+    } catch (error) {
+      throw forRetry(error);
+    }
     job.clip = await completeUpload(this.channelId, uploadId, { ...(job.metadata ? { metadata: job.metadata } : {}), ...(job.sha256 ? { sha256: job.sha256 } : {}) });
     return {};
   }
@@ -385,6 +416,7 @@ export class UploadQueue {
   }
 
   private fail(job: UploadJob, message: string) {
+    job.signer.forget();
     job.status = "failed";
     job.error = message;
     this.emit(true);
@@ -396,6 +428,7 @@ export class UploadQueue {
     if (!job || !["queued", "uploading"].includes(job.status) || !job.uppyId) return;
     if (this.uppy.pauseResume(job.uppyId) !== true) return;
     job.status = "paused";
+    job.signer.forget();
     job.sending.clear();
     this.emit(true);
   }
@@ -458,7 +491,7 @@ export class UploadQueue {
   }
 }
 
-function blankJob(id: string, episodeId: string, fileName: string, size: number, fingerprint: string): UploadJob {
+function blankJob(channelId: string, id: string, episodeId: string, fileName: string, size: number, fingerprint: string): UploadJob {
   return {
     id,
     episodeId,
@@ -474,6 +507,8 @@ function blankJob(id: string, episodeId: string, fileName: string, size: number,
     stored: new Map(),
     sending: new Map(),
     failures: new Map(),
+    records: new Map(),
+    signer: new PartSigner(channelId),
     metadata: null,
     sha256: null,
     duplicate: null,
