@@ -45,7 +45,7 @@ if [ $missing = 1 ]; then
 fi
 
 # The calendar feed's tests read each feed back with Python's icalendar, a parser Kerf did not write.
-if ! python3 -c "import icalendar" >/dev/null 2>&1; then
+if ! /usr/bin/python3 -c "import icalendar" >/dev/null 2>&1; then
   apt_install --no-install-recommends python3-icalendar
 fi
 

@@ -1,6 +1,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import type { CalendarEntry } from "../../shared/calendar/entries";
 import type { FeedScope, FeedSummary, NewFeed } from "../../shared/calendar/feeds";
+import { LATEST_DATE } from "../../shared/fields/dates";
 import { localDate } from "../../shared/slate/dates";
 import type { Database } from "../db/client";
 import { notFound } from "../http/app-error";
@@ -35,8 +36,8 @@ export async function feedsOf(db: Database, userId: string): Promise<FeedSummary
 }
 
 const shiftDay = (date: string, days: number) => new Date(Date.parse(`${date}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
-/** A feed holds three months back and a year ahead; what drops out of that is not "cancelled". */
-const feedWindow = (today: string) => ({ from: shiftDay(today, -92), to: shiftDay(today, 366) });
+/** A feed holds three months back and everything ahead; what drops off its start is not "cancelled". */
+const feedWindow = (today: string) => ({ from: shiftDay(today, -92), to: LATEST_DATE });
 /** How long a withdrawn entry is still sent as cancelled, so every subscriber's app hears of it. */
 const KEEP_CANCELLED_DAYS = 60;
 
