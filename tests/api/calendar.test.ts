@@ -7,7 +7,7 @@ import { eq } from "drizzle-orm";
 import ICAL from "ical.js";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { CalendarEntry, CalendarView, PublishMovePreview } from "../../shared/calendar/entries";
+import type { CalendarView, PublishMovePreview } from "../../shared/calendar/entries";
 import type { TemplateItem } from "../../shared/sponsors/deliverables";
 import { deliverables } from "../../server/db/schema/sponsors";
 import { episodes } from "../../server/db/schema/slate";
