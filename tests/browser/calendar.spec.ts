@@ -12,6 +12,7 @@ const todayUtc = () => new Date().toISOString().slice(0, 10);
 /** The month view's cell of a day, stepping to the next month when the day is past the grid. */
 async function dayCell(page: Page, day: string) {
   const cell = page.locator(`li[data-day="${day}"]`);
+  await expect(page.getByRole("list", { name: "Days of the month" })).toBeVisible();
   if ((await cell.count()) === 0) await page.getByRole("button", { name: "Later" }).click();
   await expect(cell).toBeVisible();
   return cell;

@@ -35,7 +35,7 @@ export const access: FeatureAccess = {
     return {
       // The matrix names no days, so a caller let through meets the range's own 400.
       [`GET ${c}/calendar`]: { ok: 400 },
-      [`POST ${c}/calendar/episodes/:episodeId/publish-preview`]: { ok: 200, prepare: async () => ({ body: { date: "2031-05-09" } }) },
+      [`POST ${c}/calendar/episodes/:episodeId/publish-preview`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id }, body: { date: "2031-05-09" } }) },
       ["GET /api/account/calendar-feeds"]: { ok: 200 },
       [`POST ${feed}`]: { ok: 201, prepare: async () => ({ body: { scope: "mine" } }) },
       [`DELETE ${feed}`]: {
