@@ -19,7 +19,7 @@ function Consequences({ preview }: { preview: PublishMovePreview }) {
   return (
     <div className="flex flex-col gap-3">
       <h3 className="font-semibold">What moves with it ({preview.moved.length})</h3>
-      <ul className="flex max-h-64 flex-col gap-1 overflow-y-auto text-sm" aria-label="What moves with it">
+      <ul tabIndex={0} className="flex max-h-64 flex-col gap-1 overflow-y-auto text-sm" aria-label="What moves with it">
         {preview.moved.map((m) => (
           <li key={m.key} className="rounded-sm bg-ply-100 px-2 py-1">
             <span className="font-medium">{m.title}</span>{" "}
