@@ -44,6 +44,11 @@ if [ $missing = 1 ]; then
   apt_install --no-install-recommends swift-proxy swift-account swift-container swift-object memcached
 fi
 
+# The calendar feed's tests read each feed back with Python's icalendar, a parser Kerf did not write.
+if ! /usr/bin/python3 -c "import icalendar" >/dev/null 2>&1; then
+  apt_install --no-install-recommends python3-icalendar
+fi
+
 # The server draws results cards with it, and the browser tests run in it.
 if ! command -v chromium >/dev/null; then
   apt_install chromium

@@ -12,6 +12,8 @@ import { addressChangeMailRenderer, verificationMailRenderer } from "./auth/veri
 import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { benchPublishSource } from "./bench/bench.publish";
+import { calendarRoutes } from "./calendar/calendar.router";
+import type { CalendarPlugs } from "./calendar/calendar.service";
 import { channelRoutes } from "./channels/channels.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { benchNeeds } from "./bench/bench.needs";
@@ -28,17 +30,21 @@ import { bestEffort, configurePassport, sessionMiddleware } from "./http/session
 import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
 import { rushesNeeds } from "./rushes/rushes.needs";
+import { rushesCalendar } from "./rushes/rushes.calendar";
+import { publishCalendar } from "./publish/publish.calendar";
 import { publishRoutes, type PublishPlugs } from "./publish/publish.router";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
 import type { NeedSource } from "./seams/home-needs";
 import type { SlatePlugs } from "./seams/slate-plugs";
+import { slateCalendar, slatePublishDateMover } from "./slate/slate.calendar";
 import { slateNeeds } from "./slate/slate.needs";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
 import { sponsorNeeds } from "./sponsors/sponsors.needs";
+import { sponsorsCalendar } from "./sponsors/sponsors.calendar";
 import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
 import { invoiceMailRenderer } from "./sponsors/invoice-mail";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
@@ -92,6 +98,12 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
 /** What fills members' homes ("what needs me"): the one place a feature's home entries are named. */
 export const needSources: readonly NeedSource[] = [...slateNeeds(slatePlugs), ...benchNeeds, ...rushesNeeds, ...sponsorNeeds];
 
+/** What the calendar shows, one source per feature, and how it previews a publish-date move: the one place they are named. */
+export const calendarPlugs: CalendarPlugs = {
+  sources: [slateCalendar, publishCalendar, rushesCalendar, sponsorsCalendar],
+  movePublishDate: slatePublishDateMover(slatePlugs.publishDateFollowers),
+};
+
 /** What every new channel starts with, made in the transaction that makes the channel. */
 export const channelStarters: readonly ChannelStarter[] = [startWithDealTemplate];
 
@@ -114,6 +126,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...homeRoutes(db, needSources),
     ...publishRoutes(deps, publishPlugs),
     ...searchRoutes(deps),
+    ...calendarRoutes(deps, calendarPlugs),
   ];
 }
 

@@ -18,13 +18,18 @@ export const HITS_PER_KIND = 6;
 // How close a misspelt word must come to a word of the text (pg_trgm's word_similarity, 0 to 1):
 // "sholder" in "…at the shoulder" scores 0.75; unrelated words of the same length stay under 0.4.
 const WORD_SIMILARITY = "0.5";
+// How many word matches are ranked at most. Ranking reads each match's whole word list, so a word in
+// half of 100,000 entries cost a second under load; past this many, the best of the first ones found
+// are shown (a rarer second word narrows them). Measured with `npm run bench:search`.
+export const RANKED_MATCHES = 1500;
 
 /**
  * The channel's entries that match the words (accent-blind full text, with English stems) or, when
  * those are few, come close to them (trigrams: typos and partial words), only in the areas the
  * caller's role reads: the role is a condition of the query itself. Both indexes lead with the
  * channel. A word match ranks above any near spelling (full-text rank + 1, title words weighing
- * more); the best HITS_PER_KIND of each kind, their text read only for those.
+ * more); the best HITS_PER_KIND of each kind, their text read only for those. A word found in more than
+ * RANKED_MATCHES entries (or a near spelling of that many) is ranked among the first RANKED_MATCHES found.
  */
 export async function findInChannel(db: Database, channelId: string, areas: SearchArea[], query: string): Promise<FoundRow[]> {
   const readable = sql`d.channel_id = ${channelId} and d.area = any(string_to_array(${areas.join(",")}, ','))`;
@@ -33,14 +38,15 @@ export async function findInChannel(db: Database, channelId: string, areas: Sear
     const result = await tx.execute<FoundRow>(sql`
       with q as (select websearch_to_tsquery('kerf_search', ${query}) as words, search_fold(${query}) as folded),
       worded as materialized (
-        select d.kind, d.record_id, 1 + ts_rank(d.words, q.words) as score
-        from search_documents d, q where ${readable} and d.words @@ q.words
+        select m.kind, m.record_id, 1 + ts_rank(m.words, q.words) as score
+        from (select d.kind, d.record_id, d.words from search_documents d, q where ${readable} and d.words @@ q.words limit ${RANKED_MATCHES}) as m, q
       ),
       near as (
         select d.kind, d.record_id, word_similarity(q.folded, d.folded) as score
         from search_documents d, q
         where (select count(*) from worded) < ${HITS_PER_KIND} and ${readable} and q.folded <% d.folded
           and not exists (select 1 from worded w where w.kind = d.kind and w.record_id = d.record_id)
+        limit ${RANKED_MATCHES}
       ),
       ranked as (
         select *, row_number() over (partition by kind order by score desc, record_id) as n

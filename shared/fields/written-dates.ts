@@ -103,3 +103,14 @@ export function formatInstantNamingZone(instant: string | Date, timeZone: string
 export function formatInstantDay(instant: string | Date, timeZone: string): string {
   return dayWords(read(new Date(instant), timeZone), true);
 }
+
+const pad = (n: number) => String(n).padStart(2, "0");
+
+/**
+ * An instant as a wall clock in a zone reads it, to the minute, for machines that take a local time
+ * and a zone name apart (an iCalendar DTSTART with its TZID): "2027-03-05T14:05:00".
+ */
+export function wallClockIn(instant: string | Date, timeZone: string): string {
+  const r = read(new Date(instant), timeZone);
+  return `${r.year}-${pad(r.month)}-${pad(r.day)}T${pad(r.hour)}:${pad(r.minute)}:00`;
+}

@@ -39,7 +39,7 @@ export const router = createBrowserRouter([
               {
                 errorElement: <RouteError inShell />,
                 children: [
-                  { path: "/account", lazy: page(() => import("../features/auth/components/AccountPage"), (m) => m.AccountPage) },
+                  { path: "/account", lazy: page(() => import("./account-page"), (m) => m.AccountPageWithFeeds) },
                   { path: "/channels/new", lazy: page(() => import("../features/channels/components/NewChannelPage"), (m) => m.NewChannelPage) },
                   {
                     path: "/c/:channelId",
@@ -47,6 +47,7 @@ export const router = createBrowserRouter([
                     children: [
                       { index: true, element: <HomeRedirect /> },
                       { path: "home", lazy: page(() => import("../features/home/components/HomePage"), (m) => m.HomePage) },
+                      { path: "calendar", lazy: page(() => import("../features/calendar/components/CalendarPage"), (m) => m.CalendarPage) },
                       { path: "slate", lazy: page(() => import("../features/slate/components/SlatePage"), (m) => m.SlatePage) },
                       { path: "slate/schedule", lazy: page(() => import("../features/slate/components/StageLengthsPage"), (m) => m.StageLengthsPage) },
                       { path: "episodes/:episodeId/:part?", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },
