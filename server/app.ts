@@ -13,6 +13,7 @@ import { benchRoutes } from "./bench/bench.router";
 import { benchGates } from "./bench/bench.gates";
 import { benchPublishSource } from "./bench/bench.publish";
 import { channelRoutes } from "./channels/channels.router";
+import { economicsRoutes } from "./economics/economics.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { benchNeeds } from "./bench/bench.needs";
 import { healthRoutes } from "./health/health.router";
@@ -114,6 +115,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...homeRoutes(db, needSources),
     ...publishRoutes(deps, publishPlugs),
     ...searchRoutes(deps),
+    ...economicsRoutes(deps),
   ];
 }
 
