@@ -15,6 +15,7 @@ import { benchPublishSource } from "./bench/bench.publish";
 import { calendarRoutes } from "./calendar/calendar.router";
 import type { CalendarPlugs } from "./calendar/calendar.service";
 import { channelRoutes } from "./channels/channels.router";
+import { economicsRoutes } from "./economics/economics.router";
 import { invitationMailRenderer } from "./channels/invitations.service";
 import { benchNeeds } from "./bench/bench.needs";
 import { healthRoutes } from "./health/health.router";
@@ -127,6 +128,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...publishRoutes(deps, publishPlugs),
     ...searchRoutes(deps),
     ...calendarRoutes(deps, calendarPlugs),
+    ...economicsRoutes(deps),
   ];
 }
 

@@ -5,6 +5,7 @@ import type { Database } from "./client";
 import { channels, invitations, memberships, users } from "./schema/accounts";
 import { publishThumbnails } from "./schema/publish";
 import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
+import { moneyEntries } from "./schema/economics";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
 import { episodes } from "./schema/slate";
 import { dealInvoices, dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
@@ -45,6 +46,7 @@ export const channelChildren = {
   linkId: child("Review link", reviewLinks),
   thumbnailId: child("Thumbnail", publishThumbnails),
   invoiceId: child("Invoice", dealInvoices),
+  entryId: child("Line", moneyEntries),
   invitationId: child("Invitation", invitations),
   userId: { what: "Member", id: memberships.userId, channelId: memberships.channelId },
 } satisfies Record<string, ChildRow>;

@@ -17,6 +17,11 @@ describe("role grants", () => {
     expect(rolesAllowed("fees", "R")).toEqual(["owner", "producer"]);
   });
 
+  it("shows costs and income of episodes to owner and producer only (spec: \"costs and income of episodes\")", () => {
+    expect(rolesAllowed("money", "R")).toEqual(["owner", "producer"]);
+    expect(rolesAllowed("money", "W")).toEqual(["owner", "producer"]);
+  });
+
   it("lets everyone write comments", () => {
     expect(rolesAllowed("comments", "W")).toEqual(["owner", "producer", "editor", "crew"]);
   });

@@ -20,6 +20,7 @@ export const areas = [
   "deliverables",
   "cut",
   "publish",
+  "money",
 ] as const;
 export type Area = (typeof areas)[number];
 
@@ -46,6 +47,8 @@ export const grants: Record<Area, Record<Role, Grant>> = {
   // deliver"), so they set the deal's cut and move the cut items along; everyone with deliverables W may too.
   cut: { owner: "W", producer: "W", editor: "W", crew: "R" },
   publish: { owner: "W", producer: "W", editor: "W", crew: "R" },
+  // Costs and income of episodes, margins, the channel's currency and hourly rate.
+  money: { owner: "W", producer: "W", editor: "-", crew: "-" },
 };
 
 export type Need = "R" | "W";

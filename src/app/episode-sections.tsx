@@ -5,6 +5,7 @@ import { TestPlanSheet } from "../features/bench/components/TestPlanSheet";
 import { EpisodeFootage, EpisodeShoot } from "../features/rushes/components/EpisodeRushes";
 import { PublishSection } from "../features/publish/components/PublishSection";
 import { EpisodeDeals } from "../features/sponsors/components/EpisodeDeals";
+import { EpisodeMoney } from "../features/economics/components/EpisodeMoney";
 
 /**
  * The parts features add to the episode page, in the order of the episode's path; each id is the
@@ -19,4 +20,5 @@ export const episodeSections: EpisodeSection[] = [
   { id: "footage", title: "Footage", Component: EpisodeFootage },
   { id: "sponsor-deals", title: "Sponsor deals", Component: EpisodeDeals },
   { id: "publish-package", title: "Publish package", Component: PublishSection },
+  { id: "money", title: "Costs and income", Component: EpisodeMoney, area: "money" },
 ];

@@ -16,5 +16,6 @@ export const channelNav: NavEntry[] = [
   { path: "rushes", label: "Rushes", area: "footage" },
   { path: "desk", label: "Desk", area: "deliverables" },
   { path: "sponsors", label: "Sponsors", area: "sponsors" },
+  { path: "money", label: "Money", area: "money" },
   { path: "members", label: "Members", area: "members" },
 ];

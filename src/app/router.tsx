@@ -58,6 +58,7 @@ export const router = createBrowserRouter([
                       { path: "shoot-days/:shootDayId", lazy: page(() => import("../features/rushes/components/ShootDayPage"), (m) => m.ShootDayPage) },
                       { path: "desk", lazy: page(() => import("../features/sponsors/components/DeskPage"), (m) => m.DeskPage) },
                       { path: "sponsors", lazy: page(() => import("../features/sponsors/components/SponsorsPage"), (m) => m.SponsorsPage) },
+                      { path: "money", lazy: page(() => import("../features/economics/components/MoneyPage"), (m) => m.MoneyPage) },
                     ],
                   },
                 ],

@@ -1,5 +1,5 @@
 import type { ComponentType } from "react";
-import type { Role } from "@shared/access/roles";
+import type { Area, Role } from "@shared/access/roles";
 import type { Stage } from "@shared/slate/stages";
 
 /** What every section of the episode page receives. */
@@ -14,6 +14,8 @@ export interface EpisodeSection {
   id: string;
   title: string;
   Component: ComponentType<EpisodeSectionProps>;
+  /** Shown only to roles that may read this area; every member sees a part without one. */
+  area?: Area;
 }
 
 /**

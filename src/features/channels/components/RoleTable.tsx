@@ -16,6 +16,7 @@ const areaLabels: Record<Area, string> = {
   deliverables: "Sponsor items",
   cut: "The cut of a sponsor's segment",
   publish: "Publishing",
+  money: "Costs, income and margins of episodes",
 };
 
 const grantWords: Record<Grant, string> = { W: "changes", R: "reads", "-": "—" };

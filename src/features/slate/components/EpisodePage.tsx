@@ -56,7 +56,8 @@ function partsOf({ channelId, episodeId, role, sections, detail }: EpisodeSectio
         </div>
       ),
     },
-    ...sections.map(({ id, title, Component }) => ({ id, title, render: () => <Component channelId={channelId} episodeId={episodeId} role={role} /> })),
+    // A part for some roles only (money) is left out for the others: not shown, not reachable by its address.
+    ...sections.filter((section) => !section.area || roleMay(role, section.area, "R")).map(({ id, title, Component }) => ({ id, title, render: () => <Component channelId={channelId} episodeId={episodeId} role={role} /> })),
     { id: "history", title: "History", render: () => <HistorySection channelId={channelId} episodeId={episodeId} /> },
     { id: "comments", title: "Comments", render: () => <ActivitySection channelId={channelId} episodeId={episodeId} /> },
   ];
