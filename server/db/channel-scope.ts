@@ -6,6 +6,7 @@ import { channels, invitations, memberships, users } from "./schema/accounts";
 import { publishThumbnails } from "./schema/publish";
 import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
+import { intakeIdeas, intakeSuggestions } from "./schema/intake";
 import { episodes } from "./schema/slate";
 import { dealInvoices, dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
 
@@ -46,6 +47,8 @@ export const channelChildren = {
   thumbnailId: child("Thumbnail", publishThumbnails),
   invoiceId: child("Invoice", dealInvoices),
   invitationId: child("Invitation", invitations),
+  ideaId: child("Idea", intakeIdeas),
+  suggestionId: child("Suggestion", intakeSuggestions),
   userId: { what: "Member", id: memberships.userId, channelId: memberships.channelId },
 } satisfies Record<string, ChildRow>;
 

@@ -20,6 +20,8 @@ export const areas = [
   "deliverables",
   "cut",
   "publish",
+  "intake",
+  "intakePage",
 ] as const;
 export type Area = (typeof areas)[number];
 
@@ -46,6 +48,10 @@ export const grants: Record<Area, Record<Role, Grant>> = {
   // deliver"), so they set the deal's cut and move the cut items along; everyone with deliverables W may too.
   cut: { owner: "W", producer: "W", editor: "W", crew: "R" },
   publish: { owner: "W", producer: "W", editor: "W", crew: "R" },
+  // Viewers' suggestions: any member enters, groups and weighs them (issue 17: "entry by hand by any member").
+  intake: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  // The public suggestion page (on or off, its prompt) and the CSV column mapping speak for the channel.
+  intakePage: { owner: "W", producer: "W", editor: "R", crew: "R" },
 };
 
 export type Need = "R" | "W";

@@ -16,6 +16,8 @@ const areaLabels: Record<Area, string> = {
   deliverables: "Sponsor items",
   cut: "The cut of a sponsor's segment",
   publish: "Publishing",
+  intake: "Viewers' suggestions: entering, grouping, weighing",
+  intakePage: "The public suggestion page and comment imports",
 };
 
 const grantWords: Record<Grant, string> = { W: "changes", R: "reads", "-": "—" };
