@@ -104,5 +104,5 @@ CREATE INDEX "intake_contacts_confirm_idx" ON "intake_contacts" USING btree ("co
 CREATE INDEX "intake_ideas_channel_status_idx" ON "intake_ideas" USING btree ("channel_id","status");--> statement-breakpoint
 CREATE INDEX "intake_page_hits_scope_idx" ON "intake_page_hits" USING btree ("scope","at");--> statement-breakpoint
 CREATE INDEX "intake_suggestions_idea_idx" ON "intake_suggestions" USING btree ("idea_id","asked_at");--> statement-breakpoint
-CREATE UNIQUE INDEX "intake_suggestions_fingerprint_idx" ON "intake_suggestions" USING btree ("channel_id","fingerprint");--> statement-breakpoint
+CREATE UNIQUE INDEX "intake_suggestions_fingerprint_idx" ON "intake_suggestions" USING btree ("fingerprint","channel_id");--> statement-breakpoint
 CREATE INDEX "intake_suggestions_key_idx" ON "intake_suggestions" USING gin ("channel_id","key" gin_trgm_ops);

@@ -8,7 +8,7 @@ import { intakeIdeas, intakeSuggestions } from "../db/schema/intake";
  * are reworded, misspelt and reordered: below it distinct asks that share one part start to merge,
  * above it misspelt copies start to split off.
  */
-export const SAME_ASK = 0.5;
+export const SAME_ASK = 0.6;
 
 export interface NewSuggestion {
   text: string;
@@ -26,17 +26,19 @@ export interface NewSuggestion {
  * must not open two ideas. A transaction-level lock per channel, so other channels never wait.
  */
 export async function lockChannelGrouping(tx: Queryable, channelId: string): Promise<void> {
-  await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`intake:${channelId}`}, 0))`);
-  await tx.execute(sql`select set_config('pg_trgm.similarity_threshold', ${String(SAME_ASK)}, true)`);
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`intake:${channelId}`}, 0)), set_config('pg_trgm.similarity_threshold', ${String(SAME_ASK)}, true)`);
 }
 
-/** The open idea whose suggestions come closest to `text`, if any comes close enough. */
+/**
+ * The open idea whose suggestions come closest to `text`, if any comes close enough. intake_key is
+ * immutable, so the planner works the probe's key out once, before planning, and the trigram index
+ * (channel, key) finds the candidates; a text of asking words only (an empty key) matches nothing.
+ */
 export async function closestOpenIdea(tx: Queryable, channelId: string, text: string): Promise<{ ideaId: string; score: number } | null> {
   const found = await tx.execute<{ idea_id: string; score: number }>(sql`
-    with probe as (select intake_key(${text}) as key)
-    select s.idea_id, similarity(s.key, probe.key) as score
-    from probe, ${intakeSuggestions} s join ${intakeIdeas} i on i.id = s.idea_id
-    where s.channel_id = ${channelId} and probe.key <> '' and s.key % probe.key and i.status = 'open'
+    select s.idea_id, similarity(s.key, intake_key(${text})) as score
+    from ${intakeSuggestions} s join ${intakeIdeas} i on i.id = s.idea_id
+    where s.channel_id = ${channelId} and intake_key(${text}) <> '' and s.key % intake_key(${text}) and i.status = 'open'
     order by score desc
     limit 1`);
   const row = found.rows[0];

@@ -47,7 +47,7 @@ function checkedRows(file: ParsedFile, mapping: ColumnMapping): ImportedRow[] {
 }
 
 /** Same comment, same fingerprint: the platform's comment id when there is one, else author, time and words. */
-const fingerprintOf = (row: ImportedRow) =>
+export const fingerprintOf = (row: Pick<ImportedRow, "commentId" | "author" | "postedAt" | "text">) =>
   createHash("sha256")
     .update(row.commentId ? `id\u0000${row.commentId}` : `row\u0000${row.author ?? ""}\u0000${row.postedAt ?? ""}\u0000${row.text}`)
     .digest("hex");

@@ -11,6 +11,7 @@ export const channelNav: NavEntry[] = [
   // Every member reads episodes, so every member has a home.
   { path: "home", label: "Home", area: "episodes" },
   { path: "slate", label: "Slate", area: "episodes" },
+  { path: "intake", label: "Asks", area: "intake" },
   { path: "shelf", label: "Shelf", area: "bench" },
   { path: "rushes", label: "Rushes", area: "footage" },
   { path: "desk", label: "Desk", area: "deliverables" },

@@ -78,7 +78,8 @@ export const intakeSuggestions = pgTable(
   },
   (table) => [
     index("intake_suggestions_idea_idx").on(table.ideaId, table.askedAt),
-    uniqueIndex("intake_suggestions_fingerprint_idx").on(table.channelId, table.fingerprint),
+    // Fingerprint first: a btree led by the channel would tempt the planner away from the trigram index while grouping.
+    uniqueIndex("intake_suggestions_fingerprint_idx").on(table.fingerprint, table.channelId),
     index("intake_suggestions_key_idx").using("gin", table.channelId, sql`${table.key} gin_trgm_ops`),
   ],
 );
