@@ -80,10 +80,11 @@ test("viewers suggest signed out; a member folds two ideas together, weighs one 
 
   await hover.getByRole("button", { name: "Put it on the slate" }).click();
   await expect(hover).toHaveCount(0);
-  await page.getByLabel("Show").selectOption("promoted");
+  await page.getByLabel("Ideas to show").selectOption("promoted");
   await card(page, "A hovercraft made from a leaf blower").getByRole("link", { name: "Open its episode" }).click();
   await expect(page.getByRole("heading", { name: "A hovercraft made from a leaf blower" }).first()).toBeVisible({ timeout: 60_000 });
-  await expect(page.getByLabel("Where it came from")).toHaveValue("viewer", { timeout: 30_000 });
+  await expect(page.getByText("A viewer's suggestion").first()).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByText(/^Asked by 2 viewers/).first()).toBeVisible();
   const episodeId = /\/episodes\/([0-9a-f-]{36})/.exec(page.url())![1]!;
 
   // The video goes live (through the publish API): the confirmed viewer gets exactly one mail with its link.

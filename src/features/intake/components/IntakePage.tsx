@@ -40,7 +40,7 @@ export function IntakePage() {
             Ideas
           </h2>
           <div className="flex flex-wrap gap-3">
-            <SelectField label="Show" value={status} onChange={(e) => setStatus(e.target.value as IdeaStatus)} options={ideaStatuses.map((s) => ({ value: s, label: ideaStatusLabels[s] }))} />
+            <SelectField label="Ideas to show" value={status} onChange={(e) => setStatus(e.target.value as IdeaStatus)} options={ideaStatuses.map((s) => ({ value: s, label: ideaStatusLabels[s] }))} />
             <SelectField label="Order" value={sort} onChange={(e) => setSort(e.target.value as IdeaSort)} options={ideaSorts.map((s) => ({ value: s, label: sortLabels[s] }))} />
           </div>
         </div>
