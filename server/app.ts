@@ -20,6 +20,11 @@ import { invitationMailRenderer } from "./channels/invitations.service";
 import { benchNeeds } from "./bench/bench.needs";
 import { healthRoutes } from "./health/health.router";
 import { homeRoutes } from "./home/home.router";
+import { intakeMailRenderers } from "./intake/intake.mail";
+import { intakeFollowsGoLive } from "./intake/intake.publish";
+import { intakeRoutes } from "./intake/intake.router";
+import { newsTokens } from "./intake/news-token";
+import type { PageLimits } from "./intake/page-limits";
 import { noStoreByDefault } from "./http/cache";
 import { serveClient } from "./http/client-files";
 import { csrfProtection } from "./http/csrf";
@@ -41,6 +46,7 @@ import type { NeedSource } from "./seams/home-needs";
 import type { SlatePlugs } from "./seams/slate-plugs";
 import { slateCalendar, slatePublishDateMover } from "./slate/slate.calendar";
 import { slateNeeds } from "./slate/slate.needs";
+import { makeViewerEpisode } from "./slate/episodes.service";
 import { slateRoutes } from "./slate/slate.router";
 import { sponsorBoardFilter, sponsorFlagSources } from "./sponsors/sponsors.flags";
 import { sponsorGates } from "./sponsors/sponsors.gates";
@@ -58,6 +64,8 @@ import { startWithDealTemplate } from "./sponsors/templates.service";
 /** Settings of one app that are not dependencies (tests tighten them). */
 export interface AppOptions {
   signInLimits?: SignInLimits;
+  /** Submissions one address may send the public suggestion pages (server/intake/page-limits.ts). */
+  suggestionLimits?: PageLimits;
 }
 
 /**
@@ -72,10 +80,12 @@ export const slatePlugs: SlatePlugs = {
 };
 
 /** What the publish package drafts from and checks against, and who follows the video going live. */
-export const publishPlugs: PublishPlugs = {
-  sources: [sponsorsPublishSource, benchPublishSource],
-  goLiveFollowers: [sponsorsFollowGoLive],
-};
+export function publishPlugs(deps: Pick<AppDeps, "jobs">): PublishPlugs {
+  return {
+    sources: [sponsorsPublishSource, benchPublishSource],
+    goLiveFollowers: [sponsorsFollowGoLive, intakeFollowsGoLive(deps.jobs)],
+  };
+}
 
 /**
  * What builds each kind of queued mail when it is sent (server/mail/mail-jobs.ts): the one place a
@@ -93,6 +103,7 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
     ...invitationMailRenderer({ db, appUrl }),
     ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
     ...invoiceMailRenderer(db),
+    ...intakeMailRenderers({ db, appUrl, tokens: newsTokens(deps.env.SESSION_SECRET) }),
   };
 }
 
@@ -125,10 +136,11 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...rushesRoutes(deps),
     ...sponsorsRoutes(deps),
     ...homeRoutes(db, needSources),
-    ...publishRoutes(deps, publishPlugs),
+    ...publishRoutes(deps, publishPlugs(deps)),
     ...searchRoutes(deps),
     ...calendarRoutes(deps, calendarPlugs),
     ...economicsRoutes(deps),
+    ...intakeRoutes(deps, { makeEpisode: makeViewerEpisode, pageLimits: options.suggestionLimits }),
   ];
 }
 

@@ -7,6 +7,7 @@ import { publishThumbnails } from "./schema/publish";
 import { benchParts, benchRuns, buildIterations, buildPhotos, safetyHazards, testCriteria } from "./schema/bench";
 import { moneyEntries } from "./schema/economics";
 import { clipMarks, clips, shootDays, shots, stills, uploads } from "./schema/rushes";
+import { intakeIdeas, intakeSuggestions } from "./schema/intake";
 import { episodes } from "./schema/slate";
 import { dealInvoices, dealTemplates, deals, deliverables, reviewLinks, sponsorContacts, sponsors } from "./schema/sponsors";
 
@@ -48,6 +49,8 @@ export const channelChildren = {
   invoiceId: child("Invoice", dealInvoices),
   entryId: child("Line", moneyEntries),
   invitationId: child("Invitation", invitations),
+  ideaId: child("Idea", intakeIdeas),
+  suggestionId: child("Suggestion", intakeSuggestions),
   userId: { what: "Member", id: memberships.userId, channelId: memberships.channelId },
 } satisfies Record<string, ChildRow>;
 

@@ -1,6 +1,7 @@
 import { drizzle } from "drizzle-orm/node-postgres";
 import type pg from "pg";
-import type { Database } from "./client";
+import { sql, type SQL } from "drizzle-orm";
+import type { Database, Queryable } from "./client";
 
 /** Runs raw SQL on the transaction's own connection (the shape pg-boss's `db` option takes). */
 export interface SqlExecutor {
@@ -28,4 +29,20 @@ export async function inTransaction<T>(db: Database, work: (tx: Database, sql: S
   } finally {
     client.release(broken);
   }
+}
+
+/**
+ * Raw SQL with $1…$n parameters on a Drizzle transaction a seam was handed (a go-live follower),
+ * so the jobs a follower queues commit with the transaction it runs in.
+ */
+export function sqlExecutorOf(tx: Queryable): SqlExecutor {
+  return {
+    async executeSql(text, values = []) {
+      const parts = text.split(/\$(\d+)/);
+      const chunks: SQL[] = [];
+      parts.forEach((part, index) => chunks.push(index % 2 === 0 ? sql.raw(part) : sql`${sql.param(values[Number(part) - 1] ?? null)}`));
+      const result = await tx.execute(sql.join(chunks));
+      return { rows: result.rows };
+    },
+  };
 }

@@ -93,7 +93,7 @@ export async function goLive(ctx: PublishContext, caller: Caller, episodeId: str
         : await updatePackage(tx, caller.channelId, episodeId, before.version, values);
     if (!row) throw staleSave("publish package", before);
     const liveOn = dateInZone(publishedAt, row.timeZone);
-    for (const follower of ctx.goLiveFollowers) await follower.follow(tx, { channelId: caller.channelId, episodeId, actorId: caller.userId, liveOn });
+    for (const follower of ctx.goLiveFollowers) await follower.follow(tx, { channelId: caller.channelId, episodeId, actorId: caller.userId, liveOn, videoUrl: input.videoUrl });
     return packageView(ctx, tx, caller.channelId, episodeId);
   });
 }

@@ -28,7 +28,8 @@ export interface PublishSource {
 /** Called inside the go-live transaction: a follower that fails undoes the go-live. */
 export interface GoLiveFollower {
   name: string;
-  follow(db: Queryable, change: EpisodeRef & { actorId: string; liveOn: string }): Promise<unknown>;
+  /** `videoUrl`: where the video can be watched, as the go-live gave it. */
+  follow(db: Queryable, change: EpisodeRef & { actorId: string; liveOn: string; videoUrl: string }): Promise<unknown>;
 }
 
 export async function readPublishFacts(sources: readonly PublishSource[], db: Queryable, episode: EpisodeRef): Promise<PublishFacts> {

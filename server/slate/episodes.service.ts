@@ -2,6 +2,7 @@ import { localDate } from "../../shared/slate/dates";
 import type { GateProblem } from "../../shared/slate/gates";
 import { timeInStages } from "../../shared/slate/history";
 import {
+  emptyEpisodeFields,
   episodeFieldsSchema,
   type EpisodeChanges,
   type EpisodeDetail,
@@ -20,6 +21,7 @@ import type { Caller } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import { collectFlags, type BoardFlagSource } from "../seams/board-flags";
 import type { PublishDateFollower } from "../seams/episode-dates";
+import type { EpisodeMaker } from "../seams/episode-makers";
 import { gateProblems, type StageGate } from "../seams/stage-gates";
 import {
   findEpisode,
@@ -224,3 +226,9 @@ export async function episodeHistory(db: Database, channelId: string, episodeId:
   const moves = entries.length > 0 ? entries : [{ from: null, to: row.stage, at: row.stageEnteredAt.toISOString() }];
   return { entries, timeInStage: timeInStages(moves, new Date()) };
 }
+
+/** The slate's side of the episode-maker seam: a viewer's ask opens an episode in the challenge stage. */
+export const makeViewerEpisode: EpisodeMaker = async (tx, caller, episode) => {
+  const fields = parseBody(episodeFieldsSchema, { ...emptyEpisodeFields, ...episode, origin: "viewer" });
+  return createEpisode(tx, caller, fields);
+};

@@ -21,6 +21,8 @@ export const areas = [
   "cut",
   "publish",
   "money",
+  "intake",
+  "intakePage",
 ] as const;
 export type Area = (typeof areas)[number];
 
@@ -49,6 +51,10 @@ export const grants: Record<Area, Record<Role, Grant>> = {
   publish: { owner: "W", producer: "W", editor: "W", crew: "R" },
   // Costs and income of episodes, margins, the channel's currency and hourly rate.
   money: { owner: "W", producer: "W", editor: "-", crew: "-" },
+  // Viewers' suggestions: any member enters, groups and weighs them (issue 17: "entry by hand by any member").
+  intake: { owner: "W", producer: "W", editor: "W", crew: "W" },
+  // The public suggestion page (on or off, its prompt) and the CSV column mapping speak for the channel.
+  intakePage: { owner: "W", producer: "W", editor: "R", crew: "R" },
 };
 
 export type Need = "R" | "W";

@@ -12,6 +12,7 @@ export const channelNav: NavEntry[] = [
   { path: "home", label: "Home", area: "episodes" },
   { path: "slate", label: "Slate", area: "episodes" },
   { path: "calendar", label: "Calendar", area: "episodes" },
+  { path: "intake", label: "Asks", area: "intake" },
   { path: "shelf", label: "Shelf", area: "bench" },
   { path: "rushes", label: "Rushes", area: "footage" },
   { path: "desk", label: "Desk", area: "deliverables" },

@@ -29,6 +29,9 @@ export const router = createBrowserRouter([
       { path: "/new-password/:token", lazy: page(() => import("../features/auth/components/NewPasswordPage"), (m) => m.NewPasswordPage) },
       { path: "/verify/:token", lazy: page(() => import("../features/auth/components/VerifyEmailPage"), (m) => m.VerifyEmailPage) },
       { path: "/review/:token", lazy: page(() => import("../features/sponsors/components/ReviewPage"), (m) => m.ReviewPage) },
+      { path: "/suggest/:channelId", lazy: page(() => import("../features/intake/components/SuggestPage"), (m) => m.SuggestPage) },
+      { path: "/suggest/confirm/:token", lazy: page(() => import("../features/intake/components/AddressLinkPage"), (m) => m.ConfirmAddressPage) },
+      { path: "/suggest/stop/:token", lazy: page(() => import("../features/intake/components/AddressLinkPage"), (m) => m.StopNewsPage) },
       {
         element: <RequireSignedIn />,
         children: [
@@ -51,6 +54,7 @@ export const router = createBrowserRouter([
                       { path: "slate", lazy: page(() => import("../features/slate/components/SlatePage"), (m) => m.SlatePage) },
                       { path: "slate/schedule", lazy: page(() => import("../features/slate/components/StageLengthsPage"), (m) => m.StageLengthsPage) },
                       { path: "episodes/:episodeId/:part?", lazy: page(() => import("./episode-page"), (m) => m.EpisodePageWithSections) },
+                      { path: "intake/:ideaId?", lazy: page(() => import("../features/intake/components/IntakePage"), (m) => m.IntakePage) },
                       { path: "members", lazy: page(() => import("../features/channels/components/MembersPage"), (m) => m.MembersPage) },
                       { path: "shelf", lazy: page(() => import("../features/bench/components/ShelfPage"), (m) => m.ShelfPage) },
                       { path: "shelf/:partId", lazy: page(() => import("../features/bench/components/PartPage"), (m) => m.PartPage) },

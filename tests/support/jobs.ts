@@ -47,6 +47,7 @@ export function mailJobsTo(pool: pg.Pool, address: string): Promise<JobRecord[]>
     or (data->>'kind' = 'invitation' and data->'data'->>'invitationId' in (select id::text from invitations where lower(email) = lower($2)))
     or (data->>'kind' = 'review-link' and data->'data'->>'linkId' in (select id::text from review_links where lower(contact_email) = lower($2)))
     or (data->>'kind' = 'sponsor-invoice' and data->'data'->>'invoiceId' in (select i.id::text from deal_invoices i join deals d on d.id = i.deal_id join sponsor_contacts c on c.id = d.contact_id where lower(c.email) = lower($2)))
+    or (data->>'kind' in ('intake-confirm', 'intake-news') and data->'data'->>'contactId' in (select id::text from intake_contacts where lower(email) = lower($2)))
   )`;
   return jobsWhere(pool, to, [MAIL_QUEUE, address]);
 }

@@ -17,6 +17,8 @@ const areaLabels: Record<Area, string> = {
   cut: "The cut of a sponsor's segment",
   publish: "Publishing",
   money: "Costs, income and margins of episodes",
+  intake: "Viewers' suggestions: entering, grouping, weighing",
+  intakePage: "The public suggestion page and comment imports",
 };
 
 const grantWords: Record<Grant, string> = { W: "changes", R: "reads", "-": "—" };
