@@ -14,6 +14,8 @@ export interface EpisodeSection {
   id: string;
   title: string;
   Component: ComponentType<EpisodeSectionProps>;
+  /** Starts fetching the part's code, when it is fetched on first opening (a `lazy` component). */
+  preload?: () => Promise<unknown>;
 }
 
 /**
