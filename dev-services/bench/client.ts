@@ -135,7 +135,8 @@ async function main() {
     env: await offlineServerEnv("client", { port: appPort, databaseUrl, clientDist: clientDir }),
   });
   stops.push(() => stopChild(server));
-  await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
+  // Generous: on a loaded machine the server alone can take a minute to start.
+  await waitForHttp(`${appUrl}/api/auth/me`, 180_000);
   const owner = demoAccounts.find((account) => account.role === "owner")!;
   const { cookie } = await signIn(appUrl, { email: owner.email, password: DEMO_PASSWORD });
 
