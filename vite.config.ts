@@ -1,12 +1,30 @@
 import path from "node:path";
-import { defineConfig } from "vite";
+import { defineConfig, type Plugin } from "vite";
 import react from "@vitejs/plugin-react";
 import tailwindcss from "@tailwindcss/vite";
 import { compression } from "vite-plugin-compression2";
 
+/**
+ * The body text's and the headings' faces (Work Sans 400 and 600, latin) are asked for with the page,
+ * not once the stylesheet has been read and the first text laid out; the other weights come when used.
+ */
+function preloadFonts(weights: number[]): Plugin {
+  const wanted = new RegExp(`work-sans-latin-(${weights.join("|")})-normal-[\\w-]+\\.woff2$`);
+  return {
+    name: "kerf-preload-fonts",
+    transformIndexHtml: {
+      order: "post",
+      handler: (_html, context) =>
+        Object.keys(context.bundle ?? {})
+          .filter((file) => wanted.test(file))
+          .map((file) => ({ tag: "link", attrs: { rel: "preload", href: `/${file}`, as: "font", type: "font/woff2", crossorigin: "" }, injectTo: "head" as const })),
+    },
+  };
+}
+
 export default defineConfig({
   // Every text file is also written brotli- and gzip-compressed; the server sends the smallest the browser takes.
-  plugins: [react(), tailwindcss(), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
+  plugins: [react(), tailwindcss(), preloadFonts([400, 600]), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
   resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
   build: { outDir: "dist/client", emptyOutDir: true, chunkSizeWarningLimit: 900 },
   server: {

@@ -1,11 +1,10 @@
-import type { EpisodeSection } from "../lib/episode-sections";
-import { BenchSection } from "../features/bench/components/BenchSection";
-import { BuildLogSection } from "../features/bench/components/BuildLogSection";
-import { TestPlanSheet } from "../features/bench/components/TestPlanSheet";
-import { EpisodeFootage, EpisodeShoot } from "../features/rushes/components/EpisodeRushes";
-import { PublishSection } from "../features/publish/components/PublishSection";
-import { EpisodeDeals } from "../features/sponsors/components/EpisodeDeals";
-import { EpisodeMoney } from "../features/economics/components/EpisodeMoney";
+import { lazy, type ComponentType } from "react";
+import type { EpisodeSection, EpisodeSectionProps } from "../lib/episode-sections";
+
+/** A part's code is fetched when it is first opened (or named in the address: `preload`), not with the page. */
+function lazyPart<M>(load: () => Promise<M>, pick: (module: M) => ComponentType<EpisodeSectionProps>): Pick<EpisodeSection, "Component" | "preload"> {
+  return { Component: lazy(async () => ({ default: pick(await load()) })), preload: load };
+}
 
 /**
  * The parts features add to the episode page, in the order of the episode's path; each id is the
@@ -13,12 +12,12 @@ import { EpisodeMoney } from "../features/economics/components/EpisodeMoney";
  * history and comments last; each feature adds one line here.
  */
 export const episodeSections: EpisodeSection[] = [
-  { id: "test-plan", title: "Test plan", Component: TestPlanSheet },
-  { id: "bench", title: "Bench runs", Component: BenchSection },
-  { id: "build-log", title: "Build log", Component: BuildLogSection },
-  { id: "shoot", title: "Shoot days and shots", Component: EpisodeShoot },
-  { id: "footage", title: "Footage", Component: EpisodeFootage },
-  { id: "sponsor-deals", title: "Sponsor deals", Component: EpisodeDeals },
-  { id: "publish-package", title: "Publish package", Component: PublishSection },
-  { id: "money", title: "Costs and income", Component: EpisodeMoney, area: "money" },
+  { id: "test-plan", title: "Test plan", ...lazyPart(() => import("../features/bench/components/TestPlanSheet"), (m) => m.TestPlanSheet) },
+  { id: "bench", title: "Bench runs", ...lazyPart(() => import("../features/bench/components/BenchSection"), (m) => m.BenchSection) },
+  { id: "build-log", title: "Build log", ...lazyPart(() => import("../features/bench/components/BuildLogSection"), (m) => m.BuildLogSection) },
+  { id: "shoot", title: "Shoot days and shots", ...lazyPart(() => import("../features/rushes/components/EpisodeRushes"), (m) => m.EpisodeShoot) },
+  { id: "footage", title: "Footage", ...lazyPart(() => import("../features/rushes/components/EpisodeRushes"), (m) => m.EpisodeFootage) },
+  { id: "sponsor-deals", title: "Sponsor deals", ...lazyPart(() => import("../features/sponsors/components/EpisodeDeals"), (m) => m.EpisodeDeals) },
+  { id: "publish-package", title: "Publish package", ...lazyPart(() => import("../features/publish/components/PublishSection"), (m) => m.PublishSection) },
+  { id: "money", title: "Costs and income", ...lazyPart(() => import("../features/economics/components/EpisodeMoney"), (m) => m.EpisodeMoney), area: "money" },
 ];

@@ -16,6 +16,8 @@ export interface EpisodeSection {
   Component: ComponentType<EpisodeSectionProps>;
   /** Shown only to roles that may read this area; every member sees a part without one. */
   area?: Area;
+  /** Starts fetching the part's code, when it is fetched on first opening (a `lazy` component). */
+  preload?: () => Promise<unknown>;
 }
 
 /**

@@ -16,7 +16,11 @@ export function AppShell() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
         Skip to content
       </a>
-      {opening && <div role="status" aria-label="Opening the page" className="kerf-appear fixed inset-x-0 top-0 z-50 h-1 bg-amber-cut" />}
+      {/* The region stays in the page so a screen reader hears the words when they appear. */}
+      <p role="status" className="sr-only">
+        {opening ? "Opening the page…" : ""}
+      </p>
+      {opening && <div aria-hidden className="kerf-appear fixed inset-x-0 top-0 z-50 h-1 bg-amber-cut" />}
       <header className="relative bg-graphite-900 text-ply-50">
         <div className="mx-auto flex h-13 max-w-[96rem] items-center gap-4 px-4 sm:h-auto sm:py-2">
           <Wordmark className="text-lg" />

@@ -1,11 +1,11 @@
-import { useEffect, useRef, type ReactNode } from "react";
+import { Suspense, useEffect, useRef, type ReactNode } from "react";
 import { Link, Navigate, useLocation, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import type { EpisodeDetail } from "@shared/slate/schemas";
 import { stageLabels } from "@shared/slate/stages";
 import { Notice } from "../../../components/Notice";
 import { PageHeader } from "../../../components/PageHeader";
-import { QueryState } from "../../../components/States";
+import { Loading, QueryState } from "../../../components/States";
 import { type EpisodeSection, type EpisodeSectionProps, openPart, partFromFragment } from "../../../lib/episode-sections";
 import { useChannel } from "../../../lib/session";
 import { useEpisode } from "../api/get-episode";
@@ -25,6 +25,9 @@ export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
 /** One episode: the header, then one part at a time (the slate's own and each feature's), chosen in the address. */
 function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   const episode = useEpisode(props.channelId, props.episodeId);
+  const { part } = useParams();
+  // The part the address names is fetched beside the episode, not after it.
+  useEffect(() => void props.sections.find((s) => s.id === part)?.preload?.(), [part, props.sections]);
   return (
     <QueryState query={episode} loading="Loading the episode…" page back={{ to: `/c/${props.channelId}/slate`, label: "Slate" }}>
       {(detail) => <EpisodeView {...props} detail={detail} />}
@@ -123,7 +126,7 @@ function PartView({ part }: { part: Part }) {
       <h2 id={`${part.id}-heading`} className="mb-3 text-lg font-semibold">
         {part.title}
       </h2>
-      {part.render()}
+      <Suspense fallback={<Loading label={`Opening ${part.title.toLowerCase()}…`} />}>{part.render()}</Suspense>
     </section>
   );
 }
