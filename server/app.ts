@@ -29,6 +29,7 @@ import type { MailRenderers } from "./mail/mail-jobs";
 import { memberMailRenderer } from "./mail/member-mail";
 import { rushesNeeds } from "./rushes/rushes.needs";
 import { publishRoutes, type PublishPlugs } from "./publish/publish.router";
+import { rushesPublishSource } from "./rushes/rushes.publish";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
@@ -66,7 +67,7 @@ export const slatePlugs: SlatePlugs = {
 
 /** What the publish package drafts from and checks against, and who follows the video going live. */
 export const publishPlugs: PublishPlugs = {
-  sources: [sponsorsPublishSource, benchPublishSource],
+  sources: [sponsorsPublishSource, benchPublishSource, rushesPublishSource],
   goLiveFollowers: [sponsorsFollowGoLive],
 };
 

@@ -59,7 +59,7 @@ function PackageForm({ pkg, channelId, episodeId, canWrite }: { pkg: PublishPack
         }}
       >
         <Titles draft={draft} change={change} canWrite={canWrite} />
-        <Chapters draft={draft} change={change} canWrite={canWrite} />
+        <Chapters draft={draft} change={change} marks={pkg.marks} canWrite={canWrite} />
         <Description draft={draft} change={change} sources={pkg.sources} canWrite={canWrite} />
         <Thumbnails channelId={channelId} episodeId={episodeId} thumbnails={pkg.thumbnails} chosen={draft.thumbnailId} choose={(id) => change({ thumbnailId: id })} canWrite={canWrite} />
         <PublishTime draft={draft} change={change} canWrite={canWrite} />
