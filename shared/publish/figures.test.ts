@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { toCsv } from "../csv/csv";
-import { cellNumber, figuresFromExport, figureValuesSchema, videoKeys, type FigureColumns } from "./figures";
+import { cellNumber, figureSeries, figuresFromExport, figureValuesSchema, formatFigure, videoKeys, type FigureColumns } from "./figures";
 
 // An analytics export as video platforms write one (from memory of the common shape, not from any
 // file): a header row, a "Total" row across the file, then one row per video, numbers with thousands
@@ -40,5 +40,18 @@ describe("figures entered by hand", () => {
     expect(figureValuesSchema.safeParse({ views: -1, watchHours: 1.5, linkClicks: null, codeUses: null }).success).toBe(false);
     expect(figureValuesSchema.safeParse({ views: 1, watchHours: 1.5, linkClicks: 2.5, codeUses: null }).success).toBe(false);
     expect(figureValuesSchema.safeParse({ views: 1, watchHours: 1.5, linkClicks: 2, codeUses: null }).success).toBe(true);
+  });
+});
+
+describe("figures as written and charted", () => {
+  it("groups thousands and keeps a tenth", () => {
+    expect([formatFigure(40001), formatFigure(2500.5), formatFigure(0), formatFigure(1234567.04)]).toEqual(["40,001", "2,500.5", "0", "1,234,567"]);
+  });
+  it("makes one series per figure that has values, by day", () => {
+    const days = [{ day: 7, values: { views: 10, watchHours: null, linkClicks: 2, codeUses: null } }, { day: 30, values: null }];
+    expect(figureSeries(days)).toEqual([
+      { kind: "views", name: "Views", points: [{ label: "Day 7", value: 10 }] },
+      { kind: "linkClicks", name: "Link clicks", points: [{ label: "Day 7", value: 2 }] },
+    ]);
   });
 });

@@ -129,3 +129,18 @@ export function figuresFromExport(text: string, columns: FigureColumns, keys: st
   }
   return { values, row: picked.index + 2, problems };
 }
+
+/** A figure as the pages and the report write it: thousands grouped with commas, a tenth kept where there is one ("40,001", "2,500.5"). */
+export function formatFigure(value: number): string {
+  const [whole = "0", tenth] = (Math.round(value * 10) / 10).toFixed(1).split(".");
+  const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ",");
+  return tenth && tenth !== "0" ? `${grouped}.${tenth}` : grouped;
+}
+
+/** Each figure kind with at least one value, as a series of points by day: what the figures chart draws. */
+export function figureSeries(days: readonly { day: number; values: FigureValues | null }[]): { kind: FigureKind; name: string; points: { label: string; value: number }[] }[] {
+  return figureKinds.flatMap((kind) => {
+    const points = days.flatMap((d) => (d.values?.[kind] == null ? [] : [{ label: `Day ${d.day}`, value: d.values[kind] }]));
+    return points.length === 0 ? [] : [{ kind, name: figureLabels[kind], points }];
+  });
+}
