@@ -43,10 +43,12 @@ import { sponsorNeeds } from "./sponsors/sponsors.needs";
 import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
 import { invoiceMailRenderer } from "./sponsors/invoice-mail";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
-import { reviewTokens } from "./sponsors/review-token";
+import { reportTokens, reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
 import { searchRoutes } from "./search/search.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
+import { reportMailRenderer } from "./sponsors/reports.service";
+import { publishedVideo } from "./publish/publish.video";
 import { startWithDealTemplate } from "./sponsors/templates.service";
 
 /** Settings of one app that are not dependencies (tests tighten them). */
@@ -87,6 +89,7 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
     ...invitationMailRenderer({ db, appUrl }),
     ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
     ...invoiceMailRenderer(db),
+    ...reportMailRenderer({ db, appUrl, tokens: reportTokens(deps.env.SESSION_SECRET) }),
   };
 }
 
@@ -111,7 +114,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
-    ...sponsorsRoutes(deps),
+    ...sponsorsRoutes(deps, publishedVideo),
     ...homeRoutes(db, needSources),
     ...publishRoutes(deps, publishPlugs),
     ...searchRoutes(deps),
