@@ -29,6 +29,7 @@ export const router = createBrowserRouter([
       { path: "/new-password/:token", lazy: page(() => import("../features/auth/components/NewPasswordPage"), (m) => m.NewPasswordPage) },
       { path: "/verify/:token", lazy: page(() => import("../features/auth/components/VerifyEmailPage"), (m) => m.VerifyEmailPage) },
       { path: "/review/:token", lazy: page(() => import("../features/sponsors/components/ReviewPage"), (m) => m.ReviewPage) },
+      { path: "/sponsor-report/:token", lazy: page(() => import("../features/sponsors/components/SponsorReportPage"), (m) => m.SponsorReportPage) },
       {
         element: <RequireSignedIn />,
         children: [
@@ -56,6 +57,7 @@ export const router = createBrowserRouter([
                       { path: "rushes", lazy: page(() => import("../features/rushes/components/RushesPage"), (m) => m.RushesPage) },
                       { path: "shoot-days/:shootDayId", lazy: page(() => import("../features/rushes/components/ShootDayPage"), (m) => m.ShootDayPage) },
                       { path: "desk", lazy: page(() => import("../features/sponsors/components/DeskPage"), (m) => m.DeskPage) },
+                      { path: "deals/:dealId/report", lazy: page(() => import("../features/sponsors/components/ReportPage"), (m) => m.ReportPage) },
                       { path: "sponsors", lazy: page(() => import("../features/sponsors/components/SponsorsPage"), (m) => m.SponsorsPage) },
                     ],
                   },

@@ -15,7 +15,7 @@ export function FiguresChart({ series, format, subject }: { series: FigureSeries
   return (
     <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
       {series.map((s) => (
-        <figure key={s.name} className="min-w-0">
+        <figure key={s.name} className="min-w-0 break-inside-avoid" data-figure-chart>
           <figcaption className="text-sm font-semibold text-graphite-900">{s.name}</figcaption>
           <ChartFrame name={`${s.name} of ${subject}, by day after go-live`} description={s.points.map((p) => `${p.label}: ${format(p.value)}.`).join(" ")} height={200}>
             <FiguresPlot points={s.points} format={format} />
