@@ -39,6 +39,7 @@ import { rushesNeeds } from "./rushes/rushes.needs";
 import { rushesCalendar } from "./rushes/rushes.calendar";
 import { publishCalendar } from "./publish/publish.calendar";
 import { publishRoutes, type PublishPlugs } from "./publish/publish.router";
+import { rushesPublishSource } from "./rushes/rushes.publish";
 import { rushesRoutes } from "./rushes/rushes.router";
 import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
@@ -55,10 +56,12 @@ import { sponsorsCalendar } from "./sponsors/sponsors.calendar";
 import { sponsorsFollowGoLive, sponsorsPublishSource } from "./sponsors/sponsors.publish";
 import { invoiceMailRenderer } from "./sponsors/invoice-mail";
 import { reviewLinkMailRenderer } from "./sponsors/review.service";
-import { reviewTokens } from "./sponsors/review-token";
+import { reportTokens, reviewTokens } from "./sponsors/review-token";
 import { sponsorsFollowPublishDate } from "./sponsors/schedule.service";
 import { searchRoutes } from "./search/search.router";
 import { sponsorsRoutes } from "./sponsors/sponsors.router";
+import { reportMailRenderer } from "./sponsors/reports.service";
+import { publishedVideo } from "./publish/publish.video";
 import { startWithDealTemplate } from "./sponsors/templates.service";
 
 /** Settings of one app that are not dependencies (tests tighten them). */
@@ -82,7 +85,7 @@ export const slatePlugs: SlatePlugs = {
 /** What the publish package drafts from and checks against, and who follows the video going live. */
 export function publishPlugs(deps: Pick<AppDeps, "jobs">): PublishPlugs {
   return {
-    sources: [sponsorsPublishSource, benchPublishSource],
+    sources: [sponsorsPublishSource, benchPublishSource, rushesPublishSource],
     goLiveFollowers: [sponsorsFollowGoLive, intakeFollowsGoLive(deps.jobs)],
   };
 }
@@ -104,6 +107,7 @@ export function mailRenderers(deps: Pick<AppDeps, "env" | "database">): MailRend
     ...reviewLinkMailRenderer({ db, appUrl, tokens: reviewTokens(deps.env.SESSION_SECRET) }),
     ...invoiceMailRenderer(db),
     ...intakeMailRenderers({ db, appUrl, tokens: newsTokens(deps.env.SESSION_SECRET) }),
+    ...reportMailRenderer({ db, appUrl, tokens: reportTokens(deps.env.SESSION_SECRET) }),
   };
 }
 
@@ -134,7 +138,7 @@ export function apiRoutes(deps: AppDeps, options: AppOptions = {}): RouteSpec[] 
     ...slateRoutes(deps, slatePlugs),
     ...benchRoutes(deps),
     ...rushesRoutes(deps),
-    ...sponsorsRoutes(deps),
+    ...sponsorsRoutes(deps, publishedVideo),
     ...homeRoutes(db, needSources),
     ...publishRoutes(deps, publishPlugs(deps)),
     ...searchRoutes(deps),

@@ -1,7 +1,7 @@
 import type { Server } from "node:http";
 import { createApp, mailRenderers } from "./app";
 import { startResultsCardWorker } from "./bench/bench.jobs";
-import { closeCardBrowser } from "./bench/card-picture";
+import { closeSharedBrowser } from "./jobs/chromium";
 import { defaultSignInLimits } from "./auth/rate-limits";
 import { connectDatabase } from "./db/client";
 import { readEnv, type Env } from "./env";
@@ -9,7 +9,10 @@ import { startJobs } from "./jobs/queue";
 import { scheduleMailHousekeeping } from "./mail/housekeeping";
 import { createMailer } from "./mail/mailer";
 import { scheduleRushesJobs, startClipMediaWorkers } from "./rushes/rushes.jobs";
+import { publishedVideo } from "./publish/publish.video";
+import { startSponsorReportWorker } from "./sponsors/report-pdf";
 import { scheduleSponsorJobs } from "./sponsors/reminders";
+import { reportContext } from "./sponsors/sponsors.router";
 import { createS3Storage, storageSettingsFrom } from "./storage/storage";
 
 export interface RunningServer {
@@ -26,6 +29,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
   await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs });
   await startResultsCardWorker(jobs.boss, { db: database.db, storage, jobs, chromiumPath: env.CHROMIUM_PATH });
+  await startSponsorReportWorker(jobs.boss, { ...reportContext({ env, database, storage, jobs }, publishedVideo), chromiumPath: env.CHROMIUM_PATH });
   await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL });
   await scheduleMailHousekeeping(jobs.boss, database.db);
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
@@ -41,7 +45,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
       await drain(server);
       await quiet(database.pool);
       await jobs.stop();
-      await closeCardBrowser();
+      await closeSharedBrowser();
       mailer.close();
       await database.close();
     },

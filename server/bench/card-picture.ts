@@ -1,37 +1,10 @@
 import { readFile } from "node:fs/promises";
 import { createRequire } from "node:module";
-import { type Browser, chromium } from "playwright-core";
 import { CARD_HEIGHT, CARD_WIDTH } from "../../shared/bench/results-card";
+import { sharedBrowser } from "../jobs/chromium";
 
-/**
- * The results card's SVG turned into PNG by Chromium (Debian's, through playwright-core), in a job
- * only: one browser per process, started on the first card and reused, each card on a page of its
- * own with the network shut. Why this way: docs/decisions/0011-results-card-drawn-as-svg.md.
- */
-let browser: Promise<Browser> | null = null;
-
-function sharedBrowser(executablePath: string): Promise<Browser> {
-  if (!browser) {
-    const starting = chromium.launch({ executablePath, args: ["--disable-gpu", "--font-render-hinting=none"] });
-    browser = starting.then(
-      (started) => {
-        started.on("disconnected", () => (browser = null));
-        return started;
-      },
-      (error: unknown) => {
-        browser = null;
-        throw error;
-      },
-    );
-  }
-  return browser;
-}
-
-export async function closeCardBrowser(): Promise<void> {
-  const open = browser;
-  browser = null;
-  if (open) await (await open).close().catch(() => undefined);
-}
+// The results card's SVG turned into PNG by the jobs' shared Chromium, each card on a page of its own
+// with the network shut. Why this way: docs/decisions/0011-results-card-drawn-as-svg.md.
 
 let fontFaces: Promise<string> | null = null;
 

@@ -3,7 +3,7 @@ import { AppError } from "../http/app-error";
 import { lockScope, recordUse, usesSince } from "./quotas.repository";
 
 /** Mail that members cause to be sent to other people (or, for confirmation, to themselves). */
-export type MailPurpose = "invitation" | "review_link" | "invoice" | "mention" | "verification" | "password_reset";
+export type MailPurpose = "invitation" | "review_link" | "sponsor_report" | "invoice" | "mention" | "verification" | "password_reset";
 
 interface Allowance {
   limit: number;
@@ -24,6 +24,7 @@ export const LONGEST_WINDOW_MS = windowMs.day;
 export const mailAllowances: Record<MailPurpose, { account: Allowance; channel?: Allowance }> = {
   invitation: { account: { limit: 30, window: "hour" }, channel: { limit: 60, window: "day" } },
   review_link: { account: { limit: 30, window: "hour" }, channel: { limit: 100, window: "day" } },
+  sponsor_report: { account: { limit: 30, window: "hour" }, channel: { limit: 100, window: "day" } },
   invoice: { account: { limit: 30, window: "hour" }, channel: { limit: 100, window: "day" } },
   mention: { account: { limit: 60, window: "hour" }, channel: { limit: 300, window: "day" } },
   verification: { account: { limit: 3, window: "hour" } },
@@ -34,6 +35,7 @@ export const mailAllowances: Record<MailPurpose, { account: Allowance; channel?:
 const nouns: Record<MailPurpose, string> = {
   invitation: "invitations",
   review_link: "review links",
+  sponsor_report: "sponsor reports",
   invoice: "invoices",
   mention: "mails about mentions",
   verification: "confirmation mails",

@@ -46,6 +46,7 @@ export async function packageView(ctx: PublishContext, db: Queryable, channelId:
     goLiveReason: row?.goLiveReason ?? null,
     thumbnails: thumbnails.views,
     sources: { summary, mentions: facts.mentions, chapters: parseChapters(chapters).chapters, parts: facts.parts, credits: [...facts.credits, ...creditsOf(members)] },
+    marks: facts.marks,
     gate: publishGateProblems({
       chosenTitle: chosenTitle === null ? null : (titles[chosenTitle] ?? null),
       description,

@@ -54,3 +54,14 @@ export async function clipsWithMarks(db: Database, channelId: string, ids: strin
   const rows = ids.length === 0 ? [] : await baseSelect(db).where(and(eq(clips.channelId, channelId), inArray(clips.id, ids)));
   return { rows, marks: rows.length === 0 ? [] : await exportMarks(db, rows.map((row) => row.id)) };
 }
+
+/** The marks of an episode's footage with their clips' rates, clip by clip as recorded, each clip's by in point. */
+export function episodeMarks(db: Executor, channelId: string, episodeId: string, cap: number) {
+  return db
+    .select({ inFrame: clipMarks.inFrame, outFrame: clipMarks.outFrame, note: clipMarks.note, numerator: clips.frameRateNumerator, denominator: clips.frameRateDenominator })
+    .from(clipMarks)
+    .innerJoin(clips, eq(clips.id, clipMarks.clipId))
+    .where(and(eq(clips.channelId, channelId), eq(clips.episodeId, episodeId)))
+    .orderBy(asc(clips.recordedAt), asc(clips.id), asc(clipMarks.inFrame), asc(clipMarks.createdAt))
+    .limit(cap);
+}

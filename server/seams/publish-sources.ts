@@ -1,4 +1,5 @@
 import type { Credit, PaidMention, PartUsed } from "../../shared/publish/description";
+import type { MarkSpan } from "../../shared/publish/markers";
 import type { Queryable } from "../db/client";
 
 /**
@@ -13,6 +14,10 @@ export interface PublishFacts {
   credits: Credit[];
   /** Approvals still open that the video should not go out without, each in plain words. */
   openApprovals: string[];
+  /** The footage's marks in the order its edit decision list lays them: chapters can be taken from them. */
+  marks: MarkSpan[];
+  /** Days after go-live on which a deal asks for the video's figures. */
+  figureDays: number[];
 }
 
 export interface EpisodeRef {
@@ -39,5 +44,7 @@ export async function readPublishFacts(sources: readonly PublishSource[], db: Qu
     parts: parts.flatMap((p) => p.parts ?? []),
     credits: parts.flatMap((p) => p.credits ?? []),
     openApprovals: parts.flatMap((p) => p.openApprovals ?? []),
+    marks: parts.flatMap((p) => p.marks ?? []),
+    figureDays: [...new Set(parts.flatMap((p) => p.figureDays ?? []))].sort((a, b) => a - b),
   };
 }

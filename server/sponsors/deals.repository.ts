@@ -314,3 +314,13 @@ export async function dealsBehindPublishDate(db: Db, channelId: string | null) {
       ),
     );
 }
+
+/** The days after go-live on which the episode's live deals want their figures report. */
+export async function reportDaysOfEpisode(db: Db, channelId: string, episodeId: string): Promise<number[]> {
+  const rows = await db
+    .selectDistinct({ days: deliverables.offsetDays })
+    .from(deliverables)
+    .innerJoin(deals, eq(deals.id, deliverables.dealId))
+    .where(and(eq(deals.channelId, channelId), eq(deals.episodeId, episodeId), ne(deals.state, "cancelled"), eq(deliverables.kind, "report"), eq(deliverables.anchor, "after_go_live")));
+  return rows.map((row) => row.days);
+}

@@ -17,8 +17,14 @@ export interface ReviewTokens {
   verify(token: string): { linkId: string; expiresAt: Date } | null;
 }
 
-export function reviewTokens(secret: string): ReviewTokens {
-  const key = createHmac("sha256", secret).update(LABEL).digest();
+export const reviewTokens = (secret: string): ReviewTokens => signedTokens(secret, LABEL);
+
+/** The sponsor's report: the link mailed to the contact, and the short one its PDF job prints the page through. */
+export const reportTokens = (secret: string) => ({ link: signedTokens(secret, "kerf/sponsor-report/v1"), print: signedTokens(secret, "kerf/sponsor-report-print/v1") });
+
+/** Tokens of the same shape for another purpose: the label keys them apart, so one never stands in for another. */
+export function signedTokens(secret: string, label: string): ReviewTokens {
+  const key = createHmac("sha256", secret).update(label).digest();
   const signature = (payload: string) => createHmac("sha256", key).update(payload).digest("base64url");
   return {
     sign(linkId, expiresAt) {

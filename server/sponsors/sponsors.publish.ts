@@ -1,16 +1,17 @@
 import { isSettled } from "../../shared/sponsors/deliverables";
 import type { GoLiveFollower, PublishSource } from "../seams/publish-sources";
-import { insertEvents, liveDealsOfEpisode, updateDeliverableRow, type Db } from "./deals.repository";
+import { insertEvents, liveDealsOfEpisode, reportDaysOfEpisode, updateDeliverableRow, type Db } from "./deals.repository";
 import { goLiveItems, setGoLiveDate } from "./schedule.repository";
 import { memberActor, redateDeal } from "./schedule.service";
 import { openItemsBeforePublish } from "./sponsors.gates";
 
-/** What the publish package takes from the episode's deals: each paid mention, and approvals still open. */
+/** What the publish package takes from the episode's deals: each paid mention, approvals still open, and the days their figures are due. */
 export const sponsorsPublishSource: PublishSource = {
   name: "sponsors.mentions",
   async read(db, { channelId, episodeId }) {
-    const [found, openApprovals] = await Promise.all([liveDealsOfEpisode(db, channelId, episodeId), openItemsBeforePublish(db, channelId, episodeId)]);
+    const [found, openApprovals, figureDays] = await Promise.all([liveDealsOfEpisode(db, channelId, episodeId), openItemsBeforePublish(db, channelId, episodeId), reportDaysOfEpisode(db, channelId, episodeId)]);
     return {
+      figureDays,
       mentions: found.map((deal) => ({ company: deal.company, disclosure: deal.disclosureText, link: deal.link, code: deal.promoCode })),
       openApprovals,
     };

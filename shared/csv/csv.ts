@@ -1,4 +1,5 @@
-// The browser build of csv-stringify: no Node built-ins, so shared/ stays importable by the client.
+// The browser builds of csv-stringify and csv-parse: no Node built-ins, so shared/ stays importable by the client.
+import { parse } from "csv-parse/browser/esm/sync";
 import { stringify } from "csv-stringify/browser/esm/sync";
 
 export type CsvCell = string | number | null | undefined;
@@ -22,4 +23,14 @@ export function toCsv(rows: readonly (readonly CsvCell[])[]): string {
  */
 export function safeText(value: string): string {
   return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+}
+
+/**
+ * Rows of a CSV file people bring (RFC 4180; a byte-order mark, blank lines and spaces around fields
+ * tolerated): the first row's cells as they are, the rest as lists of cells. Throws with csv-parse's
+ * own words when the file is not CSV.
+ */
+export function readCsvRows(text: string): { header: string[]; rows: string[][] } {
+  const [header = [], ...rows] = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true }) as string[][];
+  return { header, rows };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { frameRates } from "../timecode/rates";
-import { chaptersFromCsv, chaptersFromEdl } from "./markers";
+import { chaptersFromCsv, chaptersFromEdl, chaptersFromMarks } from "./markers";
 
 const at25 = { rate: frameRates["25"], dropFrame: false };
 const at2997df = { rate: frameRates["29.97"], dropFrame: true };
@@ -61,5 +61,31 @@ describe("chapters from a CMX 3600 EDL", () => {
   });
   it("says when a list has no markers", () => {
     expect(chaptersFromEdl("TITLE: X\nFCM: NON-DROP FRAME\n", { format: at25 }).problems).toEqual(['The list has no markers ("* LOC:" lines) to make chapters from.']);
+  });
+});
+
+// Kerf's own marks, laid end to end as the footage's EDL lays its events (record side from the start).
+// 30000/1001 is NTSC's rate (SMPTE ST 12-1): 1800 frames last 60.06 s, so the third mark starts past 1:00.
+describe("chapters from Kerf's marks", () => {
+  const ntsc = frameRates["29.97"];
+  it("starts a chapter at each noted mark, counting the lengths of the marks before it", () => {
+    const spans = [
+      { frames: 250, rate: frameRates["25"], note: "Cold open" },
+      { frames: 100, rate: frameRates["25"], note: "" },
+      { frames: 1800, rate: ntsc, note: "The first spin-up" },
+      { frames: 30, rate: ntsc, note: "Results" },
+    ];
+    expect(chaptersFromMarks(spans)).toEqual({
+      chapters: [
+        { startSeconds: 0, title: "Cold open" },
+        { startSeconds: 14, title: "The first spin-up" },
+        { startSeconds: 74, title: "Results" },
+      ],
+      problems: [],
+    });
+  });
+  it("says so when there are no marks, or none with a note", () => {
+    expect(chaptersFromMarks([]).problems[0]).toMatch(/no marks yet/);
+    expect(chaptersFromMarks([{ frames: 25, rate: frameRates["25"], note: " " }]).problems).toHaveLength(2);
   });
 });

@@ -114,3 +114,30 @@ export function chaptersFromEdl(text: string, options: MarkerOptions): MarkerImp
   if (chapters.length === 0 && problems.length === 0) problems.push('The list has no markers ("* LOC:" lines) to make chapters from.');
   return { chapters: sorted(chapters), problems };
 }
+
+/** One of Kerf's own clip marks, as the footage export lays it on the timeline: its length and its note. */
+export interface MarkSpan {
+  frames: number;
+  rate: { numerator: number; denominator: number };
+  note: string;
+}
+
+/**
+ * Chapters from the episode's marks, laid end to end from 0:00 in the order the footage's edit decision
+ * list places them (each mark one event on the record side): a mark with a note starts a chapter named
+ * by it, a mark without one runs on in the chapter before it.
+ */
+export function chaptersFromMarks(spans: readonly MarkSpan[]): MarkerImport {
+  const chapters: Chapter[] = [];
+  const problems: string[] = [];
+  let at = 0;
+  spans.forEach((span, index) => {
+    const title = span.note.trim();
+    if (title) chapters.push({ startSeconds: Math.floor(at + 1e-9), title });
+    else if (index === 0) problems.push("The first mark has no note, so the first chapter starts at the first mark with one.");
+    at += (span.frames * span.rate.denominator) / span.rate.numerator;
+  });
+  if (spans.length === 0) problems.push("The episode's footage has no marks yet: mark the moments in its footage part first.");
+  else if (chapters.length === 0) problems.push("None of the marks has a note to name a chapter.");
+  return { chapters, problems };
+}

@@ -4,6 +4,7 @@ import { recordedInstantSchema } from "../fields/dates";
 import { multiLine, oneLine } from "../fields/text";
 import type { GateProblem } from "../slate/gates";
 import type { DescriptionParts } from "./description";
+import type { MarkSpan } from "./markers";
 
 export const MAX_TITLE_CANDIDATES = 12;
 /** Kerf keeps text past the platform's limits so the person sees by how much; the limits are checked, not cut. */
@@ -55,5 +56,7 @@ export interface PublishPackageView {
   thumbnails: ThumbnailView[];
   /** What the description is drafted from. */
   sources: DescriptionParts;
+  /** The footage's marks, laid out as the footage's edit decision list lays them: chapters can be taken from them. */
+  marks: MarkSpan[];
   gate: GateProblem[];
 }

@@ -32,6 +32,7 @@ export const router = createBrowserRouter([
       { path: "/suggest/:channelId", lazy: page(() => import("../features/intake/components/SuggestPage"), (m) => m.SuggestPage) },
       { path: "/suggest/confirm/:token", lazy: page(() => import("../features/intake/components/AddressLinkPage"), (m) => m.ConfirmAddressPage) },
       { path: "/suggest/stop/:token", lazy: page(() => import("../features/intake/components/AddressLinkPage"), (m) => m.StopNewsPage) },
+      { path: "/sponsor-report/:token", lazy: page(() => import("../features/sponsors/components/SponsorReportPage"), (m) => m.SponsorReportPage) },
       {
         element: <RequireSignedIn />,
         children: [
@@ -61,6 +62,7 @@ export const router = createBrowserRouter([
                       { path: "rushes", lazy: page(() => import("../features/rushes/components/RushesPage"), (m) => m.RushesPage) },
                       { path: "shoot-days/:shootDayId", lazy: page(() => import("../features/rushes/components/ShootDayPage"), (m) => m.ShootDayPage) },
                       { path: "desk", lazy: page(() => import("../features/sponsors/components/DeskPage"), (m) => m.DeskPage) },
+                      { path: "deals/:dealId/report", lazy: page(() => import("../features/sponsors/components/ReportPage"), (m) => m.ReportPage) },
                       { path: "sponsors", lazy: page(() => import("../features/sponsors/components/SponsorsPage"), (m) => m.SponsorsPage) },
                       { path: "money", lazy: page(() => import("../features/economics/components/MoneyPage"), (m) => m.MoneyPage) },
                     ],

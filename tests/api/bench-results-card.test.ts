@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, seedDemo } from "../../dev-services/demo/channel";
 import { startResultsCardWorker } from "../../server/bench/bench.jobs";
-import { closeCardBrowser } from "../../server/bench/card-picture";
+import { closeSharedBrowser } from "../../server/jobs/chromium";
 import { RESULTS_CARD_QUEUE } from "../../server/bench/results-card.service";
 import { figureIn, plannedUnit } from "../../shared/bench/comparison";
 import { formatNumber } from "../../shared/bench/format";
@@ -29,7 +29,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await app.close();
-  await closeCardBrowser();
+  await closeSharedBrowser();
 });
 
 /** Width and height from a PNG's IHDR chunk: bytes 16–23, big-endian (PNG specification, 3rd ed., 11.2.2 IHDR). */

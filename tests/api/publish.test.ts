@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { buildDescription } from "../../shared/publish/description";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
+import { createClip } from "../factories/rushes";
+import { clipMarks } from "../../server/db/schema/rushes";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 import { png } from "../support/png";
@@ -17,6 +19,11 @@ const upload = (who: Visitor, path: string, name: string, bytes: Buffer) =>
   who.agent.post(path).set("x-csrf-token", who.csrf).field("size", String(bytes.length)).attach("file", bytes, { filename: name, contentType: "image/png" });
 
 const chapters = "0:00 Why this test\n0:30 Building the rig\n1:00 Verdict";
+
+async function settingWithCrew() {
+  const found = await setting();
+  return { ...found, crewed: { crewAgent: await app.signedIn(found.crew) } };
+}
 
 async function setting() {
   const crewed = await createCrewedChannel(app.db, "Publish Bench");
@@ -95,5 +102,48 @@ describe("the publish package", () => {
     expect((await editor.send("put", base, { ...body, thumbnailId: null, timeZone: "Mars/Base" }).expect(400)).body.error.fields.timeZone).toBeTruthy();
     expect((await upload(editor, `${base}/thumbnails`, "c.webp", png(1280, 720)).expect(415)).body.error.message).toMatch(/\.jpg, \.jpeg, \.png or \.gif/);
     expect((await editor.get(base).expect(200)).body.package.version).toBe(0);
+  });
+
+  it("when the footage has marks, then the package offers them laid end to end for chapters", async () => {
+    const { editor, base, channel, episode } = await setting();
+    const first = await createClip(app.db, channel.id, episode.id, { frameRateNumerator: 25, frameRateDenominator: 1, recordedAt: new Date("2027-01-01T10:00:00Z") });
+    const second = await createClip(app.db, channel.id, episode.id, { frameRateNumerator: 25, frameRateDenominator: 1, recordedAt: new Date("2027-01-01T11:00:00Z") });
+    const mark = (clipId: string, inFrame: number, outFrame: number, note: string) => ({ channelId: channel.id, clipId, inFrame, outFrame, inLabel: "", outLabel: "", note });
+    await app.db.insert(clipMarks).values([mark(second.id, 0, 500, "Results"), mark(first.id, 100, 350, "Cold open"), mark(first.id, 400, 650, "")]);
+    const pkg = (await editor.get(base).expect(200)).body.package;
+    expect(pkg.marks).toEqual([
+      { frames: 250, rate: { numerator: 25, denominator: 1 }, note: "Cold open" },
+      { frames: 250, rate: { numerator: 25, denominator: 1 }, note: "" },
+      { frames: 500, rate: { numerator: 25, denominator: 1 }, note: "Results" },
+    ]);
+  });
+});
+
+describe("figures after go-live", () => {
+  it("when the video is live, then the deal's figure days are dated from go-live and figures are kept per day", async () => {
+    const { editor, base, crewed } = await settingWithCrew();
+    const figures = `${base}/figures`;
+    expect((await editor.send("put", `${figures}/30`, { version: 0, source: "hand", values: { views: 5, watchHours: null, linkClicks: null, codeUses: null } }).expect(409)).body.error.message).toMatch(/mark the video published first/);
+    await editor.send("post", `${base}/go-live`, { videoUrl: "https://video.example/watch?v=abc", publishedAt: "2027-03-05T12:00:00Z", reason: "Test" }).expect(200);
+    const before = (await editor.get(figures).expect(200)).body.figures;
+    // The starter template's figures report is 30 days after go-live.
+    expect(before).toMatchObject({ liveOn: "2027-03-05", days: [{ day: 30, dueOn: "2027-04-04", agreed: true, version: 0, values: null }] });
+    const values = { views: 40001, watchHours: 2500.5, linkClicks: 950, codeUses: null };
+    const saved = (await editor.send("put", `${figures}/30`, { version: 0, source: "export", values }).expect(200)).body.figures;
+    expect(saved.days[0]).toMatchObject({ day: 30, version: 1, values, source: "export" });
+    await editor.send("put", `${figures}/7`, { version: 0, source: "hand", values: { ...values, views: 9000 } }).expect(200);
+    expect((await editor.send("put", `${figures}/30`, { version: 0, source: "hand", values }).expect(409)).body.current.days.map((d: { day: number }) => d.day)).toEqual([7, 30]);
+    const refused = await editor.send("put", `${figures}/7`, { version: 1, source: "hand", values: { views: -1, watchHours: null, linkClicks: 1.5, codeUses: null } }).expect(400);
+    expect(Object.keys(refused.body.error.fields)).toEqual(["values.views", "values.linkClicks"]);
+    await editor.send("put", `${figures}/later`, { version: 0, source: "hand", values }).expect(400);
+    expect((await crewed.crewAgent.get(figures).expect(200)).body.figures.days[0].values.views).toBe(9000);
+  });
+
+  it("when a channel names its export's columns, then they are kept for every episode", async () => {
+    const { editor, channel } = await setting();
+    const columns = { video: "Content", views: "Views", watchHours: "Watch time (hours)", linkClicks: null, codeUses: null };
+    await editor.send("put", `/api/channels/${channel.id}/publish/figure-columns`, columns).expect(200);
+    const other = await createEpisode(app.db, channel.id, { title: "Other", stage: "publish" });
+    expect((await editor.get(`/api/channels/${channel.id}/episodes/${other.id}/publish/figures`).expect(200)).body.figures.columns).toEqual(columns);
   });
 });

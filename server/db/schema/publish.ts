@@ -1,6 +1,7 @@
-import { bigint, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import type { FigureColumns } from "../../../shared/publish/figures";
 import { channelRef, personRef } from "./accounts";
-import { createdAt, id, timestamps, version } from "./columns";
+import { createdAt, id, timestamps, updatedAt, version } from "./columns";
 import { episodeRef } from "./slate";
 
 /** An episode's publish package: one row per episode, made on its first save. */
@@ -48,3 +49,30 @@ export const publishThumbnails = pgTable(
   },
   (table) => [index("publish_thumbnails_episode_idx").on(table.channelId, table.episodeId, table.createdAt)],
 );
+
+/** The video's figures on one day after go-live (entered by hand or read from an analytics export). */
+export const publishFigures = pgTable(
+  "publish_figures",
+  {
+    id: id(),
+    channelId: channelRef(),
+    episodeId: episodeRef(),
+    day: integer("day").notNull(),
+    views: bigint("views", { mode: "number" }),
+    watchHours: numeric("watch_hours", { precision: 14, scale: 1, mode: "number" }),
+    linkClicks: bigint("link_clicks", { mode: "number" }),
+    codeUses: bigint("code_uses", { mode: "number" }),
+    source: text("source", { enum: ["hand", "export"] }).notNull(),
+    enteredBy: personRef("entered_by"),
+    version: version(),
+    ...timestamps(),
+  },
+  (table) => [uniqueIndex("publish_figures_day_idx").on(table.channelId, table.episodeId, table.day)],
+);
+
+/** Which columns of the channel's analytics export hold which figure: set once per channel. */
+export const publishFigureColumns = pgTable("publish_figure_columns", {
+  channelId: channelRef().primaryKey(),
+  columns: jsonb("columns").$type<FigureColumns>().notNull(),
+  updatedAt: updatedAt(),
+});

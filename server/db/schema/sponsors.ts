@@ -308,3 +308,30 @@ export const paymentEvents = pgTable(
   },
   (table) => [index("payment_events_invoice_idx").on(table.invoiceId)],
 );
+
+/**
+ * A deal's report to the sponsor: one per deal, its PDF made again on request (in a job), and the
+ * signed link last mailed to the contact (the token is never stored: its expiry here is what it must carry).
+ */
+export const sponsorReports = pgTable(
+  "sponsor_reports",
+  {
+    id: id(),
+    channelId: channelRef(),
+    dealId: uuid("deal_id")
+      .notNull()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    state: text("state", { enum: ["queued", "ready", "failed"] }).notNull(),
+    objectKey: text("object_key"),
+    pages: integer("pages"),
+    sizeBytes: bigint("size_bytes", { mode: "number" }),
+    failure: text("failure"),
+    requestedBy: personRef("requested_by"),
+    madeAt: timestamp("made_at", { withTimezone: true }),
+    sentTo: text("sent_to"),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    linkExpiresAt: timestamp("link_expires_at", { withTimezone: true }),
+    ...timestamps(),
+  },
+  (table) => [uniqueIndex("sponsor_reports_deal_idx").on(table.dealId)],
+);

@@ -10,6 +10,7 @@ import { ok, type AccessContext, type FeatureAccess, type Recipe } from "./matri
  * form's own 400 ("choose a photo").
  */
 const publish = "/api/channels/:channelId/episodes/:episodeId/publish";
+const columns = "/api/channels/:channelId/publish/figure-columns";
 
 export const access: FeatureAccess = {
   rows: [
@@ -19,6 +20,9 @@ export const access: FeatureAccess = {
     [`POST ${publish}/go-live`,                       401,  ok,   ok,   ok,   403,  404],
     [`POST ${publish}/thumbnails`,                    401,  ok,   ok,   ok,   403,  404],
     [`DELETE ${publish}/thumbnails/:thumbnailId`,     401,  ok,   ok,   ok,   403,  404],
+    [`GET ${publish}/figures`,                        401,  ok,   ok,   ok,   ok,   404],
+    [`PUT ${publish}/figures/:day`,                   401,  ok,   ok,   ok,   403,  404],
+    [`PUT ${columns}`,                                401,  ok,   ok,   ok,   403,  404],
   ],
   recipes: publishRecipes,
 };
@@ -49,6 +53,27 @@ function publishRecipes({ app, world }: AccessContext): Record<string, Recipe> {
           intact: async () => expect(await count("publish_packages", "episode_id", episode.id)).toBe(0),
         };
       },
+    },
+    [`GET ${publish}/figures`]: { ok: 200, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
+    [`PUT ${publish}/figures/:day`]: {
+      ok: 200,
+      prepare: async () => {
+        const episode = await freshEpisode();
+        await app.database.pool.query("insert into publish_packages (channel_id, episode_id, time_zone, published_at, video_url) values ($1, $2, 'UTC', now(), 'https://video.example/w')", [channelId, episode.id]);
+        return {
+          params: { episodeId: episode.id, day: "7" },
+          body: { version: 0, source: "hand", values: { views: 10, watchHours: null, linkClicks: null, codeUses: null } },
+          intact: async () => expect(await count("publish_figures", "episode_id", episode.id)).toBe(0),
+        };
+      },
+    },
+    [`PUT ${columns}`]: {
+      ok: 200,
+      prepare: async () => ({
+        ...(await rows("delete from publish_figure_columns where channel_id = $1", [channelId]), {}),
+        body: { video: "Content", views: "Views", watchHours: null, linkClicks: null, codeUses: null },
+        intact: async () => expect(await count("publish_figure_columns", "channel_id", channelId)).toBe(0),
+      }),
     },
     [`POST ${publish}/thumbnails`]: { ok: 400, prepare: async () => ({ params: { episodeId: world.episode.id } }) },
     [`DELETE ${publish}/thumbnails/:thumbnailId`]: {

@@ -1,8 +1,9 @@
 import { randomUUID } from "node:crypto";
 import { addDays } from "date-fns";
 import { expect } from "vitest";
-import { reviewLinks } from "../../../server/db/schema/sponsors";
-import { reviewTokens } from "../../../server/sponsors/review-token";
+import { eq } from "drizzle-orm";
+import { reviewLinks, sponsorReports } from "../../../server/db/schema/sponsors";
+import { reportTokens, reviewTokens } from "../../../server/sponsors/review-token";
 import { actOnInvoice, createInvoice } from "../../../server/sponsors/invoices.service";
 import { paymentsFrom } from "../../../server/sponsors/payments";
 import { suggestedTemplateItems } from "../../../shared/sponsors/deliverables";
@@ -44,6 +45,10 @@ export const access: FeatureAccess = {
     [`POST ${c}/deals/:dealId/review-links`,                     401, ok, ok, 403, 403, 404],
     [`DELETE ${c}/deals/:dealId/review-links/:linkId`,           401, ok, ok, 403, 403, 404],
     ["GET /api/review/:token",                                   ok,  ok, ok, ok,  ok,  ok],
+    [`GET ${c}/deals/:dealId/report`,                            401, ok, ok, ok,  ok,  404],
+    [`POST ${c}/deals/:dealId/report/pdf`,                       401, ok, ok, 403, 403, 404],
+    [`POST ${c}/deals/:dealId/report/send`,                      401, ok, ok, 403, 403, 404],
+    ["GET /api/sponsor-report/:token",                           ok,  ok, ok, ok,  ok,  ok],
     ["POST /api/review/:token/decision",                         ok,  ok, ok, ok,  ok,  ok],
     ["POST /api/review/:token/pins",                             ok,  ok, ok, ok,  ok,  ok],
     [`GET ${c}/deals/:dealId/cut/player`,                        401, ok, ok, ok,  ok,  404],
@@ -86,6 +91,13 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       .values({ channelId, dealId: deal.id, deliverableId: item("script_approval").id, contactId: contact.id, contactName: contact.name, contactEmail: contact.email, sentByName: "Matrix", sentByEmail: "", expiresAt })
       .returning();
     return { link: link!, token: reviewTokens(app.deps.env.SESSION_SECRET).sign(link!.id, expiresAt) };
+  }
+
+  /** A fresh deal whose report PDF is made (its file stands in: the matrix checks who may send it). */
+  async function madeReport() {
+    const { deal } = await freshDeal();
+    const [report] = await app.db.insert(sponsorReports).values({ channelId, dealId: deal.id, state: "ready", objectKey: `${channelId}/reports/${randomUUID()}.pdf`, pages: 1, sizeBytes: 10, madeAt: new Date() }).returning();
+    return { report: report! };
   }
 
   /** A fresh deal's invoice for its whole fee at the payments stand-in, made as the owner and taken as far as `finalised`. */
@@ -297,6 +309,30 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       prepare: async () => {
         const { link } = await openLink();
         return { params: { dealId: link.dealId, linkId: link.id }, intact: async () => expect((await one("select revoked_at from review_links where id = $1", [link.id])).revoked_at).toBeNull() };
+      },
+    },
+    [`GET ${c}/deals/:dealId/report`]: { ok: 200, prepare: async () => ({ params: { dealId: (await freshDeal()).deal.id } }) },
+    [`POST ${c}/deals/:dealId/report/pdf`]: {
+      ok: 202,
+      prepare: async () => {
+        const { deal } = await freshDeal();
+        return { params: { dealId: deal.id }, intact: async () => expect(await one("select count(*)::int as n from sponsor_reports where deal_id = $1", [deal.id])).toEqual({ n: 0 }) };
+      },
+    },
+    [`POST ${c}/deals/:dealId/report/send`]: {
+      ok: 200,
+      prepare: async () => {
+        const { report } = await madeReport();
+        return { params: { dealId: report.dealId }, body: {}, intact: async () => expect((await one("select sent_at from sponsor_reports where id = $1", [report.id])).sent_at).toBeNull() };
+      },
+    },
+    ["GET /api/sponsor-report/:token"]: {
+      ok: 200,
+      prepare: async () => {
+        const { report } = await madeReport();
+        const expiresAt = new Date(Math.floor(addDays(new Date(), 7).getTime() / 1000) * 1000);
+        await app.db.update(sponsorReports).set({ sentTo: "sponsor@example.com", sentAt: new Date(), linkExpiresAt: expiresAt }).where(eq(sponsorReports.id, report.id));
+        return { params: { token: reportTokens(app.deps.env.SESSION_SECRET).link.sign(report.id, expiresAt) } };
       },
     },
     ["GET /api/review/:token"]: { ok: 200, prepare: async () => ({ params: { token: (await openLink()).token } }) },

@@ -2,7 +2,7 @@ import { useState } from "react";
 import { checkChapterText, formatChapters } from "@shared/publish/chapters";
 import { buildDescription, type DescriptionParts } from "@shared/publish/description";
 import { checkDescription, checkTitle, TITLE_MAX_CHARACTERS } from "@shared/publish/limits";
-import { chaptersFromCsv, chaptersFromEdl } from "@shared/publish/markers";
+import { chaptersFromCsv, chaptersFromEdl, chaptersFromMarks, type MarkerImport, type MarkSpan } from "@shared/publish/markers";
 import { frameRateNames, frameRates, type FrameRateName } from "@shared/timecode/rates";
 import { Button } from "../../../components/Button";
 import { SelectField, TextAreaField, TextField } from "../../../components/form-fields";
@@ -81,7 +81,7 @@ export function Description({ draft, change, sources, canWrite }: { draft: Draft
 
 type MarkerKind = "edl" | "csv";
 
-export function Chapters({ draft, change, canWrite }: { draft: Draft; change: (d: Partial<Draft>) => void; canWrite: boolean }) {
+export function Chapters({ draft, change, marks, canWrite }: { draft: Draft; change: (d: Partial<Draft>) => void; marks: MarkSpan[]; canWrite: boolean }) {
   const [rate, setRate] = useState<FrameRateName>("25");
   const [start, setStart] = useState("01:00:00:00");
   const [notes, setNotes] = useState<string[]>([]);
@@ -90,8 +90,10 @@ export function Chapters({ draft, change, canWrite }: { draft: Draft; change: (d
     const kind: MarkerKind = file.name.toLowerCase().endsWith(".edl") ? "edl" : "csv";
     const options = { format: { rate: frameRates[rate], dropFrame: false }, start };
     const text = await file.text();
-    const found = kind === "edl" ? chaptersFromEdl(text, options) : chaptersFromCsv(text, options);
-    setNotes([`${found.chapters.length} chapter${found.chapters.length === 1 ? "" : "s"} read from ${file.name}.`, ...found.problems]);
+    take(kind === "edl" ? chaptersFromEdl(text, options) : chaptersFromCsv(text, options), file.name);
+  }
+  function take(found: MarkerImport, from: string) {
+    setNotes([`${found.chapters.length} chapter${found.chapters.length === 1 ? "" : "s"} read from ${from}.`, ...found.problems]);
     if (found.chapters.length > 0) change({ chapters: formatChapters(found.chapters) });
   }
   return (
@@ -106,6 +108,12 @@ export function Chapters({ draft, change, canWrite }: { draft: Draft; change: (d
             Import markers (.edl or .csv)
             <input type="file" accept=".edl,.csv,text/csv" className="mt-1 block w-full text-sm" onChange={(e) => e.target.files?.[0] && void importFile(e.target.files[0])} />
           </label>
+          <div className="sm:col-span-3">
+            <Button tone="quiet" type="button" onClick={() => take(chaptersFromMarks(marks), "the footage's marks")}>
+              Take from the footage&apos;s marks ({marks.length})
+            </Button>
+            <p className="text-xs text-graphite-500">Each mark with a note starts a chapter, the marks laid end to end as the footage&apos;s edit decision list lays them.</p>
+          </div>
           {notes.length > 0 && (
             <div role="status" className="text-xs text-graphite-700 sm:col-span-3">
               {notes.map((n) => (

@@ -13,6 +13,7 @@ import { useTimeZone } from "../../../lib/session";
 import { usePackage } from "../api/get-package";
 import { useSavePackage } from "../api/save-package";
 import { draftOf, inputOf, type Draft } from "./draft";
+import { Figures } from "./Figures";
 import { GoLive } from "./GoLive";
 import { Chapters, Description, Titles } from "./PackageText";
 import { Thumbnails } from "./Thumbnails";
@@ -59,7 +60,7 @@ function PackageForm({ pkg, channelId, episodeId, canWrite }: { pkg: PublishPack
         }}
       >
         <Titles draft={draft} change={change} canWrite={canWrite} />
-        <Chapters draft={draft} change={change} canWrite={canWrite} />
+        <Chapters draft={draft} change={change} marks={pkg.marks} canWrite={canWrite} />
         <Description draft={draft} change={change} sources={pkg.sources} canWrite={canWrite} />
         <Thumbnails channelId={channelId} episodeId={episodeId} thumbnails={pkg.thumbnails} chosen={draft.thumbnailId} choose={(id) => change({ thumbnailId: id })} canWrite={canWrite} />
         <PublishTime draft={draft} change={change} canWrite={canWrite} />
@@ -78,6 +79,7 @@ function PackageForm({ pkg, channelId, episodeId, canWrite }: { pkg: PublishPack
         )}
       </form>
       <GoLive pkg={pkg} channelId={channelId} episodeId={episodeId} canWrite={canWrite && !dirty} />
+      <Figures channelId={channelId} episodeId={episodeId} title={pkg.chosenTitle === null ? null : (pkg.titles[pkg.chosenTitle] ?? null)} canWrite={canWrite} />
     </div>
   );
 }

@@ -1,3 +1,4 @@
+import { Link } from "react-router-dom";
 import { useState, type ReactNode } from "react";
 import { useForm } from "react-hook-form";
 import { roleMay, type Role } from "@shared/access/roles";
@@ -41,6 +42,11 @@ export function DealCard({ channelId, deal, role }: { channelId: string; deal: D
           {placementLabels[deal.placement]} read · {formatSeconds(deal.segmentSeconds)} contracted
           {deal.contact ? ` · contact ${deal.contact.name}` : ""}
         </span>
+        {deal.episodeId && (
+          <Link className="text-sm font-semibold text-rust-700 underline" to={`/c/${channelId}/deals/${deal.id}/report`}>
+            The sponsor&apos;s report
+          </Link>
+        )}
       </header>
       {deal.money && <MoneyPanel channelId={channelId} deal={deal} value={deal.money} />}
       {deal.money && (
