@@ -60,12 +60,16 @@ export const moneyEntries = pgTable(
 );
 
 /** The rate a member entered for a deal whose fee is in another currency than the channel's. */
-export const dealFeeRates = pgTable("deal_fee_rates", {
-  dealId: uuid("deal_id")
-    .primaryKey()
-    .references(() => deals.id, { onDelete: "cascade" }),
-  channelId: channelRef(),
-  rate: text("rate").notNull(),
-  recordedBy: personRef("recorded_by"),
-  recordedAt: createdAt(),
-});
+export const dealFeeRates = pgTable(
+  "deal_fee_rates",
+  {
+    dealId: uuid("deal_id")
+      .primaryKey()
+      .references(() => deals.id, { onDelete: "cascade" }),
+    channelId: channelRef(),
+    rate: text("rate").notNull(),
+    recordedBy: personRef("recorded_by"),
+    recordedAt: createdAt(),
+  },
+  (table) => [index("deal_fee_rates_channel_idx").on(table.channelId)],
+);

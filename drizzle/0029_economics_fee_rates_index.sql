@@ -1,0 +1,1 @@
+CREATE INDEX "deal_fee_rates_channel_idx" ON "deal_fee_rates" USING btree ("channel_id");
