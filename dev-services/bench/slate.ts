@@ -151,7 +151,8 @@ async function main() {
     env: await offlineServerEnv("slate", { port: appPort, databaseUrl, clientDist: render ? clientDir : path.join(work, "no-client") }),
   });
   stops.push(() => stopChild(server));
-  await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
+  // A loaded machine may take minutes to start a server (its code is compiled as it loads).
+  await waitForHttp(`${appUrl}/api/auth/me`, 180_000);
 
   const owner = await signIn(appUrl, big.owner);
   // As a browser asks: with brotli and gzip accepted (the board sends its kept body compressed; the one-row answer is too small to bother).
