@@ -3,6 +3,7 @@ import { connectDatabase } from "../server/db/client";
 import { migrateDatabase } from "../server/db/migrate";
 import { readEnv } from "../server/env";
 import { startServer } from "../server/index";
+import { startServers } from "../server/workers";
 import { confirmDemoAddresses, DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, isEmpty, seedDemo } from "./demo/channel";
 import { startMailCatcher } from "./mail";
 import { APP_WEBHOOK_PATH, startPaymentsStandIn } from "./payments/server";
@@ -85,7 +86,7 @@ try {
     if ((await run(process.execPath, [path.resolve("node_modules/vite/bin/vite.js"), "build", "--logLevel", "warn"])) !== 0) throw new Error("client build failed");
   }
 
-  const env = readEnv({
+  const settings = {
     ...process.env,
     NODE_ENV: process.env.NODE_ENV ?? "development",
     DATABASE_URL: databaseUrl,
@@ -96,8 +97,9 @@ try {
     SMTP_PORT: String(SMTP_PORT),
     ...(process.env.S3_ENDPOINT ? {} : s3.env),
     ...(process.env.PAYMENTS_API_URL ? {} : payments.env),
-  });
-  const server = await startServer(env);
+  };
+  // One server process per core unless KERF_WORKERS says otherwise; each reads these settings.
+  const server = await startServers(() => startServer(readEnv(settings)), settings);
   stops.push(() => server.stop());
 
   console.log(`

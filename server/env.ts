@@ -1,9 +1,12 @@
+import { availableParallelism } from "node:os";
 import { z } from "zod";
 
 /** Every setting the server reads, checked once at start. Nothing else reads process.env. */
 const envSchema = z.object({
   NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  /** Server processes `npm run serve` and `npm start` run, sharing only PostgreSQL and storage: one per core unless set. */
+  KERF_WORKERS: z.coerce.number().int().min(1).max(64).default(availableParallelism()),
   HOST: z.string().default("127.0.0.1"),
   DATABASE_URL: z.string().url(),
   SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters"),

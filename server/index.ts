@@ -1,3 +1,4 @@
+import cluster from "node:cluster";
 import type { Server } from "node:http";
 import { createApp, mailRenderers } from "./app";
 import { startResultsCardWorker } from "./bench/bench.jobs";
@@ -14,6 +15,7 @@ import { startSponsorReportWorker } from "./sponsors/report-pdf";
 import { scheduleSponsorJobs } from "./sponsors/reminders";
 import { reportContext } from "./sponsors/sponsors.router";
 import { createS3Storage, storageSettingsFrom } from "./storage/storage";
+import { startServers } from "./workers";
 
 export interface RunningServer {
   url: string;
@@ -84,9 +86,11 @@ async function quiet(pool: RunningPool): Promise<void> {
 
 type RunningPool = ReturnType<typeof connectDatabase>["pool"];
 
+// `npm run serve` runs this file: the server processes (server/workers.ts), each of which runs it again as a worker.
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const running = await startServer();
-  console.log(`Kerf is serving ${running.url}`);
+  const worker = cluster.isWorker;
+  const running = worker ? await startServer() : await startServers(() => startServer());
+  if (!worker) console.log(`Kerf is serving ${running.url}`);
   const stop = () => void running.stop().then(() => process.exit(0));
   process.on("SIGINT", stop);
   process.on("SIGTERM", stop);

@@ -19,7 +19,8 @@ import { deeplyNested } from "../../tests/support/server-timing";
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
  * the board, an episode page, the footage list and the producer's desk, and a write (a comment) every
  * tenth request — against a Kerf server of its own on throwaway services. Bounded: each client keeps
- * to a set pace (RATE). A short flat-out run after it shows the ceiling. Last line: one JSON object.
+ * to a set pace (RATE). A short flat-out run after it shows the ceiling, with one server process per
+ * core (as served) and then with one process (`core_scaling` is their ratio). Last line: one JSON object.
  *
  * `npm run bench:load -- --attack` (or BENCH_ATTACK=1): the same, with one more client that sends
  * 6,000-level-deep bodies to the sign-up form as fast as it is answered, all through the paced and the
@@ -66,15 +67,32 @@ async function main() {
   const appUrl = `http://127.0.0.1:${appPort}`;
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(work, "s3"), origins: [appUrl] });
   stops.push(() => s3.stop());
-  // BENCH_PROFILE=<dir> writes the server's CPU profile there when it stops (open it in Chromium's devtools).
-  const profile = process.env.BENCH_PROFILE ? ["--cpu-prof", "--cpu-prof-dir", path.resolve(process.env.BENCH_PROFILE)] : [];
-  const server = spawn(process.execPath, [...profile, "--import", "tsx", "server/index.ts"], {
-    cwd: repoRoot,
-    stdio: ["ignore", "ignore", "inherit"],
-    env: { ...process.env, ...s3.env, NODE_ENV: "production", PORT: String(appPort), APP_URL: appUrl, DATABASE_URL: databaseUrl, SESSION_SECRET: "load-bench-secret-load-bench-secret-00", SMTP_PORT: String(mail.smtpPort) },
-  });
-  stops.push(() => stopChild(server));
-  await waitForHttp(`${appUrl}/api/health`, 60_000);
+  /** `server/index.ts` with `workers` processes (0: one per core, as served), on the shared database. */
+  const startApp = async (workers: number, port: number) => {
+    const url = `http://127.0.0.1:${port}`;
+    // BENCH_PROFILE=<dir> writes the server's CPU profile there when it stops (open it in Chromium's devtools).
+    const profile = process.env.BENCH_PROFILE ? ["--cpu-prof", "--cpu-prof-dir", path.resolve(process.env.BENCH_PROFILE)] : [];
+    const server = spawn(process.execPath, [...profile, "--import", "tsx", "server/index.ts"], {
+      cwd: repoRoot,
+      stdio: ["ignore", "ignore", "inherit"],
+      env: {
+        ...process.env,
+        ...s3.env,
+        NODE_ENV: "production",
+        PORT: String(port),
+        APP_URL: appUrl,
+        DATABASE_URL: databaseUrl,
+        SESSION_SECRET: "load-bench-secret-load-bench-secret-00",
+        SMTP_PORT: String(mail.smtpPort),
+        ...(workers > 0 ? { KERF_WORKERS: String(workers) } : {}),
+      },
+    });
+    stops.push(() => stopChild(server));
+    // A loaded machine may take minutes to start a server (its code is compiled as it loads).
+    await waitForHttp(`${url}/api/health`, 180_000);
+    return { url, stop: () => stopChild(server) };
+  };
+  const all = await startApp(0, appPort);
 
   const clients = await Promise.all(people.map((p) => signIn(appUrl, { email: p.email, password })));
   const base = `/api/channels/${channelId}`;
@@ -122,6 +140,15 @@ async function main() {
   const flatOut = summary(await underAttack(SATURATION_SECONDS, driveFlatOut(appUrl, clients, requestsFor, { seconds: SATURATION_SECONDS })));
   const attacked = ATTACK ? attackSummary(attacks, SECONDS + SATURATION_SECONDS) : null;
 
+  // The same flat-out run against one server process, on the same database: what the other cores add.
+  console.log(`Then flat out for ${SATURATION_SECONDS} s against a server of one process…`);
+  await all.stop();
+  const single = await startApp(1, await freePort());
+  const singleClients = await Promise.all(people.map((p) => signIn(single.url, { email: p.email, password })));
+  await driveFlatOut(single.url, singleClients, requestsFor, { seconds: Math.min(5, SATURATION_SECONDS) });
+  const flatOutOne = summary(await driveFlatOut(single.url, singleClients, requestsFor, { seconds: SATURATION_SECONDS }));
+  await single.stop();
+
   const figures = {
     connections: CONNECTIONS,
     seconds: SECONDS,
@@ -136,6 +163,11 @@ async function main() {
     flat_out_errors: flatOut.errors,
     flat_out_p50_ms: flatOut.p50,
     flat_out_p95_ms: flatOut.p95,
+    workers: os.availableParallelism(),
+    flat_out_rps_all: flatOut.perSecond,
+    flat_out_rps_one: flatOutOne.perSecond,
+    flat_out_one_errors: flatOutOne.errors,
+    core_scaling: Math.round((flatOut.perSecond / Math.max(1, flatOutOne.perSecond)) * 100) / 100,
     ...(attacked && calm
       ? {
           attack_depth: ATTACK_DEPTH,
@@ -158,7 +190,9 @@ paced (${CONNECTIONS} clients × ${RATE}/s):
   target:     zero errors and p95 under 100 ms — ${paced.errors === 0 && paced.p95 < 100 ? "met" : "NOT met"}
 flat out (the ceiling of this machine, server, database and load generator together):
   requests:   ${flatOut.requests} in ${SATURATION_SECONDS} s (${flatOut.perSecond}/s), ${flatOut.errors} errors
-  latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)${
+  latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)
+one server process flat out: ${flatOutOne.perSecond}/s, ${flatOutOne.errors} errors; ${figures.workers} processes: ${flatOut.perSecond}/s
+  core scaling: ${figures.core_scaling} (target >= 1.6 on 2 cores with PostgreSQL and the load on the same machine: ${figures.core_scaling >= 1.6 ? "met" : "NOT met"})${
     attacked && calm
       ? `
 attacker (one client, ${ATTACK_DEPTH}-deep bodies to the sign-up form, flat out through both runs):

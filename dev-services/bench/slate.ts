@@ -22,7 +22,7 @@ import { measureBoardRender } from "./slate-render";
  * - the board endpoint and a one-row endpoint (the channel's stage lengths) through the same
  *   middleware (session, CSRF, membership): 200 requests each, one at a time, for p50 and p95;
  * - both under load (autocannon, several connections) for their requests per second and the ratio;
- * - the board right after a change (a move before each read, so no kept board can answer);
+ * - the board right after a change (a move before each read: the kept board is brought up to date in place);
  * - unless BENCH_RENDER=0: a 500-card board rendered in Debian's Chromium, watching for long frames.
  * The last line is one JSON object.
  */
@@ -151,7 +151,8 @@ async function main() {
     env: await offlineServerEnv("slate", { port: appPort, databaseUrl, clientDist: render ? clientDir : path.join(work, "no-client") }),
   });
   stops.push(() => stopChild(server));
-  await waitForHttp(`${appUrl}/api/auth/me`, 60_000);
+  // A loaded machine may take minutes to start a server (its code is compiled as it loads).
+  await waitForHttp(`${appUrl}/api/auth/me`, 180_000);
 
   const owner = await signIn(appUrl, big.owner);
   // As a browser asks: with brotli and gzip accepted (the board sends its kept body compressed; the one-row answer is too small to bother).
@@ -170,7 +171,7 @@ async function main() {
   const board = await timeSequential(appUrl + boardPath, headers, REQUESTS);
   const oneRow = await timeSequential(appUrl + oneRowPath, headers, REQUESTS);
 
-  // A move before every read: the board's revision changes, so each read builds the cards afresh.
+  // A move before every read: the board's revision changes, so each read brings the kept board up to date.
   let version = movable.version;
   const moveOnce = async () => {
     const response = await fetch(`${appUrl}/api/channels/${big.channel.id}/episodes/${movable.id}/move`, {
@@ -229,7 +230,7 @@ async function main() {
 board (${EPISODES} cards, ${round(board.bytes / 1024, 0)} KiB, ${round(wireBytes / 1024, 0)} KiB as ${wireEncoding}):  p50 ${figures.board_p50_ms} ms, p95 ${figures.board_p95_ms} ms   (target p95 < 50 ms: ${verdict(figures.board_p95_ms < 50)})
 one-row route (stage lengths):      p50 ${figures.one_row_p50_ms} ms, p95 ${figures.one_row_p95_ms} ms
 other features' flag sources:       p50 ${figures.flag_sources_p50_ms} ms of every board load (one query per source)
-board right after a change:         p50 ${figures.board_after_change_p50_ms} ms, p95 ${figures.board_after_change_p95_ms} ms (cards built afresh each time)
+board right after a change:         p50 ${figures.board_after_change_p50_ms} ms, p95 ${figures.board_after_change_p95_ms} ms   (target p95 < 30 ms: ${verdict(figures.board_after_change_p95_ms < 30)})
 throughput:                         board ${figures.board_requests_per_s}/s, one-row ${figures.one_row_requests_per_s}/s, ratio ${figures.throughput_ratio}   (target >= 0.5: ${verdict(figures.throughput_ratio >= 0.5)})${
     rendered
       ? `

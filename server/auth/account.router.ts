@@ -29,7 +29,7 @@ export function accountRoutes(deps: VerificationDeps, limits: SignInLimits): Rou
       method: "post",
       path: "/api/account/email",
       access: anyAccount,
-      before: [currentPasswordRateLimit(limits)],
+      before: [currentPasswordRateLimit(db, limits, "email")],
       handler: async (req, res) => {
         const input = parseBody(emailChangeSchema, req.body);
         res.status(202).json(await requestEmailChange(deps, signedInUser(req), input));
@@ -39,7 +39,7 @@ export function accountRoutes(deps: VerificationDeps, limits: SignInLimits): Rou
       method: "post",
       path: "/api/account/password",
       access: anyAccount,
-      before: [currentPasswordRateLimit(limits)],
+      before: [currentPasswordRateLimit(db, limits, "password")],
       handler: async (req, res) => {
         const input = parseBody(passwordChangeSchema, req.body);
         res.json(await changePassword(db, req, signedInUser(req).id, input));

@@ -20,7 +20,7 @@ export function authRoutes(deps: VerificationDeps & ChannelStarters, limits: Sig
       method: "post",
       path: "/api/auth/sign-in",
       access: publicAccess,
-      before: signInRateLimits(limits),
+      before: signInRateLimits(db, limits),
       handler: async (req, res) => {
         const input = parseBody(signInSchema, req.body);
         const user = await checkCredentials(db, input.email, input.password);
@@ -33,7 +33,7 @@ export function authRoutes(deps: VerificationDeps & ChannelStarters, limits: Sig
       method: "post",
       path: "/api/auth/sign-up",
       access: publicAccess,
-      before: [signUpRateLimit(limits)],
+      before: [signUpRateLimit(db, limits)],
       handler: async (req, res) => {
         const input = parseBody(signUpSchema, req.body);
         const user = await signUp(deps, input);

@@ -13,7 +13,7 @@ export function passwordResetRoutes(deps: VerificationDeps, limits: SignInLimits
       method: "post",
       path: "/api/auth/password-reset",
       access: publicAccess,
-      before: [passwordResetRateLimit(limits)],
+      before: [passwordResetRateLimit(deps.db, limits)],
       handler: async (req, res) => {
         const { email } = parseBody(passwordResetRequestSchema, req.body);
         res.status(202).json(await requestPasswordReset(deps, email));
@@ -23,7 +23,7 @@ export function passwordResetRoutes(deps: VerificationDeps, limits: SignInLimits
       method: "post",
       path: "/api/auth/password-reset/complete",
       access: publicAccess,
-      before: [resetLinkRateLimit(limits)],
+      before: [resetLinkRateLimit(deps.db, limits)],
       handler: async (req, res) => {
         const input = parseBody(passwordResetSchema, req.body);
         await resetPassword(deps, req, input);

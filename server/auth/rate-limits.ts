@@ -1,6 +1,8 @@
 import { rateLimit, ipKeyGenerator, type Options } from "express-rate-limit";
 import type { Request, RequestHandler } from "express";
+import type { Database } from "../db/client";
 import { AppError } from "../http/app-error";
+import { PostgresRateCounters } from "../http/rate-counters";
 
 export interface SignInLimits {
   /** Failed sign-ins allowed for one account from one address in the window. */
@@ -41,14 +43,14 @@ function accountOf(req: Request): string {
  * - per account from everywhere, a far higher ceiling: guessing one account from many addresses. Each
  *   address adds at most `perAccount` to it before its own limit stops it, so reaching it takes
  *   `perAccountEverywhere / perAccount` addresses (twenty by default) working together.
- * Counters live in the instance's memory; behind several instances use a shared store.
+ * Counters live in PostgreSQL, so every server process counts the same tries.
  */
-export function signInRateLimits(limits: SignInLimits): RequestHandler[] {
+export function signInRateLimits(db: Database, limits: SignInLimits): RequestHandler[] {
   const failures = { ...tooManySignIns, windowMs: limits.windowMs, skipSuccessfulRequests: true };
   return [
-    rateLimit({ ...failures, limit: limits.perAddress, keyGenerator: addressOf }),
-    rateLimit({ ...failures, limit: limits.perAccount, keyGenerator: (req) => `${accountOf(req)} from ${addressOf(req)}` }),
-    rateLimit({ ...failures, limit: limits.perAccountEverywhere ?? limits.perAccount * 20, keyGenerator: accountOf }),
+    rateLimit({ ...failures, store: new PostgresRateCounters(db, "sign-in address"), limit: limits.perAddress, keyGenerator: addressOf }),
+    rateLimit({ ...failures, store: new PostgresRateCounters(db, "sign-in account and address"), limit: limits.perAccount, keyGenerator: (req) => `${accountOf(req)} from ${addressOf(req)}` }),
+    rateLimit({ ...failures, store: new PostgresRateCounters(db, "sign-in account"), limit: limits.perAccountEverywhere ?? limits.perAccount * 20, keyGenerator: accountOf }),
   ];
 }
 
@@ -56,8 +58,9 @@ export function signInRateLimits(limits: SignInLimits): RequestHandler[] {
  * Sign-ups per address: each one that makes an account, or finds the address already taken, counts;
  * a form sent back for a mistake (400) does not.
  */
-export function signUpRateLimit(limits: SignInLimits): RequestHandler {
+export function signUpRateLimit(db: Database, limits: SignInLimits): RequestHandler {
   return rateLimit({
+    store: new PostgresRateCounters(db, "sign-up address"),
     ...refusal("Too many sign-ups from this network. Wait a while and try again."),
     windowMs: limits.windowMs,
     limit: limits.signUpsPerAddress ?? 10,
@@ -71,8 +74,9 @@ export function signUpRateLimit(limits: SignInLimits): RequestHandler {
  * "Forgot password" requests per address, every one counted (a mail may go out for each). Each
  * address asked about also has its own allowance of mails (server/mail/quotas.ts).
  */
-export function passwordResetRateLimit(limits: SignInLimits): RequestHandler {
+export function passwordResetRateLimit(db: Database, limits: SignInLimits): RequestHandler {
   return rateLimit({
+    store: new PostgresRateCounters(db, "password link address"),
     ...refusal("Too many requests for password links from this network. Wait a few minutes and try again."),
     windowMs: limits.windowMs,
     limit: limits.resetsPerAddress ?? 10,
@@ -81,8 +85,9 @@ export function passwordResetRateLimit(limits: SignInLimits): RequestHandler {
 }
 
 /** Links tried from one address: a wrong or used one counts, so nobody can guess at tokens for long. */
-export function resetLinkRateLimit(limits: SignInLimits): RequestHandler {
+export function resetLinkRateLimit(db: Database, limits: SignInLimits): RequestHandler {
   return rateLimit({
+    store: new PostgresRateCounters(db, "password link tries"),
     ...refusal("Too many tries from this network. Wait a few minutes and try again."),
     windowMs: limits.windowMs,
     limit: limits.perAddress,
@@ -92,8 +97,9 @@ export function resetLinkRateLimit(limits: SignInLimits): RequestHandler {
 }
 
 /** Wrong current passwords on the account page, per account: a stolen session can't guess the password for long. */
-export function currentPasswordRateLimit(limits: SignInLimits): RequestHandler {
+export function currentPasswordRateLimit(db: Database, limits: SignInLimits, form: "email" | "password"): RequestHandler {
   return rateLimit({
+    store: new PostgresRateCounters(db, `current password on the ${form} form`),
     ...refusal("Too many wrong passwords. Wait a few minutes and try again."),
     windowMs: limits.windowMs,
     limit: limits.perAccount,

@@ -9,6 +9,9 @@ import type { Database } from "../db/client";
  * A source answers for every card of a board load in one query: never one query per card. The board
  * answer is kept until the board revision changes, so the tables a source reads carry the
  * `slate_bump_board_revision` trigger (drizzle/0004_sponsors_board_revision.sql for the sponsors').
+ * After a change to one episode the board reads only that episode's flags again, so an episode's
+ * flags may depend on its own rows and on tables with that trigger (a change there reads the board
+ * whole), never on another episode's rows.
  */
 export interface BoardFlagSource {
   name: string;

@@ -5,7 +5,7 @@ import { callerOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody } from "../http/validate";
 import type { SlatePlugs } from "../seams/slate-plugs";
-import { loadBoard } from "./board.service";
+import { createBoardKeeper } from "./board.service";
 import { episodeTitles } from "./episodes.repository";
 import { peopleOf } from "./slate.repository";
 
@@ -22,6 +22,7 @@ function boardFilters(query: Record<string, unknown>) {
 
 /** The board, and the short lists pickers need: episode titles and the channel's people (the spec's "episodes" row). */
 export function boardRoutes(db: Database, plugs: SlatePlugs): RouteSpec[] {
+  const boards = createBoardKeeper();
   return [
     {
       method: "get",
@@ -31,7 +32,7 @@ export function boardRoutes(db: Database, plugs: SlatePlugs): RouteSpec[] {
         const filters = boardFilters(req.query as Record<string, unknown>);
         // Our preference, not the header's order: browsers list gzip first but brotli is smaller.
         const encoding = (["br", "gzip"] as const).find((name) => req.acceptsEncodings(name) === name) ?? null;
-        const board = await loadBoard(db, plugs, callerOf(req).channelId, callerOf(req), filters, { encoding });
+        const board = await boards.load(db, plugs, callerOf(req).channelId, callerOf(req), filters, { encoding });
         res.set({ ETag: board.etag, "Cache-Control": "private, no-cache", Vary: "Accept-Encoding" }).type("json");
         if (req.fresh) return res.status(304).end();
         if ("encoding" in board) return res.set({ "Content-Encoding": board.encoding, "Content-Length": String(board.body.length) }).end(board.body);

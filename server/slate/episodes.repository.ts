@@ -1,4 +1,4 @@
-import { and, asc, eq, getTableColumns, gt, isNull, lt, max, min, ne, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, type Column, gt, isNull, lt, max, min, ne, sql } from "drizzle-orm";
 import { generateKeyBetween } from "fractional-indexing";
 import type { GateProblem } from "../../shared/slate/gates";
 import type { Stage } from "../../shared/slate/stages";
@@ -6,6 +6,7 @@ import type { Database, Queryable, Transaction as Tx } from "../db/client";
 import { users } from "../db/schema/accounts";
 import { dueOverrides, episodes, stageMoves } from "../db/schema/slate";
 import { nextVersion } from "../db/versions";
+import { episodeIdIn } from "../seams/board-flags";
 
 
 const summaryColumns = {
@@ -21,15 +22,18 @@ const summaryColumns = {
   archivedAt: episodes.archivedAt,
 };
 
-/** What a board card is built from: one row per episode, in board order. */
-export async function boardRows(db: Database, channelId: string, withArchived: boolean) {
+/** What a board card is built from: one row per episode (all of the channel's, or these), in board order. */
+export async function boardRows(db: Database, channelId: string, withArchived: boolean, episodeIds?: string[]) {
   return db
     .select({ ...summaryColumns, tags: episodes.tags, stageEnteredAt: episodes.stageEnteredAt })
     .from(episodes)
     .leftJoin(users, eq(users.id, episodes.ownerId))
-    .where(withArchived ? eq(episodes.channelId, channelId) : and(eq(episodes.channelId, channelId), isNull(episodes.archivedAt)))
+    .where(and(eq(episodes.channelId, channelId), withArchived ? undefined : isNull(episodes.archivedAt), idsIn(episodes.id, episodeIds)))
     .orderBy(asc(episodes.stage), asc(episodes.rank), asc(episodes.id));
 }
+
+/** No condition without ids: the whole channel. */
+const idsIn = (column: Column, episodeIds: string[] | undefined) => (episodeIds ? episodeIdIn(column, episodeIds) : undefined);
 
 /** Every episode that is not archived, by title: what a picker of episodes lists. */
 export async function episodeTitles(db: Database, channelId: string) {
@@ -52,20 +56,21 @@ export async function findEpisode(db: Queryable, channelId: string, episodeId: s
 }
 export type EpisodeRow = NonNullable<Awaited<ReturnType<typeof findEpisode>>>;
 
-export async function overridesOf(db: Queryable, channelId: string, episodeId?: string) {
+/** The due dates set by hand: of the whole channel, or of these episodes. */
+export async function overridesOf(db: Queryable, channelId: string, episodeIds?: string[]) {
   return db
     .select({ episodeId: dueOverrides.episodeId, stage: dueOverrides.stage, dueDate: dueOverrides.dueDate })
     .from(dueOverrides)
-    .where(episodeId ? and(eq(dueOverrides.channelId, channelId), eq(dueOverrides.episodeId, episodeId)) : eq(dueOverrides.channelId, channelId));
+    .where(and(eq(dueOverrides.channelId, channelId), idsIn(dueOverrides.episodeId, episodeIds)));
 }
 
-/** Moves that went past missing essentials: few, so the board reads them all. */
-export async function skippingMoves(db: Queryable, channelId: string, episodeId?: string) {
+/** Moves that went past missing essentials: few, so the board reads them all (or those of these episodes). */
+export async function skippingMoves(db: Queryable, channelId: string, episodeIds?: string[]) {
   const skipped = sql`jsonb_array_length(${stageMoves.skipped}) > 0`;
   return db
     .select({ episodeId: stageMoves.episodeId, toStage: stageMoves.toStage, movedAt: stageMoves.movedAt, skipped: stageMoves.skipped, reason: stageMoves.reason })
     .from(stageMoves)
-    .where(episodeId ? and(eq(stageMoves.channelId, channelId), eq(stageMoves.episodeId, episodeId), skipped) : and(eq(stageMoves.channelId, channelId), skipped));
+    .where(and(eq(stageMoves.channelId, channelId), idsIn(stageMoves.episodeId, episodeIds), skipped));
 }
 
 export async function historyOf(db: Database, channelId: string, episodeId: string) {

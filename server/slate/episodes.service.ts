@@ -194,8 +194,8 @@ export async function episodeDetail(db: Database, flagSources: readonly BoardFla
   const today = localDate(new Date(), timeZone);
   const [state, overrides, skips, external] = await Promise.all([
     slateStateOf(db, channelId),
-    overridesOf(db, channelId, episodeId),
-    skippingMoves(db, channelId, episodeId),
+    overridesOf(db, channelId, [episodeId]),
+    skippingMoves(db, channelId, [episodeId]),
     collectFlags(flagSources, db, channelId, [episodeId], { timeZone, today }),
   ]);
   const dueOverrides: DueOverrides = Object.fromEntries(overrides.map((o) => [o.stage, o.dueDate]));

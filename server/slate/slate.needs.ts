@@ -6,7 +6,7 @@ import type { Database } from "../db/client";
 import { channelPath, type NeedSource, type NeedViewer } from "../seams/home-needs";
 import { gateProblems } from "../seams/stage-gates";
 import type { SlatePlugs } from "../seams/slate-plugs";
-import { buildCards } from "./board.service";
+import { buildCards } from "./board-cards";
 import { slateStateOf } from "./slate.repository";
 
 /** How far ahead a stage's due date brings its next move's essentials onto the home. */

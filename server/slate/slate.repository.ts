@@ -1,9 +1,9 @@
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, gt, lte, sql } from "drizzle-orm";
 import { defaultStageLengths, type StageLengths } from "../../shared/slate/schedule";
 import { channelPeople } from "../db/channel-scope";
 import type { Database } from "../db/client";
 import { users } from "../db/schema/accounts";
-import { episodeComments, slateChannels } from "../db/schema/slate";
+import { episodeComments, slateBoardChanges, slateChannels } from "../db/schema/slate";
 
 /** The board's revision and the channel's stage lengths, in one read: what every board load checks first. */
 export async function slateStateOf(db: Database, channelId: string): Promise<{ revision: number; stageLengths: StageLengths; custom: boolean }> {
@@ -51,4 +51,13 @@ export async function insertComment(db: Database, values: { channelId: string; e
   const [row] = await db.insert(episodeComments).values(values).returning({ id: episodeComments.id, createdAt: episodeComments.createdAt });
   if (!row) throw new Error("comment insert returned nothing");
   return row;
+}
+
+/** What revisions after `after` up to `upTo` changed: one row per revision still noted, in order. */
+export async function boardChangesBetween(db: Database, channelId: string, after: number, upTo: number): Promise<{ revision: number; episodeId: string | null }[]> {
+  return db
+    .select({ revision: slateBoardChanges.revision, episodeId: slateBoardChanges.episodeId })
+    .from(slateBoardChanges)
+    .where(and(eq(slateBoardChanges.channelId, channelId), gt(slateBoardChanges.revision, after), lte(slateBoardChanges.revision, upTo)))
+    .orderBy(asc(slateBoardChanges.revision));
 }

@@ -1,9 +1,12 @@
 import type { TestApp } from "./test-app";
 
-/** Each table's row count and a digest of its rows, but the session store's (sessions roll on each request). */
+/**
+ * Each table's row count and a digest of its rows, but the session store's (sessions roll on each
+ * request) and the rate limits' counters (they count tries, refused ones too).
+ */
 export async function tableFingerprints(app: TestApp): Promise<Map<string, string>> {
   const tables = await app.database.pool.query<{ table_name: string }>(
-    "select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name <> 'session' order by 1",
+    "select table_name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name not in ('session', 'rate_limit_counters') order by 1",
   );
   const fingerprints = new Map<string, string>();
   for (const { table_name } of tables.rows) {
@@ -32,7 +35,7 @@ export async function refuseWritesTo(app: TestApp, table: string): Promise<{ res
   return { restore: async () => void (await pool.query(`drop trigger if exists kerf_test_refuse_write on "${table}"`)) };
 }
 
-/** A fingerprint of every table's rows but the session store's: equal before and after means nothing changed. */
+/** A fingerprint of every table's rows but the session store's and the counters': equal before and after means nothing changed. */
 export async function rowsSnapshot(app: TestApp): Promise<string> {
   return [...(await tableFingerprints(app))].map(([table, fingerprint]) => `${table}:${fingerprint}`).join("\n");
 }

@@ -110,3 +110,20 @@ export const episodeComments = pgTable(
   },
   (table) => [index("episode_comments_episode_idx").on(table.episodeId, table.createdAt)],
 );
+
+/**
+ * What each board revision changed: the episode whose row (or due date) changed, or null when
+ * something else on the board did (sponsor rows behind its flags and filter). Written by the
+ * revision trigger in the same transaction as the change, and pruned by it to the last few hundred
+ * revisions of each channel: a process that keeps a board a few revisions behind re-reads only those
+ * episodes (server/slate/board.service.ts); one further behind, or past a null, builds it whole.
+ */
+export const slateBoardChanges = pgTable(
+  "slate_board_changes",
+  {
+    channelId: uuid("channel_id").notNull(),
+    revision: bigint("revision", { mode: "number" }).notNull(),
+    episodeId: uuid("episode_id"),
+  },
+  (table) => [primaryKey({ columns: [table.channelId, table.revision] })],
+);
