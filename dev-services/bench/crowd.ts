@@ -1,4 +1,5 @@
 import type { Pool, PoolClient } from "pg";
+import { connectDatabase } from "../../server/db/client";
 
 /**
  * The other channels a benchmark's own channel lives among, as on a hosted Kerf: by default 10,000
@@ -160,3 +161,16 @@ export const describeCrowd = (crowd: CrowdFigures) =>
   crowd.channels === 0
     ? "no other channels"
     : `${crowd.channels.toLocaleString("en-GB")} other channels, ${crowd.episodes.toLocaleString("en-GB")} episodes, ${crowd.clips.toLocaleString("en-GB")} clips (seeded in ${crowd.seconds.toFixed(0)} s)`;
+
+/** Seeds the crowd into a migrated database through a connection of its own, saying what it made. */
+export async function seedCrowdInto(databaseUrl: string): Promise<CrowdFigures> {
+  console.log("Seeding the other channels…");
+  const handle = connectDatabase(databaseUrl);
+  try {
+    const crowd = await seedCrowd(handle.pool);
+    console.log(`  ${describeCrowd(crowd)}`);
+    return crowd;
+  } finally {
+    await handle.close();
+  }
+}

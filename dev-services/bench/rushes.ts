@@ -16,7 +16,7 @@ import { repoRoot, stateDir } from "../paths";
 import { percentile, signIn } from "./measure";
 import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
 import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
-import { describeCrowd, seedCrowd } from "./crowd";
+import { seedCrowdInto } from "./crowd";
 import { startS3StandIn } from "../s3";
 
 /**
@@ -115,11 +115,7 @@ async function main() {
   stops.push(() => cluster.stop());
   const url = await ensureDatabase(cluster, "kerf_bench");
   await migrateDatabase(url);
-  console.log("seeding the other channels…");
-  const crowdHandle = connectDatabase(url);
-  const crowd = await seedCrowd(crowdHandle.pool);
-  await crowdHandle.close();
-  console.log(`  ${describeCrowd(crowd)}`);
+  const crowd = await seedCrowdInto(url);
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(work, "s3"), origins: [appUrl] });

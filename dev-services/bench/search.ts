@@ -9,7 +9,8 @@ import { findInChannel } from "../../server/search/search.repository";
 import { searchableAreas } from "../../server/search/search.service";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
-import { ensureDatabase, startCluster } from "../postgres";
+import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
+import { seedCrowdInto } from "./crowd";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
 
@@ -156,13 +157,14 @@ async function timeSaves(pool: pg.Pool, save: (i: number) => Promise<void>) {
 
 async function main() {
   rmSync(work, { recursive: true, force: true });
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true });
+  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
   stops.push(() => {
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   });
   const databaseUrl = await ensureDatabase(cluster, "kerf_bench_search");
   await migrateDatabase(databaseUrl);
+  const crowd = await seedCrowdInto(databaseUrl);
 
   const handle = connectDatabase(databaseUrl);
   stops.push(() => handle.close());
@@ -222,6 +224,9 @@ async function main() {
   });
 
   const figures = {
+    other_channels: crowd.channels,
+    other_episodes: crowd.episodes,
+    other_clips: crowd.clips,
     records_in_channel: counts.mine,
     records_all_channels: counts.all,
     channels: counts.channels,

@@ -12,7 +12,8 @@ import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
 import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
-import { ensureDatabase, startCluster } from "../postgres";
+import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
+import { seedCrowdInto } from "./crowd";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
 
@@ -112,13 +113,14 @@ async function main() {
     if (built !== 0) throw new Error("client build failed");
   }
 
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true });
+  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
   stops.push(() => {
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   });
   const databaseUrl = await ensureDatabase(cluster, "kerf_bench_slate");
   await migrateDatabase(databaseUrl);
+  const crowd = await seedCrowdInto(databaseUrl);
 
   console.log(`Seeding ${EPISODES} episodes with their histories…`);
   const handle = connectDatabase(databaseUrl);
@@ -195,6 +197,9 @@ async function main() {
   }
 
   const figures = {
+    other_channels: crowd.channels,
+    other_episodes: crowd.episodes,
+    other_clips: crowd.clips,
     episodes: EPISODES,
     history_rows: history,
     board_bytes: board.bytes,
