@@ -1,7 +1,6 @@
 import { ideaListQuerySchema, type IdeaSort, type IdeaView, type Judgement, type SuggestionView } from "../../shared/intake/schemas";
 import { combine, combinedScore, dimensions } from "../../shared/intake/weighing";
 import type { Database, Queryable } from "../db/client";
-import { inTransaction } from "../db/transaction";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import type { EpisodeMaker } from "../seams/episode-makers";
@@ -136,7 +135,8 @@ export async function decideIdea(db: Database, caller: Caller, ideaId: string, d
 
 /** The idea becomes an episode in the challenge stage carrying its wording, origin, links and askers. */
 export async function promoteIdea(ctx: IdeasContext, caller: Caller, ideaId: string): Promise<{ idea: IdeaView; episodeId: string }> {
-  return inTransaction(ctx.db, async (tx) => {
+  // Drizzle's own transaction: the episode's insert opens a transaction of its own, a savepoint inside this one.
+  return ctx.db.transaction(async (tx) => {
     await lockedOpen(tx, caller, ideaId);
     const { idea, suggestions } = await ideaDetail(tx, caller, ideaId);
     const episode = await ctx.makeEpisode(tx, caller, viewerEpisode(idea, suggestions, `${ctx.appUrl}/c/${caller.channelId}/intake/${ideaId}`));

@@ -18,7 +18,7 @@ export function pageRoutes(ctx: PageContext): RouteSpec[] {
       method: "post",
       path: `${page}/suggestions`,
       access: publicAccess,
-      bodyLimit: 8_192,
+      bodyLimit: 16_384,
       handler: async (req, res) => res.status(201).json(await submitSuggestion(ctx, pageId(req.params.channelId), req.ip ?? "", req.body)),
     },
     {

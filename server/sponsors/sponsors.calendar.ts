@@ -59,7 +59,7 @@ export const sponsorsCalendar: CalendarSource = {
         ${money ? sql`d.currency` : sql`null::text`} as currency
       from deliverables i join deals d on d.id = i.deal_id join sponsors s on s.id = d.sponsor_id
         left join episodes e on e.id = d.episode_id
-      where i.channel_id = ${viewer.channelId} and d.state <> 'cancelled' and i.due_date between ${window.from} and ${window.to}
+      where i.channel_id = ${viewer.channelId} and d.channel_id = ${viewer.channelId} and d.state <> 'cancelled' and i.due_date between ${window.from} and ${window.to}
         and (e.id is null or e.archived_at is null)
         ${money ? sql`` : sql`and i.kind not in (${moneyList})`}
         ${window.episodeId ? sql`and d.episode_id = ${window.episodeId}` : sql``}

@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import os from "node:os";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { apiRoutes } from "../../server/app";
@@ -41,7 +42,7 @@ describe("deeply nested bodies", () => {
     const timing = timeRequests(app.server);
     try {
       for (const spec of publicWrites) {
-        const path = fillPath(spec.path, { token: "a".repeat(43) });
+        const path = fillPath(spec.path, { token: "a".repeat(43), channelId: randomUUID() });
         const response = await sendJson(anonymous, spec.method as "post", path, body);
         expect(response.status, `${spec.method} ${spec.path}`).toBe(400);
         expect(response.body.error).toMatchObject({ code: "validation_failed", message: expect.stringMatching(/nested/i) });

@@ -27,7 +27,7 @@ export const access: FeatureAccess = {
   recipes: ({ app, world }) => {
     /** A person's live feed in the matrix channel (the one before it ended), made in the database: its secret for the address. */
     const liveFeed = async (userId: string) => {
-      await app.db.update(calendarFeeds).set({ revokedAt: new Date() }).where(and(eq(calendarFeeds.userId, userId), isNull(calendarFeeds.revokedAt)));
+      await app.db.update(calendarFeeds).set({ revokedAt: new Date() }).where(and(eq(calendarFeeds.channelId, world.channel.id), eq(calendarFeeds.userId, userId), isNull(calendarFeeds.revokedAt)));
       const token = randomBytes(32).toString("base64url");
       await app.db.insert(calendarFeeds).values({ channelId: world.channel.id, userId, tokenHash: createHash("sha256").update(token).digest("hex"), scope: "everything" });
       return token;
