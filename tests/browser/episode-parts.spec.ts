@@ -99,7 +99,7 @@ test("at phone size every part of the episode fits the screen, with the parts in
   const partIds = await rail(page)
     .getByRole("link")
     .evaluateAll((links) => links.map((link) => link.getAttribute("href")?.split("/").pop() ?? ""));
-  expect(partIds).toEqual(["overview", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "publish-package", "history", "comments"]);
+  expect(partIds).toEqual(["overview", "test-plan", "bench", "build-log", "shoot", "footage", "sponsor-deals", "publish-package", "money", "history", "comments"]);
 
   for (const part of partIds) {
     await rail(page).locator(`a[href$="/${part}"]`).click();

@@ -21,7 +21,11 @@ export const calendarFeeds = pgTable(
     createdAt: createdAt(),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
   },
-  (t) => [uniqueIndex("calendar_feeds_one_live_idx").on(t.channelId, t.userId).where(sql`${t.revokedAt} is null`)],
+  (t) => [
+    uniqueIndex("calendar_feeds_one_live_idx").on(t.channelId, t.userId).where(sql`${t.revokedAt} is null`),
+    // The account page lists a member's feeds across their channels.
+    index("calendar_feeds_user_idx").on(t.userId),
+  ],
 );
 
 /**

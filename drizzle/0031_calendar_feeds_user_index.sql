@@ -1,0 +1,1 @@
+CREATE INDEX "calendar_feeds_user_idx" ON "calendar_feeds" USING btree ("user_id");
