@@ -22,9 +22,9 @@ export const calendarFeeds = pgTable(
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
   },
   (t) => [
-    uniqueIndex("calendar_feeds_one_live_idx").on(t.channelId, t.userId).where(sql`${t.revokedAt} is null`),
-    // The account page lists a member's feeds across their channels.
-    index("calendar_feeds_user_idx").on(t.userId),
+    // Led by the member: the account page lists a member's feeds across their channels; a channel's
+    // lookup names both columns.
+    uniqueIndex("calendar_feeds_one_live_idx").on(t.userId, t.channelId).where(sql`${t.revokedAt} is null`),
   ],
 );
 

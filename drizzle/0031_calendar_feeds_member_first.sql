@@ -1,0 +1,2 @@
+DROP INDEX "calendar_feeds_one_live_idx";--> statement-breakpoint
+CREATE UNIQUE INDEX "calendar_feeds_one_live_idx" ON "calendar_feeds" USING btree ("user_id","channel_id") WHERE "calendar_feeds"."revoked_at" is null;

@@ -1,1 +1,0 @@
-CREATE INDEX "calendar_feeds_user_idx" ON "calendar_feeds" USING btree ("user_id");
