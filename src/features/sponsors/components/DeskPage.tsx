@@ -145,8 +145,13 @@ function StatusControl({ channelId, item, onSaved }: { channelId: string; item: 
   const update = useUpdateDeliverable(channelId);
   const shown = update.isPending ? (update.variables.input.status ?? item.status) : item.status;
   const id = `desk-status-${item.id}`;
+  // Said through the promise, not mutate's own onSuccess: the saved row may move to another group
+  // (this control unmounts) before that callback would run, and it would then never run.
   const change = (status: DeliverableStatus) =>
-    update.mutate({ id: item.id, input: { status, version: item.version } }, { onSuccess: () => onSaved(`"${item.title}" is now ${deliverableStatusLabels[status].toLowerCase()}.`) });
+    update.mutateAsync({ id: item.id, input: { status, version: item.version } }).then(
+      () => onSaved(`"${item.title}" is now ${deliverableStatusLabels[status].toLowerCase()}.`),
+      () => undefined,
+    );
   return (
     <div className="flex flex-col gap-1">
       <label className="sr-only" htmlFor={id}>
