@@ -76,7 +76,7 @@ async function bulkClient(pool: Pool): Promise<PoolClient> {
 }
 
 /** The channels one connection fills: `share` of WORKERS, by the channel's hash. */
-const ofShare = (column: string) => `(abs(hashtext(${column}::text)) % ${WORKERS}) = $share`;
+const ofShare = (column: string, shareParam: string) => `(abs(hashtext(${column}::text)) % ${WORKERS}) = ${shareParam}`;
 
 async function timed(step: string, work: () => Promise<unknown>) {
   const started = performance.now();
@@ -121,7 +121,7 @@ async function insertEpisodes(client: PoolClient, size: CrowdSize, share: number
        case when i % 3 = 0 then array['batteries'] else '{}'::text[] end,
        current_date + (i % 120) - 20, now() - ((10 + i % 60) || ' days')::interval, now() - ((i % 25) || ' days')::interval
      from memberships m cross join generate_series(1, $1) as i
-     where ${ofShare("m.channel_id").replace("$share", "$2")}`,
+     where ${ofShare("m.channel_id", "$2")}`,
     [size.episodesPerChannel, share],
   );
 }
@@ -135,7 +135,7 @@ async function insertClips(client: PoolClient, size: CrowdSize, share: number) {
      select e.channel_id, e.id, 'crowd/' || e.id || '/' || s.i, 'A' || lpad(s.i::text, 3, '0') || '_take_' || (hashtext(e.id::text) & 255) || '.mov',
        'video/quicktime', 50000000 + s.i, e.created_at + (s.i || ' hours')::interval, 'A', '{}'::text[], 60000
      from episodes e cross join lateral generate_series(1, $1 + case when $2 = 1 and hashtext(e.id::text) % 2 = 0 then 1 else 0 end) as s(i)
-     where ${ofShare("e.channel_id").replace("$share", "$3")}`,
+     where ${ofShare("e.channel_id", "$3")}`,
     [low, everyOther, share],
   );
 }
@@ -145,14 +145,14 @@ async function insertSearchEntries(client: PoolClient, share: number) {
   await client.query(
     `insert into search_documents (kind, record_id, channel_id, episode_id, area, title, body, place)
      select 'episode', e.id, e.channel_id, e.id, 'episodes', e.title, search_lines(e.question, e.why_worth_it, array_to_string(e.tags, ' ')), '{}'::jsonb
-     from episodes e where ${ofShare("e.channel_id").replace("$share", "$1")}`,
+     from episodes e where ${ofShare("e.channel_id", "$1")}`,
     [share],
   );
   await client.query(
     `insert into search_documents (kind, record_id, channel_id, episode_id, area, title, body, place)
      select 'clip', c.id, c.channel_id, c.episode_id, 'footage', c.file_name,
        search_lines(search_words_of(c.file_name), array_to_string(c.tags, ' '), c.camera, c.notes), '{}'::jsonb
-     from clips c where ${ofShare("c.channel_id").replace("$share", "$1")}`,
+     from clips c where ${ofShare("c.channel_id", "$1")}`,
     [share],
   );
 }
