@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { DESK, expectFitsPhone, hostWithEpisode, member, PHONE, signIn, snap, uniqueEmail } from "./support";
+import { DESK, expectFitsPhone, hostWithEpisode, member, PHONE, signIn, signedEuroDeal, snap } from "./support";
 
 test.setTimeout(240_000);
 
@@ -11,32 +11,7 @@ test("a producer records a cost, invoices a deal, the sponsor pays, and the marg
   });
   const producerPerson = await member(channelId, "Arvo Lepik", "producer");
   const editorPerson = await member(channelId, "Ilze Berzina", "editor");
-  const post = async (url: string, data: object) => {
-    const answer = await page.request.post(`/api/channels/${channelId}${url}`, { headers: { "x-csrf-token": csrfToken }, data });
-    expect(answer.status(), `${url}: ${await answer.text()}`).toBe(201);
-    return answer.json();
-  };
-  const { sponsor } = await post("/sponsors", { company: "Kalnins Joinery Supply", website: "", notes: "" });
-  const { contact } = await post(`/sponsors/${sponsor.id}/contacts`, { name: "Liga Ozola", email: uniqueEmail("payables"), role: "Accounts" });
-  await post("/deals", {
-    episodeId,
-    sponsorId: sponsor.id,
-    templateId: null,
-    state: "signed",
-    placement: "middle",
-    segmentSeconds: 60,
-    talkingPoints: [],
-    link: null,
-    promoCode: null,
-    disclosureText: null,
-    exclusivityNotes: null,
-    descriptionCopy: null,
-    script: "",
-    contactId: contact.id,
-    hostId: null,
-    goLiveDate: null,
-    money: { fee: "1,800.50", currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
-  });
+  await signedEuroDeal(page, { channelId, episodeId, csrfToken }, { company: "Kalnins Joinery Supply", contact: "Liga Ozola" });
 
   // The producer records what the timber cost on the episode's money part.
   const producer = await signIn(browser, producerPerson.email);

@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { hostWithEpisode, member, signIn, snap, uniqueEmail } from "./support";
+import { hostWithEpisode, member, signIn, signedEuroDeal, snap } from "./support";
 
 test.setTimeout(240_000);
 
@@ -11,32 +11,7 @@ test("a producer invoices a deal, the sponsor pays on the provider's page, the d
   });
   const producerPerson = await member(channelId, "Nils Ekdahl", "producer");
   const editorPerson = await member(channelId, "Mira Solberg", "editor");
-  const post = async (url: string, data: object) => {
-    const answer = await page.request.post(`/api/channels/${channelId}${url}`, { headers: { "x-csrf-token": csrfToken }, data });
-    expect(answer.status(), `${url}: ${await answer.text()}`).toBe(201);
-    return answer.json();
-  };
-  const { sponsor } = await post("/sponsors", { company: "Brekke Clampworks", website: "", notes: "" });
-  const { contact } = await post(`/sponsors/${sponsor.id}/contacts`, { name: "Sigrid Moe", email: uniqueEmail("payables"), role: "Accounts" });
-  await post("/deals", {
-    episodeId,
-    sponsorId: sponsor.id,
-    templateId: null,
-    state: "signed",
-    placement: "middle",
-    segmentSeconds: 60,
-    talkingPoints: [],
-    link: null,
-    promoCode: null,
-    disclosureText: null,
-    exclusivityNotes: null,
-    descriptionCopy: null,
-    script: "",
-    contactId: contact.id,
-    hostId: null,
-    goLiveDate: null,
-    money: { fee: "1,800.50", currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
-  });
+  await signedEuroDeal(page, { channelId, episodeId, csrfToken }, { company: "Brekke Clampworks", contact: "Sigrid Moe" });
 
   // The producer invoices the whole fee from the deal, by keyboard where a person would type.
   const producer = await signIn(browser, producerPerson.email);

@@ -204,3 +204,33 @@ export async function dealWithReviewLink(page: Page, channelId: string, episodeI
   const { url } = await post(`/deals/${deal.id}/review-links`, { deliverableId: deal.deliverables[0].id, contactId: contact.id });
   return url as string;
 }
+
+/** A signed deal on the episode with a fee of EUR 1,800.50 at 30 days from invoice, its sponsor and payables contact made through the API. */
+export async function signedEuroDeal(page: Page, at: { channelId: string; episodeId: string; csrfToken: string }, names: { company: string; contact: string }) {
+  const post = async (url: string, data: object) => {
+    const answer = await page.request.post(`/api/channels/${at.channelId}${url}`, { headers: { "x-csrf-token": at.csrfToken }, data });
+    expect(answer.status(), `${url}: ${await answer.text()}`).toBe(201);
+    return answer.json();
+  };
+  const { sponsor } = await post("/sponsors", { company: names.company, website: "", notes: "" });
+  const { contact } = await post(`/sponsors/${sponsor.id}/contacts`, { name: names.contact, email: uniqueEmail("payables"), role: "Accounts" });
+  await post("/deals", {
+    episodeId: at.episodeId,
+    sponsorId: sponsor.id,
+    templateId: null,
+    state: "signed",
+    placement: "middle",
+    segmentSeconds: 60,
+    talkingPoints: [],
+    link: null,
+    promoCode: null,
+    disclosureText: null,
+    exclusivityNotes: null,
+    descriptionCopy: null,
+    script: "",
+    contactId: contact.id,
+    hostId: null,
+    goLiveDate: null,
+    money: { fee: "1,800.50", currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
+  });
+}
