@@ -1,14 +1,22 @@
-import { type FactoryFunctionMap, create, createUnitDependencies, unitDependencies } from "mathjs";
+import { type FactoryFunctionMap, type MathJsInstance, create, createUnitDependencies, unitDependencies } from "mathjs";
 import { z } from "zod";
 
-// A private mathjs instance, so the units defined here never leak into anyone else's mathjs.
-// The cast: mathjs types its dependency maps as a Record, which noUncheckedIndexedAccess reads
-// as possibly undefined; both exist at run time.
-const benchMath = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
+let math: MathJsInstance | undefined;
 
-// Gram-force is not built into mathjs (kilogram-force is). 1 gf = g_n × 1 g with
-// g_n = 9.80665 m/s² exact (3rd CGPM, 1901; NIST SP 811 (2008), Appendix B.8).
-benchMath.createUnit("gf", { definition: "0.00980665 N" });
+/**
+ * A private mathjs instance, so the units defined here never leak into anyone else's mathjs. Made on
+ * the first conversion, not on import: building its typed functions is a long task on a slow phone,
+ * and most pages that import these schemas never convert. The cast: mathjs types its dependency maps
+ * as a Record, which noUncheckedIndexedAccess reads as possibly undefined; both exist at run time.
+ */
+function benchMath(): MathJsInstance {
+  if (math) return math;
+  math = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
+  // Gram-force is not built into mathjs (kilogram-force is). 1 gf = g_n × 1 g with
+  // g_n = 9.80665 m/s² exact (3rd CGPM, 1901; NIST SP 811 (2008), Appendix B.8).
+  math.createUnit("gf", { definition: "0.00980665 N" });
+  return math;
+}
 
 /** The units a bench measurement may be written in, grouped by what they measure. */
 export const unitsByDimension = {
@@ -98,7 +106,7 @@ export function areCompatible(a: string, b: string): boolean {
   assertKnownUnit(a);
   assertKnownUnit(b);
   if (a === RATIO_UNIT || b === RATIO_UNIT) return a === b;
-  return benchMath.unit(1, a).equalBase(benchMath.unit(1, b));
+  return benchMath().unit(1, a).equalBase(benchMath().unit(1, b));
 }
 
 /** Converts a quantity to another unit; throws UnitError for unknown or incompatible units. */
@@ -108,7 +116,7 @@ export function convertQuantity(quantity: Quantity, toUnit: string): Quantity {
   }
   // Skipping mathjs on an identity keeps 2000 gf from coming back as 1999.9999999999998 gf.
   if (quantity.unit === toUnit) return { ...quantity };
-  return { value: benchMath.unit(quantity.value, quantity.unit).toNumber(toUnit), unit: toUnit };
+  return { value: benchMath().unit(quantity.value, quantity.unit).toNumber(toUnit), unit: toUnit };
 }
 
 export function valueIn(quantity: Quantity, unit: string): number {

@@ -24,13 +24,16 @@ const INVISIBLE = /[\p{Default_Ignorable_Code_Point}\p{White_Space}\u2800]/gu;
 const NOT_PLAIN = /[\u0000-\u001F\u007F-\u009F\u2028\u2029\u202A-\u202E\u2066-\u2069]+/g;
 const LONE_SURROGATES = new RegExp(LONE_SURROGATE.source, "g");
 
+// One formatter for every field: toLocaleString builds a new one per call, and schemas are built by the hundred at load.
+const wholeNumber = new Intl.NumberFormat("en");
+
 export const textMessages = {
   control: "Remove the control character (such as a tab or an escape code) from this text.",
   lineBreak: "Keep this to one line.",
   bidi: "Remove the hidden characters that change the text's direction.",
   broken: "This text holds a broken character; type it again.",
   invisible: "This holds only invisible characters: clear it or type some text.",
-  tooLong: (max: number) => `Keep this under ${max.toLocaleString("en")} characters.`,
+  tooLong: (max: number) => `Keep this under ${wholeNumber.format(max)} characters.`,
 } as const;
 
 /** Is there a character a reader can see? */
