@@ -26,7 +26,8 @@ export default defineConfig({
   // Every text file is also written brotli- and gzip-compressed; the server sends the smallest the browser takes.
   plugins: [react(), tailwindcss(), preloadFonts([400, 600]), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
   resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
-  build: { outDir: "dist/client", emptyOutDir: true, chunkSizeWarningLimit: 900 },
+  // The manifest tells the server which files each page's code is (server/http/page-preloads.ts).
+  build: { outDir: "dist/client", emptyOutDir: true, chunkSizeWarningLimit: 900, manifest: true },
   server: {
     host: "127.0.0.1",
     port: 5173,

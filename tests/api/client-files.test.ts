@@ -11,12 +11,19 @@ import { IMMUTABLE, REVALIDATE, serveClient } from "../../server/http/client-fil
 function builtClient(): string {
   const dist = mkdtempSync(path.join(tmpdir(), "kerf-client-"));
   mkdirSync(path.join(dist, "assets"));
-  writeFileSync(path.join(dist, "index.html"), "<!doctype html><title>Kerf</title>");
+  writeFileSync(path.join(dist, "index.html"), "<!doctype html><html><head><title>Kerf</title></head><body></body></html>");
   const script = "console.log('kerf');\n".repeat(200);
   writeFileSync(path.join(dist, "assets", "index-abc123.js"), script);
   writeFileSync(path.join(dist, "assets", "index-abc123.js.br"), brotliCompressSync(script));
   writeFileSync(path.join(dist, "assets", "index-abc123.js.gz"), gzipSync(script));
   writeFileSync(path.join(dist, "favicon.svg"), "<svg xmlns='http://www.w3.org/2000/svg'/>");
+  mkdirSync(path.join(dist, ".vite"));
+  const manifest = {
+    "index.html": { file: "assets/index-abc123.js", isEntry: true },
+    "src/app/layouts/AppShell.tsx": { file: "assets/AppShell-def456.js", imports: ["index.html"] },
+    "src/features/slate/components/SlatePage.tsx": { file: "assets/SlatePage-789abc.js", imports: ["index.html"] },
+  };
+  writeFileSync(path.join(dist, ".vite", "manifest.json"), JSON.stringify(manifest));
   return dist;
 }
 
@@ -47,6 +54,20 @@ describe("the built client's files", () => {
       expect(res.status).toBe(200);
       expect(res.headers["cache-control"]).toBe(REVALIDATE);
     }
+  });
+
+  it("asks for a page's own code in its index.html, and only that page's", async () => {
+    const slate = await request(app).get("/c/x/slate");
+    expect(slate.headers["content-type"]).toMatch(/html/);
+    expect(slate.text).toContain('<link rel="modulepreload" crossorigin href="/assets/SlatePage-789abc.js">');
+    expect(slate.text).toContain('href="/assets/AppShell-def456.js"');
+    expect(slate.text).not.toContain('href="/assets/index-abc123.js"');
+    const other = await request(app).get("/c/x/nowhere");
+    expect(other.text).not.toContain("modulepreload");
+  });
+
+  it("does not serve the build's manifest", async () => {
+    expect((await request(app).get("/.vite/manifest.json")).text).not.toContain("SlatePage");
   });
 
   it("leaves /api paths to the API", async () => {
