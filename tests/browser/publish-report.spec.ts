@@ -66,6 +66,8 @@ test("after go-live the producer enters the figures, makes the sponsor's report 
   await producer.getByRole("navigation", { name: "Parts of the episode" }).getByRole("link", { name: "Sponsor deals" }).click();
   await producer.locator("#sponsor-deals").getByRole("link", { name: "The sponsor's report" }).click();
   await expect(producer.getByRole("heading", { name: "The sponsor's report" })).toBeVisible();
+  // The figures items are what this report delivers: until it is sent, the report (and its PDF) says so rather than "not started".
+  await expect(producer.getByRole("listitem").filter({ hasText: "Figures at 30 days" })).toContainText("in this report");
   await producer.getByRole("button", { name: "Make the PDF" }).click();
   // The job prints the sponsor's page in Chromium; the page looks again until the job has finished.
   await expect(producer.getByRole("status").filter({ hasText: /^PDF ready: \d+ pages?/ })).toBeVisible({ timeout: 120_000 });
