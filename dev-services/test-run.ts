@@ -130,6 +130,9 @@ const paymentsTestEnv = (payments: Awaited<ReturnType<typeof startPayments>>) =>
   KERF_TEST_PAYMENTS_WEBHOOK_SECRET: payments.webhookSecret,
 });
 
+/** The browser tests' server signs its links with this; the tests sign an expired one with it too. */
+const BROWSER_SESSION_SECRET = "browser-test-secret-browser-test-secret";
+
 async function browserTests(clusterUrl: string, cluster: ReturnType<typeof startCluster>, mail: { smtpPort: number; webUrl: string }) {
   const databaseUrl = await ensureDatabase(cluster, "kerf_e2e", "kerf_template");
   const port = await freePort();
@@ -146,7 +149,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       PORT: String(port),
       APP_URL: appUrl,
       DATABASE_URL: databaseUrl,
-      SESSION_SECRET: "browser-test-secret-browser-test-secret",
+      SESSION_SECRET: BROWSER_SESSION_SECRET,
       SMTP_PORT: String(mail.smtpPort),
       // Every browser test signs its people up from this one address.
       SIGN_UPS_PER_ADDRESS: "1000",
@@ -162,6 +165,7 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
     KERF_E2E_URL: appUrl,
     KERF_TEST_CLUSTER_URL: clusterUrl,
     KERF_E2E_DATABASE_URL: databaseUrl,
+    KERF_E2E_SESSION_SECRET: BROWSER_SESSION_SECRET,
     KERF_TEST_MAIL_WEB_URL: mail.webUrl,
     KERF_TEST_S3_ENDPOINT: s3.endpoint,
     KERF_TEST_S3_BUCKET: s3.bucket,

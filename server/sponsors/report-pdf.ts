@@ -9,6 +9,8 @@ import { type ReportContext, reportUrl, SPONSOR_REPORT_QUEUE } from "./reports.s
 /** The page the PDF is printed from may take this long to load and draw its charts. */
 const PAGE_MS = 30_000;
 const PRINT_TOKEN_MS = 5 * 60_000;
+/** Chromium prints the footer as a page of its own, without the app's fonts or styles: it states its own. */
+const FOOTER = `<div style="width:100%;margin:0 12mm;font:8px sans-serif;color:#5b6567;text-align:right">Page <span class="pageNumber"></span> of <span class="totalPages"></span></div>`;
 
 export interface ReportJob {
   channelId: string;
@@ -30,7 +32,14 @@ async function printReport(ctx: ReportContext & { chromiumPath: string }, report
     // Every chart drawn: each figures chart holds its library's drawing surface.
     await page.waitForFunction(() => [...document.querySelectorAll("[data-figure-chart]")].every((c) => c.querySelector("svg.recharts-surface")), undefined, { timeout: PAGE_MS });
     await page.evaluate(() => document.fonts.ready.then(() => undefined));
-    return await page.pdf({ format: "A4", printBackground: true, margin: { top: "14mm", bottom: "14mm", left: "12mm", right: "12mm" } });
+    return await page.pdf({
+      format: "A4",
+      printBackground: true,
+      displayHeaderFooter: true,
+      headerTemplate: "<span></span>",
+      footerTemplate: FOOTER,
+      margin: { top: "14mm", bottom: "16mm", left: "12mm", right: "12mm" },
+    });
   } finally {
     await context.close();
   }

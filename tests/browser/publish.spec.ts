@@ -1,17 +1,9 @@
-import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { expectFitsPhone, hostWithEpisode, snap, sql } from "./support";
+import { expectFitsPhone, hostWithEpisode, snap, sponsoredDeal, sql } from "./support";
 import { png } from "../support/png";
 
 test.setTimeout(180_000);
-
-/** A call that must succeed: the journey starts only on a setup the product itself would make. */
-async function call(request: APIRequestContext, url: string, headers: Record<string, string>, data: object, status: number) {
-  const answer = await request.post(url, { headers, data });
-  expect(answer.status(), `POST ${url}: ${await answer.text()}`).toBe(status);
-  return answer.json();
-}
-
 
 // A CMX 3600 list as SMPTE 258M describes it, with "* LOC:" marker comments (the form OpenTimelineIO's
 // cmx_3600 adapter reads); the programme starts at the first event's record in, 01:00:00:00.
@@ -31,17 +23,7 @@ test("an episode in publish gets its package, passes the gate, and going live st
     host: { name: "Ines Halloran", channel: "Tidewater Test Bench" },
     episode: { title: "Three packs, one bench", question: "Which pack holds 5 A longest?", origin: "sponsor", stage: "publish", targetPublishDate: "2027-03-02" },
   });
-  const headers = { "x-csrf-token": csrfToken };
-  const base = `/api/channels/${channelId}`;
-  const { sponsor } = await call(page.request, `${base}/sponsors`, headers, { company: "Kestrel Cells", website: null, notes: null }, 201);
-  const { deal } = await call(page.request, `${base}/deals`, headers, {
-    episodeId, sponsorId: sponsor.id, templateId: null, state: "signed", placement: "middle", segmentSeconds: 45, talkingPoints: [],
-    link: "https://kestrel.example/bench", promoCode: "TIDE10", disclosureText: "Paid partnership with Kestrel Cells.", exclusivityNotes: null, descriptionCopy: null,
-    script: "This video is sponsored by Kestrel Cells.", contactId: null, hostId: null, goLiveDate: null,
-    money: { fee: 900, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
-  }, 201);
-  await call(page.request, `${base}/deals/${deal.id}/deliverables`, headers, { kind: "go_live", title: "Video goes live", anchor: "after_go_live", offsetDays: 0 }, 201);
-  await call(page.request, `${base}/deals/${deal.id}/deliverables`, headers, { kind: "report", title: "Figures at 30 days", anchor: "after_go_live", offsetDays: 30 }, 201);
+  const { dealId } = await sponsoredDeal(page, { channelId, episodeId, csrfToken }, { company: "Kestrel Cells", link: "https://kestrel.example/bench", code: "TIDE10", contact: null, talkingPoints: [], figureDays: [30] });
 
   await page.goto(`/c/${channelId}/episodes/${episodeId}`);
   // The episode page first (on a loaded machine it can take a while), then its publish part.
@@ -90,7 +72,7 @@ test("an episode in publish gets its package, passes the gate, and going live st
     `select d.go_live_date::text as live, r.due_date::text as report, g.status::text as status
        from deals d join deliverables r on r.deal_id = d.id and r.kind = 'report' join deliverables g on g.deal_id = d.id and g.kind = 'go_live'
       where d.id = $1`,
-    [deal.id],
+    [dealId],
   );
   expect(dated!.live).not.toBeNull();
   expect(dated!.status).toBe("done");

@@ -168,6 +168,42 @@ export async function hostWithEpisode(page: Page, { host, episode }: HostAndEpis
   return { channelId, episodeId: made.id, csrfToken };
 }
 
+/** A channel's API as its signed-in member calls it: a refusal fails the test, naming the route and the server's answer. */
+export function channelApi(page: Page, at: { channelId: string; csrfToken: string }) {
+  return async (method: "post" | "put", url: string, data: object, status = 201) => {
+    const answer = await page.request[method](`/api/channels/${at.channelId}${url}`, { headers: { "x-csrf-token": at.csrfToken }, data });
+    expect(answer.status(), `${method.toUpperCase()} ${url}: ${await answer.text()}`).toBe(status);
+    return answer.json();
+  };
+}
+
+export interface SponsoredDeal {
+  company: string;
+  link: string;
+  code: string;
+  /** The sponsor's contact, who gets what is mailed to the sponsor; none when null. */
+  contact: { name: string; email: string } | null;
+  talkingPoints: string[];
+  /** The days after go-live the deal asks for figures: one report item each. */
+  figureDays: number[];
+}
+
+/** A signed, paid deal on the episode with its disclosure, link and code, a go-live item and a report item per figure day, through the sponsors' API. */
+export async function sponsoredDeal(page: Page, at: { channelId: string; episodeId: string; csrfToken: string }, wanted: SponsoredDeal) {
+  const send = channelApi(page, at);
+  const { sponsor } = await send("post", "/sponsors", { company: wanted.company, website: null, notes: null });
+  const contact = wanted.contact && (await send("post", `/sponsors/${sponsor.id}/contacts`, { ...wanted.contact, role: "Partnerships" })).contact;
+  const { deal } = await send("post", "/deals", {
+    episodeId: at.episodeId, sponsorId: sponsor.id, templateId: null, state: "signed", placement: "middle", segmentSeconds: 45, talkingPoints: wanted.talkingPoints,
+    link: wanted.link, promoCode: wanted.code, disclosureText: `Paid partnership with ${wanted.company}.`, exclusivityNotes: null, descriptionCopy: null,
+    script: [`This video is sponsored by ${wanted.company}.`, ...wanted.talkingPoints.map((p) => `${p}.`)].join(" "), contactId: contact?.id ?? null, hostId: null, goLiveDate: null,
+    money: { fee: 900, currency: "EUR", paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null },
+  });
+  await send("post", `/deals/${deal.id}/deliverables`, { kind: "go_live", title: "Video goes live", anchor: "after_go_live", offsetDays: 0 });
+  for (const day of wanted.figureDays) await send("post", `/deals/${deal.id}/deliverables`, { kind: "report", title: `Figures at ${day} days`, anchor: "after_go_live", offsetDays: day });
+  return { dealId: deal.id as string, contactId: (contact?.id ?? null) as string | null };
+}
+
 /** A sponsor, a contact, a one-item template and a deal on the episode, through the sponsors' API; answers the review link's address. */
 export async function dealWithReviewLink(page: Page, channelId: string, episodeId: string, csrfToken: string): Promise<string> {
   const base = `/api/channels/${channelId}`;

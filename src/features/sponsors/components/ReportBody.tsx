@@ -6,10 +6,11 @@ import { placementLabels } from "@shared/sponsors/schemas";
 import { FiguresChart } from "../../../components/chart/FiguresChart";
 import { formatDay, formatInstantNamingZone, formatMoney, formatSeconds } from "../../../lib/format";
 
-function Part({ title, children }: { title: string; children: ReactNode }) {
+/** A part of the report; on paper a short one stays whole, a long one may break between its blocks but never right after its heading. */
+function Part({ title, children, keepWhole = true }: { title: string; children: ReactNode; keepWhole?: boolean }) {
   return (
-    <section className="space-y-2 break-inside-avoid">
-      <h2 className="border-b border-ply-300 pb-1 text-base font-semibold text-graphite-900">{title}</h2>
+    <section className={`space-y-2 ${keepWhole ? "break-inside-avoid" : ""}`}>
+      <h2 className="break-after-avoid border-b border-ply-300 pb-1 text-base font-semibold text-graphite-900">{title}</h2>
       {children}
     </section>
   );
@@ -60,7 +61,7 @@ function Figures({ report }: { report: SponsorReportView }) {
   if (report.figures.length === 0) return <p className="text-sm">No figures have been entered yet.</p>;
   return (
     <>
-      <table className="w-full text-left text-sm">
+      <table className="w-full break-inside-avoid text-left text-sm">
         <caption className="sr-only">The video&apos;s figures by day after go-live</caption>
         <thead>
           <tr className="border-b border-ply-300">
@@ -86,6 +87,9 @@ function Figures({ report }: { report: SponsorReportView }) {
   );
 }
 
+/** A figures item the report itself delivers reads "in this report" until sending it marks the item done, so the PDF made before sending never calls it not started. */
+const statusOf = (d: SponsorReportView["deliverables"][number]) => (d.kind === "report" && d.status !== "done" ? "in this report" : deliverableStatusLabels[d.status]);
+
 /** The report itself: the same on the members' page, the sponsor's page and the PDF printed from it. */
 export function ReportBody({ report }: { report: SponsorReportView }) {
   return (
@@ -104,7 +108,7 @@ export function ReportBody({ report }: { report: SponsorReportView }) {
           {report.deliverables.map((d) => (
             <li key={`${d.kind}-${d.title}`} className="flex flex-wrap justify-between gap-2">
               <span>{d.title}</span>
-              <span className="text-graphite-700">{d.dueDate ? formatDay(d.dueDate) : "no date"} · {deliverableStatusLabels[d.status]}</span>
+              <span className="text-graphite-700">{d.dueDate ? formatDay(d.dueDate) : "no date"} · {statusOf(d)}</span>
             </li>
           ))}
         </ul>
@@ -119,7 +123,7 @@ export function ReportBody({ report }: { report: SponsorReportView }) {
           <p className="text-sm">{report.disclosure.wording ? `The published description does not carry the agreed wording ("${report.disclosure.wording}").` : "The deal names no disclosure wording."}</p>
         )}
       </Part>
-      <Part title="Figures">
+      <Part title="Figures" keepWhole={false}>
         <Figures report={report} />
       </Part>
     </article>
