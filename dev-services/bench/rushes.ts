@@ -6,7 +6,6 @@ import { CompleteMultipartUploadCommand, CreateMultipartUploadCommand, UploadPar
 import { footageQuerySchema } from "../../shared/rushes/footage-query";
 import { MiB, partRange, planParts, SIGN_AHEAD } from "../../shared/rushes/limits";
 import { connectDatabase } from "../../server/db/client";
-import { migrateDatabase } from "../../server/db/migrate";
 import { listClips } from "../../server/rushes/clips.repository";
 import { makeS3Client } from "../../server/storage/storage";
 import { createCrewedChannel } from "../../tests/factories/accounts";
@@ -15,8 +14,7 @@ import { freePort, stopChild, waitForHttp } from "../processes";
 import { repoRoot, stateDir } from "../paths";
 import { percentile, signIn } from "./measure";
 import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
-import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
-import { seedCrowdInto } from "./crowd";
+import { crowdedCluster } from "./kept-crowd";
 import { startS3StandIn } from "../s3";
 
 /**
@@ -111,11 +109,8 @@ function rssMb(pid: number): number {
 async function main() {
   mkdirSync(work, { recursive: true });
   console.log("── services ──");
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
+  const { cluster, databaseUrl: url, crowd } = await crowdedCluster(path.join(work, "pg"), "kerf_bench");
   stops.push(() => cluster.stop());
-  const url = await ensureDatabase(cluster, "kerf_bench");
-  await migrateDatabase(url);
-  const crowd = await seedCrowdInto(url);
   const port = await freePort();
   const appUrl = `http://127.0.0.1:${port}`;
   const s3 = await startS3StandIn({ port: await freePort(), dataDir: path.join(work, "s3"), origins: [appUrl] });

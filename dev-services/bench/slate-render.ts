@@ -64,6 +64,9 @@ export async function measureBoardRender(options: { appUrl: string; channelId: s
     await page.getByLabel("E-mail").fill(options.person.email);
     await page.getByLabel("Password").fill(options.person.password);
     await page.getByRole("button", { name: "Sign in" }).click();
+    // Signing in lands on the member's home; the board is one link away.
+    await page.waitForURL(/\/home$/);
+    await page.getByRole("link", { name: "Slate", exact: true }).click();
     await page.getByRole("heading", { name: "Slate", exact: true }).waitFor();
     await page.waitForFunction(() => document.querySelectorAll("[data-card-id]").length > 0);
 

@@ -5,15 +5,13 @@ import path from "node:path";
 import autocannon from "autocannon";
 import { generateNKeysBetween } from "fractional-indexing";
 import { connectDatabase } from "../../server/db/client";
-import { migrateDatabase } from "../../server/db/migrate";
 import { slatePlugs } from "../../server/app";
 import { collectFlags } from "../../server/seams/board-flags";
 import { stages } from "../../shared/slate/stages";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
 import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
-import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
-import { seedCrowdInto } from "./crowd";
+import { crowdedCluster } from "./kept-crowd";
 import { freePort, run, stopChild, waitForHttp } from "../processes";
 import { measureBoardRender } from "./slate-render";
 
@@ -113,14 +111,11 @@ async function main() {
     if (built !== 0) throw new Error("client build failed");
   }
 
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
+  const { cluster, databaseUrl, crowd } = await crowdedCluster(path.join(work, "pg"), "kerf_bench_slate");
   stops.push(() => {
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   });
-  const databaseUrl = await ensureDatabase(cluster, "kerf_bench_slate");
-  await migrateDatabase(databaseUrl);
-  const crowd = await seedCrowdInto(databaseUrl);
 
   console.log(`Seeding ${EPISODES} episodes with their histories…`);
   const handle = connectDatabase(databaseUrl);
