@@ -15,8 +15,8 @@ const KEPT_DATABASE = "kerf_bench";
  * A benchmark's own cluster at `dataDir` (bulk-load settings), with one migrated database `name`
  * already holding the crowd (crowd.ts). Seeding 10,000 channels takes a quarter of an hour, so with
  * BENCH_CROWD_KEEP=1 the crowded cluster is kept under .kerf/bench-crowd/ once made and every later
- * run starts from a copy of it, which takes seconds. The kept cluster is named by the crowd's size and
- * by the migrations it was made with: a new migration, or another size, seeds anew.
+ * run starts from a copy of it, which takes seconds. The kept cluster is named by the crowd's size, the
+ * migrations and the seeder it was made with: a new migration, a changed seeder or another size seeds anew.
  */
 export async function crowdedCluster(dataDir: string, name: string): Promise<{ cluster: Cluster; databaseUrl: string; crowd: CrowdFigures }> {
   if (process.env.BENCH_CROWD_KEEP !== "1" || crowdSizeFromEnv().channels <= 0) {
@@ -39,8 +39,9 @@ export async function crowdedCluster(dataDir: string, name: string): Promise<{ c
 /** The kept crowded cluster (stopped) for this size and these migrations, seeded first if there is none. */
 async function keptCrowd(): Promise<{ dataDir: string; crowd: CrowdFigures }> {
   const size = crowdSizeFromEnv();
-  const migrations = createHash("sha256").update(readFileSync(path.join(repoRoot, "drizzle", "meta", "_journal.json"))).digest("hex").slice(0, 12);
-  const folder = path.join(KEPT, `${size.channels}x${size.episodesPerChannel}x${size.clipsPerEpisode}-${migrations}`);
+  const made = createHash("sha256");
+  for (const file of ["drizzle/meta/_journal.json", "dev-services/bench/crowd.ts"]) made.update(readFileSync(path.join(repoRoot, file)));
+  const folder = path.join(KEPT, `${size.channels}x${size.episodesPerChannel}x${size.clipsPerEpisode}-${made.digest("hex").slice(0, 12)}`);
   const dataDir = path.join(folder, "pg");
   const ready = path.join(folder, "crowd.json");
   if (existsSync(ready)) return { dataDir, crowd: JSON.parse(readFileSync(ready, "utf8")) as CrowdFigures };
