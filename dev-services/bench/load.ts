@@ -14,6 +14,7 @@ import { ensureDatabase, startCluster } from "../postgres";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
 import { deeplyNested } from "../../tests/support/server-timing";
+import { coresUsed, postmasterOf, sampleCpu } from "./cpu-share";
 
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
@@ -90,7 +91,7 @@ async function main() {
     stops.push(() => stopChild(server));
     // A loaded machine may take minutes to start a server (its code is compiled as it loads).
     await waitForHttp(`${url}/api/health`, 180_000);
-    return { url, stop: () => stopChild(server) };
+    return { url, pid: server.pid!, stop: () => stopChild(server) };
   };
   const all = await startApp(0, appPort);
 
@@ -137,7 +138,10 @@ async function main() {
   console.log(`Driving ${CONNECTIONS} signed-in clients for ${SECONDS} s against ${appUrl}, each at ${RATE} requests a second${ATTACK ? `, while one client sends ${ATTACK_DEPTH}-deep bodies flat out` : ""}…`);
   const paced = summary(await underAttack(SECONDS, drive()));
   console.log(`Then flat out for ${SATURATION_SECONDS} s, each client sending its next request as soon as the last is answered…`);
+  const watched = (serverPid: number) => ({ server: serverPid, postgres: postmasterOf(cluster.dataDir), bench: process.pid });
+  const beforeAll = sampleCpu();
   const flatOut = summary(await underAttack(SATURATION_SECONDS, driveFlatOut(appUrl, clients, requestsFor, { seconds: SATURATION_SECONDS })));
+  const coresAll = coresUsed(beforeAll, sampleCpu(), watched(all.pid));
   const attacked = ATTACK ? attackSummary(attacks, SECONDS + SATURATION_SECONDS) : null;
 
   // The same flat-out run against one server process, on the same database: what the other cores add.
@@ -146,7 +150,9 @@ async function main() {
   const single = await startApp(1, await freePort());
   const singleClients = await Promise.all(people.map((p) => signIn(single.url, { email: p.email, password })));
   await driveFlatOut(single.url, singleClients, requestsFor, { seconds: Math.min(5, SATURATION_SECONDS) });
+  const beforeOne = sampleCpu();
   const flatOutOne = summary(await driveFlatOut(single.url, singleClients, requestsFor, { seconds: SATURATION_SECONDS }));
+  const coresOne = coresUsed(beforeOne, sampleCpu(), watched(single.pid));
   await single.stop();
 
   const figures = {
@@ -168,6 +174,14 @@ async function main() {
     flat_out_rps_one: flatOutOne.perSecond,
     flat_out_one_errors: flatOutOne.errors,
     core_scaling: Math.round((flatOut.perSecond / Math.max(1, flatOutOne.perSecond)) * 100) / 100,
+    flat_out_all_cores_server: coresAll.server,
+    flat_out_all_cores_postgres: coresAll.postgres,
+    flat_out_all_cores_load_generator: coresAll.bench,
+    flat_out_all_cores_machine: coresAll.machine,
+    flat_out_one_cores_server: coresOne.server,
+    flat_out_one_cores_postgres: coresOne.postgres,
+    flat_out_one_cores_load_generator: coresOne.bench,
+    flat_out_one_cores_machine: coresOne.machine,
     ...(attacked && calm
       ? {
           attack_depth: ATTACK_DEPTH,
@@ -192,7 +206,9 @@ flat out (the ceiling of this machine, server, database and load generator toget
   requests:   ${flatOut.requests} in ${SATURATION_SECONDS} s (${flatOut.perSecond}/s), ${flatOut.errors} errors
   latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)
 one server process flat out: ${flatOutOne.perSecond}/s, ${flatOutOne.errors} errors; ${figures.workers} processes: ${flatOut.perSecond}/s
-  core scaling: ${figures.core_scaling} (target >= 1.6 on 2 cores with PostgreSQL and the load on the same machine: ${figures.core_scaling >= 1.6 ? "met" : "NOT met"})${
+  core scaling: ${figures.core_scaling} (target >= 1.6 on 2 cores with PostgreSQL and the load on the same machine: ${figures.core_scaling >= 1.6 ? "met" : "NOT met"})
+  cores busy (of ${os.cpus().length}):  ${figures.workers} processes: server ${coresAll.server}, PostgreSQL ${coresAll.postgres}, load generator ${coresAll.bench}, whole machine ${coresAll.machine}
+                     one process: server ${coresOne.server}, PostgreSQL ${coresOne.postgres}, load generator ${coresOne.bench}, whole machine ${coresOne.machine}${
     attacked && calm
       ? `
 attacker (one client, ${ATTACK_DEPTH}-deep bodies to the sign-up form, flat out through both runs):
