@@ -1,42 +1,19 @@
 import { expect, test, type Page } from "@playwright/test";
-import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, seedDemo } from "../../dev-services/demo/channel";
 import type { Role } from "../../shared/access/roles";
-import { connectDatabase } from "../../server/db/client";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { expectHome, snap, sql } from "./support";
+import { demoChannelId, expectHome, signInToDemo, snap } from "./support";
 
 /*
  * Each member of the demo channel signs in and lands on their home, sees what needs them, and one
- * entry's link opens the place where it is done. The demo is made once in the browser tests' database
- * (its accounts are fixed addresses, so a second run finds it there).
+ * entry's link opens the place where it is done.
  */
 let channelId: string;
 
 test.beforeAll(async () => {
-  const found = () => sql<{ id: string }>("select id from channels where name = $1", [DEMO_CHANNEL]);
-  if ((await found()).length === 0) {
-    const handle = connectDatabase(process.env.KERF_E2E_DATABASE_URL!);
-    try {
-      await seedDemo(handle.db);
-    } finally {
-      await handle.close();
-    }
-  }
-  channelId = (await found())[0]!.id;
+  channelId = await demoChannelId();
 });
 
-async function signInAs(page: Page, role: Role) {
-  const account = demoAccounts.find((a) => a.role === role)!;
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(account.email);
-  await page.getByLabel("Password").fill(DEMO_PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await expectHome(page);
-  await expect(page).toHaveURL(/\/c\/[0-9a-f-]{36}\/home$/);
-  // The demo owner belongs to a second channel too; the demo channel's home is the one under test.
-  await page.goto(`/c/${channelId}/home`);
-  await expectHome(page);
-}
+const signInAs = (page: Page, role: Role) => signInToDemo(page, role, channelId);
 
 const group = (page: Page, name: string) => page.getByRole("region", { name: new RegExp(`^${name}`) });
 

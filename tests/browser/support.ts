@@ -1,7 +1,10 @@
 import path from "node:path";
 import { expect, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
+import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, seedDemo } from "../../dev-services/demo/channel";
 import { hashPassword } from "../../server/auth/password";
+import { connectDatabase } from "../../server/db/client";
+import type { Role } from "../../shared/access/roles";
 import type { EpisodeRecord } from "../../shared/slate/schemas";
 import type { Stage } from "../../shared/slate/stages";
 
@@ -88,6 +91,37 @@ export async function sql<T extends pg.QueryResultRow>(text: string, values: unk
 /** Where every sign-in lands: the member's home. */
 export async function expectHome(page: Page): Promise<void> {
   await expect(page.getByRole("heading", { name: "What needs you" })).toBeVisible();
+}
+
+/**
+ * The demo channel's id. The demo is made once in the browser tests' database (its accounts are fixed
+ * addresses, so a second run finds it there).
+ */
+export async function demoChannelId(): Promise<string> {
+  const found = () => sql<{ id: string }>("select id from channels where name = $1", [DEMO_CHANNEL]);
+  if ((await found()).length === 0) {
+    const handle = connectDatabase(process.env.KERF_E2E_DATABASE_URL!);
+    try {
+      await seedDemo(handle.db);
+    } finally {
+      await handle.close();
+    }
+  }
+  return (await found())[0]!.id;
+}
+
+/** Signs in as the demo channel's member in this role and opens that channel's home. */
+export async function signInToDemo(page: Page, role: Role, channelId: string): Promise<void> {
+  const account = demoAccounts.find((a) => a.role === role)!;
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(account.email);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expectHome(page);
+  await expect(page).toHaveURL(/\/c\/[0-9a-f-]{36}\/home$/);
+  // The demo owner belongs to a second channel too; the demo channel's home is the one under test.
+  await page.goto(`/c/${channelId}/home`);
+  await expectHome(page);
 }
 
 /** From the home (where sign-in lands) to the slate, through the top bar (on a phone, through its menu). */

@@ -22,9 +22,11 @@ export function AppShell() {
       </p>
       {opening && <div aria-hidden className="kerf-appear fixed inset-x-0 top-0 z-50 h-1 bg-amber-cut" />}
       <header className="relative bg-graphite-900 text-ply-50">
-        <div className="mx-auto flex h-13 max-w-[96rem] items-center gap-4 px-4 sm:h-auto sm:py-2">
+        {/* Positioned so the finder's results open under the whole bar, at its right edge. */}
+        <div className="relative mx-auto flex h-13 max-w-[96rem] items-center gap-4 px-4 sm:h-auto sm:flex-wrap sm:gap-x-3 sm:gap-y-2 sm:pt-2">
           <Wordmark className="text-lg" />
-          {/* On a phone the bar holds the mark, the channel's role and the menu button; the rest opens as a sheet. */}
+          {/* On a phone the bar holds the mark, the channel's role and the menu button; the rest opens as a sheet.
+              From sm up the menu's parts join this line, and the channel's pages take a strip of their own under it. */}
           {channel && <span className="rounded bg-graphite-700 px-2 py-0.5 text-xs">{roleLabels[channel.role]}</span>}
           <SiteMenu />
         </div>

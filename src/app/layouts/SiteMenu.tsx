@@ -8,11 +8,12 @@ import { SearchBox } from "../../features/search/components/SearchBox";
 import { channelNav } from "../nav";
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
-  `rounded-md px-3 py-2 text-base font-medium sm:py-1.5 sm:text-sm ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
+  `rounded-md px-3 py-2 text-base font-medium sm:px-2.5 sm:py-1.5 sm:text-sm lg:px-3 ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
 
 /**
- * The channel, its pages and the account. On a desk they sit in the top bar; on a phone they are a
- * sheet under the bar that covers the page until a link is followed.
+ * The channel, its pages and the account. On a desk the channel, the finder and the account sit in the
+ * top bar's line and the pages in a strip under it (so ten pages never push the finder onto a second
+ * line); on a phone they are a sheet under the bar that covers the page until a link is followed.
  */
 export function SiteMenu() {
   // Open on the page it was opened on: following a link shuts it.
@@ -53,10 +54,14 @@ export function SiteMenu() {
         </span>
         Menu
       </button>
-      <div id="site-menu" className={`${sheet} sm:static sm:z-auto sm:flex sm:flex-1 sm:flex-row sm:flex-wrap sm:items-center sm:gap-4 sm:overflow-visible sm:p-0`}>
+      {/* From sm up the sheet's box goes away and its parts are laid out by the bar itself. */}
+      <div id="site-menu" className={`${sheet} sm:contents`}>
         <ChannelSwitcher />
         {channel && (
-          <nav aria-label="Channel pages" className="flex flex-col gap-1 sm:flex-row sm:flex-wrap">
+          <nav
+            aria-label="Channel pages"
+            className="flex flex-col gap-1 sm:order-last sm:-mx-4 sm:basis-[calc(100%+2rem)] sm:flex-row sm:flex-wrap sm:border-t sm:border-graphite-700 sm:px-2 sm:py-1.5"
+          >
             {channelNav
               .filter((entry) => roleMay(channel.role, entry.area, "R"))
               .map((entry) => (
@@ -67,10 +72,15 @@ export function SiteMenu() {
           </nav>
         )}
         {channel && <SearchBox key={channel.channelId} channelId={channel.channelId} />}
-        <div className="flex flex-wrap items-center gap-3 border-t border-graphite-700 pt-4 text-sm sm:ml-auto sm:border-0 sm:pt-0">
+        <div className="flex flex-wrap items-center gap-3 border-t border-graphite-700 pt-4 text-sm sm:flex-nowrap sm:border-0 sm:pt-0">
           {user && (
             <span className="flex items-center">
-              <NavLink to="/account" aria-label={`Your account (${user.name})`} className={navClass}>
+              <NavLink
+                to="/account"
+                aria-label={`Your account (${user.name})`}
+                title={user.name}
+                className={(state) => `${navClass(state)} sm:block sm:max-w-32 sm:truncate lg:max-w-56`}
+              >
                 {user.name}
               </NavLink>
             </span>

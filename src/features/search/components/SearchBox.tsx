@@ -9,8 +9,9 @@ const typingIn = (target: EventTarget | null) =>
   target instanceof HTMLElement && (target.isContentEditable || ["INPUT", "TEXTAREA", "SELECT"].includes(target.tagName));
 
 /**
- * The top bar's finder: "/" from anywhere reaches it; results show under it grouped by kind, the arrow
- * keys walk them and Enter opens one; Escape closes them and goes back to the box.
+ * The top bar's finder: "/" from anywhere reaches it; results show under it (on a desk, under the whole
+ * bar at its right edge) grouped by kind, the arrow keys walk them and Enter opens one; Escape closes
+ * them and goes back to the box.
  */
 export function SearchBox({ channelId }: { channelId: string }) {
   const [text, setText] = useState("");
@@ -62,7 +63,7 @@ export function SearchBox({ channelId }: { channelId: string }) {
   const showing = open && text.trim().length >= SHORTEST_SEARCH;
 
   return (
-    <div ref={box} role="search" aria-label="This channel" className="relative order-last w-full sm:order-none sm:w-auto" onKeyDown={onKeyDown}>
+    <div ref={box} role="search" aria-label="This channel" className="relative order-last w-full sm:static sm:order-none sm:ml-auto sm:w-auto" onKeyDown={onKeyDown}>
       <label htmlFor={`${resultsId}-box`} className="sr-only">
         Find in this channel
       </label>
@@ -84,13 +85,13 @@ export function SearchBox({ channelId }: { channelId: string }) {
           onKeyDown={(e) => {
             if (e.key === "Enter") links()[0]?.click();
           }}
-          className="w-full min-w-0 bg-transparent px-3 py-1.5 text-sm text-ply-50 placeholder:text-ply-200 focus:outline-none sm:w-36 xl:w-64 [&::-webkit-search-cancel-button]:hidden"
+          className="w-full min-w-0 bg-transparent px-3 py-1.5 text-sm text-ply-50 placeholder:text-ply-200 focus:outline-none sm:w-28 lg:w-44 xl:w-64 [&::-webkit-search-cancel-button]:hidden"
         />
         <kbd aria-hidden className="mr-2 rounded border border-graphite-500 px-1.5 font-mono text-xs text-ply-200">
           /
         </kbd>
       </div>
-      <div id={resultsId} hidden={!showing} className="absolute inset-x-0 top-full z-30 mt-1 sm:left-auto sm:w-[34rem] sm:max-w-[calc(100vw-2rem)]">
+      <div id={resultsId} hidden={!showing} className="absolute inset-x-0 top-full z-30 mt-1 sm:right-4 sm:left-auto sm:w-[34rem] sm:max-w-[calc(100vw-2rem)]">
         {showing && (
           <SearchResults
             channelId={channelId}
