@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
 import type { Queryable } from "../db/client";
-import { intakeIdeas, intakeSuggestions } from "../db/schema/intake";
+import { intakeIdeaKeys, intakeIdeas, intakeSuggestions } from "../db/schema/intake";
 
 /**
  * How alike two grouping keys must be (pg_trgm's similarity: shared trigrams over all trigrams of the
@@ -29,35 +29,52 @@ export async function lockChannelGrouping(tx: Queryable, channelId: string): Pro
   await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`intake:${channelId}`}, 0)), set_config('pg_trgm.similarity_threshold', ${String(SAME_ASK)}, true)`);
 }
 
+/** Grouping keys of `texts`, in order (intake_key in the migration intake_tables; '' when only asking words). */
+export async function keysOf(tx: Queryable, texts: string[]): Promise<string[]> {
+  const found = await tx.execute<{ key: string }>(sql`select intake_key(t) as key from unnest(${sql.param(texts)}::text[]) with ordinality as u(t, n) order by n`);
+  return found.rows.map((r) => r.key);
+}
+
+const column = <T>(rows: NewSuggestion[], pick: (s: NewSuggestion) => T, type: string) => sql`${sql.param(rows.map(pick))}::${sql.raw(type)}`;
+
 /**
- * The open idea whose suggestions come closest to `text`, if any comes close enough. intake_key is
- * immutable, so the planner works the probe's key out once, before planning, and the trigram index
- * (channel, key) finds the candidates; a text of asking words only (an empty key) matches nothing.
+ * Files suggestions that share one grouping key, in one statement: the open idea holding the nearest
+ * key (pg_trgm distance `<->`, KNN on intake_idea_keys' GiST index, no further than SAME_ASK allows)
+ * takes them all, else a new idea worded after the first. intake_key is immutable, so the planner works
+ * the probe's key out once, before planning; an empty key (asking words only) matches nothing. Rows
+ * whose fingerprint the channel already holds are left out (the caller filters them first, under the
+ * grouping lock, so an idea is never opened for nothing). The statement's trigger adds the key to the
+ * idea's keys, so the next group is compared with it too.
  */
-export async function closestOpenIdea(tx: Queryable, channelId: string, text: string): Promise<{ ideaId: string; score: number } | null> {
-  const found = await tx.execute<{ idea_id: string; score: number }>(sql`
-    select s.idea_id, similarity(s.key, intake_key(${text})) as score
-    from ${intakeSuggestions} s join ${intakeIdeas} i on i.id = s.idea_id
-    where s.channel_id = ${channelId} and intake_key(${text}) <> '' and s.key % intake_key(${text}) and i.status = 'open'
-    order by score desc
-    limit 1`);
-  const row = found.rows[0];
-  return row ? { ideaId: row.idea_id, score: Number(row.score) } : null;
+export async function fileGroup(tx: Queryable, channelId: string, wording: string, rows: NewSuggestion[]): Promise<{ ideaId: string; joined: boolean; suggestionIds: string[] }> {
+  const probe = sql`intake_key(${rows[0]!.text})`;
+  const found = await tx.execute<{ idea_id: string; joined: boolean; ids: string[] | null }>(sql`
+    with nearest as (
+      select k.idea_id from ${intakeIdeaKeys} k join ${intakeIdeas} i on i.id = k.idea_id
+      where k.channel_id = ${channelId} and ${probe} <> '' and k.key % ${probe} and i.status = 'open'
+      order by k.key <-> ${probe}
+      limit 1),
+    opened as (
+      insert into ${intakeIdeas} (channel_id, wording) select ${channelId}, ${wording} where not exists (select from nearest) returning id),
+    chosen as (select idea_id, true as joined from nearest union all select id, false from opened),
+    filed as (
+      insert into ${intakeSuggestions} (channel_id, idea_id, text, source, person_key, author, link, asked_at, contact_id, fingerprint)
+      select ${channelId}, chosen.idea_id, r.text, r.source::intake_source, r.person_key, r.author, r.link, coalesce(r.asked_at, now()), r.contact_id, r.fingerprint
+      from chosen, unnest(
+        ${column(rows, (s) => s.text, "text[]")}, ${column(rows, (s) => s.source, "text[]")}, ${column(rows, (s) => s.personKey, "text[]")},
+        ${column(rows, (s) => s.author ?? null, "text[]")}, ${column(rows, (s) => s.link ?? null, "text[]")}, ${column(rows, (s) => s.askedAt?.toISOString() ?? null, "timestamptz[]")},
+        ${column(rows, (s) => s.contactId ?? null, "uuid[]")}, ${column(rows, (s) => s.fingerprint ?? null, "text[]")}
+      ) as r(text, source, person_key, author, link, asked_at, contact_id, fingerprint)
+      on conflict do nothing
+      returning id)
+    select chosen.idea_id, chosen.joined, (select array_agg(id) from filed) as ids from chosen`);
+  const row = found.rows[0]!;
+  return { ideaId: row.idea_id, joined: row.joined, suggestionIds: row.ids ?? [] };
 }
 
 export async function insertIdea(tx: Queryable, channelId: string, wording: string): Promise<string> {
   const [row] = await tx.insert(intakeIdeas).values({ channelId, wording }).returning({ id: intakeIdeas.id });
   return row!.id;
-}
-
-/** Inserts the suggestion under `ideaId`; null when its fingerprint is already the channel's (a re-import). */
-export async function insertSuggestion(tx: Queryable, channelId: string, ideaId: string, s: NewSuggestion): Promise<string | null> {
-  const rows = await tx
-    .insert(intakeSuggestions)
-    .values({ channelId, ideaId, text: s.text, source: s.source, personKey: s.personKey, author: s.author ?? null, link: s.link ?? null, askedAt: s.askedAt ?? new Date(), contactId: s.contactId ?? null, fingerprint: s.fingerprint ?? null })
-    .onConflictDoNothing()
-    .returning({ id: intakeSuggestions.id });
-  return rows[0]?.id ?? null;
 }
 
 export async function fingerprintsTaken(tx: Queryable, channelId: string, fingerprints: string[]): Promise<Set<string>> {
