@@ -14,6 +14,7 @@ CREATE TABLE "intake_idea_keys" (
 DROP INDEX "intake_suggestions_key_idx";--> statement-breakpoint
 ALTER TABLE "intake_idea_keys" ADD CONSTRAINT "intake_idea_keys_idea_id_intake_ideas_id_fk" FOREIGN KEY ("idea_id") REFERENCES "public"."intake_ideas"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "intake_idea_keys" ADD CONSTRAINT "intake_idea_keys_channel_id_channels_id_fk" FOREIGN KEY ("channel_id") REFERENCES "public"."channels"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "intake_idea_keys_exact_idx" ON "intake_idea_keys" USING btree ("channel_id","key");--> statement-breakpoint
 CREATE INDEX "intake_idea_keys_nearest_idx" ON "intake_idea_keys" USING gist ("channel_id","key" gist_trgm_ops(siglen=1024));--> statement-breakpoint
 -- Kept in step with intake_suggestions by statement triggers over the rows each statement touched, so
 -- an import of thousands of rows touches each (idea, key) once, and a merge or a split moves the keys

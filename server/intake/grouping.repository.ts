@@ -37,6 +37,36 @@ export async function keysOf(tx: Queryable, texts: string[]): Promise<string[]> 
 
 const column = <T>(rows: NewSuggestion[], pick: (s: NewSuggestion) => T, type: string) => sql`${sql.param(rows.map(pick))}::${sql.raw(type)}`;
 
+/** The suggestions as rows of one `unnest` (alias r), to insert in one statement. */
+const suggestionRows = (rows: NewSuggestion[]) => sql`unnest(
+  ${column(rows, (s) => s.text, "text[]")}, ${column(rows, (s) => s.source, "text[]")}, ${column(rows, (s) => s.personKey, "text[]")},
+  ${column(rows, (s) => s.author ?? null, "text[]")}, ${column(rows, (s) => s.link ?? null, "text[]")}, ${column(rows, (s) => s.askedAt?.toISOString() ?? null, "timestamptz[]")},
+  ${column(rows, (s) => s.contactId ?? null, "uuid[]")}, ${column(rows, (s) => s.fingerprint ?? null, "text[]")}
+) with ordinality as r(text, source, person_key, author, link, asked_at, contact_id, fingerprint, n)`;
+
+const insertColumns = sql`insert into ${intakeSuggestions} (channel_id, idea_id, text, source, person_key, author, link, asked_at, contact_id, fingerprint)`;
+const rowValues = sql`r.text, r.source::intake_source, r.person_key, r.author, r.link, coalesce(r.asked_at, now()), r.contact_id, r.fingerprint`;
+
+/** For each of `keys` an open idea holds exactly, that idea (any one, when two do). */
+export async function ideasHoldingKeys(tx: Queryable, channelId: string, keys: string[]): Promise<Map<string, string>> {
+  if (keys.length === 0) return new Map();
+  const found = await tx.execute<{ key: string; idea_id: string }>(sql`
+    select distinct on (k.key) k.key, k.idea_id from ${intakeIdeaKeys} k join ${intakeIdeas} i on i.id = k.idea_id
+    where k.channel_id = ${channelId} and k.key = any(${sql.param(keys)}::text[]) and i.status = 'open'
+    order by k.key`);
+  return new Map(found.rows.map((r) => [r.key, r.idea_id]));
+}
+
+/** Files suggestions under ideas already chosen (ideaIds[i] for rows[i]), in one statement; returns how many were written. */
+export async function fileUnder(tx: Queryable, channelId: string, ideaIds: string[], rows: NewSuggestion[]): Promise<number> {
+  if (rows.length === 0) return 0;
+  const found = await tx.execute(sql`
+    ${insertColumns}
+    select ${channelId}, (${sql.param(ideaIds)}::uuid[])[r.n], ${rowValues} from ${suggestionRows(rows)}
+    on conflict do nothing`);
+  return found.rowCount ?? 0;
+}
+
 /**
  * Files suggestions that share one grouping key, in one statement: the open idea holding the nearest
  * key (pg_trgm distance `<->`, KNN on intake_idea_keys' GiST index, no further than SAME_ASK allows)
@@ -58,13 +88,8 @@ export async function fileGroup(tx: Queryable, channelId: string, wording: strin
       insert into ${intakeIdeas} (channel_id, wording) select ${channelId}, ${wording} where not exists (select from nearest) returning id),
     chosen as (select idea_id, true as joined from nearest union all select id, false from opened),
     filed as (
-      insert into ${intakeSuggestions} (channel_id, idea_id, text, source, person_key, author, link, asked_at, contact_id, fingerprint)
-      select ${channelId}, chosen.idea_id, r.text, r.source::intake_source, r.person_key, r.author, r.link, coalesce(r.asked_at, now()), r.contact_id, r.fingerprint
-      from chosen, unnest(
-        ${column(rows, (s) => s.text, "text[]")}, ${column(rows, (s) => s.source, "text[]")}, ${column(rows, (s) => s.personKey, "text[]")},
-        ${column(rows, (s) => s.author ?? null, "text[]")}, ${column(rows, (s) => s.link ?? null, "text[]")}, ${column(rows, (s) => s.askedAt?.toISOString() ?? null, "timestamptz[]")},
-        ${column(rows, (s) => s.contactId ?? null, "uuid[]")}, ${column(rows, (s) => s.fingerprint ?? null, "text[]")}
-      ) as r(text, source, person_key, author, link, asked_at, contact_id, fingerprint)
+      ${insertColumns}
+      select ${channelId}, chosen.idea_id, ${rowValues} from chosen, ${suggestionRows(rows)}
       on conflict do nothing
       returning id)
     select chosen.idea_id, chosen.joined, (select array_agg(id) from filed) as ids from chosen`);

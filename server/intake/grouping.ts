@@ -1,5 +1,5 @@
 import type { Queryable } from "../db/client";
-import { fileGroup, keysOf, type NewSuggestion } from "./grouping.repository";
+import { fileGroup, fileUnder, ideasHoldingKeys, keysOf, type NewSuggestion } from "./grouping.repository";
 
 /** The wording a new idea starts with: its first asker's words on one line, cut at 200 characters. */
 export const firstWording = (text: string) => {
@@ -19,22 +19,38 @@ export async function fileSuggestion(tx: Queryable, channelId: string, suggestio
 }
 
 /**
- * Files many suggestions with the result of filing them one at a time, in order: rows with the same
- * key would each join the idea the first of them went to, so each distinct key is compared once, in the
- * order it first appears, and its rows are written together. A row whose key is empty (asking words
- * only) opens an idea of its own. Same lock as fileSuggestion; fingerprints filtered first. Returns
- * how many were written.
+ * Files many suggestions with the result of filing them one at a time, in order. Rows with the same
+ * key would each go where the first of them went, so each distinct key is compared once, in the order
+ * it first appears, and its rows are written together. A key an open idea already holds exactly is
+ * nearest to that idea wherever it comes in the file, so all of those are written at once first. A row
+ * whose key is empty (asking words only) opens an idea of its own. Same lock as fileSuggestion;
+ * fingerprints filtered first. Returns how many were written.
  */
 export async function fileSuggestions(tx: Queryable, channelId: string, suggestions: NewSuggestion[]): Promise<number> {
+  const groups = await byKey(tx, suggestions);
+  const held = await ideasHoldingKeys(tx, channelId, [...groups.keys()].filter((key) => !key.startsWith(NO_KEY)));
+  const known = [...groups].filter(([key]) => held.has(key));
+  let added = await fileUnder(
+    tx,
+    channelId,
+    known.flatMap(([key, rows]) => rows.map(() => held.get(key)!)),
+    known.flatMap(([, rows]) => rows),
+  );
+  for (const [key, group] of groups) if (!held.has(key)) added += (await fileGroup(tx, channelId, firstWording(group[0]!.text), group)).suggestionIds.length;
+  return added;
+}
+
+const NO_KEY = "\u0000";
+
+/** The suggestions by grouping key, keys in the order they first appear; each empty key a group of its own under a key no text has. */
+async function byKey(tx: Queryable, suggestions: NewSuggestion[]): Promise<Map<string, NewSuggestion[]>> {
   const keys = await keysOf(tx, suggestions.map((s) => s.text));
   const groups = new Map<string, NewSuggestion[]>();
   suggestions.forEach((suggestion, index) => {
-    const key = keys[index] || `\u0000${index}`;
+    const key = keys[index] || `${NO_KEY}${index}`;
     const group = groups.get(key);
     if (group) group.push(suggestion);
     else groups.set(key, [suggestion]);
   });
-  let added = 0;
-  for (const group of groups.values()) added += (await fileGroup(tx, channelId, firstWording(group[0]!.text), group)).suggestionIds.length;
-  return added;
+  return groups;
 }

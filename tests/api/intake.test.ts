@@ -142,6 +142,13 @@ describe("grouping after members regroup", () => {
       ]),
     );
     expect(list).toHaveLength(4);
+
+    // A later file: words an idea already holds join it, in one go with the rest.
+    const later = ["Comment ID,Author,Comment", "r7,Gus,Can a cordless drill power a go-kart up a steep hill!!", "r8,Hal,Please make a video!", "r9,Ivy,A paper bridge that holds a brick?"].join("\r\n");
+    expect((await owner.send("post", `${base}/imports`, { csv: later, mapping }).expect(201)).body).toEqual({ added: 3, skipped: 0 });
+    const after = await ideas(owner, base);
+    expect(after).toHaveLength(5);
+    expect(after.map((i) => i.people).sort()).toEqual([1, 1, 1, 2, 4]);
   });
 });
 

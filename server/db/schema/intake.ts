@@ -105,7 +105,12 @@ export const intakeIdeaKeys = pgTable(
     channelId: channelRef(),
     suggestions: integer("suggestions").notNull(),
   },
-  (table) => [primaryKey({ columns: [table.ideaId, table.key] }), index("intake_idea_keys_nearest_idx").using("gist", table.channelId, sql`${table.key} gist_trgm_ops(siglen=${sql.raw(String(KEY_SIGNATURE_BYTES))})`)],
+  (table) => [
+    primaryKey({ columns: [table.ideaId, table.key] }),
+    // An import looks up all of a file's keys at once: those an open idea already holds need no nearest-key search.
+    index("intake_idea_keys_exact_idx").on(table.channelId, table.key),
+    index("intake_idea_keys_nearest_idx").using("gist", table.channelId, sql`${table.key} gist_trgm_ops(siglen=${sql.raw(String(KEY_SIGNATURE_BYTES))})`),
+  ],
 );
 
 /** A member's own quick judgement of an idea, 1–3 on each of shared/intake/weighing.ts's dimensions. */
