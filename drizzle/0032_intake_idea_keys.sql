@@ -57,5 +57,33 @@ CREATE TRIGGER "intake_suggestions_keys_removed" AFTER DELETE ON "intake_suggest
   REFERENCING OLD TABLE AS removed FOR EACH STATEMENT EXECUTE FUNCTION "intake_suggestions_removed"();--> statement-breakpoint
 CREATE TRIGGER "intake_suggestions_keys_moved" AFTER UPDATE ON "intake_suggestions"
   REFERENCING OLD TABLE AS removed NEW TABLE AS added FOR EACH STATEMENT EXECUTE FUNCTION "intake_suggestions_moved"();--> statement-breakpoint
+-- An import's new keys, compared one at a time in the order they first appear in the file, as filing
+-- them one by one would: each goes to the open idea holding the nearest key within the similarity
+-- threshold (pg_trgm.similarity_threshold, set by the caller), else to a new idea with its wording, and
+-- is kept at once (with no suggestions yet) so the keys after it are compared with it too. One call
+-- per file instead of one round trip per key; the caller then writes the suggestions, whose trigger
+-- counts them. An empty key (asking words only) always gets a new idea. Returns the ideas, in order.
+CREATE FUNCTION "intake_ideas_for_keys"(channel uuid, keys text[], wordings text[]) RETURNS uuid[] LANGUAGE plpgsql AS $$
+DECLARE
+  chosen uuid[] := '{}';
+  found uuid;
+BEGIN
+  FOR i IN 1 .. coalesce(array_length(keys, 1), 0) LOOP
+    found := NULL;
+    IF keys[i] <> '' THEN
+      SELECT k."idea_id" INTO found FROM "intake_idea_keys" k JOIN "intake_ideas" d ON d."id" = k."idea_id"
+      WHERE k."channel_id" = channel AND k."key" % keys[i] AND d."status" = 'open'
+      ORDER BY k."key" <-> keys[i] LIMIT 1;
+    END IF;
+    IF found IS NULL THEN
+      INSERT INTO "intake_ideas" ("channel_id", "wording") VALUES (channel, wordings[i]) RETURNING "id" INTO found;
+    END IF;
+    IF keys[i] <> '' THEN
+      INSERT INTO "intake_idea_keys" ("idea_id", "key", "channel_id", "suggestions") VALUES (found, keys[i], channel, 0) ON CONFLICT DO NOTHING;
+    END IF;
+    chosen := chosen || found;
+  END LOOP;
+  RETURN chosen;
+END $$;--> statement-breakpoint
 INSERT INTO "intake_idea_keys" ("idea_id", "key", "channel_id", "suggestions")
 SELECT "idea_id", "key", "channel_id", count(*) FROM "intake_suggestions" WHERE "key" <> '' GROUP BY "idea_id", "key", "channel_id";

@@ -57,6 +57,24 @@ export async function ideasHoldingKeys(tx: Queryable, channelId: string, keys: s
   return new Map(found.rows.map((r) => [r.key, r.idea_id]));
 }
 
+/**
+ * The idea each of `keys` goes to, compared one at a time in order, each with the ideas' keys and the
+ * keys before it (intake_ideas_for_keys in the migration intake_idea_keys: one call, not a round trip
+ * per key); a new idea, worded wordings[i], where none is near. Then write the suggestions with
+ * fileUnder: until then the keys are held with no suggestions, and any left so are dropped.
+ */
+export async function ideasForKeys(tx: Queryable, channelId: string, keys: string[], wordings: string[]): Promise<string[]> {
+  if (keys.length === 0) return [];
+  const found = await tx.execute<{ ideas: string[] }>(sql`select intake_ideas_for_keys(${channelId}, ${sql.param(keys)}::text[], ${sql.param(wordings)}::text[]) as ideas`);
+  return found.rows[0]!.ideas;
+}
+
+/** Keys held with no suggestions (a row of theirs was skipped) are let go. */
+export async function dropEmptyKeys(tx: Queryable, channelId: string, keys: string[]): Promise<void> {
+  if (keys.length === 0) return;
+  await tx.execute(sql`delete from ${intakeIdeaKeys} where channel_id = ${channelId} and key = any(${sql.param(keys)}::text[]) and suggestions = 0`);
+}
+
 /** Files suggestions under ideas already chosen (ideaIds[i] for rows[i]), in one statement; returns how many were written. */
 export async function fileUnder(tx: Queryable, channelId: string, ideaIds: string[], rows: NewSuggestion[]): Promise<number> {
   if (rows.length === 0) return 0;

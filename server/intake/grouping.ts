@@ -1,5 +1,5 @@
 import type { Queryable } from "../db/client";
-import { fileGroup, fileUnder, ideasHoldingKeys, keysOf, type NewSuggestion } from "./grouping.repository";
+import { dropEmptyKeys, fileGroup, fileUnder, ideasForKeys, ideasHoldingKeys, keysOf, type NewSuggestion } from "./grouping.repository";
 
 /** The wording a new idea starts with: its first asker's words on one line, cut at 200 characters. */
 export const firstWording = (text: string) => {
@@ -21,22 +21,25 @@ export async function fileSuggestion(tx: Queryable, channelId: string, suggestio
 /**
  * Files many suggestions with the result of filing them one at a time, in order. Rows with the same
  * key would each go where the first of them went, so each distinct key is compared once, in the order
- * it first appears, and its rows are written together. A key an open idea already holds exactly is
- * nearest to that idea wherever it comes in the file, so all of those are written at once first. A row
- * whose key is empty (asking words only) opens an idea of its own. Same lock as fileSuggestion;
- * fingerprints filtered first. Returns how many were written.
+ * it first appears (ideasForKeys, one call), and then all rows are written in one statement. A key an
+ * open idea already holds exactly is nearest to that idea wherever it comes in the file, so it needs no
+ * comparing. A row whose key is empty (asking words only) opens an idea of its own. Same lock as
+ * fileSuggestion; fingerprints filtered first. Returns how many were written.
  */
 export async function fileSuggestions(tx: Queryable, channelId: string, suggestions: NewSuggestion[]): Promise<number> {
-  const groups = await byKey(tx, suggestions);
-  const held = await ideasHoldingKeys(tx, channelId, [...groups.keys()].filter((key) => !key.startsWith(NO_KEY)));
-  const known = [...groups].filter(([key]) => held.has(key));
-  let added = await fileUnder(
+  const groups = [...(await byKey(tx, suggestions))];
+  const realKey = (key: string) => (key.startsWith(NO_KEY) ? "" : key);
+  const held = await ideasHoldingKeys(tx, channelId, groups.map(([key]) => realKey(key)).filter(Boolean));
+  const fresh = groups.filter(([key]) => !held.has(key));
+  const freshIdeas = await ideasForKeys(tx, channelId, fresh.map(([key]) => realKey(key)), fresh.map(([, rows]) => firstWording(rows[0]!.text)));
+  const ideaOf = new Map([...held, ...fresh.map(([key], index): [string, string] => [key, freshIdeas[index]!])]);
+  const added = await fileUnder(
     tx,
     channelId,
-    known.flatMap(([key, rows]) => rows.map(() => held.get(key)!)),
-    known.flatMap(([, rows]) => rows),
+    groups.flatMap(([key, rows]) => rows.map(() => ideaOf.get(key)!)),
+    groups.flatMap(([, rows]) => rows),
   );
-  for (const [key, group] of groups) if (!held.has(key)) added += (await fileGroup(tx, channelId, firstWording(group[0]!.text), group)).suggestionIds.length;
+  await dropEmptyKeys(tx, channelId, fresh.map(([key]) => realKey(key)).filter(Boolean));
   return added;
 }
 
