@@ -10,7 +10,8 @@ export const firstWording = (text: string) => {
 /**
  * Files one suggestion: under the open idea that already holds the same ask, else under a new idea of
  * its own. Call inside a transaction that holds the channel's grouping lock (lockChannelGrouping).
- * Returns null, and writes nothing, when the suggestion's fingerprint was imported before.
+ * Returns null when the suggestion's fingerprint was imported before (a caller with fingerprints filters
+ * them first, as importFile does, or an idea could open for nothing).
  */
 export async function fileSuggestion(tx: Queryable, channelId: string, suggestion: NewSuggestion): Promise<{ suggestionId: string; ideaId: string; joined: boolean } | null> {
   const filed = await fileGroup(tx, channelId, firstWording(suggestion.text), [suggestion]);
