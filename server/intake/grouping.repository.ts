@@ -88,7 +88,8 @@ export async function fileUnder(tx: Queryable, channelId: string, ideaIds: strin
 /**
  * Files suggestions that share one grouping key, in one statement: the open idea holding the nearest
  * key (pg_trgm distance `<->`, KNN on intake_idea_keys' GiST index, no further than SAME_ASK allows)
- * takes them all, else a new idea worded after the first. intake_key is immutable, so the planner works
+ * takes them all, else a new idea worded after the first. An idea holding the very key is nearest, so
+ * it is looked up first (btree) and the nearest-key search runs only when none does. intake_key is immutable, so the planner works
  * the probe's key out once, before planning; an empty key (asking words only) matches nothing. Rows
  * whose fingerprint the channel already holds are left out (the caller filters them first, under the
  * grouping lock, so an idea is never opened for nothing). The statement's trigger adds the key to the
@@ -98,9 +99,14 @@ export async function fileGroup(tx: Queryable, channelId: string, wording: strin
   const probe = sql`intake_key(${rows[0]!.text})`;
   const found = await tx.execute<{ idea_id: string; joined: boolean; ids: string[] | null }>(sql`
     with nearest as (
-      select k.idea_id from ${intakeIdeaKeys} k join ${intakeIdeas} i on i.id = k.idea_id
+      (select k.idea_id from ${intakeIdeaKeys} k join ${intakeIdeas} i on i.id = k.idea_id
+      where k.channel_id = ${channelId} and ${probe} <> '' and k.key = ${probe} and i.status = 'open'
+      limit 1)
+      union all
+      (select k.idea_id from ${intakeIdeaKeys} k join ${intakeIdeas} i on i.id = k.idea_id
       where k.channel_id = ${channelId} and ${probe} <> '' and k.key % ${probe} and i.status = 'open'
       order by k.key <-> ${probe}
+      limit 1)
       limit 1),
     opened as (
       insert into ${intakeIdeas} (channel_id, wording) select ${channelId}, ${wording} where not exists (select from nearest) returning id),
