@@ -21,9 +21,9 @@ const OPENINGS = ["Can", "Can you make", "I'd love to see if", "Please try to ma
 const CLOSINGS = ["", "", "?", "?!", " please!!", " for science", " - would watch", " lol", " next episode?", "!"];
 const VERB_FORMS = (verb: string) => [verb, `${verb.replace(/e$/, "")}ing`, `${verb}s`];
 
-/** A small seeded generator (mulberry32), so every run writes the same comments. */
-function random(seed: number) {
-  let a = seed >>> 0;
+/** A small generator (mulberry32) started from a fixed number, so every run writes the same comments. */
+function random(start: number) {
+  let a = start >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;
     let t = a;
@@ -71,8 +71,8 @@ export interface Comment {
 }
 
 /** `rows` comments over `asks` asks drawn with a skew (rank r asked about 1/r^0.9 as often as the first). */
-export function comments(rows: number, asks: number, seed: number, prefix: string): Comment[] {
-  const rand = random(seed);
+export function comments(rows: number, asks: number, start: number, prefix: string): Comment[] {
+  const rand = random(start);
   const order = Array.from({ length: N * N }, (_, i) => i).sort(() => rand() - 0.5).slice(0, asks);
   const weights = order.map((_, r) => 1 / (r + 1) ** 0.9);
   const total = weights.reduce((s, w) => s + w, 0);
