@@ -8,8 +8,8 @@ import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { parseBody } from "../http/validate";
-import { fileSuggestion } from "./grouping";
-import { fingerprintsTaken, lockChannelGrouping } from "./grouping.repository";
+import { fileSuggestions } from "./grouping";
+import { fingerprintsTaken, lockChannelGrouping, type NewSuggestion } from "./grouping.repository";
 import { pageOf, savePage } from "./page.repository";
 
 const PREVIEW_ROWS = 20;
@@ -67,8 +67,8 @@ export async function previewImport(db: Database, caller: Caller, body: unknown)
 
 /**
  * Imports a whole file or nothing: every row is checked before the first is written, and all are
- * written in one transaction. Rows already imported (by fingerprint) and repeats within the file are
- * skipped. The mapping is kept for the channel's next file.
+ * written in one transaction, grouped as if filed one by one (fileSuggestions). Rows already imported
+ * (by fingerprint) and repeats within the file are skipped. The mapping is kept for the channel's next file.
  */
 export async function importFile(db: Database, caller: Caller, body: unknown): Promise<{ added: number; skipped: number }> {
   const input = parseBody(importSchema, body);
@@ -80,23 +80,15 @@ export async function importFile(db: Database, caller: Caller, body: unknown): P
     await lockChannelGrouping(tx, caller.channelId);
     const fingerprints = rows.map(fingerprintOf);
     const taken = await fingerprintsTaken(tx, caller.channelId, fingerprints);
-    let added = 0;
+    const fresh: NewSuggestion[] = [];
     for (const [index, row] of rows.entries()) {
       const fingerprint = fingerprints[index]!;
       if (taken.has(fingerprint)) continue;
       taken.add(fingerprint);
       const personKey = row.author ? `author:${row.author.toLowerCase()}` : `import:${fingerprint}`;
-      const filed = await fileSuggestion(tx, caller.channelId, {
-        text: row.text,
-        source: "import",
-        personKey,
-        author: row.author,
-        link: row.link,
-        askedAt: row.postedAt ? new Date(row.postedAt) : undefined,
-        fingerprint,
-      });
-      if (filed) added++;
+      fresh.push({ text: row.text, source: "import", personKey, author: row.author, link: row.link, askedAt: row.postedAt ? new Date(row.postedAt) : undefined, fingerprint });
     }
+    const added = await fileSuggestions(tx, caller.channelId, fresh);
     return { added, skipped: rows.length - added };
   });
 }

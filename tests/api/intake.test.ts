@@ -98,6 +98,60 @@ describe("grouping", () => {
   });
 });
 
+describe("grouping after members regroup", () => {
+  it("when ideas are merged and suggestions split off, then later asks in the same words follow them to their new idea", async () => {
+    const { owner, base } = await openChannel();
+    const add = async (text: string) => (await owner.send("post", `${base}/suggestions`, { text }).expect(201)).body as { ideaId: string; joined: boolean };
+    const hover = await add("A hovercraft made from a leaf blower");
+    const cushion = await add("Ride on an air cushion you built from garden tools");
+    expect(cushion.joined).toBe(false);
+    await owner.send("post", `${base}/ideas/${hover.ideaId}/merge`, { otherIdeaId: cushion.ideaId }).expect(200);
+    // The folded idea's words now belong to the kept idea.
+    expect(await add("ride on an air cushion you built from garden tools!")).toEqual({ ideaId: hover.ideaId, joined: true });
+
+    const detail = (await owner.get(`${base}/ideas/${hover.ideaId}`).expect(200)).body;
+    const cushionIds: string[] = detail.suggestions.filter((s: { text: string }) => /cushion/i.test(s.text)).map((s: { id: string }) => s.id);
+    const splits: string[] = [];
+    for (const id of cushionIds) splits.push((await owner.send("post", `${base}/suggestions/${id}/split`).expect(201)).body.idea.id);
+    await owner.send("post", `${base}/ideas/${splits[0]}/merge`, { otherIdeaId: splits[1] }).expect(200);
+    // Split away, the words no longer lead to the hovercraft.
+    expect(await add("Ride on an air cushion you built from garden tools?")).toEqual({ ideaId: splits[0], joined: true });
+    expect(await add("A hovercraft made from a leaf blower!")).toEqual({ ideaId: hover.ideaId, joined: true });
+  });
+
+  it("when a file repeats an ask, then its rows join one idea as if filed one by one; rows of asking words only each open their own", async () => {
+    const { owner, base } = await openChannel();
+    const rows = [
+      "Comment ID,Author,Comment",
+      "r1,Ann,Can a cordless drill power a go-kart up a steep hill?",
+      "r2,Ben,Please try to make a paper bridge that holds a brick",
+      "r3,Cat,Can a cordless drill power a go-kart up a steep hill?",
+      "r4,Dan,Please make a video!",
+      "r5,Eve,cordless dril powering a gokart up a steep hil",
+      "r6,Fay,Please make a video!",
+    ].join("\r\n");
+    const mapping = { text: "Comment", author: "Author", commentId: "Comment ID" };
+    expect((await owner.send("post", `${base}/imports`, { csv: rows, mapping }).expect(201)).body).toEqual({ added: 6, skipped: 0 });
+    const list = await ideas(owner, base);
+    expect(list.map((i) => [i.wording, i.people])).toEqual(
+      expect.arrayContaining([
+        ["Can a cordless drill power a go-kart up a steep hill?", 3],
+        ["Please try to make a paper bridge that holds a brick", 1],
+        ["Please make a video!", 1],
+        ["Please make a video!", 1],
+      ]),
+    );
+    expect(list).toHaveLength(4);
+
+    // A later file: words an idea already holds join it, in one go with the rest.
+    const later = ["Comment ID,Author,Comment", "r7,Gus,Can a cordless drill power a go-kart up a steep hill!!", "r8,Hal,Please make a video!", "r9,Ivy,A paper bridge that holds a brick?"].join("\r\n");
+    expect((await owner.send("post", `${base}/imports`, { csv: later, mapping }).expect(201)).body).toEqual({ added: 3, skipped: 0 });
+    const after = await ideas(owner, base);
+    expect(after).toHaveLength(5);
+    expect(after.map((i) => i.people).sort()).toEqual([1, 1, 1, 2, 4]);
+  });
+});
+
 describe("importing exported comments", () => {
   const csv = [
     "Comment ID,Author,Comment,Published,Link",
