@@ -23,7 +23,7 @@ export function crowdSizeFromEnv(): CrowdSize {
   };
 }
 
-const CROWDED_TABLES = ["episodes", "clips", "search_documents"];
+const CROWDED_TABLES = ["episodes", "clips", "search_documents", "search_words"];
 
 export interface CrowdFigures {
   channels: number;
@@ -140,7 +140,7 @@ async function insertClips(client: PoolClient, size: CrowdSize, share: number) {
   );
 }
 
-/** The entries the search triggers would have written (drizzle/0023_search_triggers.sql), in two statements. */
+/** The entries and channel words the search triggers would have written (search_put in drizzle/), in three statements. */
 async function insertSearchEntries(client: PoolClient, share: number) {
   await client.query(
     `insert into search_documents (kind, record_id, channel_id, episode_id, area, title, body, place)
@@ -153,6 +153,12 @@ async function insertSearchEntries(client: PoolClient, share: number) {
      select 'clip', c.id, c.channel_id, c.episode_id, 'footage', c.file_name,
        search_lines(search_words_of(c.file_name), array_to_string(c.tags, ' '), c.camera, c.notes), '{}'::jsonb
      from clips c where ${ofShare("c.channel_id", "$1")}`,
+    [share],
+  );
+  await client.query(
+    `insert into search_words (channel_id, area, word)
+     select distinct d.channel_id, d.area, w from search_documents d, unnest(search_word_list(d.title || ' ' || d.body)) as w
+     where ${ofShare("d.channel_id", "$1")}`,
     [share],
   );
 }

@@ -15,13 +15,17 @@ import { freePort, stopChild, waitForHttp } from "../processes";
 import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
 
 /**
- * `npm run bench:search`: a throwaway cluster holding 1,000 channels; one of them has 100,000
- * searchable records (episodes, bench runs, clips, marks, comments, shots), the others a few hundred
- * each, all written with set-based SQL through the real triggers. A Kerf server of its own, then
+ * `npm run bench:search`: a throwaway cluster holding the crowd (crowd.ts: BENCH_CROWD_CHANNELS,
+ * 10,000 by default, each episode and clip with its entry) and 1,000 channels more; one of them has
+ * 100,000 searchable records (episodes, bench runs, clips, marks, comments, shots), the others a few
+ * hundred each, written with set-based SQL through the real triggers. A Kerf server of its own, then
  * - searches as the owner through the HTTP route, one at a time (common and rare words, two words,
- *   a misspelling, a partial word, an accent-free spelling), for p50 and p95;
- * - an episode save (PATCH, a new title each time) with the search trigger on and off, alternating
- *   in rounds, for the extra cost of keeping the index; and the same for the bare UPDATE statement.
+ *   a misspelling, a partial word, an accent-free spelling), for p50 and p95.
+ *   The misspelling, the partial word and the absent word go the near way: the channel's word list
+ *   (search_words) by trigrams, then the entries by the words found;
+ * - an episode save (PATCH, a new title and question each time) with the update trigger
+ *   `episodes_search` on and off, alternating in rounds, for the extra cost of keeping the index
+ *   (entry, its words, the channel's new words); and the same for the bare UPDATE statement.
  * The last line is one JSON object.
  */
 const RECORDS = Number(process.env.BENCH_RECORDS ?? 100_000);

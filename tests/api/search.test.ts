@@ -101,6 +101,24 @@ describe("typos, accents and partial words", () => {
     expect(matched(comment!.snippet)).toEqual(["Crème", "brûlée"]);
   });
 
+  it("a misspelt word beside a right one finds the record holding both", async () => {
+    const answer = await search(await app.signedIn(world.owner), "sholder condiut");
+    expect(hits(answer).find((h) => h.kind === "episode")?.id).toBe(world.episode.id);
+  });
+
+  it("near spellings come only from the areas the role reads", async () => {
+    // "zephir" is near "zephyr", a word only the deal's money entry (area fees) holds besides the other channel's.
+    for (const who of ["crew", "editor"] as const) expect((await search(await app.signedIn(world[who]), "zephir")).groups).toEqual([]);
+    expect(kindsOf(await search(await app.signedIn(world.owner), "zephir"))).toContain("dealMoney");
+  });
+
+  it("a save that keeps the searched words leaves the entry as it was", async () => {
+    const before = await app.database.pool.query("select updated_at from search_documents where kind = 'episode' and record_id = $1", [world.episode.id]);
+    await app.database.pool.query("update episodes set title = title, question = question where id = $1", [world.episode.id]);
+    const after = await app.database.pool.query("select updated_at from search_documents where kind = 'episode' and record_id = $1", [world.episode.id]);
+    expect(after.rows[0].updated_at).toEqual(before.rows[0].updated_at);
+  });
+
   it("the start of a word finds it", async () => {
     expect(kindsOf(await search(await app.signedIn(world.owner), "pendul"))).toContain("clip");
   });

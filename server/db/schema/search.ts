@@ -24,14 +24,27 @@ export const searchDocuments = pgTable(
     words: tsvector("words")
       .notNull()
       .generatedAlwaysAs(sql`setweight(to_tsvector('kerf_search'::regconfig, "title"), 'A') || setweight(to_tsvector('kerf_search'::regconfig, "body"), 'B')`),
-    folded: text("folded")
-      .notNull()
-      .generatedAlwaysAs(sql`search_fold("title" || ' ' || "body")`),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     primaryKey({ columns: [t.kind, t.recordId] }),
     index("search_documents_words_idx").using("gin", t.channelId, t.words),
-    index("search_documents_folded_idx").using("gin", t.channelId, t.folded.op("gin_trgm_ops")),
   ],
+);
+
+/**
+ * The words a channel's entries have used, per area (lower case, no accents, three letters or more),
+ * written by the same triggers. A misspelt or partial word is looked up here by trigrams, and the
+ * entries are then searched for the words found: a few thousand short words per channel instead of
+ * every entry's whole text. Words stay when their entries change or go; a word no entry holds any
+ * longer finds nothing.
+ */
+export const searchWords = pgTable(
+  "search_words",
+  {
+    channelId: channelRef(),
+    area: text("area").$type<SearchArea>().notNull(),
+    word: text("word").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.channelId, t.area, t.word] }), index("search_words_near_idx").using("gin", t.channelId, t.word.op("gin_trgm_ops"))],
 );
