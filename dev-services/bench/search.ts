@@ -4,13 +4,11 @@ import path from "node:path";
 import { spawn } from "node:child_process";
 import type pg from "pg";
 import { connectDatabase } from "../../server/db/client";
-import { migrateDatabase } from "../../server/db/migrate";
 import { findInChannel } from "../../server/search/search.repository";
 import { searchableAreas } from "../../server/search/search.service";
 import { createCrewedChannel } from "../../tests/factories/accounts";
 import { repoRoot, stateDir } from "../paths";
-import { BULK_LOAD_SETTINGS, ensureDatabase, startCluster } from "../postgres";
-import { seedCrowdInto } from "./crowd";
+import { crowdedCluster } from "./kept-crowd";
 import { freePort, stopChild, waitForHttp } from "../processes";
 import { offlineServerEnv, percentile, runBench, signIn } from "./measure";
 
@@ -62,22 +60,25 @@ async function seed(pool: pg.Pool, bigChannelId: string, ownerId: string) {
   await pool.query("select set_config('bench.vocabulary', $1, false)", [WORDS.join(" ")]);
   const vocab = "string_to_array(current_setting('bench.vocabulary'), ' ')";
   // Other channels first: an owner each, then their records, so the index holds every channel's words.
-  await pool.query(
-    `with made as (insert into channels (name) select 'Other channel ' || i from generate_series(1, $1) as i returning id)
-     insert into memberships (channel_id, user_id, role) select id, $2, 'owner' from made`,
+  // Only the channels made here: the crowd (crowd.ts) has search entries of its own already.
+  const made = await pool.query<{ id: string }>(
+    `with made as (insert into channels (name) select 'Other channel ' || i from generate_series(1, $1) as i returning id),
+       owned as (insert into memberships (channel_id, user_id, role) select id, $2, 'owner' from made)
+     select id from made`,
     [CHANNELS - 1, ownerId],
   );
-  const others = `(select c.id as channel_id, row_number() over () as n from channels c where c.id <> $1)`;
+  const otherIds = made.rows.map((row) => row.id);
+  const others = `(select o.channel_id, o.n from unnest($1::uuid[]) with ordinality as o(channel_id, n))`;
   await pool.query(
     `insert into episodes (channel_id, title, question, rank)
      select o.channel_id, ${textSql(4, "'eo' || o.n || ':' || g")}, ${textSql(10, "'eq' || o.n || ':' || g")}, 'a' || lpad(g::text, 6, '0')
      from ${others} o cross join generate_series(1, $2) as g, (select ${vocab} as v) as w`,
-    [bigChannelId, Math.max(1, Math.floor(PER_OTHER_CHANNEL / 2))],
+    [otherIds, Math.max(1, Math.floor(PER_OTHER_CHANNEL / 2))],
   );
   await pool.query(
     `insert into episode_comments (channel_id, episode_id, body)
-     select e.channel_id, e.id, ${textSql(14, "'ec' || e.id")} from episodes e, (select ${vocab} as v) as w where e.channel_id <> $1`,
-    [bigChannelId],
+     select e.channel_id, e.id, ${textSql(14, "'ec' || e.id")} from episodes e, (select ${vocab} as v) as w where e.channel_id = any($1::uuid[])`,
+    [otherIds],
   );
 
   // The big channel: 5% episodes, 20% bench runs, 25% clips, 20% marks, 25% comments, 5% shots.
@@ -161,14 +162,11 @@ async function timeSaves(pool: pg.Pool, save: (i: number) => Promise<void>) {
 
 async function main() {
   rmSync(work, { recursive: true, force: true });
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: BULK_LOAD_SETTINGS });
+  const { cluster, databaseUrl, crowd } = await crowdedCluster(path.join(work, "pg"), "kerf_bench_search");
   stops.push(() => {
     cluster.stop();
     rmSync(work, { recursive: true, force: true });
   });
-  const databaseUrl = await ensureDatabase(cluster, "kerf_bench_search");
-  await migrateDatabase(databaseUrl);
-  const crowd = await seedCrowdInto(databaseUrl);
 
   const handle = connectDatabase(databaseUrl);
   stops.push(() => handle.close());
