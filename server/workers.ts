@@ -28,8 +28,8 @@ export async function startServers(start: () => Promise<RunningServer>, source: 
     console.error(`[kerf] server process ${worker.process.pid} ended (${signal ?? `code ${code}`}); starting another`);
     fork();
   };
-  // The first starts alone: starting makes the job queues, and pg-boss deadlocks when two
-  // processes make the same new queue at once (its create_queue adds a foreign key as it inserts).
+  // The first starts alone, so on a new database the others find the job queues made instead of
+  // making them at the same moment (makeQueue copes with that too, by trying again).
   const { port } = await listeningOrExit(fork());
   await Promise.all(Array.from({ length: count - 1 }, () => listeningOrExit(fork())));
   cluster.on("exit", onExit);

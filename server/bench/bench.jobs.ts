@@ -1,5 +1,6 @@
 import type PgBoss from "pg-boss";
 import { type CardContext, makeCard, RESULTS_CARD_QUEUE, type ResultsCardJob } from "./results-card.service";
+import { makeQueue } from "../jobs/make-queue";
 
 /**
  * This instance's results-card worker: one card at a time (one Chromium page), each channel's n-th
@@ -7,6 +8,6 @@ import { type CardContext, makeCard, RESULTS_CARD_QUEUE, type ResultsCardJob } f
  * job's failure and the card says so.
  */
 export async function startResultsCardWorker(boss: PgBoss, ctx: CardContext, options: { pollSeconds?: number } = {}): Promise<void> {
-  await boss.createQueue(RESULTS_CARD_QUEUE);
+  await makeQueue(boss, RESULTS_CARD_QUEUE);
   await boss.work<ResultsCardJob>(RESULTS_CARD_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeCard(ctx, job!.data));
 }

@@ -2,6 +2,7 @@ import PgBoss from "pg-boss";
 import type { SqlExecutor } from "../db/transaction";
 import type { MailJob, MailRenderers } from "../mail/mail-jobs";
 import type { Mailer, OutgoingMail } from "../mail/mailer";
+import { makeQueue } from "./make-queue";
 
 /**
  * Work that must survive a restart or an outage (mail first) goes through pg-boss on the same
@@ -41,7 +42,7 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
   const boss = new PgBoss({ connectionString: options.databaseUrl, schema: BOSS_SCHEMA, max: 4 });
   boss.on("error", (error: Error) => console.error(`[jobs] ${error.message}`));
   await boss.start();
-  await boss.createQueue(MAIL_QUEUE);
+  await makeQueue(boss, MAIL_QUEUE);
 
   /**
    * Fair between channels: pg-boss hands out jobs by priority, then age. A mail's priority is minus
@@ -65,7 +66,7 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
   function ensureQueue(queue: string): Promise<void> {
     let made = madeQueues.get(queue);
     if (!made) {
-      made = boss.createQueue(queue).catch((error: unknown) => {
+      made = makeQueue(boss, queue).catch((error: unknown) => {
         madeQueues.delete(queue);
         throw error;
       });

@@ -2,6 +2,7 @@ import type PgBoss from "pg-boss";
 import type { RushesContext } from "./rushes.context";
 import { CLIP_MEDIA_QUEUE, MEDIA_WORKERS, makeClipMedia, type ClipMediaJob } from "./media.service";
 import { sweepAbandonedUploads } from "./uploads.service";
+import { makeQueue } from "../jobs/make-queue";
 
 /**
  * Uploads nobody finished: every hour a job aborts those with no part recorded for a day in storage
@@ -12,7 +13,7 @@ export const ABANDONED_UPLOADS_QUEUE = "rushes-abandoned-uploads";
 export const ABANDONED_UPLOADS_CRON = "17 * * * *";
 
 export async function scheduleRushesJobs(boss: PgBoss, ctx: Pick<RushesContext, "db" | "storage">, options: { pollSeconds?: number } = {}): Promise<void> {
-  await boss.createQueue(ABANDONED_UPLOADS_QUEUE);
+  await makeQueue(boss, ABANDONED_UPLOADS_QUEUE);
   await boss.schedule(ABANDONED_UPLOADS_QUEUE, ABANDONED_UPLOADS_CRON, {}, { tz: "UTC" });
   // The sweep's tally (abandoned, deferred, which failed and why) becomes the job's output, where an operator can read it.
   await boss.work(ABANDONED_UPLOADS_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async () => {
@@ -30,7 +31,7 @@ export async function scheduleRushesJobs(boss: PgBoss, ctx: Pick<RushesContext, 
  * is the job's failure, recorded by pg-boss, and the clip says why.
  */
 export async function startClipMediaWorkers(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number; workers?: number } = {}): Promise<void> {
-  await boss.createQueue(CLIP_MEDIA_QUEUE);
+  await makeQueue(boss, CLIP_MEDIA_QUEUE);
   for (let n = 0; n < (options.workers ?? MEDIA_WORKERS); n++) {
     await boss.work<ClipMediaJob>(CLIP_MEDIA_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeClipMedia(ctx, job!.data));
   }

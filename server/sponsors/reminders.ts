@@ -13,6 +13,7 @@ import { seesFees } from "./deals.service";
 import { recordReminder, reminderCandidates } from "./reminders.repository";
 import { catchUpPublishDates } from "./schedule.service";
 import { DEFAULT_REMINDER_DAYS_BEFORE } from "./sponsors.repository";
+import { makeQueue } from "../jobs/make-queue";
 
 /**
  * Deliverable reminders. A scheduled pg-boss job scans open items; each reminder an item calls for is
@@ -98,7 +99,7 @@ export async function scanReminders(deps: ReminderDeps, now = new Date()): Promi
 
 /** Puts the scan on pg-boss's clock. Every instance may call this; pg-boss hands each tick to one worker. */
 export async function scheduleSponsorJobs(boss: PgBoss, deps: ReminderDeps, options: { cron?: string; pollSeconds?: number } = {}): Promise<void> {
-  await boss.createQueue(REMINDER_QUEUE);
+  await makeQueue(boss, REMINDER_QUEUE);
   await boss.schedule(REMINDER_QUEUE, options.cron ?? REMINDER_CRON);
   // The scan's tally (sent, failed, which items) becomes the job's output, where an operator can read it.
   await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: options.pollSeconds ?? 5, batchSize: 1 }, () => scanReminders(deps));

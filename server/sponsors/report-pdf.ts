@@ -5,6 +5,7 @@ import { pdfPageCount } from "../../shared/sponsors/report";
 import { sharedBrowser } from "../jobs/chromium";
 import * as repo from "./reports.repository";
 import { type ReportContext, reportUrl, SPONSOR_REPORT_QUEUE } from "./reports.service";
+import { makeQueue } from "../jobs/make-queue";
 
 /** The page the PDF is printed from may take this long to load and draw its charts. */
 const PAGE_MS = 30_000;
@@ -65,6 +66,6 @@ export async function makeReportPdf(ctx: ReportContext & { chromiumPath: string 
 
 /** This instance's report worker: one PDF at a time, each channel's n-th waiting report before any channel's (n+1)-th. */
 export async function startSponsorReportWorker(boss: PgBoss, ctx: ReportContext & { chromiumPath: string }, options: { pollSeconds?: number } = {}): Promise<void> {
-  await boss.createQueue(SPONSOR_REPORT_QUEUE);
+  await makeQueue(boss, SPONSOR_REPORT_QUEUE);
   await boss.work<ReportJob>(SPONSOR_REPORT_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeReportPdf(ctx, job!.data));
 }
