@@ -31,8 +31,8 @@ export function boardRoutes(db: Database, plugs: SlatePlugs): RouteSpec[] {
       handler: async (req, res) => {
         const filters = boardFilters(req.query as Record<string, unknown>);
         // Our preference, not the header's order: browsers list gzip first but brotli is smaller.
-        const encoding = (["br", "gzip"] as const).find((name) => req.acceptsEncodings(name) === name) ?? null;
-        const board = await boards.load(db, plugs, callerOf(req).channelId, callerOf(req), filters, { encoding });
+        const encodings = (["br", "gzip"] as const).filter((name) => req.acceptsEncodings(name) === name);
+        const board = await boards.load(db, plugs, callerOf(req).channelId, callerOf(req), filters, { encodings });
         res.set({ ETag: board.etag, "Cache-Control": "private, no-cache", Vary: "Accept-Encoding" }).type("json");
         if (req.fresh) return res.status(304).end();
         if ("encoding" in board) return res.set({ "Content-Encoding": board.encoding, "Content-Length": String(board.body.length) }).end(board.body);

@@ -6,12 +6,14 @@ import express from "express";
 import request from "supertest";
 import { describe, expect, it } from "vitest";
 import { IMMUTABLE, REVALIDATE, serveClient } from "../../server/http/client-files";
+import { SESSION_COOKIE } from "../../server/http/session";
 
 // A built client as the build writes it: hashed assets beside their .br and .gz copies.
 function builtClient(): string {
   const dist = mkdtempSync(path.join(tmpdir(), "kerf-client-"));
   mkdirSync(path.join(dist, "assets"));
-  writeFileSync(path.join(dist, "index.html"), "<!doctype html><html><head><title>Kerf</title></head><body></body></html>");
+  writeFileSync(path.join(dist, "index.html"), '<!doctype html><html><head><title>Kerf</title><link rel="stylesheet" crossorigin href="/assets/index-css123.css"></head><body></body></html>');
+  writeFileSync(path.join(dist, "assets", "index-css123.css"), ".kerf-opening{color:#fbf9f5}");
   const script = "console.log('kerf');\n".repeat(200);
   writeFileSync(path.join(dist, "assets", "index-abc123.js"), script);
   writeFileSync(path.join(dist, "assets", "index-abc123.js.br"), brotliCompressSync(script));
@@ -59,11 +61,52 @@ describe("the built client's files", () => {
   it("asks for a page's own code in its index.html, and only that page's", async () => {
     const slate = await request(app).get("/c/x/slate");
     expect(slate.headers["content-type"]).toMatch(/html/);
-    expect(slate.text).toContain('<link rel="modulepreload" crossorigin href="/assets/SlatePage-789abc.js">');
-    expect(slate.text).toContain('href="/assets/AppShell-def456.js"');
-    expect(slate.text).not.toContain('href="/assets/index-abc123.js"');
+    expect(slate.text).toContain('"/assets/SlatePage-789abc.js"');
+    expect(slate.text).toContain('"/assets/AppShell-def456.js"');
+    expect(slate.text).not.toContain('"/assets/index-abc123.js"');
     const other = await request(app).get("/c/x/nowhere");
-    expect(other.text).not.toContain("modulepreload");
+    expect(other.text).not.toContain("kerf-page-code");
+  });
+
+  it("writes the app's stylesheet into index.html, with a link that is never fetched, and sends the page compressed", async () => {
+    const page = await request(app).get("/sign-in").set("Accept-Encoding", "gzip, deflate, br");
+    expect(page.headers["content-encoding"]).toBe("br");
+    expect(page.headers.vary).toMatch(/Accept-Encoding/);
+    expect(page.text).toContain("<style>.kerf-opening{color:#fbf9f5}</style>");
+    expect(page.text).toContain('<link rel="stylesheet" crossorigin href="/assets/index-css123.css" disabled>');
+    expect((await request(app).get("/sign-in").set("Accept-Encoding", "gzip")).headers["content-encoding"]).toBe("gzip");
+    const plain = await request(app).get("/sign-in").set("Accept-Encoding", "identity");
+    expect(plain.headers["content-encoding"]).toBeUndefined();
+    expect(plain.text).toContain("<style>");
+  });
+
+  describe("a signed-in page's first answers, preloaded from its Link header", () => {
+    const channel = "0b7e9a52-3f4c-4d2e-9a1b-5c6d7e8f9a0b";
+    const episode = "1c8f0b63-4a5d-4e3f-8b2c-6d7e8f9a0b1c";
+    const cookie = `${SESSION_COOKIE}=s%3Aanything`;
+
+    it("names who is signed in and the slate's board and people", async () => {
+      const res = await request(app).get(`/c/${channel}/slate`).set("Cookie", cookie);
+      expect(res.headers.link).toBe(
+        [`/api/auth/me`, `/api/channels/${channel}/episodes`, `/api/channels/${channel}/slate/people`].map((url) => `<${url}>; rel=preload; as=fetch; crossorigin`).join(", "),
+      );
+      expect(res.headers.vary).toMatch(/Cookie/);
+    });
+
+    it("names the episode on its page, whichever part is open", async () => {
+      const res = await request(app).get(`/c/${channel}/episodes/${episode}/bench`).set("Cookie", cookie);
+      expect(res.headers.link).toContain(`</api/channels/${channel}/episodes/${episode}>`);
+    });
+
+    it("names nothing for a visitor without a session, an address with a query, or ids without an id's shape", async () => {
+      expect((await request(app).get(`/c/${channel}/slate`)).headers.link).toBeUndefined();
+      expect((await request(app).get(`/c/${channel}/slate?stage=build`).set("Cookie", cookie)).headers.link).toBeUndefined();
+      expect((await request(app).get(`/c/${encodeURIComponent("x><script>")}/slate`).set("Cookie", cookie)).headers.link).toBeUndefined();
+    });
+
+    it("names only who is signed in on a page with nothing of its own", async () => {
+      expect((await request(app).get("/account").set("Cookie", cookie)).headers.link).toBe("</api/auth/me>; rel=preload; as=fetch; crossorigin");
+    });
   });
 
   it("does not serve the build's manifest", async () => {

@@ -1,0 +1,20 @@
+import { StrictMode } from "react";
+import { createRoot } from "react-dom/client";
+import { QueryClientProvider } from "@tanstack/react-query";
+import { RouterProvider } from "react-router-dom";
+import { makeQueryClient } from "../lib/query-client";
+import { meQueryOptions } from "../lib/session";
+import { router } from "./router";
+
+const queryClient = makeQueryClient();
+// Every page first asks who is signed in: ask now, while the page's own code is still on its way
+// (a signed-in page's head has asked already, and this takes that answer).
+void queryClient.prefetchQuery(meQueryOptions());
+
+createRoot(document.getElementById("root")!).render(
+  <StrictMode>
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>
+  </StrictMode>,
+);
