@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { fold, highlight, queryWords, trigramSimilarity, wordAnswers } from "./highlight";
-import { searchHitPath } from "./schemas";
+import { searchHitPath } from "./hit-path";
 
 const marked = (runs: { text: string; match: boolean }[]) => runs.map((r) => (r.match ? `[${r.text}]` : r.text)).join("");
 

@@ -1,5 +1,6 @@
 import { Link } from "react-router-dom";
-import { searchHitPath, type SearchAnswer, type SearchHit, type TextRun } from "@shared/search/schemas";
+import { searchHitPath } from "@shared/search/hit-path";
+import type { SearchAnswer, SearchHit, TextRun } from "@shared/search/schemas";
 import { explain } from "../../../components/States";
 
 interface ResultsProps {
