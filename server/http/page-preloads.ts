@@ -1,9 +1,9 @@
 /**
  * The source modules each page's code starts from, by the address Express matches, as
- * src/app/router.tsx loads them. Named in index.html, the browser fetches a page's code together with
- * the app's instead of after the app has run: one round trip fewer before the page shows, which on a
- * phone's network is most of the wait. tests/unit/page-preloads.test.ts checks that every page the
- * router loads is named here.
+ * src/app/router.tsx loads them. With them in index.html's head the browser fetches a page's code
+ * alongside the app's own script instead of after it has run: one round trip fewer before the first
+ * paint, which on a phone's network is most of the wait. tests/unit/page-preloads.test.ts checks that
+ * every page the router loads is named here.
  */
 const SHELL = "src/app/layouts/AppShell.tsx";
 const auth = (page: string) => `src/features/auth/components/${page}.tsx`;
@@ -67,22 +67,17 @@ function closure(manifest: Manifest, keys: string[]): { scripts: Set<string>; st
   return { scripts, styles };
 }
 
-/** The module the app's entry (src/main.tsx) starts once the opening screen has painted. */
-export const APP_START = "src/app/start.tsx";
-
 /**
- * index.html with the page's own code named in it: a stylesheet link per style the page needs that
- * the entry does not already bring, and the page's scripts (the app's start and the page's modules,
- * less what the entry brings) as a JSON list that src/main.tsx asks for all at once after the first
- * paint. Asking from the head would have the browser fetch them before painting the opening screen.
+ * index.html with the page's own code asked for in its head: a modulepreload per script and a
+ * stylesheet per style the page needs that the app's entry does not already bring.
  */
 export function withPagePreloads(html: string, manifest: Manifest, modules: string[]): string {
   const entries = Object.keys(manifest).filter((key) => manifest[key]!.isEntry);
   const already = closure(manifest, entries);
-  const page = closure(manifest, manifest[APP_START] ? [APP_START, ...modules] : modules);
-  const styles = [...page.styles].filter((file) => !already.styles.has(file)).map((file) => `<link rel="stylesheet" crossorigin href="/${file}">`);
-  const scripts = [...page.scripts].filter((file) => !already.scripts.has(file)).map((file) => `/${file}`);
-  const list = scripts.length === 0 ? [] : [`<script type="application/json" id="kerf-page-code">${JSON.stringify(scripts)}</script>`];
-  const added = [...styles, ...list];
-  return added.length === 0 ? html : html.replace("</head>", `${added.join("")}</head>`);
+  const page = closure(manifest, modules);
+  const links = [
+    ...[...page.styles].filter((file) => !already.styles.has(file)).map((file) => `<link rel="stylesheet" crossorigin href="/${file}">`),
+    ...[...page.scripts].filter((file) => !already.scripts.has(file)).map((file) => `<link rel="modulepreload" crossorigin href="/${file}">`),
+  ];
+  return links.length === 0 ? html : html.replace("</head>", `${links.join("")}</head>`);
 }

@@ -61,11 +61,11 @@ describe("the built client's files", () => {
   it("asks for a page's own code in its index.html, and only that page's", async () => {
     const slate = await request(app).get("/c/x/slate");
     expect(slate.headers["content-type"]).toMatch(/html/);
-    expect(slate.text).toContain('"/assets/SlatePage-789abc.js"');
-    expect(slate.text).toContain('"/assets/AppShell-def456.js"');
-    expect(slate.text).not.toContain('"/assets/index-abc123.js"');
+    expect(slate.text).toContain('<link rel="modulepreload" crossorigin href="/assets/SlatePage-789abc.js">');
+    expect(slate.text).toContain('href="/assets/AppShell-def456.js"');
+    expect(slate.text).not.toContain('href="/assets/index-abc123.js"');
     const other = await request(app).get("/c/x/nowhere");
-    expect(other.text).not.toContain("kerf-page-code");
+    expect(other.text).not.toContain("modulepreload");
   });
 
   it("writes the app's stylesheet into index.html, with a link that is never fetched, and sends the page compressed", async () => {

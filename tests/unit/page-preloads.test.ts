@@ -21,25 +21,19 @@ const manifest: Manifest = {
 };
 const html = "<html><head><title>Kerf</title></head><body></body></html>";
 
-describe("a page's code named in its index.html", () => {
+describe("a page's code asked for with its index.html", () => {
   it("names every page the router loads", () => {
     const named = new Set(Object.values(PAGE_MODULES).flat());
     expect(routerModules().filter((module) => !named.has(module))).toEqual([]);
   });
 
-  it("lists the page's scripts that the entry does not already bring, each once, and links its styles", () => {
+  it("asks for the page's scripts and styles that the entry does not already bring, each once", () => {
     const page = withPagePreloads(html, manifest, ["src/app/layouts/AppShell.tsx", "src/features/slate/components/SlatePage.tsx"]);
-    const list = /<script type="application\/json" id="kerf-page-code">([^<]+)<\/script>/.exec(page)?.[1];
-    expect((JSON.parse(list!) as string[]).sort()).toEqual(["/assets/AppShell-e.js", "/assets/Button-d.js", "/assets/SlatePage-f.js", "/assets/board-g.js"].sort());
     const links = [...page.matchAll(/<link rel="(\w+)" crossorigin href="([^"]+)">/g)].map(([, rel, href]) => `${rel} ${href}`);
-    expect(links).toEqual(["stylesheet /assets/SlatePage-h.css"]);
-    expect(page.indexOf("kerf-page-code")).toBeLessThan(page.indexOf("</head>"));
-  });
-
-  it("lists the app's start with every page when the build has it", () => {
-    const withStart: Manifest = { ...manifest, "src/app/start.tsx": { file: "assets/start-s.js", imports: ["index.html", "_react-b.js"] } };
-    const page = withPagePreloads(html, withStart, ["src/features/slate/components/SlatePage.tsx"]);
-    expect(page).toContain('"/assets/start-s.js"');
+    expect(links.sort()).toEqual(
+      ["modulepreload /assets/AppShell-e.js", "modulepreload /assets/Button-d.js", "modulepreload /assets/SlatePage-f.js", "modulepreload /assets/board-g.js", "stylesheet /assets/SlatePage-h.css"].sort(),
+    );
+    expect(page.indexOf("<link")).toBeLessThan(page.indexOf("</head>"));
   });
 
   it("leaves the page as it is for a module the build does not know", () => {
