@@ -26,6 +26,8 @@ import { startS3StandIn } from "../s3";
  */
 const CLIPS = Number(process.env.BENCH_CLIPS ?? 50_000);
 const UPLOAD_MIB = Number(process.env.BENCH_UPLOAD_MIB ?? 1024);
+// Rounds of one direct and one presigned upload each.
+const UPLOAD_ROUNDS = Number(process.env.BENCH_UPLOAD_ROUNDS ?? 2);
 const LIST_RUNS = 200;
 const PARALLEL = 4;
 
@@ -118,7 +120,7 @@ async function main() {
 
   const setup = connectDatabase(url);
   const crewed = await createCrewedChannel(setup.db, "Bench Channel");
-  const episodes = [];
+  const episodes: Awaited<ReturnType<typeof createEpisode>>[] = [];
   for (let i = 0; i < 12; i++) episodes.push(await createEpisode(setup.db, crewed.channel.id, { title: `Bench episode ${i + 1}` }));
   const exporting = await createCrewedChannel(setup.db, "Export Channel");
   const exportEpisodes = [await createEpisode(setup.db, exporting.channel.id, { title: "Export half one" }), await createEpisode(setup.db, exporting.channel.id, { title: "Export half two" })] as const;
@@ -170,62 +172,80 @@ async function main() {
     serverPid: server.pid!,
   });
 
-  // (b) the upload: the same file, direct SDK first, then the presigned path through the app.
+  // (b) the upload: the same file by the direct SDK and by the presigned path through the app, in turns.
   const file = path.join(work, "upload.bin");
   makeFile(file, UPLOAD_MIB);
   const size = UPLOAD_MIB * MiB;
   const { partSize, partCount } = planParts(size);
   const client = makeS3Client({ endpoint: s3.endpoint, region: "us-east-1", bucket: s3.bucket, accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey, forcePathStyle: true });
 
-  console.log(`\n── upload of ${UPLOAD_MIB} MiB in ${partCount} parts of ${partSize / MiB} MiB, ${PARALLEL} at a time ──`);
-  let started = performance.now();
-  const created = await client.send(new CreateMultipartUploadCommand({ Bucket: s3.bucket, Key: "bench/direct" }));
-  const directParts: { PartNumber: number; ETag: string }[] = [];
-  await inParallel(partCount, async (n) => {
-    const body = await readPart(file, n, partSize, size);
-    const out = await client.send(new UploadPartCommand({ Bucket: s3.bucket, Key: "bench/direct", UploadId: created.UploadId, PartNumber: n, Body: body, ContentLength: body.length }));
-    directParts.push({ PartNumber: n, ETag: out.ETag! });
-  });
-  directParts.sort((a, b) => a.PartNumber - b.PartNumber);
-  await client.send(new CompleteMultipartUploadCommand({ Bucket: s3.bucket, Key: "bench/direct", UploadId: created.UploadId, MultipartUpload: { Parts: directParts } }));
-  const directSeconds = (performance.now() - started) / 1000;
-  console.log(`direct SDK:      ${directSeconds.toFixed(1)} s, ${(UPLOAD_MIB / directSeconds).toFixed(1)} MiB/s`);
+  console.log(`\n── upload of ${UPLOAD_MIB} MiB in ${partCount} parts of ${partSize / MiB} MiB, ${PARALLEL} at a time, ${UPLOAD_ROUNDS} rounds ──`);
+  const direct = async (round: number) => {
+    const key = `bench/direct-${round}`;
+    const started = performance.now();
+    const created = await client.send(new CreateMultipartUploadCommand({ Bucket: s3.bucket, Key: key }));
+    const directParts: { PartNumber: number; ETag: string }[] = [];
+    await inParallel(partCount, async (n) => {
+      const body = await readPart(file, n, partSize, size);
+      const out = await client.send(new UploadPartCommand({ Bucket: s3.bucket, Key: key, UploadId: created.UploadId, PartNumber: n, Body: body, ContentLength: body.length }));
+      directParts.push({ PartNumber: n, ETag: out.ETag! });
+    });
+    directParts.sort((a, b) => a.PartNumber - b.PartNumber);
+    await client.send(new CompleteMultipartUploadCommand({ Bucket: s3.bucket, Key: key, UploadId: created.UploadId, MultipartUpload: { Parts: directParts } }));
+    return (performance.now() - started) / 1000;
+  };
 
+  const base = `/api/channels/${crewed.channel.id}`;
+  const presigned = async () => {
+    const started = performance.now();
+    const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
+    // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
+    // each part's record sent while the next part goes, all records awaited before completing.
+    const kept = new Map<number, Promise<string>>();
+    const urlFor = (n: number) => {
+      const ready = kept.get(n);
+      if (ready) return ready;
+      const parts = [];
+      for (let next = n; next <= partCount && parts.length < SIGN_AHEAD; next++) {
+        if (kept.has(next)) continue;
+        const { start, end } = partRange(next, partSize, size);
+        parts.push({ partNumber: next, size: end - start });
+      }
+      const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
+      for (const part of parts) kept.set(part.partNumber, signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url));
+      return kept.get(n)!;
+    };
+    const records: Promise<unknown>[] = [];
+    await inParallel(partCount, async (n) => {
+      const body = await readPart(file, n, partSize, size);
+      const put = await fetch(await urlFor(n), { method: "PUT", body: new Uint8Array(body) });
+      if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
+      records.push(call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length }));
+    });
+    await Promise.all(records);
+    await call("POST", `${base}/uploads/${upload.id}/complete`, {});
+    return (performance.now() - started) / 1000;
+  };
+
+  // Direct and presigned take turns, so a drift of the machine's speed during the run (storage's disk,
+  // other work) falls on both: the ratio is of their summed times.
   const baseline = rssMb(server.pid!);
   let peak = baseline;
-  const sampler = setInterval(() => (peak = Math.max(peak, rssMb(server.pid!))), 100);
-  started = performance.now();
-  const base = `/api/channels/${crewed.channel.id}`;
-  const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
-  // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
-  // each part's record sent while the next part goes, all records awaited before completing.
-  const kept = new Map<number, Promise<string>>();
-  const urlFor = (n: number) => {
-    const ready = kept.get(n);
-    if (ready) return ready;
-    const parts = [];
-    for (let next = n; next <= partCount && parts.length < SIGN_AHEAD; next++) {
-      if (kept.has(next)) continue;
-      const { start, end } = partRange(next, partSize, size);
-      parts.push({ partNumber: next, size: end - start });
-    }
-    const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
-    for (const part of parts) kept.set(part.partNumber, signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url));
-    return kept.get(n)!;
-  };
-  const records: Promise<unknown>[] = [];
-  await inParallel(partCount, async (n) => {
-    const body = await readPart(file, n, partSize, size);
-    const put = await fetch(await urlFor(n), { method: "PUT", body: new Uint8Array(body) });
-    if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
-    records.push(call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length }));
-  });
-  await Promise.all(records);
-  await call("POST", `${base}/uploads/${upload.id}/complete`, {});
-  const presignedSeconds = (performance.now() - started) / 1000;
-  clearInterval(sampler);
-  console.log(`presigned path:  ${presignedSeconds.toFixed(1)} s, ${(UPLOAD_MIB / presignedSeconds).toFixed(1)} MiB/s (sign, PUT to storage, record, complete)`);
-  console.log(`app server RSS:  ${baseline.toFixed(0)} MB before, ${peak.toFixed(0)} MB at most during the upload`);
+  let directSeconds = 0;
+  let presignedSeconds = 0;
+  for (let round = 1; round <= UPLOAD_ROUNDS; round++) {
+    const d = await direct(round);
+    const sampler = setInterval(() => (peak = Math.max(peak, rssMb(server.pid!))), 100);
+    const p = await presigned();
+    clearInterval(sampler);
+    directSeconds += d;
+    presignedSeconds += p;
+    console.log(`round ${round}: direct SDK ${(UPLOAD_MIB / d).toFixed(1)} MiB/s, presigned path ${(UPLOAD_MIB / p).toFixed(1)} MiB/s (sign, PUT to storage, record, complete), ratio ${(d / p).toFixed(3)}`);
+  }
+  directSeconds /= UPLOAD_ROUNDS;
+  presignedSeconds /= UPLOAD_ROUNDS;
+  console.log(`all rounds:      direct ${(UPLOAD_MIB / directSeconds).toFixed(1)} MiB/s, presigned ${(UPLOAD_MIB / presignedSeconds).toFixed(1)} MiB/s, ratio ${(directSeconds / presignedSeconds).toFixed(3)}`);
+  console.log(`app server RSS:  ${baseline.toFixed(0)} MB before, ${peak.toFixed(0)} MB at most during the presigned uploads`);
 
   const result = {
     other_channels: crowd.channels,
@@ -237,6 +257,7 @@ async function main() {
     list_p95_ms: Number(percentile(timings, 95).toFixed(1)),
     list_uses_index: plan.rows.some((r: { "QUERY PLAN": string }) => /Index|Bitmap/.test(r["QUERY PLAN"])),
     upload_mib: UPLOAD_MIB,
+    upload_rounds: UPLOAD_ROUNDS,
     direct_mib_per_s: Number((UPLOAD_MIB / directSeconds).toFixed(1)),
     presigned_mib_per_s: Number((UPLOAD_MIB / presignedSeconds).toFixed(1)),
     upload_ratio: Number((directSeconds / presignedSeconds).toFixed(3)),
