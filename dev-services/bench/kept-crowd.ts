@@ -30,6 +30,8 @@ export async function crowdedCluster(dataDir: string, name: string): Promise<{ c
   mkdirSync(path.dirname(dataDir), { recursive: true });
   // cp -a keeps the files' owner (the postgres user, when run as root) and modes, as PostgreSQL wants them.
   if ((await run("cp", ["-a", kept.dataDir, dataDir])) !== 0) throw new Error(`could not copy the kept crowd from ${kept.dataDir}`);
+  // The copy leaves gigabytes for the kernel to write back; timed commits would wait behind them.
+  if ((await run("sync", [])) !== 0) throw new Error("could not flush the copied crowd to disk");
   const cluster = startCluster({ dataDir, port: await freePort(), settings: BULK_LOAD_SETTINGS });
   await renameDatabase(cluster, KEPT_DATABASE, name);
   console.log(`The other channels, from the kept copy: ${describeCrowd(kept.crowd)}`);
