@@ -1,8 +1,7 @@
 import type { Request } from "express";
+import { isUuid } from "../../shared/http/ids";
+import { CHANNEL } from "./page-preloads";
 import { SESSION_COOKIE } from "./session";
-
-const CHANNEL = "/c/:channelId";
-const ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * The API answers a page asks for as soon as its code runs, by the address Express matches (as in
@@ -24,7 +23,7 @@ export function pageDataLink(req: Request, address?: string): string | null {
   if (!req.headers.cookie?.includes(`${SESSION_COOKIE}=`) || req.url.includes("?")) return null;
   const params = req.params as Record<string, string | undefined>;
   const ids = Object.entries(params).filter(([name]) => name.endsWith("Id"));
-  if (ids.some(([, value]) => !value || !ID.test(value))) return null;
+  if (!ids.every(([, value]) => isUuid(value))) return null;
   const urls = ["/api/auth/me", ...(address && PAGE_DATA[address] ? PAGE_DATA[address](params as Record<string, string>) : [])];
   return urls.map((url) => `<${url}>; rel=preload; as=fetch; crossorigin`).join(", ");
 }

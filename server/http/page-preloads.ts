@@ -8,7 +8,7 @@
 const SHELL = "src/app/layouts/AppShell.tsx";
 const auth = (page: string) => `src/features/auth/components/${page}.tsx`;
 const inShell = (module: string) => [SHELL, module];
-const CHANNEL = "/c/:channelId";
+export const CHANNEL = "/c/:channelId";
 
 export const PAGE_MODULES: Record<string, string[]> = {
   "/sign-in": [auth("SignInPage")],
