@@ -14,11 +14,15 @@ async function brotliReady(answer: Answer): Promise<void> {
 }
 
 describe("the board's body, encoded", () => {
-  it("when a big board is first asked for by a client taking brotli and gzip, then it goes gzipped and later answers go as brotli", async () => {
+  it("when a big board is asked for by clients taking brotli and gzip, then it goes gzipped until brotli, started by the second ask, is ready", async () => {
     const answer = answerOf(2_000);
     const first = encodedBody(answer, ["br", "gzip"]);
     expect(first.encoding).toBe("gzip");
     expect(gunzipSync(first.body).toString()).toBe(textOf(answer));
+    expect(answer.brotliStarted).toBeUndefined();
+    const second = encodedBody(answer, ["br", "gzip"]);
+    expect(second).toEqual(first);
+    expect(answer.brotliStarted).toBe(true);
     await brotliReady(answer);
     const later = encodedBody(answer, ["br", "gzip"]);
     expect(later.encoding).toBe("br");

@@ -7,8 +7,8 @@ import type { SlatePlugs } from "../seams/slate-plugs";
 import { readCards, type CardContext, type PlacedCard } from "./board-cards";
 import { boardChangesBetween } from "./slate.repository";
 
-/** A card as the board keeps it: with its JSON, written once and joined into every answer. */
-export type KeptCard = PlacedCard & { json: string };
+/** A card as the board keeps it: with its JSON as UTF-8 bytes, written once and copied into every answer. */
+export type KeptCard = PlacedCard & { json: Buffer };
 
 /** One channel's board for one viewer's zone and day, as of `revision`. */
 export interface KeptBoard {
@@ -33,7 +33,7 @@ export const WHOLE_READ_MS = 60_000;
 /** More changed episodes than this and reading the board whole is about as quick. */
 const MOST_IN_PLACE = 100;
 
-const kept = (placed: PlacedCard[]): KeptCard[] => placed.map((card) => ({ ...card, json: JSON.stringify(card.card) }));
+const kept = (placed: PlacedCard[]): KeptCard[] => placed.map((card) => ({ ...card, json: Buffer.from(JSON.stringify(card.card)) }));
 const tagsJsonOf = (cards: KeptCard[]) => JSON.stringify([...new Set(cards.flatMap((c) => c.card.tags))].sort());
 
 async function flagsOf(db: Database, plugs: BoardPlugs, channelId: string, ids: string[], context: CardContext): Promise<Map<string, BoardFlag[]>> {
