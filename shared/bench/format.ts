@@ -3,7 +3,8 @@ import { type Figure, type MetricName, isFigureProblem, isQuantity } from "./met
 import type { Quantity } from "./quantity";
 import { RATIO_UNIT, unitsByDimension } from "./units";
 
-/** Words and numbers for the interface, without zod or mathjs (a criterion read against a run's figure, which converts, is ./read-criterion). */
+// Words and numbers for the interface, without zod or mathjs: the test plan sheet shows them on its first
+// paint. A criterion read against a run's figure converts units (mathjs): ./read-criterion.
 
 /** Words for the interface and the CSV; the stored keys stay stable. */
 export const metricLabels: Record<MetricName, string> = {
