@@ -1,48 +1,11 @@
 import { z } from "zod";
 import { oneLine } from "../fields/text";
 import { metricLabels } from "./format";
-import {
-  type Figure,
-  type FigureName,
-  type FigureProblem,
-  type NotMeasured,
-  type MeasurementSymbol,
-  type RunMeasurements,
-  type CraftMasses,
-  NOT_MEASURED,
-  figureNames,
-  isFigureProblem,
-  isQuantity,
-  measurementDimensions,
-  measurementSymbols,
-  runFigures,
-} from "./figures";
-import {
-  type Quantity,
-  RATIO_UNIT,
-  areCompatible,
-  describeUnit,
-  isKnownUnit,
-  quantitySchema,
-  unitsByDimension,
-  valueIn,
-} from "./quantity";
+import { type CraftMasses, type RunMeasurements, runFigures } from "./figures";
+import { type Figure, type FigureProblem, type MetricName, type NotMeasured, NOT_MEASURED, isFigureProblem, isQuantity, metricNames, metricUnit } from "./metrics";
+import { type Quantity, areCompatible, describeUnit, isKnownUnit, quantitySchema, valueIn } from "./quantity";
 
-export const metricNames = [...measurementSymbols, ...figureNames] as const;
-export type MetricName = MeasurementSymbol | FigureName;
-
-const figureUnits: Record<FigureName, string> = {
-  electrical_power: "W",
-  power_per_gram: "W/g",
-  thrust_per_watt: "gf/W",
-  thrust_to_weight: RATIO_UNIT,
-};
-
-/** The unit a metric is naturally read in; a threshold must be convertible to it. */
-export function metricUnit(metric: MetricName): string {
-  if (metric in figureUnits) return figureUnits[metric as FigureName];
-  return unitsByDimension[measurementDimensions[metric as MeasurementSymbol]][0];
-}
+export { type MetricName, metricNames, metricUnit } from "./metrics";
 
 const criterionBase = {
   metric: z.enum(metricNames),

@@ -1,28 +1,29 @@
 import { z } from "zod";
 import {
-  type Dimension,
   type Quantity,
   RATIO_UNIT,
   UnitError,
-  type UnitErrorCode,
   quantityOfSchema,
   valueIn,
 } from "./quantity";
+import { type Figure, type FigureName, NOT_MEASURED, isQuantity } from "./metrics";
+
+export {
+  type Figure,
+  type FigureName,
+  type FigureProblem,
+  type MeasurementSymbol,
+  type NotMeasured,
+  NOT_MEASURED,
+  figureNames,
+  isFigureProblem,
+  isQuantity,
+  measurementDimensions,
+  measurementSymbols,
+} from "./metrics";
 
 /** Standard acceleration of gravity in m/s², exact (3rd CGPM, 1901; NIST SP 811 (2008), Appendix B.8). */
 export const STANDARD_GRAVITY = 9.80665;
-
-export const measurementSymbols = ["mass", "voltage", "current", "thrust", "speed", "run_time"] as const;
-export type MeasurementSymbol = (typeof measurementSymbols)[number];
-
-export const measurementDimensions: Record<MeasurementSymbol, Dimension> = {
-  mass: "mass",
-  voltage: "voltage",
-  current: "current",
-  thrust: "force",
-  speed: "speed",
-  run_time: "time",
-};
 
 /** What one bench run measured; `mass` is the mass of the part under test. */
 export const runMeasurementsSchema = z.object({
@@ -34,25 +35,6 @@ export const runMeasurementsSchema = z.object({
   run_time: quantityOfSchema("time", "run time").optional(),
 });
 export type RunMeasurements = z.infer<typeof runMeasurementsSchema>;
-
-export const figureNames = ["electrical_power", "power_per_gram", "thrust_per_watt", "thrust_to_weight"] as const;
-export type FigureName = (typeof figureNames)[number];
-
-export const NOT_MEASURED = "not_measured";
-export type NotMeasured = typeof NOT_MEASURED;
-
-export type FigureProblem = { error: UnitErrorCode | "zero_divisor"; message: string };
-
-/** A derived figure: a quantity, "not measured" when an input is missing, or a problem to show. */
-export type Figure = Quantity | NotMeasured | FigureProblem;
-
-export function isQuantity(figure: Figure | undefined): figure is Quantity {
-  return typeof figure === "object" && "value" in figure;
-}
-
-export function isFigureProblem(figure: Figure | undefined): figure is FigureProblem {
-  return typeof figure === "object" && "error" in figure;
-}
 
 function computed(work: () => Figure): Figure {
   try {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { criterionSchema, metricUnit } from "./criteria";
-import { describeCriterion, formatFigure, formatNumber, outcomeLabel, preciseNumber, readCriterion, unitsForMetric } from "./format";
+import { describeCriterion, formatFigure, formatNumber, outcomeLabel, preciseNumber, unitsForMetric } from "./format";
+import { readCriterion } from "./read-criterion";
 import { areCompatible } from "./quantity";
 
 const q = (value: number, unit: string) => ({ value, unit });

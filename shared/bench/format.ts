@@ -1,6 +1,10 @@
-import type { Criterion, CriterionOutcome, MetricName, PlanVerdict } from "./criteria";
-import { type Figure, isFigureProblem, isQuantity } from "./figures";
-import { type Quantity, RATIO_UNIT, UnitError, unitsByDimension, valueIn } from "./quantity";
+import type { Criterion, CriterionOutcome, PlanVerdict } from "./criteria";
+import { type Figure, type MetricName, isFigureProblem, isQuantity } from "./metrics";
+import type { Quantity } from "./quantity";
+import { RATIO_UNIT, unitsByDimension } from "./units";
+
+// Words and numbers for the interface, without zod or mathjs: the test plan sheet shows them on its first
+// paint. A criterion read against a run's figure converts units (mathjs): ./read-criterion.
 
 /** Words for the interface and the CSV; the stored keys stay stable. */
 export const metricLabels: Record<MetricName, string> = {
@@ -48,7 +52,7 @@ export function formatFigure(figure: Figure | undefined): string {
   return "not measured";
 }
 
-const comparatorWords = { gte: "≥", lte: "≤" } as const;
+export const comparatorWords = { gte: "≥", lte: "≤" } as const;
 
 export function describeCriterion(criterion: Criterion): string {
   const metric = metricLabels[criterion.metric];
@@ -87,36 +91,3 @@ const metricUnitChoices: Record<MetricName, readonly string[]> = {
   thrust_per_watt: ["gf/W", "kgf/W", "N/W"],
   thrust_to_weight: [RATIO_UNIT],
 };
-
-function measuredIn(figure: Figure | undefined, unit: string): string | null {
-  if (!isQuantity(figure)) return null;
-  try {
-    return formatQuantity({ value: valueIn(figure, unit), unit });
-  } catch (error) {
-    if (error instanceof UnitError) return null;
-    throw error;
-  }
-}
-
-/**
- * A criterion as the bench reads it: the measured value beside the bound, both in the criterion's
- * unit ("Thrust 3.92 N ≥ 3.5 N"). Without a reading in a compatible unit it says what was needed.
- */
-export function readCriterion(criterion: Criterion, figure: Figure | undefined): string {
-  const metric = metricLabels[criterion.metric];
-  const unit = criterion.comparator === "between" ? criterion.low.unit : criterion.threshold.unit;
-  const measured = measuredIn(figure, unit);
-  if (measured === null) {
-    const why = isFigureProblem(figure) ? figure.message : "not measured";
-    return `${metric}: ${why} (needs ${describeCriterion(criterion).slice(metric.length + 1)})`;
-  }
-  switch (criterion.comparator) {
-    case "gte":
-    case "lte":
-      return `${metric} ${measured} ${comparatorWords[criterion.comparator]} ${formatQuantity(criterion.threshold)}`;
-    case "eq":
-      return `${metric} ${measured} = ${formatQuantity(criterion.threshold)} ± ${formatQuantity(criterion.tolerance)}`;
-    case "between":
-      return `${metric} ${formatQuantity(criterion.low)} ≤ ${measured} ≤ ${formatQuantity(criterion.high)}`;
-  }
-}

@@ -1,5 +1,8 @@
 import { type FactoryFunctionMap, type MathJsInstance, create, createUnitDependencies, unitDependencies } from "mathjs";
 import { z } from "zod";
+import { type Dimension, RATIO_UNIT, dimensionOf, isKnownUnit, simpleUnits, unitsByDimension } from "./units";
+
+export { type Dimension, type SimpleUnit, RATIO_UNIT, describeUnit, dimensionOf, isKnownUnit, simpleUnits, unitsByDimension } from "./units";
 
 let math: MathJsInstance | undefined;
 
@@ -17,25 +20,6 @@ function benchMath(): MathJsInstance {
   math.createUnit("gf", { definition: "0.00980665 N" });
   return math;
 }
-
-/** The units a bench measurement may be written in, grouped by what they measure. */
-export const unitsByDimension = {
-  mass: ["g", "kg", "oz", "lb"],
-  voltage: ["V", "mV"],
-  current: ["A", "mA"],
-  power: ["W"],
-  force: ["gf", "kgf", "N"],
-  time: ["s", "min"],
-  speed: ["m/s"],
-} as const;
-
-export type Dimension = keyof typeof unitsByDimension;
-export type SimpleUnit = (typeof unitsByDimension)[Dimension][number];
-
-export const simpleUnits: readonly string[] = Object.values(unitsByDimension).flat();
-
-/** The unit of a plain ratio such as thrust-to-weight (the SI Brochure's "unit one"). */
-export const RATIO_UNIT = "1";
 
 export type UnitErrorCode = "unknown_unit" | "incompatible_units";
 
@@ -57,17 +41,6 @@ export function toUnitProblem(error: UnitError): UnitProblem {
   return { error: error.code, message: error.message };
 }
 
-/**
- * A unit Kerf accepts: one of the simple units, a quotient of two of them ("gf/W", "W/g"),
- * or "1" for a plain ratio. Anything else mathjs knows (ft, hp, kV…) is refused on purpose,
- * so every figure stays in units the bench actually uses.
- */
-export function isKnownUnit(unit: string): boolean {
-  if (unit === RATIO_UNIT || simpleUnits.includes(unit)) return true;
-  const parts = unit.split("/");
-  return parts.length === 2 && parts.every((part) => part !== "m/s" && simpleUnits.includes(part));
-}
-
 export const unitSchema = z.string().refine(isKnownUnit, {
   message: `Use one of ${simpleUnits.join(", ")}, a quotient of two of them (such as gf/W), or 1 for a ratio`,
 });
@@ -83,17 +56,6 @@ export function quantityOfSchema(dimension: Dimension, label: string) {
   return quantitySchema.refine((q) => dimensionOf(q.unit) === dimension, {
     message: `${label} must be in ${unitsByDimension[dimension].join(", ")}`,
   });
-}
-
-export function dimensionOf(unit: string): Dimension | undefined {
-  for (const [dimension, units] of Object.entries(unitsByDimension)) {
-    if ((units as readonly string[]).includes(unit)) return dimension as Dimension;
-  }
-  return undefined;
-}
-
-export function describeUnit(unit: string): string {
-  return unit === RATIO_UNIT ? "a plain ratio (unit 1)" : `in ${unit}`;
 }
 
 function assertKnownUnit(unit: string): void {

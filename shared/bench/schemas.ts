@@ -2,10 +2,13 @@ import { z } from "zod";
 import { multiLine, oneLine } from "../fields/text";
 import { type Criterion, type MetricName, criterionSchema } from "./criteria";
 import { type Figure, type FigureName, measurementDimensions, measurementSymbols, runMeasurementsSchema } from "./figures";
+import { measurementLabels } from "./metrics";
 import { CUSTOM_HAZARD, hazardKinds } from "./hazards";
 import { cellCountSchema, type RatingCheck, type LowVoltageCheck } from "./packs";
 import { type Quantity, dimensionOf, isKnownUnit, quantityOfSchema, unitSchema, unitsByDimension } from "./quantity";
 import type { PlanVerdict, CriterionOutcome } from "./criteria";
+
+export { measurementLabels } from "./metrics";
 
 /** Request and response shapes of the bench feature: the same schemas check the forms and the API. */
 
@@ -20,15 +23,6 @@ const nonNegative = <S extends z.ZodType<Quantity>>(schema: S, what: string) =>
   schema.refine((q) => q.value >= 0, { message: `${what} cannot be negative`, path: ["value"] });
 
 // ── Test plan ────────────────────────────────────────────────────────────────
-
-export const measurementLabels: Record<(typeof measurementSymbols)[number], string> = {
-  mass: "Mass",
-  voltage: "Voltage",
-  current: "Current",
-  thrust: "Thrust",
-  speed: "Speed",
-  run_time: "Run time",
-};
 
 /** One quantity the plan measures: its own name and symbol, what kind of measurement it is, and its unit. */
 export const plannedQuantitySchema = z

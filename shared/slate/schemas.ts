@@ -6,19 +6,10 @@ import { versionSchema } from "../http/version";
 import type { BoardFlag } from "./flags";
 import type { GateProblem } from "./gates";
 import type { RiskReason, ScheduledStage, StageLengths } from "./schedule";
+import { origins, type Origin } from "./choices";
 import { stages, type Stage } from "./stages";
 
-/** Where a challenge came from. */
-export const origins = ["viewer", "idea", "sponsor"] as const;
-export type Origin = (typeof origins)[number];
-export const originLabels: Record<Origin, string> = {
-  viewer: "A viewer's suggestion",
-  idea: "Our own idea",
-  sponsor: "A sponsor's request",
-};
-
-/** Offered in the form; any ISO 4217 code is accepted. */
-export const commonCurrencies = ["EUR", "USD", "GBP", "NOK", "SEK", "DKK", "CHF", "CAD", "AUD", "NZD", "JPY", "PLN"] as const;
+export { boardFilterKeys, commonCurrencies, emptyEpisodeFields, originLabels, origins, type Origin } from "./choices";
 
 export const isoDateSchema = calendarDateSchema;
 
@@ -53,18 +44,6 @@ function crossFieldChecks(fields: Partial<EpisodeFieldsShape>, ctx: z.Refinement
 export const episodeFieldsSchema = episodeFieldsObject.superRefine(crossFieldChecks);
 export type EpisodeFields = z.input<typeof episodeFieldsSchema>;
 
-export const emptyEpisodeFields: EpisodeFields = {
-  title: "",
-  question: "",
-  origin: "idea",
-  originLink: "",
-  whyWorthIt: "",
-  ownerId: "",
-  tags: [],
-  budgetAmount: "",
-  budgetCurrency: "",
-  targetPublishDate: "",
-};
 
 
 /** An edit: any subset of the fields, against the version the editor saw. */
@@ -102,7 +81,6 @@ export const boardFiltersSchema = z.object({
   archived: z.literal("1").optional(),
 });
 export type BoardFilters = z.infer<typeof boardFiltersSchema>;
-export const boardFilterKeys = ["owner", "tag", "sponsor", "risk", "archived"] as const;
 
 export const episodeSummarySchema = z.object({
   id: z.string(),

@@ -1,3 +1,4 @@
+import type { QueryClient } from "@tanstack/react-query";
 import type { ComponentType } from "react";
 import type { Area, Role } from "@shared/access/roles";
 import type { Stage } from "@shared/slate/stages";
@@ -18,6 +19,8 @@ export interface EpisodeSection {
   area?: Area;
   /** Starts fetching the part's code, when it is fetched on first opening (a `lazy` component). */
   preload?: () => Promise<unknown>;
+  /** Starts fetching the part's first answers, so they come alongside its code rather than after it. */
+  prefetch?: (client: QueryClient, ids: { channelId: string; episodeId: string }) => void;
 }
 
 /**

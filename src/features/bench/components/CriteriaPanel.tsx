@@ -1,10 +1,9 @@
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { type MetricName, metricNames, metricUnit } from "@shared/bench/criteria";
-import { figureNames } from "@shared/bench/figures";
 import { describeCriterion, metricLabels, unitsForMetric } from "@shared/bench/format";
-import { RATIO_UNIT } from "@shared/bench/quantity";
-import { criterionInputSchema, type CriterionInput, type CriterionView } from "@shared/bench/schemas";
+import { type MetricName, figureNames, metricNames, metricUnit } from "@shared/bench/metrics";
+import type { CriterionInput, CriterionView } from "@shared/bench/schemas";
+import { RATIO_UNIT } from "@shared/bench/units";
 import { Button } from "../../../components/Button";
 import { FormOpener } from "../../../components/FormOpener";
 import { Notice } from "../../../components/Notice";
@@ -16,7 +15,8 @@ import { useUpdateCriterion } from "../api/update-criterion";
 import { Panel } from "./marks";
 import { CheckboxField, FormActions, QuantityField, SelectField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
-import { schemaResolver } from "../../../lib/schema-resolver";
+import { lazySchemaResolver } from "../../../lib/lazy-schema-resolver";
+import { benchSchemas } from "../schemas-later";
 
 type Comparator = CriterionInput["comparator"];
 
@@ -61,6 +61,8 @@ function toInput(values: CriterionFormValues, read = converter()) {
         : { ...base, threshold: read.quantity(values.threshold, "threshold", true) };
   return input;
 }
+
+const criterionResolver = lazySchemaResolver(async () => (await benchSchemas()).criterionInputSchema, toInput);
 
 const formFields = ["metric", "comparator", "threshold", "threshold.value", "threshold.unit", "tolerance", "tolerance.value", "tolerance.unit", "low", "low.value", "low.unit", "high", "high.value", "high.unit", "note"] as const;
 
@@ -123,7 +125,7 @@ function CriterionForm({ channelId, episodeId, criterion, onDone }: { channelId:
   const add = useAddCriterion(channelId, episodeId);
   const update = useUpdateCriterion(channelId, episodeId);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<CriterionFormValues, unknown, CriterionInput>({ resolver: schemaResolver(criterionInputSchema, toInput), defaultValues: toValues(criterion) });
+  const form = useForm<CriterionFormValues, unknown, CriterionInput>({ resolver: criterionResolver, defaultValues: toValues(criterion) });
   const record = useOpenedRecord<CriterionView>(criterion ?? null, (current) => form.reset(toValues(current)));
   const [metric, comparator] = useWatch({ control: form.control, name: ["metric", "comparator"] });
   const errors = form.formState.errors;

@@ -3,13 +3,15 @@ import { Link } from "react-router-dom";
 import { type Role, roleMay } from "@shared/access/roles";
 import { columnUnit, describeSupply } from "@shared/bench/comparison";
 import { type Figure, figureNames, isQuantity, measurementSymbols } from "@shared/bench/figures";
-import { formatFigure, formatQuantity, metricLabels, readCriterion } from "@shared/bench/format";
+import { formatFigure, formatQuantity, metricLabels } from "@shared/bench/format";
+import { readCriterion } from "@shared/bench/read-criterion";
 import type { CriterionView, RunView } from "@shared/bench/schemas";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { FootageShown } from "../../../lib/footage-shown";
 import { useDeleteRun } from "../api/delete-run";
-import { asEntered, Caution, OutcomeMark, VerdictBadge } from "./marks";
+import { asEntered } from "./as-entered";
+import { Caution, OutcomeMark, VerdictBadge } from "./marks";
 
 /** One run: what was on the bench, what was read (as entered), what Kerf derived, and how the plan judges it. */
 export function RunCard({

@@ -1,8 +1,7 @@
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
 import { CUSTOM_HAZARD, FLYING_NOTE, SAFETY_NOTE, hazardCatalogue, hazardKinds, type HazardChoice } from "@shared/bench/hazards";
-import { hazardInputSchema, type HazardInput, type HazardView } from "@shared/bench/schemas";
+import type { HazardInput, HazardView } from "@shared/bench/schemas";
 import { AskFirst } from "../../../components/AskFirst";
 import { Button } from "../../../components/Button";
 import { FormOpener } from "../../../components/FormOpener";
@@ -16,7 +15,10 @@ import { useDeleteHazard } from "../api/delete-hazard";
 import { useUpdateHazard } from "../api/update-hazard";
 import { Caution, Panel } from "./marks";
 import { FormActions, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
-import { applyServerErrors } from "../../../lib/forms";
+import { applyServerErrors, lazyZodResolver } from "../../../lib/forms";
+import { benchSchemas } from "../schemas-later";
+
+const hazardResolver = lazyZodResolver<HazardInput>(async () => (await benchSchemas()).hazardInputSchema);
 
 /** The listed hazards not on the plan yet, then "other": a listed hazard goes on a plan once. */
 const hazardOptionsBesides = (listed: Set<string>) => [
@@ -148,7 +150,7 @@ function HazardForm({ channelId, episodeId, listed, onDone }: { channelId: strin
   const options = hazardOptionsBesides(listed);
   const first = (options[0]?.value ?? CUSTOM_HAZARD) as HazardChoice;
   const startingValues = { kind: first, title: "", mitigation: first === CUSTOM_HAZARD ? "" : hazardCatalogue[first].suggestedMitigation };
-  const form = useForm<HazardInput>({ resolver: zodResolver(hazardInputSchema), defaultValues: startingValues });
+  const form = useForm<HazardInput>({ resolver: hazardResolver, defaultValues: startingValues });
   const kind = useWatch({ control: form.control, name: "kind" });
   const errors = form.formState.errors;
 

@@ -1,10 +1,10 @@
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { roleMay } from "@shared/access/roles";
-import { measurementDimensions, measurementSymbols } from "@shared/bench/figures";
 import { formatQuantity } from "@shared/bench/format";
-import { unitsByDimension } from "@shared/bench/quantity";
-import { measurementLabels, testPlanInputSchema, type TestPlanInput, type TestPlanView } from "@shared/bench/schemas";
+import { measurementDimensions, measurementLabels, measurementSymbols } from "@shared/bench/metrics";
+import type { TestPlanInput, TestPlanView } from "@shared/bench/schemas";
+import { unitsByDimension } from "@shared/bench/units";
 import { Button } from "../../../components/Button";
 import { Notice } from "../../../components/Notice";
 import { QueryState } from "../../../components/States";
@@ -17,7 +17,8 @@ import { Panel } from "./marks";
 import { SafetyPanel } from "./SafetyPanel";
 import { QuantityField, SelectField, TextAreaField, TextField } from "../../../components/form-fields";
 import { type QuantityText, applyServerErrors, converter, errorAt, quantityText } from "../../../lib/forms";
-import { schemaResolver } from "../../../lib/schema-resolver";
+import { lazySchemaResolver } from "../../../lib/lazy-schema-resolver";
+import { benchSchemas } from "../schemas-later";
 
 /** The episode page's test plan sheet: the question made testable, its pass criteria and its safety list. */
 export function TestPlanSheet({ channelId, episodeId, role }: EpisodeSectionProps) {
@@ -87,13 +88,15 @@ const toInput = (values: PlanFormValues, read = converter()) => ({
   airframeMass: read.quantity(values.airframeMass, "airframeMass"),
 });
 
+const planResolver = lazySchemaResolver(async () => (await benchSchemas()).testPlanInputSchema, toInput);
+
 const measureOptions = measurementSymbols.map((symbol) => ({ value: symbol, label: measurementLabels[symbol] }));
 const unitsOf = (measures: (typeof measurementSymbols)[number]) => unitsByDimension[measurementDimensions[measures]];
 
 function PlanForm({ channelId, episodeId, plan }: { channelId: string; episodeId: string; plan: TestPlanView }) {
   const save = useSaveTestPlan(channelId, episodeId);
   const [notice, setNotice] = useState<{ kind: "error" | "success"; text: string } | null>(null);
-  const form = useForm<PlanFormValues, unknown, TestPlanInput>({ resolver: schemaResolver(testPlanInputSchema, toInput), defaultValues: toValues(plan) });
+  const form = useForm<PlanFormValues, unknown, TestPlanInput>({ resolver: planResolver, defaultValues: toValues(plan) });
   // The sheet as this form opened it: a save is made against its version (0 before the first save).
   const record = useOpenedRecord(plan, (current) => form.reset(toValues(current)));
   const quantities = useFieldArray({ control: form.control, name: "quantities" });

@@ -1,8 +1,6 @@
 import type { ReactNode } from "react";
 import type { CriterionOutcome, PlanVerdict } from "@shared/bench/criteria";
-import { figureIn } from "@shared/bench/comparison";
-import { formatNumber, formatQuantity, verdictLabels } from "@shared/bench/format";
-import type { Quantity } from "@shared/bench/quantity";
+import { verdictLabels } from "@shared/bench/format";
 
 /** Small marks the bench screens share: verdicts, outcomes, cautions. Words always come with the colour. */
 
@@ -59,11 +57,4 @@ export function Caution({ title, children }: { title: string; children: ReactNod
 
 export function Panel({ children, className = "" }: { children: ReactNode; className?: string }) {
   return <div className={`rounded-lg border border-ply-300 bg-white p-5 ${className}`}>{children}</div>;
-}
-
-/** A quantity as typed, with the comparison unit beside it when it differs: "9800 mA = 9.8 A". */
-export function asEntered(quantity: Quantity, unit: string): string {
-  if (quantity.unit === unit) return formatQuantity(quantity);
-  const converted = figureIn(quantity, unit);
-  return converted === null ? formatQuantity(quantity) : `${formatQuantity(quantity)} = ${formatNumber(converted)} ${unit}`;
 }

@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import { boardFilterKeys, type Board, type BoardFilters } from "@shared/slate/schemas";
+import { boardFilterKeys } from "@shared/slate/choices";
+import type { Board, BoardFilters } from "@shared/slate/schemas";
 import { api } from "../../../lib/api-client";
 import { slateKeys } from "./keys";
 

@@ -1,5 +1,5 @@
 import { useRef, useState, type ReactNode } from "react";
-import { commentSchema, type EpisodeComment } from "@shared/slate/schemas";
+import type { EpisodeComment } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { TextAreaField } from "../../../components/form-fields";
 import { Notice } from "../../../components/Notice";
@@ -9,6 +9,7 @@ import { useTimeZone } from "../../../lib/session";
 import { useAddComment } from "../api/add-comment";
 import { useComments } from "../api/get-comments";
 import { usePeople } from "../api/get-people";
+import { slateSchemas } from "../schemas-later";
 import { useMentionSuggestions } from "./MentionSuggestions";
 
 /** Comments on the episode; "@Name" mentions a member, who gets an e-mail. */
@@ -81,6 +82,7 @@ function CommentForm({ channelId, episodeId }: { channelId: string; episodeId: s
 
   const submit = async () => {
     setSent(null);
+    const { commentSchema } = await slateSchemas();
     const parsed = commentSchema.safeParse({ body });
     if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? "Write a comment first.");
     setError(null);

@@ -1,4 +1,5 @@
 import { Suspense, useEffect, useRef, type ReactNode } from "react";
+import { useQueryClient } from "@tanstack/react-query";
 import { Link, Navigate, useLocation, useParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
 import type { EpisodeDetail } from "@shared/slate/schemas";
@@ -26,8 +27,8 @@ export function EpisodePage({ sections }: { sections: EpisodeSection[] }) {
 function Episode(props: EpisodeSectionProps & { sections: EpisodeSection[] }) {
   const episode = useEpisode(props.channelId, props.episodeId);
   const { part } = useParams();
-  // The part the address names is fetched beside the episode, not after it.
-  useEffect(() => void props.sections.find((s) => s.id === part)?.preload?.(), [part, props.sections]);
+  // The part the address names (its code and answers) is fetched beside the episode, not after it.
+  useOpenPartEarly(props.sections.find((s) => s.id === part), props.channelId, props.episodeId);
   return (
     <QueryState query={episode} loading="Loading the episode…" page back={{ to: `/c/${props.channelId}/slate`, label: "Slate" }}>
       {(detail) => <EpisodeView {...props} detail={detail} />}
@@ -78,6 +79,7 @@ function EpisodeView(props: EpisodeSectionProps & { sections: EpisodeSection[]; 
   const stagePart = openPart(e.stage, undefined, ids);
   const justCreated = (location.state as { created?: boolean } | null)?.created === true;
   const current = parts.find((p) => p.id === open);
+  useOpenPartEarly(props.sections.find((s) => s.id === open), channelId, episodeId);
 
   // An address without a part (or with one the page lacks) is written out, so it always says what is open.
   if (!current || named !== open) return <Navigate to={`${base}/${open}`} replace state={location.state} />;
@@ -112,6 +114,18 @@ function EpisodeView(props: EpisodeSectionProps & { sections: EpisodeSection[]; 
       </div>
     </article>
   );
+}
+
+/**
+ * The open part's code and its first answers, both asked for as soon as the episode says which part
+ * opens: the code no longer waits for the redirect to the part's address, nor the answers for the code.
+ */
+function useOpenPartEarly(section: EpisodeSection | undefined, channelId: string, episodeId: string) {
+  const client = useQueryClient();
+  useEffect(() => {
+    void section?.preload?.();
+    section?.prefetch?.(client, { channelId, episodeId });
+  }, [section, client, channelId, episodeId]);
 }
 
 /** The open part; switching parts from low on the page brings the new one's top into view. */

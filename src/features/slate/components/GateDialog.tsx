@@ -1,16 +1,18 @@
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import type { GateProblem } from "@shared/slate/gates";
-import { moveEpisodeSchema } from "@shared/slate/schemas";
 import { stageLabels, type Stage } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
 import { TextAreaField } from "../../../components/form-fields";
+import { slateSchemas } from "../schemas-later";
 import { Dialog } from "./Dialog";
 
 /** A forward move past missing essentials: say what is missing, and move on only with a reason. */
 export function GateDialog({ title, to, problems, onCancel, onConfirm }: { title: string; to: Stage; problems: GateProblem[]; onCancel: () => void; onConfirm: (reason: string) => void }) {
   const [reason, setReason] = useState("");
   const [error, setError] = useState<string | null>(null);
-  const confirm = () => {
+  useEffect(() => void slateSchemas(), []);
+  const confirm = async () => {
+    const { moveEpisodeSchema } = await slateSchemas();
     const parsed = moveEpisodeSchema.shape.reason.safeParse(reason);
     if (!parsed.success || !parsed.data) return setError(parsed.success ? "Say in a few words why it moves on anyway." : (parsed.error.issues[0]?.message ?? "Give a reason."));
     onConfirm(parsed.data);
@@ -28,7 +30,7 @@ export function GateDialog({ title, to, problems, onCancel, onConfirm }: { title
         <Button tone="quiet" onClick={onCancel}>
           Keep it here
         </Button>
-        <Button onClick={confirm}>Move it on</Button>
+        <Button onClick={() => void confirm()}>Move it on</Button>
       </div>
     </Dialog>
   );

@@ -1,5 +1,6 @@
 import { useState } from "react";
-import { originLabels, type EpisodeDetail, type EpisodeFields, type EpisodeRecord } from "@shared/slate/schemas";
+import { originLabels } from "@shared/slate/choices";
+import type { EpisodeDetail, EpisodeFields, EpisodeRecord } from "@shared/slate/schemas";
 import { stageIndex, stageLabels, stages, type Stage } from "@shared/slate/stages";
 import type { GateProblem } from "@shared/slate/gates";
 import { Button } from "../../../components/Button";
@@ -10,7 +11,7 @@ import { useEditEpisode } from "../api/edit-episode";
 import { isConflict } from "../api/episode-mutation";
 import { gateProblemsOf, useMoveEpisode } from "../api/move-episode";
 import { Dialog } from "./Dialog";
-import { EpisodeForm } from "./EpisodeForm";
+import { EpisodeForm } from "./EpisodeFormLoader";
 import { formatDay, formatMoney } from "../../../lib/format";
 import { GateDialog } from "./GateDialog";
 

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { isoDateSchema, type EpisodeDetail } from "@shared/slate/schemas";
+import type { EpisodeDetail } from "@shared/slate/schemas";
 import type { ScheduledStage } from "@shared/slate/schedule";
 import { stageIndex, stageLabels } from "@shared/slate/stages";
 import { Button } from "../../../components/Button";
@@ -7,6 +7,7 @@ import { Notice } from "../../../components/Notice";
 import { Empty } from "../../../components/States";
 import { isConflict } from "../api/episode-mutation";
 import { useOverrideDueDate } from "../api/override-due-date";
+import { slateSchemas } from "../schemas-later";
 import { Flag } from "./Flag";
 import { formatDay } from "../../../lib/format";
 
@@ -104,9 +105,10 @@ function OverrideControl({ channelId, episodeId, version, row, onError }: { chan
   const override = useOverrideDueDate(channelId, episodeId);
   const [value, setValue] = useState(row.due);
   const [fieldError, setFieldError] = useState<string | null>(null);
-  const save = (dueDate: string | null) => {
+  const save = async (dueDate: string | null) => {
     onError(null);
     if (dueDate !== null) {
+      const { isoDateSchema } = await slateSchemas();
       const parsed = isoDateSchema.safeParse(dueDate);
       if (!parsed.success) return setFieldError(parsed.error.issues[0]?.message ?? "Pick a date.");
     }
@@ -120,11 +122,11 @@ function OverrideControl({ channelId, episodeId, version, row, onError }: { chan
   return (
     <div className="flex flex-wrap items-center gap-1">
       <input type="date" aria-label={label} value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={fieldError ? true : undefined} className="rounded border border-ply-300 px-1.5 py-1 text-sm" />
-      <Button tone="quiet" className="px-2 py-1" busy={override.isPending} disabled={value === row.due} onClick={() => save(value)}>
+      <Button tone="quiet" className="px-2 py-1" busy={override.isPending} disabled={value === row.due} onClick={() => void save(value)}>
         Set
       </Button>
       {row.overridden && (
-        <Button tone="quiet" className="px-2 py-1" onClick={() => save(null)}>
+        <Button tone="quiet" className="px-2 py-1" onClick={() => void save(null)}>
           Use counted
         </Button>
       )}

@@ -1,7 +1,8 @@
-import { useDeferredValue, useState } from "react";
+import { useDeferredValue, useEffect, useState } from "react";
 import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import { roleMay } from "@shared/access/roles";
-import { boardFilterKeys, boardFiltersSchema, emptyEpisodeFields, type BoardFilters } from "@shared/slate/schemas";
+import { boardFilterKeys, emptyEpisodeFields } from "@shared/slate/choices";
+import type { BoardFilters } from "@shared/slate/schemas";
 import { Button } from "../../../components/Button";
 import { PageHeader } from "../../../components/PageHeader";
 import { Empty, Loading, QueryState } from "../../../components/States";
@@ -12,14 +13,18 @@ import { useCreateEpisode } from "../api/create-episode";
 import { Board } from "./Board";
 import { BoardFilterBar } from "./BoardFilterBar";
 import { Dialog } from "./Dialog";
-import { EpisodeForm } from "./EpisodeForm";
+import { EpisodeForm } from "./EpisodeFormLoader";
 import { formatDay } from "../../../lib/format";
 
 /** Every episode of the channel, one column per stage. */
 export function SlatePage() {
   const channel = useChannel();
+  const [filters, setFilters] = useBoardFilters();
+  if (!filters) return <Loading label="Loading the slate…" page />;
   return (
     <Slate
+      filters={filters}
+      setFilters={setFilters}
       channelId={channel.channelId}
       channelName={channel.channelName}
       canMove={roleMay(channel.role, "episodes", "W")}
@@ -28,22 +33,47 @@ export function SlatePage() {
   );
 }
 
-/** Filters as the URL holds them; anything malformed there is dropped rather than failing the page. */
-function useBoardFilters(): [BoardFilters, (next: BoardFilters) => void] {
+type FiltersSchema = (typeof import("@shared/slate/schemas"))["boardFiltersSchema"];
+let filtersSchema: FiltersSchema | undefined;
+const loadFiltersSchema = async () => (filtersSchema ??= (await import("@shared/slate/schemas")).boardFiltersSchema);
+
+/**
+ * Filters as the URL holds them; anything malformed there is dropped rather than failing the page.
+ * Their schema (and zod with it) is fetched only once the address has filters, or one is picked:
+ * until it is there the filters of an address with some are undefined and the board waits.
+ */
+function useBoardFilters(): [BoardFilters | undefined, (next: BoardFilters) => void] {
   const [params, setParams] = useSearchParams();
+  const [schema, setSchema] = useState(() => filtersSchema);
   const picked = Object.fromEntries(boardFilterKeys.flatMap((key) => (params.get(key) ? [[key, params.get(key)!]] : [])));
-  const parsed = boardFiltersSchema.safeParse(picked);
-  const filters = parsed.success ? parsed.data : {};
+  const any = Object.keys(picked).length > 0;
+  useEffect(() => {
+    if (any && !schema) void loadFiltersSchema().then((loaded) => setSchema(() => loaded));
+  }, [any, schema]);
+  const parsed = any ? schema?.safeParse(picked) : undefined;
+  const filters = !any ? {} : parsed && (parsed.success ? parsed.data : {});
   const setFilters = (next: BoardFilters) => {
     const out = new URLSearchParams();
     for (const key of boardFilterKeys) if (next[key]) out.set(key, next[key]!);
-    setParams(out, { replace: true });
+    // The schema first, so the page never waits for it with a filter in the address (and the focus stays put).
+    void loadFiltersSchema().then((loaded) => {
+      setSchema(() => loaded);
+      setParams(out, { replace: true });
+    });
   };
   return [filters, setFilters];
 }
 
-function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId: string; channelName: string; canMove: boolean; canSeeSettings: boolean }) {
-  const [filters, setFilters] = useBoardFilters();
+interface SlateProps {
+  filters: BoardFilters;
+  setFilters: (next: BoardFilters) => void;
+  channelId: string;
+  channelName: string;
+  canMove: boolean;
+  canSeeSettings: boolean;
+}
+
+function Slate({ filters, setFilters, channelId, channelName, canMove, canSeeSettings }: SlateProps) {
   const board = useBoard(channelId, filters);
   // The first paint of a big board renders in the background (React yields between cards), so the
   // page stays responsive; later changes (a drop) render at once from the live data.
@@ -66,7 +96,11 @@ function Slate({ channelId, channelName, canMove, canSeeSettings }: { channelId:
                 Stage lengths
               </Link>
             )}
-            {canMove && <Button onClick={() => setCreating(true)}>New episode</Button>}
+            {canMove && (
+              <Button onClick={() => setCreating(true)} onPointerEnter={() => void EpisodeForm.preload()} onFocus={() => void EpisodeForm.preload()}>
+                New episode
+              </Button>
+            )}
           </>
         }
       />
