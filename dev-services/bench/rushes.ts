@@ -1,4 +1,5 @@
 import { spawn } from "node:child_process";
+import http from "node:http";
 import { closeSync, openSync, readFileSync, rmSync, writeSync, mkdirSync } from "node:fs";
 import { open } from "node:fs/promises";
 import path from "node:path";
@@ -16,6 +17,7 @@ import { percentile, signIn } from "./measure";
 import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
 import { crowdedCluster } from "./kept-crowd";
 import { startS3StandIn } from "../s3";
+import { PartRecords } from "../../src/features/rushes/uploader/part-records";
 
 /**
  * `npm run bench:rushes`: among 10,000 other channels (crowd.ts), (a) the footage list over 50,000 seeded clips with a three-field filter,
@@ -93,6 +95,28 @@ async function readPart(file: string, partNumber: number, partSize: number, size
   } finally {
     await handle.close();
   }
+}
+
+/**
+ * One part's PUT to its signed URL, sent as the direct SDK sends its parts (node:http with the Buffer,
+ * Content-Length set, a keep-alive agent of 50 sockets as the SDK's NodeHttpHandler makes), so both
+ * paths use the same transport. A browser sends these with its own network stack, not the page's
+ * JavaScript; Node's fetch would copy each 8 MiB body and measure fetch, not Kerf.
+ */
+const storageAgent = new http.Agent({ keepAlive: true, maxSockets: 50 });
+function putPart(url: string, body: Buffer): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const request = http.request(url, { method: "PUT", agent: storageAgent, headers: { "content-length": body.length } }, (response) => {
+      response.resume();
+      response.on("end", () => {
+        const etag = response.headers.etag;
+        if (response.statusCode === 200 && etag) resolve(etag);
+        else reject(new Error(`PUT ${new URL(url).pathname}: ${response.statusCode}`));
+      });
+    });
+    request.on("error", reject);
+    request.end(body);
+  });
 }
 
 /** Runs `task(n)` for parts 1..count with `PARALLEL` in flight, as the browser's queue does. */
@@ -200,7 +224,7 @@ async function main() {
     const started = performance.now();
     const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
     // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
-    // each part's record sent while the next part goes, all records awaited before completing.
+    // stored parts recorded in batches by the browser's own PartRecords, all records sent before completing.
     const kept = new Map<number, Promise<string>>();
     const urlFor = (n: number) => {
       const ready = kept.get(n);
@@ -212,17 +236,19 @@ async function main() {
         parts.push({ partNumber: next, size: end - start });
       }
       const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
-      for (const part of parts) kept.set(part.partNumber, signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url));
+      for (const part of parts) {
+        const url = signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url);
+        url.catch(() => undefined);
+        kept.set(part.partNumber, url);
+      }
       return kept.get(n)!;
     };
-    const records: Promise<unknown>[] = [];
+    const records = new PartRecords((parts) => call("POST", `${base}/uploads/${upload.id}/parts`, { parts }), () => undefined);
     await inParallel(partCount, async (n) => {
       const body = await readPart(file, n, partSize, size);
-      const put = await fetch(await urlFor(n), { method: "PUT", body: new Uint8Array(body) });
-      if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
-      records.push(call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length }));
+      records.add({ partNumber: n, etag: await putPart(await urlFor(n), body), size: body.length });
     });
-    await Promise.all(records);
+    await records.flush();
     await call("POST", `${base}/uploads/${upload.id}/complete`, {});
     return (performance.now() - started) / 1000;
   };
