@@ -22,7 +22,9 @@ import { PartRecords } from "../../src/features/rushes/uploader/part-records";
 /**
  * `npm run bench:rushes`: among 10,000 other channels (crowd.ts), (a) the footage list over 50,000 seeded clips with a three-field filter,
  * its p95 and its query plan; (b) a 1 GiB upload through the presigned multipart path next to a direct
- * SDK upload of the same file to the same stand-in, with the app server's resident memory watched;
+ * SDK upload of the same file to the same stand-in, in turns, with the app server's resident memory
+ * watched: the same parts, four at a time, over the same transport (node:http, keep-alive), the
+ * presigned path signing and recording its parts with Kerf in batches as the browser does;
  * (c) the CSV export of a channel of 5,000 clips × 10 marks, and how long another channel waits meanwhile.
  * Everything runs on throwaway services of its own; the last line is one JSON object.
  */
