@@ -255,6 +255,9 @@ async function main() {
     return (performance.now() - started) / 1000;
   };
 
+  // The SDK hashes each part for its signature (SHA-256 of the Buffer, @smithy/signature-v4's
+  // getPayloadHash) and asks for 100-continue first (@aws-sdk/middleware-sdk-s3); a presigned URL
+  // signs the length, not the bytes. So on a busy machine the presigned path may be the faster one.
   // Direct and presigned take turns, so a drift of the machine's speed during the run (storage's disk,
   // other work) falls on both: the ratio is of their summed times.
   const baseline = rssMb(server.pid!);
