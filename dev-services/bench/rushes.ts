@@ -5,7 +5,8 @@ import { open } from "node:fs/promises";
 import path from "node:path";
 import { CompleteMultipartUploadCommand, CreateMultipartUploadCommand, UploadPartCommand } from "@aws-sdk/client-s3";
 import { footageQuerySchema } from "../../shared/rushes/footage-query";
-import { MiB, partRange, planParts, SIGN_AHEAD } from "../../shared/rushes/limits";
+import { MiB, partRange, planParts } from "../../shared/rushes/limits";
+import type { PartUrlsAnswer } from "../../shared/rushes/schemas";
 import { connectDatabase } from "../../server/db/client";
 import { listClips } from "../../server/rushes/clips.repository";
 import { makeS3Client } from "../../server/storage/storage";
@@ -18,6 +19,7 @@ import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
 import { crowdedCluster } from "./kept-crowd";
 import { startS3StandIn } from "../s3";
 import { PartRecords } from "../../src/features/rushes/uploader/part-records";
+import { PartSigner } from "../../src/features/rushes/uploader/part-signer";
 
 /**
  * `npm run bench:rushes`: among 10,000 other channels (crowd.ts), (a) the footage list over 50,000 seeded clips with a three-field filter,
@@ -225,30 +227,15 @@ async function main() {
   const presigned = async () => {
     const started = performance.now();
     const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
-    // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
-    // stored parts recorded in batches by the browser's own PartRecords, all records sent before completing.
-    const kept = new Map<number, Promise<string>>();
-    const urlFor = (n: number) => {
-      const ready = kept.get(n);
-      if (ready) return ready;
-      const parts = [];
-      for (let next = n; next <= partCount && parts.length < SIGN_AHEAD; next++) {
-        if (kept.has(next)) continue;
-        const { start, end } = partRange(next, partSize, size);
-        parts.push({ partNumber: next, size: end - start });
-      }
-      const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
-      for (const part of parts) {
-        const url = signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url);
-        url.catch(() => undefined);
-        kept.set(part.partNumber, url);
-      }
-      return kept.get(n)!;
-    };
+    // The browser's own signer and records (src/features/rushes/uploader): URLs asked SIGN_AHEAD parts
+    // per request ahead of their turn, stored parts recorded in batches, all records sent before completing.
+    const plan = { uploadId: upload.id, partSize, size, partCount };
+    const signer = new PartSigner(async (uploadId, parts) => ((await call("POST", `${base}/uploads/${uploadId}/part-urls`, { parts })) as unknown as PartUrlsAnswer).urls);
     const records = new PartRecords((parts) => call("POST", `${base}/uploads/${upload.id}/parts`, { parts }), () => undefined);
     await inParallel(partCount, async (n) => {
       const body = await readPart(file, n, partSize, size);
-      records.add({ partNumber: n, etag: await putPart(await urlFor(n), body), size: body.length });
+      const url = await signer.urlFor(plan, n, body.length, (p) => records.has(p));
+      records.add({ partNumber: n, etag: await putPart(url, body), size: body.length });
     });
     await records.flush();
     await call("POST", `${base}/uploads/${upload.id}/complete`, {});

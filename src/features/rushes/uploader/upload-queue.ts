@@ -9,6 +9,7 @@ import { completeUpload } from "../api/complete-upload";
 import { findByChecksum } from "../api/find-by-checksum";
 import { getUpload } from "../api/get-upload";
 import { recordParts } from "../api/record-parts";
+import { signParts } from "../api/sign-parts";
 import { startUpload } from "../api/start-upload";
 import { PartRecords } from "./part-records";
 import { PartSigner } from "./part-signer";
@@ -195,7 +196,7 @@ export class UploadQueue {
           this.emit();
         },
       ),
-      signer: new PartSigner(this.channelId),
+      signer: new PartSigner((uploadId, parts) => signParts(this.channelId, uploadId, parts)),
       metadata: null,
       sha256: null,
       duplicate: null,
