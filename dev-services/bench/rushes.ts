@@ -1,10 +1,12 @@
 import { spawn } from "node:child_process";
+import http from "node:http";
 import { closeSync, openSync, readFileSync, rmSync, writeSync, mkdirSync } from "node:fs";
 import { open } from "node:fs/promises";
 import path from "node:path";
 import { CompleteMultipartUploadCommand, CreateMultipartUploadCommand, UploadPartCommand } from "@aws-sdk/client-s3";
 import { footageQuerySchema } from "../../shared/rushes/footage-query";
-import { MiB, partRange, planParts, SIGN_AHEAD } from "../../shared/rushes/limits";
+import { MiB, partRange, planParts } from "../../shared/rushes/limits";
+import type { PartUrlsAnswer } from "../../shared/rushes/schemas";
 import { connectDatabase } from "../../server/db/client";
 import { listClips } from "../../server/rushes/clips.repository";
 import { makeS3Client } from "../../server/storage/storage";
@@ -16,11 +18,15 @@ import { percentile, signIn } from "./measure";
 import { benchExport, EXPORT_CLIPS, seedExportChannel } from "./rushes-export";
 import { crowdedCluster } from "./kept-crowd";
 import { startS3StandIn } from "../s3";
+import { PartRecords } from "../../src/features/rushes/uploader/part-records";
+import { PartSigner } from "../../src/features/rushes/uploader/part-signer";
 
 /**
  * `npm run bench:rushes`: among 10,000 other channels (crowd.ts), (a) the footage list over 50,000 seeded clips with a three-field filter,
  * its p95 and its query plan; (b) a 1 GiB upload through the presigned multipart path next to a direct
- * SDK upload of the same file to the same stand-in, with the app server's resident memory watched;
+ * SDK upload of the same file to the same stand-in, in turns, with the app server's resident memory
+ * watched: the same parts, four at a time, over the same transport (node:http, keep-alive), the
+ * presigned path signing and recording its parts with Kerf in batches as the browser does;
  * (c) the CSV export of a channel of 5,000 clips × 10 marks, and how long another channel waits meanwhile.
  * Everything runs on throwaway services of its own; the last line is one JSON object.
  */
@@ -93,6 +99,28 @@ async function readPart(file: string, partNumber: number, partSize: number, size
   } finally {
     await handle.close();
   }
+}
+
+/**
+ * One part's PUT to its signed URL, sent as the direct SDK sends its parts (node:http with the Buffer,
+ * Content-Length set, a keep-alive agent of 50 sockets as the SDK's NodeHttpHandler makes), so both
+ * paths use the same transport. A browser sends these with its own network stack, not the page's
+ * JavaScript; Node's fetch would copy each 8 MiB body and measure fetch, not Kerf.
+ */
+const storageAgent = new http.Agent({ keepAlive: true, maxSockets: 50 });
+function putPart(url: string, body: Buffer): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const request = http.request(url, { method: "PUT", agent: storageAgent, headers: { "content-length": body.length } }, (response) => {
+      response.resume();
+      response.on("end", () => {
+        const etag = response.headers.etag;
+        if (response.statusCode === 200 && etag) resolve(etag);
+        else reject(new Error(`PUT ${new URL(url).pathname}: ${response.statusCode}`));
+      });
+    });
+    request.on("error", reject);
+    request.end(body);
+  });
 }
 
 /** Runs `task(n)` for parts 1..count with `PARALLEL` in flight, as the browser's queue does. */
@@ -199,34 +227,24 @@ async function main() {
   const presigned = async () => {
     const started = performance.now();
     const { upload } = (await call("POST", `${base}/uploads`, { episodeId: episodes[0]!.id, fileName: "bench.mov", size })) as { upload: { id: string } };
-    // As the browser's queue does (src/features/rushes/uploader): URLs signed SIGN_AHEAD parts per request,
-    // each part's record sent while the next part goes, all records awaited before completing.
-    const kept = new Map<number, Promise<string>>();
-    const urlFor = (n: number) => {
-      const ready = kept.get(n);
-      if (ready) return ready;
-      const parts = [];
-      for (let next = n; next <= partCount && parts.length < SIGN_AHEAD; next++) {
-        if (kept.has(next)) continue;
-        const { start, end } = partRange(next, partSize, size);
-        parts.push({ partNumber: next, size: end - start });
-      }
-      const signing = call("POST", `${base}/uploads/${upload.id}/part-urls`, { parts }) as Promise<{ urls: { partNumber: number; url: string }[] }>;
-      for (const part of parts) kept.set(part.partNumber, signing.then(({ urls }) => urls.find((u) => u.partNumber === part.partNumber)!.url));
-      return kept.get(n)!;
-    };
-    const records: Promise<unknown>[] = [];
+    // The browser's own signer and records (src/features/rushes/uploader): URLs asked SIGN_AHEAD parts
+    // per request ahead of their turn, stored parts recorded in batches, all records sent before completing.
+    const plan = { uploadId: upload.id, partSize, size, partCount };
+    const signer = new PartSigner(async (uploadId, parts) => ((await call("POST", `${base}/uploads/${uploadId}/part-urls`, { parts })) as unknown as PartUrlsAnswer).urls);
+    const records = new PartRecords((parts) => call("POST", `${base}/uploads/${upload.id}/parts`, { parts }), () => undefined);
     await inParallel(partCount, async (n) => {
       const body = await readPart(file, n, partSize, size);
-      const put = await fetch(await urlFor(n), { method: "PUT", body: new Uint8Array(body) });
-      if (!put.ok) throw new Error(`part ${n}: ${put.status}`);
-      records.push(call("PUT", `${base}/uploads/${upload.id}/parts/${n}`, { etag: put.headers.get("etag"), size: body.length }));
+      const url = await signer.urlFor(plan, n, body.length, (p) => records.has(p));
+      records.add({ partNumber: n, etag: await putPart(url, body), size: body.length });
     });
-    await Promise.all(records);
+    await records.flush();
     await call("POST", `${base}/uploads/${upload.id}/complete`, {});
     return (performance.now() - started) / 1000;
   };
 
+  // The SDK hashes each part for its signature (SHA-256 of the Buffer, @smithy/signature-v4's
+  // getPayloadHash) and asks for 100-continue first (@aws-sdk/middleware-sdk-s3); a presigned URL
+  // signs the length, not the bytes. So on a busy machine the presigned path may be the faster one.
   // Direct and presigned take turns, so a drift of the machine's speed during the run (storage's disk,
   // other work) falls on both: the ratio is of their summed times.
   const baseline = rssMb(server.pid!);

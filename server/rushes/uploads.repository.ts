@@ -61,13 +61,26 @@ export async function partsOfMany(db: Executor, uploadIds: string[]) {
     .orderBy(asc(uploadParts.uploadId), asc(uploadParts.partNumber));
 }
 
-/** A part stored again (a retry) replaces the first record: the store keeps the last one too. */
-export async function recordPart(db: Executor, uploadId: string, part: { partNumber: number; etag: string; size: number }) {
+/**
+ * Parts stored, in one statement. A part stored again (a retry) replaces its first record: the store
+ * keeps the last one too. The upload's row is touched first, so a completion or a cancel under way
+ * (which hold it locked) finishes before, and then the upload is no longer open: nothing is recorded.
+ */
+export async function recordParts(db: Executor, uploadId: string, parts: { partNumber: number; etag: string; size: number }[]): Promise<boolean> {
+  const open = await db
+    .update(uploads)
+    .set({ lastActivityAt: sql`now()` })
+    .where(and(eq(uploads.id, uploadId), eq(uploads.status, "uploading")))
+    .returning({ id: uploads.id });
+  if (open.length === 0) return false;
   await db
     .insert(uploadParts)
-    .values({ uploadId, partNumber: part.partNumber, etag: part.etag, sizeBytes: part.size })
-    .onConflictDoUpdate({ target: [uploadParts.uploadId, uploadParts.partNumber], set: { etag: part.etag, sizeBytes: part.size, recordedAt: sql`now()` } });
-  await db.update(uploads).set({ lastActivityAt: sql`now()` }).where(eq(uploads.id, uploadId));
+    .values(parts.map((p) => ({ uploadId, partNumber: p.partNumber, etag: p.etag, sizeBytes: p.size })))
+    .onConflictDoUpdate({
+      target: [uploadParts.uploadId, uploadParts.partNumber],
+      set: { etag: sql`excluded.etag`, sizeBytes: sql`excluded.size_bytes`, recordedAt: sql`now()` },
+    });
+  return true;
 }
 
 export async function touchUpload(db: Executor, uploadId: string) {

@@ -1,5 +1,4 @@
-import { completeUploadSchema, partUrlsSchema, recordPartSchema, startUploadSchema } from "../../shared/rushes/schemas";
-import { notFound } from "../http/app-error";
+import { completeUploadSchema, partUrlsSchema, recordPartsSchema, startUploadSchema } from "../../shared/rushes/schemas";
 import { callerOf, idOf } from "../http/guards";
 import { channelAccess, type RouteSpec } from "../http/route-table";
 import { parseBody, parseId } from "../http/validate";
@@ -8,12 +7,6 @@ import type { RushesContext } from "./rushes.context";
 import * as uploads from "./uploads.service";
 
 const upload = "/api/channels/:channelId/uploads";
-
-const partNumberOf = (value: unknown) => {
-  const n = Number(value);
-  if (!Number.isInteger(n) || n < 1 || n > 10_000) throw notFound("Part");
-  return n;
-};
 
 /** Uploads: the server signs and records; the bytes go from the browser to storage (the spec's "footage" row). */
 export function uploadRoutes(ctx: RushesContext): RouteSpec[] {
@@ -62,13 +55,12 @@ export function uploadRoutes(ctx: RushesContext): RouteSpec[] {
       },
     },
     {
-      method: "put",
-      path: `${upload}/:uploadId/parts/:partNumber`,
+      method: "post",
+      path: `${upload}/:uploadId/parts`,
       access: write,
-      valueParams: ["partNumber"],
       handler: async (req, res) => {
-        const part = parseBody(recordPartSchema, req.body);
-        res.json({ part: await uploads.recordPart(ctx, callerOf(req), idOf(req, "uploadId"), partNumberOf(req.params.partNumber), part) });
+        const { parts } = parseBody(recordPartsSchema, req.body);
+        res.json(await uploads.recordParts(ctx, callerOf(req), idOf(req, "uploadId"), parts));
       },
     },
     {

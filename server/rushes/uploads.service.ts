@@ -1,6 +1,6 @@
 import { roleMay } from "../../shared/access/roles";
 import { checkClipFile, partRange, planParts, PART_URL_SECONDS, ABANDONED_AFTER_HOURS } from "../../shared/rushes/limits";
-import { sha256Pattern, type ChecksumAnswer, type ClipMetadata, type PartUrlsAnswer, type UploadView } from "../../shared/rushes/schemas";
+import { sha256Pattern, type ChecksumAnswer, type ClipMetadata, type PartUrlsAnswer, type UploadPart, type UploadView } from "../../shared/rushes/schemas";
 import { AppError, notFound } from "../http/app-error";
 import type { Caller } from "../http/route-table";
 import { eachItem, emptyTally, mergeTallies, type ItemTally } from "../jobs/each-item";
@@ -144,14 +144,18 @@ export async function signParts(ctx: RushesContext, caller: Caller, uploadId: st
   return { urls, expiresAt: new Date(Date.now() + PART_URL_SECONDS * 1000).toISOString() };
 }
 
-/** The browser reports a part stored (its number, its ETag from the store, its size). */
-export async function recordPart(ctx: RushesContext, caller: Caller, uploadId: string, partNumber: number, part: { etag: string; size: number }) {
+/** The browser reports parts stored (each one's number, its ETag from the store, its size), a few at a time. */
+export async function recordParts(ctx: RushesContext, caller: Caller, uploadId: string, parts: UploadPart[]): Promise<{ parts: UploadPart[] }> {
   const row = await openUpload(ctx, caller, uploadId);
   mustBeUploading(row);
-  checkPartNumber(row, partNumber);
-  checkPartSize(row, { partNumber, size: part.size });
-  await ctx.db.transaction((tx) => repo.recordPart(tx, row.id, { partNumber, etag: part.etag, size: part.size }));
-  return { partNumber, etag: part.etag, size: part.size };
+  for (const part of parts) {
+    checkPartNumber(row, part.partNumber);
+    checkPartSize(row, part);
+  }
+  const recorded = await ctx.db.transaction((tx) => repo.recordParts(tx, row.id, parts));
+  // Completed or cancelled since it was read: say so as if it had been so before.
+  if (!recorded) mustBeUploading(await openUpload(ctx, caller, uploadId));
+  return { parts };
 }
 
 function missingParts(partCount: number, stored: { partNumber: number }[]): number[] {

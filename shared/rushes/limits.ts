@@ -81,6 +81,17 @@ export function partRange(partNumber: number, partSize: number, size: number): {
  */
 export const SIGN_AHEAD = 8;
 
+/**
+ * Stored parts the browser reports to Kerf in one request: when RECORD_BATCH are waiting, or
+ * RECORD_EVERY_MS after the first of them, and all before completing or pausing. One request per
+ * part took CPU from storage on the same machine; a reload loses at most these few records, and
+ * those parts are sent again.
+ */
+export const RECORD_BATCH = 8;
+export const RECORD_EVERY_MS = 2_000;
+/** The most records one request takes (a batch that waited through failures may hold more than RECORD_BATCH). */
+export const RECORDS_PER_REQUEST = 100;
+
 /** How long a presigned URL works: short, since each is for one part or one look. */
 export const PART_URL_SECONDS = 15 * 60;
 export const PREVIEW_URL_SECONDS = 10 * 60;

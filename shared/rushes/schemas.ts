@@ -3,6 +3,7 @@ import { calendarDateSchema, recordedInstantSchema } from "../fields/dates";
 import { multiLine, oneLine } from "../fields/text";
 import { frameRateSchema, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
+import { MAX_PARTS, RECORDS_PER_REQUEST } from "./limits";
 import type { MediaMismatch } from "./media-check";
 import { clipRatings, shotKinds, shotPriorities, shotStatuses, type ClipMediaState, type ClipRating, type ShotKind, type ShotPriority, type ShotStatus, type UploadStatus } from "./vocabulary";
 
@@ -82,10 +83,30 @@ export interface PartUrlsAnswer {
   expiresAt: string;
 }
 
-export const recordPartSchema = z.strictObject({
-  etag: oneLine(200, { blank: "The part's ETag is missing." }).transform((v) => v.replaceAll('"', "")),
-  size: z.number().int().min(1),
+/**
+ * `POST /uploads/:uploadId/parts`: parts that reached storage, each with the ETag storage answered and
+ * its size. The browser sends them a few at a time (RECORD_BATCH); each part once per request.
+ */
+export const recordPartsSchema = z.strictObject({
+  parts: z
+    .array(
+      z.strictObject({
+        partNumber: z.number().int().min(1).max(MAX_PARTS),
+        etag: oneLine(200, { blank: "The part's ETag is missing." }).transform((v) => v.replaceAll('"', "")),
+        size: z.number({ message: "Give each part's size in bytes." }).int().min(1),
+      }),
+    )
+    .min(1, "Record at least one part.")
+    .max(RECORDS_PER_REQUEST, `Record at most ${RECORDS_PER_REQUEST} parts at once.`)
+    .superRefine((parts, ctx) => {
+      const seen = new Set<number>();
+      for (const [index, part] of parts.entries()) {
+        if (seen.has(part.partNumber)) ctx.addIssue({ code: "custom", path: [index, "partNumber"], message: `Part ${part.partNumber} is listed twice.` });
+        seen.add(part.partNumber);
+      }
+    }),
 });
+export type RecordPartsInput = z.input<typeof recordPartsSchema>;
 
 export const completeUploadSchema = z.strictObject({
   sha256: z

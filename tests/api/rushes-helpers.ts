@@ -1,7 +1,8 @@
 import { partRange } from "../../shared/rushes/limits";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
-import type { TestApp, Visitor } from "../support/test-app";
+import { afterAll, beforeAll } from "vitest";
+import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
 
 /** A crewed channel with one episode, signed-in agents for each role. */
 export async function rushesWorld(app: TestApp) {
@@ -9,6 +10,17 @@ export async function rushesWorld(app: TestApp) {
   const episode = await createEpisode(app.db, crewed.channel.id, { title: "Bottle rocket", stage: "shoot" });
   const [owner, editor, crew] = await Promise.all([app.signedIn(crewed.owner), app.signedIn(crewed.editor), app.signedIn(crewed.crew)]);
   return { ...crewed, episode, as: { owner, editor, crew }, base: `/api/channels/${crewed.channel.id}` };
+}
+
+/** A test file's app and rushes world: made before its first test, the app closed after its last. */
+export function rushesSuite() {
+  const suite = {} as { app: TestApp; world: Awaited<ReturnType<typeof rushesWorld>> };
+  beforeAll(async () => {
+    suite.app = await startTestApp();
+    suite.world = await rushesWorld(suite.app);
+  });
+  afterAll(() => suite.app.close());
+  return suite;
 }
 
 export const sampleMetadata = {
@@ -40,7 +52,7 @@ export async function sendPart(agent: Visitor, base: string, upload: { id: strin
   if (!put.ok) throw new Error(`storage answered ${put.status}`);
   const etag = put.headers.get("etag")!;
   if (report) {
-    const recorded = await agent.send("put", `${base}/uploads/${upload.id}/parts/${partNumber}`, { etag, size: end - start });
+    const recorded = await agent.send("post", `${base}/uploads/${upload.id}/parts`, { parts: [{ partNumber, etag, size: end - start }] });
     if (recorded.status !== 200) throw new Error(`record ${recorded.status} ${JSON.stringify(recorded.body)}`);
   }
   return { etag, size: end - start };

@@ -148,7 +148,7 @@ describe("a 100-byte upload that is sent 20 MiB", () => {
     const upload = await startUpload(world.as.editor, "swollen.mov", 100);
     // Bytes that reached storage some other way than Kerf's URL (a store that checks no lengths).
     const sent = await s3.send(new UploadPartCommand({ Bucket: bucket, Key: upload.key, UploadId: upload.storageUploadId, PartNumber: 1, Body: patternBytes(20 * MiB) }));
-    await world.as.editor.send("put", `${world.base}/uploads/${upload.id}/parts/1`, { etag: sent.ETag, size: 100 }).expect(200);
+    await world.as.editor.send("post", `${world.base}/uploads/${upload.id}/parts`, { parts: [{ partNumber: 1, etag: sent.ETag, size: 100 }] }).expect(200);
 
     const response = await world.as.editor.send("post", `${world.base}/uploads/${upload.id}/complete`, {}).expect(409);
     expect(response.body.error.message).toBe(`Storage held ${20 * MiB} bytes for this file, not 100, so Kerf removed them; send the file again.`);

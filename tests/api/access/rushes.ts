@@ -26,7 +26,7 @@ export const access: FeatureAccess = {
     [`GET ${up}`,                                      401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/footage-checksums/:sha256`,             401,  ok,   ok,   ok,   ok,   404],
     [`POST ${up}/part-urls`,                           401,  ok,   ok,   ok,   ok,   404],
-    [`PUT ${up}/parts/:partNumber`,                    401,  ok,   ok,   ok,   ok,   404],
+    [`POST ${up}/parts`,                               401,  ok,   ok,   ok,   ok,   404],
     [`POST ${up}/complete`,                            401,  ok,   ok,   ok,   ok,   404],
     [`DELETE ${up}`,                                   401,  ok,   ok,   ok,   ok,   404],
     [`GET ${C}/clips`,                                 401,  ok,   ok,   ok,   ok,   404],
@@ -112,11 +112,11 @@ function rushesRecipes({ app, world }: AccessContext): Record<string, Recipe> {
         return { params: { uploadId: u.id }, body: { parts: [{ partNumber: 1, size: 100 }] }, intact: uploadIntact(u.id) };
       },
     },
-    [`PUT ${up}/parts/:partNumber`]: {
+    [`POST ${up}/parts`]: {
       ok: 200,
       prepare: async () => {
         const u = await openUpload(world.owner.id);
-        return { params: { uploadId: u.id, partNumber: "1" }, body: { etag: "matrix-etag", size: 100 }, intact: uploadIntact(u.id) };
+        return { params: { uploadId: u.id }, body: { parts: [{ partNumber: 1, etag: "matrix-etag", size: 100 }] }, intact: uploadIntact(u.id) };
       },
     },
     [`POST ${up}/complete`]: {

@@ -8,8 +8,10 @@ import { cancelUpload } from "../api/cancel-upload";
 import { completeUpload } from "../api/complete-upload";
 import { findByChecksum } from "../api/find-by-checksum";
 import { getUpload } from "../api/get-upload";
-import { recordPart } from "../api/record-part";
+import { recordParts } from "../api/record-parts";
+import { signParts } from "../api/sign-parts";
 import { startUpload } from "../api/start-upload";
+import { PartRecords } from "./part-records";
 import { PartSigner } from "./part-signer";
 import { forgetResumeNote, readResumeNote, writeResumeNote } from "./resume-notes";
 
@@ -17,9 +19,10 @@ import { forgetResumeNote, readResumeNote, writeResumeNote } from "./resume-note
  * The browser's side of a presigned multipart upload, carried by Uppy's S3 multipart plugin. Every call
  * it makes goes to Kerf's own routes: Kerf opens the upload, signs each part for its exact length (a
  * few parts per request, part-signer.ts), and keeps its own record of each stored part (number, ETag,
- * size), written while the next part is already on its way and awaited before completing; listing
- * parts reads those records, so a paused, failed or reloaded upload carries on from what Kerf recorded. One queue per channel lives
- * for the whole visit, so an upload goes on while the person moves to another page of Kerf.
+ * size), sent a few at a time while the next parts are on their way (part-records.ts) and all sent
+ * before pausing, listing or completing; listing parts reads those records, so a paused, failed or
+ * reloaded upload carries on from what Kerf recorded. One queue per channel lives for the whole visit,
+ * so an upload goes on while the person moves to another page of Kerf.
  */
 export type JobStatus = "checking" | "duplicate" | "reading" | "queued" | "uploading" | "paused" | "completing" | "done" | "failed" | "cancelled" | "needs-file";
 
@@ -45,8 +48,8 @@ interface UploadJob {
   sending: Map<number, number>;
   /** Failed tries per part since the last start or Retry. */
   failures: Map<number, number>;
-  /** Parts in storage whose record Kerf has not confirmed yet: number → the record and its request. */
-  records: Map<number, { part: { etag: string; size: number }; recorded: Promise<void> }>;
+  /** Parts in storage whose record Kerf has not confirmed yet. */
+  records: PartRecords;
   signer: PartSigner;
   metadata: ClipMetadata | null;
   sha256: string | null;
@@ -176,6 +179,34 @@ export class UploadQueue {
     });
   }
 
+  private newJob(fields: Pick<UploadJob, "id" | "episodeId" | "fileName" | "size" | "fingerprint" | "status"> & Partial<UploadJob>): UploadJob {
+    const job: UploadJob = {
+      file: null,
+      uppyId: null,
+      uploadId: null,
+      partSize: 0,
+      partCount: 0,
+      stored: new Map(),
+      sending: new Map(),
+      failures: new Map(),
+      records: new PartRecords(
+        (parts) => recordParts(this.channelId, job.uploadId!, parts),
+        (parts) => {
+          for (const part of parts) job.stored.set(part.partNumber, part.size);
+          this.emit();
+        },
+      ),
+      signer: new PartSigner((uploadId, parts) => signParts(this.channelId, uploadId, parts)),
+      metadata: null,
+      sha256: null,
+      duplicate: null,
+      error: null,
+      clip: null,
+      ...fields,
+    };
+    return job;
+  }
+
   private jobOf(id: string): UploadJob {
     const job = this.jobs.find((j) => j.id === id);
     if (!job) throw new Error("upload not in the queue");
@@ -190,14 +221,20 @@ export class UploadQueue {
   remember(open: UploadView[]) {
     for (const upload of open) {
       if (this.jobs.some((j) => j.uploadId === upload.id)) continue;
-      this.jobs.push({
-        ...blankJob(this.channelId, upload.id, upload.episodeId, upload.fileName, upload.size, upload.fingerprint),
-        status: "needs-file",
-        uploadId: upload.id,
-        partSize: upload.partSize,
-        partCount: upload.partCount,
-        stored: new Map(upload.parts.map((p) => [p.partNumber, p.size])),
-      });
+      this.jobs.push(
+        this.newJob({
+          id: upload.id,
+          episodeId: upload.episodeId,
+          fileName: upload.fileName,
+          size: upload.size,
+          fingerprint: upload.fingerprint,
+          status: "needs-file",
+          uploadId: upload.id,
+          partSize: upload.partSize,
+          partCount: upload.partCount,
+          stored: new Map(upload.parts.map((p) => [p.partNumber, p.size])),
+        }),
+      );
     }
     this.emit(true);
   }
@@ -212,7 +249,7 @@ export class UploadQueue {
         void this.prepare(waiting, { resuming: true });
         continue;
       }
-      const job: UploadJob = { ...blankJob(this.channelId, crypto.randomUUID(), episodeId, file.name, file.size, fingerprint), file, status: "checking" };
+      const job = this.newJob({ id: crypto.randomUUID(), episodeId, fileName: file.name, size: file.size, fingerprint, file, status: "checking" });
       this.jobs.push(job);
       void this.prepare(job, { resuming: readResumeNote(this.channelId, fingerprint) !== null });
     }
@@ -305,6 +342,8 @@ export class UploadQueue {
   }
 
   private async listParts(job: UploadJob, uploadId: string): Promise<AwsS3Part[]> {
+    // Parts whose record still fails are not listed, so they are sent again.
+    await job.records.flush().catch(() => undefined);
     const upload = await getUpload(this.channelId, uploadId);
     job.stored = new Map(upload.parts.map((p) => [p.partNumber, p.size]));
     if (job.status === "queued") job.status = "uploading";
@@ -323,34 +362,12 @@ export class UploadQueue {
     }
   }
 
-  /** Records a stored part with Kerf without holding up the next part; complete() waits for it. */
-  private keepRecord(job: UploadJob, partNumber: number, part: { etag: string; size: number }) {
-    job.sending.set(partNumber, part.size);
-    const recorded = recordPart(this.channelId, job.uploadId!, partNumber, part).then(() => {
-      job.stored.set(partNumber, part.size);
-      job.records.delete(partNumber);
-    });
-    recorded
-      .catch(() => undefined)
-      .finally(() => {
-        job.sending.delete(partNumber);
-        this.emit();
-      });
-    job.records.set(partNumber, { part, recorded });
-  }
-
-  /** Before completing: every part's record is in, each failed one tried once more. */
+  /** Tells Kerf every part stored so far that it has not heard of; a failure leaves them for the next try. */
   private async settleRecords(job: UploadJob) {
-    for (const [partNumber, { part, recorded }] of [...job.records]) {
-      await recorded.catch(async () => {
-        await recordPart(this.channelId, job.uploadId!, partNumber, part);
-        job.stored.set(partNumber, part.size);
-        job.records.delete(partNumber);
-      });
-    }
+    await job.records.flush().catch(() => job.records.flush());
   }
 
-  /** Sends one part's bytes (Uppy's own sender), then records the part with Kerf before Uppy counts it. */
+  /** Sends one part's bytes (Uppy's own sender), then hands its record to the batch before Uppy counts it. */
   private async sendPart(options: Parameters<typeof AwsS3.uploadPartBytes>[0]) {
     const mine = this.signed.get(options.signature.url);
     this.signed.delete(options.signature.url);
@@ -368,7 +385,8 @@ export class UploadQueue {
           etag = tag;
         },
       });
-      this.keepRecord(job, partNumber, { etag: etag ?? answer.ETag ?? "", size: (options.body as Blob).size });
+      job.sending.delete(partNumber);
+      job.records.add({ partNumber, etag: etag ?? answer.ETag ?? "", size: (options.body as Blob).size });
       (options.onComplete as (tag: string) => void)(etag ?? answer.ETag ?? "");
       return answer;
     } catch (error) {
@@ -430,6 +448,7 @@ export class UploadQueue {
     job.status = "paused";
     job.signer.forget();
     job.sending.clear();
+    void job.records.flush().catch(() => undefined);
     this.emit(true);
   }
 
@@ -470,6 +489,7 @@ export class UploadQueue {
     if (!job || job.status === "done" || job.status === "cancelled" || job.status === "completing") return;
     job.status = "cancelled";
     job.sending.clear();
+    job.records.drop();
     if (job.uppyId) this.uppy.removeFile(job.uppyId);
     job.uppyId = null;
     forgetResumeNote(this.channelId, job.fingerprint);
@@ -491,38 +511,13 @@ export class UploadQueue {
   }
 }
 
-function blankJob(channelId: string, id: string, episodeId: string, fileName: string, size: number, fingerprint: string): UploadJob {
-  return {
-    id,
-    episodeId,
-    fileName,
-    size,
-    fingerprint,
-    status: "checking",
-    file: null,
-    uppyId: null,
-    uploadId: null,
-    partSize: 0,
-    partCount: 0,
-    stored: new Map(),
-    sending: new Map(),
-    failures: new Map(),
-    records: new Map(),
-    signer: new PartSigner(channelId),
-    metadata: null,
-    sha256: null,
-    duplicate: null,
-    error: null,
-    clip: null,
-  };
-}
-
 /**
- * Bytes shown as sent: every part Kerf recorded, plus what is on its way counted up to one part. A
- * pause drops only the parts on their way, so the bar never goes back by more than one part.
+ * Bytes shown as sent: every part in storage (recorded by Kerf or with its record on the way), plus what
+ * is on its way counted up to one part. A pause drops only the parts on their way, so the bar never goes
+ * back by more than one part.
  */
 function toView(job: UploadJob): JobView {
-  const stored = [...job.stored.values()].reduce((s, n) => s + n, 0);
+  const stored = [...job.stored.entries()].reduce((s, [n, bytes]) => (job.records.has(n) ? s : s + bytes), job.records.bytes());
   const sending = Math.min([...job.sending.values()].reduce((s, n) => s + n, 0), job.partSize);
   return {
     id: job.id,

@@ -1,0 +1,7 @@
+import type { RecordPartsInput, UploadPart } from "@shared/rushes/schemas";
+import { api } from "../../../lib/api-client";
+import { uploadsBase } from "./start-upload";
+
+/** Tells Kerf some parts reached storage (each one's ETag and size), so a reload can resume from there. */
+export const recordParts = (channelId: string, uploadId: string, parts: UploadPart[]) =>
+  api<{ parts: UploadPart[] }>(`${uploadsBase(channelId)}/${uploadId}/parts`, { method: "POST", body: { parts } satisfies RecordPartsInput });
