@@ -1,5 +1,5 @@
 import type { Criterion, CriterionOutcome, PlanVerdict } from "./criteria";
-import { type Figure, type MetricName, isFigureProblem, isQuantity } from "./metrics";
+import { type Figure, type MetricName, isFigureProblem, isQuantity, measurementLabels } from "./metrics";
 import type { Quantity } from "./quantity";
 import { RATIO_UNIT, unitsByDimension } from "./units";
 
@@ -8,12 +8,7 @@ import { RATIO_UNIT, unitsByDimension } from "./units";
 
 /** Words for the interface and the CSV; the stored keys stay stable. */
 export const metricLabels: Record<MetricName, string> = {
-  mass: "Mass",
-  voltage: "Voltage",
-  current: "Current",
-  thrust: "Thrust",
-  speed: "Speed",
-  run_time: "Run time",
+  ...measurementLabels,
   electrical_power: "Electrical power",
   power_per_gram: "Power per gram",
   thrust_per_watt: "Thrust per watt",
