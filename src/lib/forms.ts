@@ -83,14 +83,19 @@ export function applyServerErrors<T extends FieldValues>(
   return placed && error.code === "validation_failed" ? null : error.message;
 }
 
+/** A resolver made the first time the form is checked, from code fetched then, and kept for later checks. */
+export function resolverOnFirstCheck<F extends FieldValues, C, T>(make: () => Promise<Resolver<F, C, T>>): Resolver<F, C, T> {
+  let resolver: Promise<Resolver<F, C, T>> | null = null;
+  return async (values, context, options) => {
+    resolver ??= make();
+    return (await resolver)(values, context, options);
+  };
+}
+
 /**
  * `zodResolver` for a shared schema, both fetched the first time the form is checked: the sign-in and
  * sign-up pages keep zod (about 17 kB gzipped) out of their first download.
  */
 export function lazyZodResolver<F extends FieldValues>(load: () => Promise<z.ZodType<F, F>>): Resolver<F> {
-  let resolver: Promise<Resolver<F>> | null = null;
-  return async (values, context, options) => {
-    resolver ??= Promise.all([load(), import("@hookform/resolvers/zod")]).then(([schema, { zodResolver }]) => zodResolver(schema) as Resolver<F>);
-    return (await resolver)(values, context, options);
-  };
+  return resolverOnFirstCheck(() => Promise.all([load(), import("@hookform/resolvers/zod")]).then(([schema, { zodResolver }]) => zodResolver(schema) as Resolver<F>));
 }

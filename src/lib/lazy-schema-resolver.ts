@@ -1,6 +1,6 @@
 import type { FieldValues, Resolver } from "react-hook-form";
 import type { z } from "zod";
-import type { Converter } from "./forms";
+import { resolverOnFirstCheck, type Converter } from "./forms";
 
 /**
  * `schemaResolver` (./schema-resolver.ts) for a shared schema, both fetched the first time the form
@@ -11,9 +11,5 @@ export function lazySchemaResolver<F extends FieldValues, S extends z.ZodType>(
   toBody: (values: F, read: Converter) => unknown,
   fieldFor?: (path: string) => string,
 ): Resolver<F, unknown, z.output<S>> {
-  let resolver: Promise<Resolver<F, unknown, z.output<S>>> | null = null;
-  return async (values, context, options) => {
-    resolver ??= Promise.all([load(), import("./schema-resolver")]).then(([schema, { schemaResolver }]) => schemaResolver(schema, toBody, fieldFor));
-    return (await resolver)(values, context, options);
-  };
+  return resolverOnFirstCheck(() => Promise.all([load(), import("./schema-resolver")]).then(([schema, { schemaResolver }]) => schemaResolver(schema, toBody, fieldFor)));
 }
