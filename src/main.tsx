@@ -1,8 +1,9 @@
-import { StrictMode } from "react";
+import { StrictMode, startTransition } from "react";
 import { createRoot } from "react-dom/client";
 import { QueryClientProvider } from "@tanstack/react-query";
 import { RouterProvider } from "react-router-dom";
 import { router } from "./app/router";
+import { prepareDateWords } from "./lib/format";
 import { makeQueryClient } from "./lib/query-client";
 import { meQueryOptions } from "./lib/session";
 import "./styles/app.css";
@@ -10,11 +11,16 @@ import "./styles/app.css";
 const queryClient = makeQueryClient();
 // Every page first asks who is signed in: ask now, while the page's own code is still on its way.
 void queryClient.prefetchQuery(meQueryOptions());
+prepareDateWords();
 
-createRoot(document.getElementById("root")!).render(
-  <StrictMode>
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>
-  </StrictMode>,
+const root = createRoot(document.getElementById("root")!);
+// The first render in pieces React can pause between, so the page answers a tap while it is drawn.
+startTransition(() =>
+  root.render(
+    <StrictMode>
+      <QueryClientProvider client={queryClient}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>
+    </StrictMode>,
+  ),
 );

@@ -157,12 +157,14 @@ async function main() {
     { name: "slate", path: `/c/${channelId}/slate`, cookie },
     { name: "episode", path: `/c/${channelId}/episodes/${episodeId}`, cookie },
   ];
+  // BENCH_PAGES=episode (or a comma list) audits just those pages, for a quick look at one.
+  const only = process.env.BENCH_PAGES?.split(",");
   const audited = [];
-  for (const page of pages) {
+  for (const page of pages.filter((p) => !only || only.includes(p.name))) {
     console.log(`Lighthouse (mobile) on ${page.name}, ${RUNS} runs…`);
     audited.push(await auditPage(chrome.port, appUrl, page));
   }
-  const signInPage = audited[0]!;
+  const signInPage = audited.find((a) => a.name === "sign-in") ?? audited[0]!;
   const firstLoadGz = await gzipBytes(signInPage.scripts);
   const zodPages = await pagesFetchingZod(audited);
 

@@ -1,16 +1,30 @@
 import type { Request } from "express";
 import { isUuid } from "../../shared/http/ids";
-import { CHANNEL } from "./page-preloads";
+import { CHANNEL, EPISODE, PART_MODULES } from "./page-preloads";
 import { SESSION_COOKIE } from "./session";
+
+type Answers = (params: Record<string, string>) => string[];
+const episodeUrl = ({ channelId, episodeId }: Record<string, string>) => `/api/channels/${channelId}/episodes/${episodeId}`;
+/** The episode and the answers its open part asks for beside it, as the part's `prefetch` in src/app/episode-sections.tsx. */
+const episodeWith =
+  (...paths: string[]): Answers =>
+  (params) => [episodeUrl(params), ...paths.map((p) => `${episodeUrl(params)}/${p}`)];
+const partAnswers: Record<string, Answers> = {
+  "test-plan": episodeWith("test-plan"),
+  bench: (params) => [...episodeWith("bench-runs", "test-plan")(params), `/api/channels/${params.channelId}/bench/parts`],
+  "sponsor-deals": episodeWith("deals"),
+  "publish-package": episodeWith("publish"),
+};
 
 /**
  * The API answers a page asks for as soon as its code runs, by the address Express matches (as in
  * PAGE_MODULES). Named in the page's `Link` header, the browser fetches them alongside the code
  * instead of after it: the board or the episode arrives one chain of round trips sooner.
  */
-export const PAGE_DATA: Record<string, (params: Record<string, string>) => string[]> = {
+export const PAGE_DATA: Record<string, Answers> = {
   [`${CHANNEL}/slate`]: ({ channelId }) => [`/api/channels/${channelId}/episodes`, `/api/channels/${channelId}/slate/people`],
-  [`${CHANNEL}/episodes/:episodeId{/:part}`]: ({ channelId, episodeId }) => [`/api/channels/${channelId}/episodes/${episodeId}`],
+  ...Object.fromEntries(Object.keys(PART_MODULES).map((part) => [`${EPISODE}/${part}`, partAnswers[part] ?? episodeWith()])),
+  [`${EPISODE}{/:part}`]: episodeWith(),
 };
 
 /**

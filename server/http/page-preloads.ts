@@ -9,6 +9,25 @@ const SHELL = "src/app/layouts/AppShell.tsx";
 const auth = (page: string) => `src/features/auth/components/${page}.tsx`;
 const inShell = (module: string) => [SHELL, module];
 export const CHANNEL = "/c/:channelId";
+export const EPISODE = `${CHANNEL}/episodes/:episodeId`;
+const EPISODE_PAGE = "src/app/episode-page.tsx";
+
+/**
+ * Each part of the episode page by its name in the address, and the module its code starts from, as
+ * src/app/episode-sections.tsx loads it: an address that names a part (a reload, a link in a mail)
+ * asks for that part's code with the page's.
+ */
+export const PART_MODULES: Record<string, string> = {
+  "test-plan": "src/features/bench/components/TestPlanSheet.tsx",
+  bench: "src/features/bench/components/BenchSection.tsx",
+  "build-log": "src/features/bench/components/BuildLogSection.tsx",
+  shoot: "src/features/rushes/components/EpisodeRushes.tsx",
+  footage: "src/features/rushes/components/EpisodeRushes.tsx",
+  "sponsor-deals": "src/features/sponsors/components/EpisodeDeals.tsx",
+  "publish-package": "src/features/publish/components/PublishSection.tsx",
+  money: "src/features/economics/components/EpisodeMoney.tsx",
+};
+const partPages = Object.fromEntries(Object.entries(PART_MODULES).map(([part, module]) => [`${EPISODE}/${part}`, [SHELL, EPISODE_PAGE, module]]));
 
 export const PAGE_MODULES: Record<string, string[]> = {
   "/sign-in": [auth("SignInPage")],
@@ -28,7 +47,9 @@ export const PAGE_MODULES: Record<string, string[]> = {
   [`${CHANNEL}/calendar`]: inShell("src/features/calendar/components/CalendarPage.tsx"),
   [`${CHANNEL}/slate`]: inShell("src/features/slate/components/SlatePage.tsx"),
   [`${CHANNEL}/slate/schedule`]: inShell("src/features/slate/components/StageLengthsPage.tsx"),
-  [`${CHANNEL}/episodes/:episodeId{/:part}`]: inShell("src/app/episode-page.tsx"),
+  // Before the page's own address, which Express would match first.
+  ...partPages,
+  [`${EPISODE}{/:part}`]: inShell(EPISODE_PAGE),
   [`${CHANNEL}/intake{/:ideaId}`]: inShell("src/features/intake/components/IntakePage.tsx"),
   [`${CHANNEL}/members`]: inShell("src/features/channels/components/MembersPage.tsx"),
   [`${CHANNEL}/shelf`]: inShell("src/features/bench/components/ShelfPage.tsx"),

@@ -1,4 +1,4 @@
-import type { ReactNode } from "react";
+import { type ReactNode, useDeferredValue } from "react";
 import { Link, useLocation } from "react-router-dom";
 import { ApiError } from "../lib/api-client";
 import { Button } from "./Button";
@@ -141,11 +141,12 @@ export function QueryState<T>({
   children: (data: T) => ReactNode;
 }) {
   const retry = () => void query.refetch();
-  if (query.data === undefined) {
+  // Newly arrived data is drawn in a render React can pause, so a big part never blocks typing or scrolling.
+  const data = useDeferredValue(query.data);
+  if (data === undefined) {
     if (query.status === "error") return <LoadError error={query.error} retry={retry} back={back} missing={missing} />;
     return <Loading label={loading} page={page} />;
   }
-  const data = query.data;
   return (
     <>
       {query.status === "error" && <LoadError error={query.error} retry={retry} back={back} missing={missing} />}

@@ -1,6 +1,8 @@
 import { formatMinorUnits } from "@shared/money/minor-units";
 import { formatBytes } from "@shared/rushes/limits";
 
+import { formatInstant } from "@shared/fields/written-dates";
+
 // Dates and instants are written by the module the server's mails use too, so a page and a mail agree.
 export { formatDay, formatInstant, formatInstantDay, formatInstantNamingZone } from "@shared/fields/written-dates";
 
@@ -26,6 +28,17 @@ export { formatDay, formatInstant, formatInstantDay, formatInstantNamingZone } f
 /** The zone this browser is set to: the member's zone until they choose one in their settings. */
 export function browserTimeZone(): string {
   return new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
+}
+
+/**
+ * Writes one instant while the page waits for its first answers: the first date a page writes loads
+ * the browser's calendar and zone data (tens of milliseconds on a phone), which would otherwise fall
+ * inside the render that first shows a date.
+ */
+export function prepareDateWords(): void {
+  const prepare = () => void formatInstant(new Date(), browserTimeZone());
+  if (typeof requestIdleCallback === "function") requestIdleCallback(prepare, { timeout: 2000 });
+  else setTimeout(prepare, 0);
 }
 
 /** A day in milliseconds, for a count of days written as a duration ("Late by 3 d"). */

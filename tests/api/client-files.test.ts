@@ -24,6 +24,8 @@ function builtClient(): string {
     "index.html": { file: "assets/index-abc123.js", isEntry: true },
     "src/app/layouts/AppShell.tsx": { file: "assets/AppShell-def456.js", imports: ["index.html"] },
     "src/features/slate/components/SlatePage.tsx": { file: "assets/SlatePage-789abc.js", imports: ["index.html"] },
+    "src/app/episode-page.tsx": { file: "assets/episode-page-1a2b3c.js", imports: ["index.html"] },
+    "src/features/bench/components/TestPlanSheet.tsx": { file: "assets/TestPlanSheet-4d5e6f.js", imports: ["index.html"] },
   };
   writeFileSync(path.join(dist, ".vite", "manifest.json"), JSON.stringify(manifest));
   return dist;
@@ -68,6 +70,15 @@ describe("the built client's files", () => {
     expect(other.text).not.toContain("modulepreload");
   });
 
+  it("asks for an episode part's code with the episode page's when the address names the part", async () => {
+    const part = await request(app).get("/c/x/episodes/y/test-plan");
+    expect(part.text).toContain('href="/assets/episode-page-1a2b3c.js"');
+    expect(part.text).toContain('href="/assets/TestPlanSheet-4d5e6f.js"');
+    const bare = await request(app).get("/c/x/episodes/y");
+    expect(bare.text).toContain('href="/assets/episode-page-1a2b3c.js"');
+    expect(bare.text).not.toContain("TestPlanSheet");
+  });
+
   it("writes the app's stylesheet into index.html, with a link that is never fetched, and sends the page compressed", async () => {
     const page = await request(app).get("/sign-in").set("Accept-Encoding", "gzip, deflate, br");
     expect(page.headers["content-encoding"]).toBe("br");
@@ -94,8 +105,16 @@ describe("the built client's files", () => {
     });
 
     it("names the episode on its page, whichever part is open", async () => {
-      const res = await request(app).get(`/c/${channel}/episodes/${episode}/bench`).set("Cookie", cookie);
-      expect(res.headers.link).toContain(`</api/channels/${channel}/episodes/${episode}>`);
+      for (const part of ["", "/bench", "/build-log", "/money"]) {
+        const res = await request(app).get(`/c/${channel}/episodes/${episode}${part}`).set("Cookie", cookie);
+        expect(res.headers.link).toContain(`</api/channels/${channel}/episodes/${episode}>`);
+      }
+    });
+
+    it("names the open part's first answers beside the episode's", async () => {
+      const res = await request(app).get(`/c/${channel}/episodes/${episode}/test-plan`).set("Cookie", cookie);
+      const episodeUrl = `/api/channels/${channel}/episodes/${episode}`;
+      expect(res.headers.link).toBe([`/api/auth/me`, episodeUrl, `${episodeUrl}/test-plan`].map((url) => `<${url}>; rel=preload; as=fetch; crossorigin`).join(", "));
     });
 
     it("names nothing for a visitor without a session, an address with a query, or ids without an id's shape", async () => {

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { type Manifest, PAGE_MODULES, withPagePreloads } from "../../server/http/page-preloads";
+import { type Manifest, PAGE_MODULES, PART_MODULES, withPagePreloads } from "../../server/http/page-preloads";
 
 const root = path.resolve(import.meta.dirname, "../..");
 
@@ -9,6 +9,13 @@ const root = path.resolve(import.meta.dirname, "../..");
 function routerModules(): string[] {
   const source = readFileSync(path.join(root, "src/app/router.tsx"), "utf8");
   return [...source.matchAll(/import\("([^"]+)"\)/g)].map(([, relative]) => path.relative(root, path.resolve(root, "src/app", `${relative!}.tsx`)));
+}
+
+/** Each part src/app/episode-sections.tsx adds to the episode page, with the module it loads lazily. */
+function episodeParts(): Record<string, string> {
+  const source = readFileSync(path.join(root, "src/app/episode-sections.tsx"), "utf8");
+  const parts = [...source.matchAll(/id: "([\w-]+)",[\s\S]*?import\("([^"]+)"\)/g)];
+  return Object.fromEntries(parts.map(([, id, relative]) => [id, path.relative(root, path.resolve(root, "src/app", `${relative!}.tsx`))]));
 }
 
 const manifest: Manifest = {
@@ -25,6 +32,12 @@ describe("a page's code asked for with its index.html", () => {
   it("names every page the router loads", () => {
     const named = new Set(Object.values(PAGE_MODULES).flat());
     expect(routerModules().filter((module) => !named.has(module))).toEqual([]);
+  });
+
+  it("names every part of the episode page, with the code it loads", () => {
+    const parts = episodeParts();
+    expect(Object.keys(parts).length).toBeGreaterThan(5);
+    expect(PART_MODULES).toEqual(parts);
   });
 
   it("asks for the page's scripts and styles that the entry does not already bring, each once", () => {
