@@ -1,8 +1,6 @@
 import { formatMinorUnits } from "@shared/money/minor-units";
 import { formatBytes } from "@shared/rushes/limits";
 
-import { formatInstant } from "@shared/fields/written-dates";
-
 // Dates and instants are written by the module the server's mails use too, so a page and a mail agree.
 export { formatDay, formatInstant, formatInstantDay, formatInstantNamingZone } from "@shared/fields/written-dates";
 
@@ -25,20 +23,15 @@ export { formatDay, formatInstant, formatInstantDay, formatInstantNamingZone } f
  * English words and 24-hour times for everyone, whatever the browser's language.
  */
 
-/** The zone this browser is set to: the member's zone until they choose one in their settings. */
-export function browserTimeZone(): string {
-  return new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
-}
+let browserZone: string | undefined;
 
 /**
- * Writes one instant while the page waits for its first answers: the first date a page writes loads
- * the browser's calendar and zone data (tens of milliseconds on a phone), which would otherwise fall
- * inside the render that first shows a date.
+ * The zone this browser is set to: the member's zone until they choose one in their settings. Read
+ * once a page: every component that writes an instant asks for it, and each reading builds a formatter.
  */
-export function prepareDateWords(): void {
-  const prepare = () => void formatInstant(new Date(), browserTimeZone());
-  if (typeof requestIdleCallback === "function") requestIdleCallback(prepare, { timeout: 2000 });
-  else setTimeout(prepare, 0);
+export function browserTimeZone(): string {
+  browserZone ??= new Intl.DateTimeFormat().resolvedOptions().timeZone || "UTC";
+  return browserZone;
 }
 
 /** A day in milliseconds, for a count of days written as a duration ("Late by 3 d"). */
