@@ -20,7 +20,8 @@ export function rememberCsrfToken(token: string): void {
 
 type Method = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
-export async function api<T>(path: string, options: { method?: Method; body?: unknown; signal?: AbortSignal } = {}): Promise<T> {
+/** `keepalive`: the request outlives the page (sent as it closes; its body must stay under 64 KiB). */
+export async function api<T>(path: string, options: { method?: Method; body?: unknown; signal?: AbortSignal; keepalive?: boolean } = {}): Promise<T> {
   const method = options.method ?? "GET";
   // A GET sends no headers of its own, so the browser can answer it with what the page's head preloaded.
   const headers: Record<string, string> = {};
@@ -35,6 +36,7 @@ export async function api<T>(path: string, options: { method?: Method; body?: un
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
       credentials: "same-origin",
       signal: options.signal,
+      keepalive: options.keepalive,
     });
   } catch (error) {
     if ((error as Error).name === "AbortError") throw error;

@@ -7,12 +7,12 @@ const part = (partNumber: number, etag = `e${partNumber}`): UploadPart => ({ par
 
 /** A Kerf stand-in that answers each request when told to. */
 function kerf() {
-  const requests: { parts: number[]; answer: (ok: boolean) => void }[] = [];
+  const requests: { parts: number[]; leaving: boolean; answer: (ok: boolean) => void }[] = [];
   const recorded: number[] = [];
   const records = new PartRecords(
-    (parts) =>
+    (parts, leaving) =>
       new Promise((resolve, reject) => {
-        requests.push({ parts: parts.map((p) => p.partNumber), answer: (ok) => (ok ? resolve(undefined) : reject(new Error("Kerf didn't answer."))) });
+        requests.push({ parts: parts.map((p) => p.partNumber), leaving, answer: (ok) => (ok ? resolve(undefined) : reject(new Error("Kerf didn't answer."))) });
       }),
     (parts) => recorded.push(...parts.map((p) => p.partNumber)),
   );
@@ -91,5 +91,16 @@ describe("records of stored parts, sent in batches", () => {
     requests[1]!.answer(true);
     await flushed;
     expect(records.has(5)).toBe(false);
+  });
+
+  it("when the page closes, then the waiting records go at once in a request that outlives the page", () => {
+    const { records, requests } = kerf();
+    records.add(part(1));
+    records.add(part(2));
+    records.sendAsPageCloses();
+    expect(requests.map((r) => [r.parts, r.leaving])).toEqual([[[1, 2], true]]);
+    records.add(part(3));
+    vi.advanceTimersByTime(RECORD_EVERY_MS);
+    expect(requests.at(-1)).toMatchObject({ parts: [3], leaving: false });
   });
 });

@@ -4,7 +4,8 @@ import type { UploadPart } from "@shared/rushes/schemas";
 /**
  * One upload's records of parts that reached storage, on their way to Kerf. A record waits here until
  * RECORD_BATCH are waiting or RECORD_EVERY_MS after the first, then they go together in one request; a
- * request that fails puts its records back to go with the next one. `flush()` sends all now and waits.
+ * request that fails puts its records back to go with the next one. `flush()` sends all now and waits;
+ * `sendAsPageCloses()` sends all in requests that outlive the page.
  */
 export class PartRecords {
   private waiting = new Map<number, UploadPart>();
@@ -13,7 +14,7 @@ export class PartRecords {
   private timer: ReturnType<typeof setTimeout> | null = null;
 
   constructor(
-    private readonly send: (parts: UploadPart[]) => Promise<unknown>,
+    private readonly send: (parts: UploadPart[], leaving: boolean) => Promise<unknown>,
     private readonly recorded: (parts: UploadPart[]) => void,
   ) {}
 
@@ -40,6 +41,11 @@ export class PartRecords {
     if (failed && this.waiting.size > 0) throw failed.reason;
   }
 
+  /** The page is closing: the waiting records go now, in requests the browser finishes after it. */
+  sendAsPageCloses() {
+    this.sendWaiting(true);
+  }
+
   /** The upload was cancelled: nothing more to tell Kerf. */
   drop() {
     this.stopTimer();
@@ -51,7 +57,7 @@ export class PartRecords {
     this.timer = null;
   }
 
-  private sendWaiting() {
+  private sendWaiting(leaving = false) {
     this.stopTimer();
     while (this.waiting.size > 0) {
       const parts = [...this.waiting.values()].slice(0, RECORDS_PER_REQUEST);
@@ -59,7 +65,7 @@ export class PartRecords {
         this.waiting.delete(part.partNumber);
         this.sent.set(part.partNumber, part);
       }
-      const request = this.send(parts).then(
+      const request = this.send(parts, leaving).then(
         () => {
           this.answered(parts, false);
           this.recorded(parts);

@@ -20,7 +20,7 @@ import { forgetResumeNote, readResumeNote, writeResumeNote } from "./resume-note
  * it makes goes to Kerf's own routes: Kerf opens the upload, signs each part for its exact length (a
  * few parts per request, part-signer.ts), and keeps its own record of each stored part (number, ETag,
  * size), sent a few at a time while the next parts are on their way (part-records.ts) and all sent
- * before pausing, listing or completing; listing parts reads those records, so a paused, failed or
+ * before pausing, listing or completing, or as the page closes; listing parts reads those records, so a paused, failed or
  * reloaded upload carries on from what Kerf recorded. One queue per channel lives for the whole visit,
  * so an upload goes on while the person moves to another page of Kerf.
  */
@@ -125,6 +125,10 @@ export class UploadQueue {
       // Uppy aborts on any error; Kerf keeps the parts for Retry instead. A person's Cancel aborts (cancel()).
       abortMultipartUpload: () => undefined,
     });
+    // Records still waiting when the page closes would be lost, and those parts sent again on resume.
+    window.addEventListener("pagehide", () => {
+      for (const job of this.jobs) if (job.uploadId) job.records.sendAsPageCloses();
+    });
     this.uppy.on("upload-success", (file) => {
       if (file) void this.finished(this.jobOf(file.meta.jobId), file.id);
     });
@@ -190,7 +194,7 @@ export class UploadQueue {
       sending: new Map(),
       failures: new Map(),
       records: new PartRecords(
-        (parts) => recordParts(this.channelId, job.uploadId!, parts),
+        (parts, leaving) => recordParts(this.channelId, job.uploadId!, parts, leaving),
         (parts) => {
           for (const part of parts) job.stored.set(part.partNumber, part.size);
           this.emit();
