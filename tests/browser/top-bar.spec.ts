@@ -40,7 +40,7 @@ test.use({ viewport: { width: 1280, height: 800 } });
 test("the owner's bar keeps to one line and one strip of pages from 768 px up, and to the menu on a phone", async ({ page }) => {
   await signInToDemo(page, "owner", channelId);
   const pages = page.getByRole("navigation", { name: "Channel pages" });
-  for (const width of [1440, 1280, 1024, 768]) {
+  for (const width of [1440, 1280, 1024, 768, 700, 640]) {
     await page.setViewportSize({ width, height: 800 });
     await expectOneLine(page, width);
     await expect(pages.getByRole("link", { name: "Home" })).toHaveAttribute("aria-current", "page");

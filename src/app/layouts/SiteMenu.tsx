@@ -8,12 +8,12 @@ import { SearchBox } from "../../features/search/components/SearchBox";
 import { channelNav } from "../nav";
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
-  `rounded-md px-3 py-2 text-base font-medium sm:px-2.5 sm:py-1.5 sm:text-sm lg:px-3 ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
+  `shrink-0 whitespace-nowrap rounded-md px-3 py-2 text-base font-medium sm:px-2.5 sm:py-1.5 sm:text-sm lg:px-3 ${isActive ? "bg-amber-cut text-graphite-900" : "text-ply-100 hover:bg-graphite-700"}`;
 
 /**
  * The channel, its pages and the account. On a desk the channel, the finder and the account sit in the
  * top bar's line and the pages in a strip under it (so ten pages never push the finder onto a second
- * line); on a phone they are a sheet under the bar that covers the page until a link is followed.
+ * line; where the strip is too narrow for them it scrolls sideways); on a phone they are a sheet under the bar that covers the page until a link is followed.
  */
 export function SiteMenu() {
   // Open on the page it was opened on: following a link shuts it.
@@ -60,7 +60,7 @@ export function SiteMenu() {
         {channel && (
           <nav
             aria-label="Channel pages"
-            className="flex flex-col gap-1 sm:order-last sm:-mx-4 sm:basis-[calc(100%+2rem)] sm:flex-row sm:flex-wrap sm:border-t sm:border-graphite-700 sm:px-2 sm:py-1.5"
+            className="flex flex-col gap-1 sm:order-last sm:-mx-4 sm:basis-[calc(100%+2rem)] sm:flex-row sm:overflow-x-auto sm:border-t sm:border-graphite-700 sm:px-2 sm:py-1.5"
           >
             {channelNav
               .filter((entry) => roleMay(channel.role, entry.area, "R"))
@@ -79,7 +79,7 @@ export function SiteMenu() {
                 to="/account"
                 aria-label={`Your account (${user.name})`}
                 title={user.name}
-                className={(state) => `${navClass(state)} sm:block sm:max-w-32 sm:truncate lg:max-w-56`}
+                className={(state) => `${navClass(state)} sm:block sm:max-w-20 sm:truncate md:max-w-32 lg:max-w-56`}
               >
                 {user.name}
               </NavLink>

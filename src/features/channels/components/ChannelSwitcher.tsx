@@ -17,7 +17,7 @@ export function ChannelSwitcher() {
         id="channel-switcher"
         value={current?.channelId ?? ""}
         onChange={(event) => navigate(event.target.value === "new" ? "/channels/new" : `/c/${event.target.value}/home`)}
-        className="max-w-80 rounded-md border border-graphite-700 bg-graphite-900 px-2 py-1 font-semibold text-ply-50 sm:max-w-48 lg:max-w-80"
+        className="max-w-80 rounded-md border border-graphite-700 bg-graphite-900 px-2 py-1 font-semibold text-ply-50 sm:max-w-32 md:max-w-48 lg:max-w-80"
       >
         {!current && <option value="">Pick a channel</option>}
         {memberships.map((m) => (

@@ -85,9 +85,9 @@ export function SearchBox({ channelId }: { channelId: string }) {
           onKeyDown={(e) => {
             if (e.key === "Enter") links()[0]?.click();
           }}
-          className="w-full min-w-0 bg-transparent px-3 py-1.5 text-sm text-ply-50 placeholder:text-ply-200 focus:outline-none sm:w-28 lg:w-44 xl:w-64 [&::-webkit-search-cancel-button]:hidden"
+          className="w-full min-w-0 bg-transparent px-3 py-1.5 text-sm text-ply-50 placeholder:text-ply-200 focus:outline-none sm:w-24 md:w-28 lg:w-44 xl:w-64 [&::-webkit-search-cancel-button]:hidden"
         />
-        <kbd aria-hidden className="mr-2 rounded border border-graphite-500 px-1.5 font-mono text-xs text-ply-200">
+        <kbd aria-hidden className="mr-2 hidden rounded border border-graphite-500 px-1.5 font-mono text-xs text-ply-200 md:inline">
           /
         </kbd>
       </div>
