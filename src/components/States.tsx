@@ -141,8 +141,10 @@ export function QueryState<T>({
   children: (data: T) => ReactNode;
 }) {
   const retry = () => void query.refetch();
-  // Newly arrived data is drawn in a render React can pause, so a big part never blocks typing or scrolling.
-  const data = useDeferredValue(query.data);
+  // Data that has just arrived is first drawn in a render React can pause, so a big part doesn't block
+  // a tap while it is drawn; later changes, and data going away, show at once (never another record's).
+  const arrived = useDeferredValue(query.data !== undefined);
+  const data = arrived ? query.data : undefined;
   if (data === undefined) {
     if (query.status === "error") return <LoadError error={query.error} retry={retry} back={back} missing={missing} />;
     return <Loading label={loading} page={page} />;
