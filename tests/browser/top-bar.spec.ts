@@ -37,7 +37,7 @@ async function expectOneLine(page: Page, width: number) {
 
 test.use({ viewport: { width: 1280, height: 800 } });
 
-test("the owner's bar keeps to one line and one strip of pages from 768 px up, and to the menu on a phone", async ({ page }) => {
+test("the owner's bar keeps to one line and one strip of pages from 640 px up, and to the menu on a phone", async ({ page }) => {
   await signInToDemo(page, "owner", channelId);
   const pages = page.getByRole("navigation", { name: "Channel pages" });
   for (const width of [1440, 1280, 1024, 768, 700, 640]) {
