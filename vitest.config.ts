@@ -1,13 +1,13 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
+const allTests = ["shared/**/*.test.ts", "server/**/*.test.ts", "src/**/*.test.{ts,tsx}", "tests/api/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/payments-standin/**/*.test.ts"];
 /** Files that replace a module (`vi.mock`) run in a process of their own, so no other file sees the stand-in. */
 const ownModules = ["tests/api/all-or-nothing.test.ts"];
 
 export default defineConfig({
   resolve: { alias: { "@shared": path.resolve(import.meta.dirname, "shared") } },
   test: {
-    include: ["shared/**/*.test.ts", "server/**/*.test.ts", "src/**/*.test.{ts,tsx}", "tests/api/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/payments-standin/**/*.test.ts"],
     environment: "node",
     testTimeout: 20_000,
     hookTimeout: 60_000,
@@ -23,7 +23,8 @@ export default defineConfig({
         // queue, cache and pool is made by startTestApp for its file. A file that fakes timers or spies
         // restores them in afterEach.
         extends: true,
-        test: { name: "shared-modules", isolate: false, exclude: ownModules },
+        // A project's include adds to the root's, so the root names none and each project names its own.
+        test: { name: "shared-modules", isolate: false, include: allTests, exclude: ownModules },
       },
       { extends: true, test: { name: "own-modules", isolate: true, include: ownModules } },
     ],
