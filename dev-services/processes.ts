@@ -69,6 +69,18 @@ export function run(command: string, args: string[], options: SpawnOptions = {})
   });
 }
 
+/** Runs a command to completion keeping its output (stdout and stderr as they came); resolves to its exit code and that output. */
+export function runCollected(command: string, args: string[], options: SpawnOptions = {}): Promise<{ code: number; output: string }> {
+  return new Promise((resolve) => {
+    const child = spawnTied(command, args, { ...options, stdio: ["ignore", "pipe", "pipe"] });
+    const chunks: Buffer[] = [];
+    child.stdout?.on("data", (chunk: Buffer) => chunks.push(chunk));
+    child.stderr?.on("data", (chunk: Buffer) => chunks.push(chunk));
+    child.on("close", (code, signal) => resolve({ code: code ?? (signal ? 1 : 0), output: Buffer.concat(chunks).toString() }));
+    child.on("error", (error) => resolve({ code: 127, output: String(error) }));
+  });
+}
+
 export function stopChild(child: ChildProcess | undefined): Promise<void> {
   return new Promise((resolve) => {
     if (!child || child.exitCode !== null || child.signalCode !== null) return resolve();

@@ -9,7 +9,7 @@ import { TEST_RETRY } from "./payments/webhooks";
 import { startS3StandIn } from "./s3";
 import { repoRoot, stateDir } from "./paths";
 import { ensureDatabase, startCluster, stopLeftoverCluster } from "./postgres";
-import { freePort, run, spawnTied, stopChild, waitForHttp } from "./processes";
+import { freePort, run, runCollected, spawnTied, stopChild, waitForHttp } from "./processes";
 import { removeFolder } from "./service-user";
 
 /**
@@ -32,15 +32,36 @@ const bin = (name: string) => path.join(repoRoot, "node_modules", ".bin", name);
 interface Step {
   name: string;
   passed: boolean;
+  seconds: number;
 }
 const steps: Step[] = [];
 const stops: (() => Promise<void> | void)[] = [];
+const runStarted = performance.now();
+const secondsSince = (start: number) => (performance.now() - start) / 1000;
 
 async function step(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = {}): Promise<boolean> {
   console.log(`\n── ${name} ──`);
+  const started = performance.now();
   const code = await run(command, args, { env: { ...process.env, ...env }, cwd: repoRoot });
-  steps.push({ name, passed: code === 0 });
+  steps.push({ name, passed: code === 0, seconds: secondsSince(started) });
   return code === 0;
+}
+
+/**
+ * Checks that each keep one core busy (the type check, the linter), run side by side on the machine's
+ * two cores; each one's output is printed whole when it ends, so theirs never interleave.
+ */
+async function stepsSideBySide(checks: { name: string; command: string; args: string[] }[]): Promise<void> {
+  const started = performance.now();
+  const done = checks.map((check) => ({ name: check.name, passed: false, seconds: 0 }));
+  steps.push(...done);
+  await Promise.all(
+    checks.map(async (check, i) => {
+      const { code, output } = await runCollected(check.command, check.args, { env: process.env, cwd: repoRoot });
+      console.log(`\n── ${check.name} ──\n${output.trimEnd()}`);
+      Object.assign(done[i]!, { passed: code === 0, seconds: secondsSince(started) });
+    }),
+  );
 }
 
 async function preparePostgres() {
@@ -95,6 +116,8 @@ function processAlive(pid: number): boolean {
     return false;
   }
 }
+
+const minutes = (seconds: number) => `${Math.floor(Math.round(seconds) / 60)} min ${Math.round(seconds) % 60} s`;
 
 function countVitest(): { passed: number; failed: number } {
   const file = path.join(outputDir, "vitest.json");
@@ -179,8 +202,10 @@ async function main(): Promise<number> {
   mkdirSync(outputDir, { recursive: true });
 
   if (!partial) {
-    await step("type check", bin("tsc"), ["--noEmit", "-p", "tsconfig.json"]);
-    await step("lint", bin("eslint"), ["--max-warnings", "0", "."]);
+    await stepsSideBySide([
+      { name: "type check", command: bin("tsc"), args: ["--noEmit", "-p", "tsconfig.json"] },
+      { name: "lint", command: bin("eslint"), args: ["--max-warnings", "0", "."] },
+    ]);
     // Two branches that each generated the next migration leave two snapshots with one parent: refused here.
     await step("migrations check (drizzle-kit check)", bin("drizzle-kit"), ["check"]);
   }
@@ -225,7 +250,8 @@ async function main(): Promise<number> {
   const vitest = countVitest();
   const browser = countPlaywright();
   console.log("\n── summary ──");
-  for (const s of steps) console.log(`${s.passed ? "ok  " : "FAIL"}  ${s.name}`);
+  for (const s of steps) console.log(`${s.passed ? "ok  " : "FAIL"}  ${s.name} (${minutes(s.seconds)})`);
+  console.log(`wall time ${minutes(secondsSince(runStarted))} (this script's; installing what was missing came before it)`);
   console.log(`vitest: ${vitest.passed} passed, ${vitest.failed} failed; browser: ${browser.passed} passed, ${browser.failed} failed`);
   console.log(`screenshots and traces: ${path.relative(repoRoot, outputDir)}/`);
   const failedSteps = steps.filter((s) => !s.passed).length;

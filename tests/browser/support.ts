@@ -95,19 +95,28 @@ export async function expectHome(page: Page): Promise<void> {
 
 /**
  * The demo channel's id. The demo is made once in the browser tests' database (its accounts are fixed
- * addresses, so a second run finds it there).
+ * addresses, so a second run finds it there). Two test workers may ask at once: the first takes a lock
+ * and makes it, the other waits on the lock and then finds it made.
  */
 export async function demoChannelId(): Promise<string> {
-  const found = () => sql<{ id: string }>("select id from channels where name = $1", [DEMO_CHANNEL]);
-  if ((await found()).length === 0) {
-    const handle = connectDatabase(process.env.KERF_E2E_DATABASE_URL!);
-    try {
-      await seedDemo(handle.db);
-    } finally {
-      await handle.close();
+  const client = new pg.Client({ connectionString: process.env.KERF_E2E_DATABASE_URL });
+  await client.connect();
+  try {
+    // Held until this session ends, whatever happens in between.
+    await client.query("select pg_advisory_lock(hashtext('browser tests: the demo channel'))");
+    const found = async () => (await client.query<{ id: string }>("select id from channels where name = $1", [DEMO_CHANNEL])).rows;
+    if ((await found()).length === 0) {
+      const handle = connectDatabase(process.env.KERF_E2E_DATABASE_URL!);
+      try {
+        await seedDemo(handle.db);
+      } finally {
+        await handle.close();
+      }
     }
+    return (await found())[0]!.id;
+  } finally {
+    await client.end();
   }
-  return (await found())[0]!.id;
 }
 
 /** Signs in as the demo channel's member in this role and opens that channel's home. */
