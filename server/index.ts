@@ -39,6 +39,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(env.PORT, env.HOST, () => resolve(listening));
   });
+  // Idle connections are kept longer than a client or a balancer in front keeps them (Node's default is
+  // 5 s): a client reusing one the server had just closed would see its request reset.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : env.PORT;
   return {
