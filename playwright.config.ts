@@ -6,11 +6,11 @@ export default defineConfig({
   outputDir: ".kerf/test-output/browser",
   forbidOnly: true,
   retries: 0,
-  // Two files at a time, each in a worker of its own; a file's tests run in order. Each journey makes its own
-  // people and channel (or only reads the demo channel, made once under a lock: demoChannelId) and finds
-  // its mail by its own address, so two journeys never meet. More workers than the machine's 2 cores
-  // would only share them.
-  workers: 2,
+  // One file at a time. Each journey makes its own people and channel (or only reads the demo channel, made
+  // once under a lock: demoChannelId) and finds its mail by its own address, so two could run at once
+  // (`npm test -- --browser --workers=2`), but on a 2-core machine the browser, the server and PostgreSQL
+  // already fill both cores: two workers took 13.6 min against 11–12 for one.
+  workers: 1,
   timeout: 60_000,
   expect: { timeout: 10_000 },
   reporter: [["list"], ["json"]],
