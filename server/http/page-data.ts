@@ -8,7 +8,10 @@ const episodeUrl = ({ channelId, episodeId }: Record<string, string>) => `/api/c
 /** The episode and the answers its open part asks for beside it, as the part's `prefetch` in src/app/episode-sections.tsx. */
 const episodeWith =
   (...paths: string[]): Answers =>
-  (params) => [episodeUrl(params), ...paths.map((p) => `${episodeUrl(params)}/${p}`)];
+  (params) => {
+    const episode = episodeUrl(params);
+    return [episode, ...paths.map((p) => `${episode}/${p}`)];
+  };
 const partAnswers: Record<string, Answers> = {
   "test-plan": episodeWith("test-plan"),
   bench: (params) => [...episodeWith("bench-runs", "test-plan")(params), `/api/channels/${params.channelId}/bench/parts`],
