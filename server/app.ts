@@ -6,7 +6,7 @@ import { authRoutes } from "./auth/auth.router";
 import { passwordResetRoutes } from "./auth/password-reset.router";
 import { passwordResetMailRenderer } from "./auth/password-reset.service";
 import { defaultSignInLimits, type SignInLimits } from "./auth/rate-limits";
-import { findUserById } from "./auth/users.repository";
+import { findLiveSession, findUserById } from "./auth/users.repository";
 import { verificationRoutes } from "./auth/verification.router";
 import { addressChangeMailRenderer, verificationMailRenderer } from "./auth/verification.service";
 import { benchRoutes } from "./bench/bench.router";
@@ -179,7 +179,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   // Route paths are written in full (/api/…) so the route table reads as the URLs people call.
   const routes = apiRoutes(deps, options);
   const guards = guardsFor(database.db);
-  const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET), passport.session()];
+  const loadSession = [sessionMiddleware(database.pool, env.SESSION_SECRET, (sid) => findLiveSession(database.db, sid)), passport.session()];
   // In this order: no answer is cached; bodies are read, and bad ones refused, before any session or
   // database work; the health check answers whether or not sessions can be read; then the rest.
   api.use("/api", noStoreByDefault);

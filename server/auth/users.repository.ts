@@ -1,6 +1,7 @@
-import { eq, sql } from "drizzle-orm";
+import { and, eq, gte, sql } from "drizzle-orm";
+import type { Role } from "../../shared/access/roles";
 import type { Database } from "../db/client";
-import { users } from "../db/schema/accounts";
+import { memberships, sessions, users } from "../db/schema/accounts";
 
 const publicColumns = {
   id: users.id,
@@ -13,6 +14,26 @@ const publicColumns = {
 export async function findUserById(db: Database, id: string) {
   const rows = await db.select(publicColumns).from(users).where(eq(users.id, id)).limit(1);
   return rows[0] ?? null;
+}
+
+/**
+ * A stored session that has not expired, with its person and their role in each of their channels:
+ * what a signed-in request starts from, read in one query instead of three.
+ */
+export async function findLiveSession(db: Database, sid: string) {
+  const rows = await db
+    .select({
+      sess: sessions.sess,
+      user: publicColumns,
+      roles: sql<Record<string, Role> | null>`(select json_object_agg(${memberships.channelId}, ${memberships.role}) from ${memberships} where ${memberships.userId} = ${sessions.userId})`,
+    })
+    .from(sessions)
+    .leftJoin(users, eq(users.id, sessions.userId))
+    .where(and(eq(sessions.sid, sid), gte(sessions.expire, sql`now()`)))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return null;
+  return { sess: row.sess, user: row.user?.id ? row.user : null, roles: row.roles ?? {} };
 }
 
 export async function findUserWithHashByEmail(db: Database, email: string) {

@@ -2,7 +2,8 @@ import connectPgSimple from "connect-pg-simple";
 import session from "express-session";
 import passport from "passport";
 import type pg from "pg";
-import type { RequestHandler } from "express";
+import type { Request, RequestHandler } from "express";
+import type { Role } from "../../shared/access/roles";
 
 const PgStore = connectPgSimple(session);
 
@@ -15,8 +16,50 @@ const TOUCHES_REMEMBERED = 20_000;
  * for every read. This one writes it at most once per ten minutes per session on each instance:
  * a session may end up to ten minutes early after fourteen idle days, and most requests write nothing.
  */
+/** A stored session read with its person and their roles by channel (`findLiveSession`). */
+export interface SessionRead {
+  sess: unknown;
+  user: Express.User | null;
+  roles: Record<string, Role>;
+}
+export type ReadSession = (sid: string) => Promise<SessionRead | null>;
+
+/** What the store read, by the session data it answered, then by the request that data became. */
+const readsBySession = new WeakMap<object, SessionRead>();
+const readsByRequest = new WeakMap<Request, SessionRead>();
+
+/**
+ * The caller's role in each of their channels, read with their session at the start of this request;
+ * undefined when the request's session was not read that way.
+ */
+export function rolesReadWithSession(req: Request): Record<string, Role> | undefined {
+  const read = readsByRequest.get(req);
+  return read?.user && read.user.id === req.user?.id ? read.roles : undefined;
+}
+
 class SessionStore extends PgStore {
   readonly #touchedAt = new Map<string, number>();
+  readonly #read: ReadSession;
+
+  constructor(options: ConstructorParameters<typeof PgStore>[0], read: ReadSession) {
+    super(options);
+    this.#read = read;
+  }
+
+  /** The session, its person and their roles in one query; passport and the channel guards use what it read. */
+  override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): void {
+    this.#read(sid).then((read) => {
+      if (!read) return callback(null, null);
+      readsBySession.set(read.sess as object, read);
+      callback(null, read.sess as session.SessionData);
+    }, callback);
+  }
+
+  override createSession(req: Request, sess: session.SessionData): session.Session & session.SessionData {
+    const read = readsBySession.get(sess);
+    if (read) readsByRequest.set(req, read);
+    return super.createSession(req, sess);
+  }
 
   override touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {
     const now = Date.now();
@@ -43,11 +86,11 @@ declare module "express-session" {
 }
 
 /** Sessions live in PostgreSQL so any app instance can serve any signed-in person. */
-export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler {
+export function sessionMiddleware(pool: pg.Pool, secret: string, read: ReadSession): RequestHandler {
   return session({
     name: SESSION_COOKIE,
     secret,
-    store: new SessionStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: new SessionStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 }, read),
     resave: false,
     saveUninitialized: false,
     rolling: true,
@@ -68,7 +111,10 @@ export function sessionMiddleware(pool: pg.Pool, secret: string): RequestHandler
 export function configurePassport(findUser: (id: string) => Promise<Express.User | null>): passport.Authenticator {
   const authenticator = new passport.Passport();
   authenticator.serializeUser((user, done) => done(null, user.id));
-  authenticator.deserializeUser((id: string, done) => {
+  // Three arguments: passport hands in the request, so the person read with the session is used.
+  authenticator.deserializeUser((req: Request, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
+    const read = readsByRequest.get(req);
+    if (read?.user?.id === id) return done(null, read.user);
     findUser(id).then((user) => done(null, user ?? false), done);
   });
   return authenticator;
