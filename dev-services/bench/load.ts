@@ -15,13 +15,15 @@ import { freePort, stopChild, waitForHttp } from "../processes";
 import { startS3StandIn } from "../s3";
 import { deeplyNested } from "../../tests/support/server-timing";
 import { coresUsed, postmasterOf, sampleCpu } from "./cpu-share";
+import { STATEMENT_STATS_SETTINGS, startCountingStatements, statementFigures } from "./statements";
 
 /**
  * `npm run bench:load`: a bounded mixed workload from 50 signed-in clients for 30 s on loopback —
  * the board, an episode page, the footage list and the producer's desk, and a write (a comment) every
  * tenth request — against a Kerf server of its own on throwaway services. Bounded: each client keeps
  * to a set pace (RATE). A short flat-out run after it shows the ceiling, with one server process per
- * core (as served) and then with one process (`core_scaling` is their ratio). Last line: one JSON object.
+ * core (as served) and then with one process (`core_scaling` is their ratio), and what PostgreSQL did for
+ * each request of the one-process run (statements, planning and running time). Last line: one JSON object.
  *
  * `npm run bench:load -- --attack` (or BENCH_ATTACK=1): the same, with one more client that sends
  * 6,000-level-deep bodies to the sign-up form as fast as it is answered, all through the paced and the
@@ -43,7 +45,7 @@ const stops: (() => Promise<void> | void)[] = [];
 
 async function main() {
   rmSync(work, { recursive: true, force: true });
-  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true });
+  const cluster = startCluster({ dataDir: path.join(work, "pg"), port: await freePort(), fresh: true, settings: STATEMENT_STATS_SETTINGS });
   stops.push(() => cluster.stop());
   const databaseUrl = await ensureDatabase(cluster, "kerf_load");
   await migrateDatabase(databaseUrl);
@@ -150,9 +152,13 @@ async function main() {
   const single = await startApp(1, await freePort());
   const singleClients = await Promise.all(people.map((p) => signIn(single.url, { email: p.email, password })));
   await driveFlatOut(single.url, singleClients, requestsFor, { seconds: Math.min(5, SATURATION_SECONDS) });
+  const stats = connectDatabase(databaseUrl);
+  await startCountingStatements(stats.pool);
   const beforeOne = sampleCpu();
   const flatOutOne = summary(await driveFlatOut(single.url, singleClients, requestsFor, { seconds: SATURATION_SECONDS }));
   const coresOne = coresUsed(beforeOne, sampleCpu(), watched(single.pid));
+  const statements = await statementFigures(stats.pool, flatOutOne.requests);
+  await stats.close();
   await single.stop();
 
   const figures = {
@@ -182,6 +188,9 @@ async function main() {
     flat_out_one_cores_postgres: coresOne.postgres,
     flat_out_one_cores_load_generator: coresOne.bench,
     flat_out_one_cores_machine: coresOne.machine,
+    postgres_statements_per_request: statements.perRequest,
+    postgres_plan_ms_per_request: statements.planMsPerRequest,
+    postgres_exec_ms_per_request: statements.execMsPerRequest,
     ...(attacked && calm
       ? {
           attack_depth: ATTACK_DEPTH,
@@ -208,7 +217,9 @@ flat out (the ceiling of this machine, server, database and load generator toget
 one server process flat out: ${flatOutOne.perSecond}/s, ${flatOutOne.errors} errors; ${figures.workers} processes: ${flatOut.perSecond}/s
   core scaling: ${figures.core_scaling} (target >= 1.6 on 2 cores with PostgreSQL and the load on the same machine: ${figures.core_scaling >= 1.6 ? "met" : "NOT met"})
   cores busy (of ${os.cpus().length}):  ${figures.workers} processes: server ${coresAll.server}, PostgreSQL ${coresAll.postgres}, load generator ${coresAll.bench}, whole machine ${coresAll.machine}
-                     one process: server ${coresOne.server}, PostgreSQL ${coresOne.postgres}, load generator ${coresOne.bench}, whole machine ${coresOne.machine}${
+                     one process: server ${coresOne.server}, PostgreSQL ${coresOne.postgres}, load generator ${coresOne.bench}, whole machine ${coresOne.machine}
+PostgreSQL per request (one process flat out): ${statements.perRequest} statements, planning ${statements.planMsPerRequest} ms, running ${statements.execMsPerRequest} ms; costliest:
+${statements.top.map((t) => `  ${String(t.ms).padStart(6)} ms ${String(t.calls).padStart(6)}× ${t.text}`).join("\n")}${
     attacked && calm
       ? `
 attacker (one client, ${ATTACK_DEPTH}-deep bodies to the sign-up form, flat out through both runs):

@@ -12,10 +12,13 @@ function fromFramework(error: unknown): AppError | null {
   return null;
 }
 
+/** The driver's error, or drizzle's wrapping of it (its `cause`). */
 function isDatabaseDown(error: unknown): boolean {
   const code = (error as { code?: string })?.code ?? "";
   const message = (error as Error)?.message ?? "";
-  return ["ECONNREFUSED", "57P01", "57P03", "08006", "08001", "ECONNRESET"].includes(code) || /Connection terminated|timeout exceeded when trying to connect|Cannot use a pool after calling end/i.test(message);
+  const down = ["ECONNREFUSED", "57P01", "57P03", "08006", "08001", "ECONNRESET"].includes(code) || /Connection terminated|timeout exceeded when trying to connect|Cannot use a pool after calling end/i.test(message);
+  const cause = (error as { cause?: unknown })?.cause;
+  return down || (cause !== undefined && cause !== error && isDatabaseDown(cause));
 }
 
 export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
