@@ -40,7 +40,9 @@ export async function findInChannel(db: Database, channelId: string, areas: Sear
   const readable = (alias: string) =>
     sql`${sql.raw(alias)}.channel_id = ${channelId} and ${sql.raw(alias)}.area = any(string_to_array(${areas.join(",")}, ','))`;
   return db.transaction(async (tx) => {
-    await tx.execute(sql`select set_config('pg_trgm.word_similarity_threshold', ${WORD_SIMILARITY}, true)`);
+    // Planned for each search's own words and channel (statements are prepared, server/db/prepared-statements.ts):
+    // one plan for every search would guess how many entries each word and each channel holds.
+    await tx.execute(sql`select set_config('pg_trgm.word_similarity_threshold', ${WORD_SIMILARITY}, true), set_config('plan_cache_mode', 'force_custom_plan', true)`);
     const result = await tx.execute<FoundRow>(sql`
       with q as (select websearch_to_tsquery('kerf_search', ${query}) as words),
       worded as materialized (
