@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { PASSWORD, expectHome, signUpThroughApi, snap, uniqueEmail } from "./support";
+import { MAIL_POLL_INTERVALS, PASSWORD, expectHome, signUpThroughApi, snap, uniqueEmail } from "./support";
 
 const NEW_PASSWORD = "a-fresh-bench-passphrase";
 
@@ -14,7 +14,7 @@ async function mailWithSubject(address: string, subject: string): Promise<{ text
         found = all.filter((m) => m.subject === subject && m.to.some((t) => t.address === address));
         return found.length;
       },
-      { timeout: 15_000, message: `"${subject}" to ${address}` },
+      { timeout: 15_000, intervals: MAIL_POLL_INTERVALS, message: `"${subject}" to ${address}` },
     )
     .toBeGreaterThan(0);
   return found[found.length - 1]!;

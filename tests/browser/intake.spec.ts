@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { DESK, expectFitsPhone, latestMailTo, PHONE, signUpThroughApi, snap, sql, uniqueEmail } from "./support";
+import { DESK, expectFitsPhone, latestMailTo, MAIL_POLL_INTERVALS, PHONE, signUpThroughApi, snap, sql, uniqueEmail } from "./support";
 
 test.setTimeout(240_000);
 
@@ -113,7 +113,7 @@ async function waitForNews(address: string) {
         found = all.find((m) => m.to.some((t) => t.address === address) && !m.subject.startsWith("Confirm"));
         return Boolean(found);
       },
-      { timeout: 30_000, message: `the news mail to ${address}` },
+      { timeout: 30_000, intervals: MAIL_POLL_INTERVALS, message: `the news mail to ${address}` },
     )
     .toBe(true);
   return found!;

@@ -59,6 +59,9 @@ interface CaughtMail {
   to: { address: string }[];
 }
 
+/** How often a test asks the mail stand-in: its workers send within about half a second, so every quarter to half a second, not Playwright's default second. */
+export const MAIL_POLL_INTERVALS = [100, 250, 250, 500];
+
 /** Waits until the mail stand-in holds a message to `address`, and answers the newest one. */
 export async function latestMailTo(address: string, timeoutMs = 15_000): Promise<{ text: string; subject: string }> {
   let mine: CaughtMail[] = [];
@@ -69,7 +72,7 @@ export async function latestMailTo(address: string, timeoutMs = 15_000): Promise
         mine = all.filter((m) => m.to.some((t) => t.address === address));
         return mine.length;
       },
-      { timeout: timeoutMs, message: `mail to ${address}` },
+      { timeout: timeoutMs, intervals: MAIL_POLL_INTERVALS, message: `mail to ${address}` },
     )
     .toBeGreaterThan(0);
   return mine[mine.length - 1]!;
