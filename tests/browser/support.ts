@@ -2,9 +2,9 @@ import path from "node:path";
 import { expect, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
 import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, seedDemo } from "../../dev-services/demo/channel";
-import { hashPassword } from "../../server/auth/password";
 import { connectDatabase } from "../../server/db/client";
 import type { Role } from "../../shared/access/roles";
+import { factoryPasswordHash } from "../factories/accounts";
 import type { EpisodeRecord } from "../../shared/slate/schemas";
 import type { Stage } from "../../shared/slate/stages";
 
@@ -175,7 +175,7 @@ export async function signUpThroughApi(page: Page, person: { name: string; email
 /** A member in a role of their own with a confirmed address, made straight in the test database (the invitation journey has its own test). */
 export async function member(channelId: string, name: string, role: "producer" | "editor" | "crew") {
   const email = uniqueEmail(role);
-  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await hashPassword(PASSWORD)]);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await factoryPasswordHash(PASSWORD)]);
   await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
   return { email, name };
 }
