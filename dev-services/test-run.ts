@@ -176,6 +176,8 @@ async function browserTests(clusterUrl: string, cluster: ReturnType<typeof start
       SMTP_PORT: String(mail.smtpPort),
       // Every browser test signs its people up from this one address.
       SIGN_UPS_PER_ADDRESS: "1000",
+      // Journeys wait on mail, posters, cards and reports: the workers ask for work at pg-boss's quickest pace.
+      JOB_POLL_SECONDS: "0.5",
       // One process, as before: several are tested by tests/api/server-processes.test.ts.
       KERF_WORKERS: "1",
       ...s3.env,

@@ -43,6 +43,12 @@ const envSchema = z.object({
     .default("")
     .refine((v) => v === "" || URL.canParse(v), "PAYMENTS_API_URL must be a URL (or empty for the provider's own API)"),
   PAYMENTS_SECRET_KEY: z.string().default(""),
+  /**
+   * How often every job worker asks for work, in seconds (pg-boss takes 0.5 at least). Unset, each
+   * keeps its own pace (mail, clip media, cards, reports 2 s; the reminder scan 5 s): a quicker pace
+   * only adds queries. The browser tests' server sets it low, so a journey waits on a job, not on a poll.
+   */
+  JOB_POLL_SECONDS: z.coerce.number().min(0.5).max(60).optional(),
   PAYMENTS_WEBHOOK_SECRET: z.string().default(""),
 });
 

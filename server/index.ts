@@ -25,14 +25,15 @@ export interface RunningServer {
 export async function startServer(env: Env = readEnv()): Promise<RunningServer> {
   const database = connectDatabase(env.DATABASE_URL);
   const mailer = createMailer(env);
-  const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, mailer });
+  const pace = { pollSeconds: env.JOB_POLL_SECONDS };
+  const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, mailer, ...pace });
   await jobs.startMailWorker(mailRenderers({ env, database }));
   const storage = createS3Storage(storageSettingsFrom(env));
-  await scheduleRushesJobs(jobs.boss, { db: database.db, storage });
-  await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs });
-  await startResultsCardWorker(jobs.boss, { db: database.db, storage, jobs, chromiumPath: env.CHROMIUM_PATH });
-  await startSponsorReportWorker(jobs.boss, { ...reportContext({ env, database, storage, jobs }, publishedVideo), chromiumPath: env.CHROMIUM_PATH });
-  await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL });
+  await scheduleRushesJobs(jobs.boss, { db: database.db, storage }, pace);
+  await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs }, pace);
+  await startResultsCardWorker(jobs.boss, { db: database.db, storage, jobs, chromiumPath: env.CHROMIUM_PATH }, pace);
+  await startSponsorReportWorker(jobs.boss, { ...reportContext({ env, database, storage, jobs }, publishedVideo), chromiumPath: env.CHROMIUM_PATH }, pace);
+  await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL }, pace);
   await scheduleMailHousekeeping(jobs.boss, database.db);
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };
   const app = createApp({ env, database, mailer, jobs, storage }, { signInLimits });

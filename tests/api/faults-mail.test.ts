@@ -3,7 +3,7 @@ import { startMailCatcher, type MailCatcher } from "../../dev-services/mail";
 import { freePort } from "../../dev-services/processes";
 import { createChannel, createUser } from "../factories/accounts";
 import { uniqueEmail } from "../factories/invitations";
-import { mailJobsTo, waitForJobStates } from "../support/jobs";
+import { mailJobsTo, retryNow, waitForJobStates } from "../support/jobs";
 import { mailTo, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp } from "../support/test-app";
 
@@ -37,6 +37,7 @@ describe("mail server stopped", () => {
     expect(await waitForJobStates(app.database.pool, queued, ["retry"])).toEqual(["retry"]);
 
     mail = await startMailCatcher({ smtpPort, webPort });
+    await retryNow(app.database.pool, queued);
     await waitForMail(invitee, { webUrl: mail.webUrl, timeoutMs: 45_000 });
 
     // Once the job has finished, no later retry or second worker can send it again.

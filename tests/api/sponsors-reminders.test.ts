@@ -9,7 +9,7 @@ import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createDeal, createSponsor } from "../factories/sponsors";
 import { createTestDatabase, type TestDatabase } from "../support/database";
-import { mailJobsTo, waitForJobStates } from "../support/jobs";
+import { mailJobsTo, retryNow, waitForJobStates } from "../support/jobs";
 import { mailTo, waitForMail } from "../support/mailbox";
 import { startTestApp, type TestApp } from "../support/test-app";
 
@@ -89,6 +89,7 @@ describe("deliverable reminders", () => {
 
     // The mail server comes up: the queued mail goes out on the next retry, once each.
     mail = await startMailCatcher({ smtpPort, webPort });
+    await retryNow(database.pool, (await mailJobsTo(database.pool, owner.email)).map((job) => job.id));
     const arrived = await waitForCount(owner.email, 2);
     expect(arrived.map((m) => m.subject).sort()).toEqual(["Due soon: Due in two days (Alder Optics)", "Late: Was due yesterday (Alder Optics)"]);
     expect(arrived.find((m) => m.subject.startsWith("Late"))!.text).toContain("is 1 day late");
@@ -110,6 +111,7 @@ describe("deliverable reminders", () => {
     // A worker has tried it against the stopped server: pg-boss records the failure and a retry.
     expect(await waitForJobStates(database.pool, freshMail, ["retry"])).toEqual(["retry"]);
     mail = await startMailCatcher({ smtpPort, webPort });
+    await retryNow(database.pool, freshMail);
     const fresh = await waitForCount(owner.email, 1);
     expect(fresh.map((m) => m.subject)).toEqual(["Due soon: Due in two days (Alder Optics)"]);
     expect(fresh[0]!.text).toContain(`is due in 1 day, on ${formatDay(shiftDate(today, 1))}`);

@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { PASSWORD, expectHome, signUpThroughPage, snap, uniqueEmail } from "./support";
+import { MAIL_POLL_INTERVALS, PASSWORD, expectHome, signUpThroughApi, snap, uniqueEmail } from "./support";
 
 const NEW_PASSWORD = "a-fresh-bench-passphrase";
 
@@ -14,7 +14,7 @@ async function mailWithSubject(address: string, subject: string): Promise<{ text
         found = all.filter((m) => m.subject === subject && m.to.some((t) => t.address === address));
         return found.length;
       },
-      { timeout: 15_000, message: `"${subject}" to ${address}` },
+      { timeout: 15_000, intervals: MAIL_POLL_INTERVALS, message: `"${subject}" to ${address}` },
     )
     .toBeGreaterThan(0);
   return found[found.length - 1]!;
@@ -24,7 +24,9 @@ test("a host who forgot the password gets a link by mail, sets a new one, and th
   test.setTimeout(150_000);
   const email = uniqueEmail("forgetful");
   // The older session: signed in on one browser, and left open.
-  await signUpThroughPage(page, { name: "Ines Okafor", email, channel: "Lathe Lane" });
+  const { channelId } = await signUpThroughApi(page, { name: "Ines Okafor", email, channel: "Lathe Lane" });
+  await page.goto(`/c/${channelId}/slate`);
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 
   const other = await (await browser.newContext()).newPage();
   await other.goto("/sign-in");
@@ -76,7 +78,8 @@ test("a member changes name, time zone and mail on the account page, signs out a
   // Two browsers, two sign-ins and an accessibility pass: longer than one page's journey.
   test.setTimeout(150_000);
   const email = uniqueEmail("settings");
-  await signUpThroughPage(page, { name: "Tomas Rike", email, channel: "Solder Shed" });
+  const { channelId } = await signUpThroughApi(page, { name: "Tomas Rike", email, channel: "Solder Shed" });
+  await page.goto(`/c/${channelId}/home`);
   const other = await (await browser.newContext()).newPage();
   await other.goto("/sign-in");
   await other.getByLabel("E-mail").fill(email);

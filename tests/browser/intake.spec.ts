@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import { expectNoSeriousA11yViolations } from "./axe";
-import { DESK, expectFitsPhone, latestMailTo, PHONE, signUpThroughPage, snap, sql, uniqueEmail } from "./support";
+import { DESK, expectFitsPhone, latestMailTo, MAIL_POLL_INTERVALS, PHONE, signUpThroughApi, snap, sql, uniqueEmail } from "./support";
 
 test.setTimeout(240_000);
 
@@ -15,8 +15,8 @@ const card = (page: Page, wording: string) => page.getByRole("article", { name: 
 
 test("viewers suggest signed out; a member folds two ideas together, weighs one and puts it on the slate; at go-live the viewer who asked gets one mail", async ({ page, browser }) => {
   await page.setViewportSize(DESK);
-  await signUpThroughPage(page, { name: "Maren Tollef", email: uniqueEmail("host"), channel: "Skerry Workshop" });
-  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
+  const { channelId } = await signUpThroughApi(page, { name: "Maren Tollef", email: uniqueEmail("host"), channel: "Skerry Workshop" });
+  await page.goto(`/c/${channelId}/home`);
   await toAsks(page);
   await expect(page.getByText("No open ideas yet")).toBeVisible();
   await page.getByLabel("Take suggestions on the public page").check();
@@ -113,7 +113,7 @@ async function waitForNews(address: string) {
         found = all.find((m) => m.to.some((t) => t.address === address) && !m.subject.startsWith("Confirm"));
         return Boolean(found);
       },
-      { timeout: 30_000, message: `the news mail to ${address}` },
+      { timeout: 30_000, intervals: MAIL_POLL_INTERVALS, message: `the news mail to ${address}` },
     )
     .toBe(true);
   return found!;

@@ -94,6 +94,7 @@ async function visitFromMenu(page: Page, label: string): Promise<void> {
 test("on a phone the sponsors, members and account pages fit, and so does the sponsor's review page", async ({ page, browser }) => {
   const { channelId, episodeId, csrfToken } = await host(page);
   const reviewUrl = await dealWithReviewLink(page, channelId, episodeId, csrfToken);
+  await page.goto(`/c/${channelId}/slate`);
   await visitFromMenu(page, "Sponsors");
   await visitFromMenu(page, "Members");
   await page.getByRole("button", { name: "Menu" }).click();

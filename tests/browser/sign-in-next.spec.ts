@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { PASSWORD, expectHome, signUpThroughPage, snap, uniqueEmail } from "./support";
+import { PASSWORD, expectHome, signUpThroughApi, snap, uniqueEmail } from "./support";
 
 /*
  * Finding: a sign-in link whose `next` named another site ended on the router's error page with a
@@ -7,7 +7,7 @@ import { PASSWORD, expectHome, signUpThroughPage, snap, uniqueEmail } from "./su
  */
 test("a sign-in link that names another site leads to Kerf's own pages", async ({ page, baseURL }) => {
   const email = uniqueEmail("next");
-  await signUpThroughPage(page, { name: "Nell Next", email, channel: "Redirect Works" });
+  await signUpThroughApi(page, { name: "Nell Next", email, channel: "Redirect Works" });
 
   // Signed in already: the sign-in page sends the person on, but never off-site.
   await page.goto(`/sign-in?next=${encodeURIComponent("//evil.example/steal")}`);

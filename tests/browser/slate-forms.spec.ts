@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { snap, signUpThroughPage, uniqueEmail } from "./support";
+import { snap, signUpThroughApi, uniqueEmail } from "./support";
 
 const TITLE = "Ducted fan against open rotor";
 
@@ -13,11 +13,11 @@ function scriptsFetched(page: Page): () => Promise<{ url: string; zod: boolean }
 }
 
 test("the slate and the episode page show without zod; their forms fetch it when used, by keyboard", async ({ page }) => {
-  await signUpThroughPage(page, { name: "Ines Varga", email: uniqueEmail("slate-forms"), channel: "Pond Street Bench" });
+  const { channelId } = await signUpThroughApi(page, { name: "Ines Varga", email: uniqueEmail("slate-forms"), channel: "Pond Street Bench" });
 
   // A first load of the slate: the board and its buttons, no form code.
   const slateScripts = scriptsFetched(page);
-  await page.reload();
+  await page.goto(`/c/${channelId}/slate`);
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
   await expect(page.getByText("No episodes yet")).toBeVisible();
   expect((await slateScripts()).filter((script) => script.zod)).toEqual([]);

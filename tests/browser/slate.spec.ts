@@ -1,20 +1,16 @@
 import { expect, test, type Page } from "@playwright/test";
-import { homeToSlate, snap, uniqueEmail } from "./support";
+import { homeToSlate, PASSWORD, signUpThroughApi, snap, uniqueEmail } from "./support";
 
-const PASSWORD = "a-long-enough-password";
 const TITLE = "Kite-lifted thermal camera";
 
 const column = (page: Page, stage: string) => page.locator(`section[aria-labelledby='lane-${stage}']`);
 const cardIn = (page: Page, stage: string) => column(page, stage).getByRole("link", { name: TITLE });
 
+/** The owner's account and channel through the sign-up route (the page has its own journey, accounts.spec.ts), then the empty slate. */
 async function signUp(page: Page, email: string) {
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill("Tamsin Okafor");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill("Marsh Lane Rigs");
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await homeToSlate(page);
+  const { channelId } = await signUpThroughApi(page, { name: "Tamsin Okafor", email, channel: "Marsh Lane Rigs" });
+  await page.goto(`/c/${channelId}/slate`);
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 }
 
 /** A mouse drag of the card onto another column, in small steps as a hand would. */

@@ -62,6 +62,7 @@ test("the producer's desk lists what the sponsor asked to change and changes an 
   await sponsorContext.close();
 
   // On the desk it is among the things to act on now, with its status as a control on the row.
+  await page.goto(`/c/${channelId}/slate`);
   await page.getByRole("link", { name: "Desk" }).click();
   const asked = page.getByRole("region", { name: /The sponsor asked for changes/ });
   await expect(asked.getByRole("link", { name: "Script draft" })).toBeVisible();

@@ -2,9 +2,9 @@ import path from "node:path";
 import { expect, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
 import { DEMO_CHANNEL, DEMO_PASSWORD, demoAccounts, seedDemo } from "../../dev-services/demo/channel";
-import { hashPassword } from "../../server/auth/password";
 import { connectDatabase } from "../../server/db/client";
 import type { Role } from "../../shared/access/roles";
+import { factoryPasswordHash } from "../factories/accounts";
 import type { EpisodeRecord } from "../../shared/slate/schemas";
 import type { Stage } from "../../shared/slate/stages";
 
@@ -59,6 +59,9 @@ interface CaughtMail {
   to: { address: string }[];
 }
 
+/** How often a test asks the mail stand-in: its workers send within about half a second, so every quarter to half a second, not Playwright's default second. */
+export const MAIL_POLL_INTERVALS = [100, 250, 250, 500];
+
 /** Waits until the mail stand-in holds a message to `address`, and answers the newest one. */
 export async function latestMailTo(address: string, timeoutMs = 15_000): Promise<{ text: string; subject: string }> {
   let mine: CaughtMail[] = [];
@@ -69,7 +72,7 @@ export async function latestMailTo(address: string, timeoutMs = 15_000): Promise
         mine = all.filter((m) => m.to.some((t) => t.address === address));
         return mine.length;
       },
-      { timeout: timeoutMs, message: `mail to ${address}` },
+      { timeout: timeoutMs, intervals: MAIL_POLL_INTERVALS, message: `mail to ${address}` },
     )
     .toBeGreaterThan(0);
   return mine[mine.length - 1]!;
@@ -119,15 +122,29 @@ export async function demoChannelId(): Promise<string> {
   }
 }
 
+/**
+ * Signs in through the sign-in route, as the sign-in page sends it, for journeys that do not test that
+ * page (accounts.spec.ts and sign-in-next.spec.ts do): the session cookie lands in the page's context.
+ * Answers the person's channels; the page itself is left where it was.
+ */
+function signInThroughApi(page: Page, email: string, password: string): Promise<Me> {
+  return visitorPost(page, "/api/auth/sign-in", { email, password }, 200);
+}
+
+type Me = { csrfToken: string; memberships: { channelId: string }[] };
+
+/** A signed-out visitor's write as a page sends it, with the CSRF token of /api/auth/me; a refusal fails the test. */
+async function visitorPost(page: Page, url: string, data: object, status: number): Promise<Me> {
+  const visitor = (await (await page.request.get("/api/auth/me")).json()) as Me;
+  const answer = await page.request.post(url, { headers: { "x-csrf-token": visitor.csrfToken }, data });
+  expect(answer.status(), `${url}: ${await answer.text()}`).toBe(status);
+  return answer.json();
+}
+
 /** Signs in as the demo channel's member in this role and opens that channel's home. */
 export async function signInToDemo(page: Page, role: Role, channelId: string): Promise<void> {
   const account = demoAccounts.find((a) => a.role === role)!;
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(account.email);
-  await page.getByLabel("Password").fill(DEMO_PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await expectHome(page);
-  await expect(page).toHaveURL(/\/c\/[0-9a-f-]{36}\/home$/);
+  await signInThroughApi(page, account.email, DEMO_PASSWORD);
   // The demo owner belongs to a second channel too; the demo channel's home is the one under test.
   await page.goto(`/c/${channelId}/home`);
   await expectHome(page);
@@ -142,33 +159,32 @@ export async function homeToSlate(page: Page): Promise<void> {
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 }
 
-/** A new account and channel through the sign-up page, ending on the empty slate; the address is confirmed (its own journey is in accounts.spec.ts). */
-export async function signUpThroughPage(page: Page, person: { name: string; email: string; channel: string }): Promise<void> {
-  await page.goto("/sign-up");
-  await page.getByLabel("Your name").fill(person.name);
-  await page.getByLabel("E-mail").fill(person.email);
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByLabel("Channel name").fill(person.channel);
-  await page.getByRole("button", { name: "Create account and channel" }).click();
-  await homeToSlate(page);
+/**
+ * A new account and channel through the sign-up route, as the sign-up page sends it (this browser's
+ * zone included), for journeys that do not test that page (accounts.spec.ts does). The
+ * session cookie lands in the page's context as it would from the page; the address is confirmed.
+ * Answers the new channel and the session's CSRF token; the page itself is left where it was.
+ */
+export async function signUpThroughApi(page: Page, person: { name: string; email: string; channel: string }): Promise<{ channelId: string; csrfToken: string }> {
+  const timeZone = await page.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone);
+  const me = await visitorPost(page, "/api/auth/sign-up", { name: person.name, email: person.email, password: PASSWORD, channelName: person.channel, timeZone }, 201);
   await sql("update users set email_verified_at = now() where email = $1", [person.email]);
+  return { channelId: me.memberships[0]!.channelId, csrfToken: me.csrfToken };
 }
 
 /** A member in a role of their own with a confirmed address, made straight in the test database (the invitation journey has its own test). */
 export async function member(channelId: string, name: string, role: "producer" | "editor" | "crew") {
   const email = uniqueEmail(role);
-  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await hashPassword(PASSWORD)]);
+  const [user] = await sql<{ id: string }>("insert into users (email, name, password_hash, email_verified_at) values ($1, $2, $3, now()) returning id", [email, name, await factoryPasswordHash(PASSWORD)]);
   await sql("insert into memberships (channel_id, user_id, role) values ($1, $2, $3)", [channelId, user!.id, role]);
   return { email, name };
 }
 
-/** Signs in through the sign-in page, on a page whose context holds nobody's session yet. */
+/** Signs in (through the route) on a page whose context holds nobody's session yet, and opens the slate of the person's channel. */
 export async function signInOn(page: Page, email: string): Promise<Page> {
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(PASSWORD);
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await homeToSlate(page);
+  const { memberships } = await signInThroughApi(page, email, PASSWORD);
+  await page.goto(`/c/${memberships[0]!.channelId}/slate`);
+  await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
   return page;
 }
 
@@ -183,14 +199,12 @@ export interface HostAndEpisode {
 }
 
 /**
- * A new host with a channel (through the sign-up page) and one episode, made and moved to the asked
+ * A new host with a channel (through the sign-up route) and one episode, made and moved to the asked
  * stage through the slate's API. A refusal fails the test: a journey must not start on a setup the
- * product would not have made.
+ * product would not have made. The page opens nothing: the journey goes to its own first address.
  */
 export async function hostWithEpisode(page: Page, { host, episode }: HostAndEpisode) {
-  await signUpThroughPage(page, { ...host, email: uniqueEmail("host") });
-  const channelId = /\/c\/([0-9a-f-]{36})\//.exec(page.url())![1]!;
-  const csrfToken = (await (await page.request.get("/api/auth/me")).json()).csrfToken as string;
+  const { channelId, csrfToken } = await signUpThroughApi(page, { ...host, email: uniqueEmail("host") });
   const headers = { "x-csrf-token": csrfToken };
   const created = await page.request.post(`/api/channels/${channelId}/episodes`, {
     headers,

@@ -78,6 +78,15 @@ export async function waitForJobStates(pool: pg.Pool, ids: string[], states: Job
   return jobStates(pool, ids);
 }
 
+/**
+ * Makes the retries these jobs are waiting for due now, as pg-boss's own clock would once their backoff
+ * (mail: 10 s, then 20 s, …) has passed: a test that brought a service back waits on the retry's
+ * outcome, not on its timer. A job not waiting for a retry is left as it is.
+ */
+export async function retryNow(pool: pg.Pool, ids: string[]): Promise<void> {
+  await pool.query("update pgboss.job set start_after = now() where id = any($1::uuid[]) and state = 'retry'", [ids]);
+}
+
 /** Waits until every job of the queue has finished: after this, no job of it can still send or write anything. */
 export async function waitForQueueToSettle(pool: pg.Pool, queue: string = MAIL_QUEUE, timeoutMs = 30_000): Promise<JobRecord[]> {
   const jobs = () => jobsWhere(pool, "name = $1", [queue]);
