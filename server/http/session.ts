@@ -11,11 +11,6 @@ const PgStore = connectPgSimple(session);
 const TOUCH_EVERY_MS = 10 * 60 * 1000;
 const TOUCHES_REMEMBERED = 20_000;
 
-/**
- * The store moves a session's expiry forward on every request (rolling sessions), which is a write
- * for every read. This one writes it at most once per ten minutes per session on each instance:
- * a session may end up to ten minutes early after fourteen idle days, and most requests write nothing.
- */
 /** A stored session read with its person and their roles by channel (`findLiveSession`). */
 export interface SessionRead {
   sess: unknown;
@@ -37,6 +32,11 @@ export function rolesReadWithSession(req: Request): Record<string, Role> | undef
   return read?.user && read.user.id === req.user?.id ? read.roles : undefined;
 }
 
+/**
+ * The store moves a session's expiry forward on every request (rolling sessions), which is a write
+ * for every read. This one writes it at most once per ten minutes per session on each instance:
+ * a session may end up to ten minutes early after fourteen idle days, and most requests write nothing.
+ */
 class SessionStore extends PgStore {
   readonly #touchedAt = new Map<string, number>();
   readonly #read: ReadSession;
@@ -46,7 +46,11 @@ class SessionStore extends PgStore {
     this.#read = read;
   }
 
-  /** The session, its person and their roles in one query; passport and the channel guards use what it read. */
+  /**
+   * The session, its person and their roles in one query; passport and the channel guards use what it
+   * read. (connect-pg-simple's own read also started its pruning timer; its touch, at every instance's
+   * first request of a session, still does.)
+   */
   override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): void {
     this.#read(sid).then((read) => {
       if (!read) return callback(null, null);
