@@ -20,16 +20,18 @@ export function statementName(text: string): string {
  */
 export function prepareStatementsOn(client: pg.ClientBase, limit = PREPARED_PER_CONNECTION): void {
   const send = client.query.bind(client) as (...args: unknown[]) => unknown;
-  const prepared = new Set<string>();
+  // By text, so a statement already prepared is named without hashing its text again.
+  const prepared = new Map<string, string>();
   const named = (config: unknown, values: unknown): unknown => {
     const shape = typeof config === "string" ? { text: config } : (config as { text?: unknown; name?: unknown; values?: unknown; submit?: unknown } | null);
     if (!shape || typeof shape.text !== "string" || shape.name !== undefined || typeof shape.submit === "function") return config;
     const params = Array.isArray(values) ? values : shape.values;
     if (!Array.isArray(params) || params.length === 0) return config;
-    const name = statementName(shape.text);
-    if (!prepared.has(name)) {
+    let name = prepared.get(shape.text);
+    if (name === undefined) {
       if (prepared.size >= limit) return config;
-      prepared.add(name);
+      name = statementName(shape.text);
+      prepared.set(shape.text, name);
     }
     return { ...shape, name };
   };
