@@ -18,12 +18,17 @@ async function dayCell(page: Page, day: string) {
   return cell;
 }
 
-/** A drag with the pointer, in small steps, as dnd-kit's pointer sensor needs to see it move. */
-async function dragTo(page: Page, from: { x: number; y: number; width: number; height: number }, to: { x: number; y: number; width: number; height: number }) {
+/**
+ * A drag with the pointer, in small steps, as dnd-kit's pointer sensor needs to see it move. The button
+ * is let go once the calendar has announced the entry over the target day: dnd-kit works out what is under the
+ * pointer in a render that can come after the last move on a busy machine.
+ */
+async function dragTo(page: Page, from: { x: number; y: number; width: number; height: number }, to: { x: number; y: number; width: number; height: number }, day: string) {
   await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
   await page.mouse.down();
   await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 3 });
   await page.mouse.move(to.x + to.width / 2, to.y + 12, { steps: 12 });
+  await expect(page.getByText(new RegExp(` is over ${formatDay(day)}\\.$`))).toBeAttached();
   await page.mouse.up();
 }
 
@@ -49,7 +54,7 @@ test("the calendar's month shows a publish day, a move shows what goes with it b
   // Dragged a day earlier: the panel lists what moves with it, and nothing is saved yet.
   const target = addDays(publish, -1);
   const to = await dayCell(page, target);
-  await dragTo(page, (await chip.getByRole("button", { name: /^Drag to move/ }).boundingBox())!, (await to.boundingBox())!);
+  await dragTo(page, (await chip.getByRole("button", { name: /^Drag to move/ }).boundingBox())!, (await to.boundingBox())!, target);
   const panel = page.getByRole("dialog", { name: "Move the publish day of “Bandsaw fence drift”" });
   const moves = panel.getByRole("list", { name: "What moves with it" });
   await expect(moves.getByRole("listitem").filter({ hasText: "Sponsor approves the script" })).toContainText(`${formatDay(addDays(publish, -14))} → ${formatDay(addDays(publish, -15))}`);

@@ -13,7 +13,13 @@ async function signUp(page: Page, email: string) {
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 }
 
-/** A mouse drag of the card onto another column, in small steps as a hand would. */
+const stageLabels: Record<string, string> = { challenge: "Challenge", test_plan: "Test plan" };
+
+/**
+ * A mouse drag of the card onto another column, in small steps as a hand would. The button is let go
+ * once the board has announced the card over the target column: the board works out what is under the
+ * pointer in its own render, which can come after the last move when the machine is busy.
+ */
 async function dragByMouse(page: Page, from: string, to: string) {
   const card = await column(page, from).locator("li", { has: page.getByRole("link", { name: TITLE }) }).boundingBox();
   const target = await column(page, to).boundingBox();
@@ -22,6 +28,7 @@ async function dragByMouse(page: Page, from: string, to: string) {
   await page.mouse.down();
   await page.mouse.move(card.x + card.width / 2 + 8, card.y + card.height / 2 + 8, { steps: 4 });
   await page.mouse.move(target.x + target.width / 2, target.y + 120, { steps: 20 });
+  await expect(page.getByText(new RegExp(`${TITLE} is (in|at the end of) ${stageLabels[to]}`))).toBeAttached();
   await page.mouse.up();
 }
 

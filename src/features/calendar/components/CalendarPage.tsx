@@ -1,4 +1,4 @@
-import { DndContext, PointerSensor, useSensor, useSensors, type DragEndEvent } from "@dnd-kit/core";
+import { DndContext, PointerSensor, useSensor, useSensors, type Active, type Announcements, type DragEndEvent, type Over } from "@dnd-kit/core";
 import { useMemo, useState } from "react";
 import type { CalendarEntry } from "@shared/calendar/entries";
 import { addDays, addMonths, monthGrid, monthTitle, weekDays } from "@shared/calendar/days";
@@ -42,6 +42,18 @@ function groupByDay(entries: CalendarEntry[]) {
   return byDay;
 }
 
+const entryOf = (active: Active) => active.data.current?.entry as CalendarEntry | undefined;
+const dayOf = (over: Over | null) => over?.data.current?.day as string | undefined;
+const nameOf = (active: Active) => entryOf(active)?.title ?? "The entry";
+
+/** What a screen reader hears while a publish day is dragged: days in words, never the board's own ids. */
+const announcements: Announcements = {
+  onDragStart: ({ active }) => `Picked up ${nameOf(active)}, on ${formatDay(entryOf(active)?.day)}.`,
+  onDragOver: ({ active, over }) => `${nameOf(active)} is over ${dayOf(over) ? formatDay(dayOf(over)) : "no day"}.`,
+  onDragEnd: ({ active, over }) => (dayOf(over) ? `${nameOf(active)} let go on ${formatDay(dayOf(over))}.` : `${nameOf(active)} put back.`),
+  onDragCancel: ({ active }) => `Move cancelled. ${nameOf(active)} stays on ${formatDay(entryOf(active)?.day)}.`,
+};
+
 /** The channel's calendar: publish days, release times, shoot days, sponsor items, stage due dates and figures days. */
 export function CalendarPage() {
   const channel = useChannel();
@@ -55,8 +67,8 @@ export function CalendarPage() {
   const calendar = useCalendar(channel.channelId, days[0]!, days.at(-1)!);
   const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 6 } }));
   const onDragEnd = ({ active, over }: DragEndEvent) => {
-    const entry = active.data.current?.entry as CalendarEntry | undefined;
-    const day = over?.data.current?.day as string | undefined;
+    const entry = entryOf(active);
+    const day = dayOf(over);
     if (entry && day && day !== entry.day) setMoving({ entry, droppedOn: day });
   };
   return (
@@ -95,7 +107,7 @@ export function CalendarPage() {
               <p className="text-sm text-graphite-500" role="status">
                 {shown.length} on these days{Object.keys(data.conflicts).length > 0 && `, ${Object.keys(data.conflicts).length} with a clash (marked “!”)`}.
               </p>
-              <DndContext sensors={sensors} onDragEnd={onDragEnd}>
+              <DndContext sensors={sensors} onDragEnd={onDragEnd} accessibility={{ announcements }}>
                 {view === "month" && <MonthGrid {...props} />}
                 {view === "week" && <WeekColumns {...props} />}
                 {view === "list" && <DayList {...props} />}

@@ -223,7 +223,8 @@ export function Board({ channelId, board, canMove }: { channelId: string; board:
             <Column key={stage} stage={stage} number={index + 1} current={stage === shown} ids={columns[stage]} byId={byId} channelId={channelId} flags={board.flags} canMove={canMove} />
           ))}
         </div>
-        <DragOverlay>{active ? <CardFace channelId={channelId} card={active} extraFlags={board.flags[active.id]} withHandle={false} lifted /> : null}</DragOverlay>
+        {/* The lifted card glides to its spot for a moment after a drop; a press there reaches the card beneath. */}
+        <DragOverlay className="pointer-events-none">{active ? <CardFace channelId={channelId} card={active} extraFlags={board.flags[active.id]} withHandle={false} lifted /> : null}</DragOverlay>
       </DndContext>
       {gate && (
         <GateDialog

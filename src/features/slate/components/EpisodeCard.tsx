@@ -25,7 +25,8 @@ export const SortableEpisodeCard = memo(function SortableEpisodeCard({ channelId
       style={style}
       data-card-id={card.id}
       onPointerDown={movable ? (listeners?.onPointerDown as PointerEventHandler) : undefined}
-      className={`relative ${isDragging ? "opacity-40" : ""}`}
+      // No text selection starts under a pointer that goes on to drag: pressing on selected text starts the browser's own drag instead of a move.
+      className={`relative ${movable ? "select-none" : ""} ${isDragging ? "opacity-40" : ""}`}
     >
       <CardFace channelId={channelId} card={card} extraFlags={extraFlags} withHandle={movable} />
       {movable && (
