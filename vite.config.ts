@@ -5,13 +5,13 @@ import tailwindcss from "@tailwindcss/vite";
 import { compression } from "vite-plugin-compression2";
 
 /**
- * The body text's and the headings' faces (Work Sans 400 and 600, latin) are asked for with the page,
- * not once the stylesheet has been read and the first text laid out; the other weights come when used.
+ * The type's latin file (Work Sans, variable: every weight in one) is asked for with the page, not once
+ * the stylesheet has been read and the first text laid out.
  */
-function preloadFonts(weights: number[]): Plugin {
-  const wanted = new RegExp(`work-sans-latin-(${weights.join("|")})-normal-[\\w-]+\\.woff2$`);
+function preloadFont(): Plugin {
+  const wanted = /work-sans-latin-wght-normal-[\w-]+\.woff2$/;
   return {
-    name: "kerf-preload-fonts",
+    name: "kerf-preload-font",
     transformIndexHtml: {
       order: "post",
       handler: (_html, context) =>
@@ -34,7 +34,7 @@ const reactRouterProduction = [
 
 export default defineConfig(({ command }) => ({
   // Every text file is also written brotli- and gzip-compressed; the server sends the smallest the browser takes.
-  plugins: [react(), tailwindcss(), preloadFonts([400, 600]), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
+  plugins: [react(), tailwindcss(), preloadFont(), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
   resolve: {
     alias: [{ find: "@shared", replacement: path.resolve(import.meta.dirname, "shared") }, ...(command === "build" ? reactRouterProduction : [])],
   },

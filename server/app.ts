@@ -45,6 +45,7 @@ import type { AppDeps } from "./seams/app-deps";
 import type { ChannelStarter } from "./seams/channel-starters";
 import type { NeedSource } from "./seams/home-needs";
 import type { SlatePlugs } from "./seams/slate-plugs";
+import { episodeOpeningPart } from "./slate/episode-page";
 import { slateCalendar, slatePublishDateMover } from "./slate/slate.calendar";
 import { slateNeeds } from "./slate/slate.needs";
 import { makeViewerEpisode } from "./slate/episodes.service";
@@ -191,7 +192,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   mountRoutes(api, routes.filter((route) => !route.sessionOptional && !route.signedByCaller), guards);
   api.use("/api", apiNotFound);
   app.use(api);
-  serveClient(app, path.resolve(env.CLIENT_DIST));
+  serveClient(app, path.resolve(env.CLIENT_DIST), { session: [sessionWhenReachable], part: episodeOpeningPart(database.db) });
   app.use(errorMiddleware);
   return app;
 }

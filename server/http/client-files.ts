@@ -1,11 +1,19 @@
 import path from "node:path";
 import { existsSync, readFileSync } from "node:fs";
 import type { ServerResponse } from "node:http";
-import type { Express, Request, Response } from "express";
+import type { Express, Request, RequestHandler, Response } from "express";
 import { brotliCompressSync, constants, gzipSync } from "node:zlib";
 import expressStaticGzip from "express-static-gzip";
 import { pageDataLink } from "./page-data";
-import { type Manifest, PAGE_MODULES, withPagePreloads } from "./page-preloads";
+import { EPISODE, type Manifest, PAGE_MODULES, withPagePreloads } from "./page-preloads";
+
+/** How an episode's address without a part finds the part it opens on, to send that part's page. */
+export interface OpeningPart {
+  /** Reads the visitor's session, when it can be read, before `part`. */
+  session: RequestHandler[];
+  /** The part the episode opens on for this visitor, or null when the page should not say. */
+  part: (req: Request) => Promise<string | null>;
+}
 
 /** Vite names every file under assets/ by its content's hash, so a changed file is a new address. */
 const HASHED = `${path.sep}assets${path.sep}`;
@@ -22,7 +30,7 @@ function cacheFor(res: ServerResponse, file: string): void {
  * index.html, never kept stale, so client routes survive a reload and a new release is seen at once.
  * A page's index.html also asks for that page's code (page-preloads.ts), read from the build's manifest.
  */
-export function serveClient(app: Express, dist: string): void {
+export function serveClient(app: Express, dist: string, openingPart?: OpeningPart): void {
   const indexFile = path.join(dist, "index.html");
   if (!existsSync(indexFile)) return;
   app.use(
@@ -48,12 +56,28 @@ export function serveClient(app: Express, dist: string): void {
       res.type("html").send(encoding === "br" ? encoded.br : encoding === "gzip" ? encoded.gzip : encoded.plain);
     };
   };
-  for (const [address, modules] of Object.entries(PAGE_MODULES)) app.get(address, sendPage(manifest ? withPagePreloads(html, manifest, modules) : html, address));
+  const pages = new Map(Object.entries(PAGE_MODULES).map(([address, modules]) => [address, sendPage(manifest ? withPagePreloads(html, manifest, modules) : html, address)]));
+  if (openingPart) app.get(EPISODE, ...openingPart.session, withOpeningPart(openingPart, pages));
+  for (const [address, page] of pages) app.get(address, page);
   const anyPage = sendPage(html);
   app.get("/{*splat}", (req, res, next) => {
     if (req.path.startsWith("/api")) return next();
     anyPage(req, res);
   });
+}
+
+/**
+ * An episode's address without a part (the board's links) gets the page of the part its stage opens
+ * on, with that part's code and answers asked for in its head, instead of finding the part only once
+ * the episode has come. Anyone it can't say for goes on to the plain page.
+ */
+function withOpeningPart(openingPart: OpeningPart, pages: Map<string, (req: Request, res: Response) => void>): RequestHandler {
+  return async (req, res, next) => {
+    const part = await openingPart.part(req).catch(() => null);
+    const page = part ? pages.get(`${EPISODE}/${part}`) : undefined;
+    if (page) page(req, res);
+    else next();
+  };
 }
 
 /** A page's three bodies, made once when the server starts (brotli 5: a few milliseconds a page, within a tenth of 11's size). */

@@ -56,6 +56,16 @@ export async function findEpisode(db: Queryable, channelId: string, episodeId: s
 }
 export type EpisodeRow = NonNullable<Awaited<ReturnType<typeof findEpisode>>>;
 
+/** An episode's stage, scoped by channel like every read here; null when the channel has no such episode. */
+export async function stageOf(db: Queryable, channelId: string, episodeId: string): Promise<Stage | null> {
+  const rows = await db
+    .select({ stage: episodes.stage })
+    .from(episodes)
+    .where(and(eq(episodes.id, episodeId), eq(episodes.channelId, channelId)))
+    .limit(1);
+  return rows[0]?.stage ?? null;
+}
+
 /** The due dates set by hand: of the whole channel, or of these episodes. */
 export async function overridesOf(db: Queryable, channelId: string, episodeIds?: string[]) {
   return db

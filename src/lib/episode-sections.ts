@@ -1,6 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import type { ComponentType } from "react";
 import type { Area, Role } from "@shared/access/roles";
+import { partForStage } from "@shared/slate/episode-parts";
 import type { Stage } from "@shared/slate/stages";
 
 /** What every section of the episode page receives. */
@@ -22,22 +23,6 @@ export interface EpisodeSection {
   /** Starts fetching the part's first answers, so they come alongside its code rather than after it. */
   prefetch?: (client: QueryClient, ids: { channelId: string; episodeId: string }) => void;
 }
-
-/**
- * The part of the episode page each stage's work happens in, so the page opens where the team is:
- * the question while it is a challenge, the sheet while the test is planned, the runs at the bench,
- * the days and shots on set, the footage in the edit, the deals for the sponsor read, and the
- * publish package once it is being published.
- */
-const partForStage: Record<Stage, string> = {
-  challenge: "overview",
-  test_plan: "test-plan",
-  build: "bench",
-  shoot: "shoot",
-  edit: "footage",
-  sponsor_read: "sponsor-deals",
-  publish: "publish-package",
-};
 
 /** The part to open: the one the address names if the page has it, else the stage's own, else the first. */
 export function openPart(stage: Stage, named: string | undefined, parts: readonly string[]): string {

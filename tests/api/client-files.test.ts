@@ -1,35 +1,9 @@
-import { mkdtempSync, mkdirSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
-import { brotliCompressSync, gzipSync } from "node:zlib";
 import express from "express";
 import request from "supertest";
 import { describe, expect, it } from "vitest";
 import { IMMUTABLE, REVALIDATE, serveClient } from "../../server/http/client-files";
 import { SESSION_COOKIE } from "../../server/http/session";
-
-// A built client as the build writes it: hashed assets beside their .br and .gz copies.
-function builtClient(): string {
-  const dist = mkdtempSync(path.join(tmpdir(), "kerf-client-"));
-  mkdirSync(path.join(dist, "assets"));
-  writeFileSync(path.join(dist, "index.html"), '<!doctype html><html><head><title>Kerf</title><link rel="stylesheet" crossorigin href="/assets/index-css123.css"></head><body></body></html>');
-  writeFileSync(path.join(dist, "assets", "index-css123.css"), ".kerf-opening{color:#fbf9f5}");
-  const script = "console.log('kerf');\n".repeat(200);
-  writeFileSync(path.join(dist, "assets", "index-abc123.js"), script);
-  writeFileSync(path.join(dist, "assets", "index-abc123.js.br"), brotliCompressSync(script));
-  writeFileSync(path.join(dist, "assets", "index-abc123.js.gz"), gzipSync(script));
-  writeFileSync(path.join(dist, "favicon.svg"), "<svg xmlns='http://www.w3.org/2000/svg'/>");
-  mkdirSync(path.join(dist, ".vite"));
-  const manifest = {
-    "index.html": { file: "assets/index-abc123.js", isEntry: true },
-    "src/app/layouts/AppShell.tsx": { file: "assets/AppShell-def456.js", imports: ["index.html"] },
-    "src/features/slate/components/SlatePage.tsx": { file: "assets/SlatePage-789abc.js", imports: ["index.html"] },
-    "src/app/episode-page.tsx": { file: "assets/episode-page-1a2b3c.js", imports: ["index.html"] },
-    "src/features/bench/components/TestPlanSheet.tsx": { file: "assets/TestPlanSheet-4d5e6f.js", imports: ["index.html"] },
-  };
-  writeFileSync(path.join(dist, ".vite", "manifest.json"), JSON.stringify(manifest));
-  return dist;
-}
+import { builtClient } from "../support/built-client";
 
 const app = express();
 serveClient(app, builtClient());
@@ -77,6 +51,20 @@ describe("the built client's files", () => {
     const bare = await request(app).get("/c/x/episodes/y");
     expect(bare.text).toContain('href="/assets/episode-page-1a2b3c.js"');
     expect(bare.text).not.toContain("TestPlanSheet");
+  });
+
+  it("sends an episode's address without a part the page of the part it opens on, and the plain page when that can't be said", async () => {
+    const opening = express();
+    const parts: Record<string, () => Promise<string | null>> = { y: async () => "test-plan", z: async () => null, w: () => Promise.reject(new Error("database down")) };
+    serveClient(opening, builtClient(), { session: [], part: (req) => parts[String(req.params.episodeId)]!() });
+    const stagePart = await request(opening).get("/c/x/episodes/y").expect(200);
+    expect(stagePart.text).toContain('href="/assets/episode-page-1a2b3c.js"');
+    expect(stagePart.text).toContain('href="/assets/TestPlanSheet-4d5e6f.js"');
+    for (const episode of ["z", "w"]) {
+      const plain = await request(opening).get(`/c/x/episodes/${episode}`).expect(200);
+      expect(plain.text).toContain('href="/assets/episode-page-1a2b3c.js"');
+      expect(plain.text).not.toContain("TestPlanSheet");
+    }
   });
 
   it("writes the app's stylesheet into index.html, with a link that is never fetched, and sends the page compressed", async () => {

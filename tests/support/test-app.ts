@@ -49,6 +49,8 @@ export interface TestAppOptions {
   holdMail?: boolean;
   /** A payments account of the test's own (createPaymentsAccount); else the stand-in's default account. */
   payments?: { apiUrl: string; secretKey: string; webhookSecret: string };
+  /** A built client to serve (a test's own folder); else none unless one was built into dist/client. */
+  clientDist?: string;
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
@@ -67,6 +69,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     PAYMENTS_API_URL: (options.payments ?? testEnv.payments).apiUrl,
     PAYMENTS_SECRET_KEY: (options.payments ?? testEnv.payments).secretKey,
     PAYMENTS_WEBHOOK_SECRET: (options.payments ?? testEnv.payments).webhookSecret,
+    ...(options.clientDist ? { CLIENT_DIST: options.clientDist } : {}),
   });
   const mailer = createMailer(env);
   const jobs = await startJobs({ databaseUrl: database.url, mailer, pollSeconds: 0.5 });
