@@ -12,13 +12,16 @@ function fromFramework(error: unknown): AppError | null {
   return null;
 }
 
+const MAX_CAUSES = 5;
+
 /** The driver's error, or drizzle's wrapping of it (its `cause`). */
-function isDatabaseDown(error: unknown): boolean {
+function isDatabaseDown(error: unknown, depth = 0): boolean {
   const code = (error as { code?: string })?.code ?? "";
   const message = (error as Error)?.message ?? "";
   const down = ["ECONNREFUSED", "57P01", "57P03", "08006", "08001", "ECONNRESET"].includes(code) || /Connection terminated|timeout exceeded when trying to connect|Cannot use a pool after calling end/i.test(message);
+  // One or two causes deep in practice; a chain that loops back on itself is not followed for ever.
   const cause = (error as { cause?: unknown })?.cause;
-  return down || (cause !== undefined && cause !== error && isDatabaseDown(cause));
+  return down || (cause !== undefined && depth < MAX_CAUSES && isDatabaseDown(cause, depth + 1));
 }
 
 export const errorMiddleware: ErrorRequestHandler = (error, _req, res, _next) => {
