@@ -108,17 +108,21 @@ export async function sendReport(ctx: ReportContext, caller: Caller, dealId: str
   return { file: await fileView(ctx, await repo.findReport(ctx.db, caller.channelId, dealId)), url: reportUrl(ctx.appUrl, ctx.tokens.link.sign(row.id, expiresAt)) };
 }
 
-const invalidLink = () => new AppError("not_found", "This report link is not valid or has expired. Ask the channel for a new one.");
+const invalidLink = () => new AppError("not_found", "This report link is not valid. Check that the whole address was copied, or ask the channel for a new one.");
+/** A link Kerf made that no longer opens: 410, and why, in the sponsor's words. */
+const goneLink = (why: string) => new AppError("gone", `${why} Ask the channel for a new link.`);
 
 /** The sponsor's page, opened with the mailed link (or by the PDF job with its own short-lived one). */
 export async function reportForLink(ctx: ReportContext, token: string, now = new Date()) {
   const mailed = ctx.tokens.link.verify(token);
   const printing = mailed ? null : ctx.tokens.print.verify(token);
   const signed = mailed ?? printing;
-  if (!signed || signed.expiresAt.getTime() <= now.getTime()) throw invalidLink();
+  if (!signed) throw invalidLink();
+  if (signed.expiresAt.getTime() <= now.getTime()) throw goneLink("This report link has expired.");
   const row = await repo.findReportById(ctx.db, signed.linkId);
+  if (!row) throw goneLink("This report is no longer shared.");
   // A mailed link works while it is the one last sent: sending again retires the one before.
-  if (!row || (mailed && row.linkExpiresAt?.getTime() !== mailed.expiresAt.getTime())) throw invalidLink();
+  if (mailed && row.linkExpiresAt?.getTime() !== mailed.expiresAt.getTime()) throw goneLink("A newer link to this report was sent; this one no longer opens it.");
   const report = await buildReport(ctx, ctx.db, outsideReader(row.channelId), row.dealId);
   const file = mailed ? await fileView(ctx, row) : null;
   return { report, pdfUrl: file?.pdfUrl ?? null, expiresAt: signed.expiresAt.toISOString() };

@@ -67,8 +67,13 @@ export interface Missing {
   text: string;
 }
 
+/** A link that was never good keeps the page's own words; one that was and no longer opens (410) says why, in the server's. */
+function explainMissing(missing: Missing, error: ApiError) {
+  return { title: missing.title, text: error.status === 410 ? error.message : missing.text, retry: false, back: true };
+}
+
 export function LoadError({ error, retry, back, missing }: { error: unknown; retry?: () => void; back?: Back; missing?: Missing }) {
-  const explained = missing && error instanceof ApiError && error.status === 404 ? { ...missing, retry: false, back: true } : explain(error);
+  const explained = missing && error instanceof ApiError && (error.status === 404 || error.status === 410) ? explainMissing(missing, error) : explain(error);
   const signedOut = error instanceof ApiError && error.status === 401;
   const here = useLocation();
   return (

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createContact, createDeal, createSponsor } from "../factories/sponsors";
+import { reportTokens } from "../../server/sponsors/review-token";
 import { startTestApp, type TestApp } from "../support/test-app";
 
 let app: TestApp;
@@ -49,9 +50,13 @@ describe("the sponsor's report", () => {
     const page = (await visitor.get(`/api/sponsor-report/${token}`).expect(200)).body;
     expect(page.report.money).toBeUndefined();
     expect(page.report.figures[0].values.views).toBe(40001);
-    await visitor.get(`/api/sponsor-report/${token.slice(0, -2)}xx`).expect(404);
+    // A link Kerf never signed is not found; one it signed that no longer opens is gone, and says why.
+    expect((await visitor.get(`/api/sponsor-report/${token.slice(0, -2)}xx`).expect(404)).body.error.message).toMatch(/not valid/);
+    const reportId = (await app.database.pool.query("select id from sponsor_reports where deal_id = $1", [deal.id])).rows[0].id;
+    const lapsed = reportTokens(app.deps.env.SESSION_SECRET).link.sign(reportId, new Date(Date.now() - 60_000));
+    expect((await visitor.get(`/api/sponsor-report/${lapsed}`).expect(410)).body.error.message).toMatch(/has expired\. Ask the channel for a new link/);
     // Sending again retires the link before.
     await producer.send("post", `${report}/send`, { expiresInDays: 8 }).expect(200);
-    await visitor.get(`/api/sponsor-report/${token}`).expect(404);
+    expect((await visitor.get(`/api/sponsor-report/${token}`).expect(410)).body.error.message).toMatch(/A newer link to this report was sent/);
   });
 });

@@ -106,11 +106,16 @@ test("after go-live the producer enters the figures, makes the sponsor's report 
   // A forged token, and a genuine one whose time is up, open no report: the page says so in plain words.
   const token = link.split("/sponsor-report/")[1]!;
   const expired = reportTokens(process.env.KERF_E2E_SESSION_SECRET!).link.sign(made!.id, new Date(Date.now() - 60_000));
-  for (const wrong of [`${token.slice(0, -2)}xx`, expired]) {
+  const wrongs = [
+    { token: `${token.slice(0, -2)}xx`, status: 404, why: "Check that the whole address was copied" },
+    { token: expired, status: 410, why: "This report link has expired." },
+  ];
+  for (const wrong of wrongs) {
     const answer = sponsor.waitForResponse((r) => r.url().includes("/api/sponsor-report/"));
-    await sponsor.goto(`/sponsor-report/${wrong}`);
-    expect((await answer).status()).toBe(404);
-    await expect(sponsor.getByText("This report link isn't valid")).toBeVisible();
+    await sponsor.goto(`/sponsor-report/${wrong.token}`);
+    expect((await answer).status()).toBe(wrong.status);
+    await expect(sponsor.getByText("This report link doesn't open")).toBeVisible();
+    await expect(sponsor.getByText(wrong.why)).toBeVisible();
     await expect(sponsor.getByText("Ohmwright Cells")).toHaveCount(0);
   }
 });

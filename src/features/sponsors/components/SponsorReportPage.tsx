@@ -5,7 +5,7 @@ import { formatInstantNamingZone } from "../../../lib/format";
 import { useSponsorReport } from "../api/get-sponsor-report";
 import { ReportBody } from "./ReportBody";
 
-const invalidLink = { title: "This report link isn't valid", text: "It may have expired, or a newer one was sent. Ask the channel for a new link." };
+const invalidLink = { title: "This report link doesn't open", text: "Check that the whole address was copied from the mail, or ask the channel for a new link." };
 
 /** The sponsor's contact, without an account, reads the report and downloads its PDF; the PDF job prints this page (?print=1). */
 export function SponsorReportPage() {
