@@ -1,26 +1,8 @@
 import path from "node:path";
-import { defineConfig, type Plugin } from "vite";
+import { defineConfig } from "vite";
 import react from "@vitejs/plugin-react";
 import tailwindcss from "@tailwindcss/vite";
 import { compression } from "vite-plugin-compression2";
-
-/**
- * The type's latin file (Work Sans, variable: every weight in one) is asked for with the page, not once
- * the stylesheet has been read and the first text laid out.
- */
-function preloadFont(): Plugin {
-  const wanted = /work-sans-latin-wght-normal-[\w-]+\.woff2$/;
-  return {
-    name: "kerf-preload-font",
-    transformIndexHtml: {
-      order: "post",
-      handler: (_html, context) =>
-        Object.keys(context.bundle ?? {})
-          .filter((file) => wanted.test(file))
-          .map((file) => ({ tag: "link", attrs: { rel: "preload", href: `/${file}`, as: "font", type: "font/woff2", crossorigin: "" }, injectTo: "head" as const })),
-    },
-  };
-}
 
 /**
  * react-router 7 publishes only its development files in its package exports, so a production build
@@ -34,7 +16,7 @@ const reactRouterProduction = [
 
 export default defineConfig(({ command }) => ({
   // Every text file is also written brotli- and gzip-compressed; the server sends the smallest the browser takes.
-  plugins: [react(), tailwindcss(), preloadFont(), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
+  plugins: [react(), tailwindcss(), compression({ algorithms: ["brotliCompress", "gzip"], threshold: 1024, logLevel: "silent" })],
   resolve: {
     alias: [{ find: "@shared", replacement: path.resolve(import.meta.dirname, "shared") }, ...(command === "build" ? reactRouterProduction : [])],
   },
