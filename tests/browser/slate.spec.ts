@@ -1,4 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
+import { stageLabels, type Stage } from "../../shared/slate/stages";
 import { homeToSlate, PASSWORD, signUpThroughApi, snap, uniqueEmail } from "./support";
 
 const TITLE = "Kite-lifted thermal camera";
@@ -13,14 +14,12 @@ async function signUp(page: Page, email: string) {
   await expect(page.getByRole("heading", { name: "Slate" })).toBeVisible();
 }
 
-const stageLabels: Record<string, string> = { challenge: "Challenge", test_plan: "Test plan" };
-
 /**
  * A mouse drag of the card onto another column, in small steps as a hand would. The button is let go
  * once the board has announced the card over the target column: the board works out what is under the
  * pointer in its own render, which can come after the last move when the machine is busy.
  */
-async function dragByMouse(page: Page, from: string, to: string) {
+async function dragByMouse(page: Page, from: Stage, to: Stage) {
   const card = await column(page, from).locator("li", { has: page.getByRole("link", { name: TITLE }) }).boundingBox();
   const target = await column(page, to).boundingBox();
   if (!card || !target) throw new Error("card or column not on screen");
