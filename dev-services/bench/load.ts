@@ -180,6 +180,7 @@ async function main() {
     flat_out_rps_one: flatOutOne.perSecond,
     flat_out_one_errors: flatOutOne.errors,
     core_scaling: Math.round((flatOut.perSecond / Math.max(1, flatOutOne.perSecond)) * 100) / 100,
+    core_scaling_ceiling: scalingCeiling(coresOne.machine),
     flat_out_all_cores_server: coresAll.server,
     flat_out_all_cores_postgres: coresAll.postgres,
     flat_out_all_cores_load_generator: coresAll.bench,
@@ -216,6 +217,8 @@ flat out (the ceiling of this machine, server, database and load generator toget
   latency:    p50 ${flatOut.p50} ms, p95 ${flatOut.p95} ms (${CONNECTIONS} requests always waiting: latency is ${CONNECTIONS} ÷ throughput)
 one server process flat out: ${flatOutOne.perSecond}/s, ${flatOutOne.errors} errors; ${figures.workers} processes: ${flatOut.perSecond}/s
   core scaling: ${figures.core_scaling} (target >= 1.6 on 2 cores with PostgreSQL and the load on the same machine: ${figures.core_scaling >= 1.6 ? "met" : "NOT met"})
+  ceiling:      ${figures.core_scaling_ceiling} = ${os.cpus().length} cores ÷ the ${coresOne.machine} the one-process run kept busy (server, PostgreSQL and load generator together):
+                the most two processes can add when a request costs them what it cost the one (1.6 needs the one-process run under ${Math.round((os.cpus().length / 1.6) * 100) / 100} cores)
   cores busy (of ${os.cpus().length}):  ${figures.workers} processes: server ${coresAll.server}, PostgreSQL ${coresAll.postgres}, load generator ${coresAll.bench}, whole machine ${coresAll.machine}
                      one process: server ${coresOne.server}, PostgreSQL ${coresOne.postgres}, load generator ${coresOne.bench}, whole machine ${coresOne.machine}
 PostgreSQL per request (one process flat out): ${statements.perRequest} statements, planning ${statements.planMsPerRequest} ms, running ${statements.execMsPerRequest} ms; costliest:
@@ -230,6 +233,16 @@ calm paced run (no attacker): p95 ${calm.p95} ms, ${calm.errors} errors; attacke
   }
 machine: ${os.cpus().length} CPUs, load average ${figures.load_average_1min}`);
   console.log(JSON.stringify(figures));
+}
+
+/**
+ * The most `core_scaling` can be on this machine: all its cores over the cores the one-process run
+ * kept busy, as more processes can't make a request cheaper, only add cores. The one-process run is
+ * bound by its one main thread, while PostgreSQL, the load generator and the server's other threads use
+ * the rest; with everything on two cores that share is what the second process can't have.
+ */
+function scalingCeiling(oneProcessMachineCores: number): number {
+  return Math.round((os.cpus().length / Math.max(0.01, oneProcessMachineCores)) * 100) / 100;
 }
 
 type RequestsFor = (client: SignedIn, index: number) => autocannon.Request[];
