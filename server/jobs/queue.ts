@@ -18,6 +18,11 @@ const MAIL_BATCH = 10;
 export interface QueueOptions {
   retryLimit: number;
   expireInSeconds: number;
+  /**
+   * A queue that gets a copy of the job (its data, and the failure as output) once pg-boss gives up
+   * on it: its last try failed, ran past its time, or was running when its process stopped.
+   */
+  deadLetter?: string;
 }
 
 export interface Jobs {
@@ -30,6 +35,8 @@ export interface Jobs {
    * first use; `db` sends it inside the caller's transaction.
    */
   enqueue(queue: string, data: { channelId: string } & Record<string, unknown>, options: QueueOptions & { db?: SqlExecutor }): Promise<void>;
+  /** How many of the queue's jobs whose data holds `data` are still to run or running; `db` reads inside the caller's transaction. */
+  countLive(queue: string, data: Record<string, string>, options?: { db?: SqlExecutor }): Promise<number>;
   /** Starts this instance's mail worker; the renderers build each mail when its job runs. */
   startMailWorker(renderers: MailRenderers): Promise<void>;
   stop(): Promise<void>;
@@ -77,13 +84,21 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
 
   async function enqueue(queue: string, data: { channelId: string } & Record<string, unknown>, sendOptions: QueueOptions & { db?: SqlExecutor }): Promise<void> {
     await ensureQueue(queue);
+    if (sendOptions.deadLetter) await ensureQueue(sendOptions.deadLetter);
     const db = sendOptions.db ?? boss.getDb();
     const { rows } = await db.executeSql(
       `select count(*)::int as waiting from ${BOSS_SCHEMA}.job where name = $1 and state < 'active' and data->>'channelId' = $2`,
       [queue, data.channelId],
     );
     const waiting = (rows[0] as { waiting: number } | undefined)?.waiting ?? 0;
-    await boss.send(queue, data, { priority: -waiting, retryLimit: sendOptions.retryLimit, expireInSeconds: sendOptions.expireInSeconds, db });
+    const { retryLimit, expireInSeconds, deadLetter } = sendOptions;
+    await boss.send(queue, data, { priority: -waiting, retryLimit, expireInSeconds, ...(deadLetter ? { deadLetter } : {}), db });
+  }
+
+  async function countLive(queue: string, data: Record<string, string>, countOptions?: { db?: SqlExecutor }): Promise<number> {
+    const db = countOptions?.db ?? boss.getDb();
+    const { rows } = await db.executeSql(`select count(*)::int as live from ${BOSS_SCHEMA}.job where name = $1 and state < 'completed' and data @> $2::jsonb`, [queue, JSON.stringify(data)]);
+    return (rows[0] as { live: number } | undefined)?.live ?? 0;
   }
 
   async function deliver(renderers: MailRenderers, job: MailJob | OutgoingMail): Promise<MailOutcome> {
@@ -108,6 +123,7 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
     boss,
     enqueueMail,
     enqueue,
+    countLive,
     async startMailWorker(renderers) {
       const work = { pollingIntervalSeconds: options.pollSeconds ?? 2, batchSize: MAIL_BATCH, includeMetadata: true as const };
       await boss.work<MailJob | OutgoingMail>(MAIL_QUEUE, work, async (jobs) => {

@@ -67,3 +67,21 @@ export async function requeueClip(db: Executor, channelId: string, clipId: strin
     .set({ mediaState: "waiting", mediaFailure: null })
     .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId)));
 }
+
+/**
+ * A clip whose media job pg-boss gave up on: still waiting or making (no run finished it), it waits
+ * again while it has had fewer than `attemptsAllowed` runs, and fails with `reason` after that.
+ * What it became, or null when a run did settle it (ready, failed) or it is gone.
+ */
+export async function settleGivenUpClip(db: Executor, channelId: string, clipId: string, attemptsAllowed: number, reason: string) {
+  const again = sql`${clips.mediaAttempts} < ${attemptsAllowed}`;
+  const rows = await db
+    .update(clips)
+    .set({
+      mediaState: sql`case when ${again} then 'waiting' else 'failed' end::clip_media_state`,
+      mediaFailure: sql`case when ${again} then null else ${reason} end`,
+    })
+    .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId), inArray(clips.mediaState, ["waiting", "making"])))
+    .returning({ mediaState: clips.mediaState });
+  return rows[0]?.mediaState ?? null;
+}

@@ -7,6 +7,7 @@ import { frameRateName, labelsDroppedPerMinute } from "../../shared/timecode/rat
 import { checkTimecode } from "../../shared/timecode/timecode";
 import { inTransaction, type SqlExecutor } from "../db/transaction";
 import { AppError, notFound } from "../http/app-error";
+import type { Jobs } from "../jobs/queue";
 import type { Caller } from "../http/route-table";
 import { isStorageDown } from "../storage/storage";
 import { INPUT_GUARDS, MediaToolError, runTool } from "./media-tools";
@@ -38,12 +39,43 @@ export interface ClipMediaJob {
   [key: string]: unknown;
 }
 
+/**
+ * Where pg-boss puts a copy of a clip's media job it gave up on: the run failed (the clip says why),
+ * ran past JOB_EXPIRY_SECONDS (its process died), or was running when its process was stopped.
+ */
+export const CLIP_MEDIA_GIVEN_UP_QUEUE = "rushes-clip-media-given-up";
+/** Runs a clip gets, counting those that never finished, before one that never finished fails it. */
+const RUNS_ALLOWED = 3;
+const STOPPED_REASON = "The server stopped before it finished this clip's poster and proxy, after several tries; retry, and tell whoever runs Kerf if it happens again.";
+
 /** Queued inside the transaction that completes (or retries) the clip: the job exists only if the clip does. */
 export function queueClipMedia(ctx: Pick<RushesContext, "jobs">, job: { channelId: string; clipId: string }, sql: SqlExecutor): Promise<void> {
-  return ctx.jobs.enqueue(CLIP_MEDIA_QUEUE, { channelId: job.channelId, clipId: job.clipId }, { retryLimit: 0, expireInSeconds: JOB_EXPIRY_SECONDS, db: sql });
+  const options = { retryLimit: 0, expireInSeconds: JOB_EXPIRY_SECONDS, deadLetter: CLIP_MEDIA_GIVEN_UP_QUEUE, db: sql };
+  return ctx.jobs.enqueue(CLIP_MEDIA_QUEUE, { channelId: job.channelId, clipId: job.clipId }, options);
 }
 
 export type MediaOutcome = { outcome: "made"; poster: boolean; proxy: boolean; mismatches: number } | { outcome: "skipped"; reason: string };
+export type GivenUpOutcome = { outcome: "queued again" } | { outcome: "failed"; reason: string } | { outcome: "skipped"; reason: string };
+
+/**
+ * A media job pg-boss gave up on. A run that failed has already said why on the clip; one that never
+ * finished (a restart, a crash) left the clip waiting or making with no job to move it on, so it is
+ * queued again, until it has had RUNS_ALLOWED runs, and then fails, saying so. A clip with a job of
+ * its own still to run or running (a retry since) is left to that job; the clip's row is held while
+ * this looks, as a retry holds it while it queues.
+ */
+export async function settleGivenUpMedia(ctx: Pick<RushesContext, "db"> & { jobs: Pick<Jobs, "enqueue" | "countLive"> }, job: ClipMediaJob): Promise<GivenUpOutcome> {
+  return inTransaction(ctx.db, async (tx, sql) => {
+    const current = await repo.lockMediaState(tx, job.channelId, job.clipId);
+    if (current !== "waiting" && current !== "making") return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
+    if ((await ctx.jobs.countLive(CLIP_MEDIA_QUEUE, { clipId: job.clipId }, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the clip" };
+    const state = await repo.settleGivenUpClip(tx, job.channelId, job.clipId, RUNS_ALLOWED, STOPPED_REASON);
+    if (state === null) return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
+    if (state === "failed") return { outcome: "failed", reason: STOPPED_REASON };
+    await queueClipMedia(ctx, job, sql);
+    return { outcome: "queued again" };
+  });
+}
 
 interface ProbeAnswer {
   streams?: { codec_type?: string; codec_name?: string; width?: number; height?: number; avg_frame_rate?: string; r_frame_rate?: string; duration?: string }[];

@@ -1,8 +1,9 @@
 import type PgBoss from "pg-boss";
 import type { RushesContext } from "./rushes.context";
-import { CLIP_MEDIA_QUEUE, MEDIA_WORKERS, makeClipMedia, type ClipMediaJob } from "./media.service";
+import { CLIP_MEDIA_GIVEN_UP_QUEUE, CLIP_MEDIA_QUEUE, MEDIA_WORKERS, makeClipMedia, settleGivenUpMedia, type ClipMediaJob } from "./media.service";
 import { sweepAbandonedUploads } from "./uploads.service";
 import { makeQueue } from "../jobs/make-queue";
+import type { Jobs } from "../jobs/queue";
 
 /**
  * Uploads nobody finished: every hour a job aborts those with no part recorded for a day in storage
@@ -28,11 +29,16 @@ export async function scheduleRushesJobs(boss: PgBoss, ctx: Pick<RushesContext, 
  * The clip media workers of this instance: MEDIA_WORKERS jobs at a time, one each, taken by priority
  * (each channel's n-th waiting clip before any channel's (n+1)-th), so one channel's card of big files
  * takes turns with everyone else's. What a job made (or why it was skipped) is its output; a failure
- * is the job's failure, recorded by pg-boss, and the clip says why.
+ * is the job's failure, recorded by pg-boss, and the clip says why. One more worker settles the jobs
+ * pg-boss gave up on (`settleGivenUpMedia`), so a restart in the middle of a run never leaves a clip
+ * "making" for good.
  */
-export async function startClipMediaWorkers(boss: PgBoss, ctx: RushesContext, options: { pollSeconds?: number; workers?: number } = {}): Promise<void> {
+export async function startClipMediaWorkers(boss: PgBoss, ctx: RushesContext & { jobs: Pick<Jobs, "enqueue" | "countLive"> }, options: { pollSeconds?: number; workers?: number } = {}): Promise<void> {
+  const polling = { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 };
   await makeQueue(boss, CLIP_MEDIA_QUEUE);
+  await makeQueue(boss, CLIP_MEDIA_GIVEN_UP_QUEUE);
   for (let n = 0; n < (options.workers ?? MEDIA_WORKERS); n++) {
-    await boss.work<ClipMediaJob>(CLIP_MEDIA_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeClipMedia(ctx, job!.data));
+    await boss.work<ClipMediaJob>(CLIP_MEDIA_QUEUE, polling, async ([job]) => makeClipMedia(ctx, job!.data));
   }
+  await boss.work<ClipMediaJob>(CLIP_MEDIA_GIVEN_UP_QUEUE, polling, async ([job]) => settleGivenUpMedia(ctx, job!.data));
 }
