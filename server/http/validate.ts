@@ -1,6 +1,7 @@
 import type { z } from "zod";
 import { fieldMessages } from "../../shared/http/errors";
 import { versionSchema } from "../../shared/http/version";
+import { isUuid } from "../../shared/http/ids";
 import { AppError } from "./app-error";
 
 interface Visit {
@@ -76,10 +77,8 @@ export function parseVersioned<S extends z.ZodType>(schema: S, body: unknown): {
   return { version: checked.data, input };
 }
 
-const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /** A malformed id can't name any row, so it answers like a missing one. */
 export function parseId(value: unknown, what: string): string {
-  if (typeof value !== "string" || !uuidPattern.test(value)) throw new AppError("not_found", `${what} not found.`);
+  if (!isUuid(value)) throw new AppError("not_found", `${what} not found.`);
   return value.toLowerCase();
 }
