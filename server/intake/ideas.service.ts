@@ -107,6 +107,10 @@ export async function splitSuggestion(db: Database, caller: Caller, suggestionId
     const found = await suggestionIdea(tx, caller.channelId, suggestionId);
     if (!found) throw notFound("Suggestion");
     await lockedOpen(tx, caller, found.ideaId);
+    // Read again once the idea is held: a split or merge that held it first may have moved the suggestion.
+    if ((await suggestionIdea(tx, caller.channelId, suggestionId))?.ideaId !== found.ideaId) {
+      throw new AppError("conflict", "That suggestion was just moved to an idea of its own; look again and split it from there.");
+    }
     const rows = await suggestionsOf(tx, caller.channelId, found.ideaId);
     if (rows.length < 2) throw new AppError("conflict", "That is the idea's only suggestion: there is nothing to split it from.");
     const newId = await insertIdea(tx, caller.channelId, firstWording(found.text));

@@ -192,6 +192,34 @@ describe("importing exported comments", () => {
 });
 
 describe("working the ideas", () => {
+  it("when the same suggestion is split off twice at once, then one split makes its idea and the other is told it moved, leaving no empty idea", async () => {
+    const { channel, owner, base } = await openChannel();
+    for (const text of ["Build a trebuchet from bike parts", "A water rocket launched by a foot pump", "Print a gearbox that lifts a car"]) {
+      await owner.send("post", `${base}/suggestions`, { text }).expect(201);
+    }
+    const [first, ...others] = await ideas(owner, base);
+    for (const other of others) await owner.send("post", `${base}/ideas/${first!.id}/merge`, { otherIdeaId: other.id }).expect(200);
+    const suggestion = (await owner.get(`${base}/ideas/${first!.id}`).expect(200)).body.suggestions[1] as { id: string };
+
+    // Someone holds the idea while both splits ask for it, so both have read where the suggestion was.
+    const holder = await app.database.pool.connect();
+    try {
+      await holder.query("begin");
+      await holder.query("select id from intake_ideas where id = $1 for update", [first!.id]);
+      const splits = [1, 2].map(() => owner.send("post", `${base}/suggestions/${suggestion.id}/split`).then((answer) => answer));
+      const waitingOnLocks = async () => Number((await app.database.pool.query("select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'")).rows[0].n);
+      await expect.poll(waitingOnLocks, { timeout: 10_000, interval: 20 }).toBeGreaterThanOrEqual(2);
+      await holder.query("commit");
+      const answers = await Promise.all(splits);
+      expect(answers.map((answer) => answer.status).sort()).toEqual([201, 409]);
+      expect(answers.find((answer) => answer.status === 409)!.body.error.message).toBe("That suggestion was just moved to an idea of its own; look again and split it from there.");
+    } finally {
+      holder.release();
+    }
+    expect((await ideas(owner, base)).map((idea) => idea.suggestions).sort()).toEqual([1, 2]);
+    expect(await count("intake_ideas", channel.id)).toBe(2);
+  });
+
   it("when members merge, split, weigh, set aside and turn down ideas, then the list follows, sorted by what they chose", async () => {
     const { channel, owner, producer, crew, base } = await openChannel();
     const member = await app.signedIn(crew);
