@@ -83,15 +83,40 @@ async function auditOnce(port: number, url: string, cookie: string | undefined):
   });
   if (!result) throw new Error(`Lighthouse gave no result for ${url}`);
   const { lhr } = result;
-  if (lhr.runtimeError) throw new Error(`Lighthouse on ${url}: ${lhr.runtimeError.message}`);
+  if (lhr.runtimeError) throw new LighthouseRunError(`Lighthouse on ${url}: ${lhr.runtimeError.message}`, lhr.runtimeError.code);
   if (!lhr.finalDisplayedUrl.startsWith(url)) throw new Error(`${url} ended at ${lhr.finalDisplayedUrl}: the page audited is not the one asked for`);
   return lhr;
+}
+
+class LighthouseRunError extends Error {
+  constructor(
+    message: string,
+    readonly code: string,
+  ) {
+    super(message);
+  }
+}
+
+/** Lighthouse's own advice for a trace it failed to record ("Please run Lighthouse again"). */
+const RECORDING_FAILURES = new Set(["NO_NAVSTART", "NO_FCP", "NO_TRACING_STARTED", "NO_RESOURCE_REQUEST"]);
+const RECORDING_TRIES = 3;
+
+/** One audit, run again (up to three tries) when Lighthouse failed to record its trace: a failed recording says nothing of the page. */
+async function auditRecorded(port: number, url: string, cookie: string | undefined): Promise<Result> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await auditOnce(port, url, cookie);
+    } catch (error) {
+      if (!(error instanceof LighthouseRunError) || !RECORDING_FAILURES.has(error.code) || attempt === RECORDING_TRIES) throw error;
+      console.log(`${error.message}; running it again (try ${attempt + 1} of ${RECORDING_TRIES}).`);
+    }
+  }
 }
 
 /** The run Lighthouse's own `computeMedianRun` picks (nearest the median first paint and interactive time); the problems any run found. */
 async function auditPage(port: number, appUrl: string, page: PageAudit) {
   const runs: Result[] = [];
-  for (let i = 0; i < RUNS; i++) runs.push(await auditOnce(port, appUrl + page.path, page.cookie));
+  for (let i = 0; i < RUNS; i++) runs.push(await auditRecorded(port, appUrl + page.path, page.cookie));
   const lhr = computeMedianRun(runs);
   writeFileSync(path.join(reports, `${page.name}.json`), JSON.stringify(lhr));
   return {
