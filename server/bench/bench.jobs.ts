@@ -9,5 +9,6 @@ import { makeQueue } from "../jobs/make-queue";
  */
 export async function startResultsCardWorker(boss: PgBoss, ctx: CardContext, options: { pollSeconds?: number } = {}): Promise<void> {
   await makeQueue(boss, RESULTS_CARD_QUEUE);
-  await boss.work<ResultsCardJob>(RESULTS_CARD_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeCard(ctx, job!.data));
+  const polling = { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2, includeMetadata: true as const };
+  await boss.work<ResultsCardJob>(RESULTS_CARD_QUEUE, polling, async ([job]) => makeCard(ctx, job!.data, job!.retryCount));
 }

@@ -25,12 +25,17 @@ export async function queueCard(db: Queryable, channelId: string, episodeId: str
   return row!;
 }
 
-/** Takes a queued card for drawing; null when it is gone or another worker has it. */
-export async function claimCard(db: Queryable, channelId: string, episodeId: string): Promise<CardRow | null> {
+/**
+ * Takes a queued card for drawing; null when it is gone or another worker has it. `retry`: pg-boss runs
+ * the job again because its last run never finished (its server stopped, or it ran past its time),
+ * which left the card "drawing", so that state is taken too.
+ */
+export async function claimCard(db: Queryable, channelId: string, episodeId: string, retry = false): Promise<CardRow | null> {
+  const states: CardRow["state"][] = retry ? ["queued", "drawing"] : ["queued"];
   const [row] = await db
     .update(resultsCards)
     .set({ state: "drawing", updatedAt: new Date() })
-    .where(and(eq(resultsCards.channelId, channelId), eq(resultsCards.episodeId, episodeId), eq(resultsCards.state, "queued")))
+    .where(and(eq(resultsCards.channelId, channelId), eq(resultsCards.episodeId, episodeId), inArray(resultsCards.state, states)))
     .returning();
   return row ?? null;
 }

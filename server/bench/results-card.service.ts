@@ -65,9 +65,12 @@ const slug = (title: string) => title.normalize("NFKD").replace(/[^A-Za-z0-9]+/g
 
 export type CardOutcome = { outcome: "made"; width: number; height: number; bytes: number } | { outcome: "skipped"; reason: string };
 
-/** The job: the bench's runs and plan as the section reads them, drawn, stored as the episode's stills. */
-export async function makeCard(ctx: CardContext, job: ResultsCardJob): Promise<CardOutcome> {
-  const card = await repo.claimCard(ctx.db, job.channelId, job.episodeId);
+/**
+ * The job: the bench's runs and plan as the section reads them, drawn, stored as the episode's stills.
+ * `retryCount` is pg-boss's: above 0, the run before this one never finished.
+ */
+export async function makeCard(ctx: CardContext, job: ResultsCardJob, retryCount = 0): Promise<CardOutcome> {
+  const card = await repo.claimCard(ctx.db, job.channelId, job.episodeId, retryCount > 0);
   if (!card) return { outcome: "skipped", reason: "the card is gone or not waiting" };
   try {
     const [title, channel, runs, plan, fonts] = await Promise.all([
