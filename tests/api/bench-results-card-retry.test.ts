@@ -1,11 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_PASSWORD, seedDemo } from "../../dev-services/demo/channel";
+import { DEMO_PASSWORD } from "../../dev-services/demo/channel";
 import { startResultsCardWorker } from "../../server/bench/bench.jobs";
 import { claimCard } from "../../server/bench/results-card.repository";
 import { RESULTS_CARD_QUEUE, type ResultsCardJob } from "../../server/bench/results-card.service";
 import { closeSharedBrowser } from "../../server/jobs/chromium";
 import { settledJobs } from "../support/jobs";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+import { demoCardEpisode } from "./results-card-helpers";
 
 /*
  * A card whose drawing never finished (its server stopped mid-run) is drawn by pg-boss's retry of the
@@ -15,16 +16,11 @@ import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
  */
 let app: TestApp;
 let owner: Visitor;
-let base: string;
-let channelId: string;
-let episodeId: string;
+let subject: Awaited<ReturnType<typeof demoCardEpisode>>;
 
 beforeAll(async () => {
   app = await startTestApp();
-  await seedDemo(app.db, new Date("2026-12-02T08:00:00Z"));
-  const [row] = (await app.database.pool.query("select channel_id, id from episodes where title = 'Case fans versus one big rotor'")).rows;
-  [channelId, episodeId] = [row.channel_id, row.id];
-  base = `/api/channels/${channelId}/episodes/${episodeId}`;
+  subject = await demoCardEpisode(app);
   owner = await app.signedIn({ email: "owner@example.com", password: DEMO_PASSWORD });
 });
 afterAll(async () => {
@@ -34,6 +30,7 @@ afterAll(async () => {
 
 describe("a results card whose drawing never finished", () => {
   it("when pg-boss gives up on the run, then its retry draws the card the first run left drawing", async () => {
+    const { channelId, episodeId, base } = subject;
     await owner.send("post", `${base}/results-card`).expect(202);
     const [job] = await app.jobs.boss.fetch<ResultsCardJob>(RESULTS_CARD_QUEUE);
     expect(job?.data).toMatchObject({ channelId, episodeId });

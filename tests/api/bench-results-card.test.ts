@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { DEMO_PASSWORD, seedDemo } from "../../dev-services/demo/channel";
+import { DEMO_PASSWORD } from "../../dev-services/demo/channel";
 import { startResultsCardWorker } from "../../server/bench/bench.jobs";
 import { closeSharedBrowser } from "../../server/jobs/chromium";
 import { RESULTS_CARD_QUEUE } from "../../server/bench/results-card.service";
@@ -11,6 +11,7 @@ import type { RunView, TestPlanView } from "../../shared/bench/schemas";
 import { createEpisode } from "../factories/episodes";
 import { settledJobs } from "../support/jobs";
 import { startTestApp, type TestApp, type Visitor } from "../support/test-app";
+import { demoCardEpisode } from "./results-card-helpers";
 
 let app: TestApp;
 let owner: Visitor;
@@ -20,10 +21,7 @@ let channelId: string;
 
 beforeAll(async () => {
   app = await startTestApp();
-  await seedDemo(app.db, new Date("2026-12-02T08:00:00Z"));
-  const [row] = (await app.database.pool.query("select channel_id, id from episodes where title = 'Case fans versus one big rotor'")).rows;
-  channelId = row.channel_id;
-  base = `/api/channels/${row.channel_id}/episodes/${row.id}`;
+  ({ channelId, base } = await demoCardEpisode(app));
   [owner, editor] = await Promise.all([app.signedIn({ email: "owner@example.com", password: DEMO_PASSWORD }), app.signedIn({ email: "editor@example.com", password: DEMO_PASSWORD })]);
   await startResultsCardWorker(app.jobs.boss, { db: app.db, storage: app.deps.storage, jobs: app.jobs, chromiumPath: app.deps.env.CHROMIUM_PATH }, { pollSeconds: 0.5 });
 });
