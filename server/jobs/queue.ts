@@ -35,8 +35,8 @@ export interface Jobs {
    * first use; `db` sends it inside the caller's transaction.
    */
   enqueue(queue: string, data: { channelId: string } & Record<string, unknown>, options: QueueOptions & { db?: SqlExecutor }): Promise<void>;
-  /** How many of the queue's jobs whose data holds `data` are still to run or running; `db` reads inside the caller's transaction. */
-  countLive(queue: string, data: Record<string, string>, options?: { db?: SqlExecutor }): Promise<number>;
+  /** How many of the queue's jobs whose data has `key` set to `value` are still to run or running; `db` reads inside the caller's transaction. */
+  countLive(queue: string, key: string, value: string, options?: { db?: SqlExecutor }): Promise<number>;
   /** Starts this instance's mail worker; the renderers build each mail when its job runs. */
   startMailWorker(renderers: MailRenderers): Promise<void>;
   stop(): Promise<void>;
@@ -44,6 +44,15 @@ export interface Jobs {
 
 /** What a finished mail job records as its output (pgboss.job.output), for tests and operators. */
 export type MailOutcome = { outcome: "sent" } | { outcome: "skipped"; reason: string } | { outcome: "passed on"; mails: number };
+
+/**
+ * How many of the queue's jobs whose data has `key` set to `value` are in a state before `before`
+ * (pg-boss's states are ordered: created, retry, active, completed, cancelled, failed).
+ */
+async function countJobs(db: SqlExecutor, queue: string, before: "active" | "completed", key: string, value: string): Promise<number> {
+  const { rows } = await db.executeSql(`select count(*)::int as n from ${BOSS_SCHEMA}.job where name = $1 and state < '${before}' and data->>$2 = $3`, [queue, key, value]);
+  return (rows[0] as { n: number } | undefined)?.n ?? 0;
+}
 
 export async function startJobs(options: { databaseUrl: string; mailer: Mailer; pollSeconds?: number }): Promise<Jobs> {
   const boss = new PgBoss({ connectionString: options.databaseUrl, schema: BOSS_SCHEMA, max: 4 });
@@ -59,11 +68,7 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
    */
   async function enqueueMail(job: MailJob, sendOptions?: { db?: SqlExecutor }): Promise<void> {
     const db = sendOptions?.db ?? boss.getDb();
-    const { rows } = await db.executeSql(
-      `select count(*)::int as waiting from ${BOSS_SCHEMA}.job where name = $1 and state < 'active' and data->>'fairKey' = $2`,
-      [MAIL_QUEUE, job.fairKey],
-    );
-    const waiting = (rows[0] as { waiting: number } | undefined)?.waiting ?? 0;
+    const waiting = await countJobs(db, MAIL_QUEUE, "active", "fairKey", job.fairKey);
     // Retries back off from 10 s, for about a day in all: long enough to outlast a mail outage.
     await boss.send(MAIL_QUEUE, job as unknown as object, { priority: -waiting, retryLimit: 14, retryDelay: 10, retryBackoff: true, db });
   }
@@ -86,19 +91,13 @@ export async function startJobs(options: { databaseUrl: string; mailer: Mailer; 
     await ensureQueue(queue);
     if (sendOptions.deadLetter) await ensureQueue(sendOptions.deadLetter);
     const db = sendOptions.db ?? boss.getDb();
-    const { rows } = await db.executeSql(
-      `select count(*)::int as waiting from ${BOSS_SCHEMA}.job where name = $1 and state < 'active' and data->>'channelId' = $2`,
-      [queue, data.channelId],
-    );
-    const waiting = (rows[0] as { waiting: number } | undefined)?.waiting ?? 0;
+    const waiting = await countJobs(db, queue, "active", "channelId", data.channelId);
     const { retryLimit, expireInSeconds, deadLetter } = sendOptions;
     await boss.send(queue, data, { priority: -waiting, retryLimit, expireInSeconds, ...(deadLetter ? { deadLetter } : {}), db });
   }
 
-  async function countLive(queue: string, data: Record<string, string>, countOptions?: { db?: SqlExecutor }): Promise<number> {
-    const db = countOptions?.db ?? boss.getDb();
-    const { rows } = await db.executeSql(`select count(*)::int as live from ${BOSS_SCHEMA}.job where name = $1 and state < 'completed' and data @> $2::jsonb`, [queue, JSON.stringify(data)]);
-    return (rows[0] as { live: number } | undefined)?.live ?? 0;
+  function countLive(queue: string, key: string, value: string, countOptions?: { db?: SqlExecutor }): Promise<number> {
+    return countJobs(countOptions?.db ?? boss.getDb(), queue, "completed", key, value);
   }
 
   async function deliver(renderers: MailRenderers, job: MailJob | OutgoingMail): Promise<MailOutcome> {

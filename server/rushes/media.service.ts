@@ -68,7 +68,7 @@ export async function settleGivenUpMedia(ctx: Pick<RushesContext, "db"> & { jobs
   return inTransaction(ctx.db, async (tx, sql) => {
     const current = await repo.lockMediaState(tx, job.channelId, job.clipId);
     if (current !== "waiting" && current !== "making") return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
-    if ((await ctx.jobs.countLive(CLIP_MEDIA_QUEUE, { clipId: job.clipId }, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the clip" };
+    if ((await ctx.jobs.countLive(CLIP_MEDIA_QUEUE, "clipId", job.clipId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the clip" };
     const state = await repo.settleGivenUpClip(tx, job.channelId, job.clipId, RUNS_ALLOWED, STOPPED_REASON);
     if (state === null) return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
     if (state === "failed") return { outcome: "failed", reason: STOPPED_REASON };
