@@ -69,9 +69,9 @@ export async function requeueClip(db: Executor, channelId: string, clipId: strin
 }
 
 /**
- * A clip whose media job pg-boss gave up on: still waiting or making (no run finished it), it waits
- * again while it has had fewer than `attemptsAllowed` runs, and fails with `reason` after that.
- * What it became, or null when a run did settle it (ready, failed) or it is gone.
+ * A clip whose media job pg-boss gave up on, held by the caller while still waiting or making (no run
+ * finished it): it waits again while it has had fewer than `attemptsAllowed` runs, and fails with
+ * `reason` after that. Answers what it became.
  */
 export async function settleGivenUpClip(db: Executor, channelId: string, clipId: string, attemptsAllowed: number, reason: string) {
   const again = sql`${clips.mediaAttempts} < ${attemptsAllowed}`;
@@ -81,7 +81,7 @@ export async function settleGivenUpClip(db: Executor, channelId: string, clipId:
       mediaState: sql`case when ${again} then 'waiting' else 'failed' end::clip_media_state`,
       mediaFailure: sql`case when ${again} then null else ${reason} end`,
     })
-    .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId), inArray(clips.mediaState, ["waiting", "making"])))
+    .where(and(eq(clips.id, clipId), eq(clips.channelId, channelId)))
     .returning({ mediaState: clips.mediaState });
-  return rows[0]?.mediaState ?? null;
+  return rows[0]!.mediaState;
 }

@@ -70,7 +70,6 @@ export async function settleGivenUpMedia(ctx: Pick<RushesContext, "db"> & { jobs
     if (current !== "waiting" && current !== "making") return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
     if ((await ctx.jobs.countLive(CLIP_MEDIA_QUEUE, "clipId", job.clipId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the clip" };
     const state = await repo.settleGivenUpClip(tx, job.channelId, job.clipId, RUNS_ALLOWED, STOPPED_REASON);
-    if (state === null) return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
     if (state === "failed") return { outcome: "failed", reason: STOPPED_REASON };
     await queueClipMedia(ctx, job, sql);
     return { outcome: "queued again" };
