@@ -86,9 +86,11 @@ export async function ideaDetail(db: Queryable, caller: Caller, ideaId: string):
 async function lockedOpen(tx: Queryable, caller: Caller, ideaId: string) {
   const idea = await lockIdea(tx, caller.channelId, ideaId);
   if (!idea) throw notFound("Idea");
-  if (idea.status === "promoted") throw new AppError("conflict", "That idea is already on the slate; change the episode instead.");
+  if (idea.status === "promoted") throw alreadyOnSlate();
   return idea;
 }
+
+const alreadyOnSlate = () => new AppError("conflict", "That idea is already on the slate; change the episode instead.");
 
 /** Folds `otherIdeaId` into `ideaId`: its suggestions and judgements move over, and it is gone. */
 export async function mergeIdeas(db: Database, caller: Caller, ideaId: string, otherIdeaId: string): Promise<IdeaView> {
@@ -106,11 +108,12 @@ export async function splitSuggestion(db: Database, caller: Caller, suggestionId
   return db.transaction(async (tx) => {
     const found = await suggestionIdea(tx, caller.channelId, suggestionId);
     if (!found) throw notFound("Suggestion");
-    await lockedOpen(tx, caller, found.ideaId);
-    // Read again once the idea is held: a split or merge that held it first may have moved the suggestion.
-    if ((await suggestionIdea(tx, caller.channelId, suggestionId))?.ideaId !== found.ideaId) {
-      throw new AppError("conflict", "That suggestion was just moved to an idea of its own; look again and split it from there.");
-    }
+    const idea = await lockIdea(tx, caller.channelId, found.ideaId);
+    // Read again once the idea is held (or found gone): a split or merge that held it first may have moved the suggestion.
+    const now = await suggestionIdea(tx, caller.channelId, suggestionId);
+    if (!now) throw notFound("Suggestion");
+    if (now.ideaId !== found.ideaId || !idea) throw new AppError("conflict", "That suggestion was just moved to another idea; look again and split it from there.");
+    if (idea.status === "promoted") throw alreadyOnSlate();
     const rows = await suggestionsOf(tx, caller.channelId, found.ideaId);
     if (rows.length < 2) throw new AppError("conflict", "That is the idea's only suggestion: there is nothing to split it from.");
     const newId = await insertIdea(tx, caller.channelId, firstWording(found.text));

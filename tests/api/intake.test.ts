@@ -192,6 +192,8 @@ describe("importing exported comments", () => {
 });
 
 describe("working the ideas", () => {
+  const MOVED = "That suggestion was just moved to another idea; look again and split it from there.";
+
   it("when the same suggestion is split off twice at once, then one split makes its idea and the other is told it moved, leaving no empty idea", async () => {
     const { channel, owner, base } = await openChannel();
     for (const text of ["Build a trebuchet from bike parts", "A water rocket launched by a foot pump", "Print a gearbox that lifts a car"]) {
@@ -212,12 +214,43 @@ describe("working the ideas", () => {
       await holder.query("commit");
       const answers = await Promise.all(splits);
       expect(answers.map((answer) => answer.status).sort()).toEqual([201, 409]);
-      expect(answers.find((answer) => answer.status === 409)!.body.error.message).toBe("That suggestion was just moved to an idea of its own; look again and split it from there.");
+      expect(answers.find((answer) => answer.status === 409)!.body.error.message).toBe(MOVED);
     } finally {
       holder.release();
     }
     expect((await ideas(owner, base)).map((idea) => idea.suggestions).sort()).toEqual([1, 2]);
     expect(await count("intake_ideas", channel.id)).toBe(2);
+  });
+
+  it("when a suggestion is split off while its idea is being folded into another, then the split is told it moved, not that its idea is missing", async () => {
+    const { channel, owner, base } = await openChannel();
+    for (const text of ["Build a trebuchet from bike parts", "A water rocket launched by a foot pump", "Print a gearbox that lifts a car"]) {
+      await owner.send("post", `${base}/suggestions`, { text }).expect(201);
+    }
+    const [kept, folded, third] = await ideas(owner, base);
+    await owner.send("post", `${base}/ideas/${folded!.id}/merge`, { otherIdeaId: third!.id }).expect(200);
+    const suggestion = (await owner.get(`${base}/ideas/${folded!.id}`).expect(200)).body.suggestions[1] as { id: string };
+
+    // Someone holds the idea to be folded; the merge asks for it first, then the split, so the merge goes first.
+    const holder = await app.database.pool.connect();
+    const waitingOnLocks = async () => Number((await app.database.pool.query("select count(*)::int as n from pg_stat_activity where datname = current_database() and wait_event_type = 'Lock'")).rows[0].n);
+    try {
+      await holder.query("begin");
+      await holder.query("select id from intake_ideas where id = $1 for update", [folded!.id]);
+      const merge = owner.send("post", `${base}/ideas/${kept!.id}/merge`, { otherIdeaId: folded!.id }).then((answer) => answer);
+      await expect.poll(waitingOnLocks, { timeout: 10_000, interval: 20 }).toBe(1);
+      const split = owner.send("post", `${base}/suggestions/${suggestion.id}/split`).then((answer) => answer);
+      await expect.poll(waitingOnLocks, { timeout: 10_000, interval: 20 }).toBe(2);
+      await holder.query("commit");
+      expect((await merge).status).toBe(200);
+      const refused = await split;
+      expect(refused.status).toBe(409);
+      expect(refused.body.error.message).toBe(MOVED);
+    } finally {
+      holder.release();
+    }
+    expect((await ideas(owner, base)).map((idea) => idea.suggestions)).toEqual([3]);
+    expect(await count("intake_ideas", channel.id)).toBe(1);
   });
 
   it("when members merge, split, weigh, set aside and turn down ideas, then the list follows, sorted by what they chose", async () => {
