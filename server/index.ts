@@ -32,7 +32,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await scheduleRushesJobs(jobs.boss, { db: database.db, storage }, pace);
   await startClipMediaWorkers(jobs.boss, { db: database.db, storage, jobs }, pace);
   await startResultsCardWorker(jobs.boss, { db: database.db, storage, jobs, chromiumPath: env.CHROMIUM_PATH }, pace);
-  await startSponsorReportWorker(jobs.boss, { ...reportContext({ env, database, storage, jobs }, publishedVideo), chromiumPath: env.CHROMIUM_PATH }, pace);
+  await startSponsorReportWorker(jobs.boss, { ...reportContext({ env, database, storage, jobs }, publishedVideo), jobs, chromiumPath: env.CHROMIUM_PATH }, pace);
   await scheduleSponsorJobs(jobs.boss, { db: database.db, jobs, appUrl: env.APP_URL }, pace);
   await scheduleMailHousekeeping(jobs.boss, database.db);
   const signInLimits = { ...defaultSignInLimits, signUpsPerAddress: env.SIGN_UPS_PER_ADDRESS };

@@ -25,6 +25,16 @@ export async function queueCard(db: Queryable, channelId: string, episodeId: str
   return row!;
 }
 
+/** The card's state, its row held until the transaction ends; null when it is gone. */
+export async function lockCardState(db: Queryable, channelId: string, episodeId: string): Promise<CardRow["state"] | null> {
+  const [row] = await db
+    .select({ state: resultsCards.state })
+    .from(resultsCards)
+    .where(and(eq(resultsCards.channelId, channelId), eq(resultsCards.episodeId, episodeId)))
+    .for("update");
+  return row?.state ?? null;
+}
+
 /**
  * Takes a queued card for drawing; null when it is gone or another worker has it. `retry`: pg-boss runs
  * the job again because its last run never finished (its server stopped, or it ran past its time),

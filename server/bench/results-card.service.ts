@@ -20,6 +20,9 @@ import { episodeRuns } from "./runs.service";
 import { testPlanView } from "./test-plan.service";
 
 export const RESULTS_CARD_QUEUE = "bench-results-card";
+/** Where pg-boss puts a copy of a card job it gave up on: its last run failed, or both runs never finished. */
+export const RESULTS_CARD_GIVEN_UP_QUEUE = "bench-results-card-given-up";
+const STOPPED_REASON = "The server stopped twice before it finished drawing the card; ask for it again, and tell whoever runs Kerf if it happens again.";
 /** A card draws in about a second; past two minutes the worker is gone. */
 const JOB_EXPIRY_SECONDS = 120;
 
@@ -42,7 +45,7 @@ export async function requestCard(ctx: CardContext, caller: Caller, episodeId: s
     const runs = await listRunRows(tx, caller.channelId, { episodeId });
     if (runs.length === 0) throw new AppError("conflict", "The card shows the bench's runs: enter a run first.");
     await repo.queueCard(tx, caller.channelId, episodeId, caller.userId);
-    await ctx.jobs.enqueue(RESULTS_CARD_QUEUE, { channelId: caller.channelId, episodeId }, { retryLimit: 1, expireInSeconds: JOB_EXPIRY_SECONDS, db: sql });
+    await ctx.jobs.enqueue(RESULTS_CARD_QUEUE, { channelId: caller.channelId, episodeId }, { retryLimit: 1, expireInSeconds: JOB_EXPIRY_SECONDS, deadLetter: RESULTS_CARD_GIVEN_UP_QUEUE, db: sql });
     return (await cardView(ctx, tx, caller.channelId, episodeId, false))!;
   });
 }
@@ -101,6 +104,22 @@ export async function makeCard(ctx: CardContext, job: ResultsCardJob, retryCount
 }
 
 /** The channel's card colours, and whether they are Kerf's own. */
+/**
+ * A card job pg-boss gave up on. A run that failed has already failed the card; two that never
+ * finished (the server stopped during each) left it queued or drawing, so it fails now, saying so,
+ * unless a new request has queued a job of its own since. The card's row is held while this looks,
+ * as a request holds it while it queues.
+ */
+export async function settleGivenUpCard(ctx: Pick<CardContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ResultsCardJob): Promise<{ outcome: "failed" } | { outcome: "skipped"; reason: string }> {
+  return inTransaction(ctx.db, async (tx, sql) => {
+    const state = await repo.lockCardState(tx, job.channelId, job.episodeId);
+    if (state !== "queued" && state !== "drawing") return { outcome: "skipped", reason: "a run settled the card, or it is gone" };
+    if ((await ctx.jobs.countLive(RESULTS_CARD_QUEUE, "episodeId", job.episodeId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the card" };
+    await repo.finishCard(tx, job.channelId, job.episodeId, { failure: STOPPED_REASON });
+    return { outcome: "failed" };
+  });
+}
+
 export async function cardColours(db: Queryable, channelId: string): Promise<{ colours: CardColours; own: boolean }> {
   const { colours } = await repo.channelLook(db, channelId);
   return { colours: colours ?? defaultCardColours, own: colours === null };

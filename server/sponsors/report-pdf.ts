@@ -4,7 +4,9 @@ import type PgBoss from "pg-boss";
 import { pdfPageCount } from "../../shared/sponsors/report";
 import { sharedBrowser } from "../jobs/chromium";
 import * as repo from "./reports.repository";
-import { type ReportContext, reportUrl, SPONSOR_REPORT_QUEUE } from "./reports.service";
+import { type ReportContext, reportUrl, SPONSOR_REPORT_GIVEN_UP_QUEUE, SPONSOR_REPORT_QUEUE } from "./reports.service";
+import { inTransaction } from "../db/transaction";
+import type { Jobs } from "../jobs/queue";
 import { makeQueue } from "../jobs/make-queue";
 
 /** The page the PDF is printed from may take this long to load and draw its charts. */
@@ -64,8 +66,32 @@ export async function makeReportPdf(ctx: ReportContext & { chromiumPath: string 
   }
 }
 
-/** This instance's report worker: one PDF at a time, each channel's n-th waiting report before any channel's (n+1)-th. */
-export async function startSponsorReportWorker(boss: PgBoss, ctx: ReportContext & { chromiumPath: string }, options: { pollSeconds?: number } = {}): Promise<void> {
+type ReportWorkerContext = ReportContext & { chromiumPath: string; jobs: Pick<Jobs, "enqueue" | "enqueueMail" | "countLive"> };
+
+const STOPPED_REASON = "The server stopped twice before it finished the PDF; make it again, and tell whoever runs Kerf if it happens again.";
+
+/**
+ * A PDF job pg-boss gave up on. A run that failed has already failed the report; two that never
+ * finished (the server stopped during each) left it queued, so it fails now, saying so, unless a new
+ * request has queued a job of its own since. The report's row is held while this looks.
+ */
+export async function settleGivenUpReport(ctx: Pick<ReportContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ReportJob): Promise<{ outcome: "failed" } | { outcome: "skipped"; reason: string }> {
+  return inTransaction(ctx.db, async (tx, sql) => {
+    if ((await repo.lockReportState(tx, job.channelId, job.reportId)) !== "queued") return { outcome: "skipped", reason: "a run settled the report, or it is gone" };
+    if ((await ctx.jobs.countLive(SPONSOR_REPORT_QUEUE, "reportId", job.reportId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the report" };
+    await repo.finishReport(tx, job.reportId, { state: "failed", failure: STOPPED_REASON });
+    return { outcome: "failed" };
+  });
+}
+
+/**
+ * This instance's report worker: one PDF at a time, each channel's n-th waiting report before any
+ * channel's (n+1)-th; and the settling of jobs pg-boss gave up on (`settleGivenUpReport`).
+ */
+export async function startSponsorReportWorker(boss: PgBoss, ctx: ReportWorkerContext, options: { pollSeconds?: number } = {}): Promise<void> {
+  const polling = { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 };
   await makeQueue(boss, SPONSOR_REPORT_QUEUE);
-  await boss.work<ReportJob>(SPONSOR_REPORT_QUEUE, { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2 }, async ([job]) => makeReportPdf(ctx, job!.data));
+  await boss.work<ReportJob>(SPONSOR_REPORT_QUEUE, polling, async ([job]) => makeReportPdf(ctx, job!.data));
+  await makeQueue(boss, SPONSOR_REPORT_GIVEN_UP_QUEUE);
+  await boss.work<ReportJob>(SPONSOR_REPORT_GIVEN_UP_QUEUE, polling, async ([job]) => settleGivenUpReport(ctx, job!.data));
 }

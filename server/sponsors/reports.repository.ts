@@ -27,6 +27,16 @@ export async function queueReport(db: Db, channelId: string, dealId: string, req
   return row!;
 }
 
+/** The report's state, its row held until the transaction ends; null when it is gone. */
+export async function lockReportState(db: Db, channelId: string, reportId: string): Promise<ReportRow["state"] | null> {
+  const [row] = await db
+    .select({ state: sponsorReports.state })
+    .from(sponsorReports)
+    .where(and(eq(sponsorReports.id, reportId), eq(sponsorReports.channelId, channelId)))
+    .for("update");
+  return row?.state ?? null;
+}
+
 export async function finishReport(db: Db, reportId: string, values: Partial<Pick<ReportRow, "state" | "objectKey" | "pages" | "sizeBytes" | "failure" | "madeAt">>) {
   await db.update(sponsorReports).set({ ...values, updatedAt: new Date() }).where(eq(sponsorReports.id, reportId));
 }

@@ -19,6 +19,8 @@ import type { ReviewTokens } from "./review-token";
 import * as repo from "./reports.repository";
 
 export const SPONSOR_REPORT_QUEUE = "sponsors-report-pdf";
+/** Where pg-boss puts a copy of a PDF job it gave up on: its last run failed, or both runs never finished. */
+export const SPONSOR_REPORT_GIVEN_UP_QUEUE = "sponsors-report-pdf-given-up";
 
 export interface ReportContext {
   db: Database;
@@ -81,7 +83,7 @@ export async function requestPdf(ctx: ReportContext, caller: Caller, dealId: str
   return inTransaction(ctx.db, async (tx, sql) => {
     await buildReport(ctx, tx, caller, dealId);
     const row = await repo.queueReport(tx, caller.channelId, dealId, caller.userId);
-    await ctx.jobs.enqueue(SPONSOR_REPORT_QUEUE, { channelId: caller.channelId, reportId: row.id }, { retryLimit: 1, expireInSeconds: 120, db: sql });
+    await ctx.jobs.enqueue(SPONSOR_REPORT_QUEUE, { channelId: caller.channelId, reportId: row.id }, { retryLimit: 1, expireInSeconds: 120, deadLetter: SPONSOR_REPORT_GIVEN_UP_QUEUE, db: sql });
     return { file: await fileView(ctx, row) };
   });
 }

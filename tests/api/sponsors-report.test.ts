@@ -2,7 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCrewedChannel } from "../factories/accounts";
 import { createEpisode } from "../factories/episodes";
 import { createContact, createDeal, createSponsor } from "../factories/sponsors";
+import { type ReportJob, settleGivenUpReport } from "../../server/sponsors/report-pdf";
+import { SPONSOR_REPORT_GIVEN_UP_QUEUE, SPONSOR_REPORT_QUEUE } from "../../server/sponsors/reports.service";
 import { reportTokens } from "../../server/sponsors/review-token";
+import { settledJobs } from "../support/jobs";
 import { startTestApp, type TestApp } from "../support/test-app";
 
 let app: TestApp;
@@ -58,5 +61,29 @@ describe("the sponsor's report", () => {
     // Sending again retires the link before.
     await producer.send("post", `${report}/send`, { expiresInDays: 8 }).expect(200);
     expect((await visitor.get(`/api/sponsor-report/${token}`).expect(410)).body.error.message).toMatch(/A newer link to this report was sent/);
+  });
+
+  /*
+   * A PDF whose server stopped during both its runs. The test plays that server with pg-boss's own
+   * calls: it takes each run (`fetch`) and lets pg-boss give up on it as its shutdown does (`fail`).
+   * Only the worker that settles given-up jobs runs, so nothing else takes the PDF's jobs.
+   */
+  it("when its server stops during both runs of the PDF, then the report fails, saying so, instead of waiting for good", async () => {
+    const { deal, producer, report } = await setting();
+    await app.jobs.boss.work<ReportJob>(SPONSOR_REPORT_GIVEN_UP_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, ([job]) => settleGivenUpReport({ db: app.db, jobs: app.jobs }, job!.data));
+    await producer.send("post", `${report}/pdf`, {}).expect(202);
+    const reportId = (await app.database.pool.query("select id from sponsor_reports where deal_id = $1", [deal.id])).rows[0].id as string;
+    const ours = (job: { data: Record<string, unknown> }) => job.data.reportId === reportId;
+    for (let run = 1; run <= 2; run++) {
+      let job: { id: string } | undefined;
+      await expect.poll(async () => (job = (await app.jobs.boss.fetch<ReportJob>(SPONSOR_REPORT_QUEUE, { batchSize: 20 })).find(ours)), { timeout: 10_000, interval: 50 }).toBeDefined();
+      await app.jobs.boss.fail(SPONSOR_REPORT_QUEUE, job!.id, { message: "pg-boss shut down while active" });
+    }
+    const [copy] = await settledJobs(app.database.pool, SPONSOR_REPORT_GIVEN_UP_QUEUE, ours, 1);
+    expect(copy).toMatchObject({ state: "completed", output: { outcome: "failed" } });
+    expect((await producer.get(report).expect(200)).body.file).toMatchObject({
+      state: "failed",
+      failure: "The server stopped twice before it finished the PDF; make it again, and tell whoever runs Kerf if it happens again.",
+    });
   });
 });
