@@ -1,5 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { roleMay, type Role } from "../../shared/access/roles";
+import { minorUnitDigits } from "../../shared/money/minor-units";
 import { dateInZone } from "../../shared/sponsors/dates";
 import { generateDeliverables, pairedByTemplate, isCutKind, type DeliverableKind, isMoneyKind, latenessOf, type TemplateItem } from "../../shared/sponsors/deliverables";
 import { checkDisclosure } from "../../shared/sponsors/disclosure";
@@ -51,7 +52,7 @@ export const eventBy = (caller: Caller, deliverableId: string) =>
 
 /** A deal's money as its columns. */
 const moneyColumns = (money: Money) => ({
-  feeAmount: money.fee.toFixed(2),
+  feeAmount: money.fee.toFixed(minorUnitDigits(money.currency)),
   currency: money.currency,
   paymentTermsDays: money.paymentTermsDays,
   paymentTermsFrom: money.paymentTermsFrom,

@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { roleMay } from "../../shared/access/roles";
+import { inCurrencyDigits } from "../../shared/money/minor-units";
 import type { CalendarEntry } from "../../shared/calendar/entries";
 import { deliverableKindLabels, deliverableStatusLabels, moneyKinds, type DeliverableKind, type DeliverableStatus } from "../../shared/sponsors/deliverables";
 import type { CalendarSource } from "../seams/calendar-sources";
@@ -37,7 +38,7 @@ function entryOf(channelId: string, row: ItemRow): CalendarEntry {
     sponsorName: row.company,
     people: [...new Set([row.owner_id, row.host_id].filter((id): id is string => Boolean(id)))],
     href: channelPath(channelId, place),
-    fee: row.fee_amount && row.currency ? { amount: row.fee_amount, currency: row.currency } : null,
+    fee: row.fee_amount && row.currency ? { amount: inCurrencyDigits(row.fee_amount, row.currency), currency: row.currency } : null,
     episodeVersion: null,
   };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { amountNumberSchema, amountTextSchema, plainAmount, readAmount } from "./amounts";
+import { amountDecimalTextSchema, amountTextSchema, plainAmount, readAmount } from "./amounts";
 
 const read = (text: string) => {
   const reading = readAmount(text);
@@ -59,10 +59,16 @@ describe("the schemas", () => {
     expect(plainAmount("")).toBe("");
   });
 
-  it("understands a fee typed 1,800.50 and still takes a number", () => {
-    const fee = amountNumberSchema("fee", 1_000_000_000);
-    expect(fee.parse("1,800.50")).toBe(1800.5);
-    expect(fee.parse(1800.5)).toBe(1800.5);
+  it("understands a fee typed 1,800.50 and still takes a number, keeping the decimals as typed for its currency to check", () => {
+    const fee = amountDecimalTextSchema("fee", 1_000_000_000, 4);
+    expect(fee.parse("1,800.50")).toBe("1800.50");
+    expect(fee.parse(1800.5)).toBe("1800.5");
+    expect(fee.parse(1800)).toBe("1800");
+    expect(fee.parse(0.0001)).toBe("0.0001");
+    expect(fee.parse("1,800.505")).toBe("1800.505");
+    expect(fee.parse("1.800")).toBe("1.800");
+    expect(fee.safeParse("1.80055").error?.issues[0]?.message).toBe("Use at most four decimals for the fee.");
+    expect(fee.safeParse(1.80055).error?.issues[0]?.message).toBe("Use at most four decimals for the fee.");
     expect(fee.safeParse("eighteen hundred").error?.issues[0]?.message).toBe("Write the fee as a number, e.g. 1800.50 or 1,800.50.");
     expect(fee.safeParse(-1).error?.issues[0]?.message).toBe("The fee must be zero or more.");
     expect(fee.safeParse(2_000_000_000).error?.issues[0]?.message).toBe("That fee is too large.");

@@ -8,12 +8,14 @@ import { z } from "zod";
  * other mark isn't used: that is how the locales that group by threes write it (CLDR number symbols,
  * checked against Intl.NumberFormat in amounts.test.ts). A point with three digits after it and
  * nothing else ("1.800") stays a decimal point, as the largest share of readers would read it.
+ * Two decimals at most unless asked: amounts in currencies with three or four (ISO 4217's minor unit)
+ * ask for more, and their currency then says how many it allows.
  */
 export type AmountReading = { ok: true; text: string; value: number } | { ok: false; problem: "blank" | "negative" | "unreadable" | "decimals" };
 
 const groupMarks = /[\s\u00a0\u202f'’]/g;
 
-export function readAmount(raw: string): AmountReading {
+export function readAmount(raw: string, maxDecimals = 2): AmountReading {
   let text = raw.trim().replace(groupMarks, "");
   if (text === "") return { ok: false, problem: "blank" };
   if (/^[-−]/.test(text)) return { ok: false, problem: "negative" };
@@ -22,7 +24,7 @@ export function readAmount(raw: string): AmountReading {
   const split = decimalSplit(text);
   if (!split) return { ok: false, problem: "unreadable" };
   const [whole, fraction] = split;
-  if (fraction.length > 2) return { ok: false, problem: "decimals" };
+  if (fraction.length > maxDecimals) return { ok: false, problem: "decimals" };
   const normal = fraction ? `${whole}.${fraction}` : whole;
   return { ok: true, text: normal.replace(/^0+(?=\d)/, ""), value: Number(normal) };
 }
@@ -49,11 +51,13 @@ function grouped(text: string, mark: string): boolean {
   return /^\d{1,3}$/.test(first) && rest.every((group) => /^\d{3}$/.test(group));
 }
 
-const amountMessages = (noun: string) => ({
+const decimalWords = ["no", "one", "two", "three", "four"];
+
+const amountMessages = (noun: string, maxDecimals = 2) => ({
   blank: `Enter the ${noun}.`,
   negative: `The ${noun} must be zero or more.`,
   unreadable: `Write the ${noun} as a number, e.g. 1800.50 or 1,800.50.`,
-  decimals: `Use at most two decimals for the ${noun}.`,
+  decimals: `Use at most ${decimalWords[maxDecimals]} decimals for the ${noun}.`,
 });
 
 /**
@@ -83,22 +87,31 @@ export function plainAmount<T>(value: T): T | string {
   return reading.ok ? reading.text : value;
 }
 
-/** An amount sent as a number, or as the text the person typed, read the same way. */
-export function amountNumberSchema(noun: string, max: number) {
-  const readingOf = (raw: number | string) => (typeof raw === "number" ? numberReading(raw) : readAmount(raw));
+/**
+ * An amount sent as a number, or as the text the person typed, read the same way, up to `maxDecimals`;
+ * answered as plain decimal text with its decimals as typed ("1.800" stays "1.800"), for the caller to
+ * check against what the currency allows: a grouping point typed in a two-decimal currency is then
+ * refused, not read as a decimal one.
+ */
+export function amountDecimalTextSchema(noun: string, max: number, maxDecimals: number) {
+  const messages = amountMessages(noun, maxDecimals);
+  const readingOf = (raw: number | string) => (typeof raw === "number" ? numberReading(raw, maxDecimals) : readAmount(raw, maxDecimals));
   return z
-    .union([z.number(), z.string()], { error: amountMessages(noun).blank })
+    .union([z.number(), z.string()], { error: messages.blank })
     .superRefine((raw, ctx) => {
       const reading = readingOf(raw);
-      if (!reading.ok) ctx.addIssue({ code: "custom", message: amountMessages(noun)[reading.problem], continue: true });
+      if (!reading.ok) ctx.addIssue({ code: "custom", message: messages[reading.problem], continue: true });
       else if (reading.value > max) ctx.addIssue({ code: "custom", message: `That ${noun} is too large.`, continue: true });
     })
-    .transform((raw) => (readingOf(raw) as { value: number }).value);
+    .transform((raw) => (readingOf(raw) as { text: string }).text);
 }
 
-function numberReading(value: number): AmountReading {
+function numberReading(value: number, maxDecimals: number): AmountReading {
   if (!Number.isFinite(value)) return { ok: false, problem: "unreadable" };
   if (value < 0) return { ok: false, problem: "negative" };
-  if (Math.abs(value * 100 - Math.round(value * 100)) >= 1e-6) return { ok: false, problem: "decimals" };
-  return { ok: true, text: String(value), value };
+  const scale = 10 ** maxDecimals;
+  if (Math.abs(value * scale - Math.round(value * scale)) >= 1e-6) return { ok: false, problem: "decimals" };
+  // Written out in plain digits (never "1e-7"), with the decimals the number has.
+  const fixed = value.toFixed(maxDecimals);
+  return { ok: true, text: fixed.includes(".") ? fixed.replace(/0+$/, "").replace(/\.$/, "") : fixed, value };
 }

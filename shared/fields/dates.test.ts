@@ -3,7 +3,7 @@ import type { z } from "zod";
 import { describe, expect, it } from "vitest";
 import { clipMetadataSchema, shootDayPatchSchema, shootDaySchema } from "../rushes/schemas";
 import { dueOverrideSchema, episodeChangesSchema, episodeFieldsSchema } from "../slate/schemas";
-import { createDealSchema, moneySchema, newDeliverableSchema, updateDealSchema, updateDeliverableSchema } from "../sponsors/schemas";
+import { createDealSchema, moneyFields, newDeliverableSchema, updateDealSchema, updateDeliverableSchema } from "../sponsors/schemas";
 import { calendarDateSchema, dateMessages, recordedInstantSchema } from "./dates";
 
 /** Reference: a proleptic Gregorian date check on UTC fields (ECMAScript's Date.UTC, ECMA-262 §21.4.1). */
@@ -61,8 +61,8 @@ const dateFields: [string, z.ZodType][] = [
   ["shoot day (edit)", shootDayPatchSchema.shape.day],
   ["deal go-live", createDealSchema.shape.goLiveDate],
   ["deal go-live (edit)", updateDealSchema.shape.goLiveDate],
-  ["invoiced on", moneySchema.shape.invoicedOn],
-  ["paid on", moneySchema.shape.paidOn],
+  ["invoiced on", moneyFields.invoicedOn],
+  ["paid on", moneyFields.paidOn],
   ["deliverable fixed date", newDeliverableSchema.shape.fixedDate],
   ["deliverable fixed date (edit)", updateDeliverableSchema.shape.fixedDate],
 ];

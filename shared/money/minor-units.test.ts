@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readAmount } from "../fields/amounts";
-import { formatMinorUnits, fromMinorUnits, minorUnitDigits, toMinorUnits } from "./minor-units";
+import { formatMinorUnits, fromMinorUnits, minorUnitDigits, toMinorUnits, inCurrencyDigits, decimalsOf, tooManyDecimals } from "./minor-units";
 
 /** What a person reads back from a formatted amount: the figure without the currency's sign or code. */
 const readBack = (text: string, currency: string) => {
@@ -49,6 +49,18 @@ describe("minor units", () => {
     expect(toMinorUnits("1800.5055", "KWD")).toBeNull();
     expect(fromMinorUnits(1800505, "KWD")).toBe("1800.505");
     expect(formatMinorUnits(1800505, "KWD", "en-GB")).toBe("KWD\u00a01,800.505");
+  });
+
+  it("writes a stored amount (four decimals in the column) with its currency's decimals, and counts decimals as typed", () => {
+    expect(inCurrencyDigits("1800.5000", "EUR")).toBe("1800.50");
+    expect(inCurrencyDigits("1800.5050", "KWD")).toBe("1800.505");
+    expect(inCurrencyDigits("180000.0000", "JPY")).toBe("180000");
+    // A yen fee with sen, kept from before fees were checked against their currency: shown as it is.
+    expect(inCurrencyDigits("1800.5000", "JPY")).toBe("1800.5");
+    expect(decimalsOf("1.800")).toBe(3);
+    expect(decimalsOf("1800")).toBe(0);
+    expect(tooManyDecimals("JPY")).toBe("JPY has no minor unit: use whole amounts.");
+    expect(tooManyDecimals("EUR")).toBe("EUR has 2 decimals at most.");
   });
 
   it("refuses what is not a plain amount, and amounts past exact integers", () => {

@@ -13,9 +13,20 @@ const exponents: Readonly<Record<string, number>> = {
   CLF: 4, UYW: 4,
 };
 
+/** The most decimals any currency has (ISO 4217's units of account, CLF and UYW). */
+export const MOST_MINOR_DIGITS = 4;
+
 export function minorUnitDigits(currency: string): number {
   return exponents[currency.toUpperCase()] ?? 2;
 }
+
+/** Decimals in a plain decimal text ("1800.50" has 2), counted as typed: trailing zeros too. */
+export const decimalsOf = (decimal: string) => decimal.split(".")[1]?.length ?? 0;
+
+export const tooManyDecimals = (currency: string) => {
+  const digits = minorUnitDigits(currency);
+  return digits === 0 ? `${currency} has no minor unit: use whole amounts.` : `${currency} has ${digits} decimals at most.`;
+};
 
 const plainDecimal = /^(\d+)(?:\.(\d+))?$/;
 
@@ -32,6 +43,16 @@ export function toMinorUnits(decimal: string, currency: string): number | null {
   if (significant.length > digits) return null;
   const minor = BigInt(whole) * 10n ** BigInt(digits) + BigInt(significant.padEnd(digits, "0") || "0");
   return minor > BigInt(Number.MAX_SAFE_INTEGER) ? null : Number(minor);
+}
+
+/**
+ * A stored amount written with its currency's decimals: "1800.5000" EUR → "1800.50", "1800.1250" KWD →
+ * "1800.125". One with more decimals than its currency has (kept from before that was checked) is left
+ * as it is, without its trailing zeros.
+ */
+export function inCurrencyDigits(decimal: string, currency: string): string {
+  const minor = toMinorUnits(decimal, currency);
+  return minor === null ? decimal.replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "") : fromMinorUnits(minor, currency);
 }
 
 /** 180050 EUR → "1800.50"; 1800 JPY → "1800"; 1800500 KWD → "1800.500". */

@@ -42,6 +42,9 @@ describe("invoice states", () => {
     expect(plainAmountText("1,800.50")).toBe("1800.50");
     expect(plainAmountText("1.800,50")).toBe("1800.50");
     expect(plainAmountText("900.125")).toBe("900.125");
+    expect(plainAmountText("1,800.125")).toBe("1800.125");
+    expect(plainAmountText("0.0001")).toBe("0.0001");
+    expect(plainAmountText("0.00015")).toBeNull();
     expect(plainAmountText("nine hundred")).toBeNull();
   });
 });

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { oneLine } from "../fields/text";
 import { readAmount } from "../fields/amounts";
-import { minorUnitDigits } from "../money/minor-units";
+import { MOST_MINOR_DIGITS } from "../money/minor-units";
 import type { IsoDate } from "./dates";
 
 /**
@@ -59,23 +59,17 @@ export const newInvoiceSchema = z.strictObject({
   amount: z
     .string({ error: "Enter the amount." })
     .trim()
-    .refine((v) => v === "" || readAmount(v).ok || /^\d+\.\d{3,4}$/.test(v), { message: "Write the amount as a number, e.g. 900 or 900.25." })
+    .refine((v) => v === "" || readAmount(v, MOST_MINOR_DIGITS).ok, { message: "Write the amount as a number, e.g. 900 or 900.25." })
     .nullable()
     .transform((v) => (v === "" ? null : v)),
 });
 export type NewInvoiceInput = z.input<typeof newInvoiceSchema>;
 
-/** The amount's plain decimal text ("1,800.50" → "1800.50"); three- and four-decimal amounts pass as typed. */
+/** The amount's plain decimal text ("1,800.50" → "1800.50", "1,800.505" → "1800.505"), up to any currency's decimals. */
 export function plainAmountText(typed: string): string | null {
-  const reading = readAmount(typed);
-  if (reading.ok) return reading.text;
-  return /^\d+\.\d{3,4}$/.test(typed.trim()) ? typed.trim() : null;
+  const reading = readAmount(typed, MOST_MINOR_DIGITS);
+  return reading.ok ? reading.text : null;
 }
-
-export const tooManyDecimals = (currency: string) => {
-  const digits = minorUnitDigits(currency);
-  return digits === 0 ? `${currency} has no minor unit: use whole amounts.` : `${currency} has ${digits} decimals at most.`;
-};
 
 export const invoiceActions = ["finalise", "send", "void", "write-off"] as const;
 export type InvoiceAction = (typeof invoiceActions)[number];

@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { amountNumberSchema } from "../fields/amounts";
+import { amountDecimalTextSchema } from "../fields/amounts";
+import { decimalsOf, minorUnitDigits, MOST_MINOR_DIGITS, tooManyDecimals } from "../money/minor-units";
 import { type FrameRateName, frameRateNames, frameRates, labelsDroppedPerMinute } from "../timecode/rates";
 import { checkTimecode } from "../timecode/timecode";
 import { emailSchema } from "../auth/schemas";
@@ -169,8 +170,9 @@ const segmentFields = {
   goLiveDate: optionalDate,
 };
 
-export const moneySchema = z.strictObject({
-  fee: amountNumberSchema("fee", 1_000_000_000),
+/** A deal's money as sent; the fee's decimals are checked against its currency's by `moneySchema`. */
+export const moneyFields = {
+  fee: amountDecimalTextSchema("fee", 1_000_000_000, MOST_MINOR_DIGITS),
   currency: z
     .string({ error: "Enter a currency code." })
     .trim()
@@ -181,7 +183,15 @@ export const moneySchema = z.strictObject({
   invoiceNumber: optionalLine(60, "invoice number"),
   invoicedOn: optionalDate,
   paidOn: optionalDate,
-});
+};
+
+/** A deal's money: the fee in as many decimals as its currency has (ISO 4217's minor unit: none for JPY, three for KWD). */
+export const moneySchema = z
+  .strictObject(moneyFields)
+  .superRefine((money, ctx) => {
+    if (decimalsOf(money.fee) > minorUnitDigits(money.currency)) ctx.addIssue({ code: "custom", path: ["fee"], message: tooManyDecimals(money.currency) });
+  })
+  .transform(({ fee, ...money }) => ({ fee: Number(fee), ...money }));
 export type MoneyInput = z.input<typeof moneySchema>;
 export type Money = z.infer<typeof moneySchema>;
 

@@ -141,6 +141,19 @@ describe("an invoice's life through the payments provider", () => {
     expect(rest.amountMinor).toBe(1800500 - 100125);
   });
 
+  it("when a fee is set in JPY or KWD, then it takes that currency's decimals, no more, and is invoiced whole", async () => {
+    const { deal } = await dealFor("100.00", "EUR");
+    const setMoney = (fee: string, currency: string, version: number) =>
+      producer.send("put", api(`/deals/${deal.id}/money`), { fee, currency, paymentTermsDays: 30, paymentTermsFrom: "invoice", invoiceNumber: null, invoicedOn: null, paidOn: null, version });
+    const version = (await producer.get(api(`/deals/${deal.id}`)).expect(200)).body.deal.version as number;
+    expect((await setMoney("180,000.50", "JPY", version).expect(400)).body.error.fields.fee).toBe("JPY has no minor unit: use whole amounts.");
+    expect((await setMoney("1,800.1255", "KWD", version).expect(400)).body.error.fields.fee).toBe("KWD has 3 decimals at most.");
+    const saved = (await setMoney("1,800.125", "KWD", version).expect(200)).body.deal;
+    expect(saved.money).toMatchObject({ fee: 1800.125, currency: "KWD" });
+    expect((await app.database.pool.query("select fee_amount from deals where id = $1", [deal.id])).rows[0].fee_amount).toBe("1800.1250");
+    expect((await newInvoice(deal.id, { label: "Whole fee", amount: null })).amountMinor).toBe(1800125);
+  });
+
   it("when an invoice is cancelled or written off, then the provider says so and a cancelled one can't change again", async () => {
     const { deal } = await dealFor("500.00", "EUR");
     const one = await newInvoice(deal.id, { label: "Part one", amount: "200" });

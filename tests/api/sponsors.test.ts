@@ -206,7 +206,7 @@ describe("the fee is for owner and producer only", () => {
     const refused = await as.editor.send("patch", api(`/deliverables/${invoice.rows[0].id}`), { status: "done", version: 1 }).expect(404);
     expect(JSON.stringify(refused.body)).not.toContain("invoice");
     const after = await app.database.pool.query("select fee_amount, (select status from deliverables where id = $2) as status from deals where id = $1", [dealId, invoice.rows[0].id]);
-    expect(after.rows[0]).toEqual({ fee_amount: "4321.00", status: "not_started" });
+    expect(after.rows[0]).toEqual({ fee_amount: "4321.0000", status: "not_started" });
   });
 });
 

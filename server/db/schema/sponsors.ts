@@ -88,7 +88,8 @@ export const deals = pgTable(
     // The episode's publish date the open items were last dated from: lets a missed move be caught up.
     publishBasis: date("publish_basis"),
     // Money: only roles with the "fees" area ever receive these columns.
-    feeAmount: numeric("fee_amount", { precision: 14, scale: 2 }).notNull(),
+    // Four decimals: as many as any currency has (ISO 4217's minor unit); each fee keeps to its own currency's.
+    feeAmount: numeric("fee_amount", { precision: 16, scale: 4 }).notNull(),
     currency: text("currency").notNull(),
     paymentTermsDays: integer("payment_terms_days").notNull(),
     paymentTermsFrom: paymentTermsFromEnum("payment_terms_from").notNull(),

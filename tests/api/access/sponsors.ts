@@ -251,7 +251,7 @@ function sponsorRecipes({ app, world }: AccessContext): Record<string, Recipe> {
       ok: 200,
       prepare: async () => {
         const { deal } = await freshDeal();
-        return { params: { dealId: deal.id }, body: { ...money, fee: 1, version: 1 }, intact: async () => expect((await one("select fee_amount from deals where id = $1", [deal.id])).fee_amount).toBe("4321.00") };
+        return { params: { dealId: deal.id }, body: { ...money, fee: 1, version: 1 }, intact: async () => expect((await one("select fee_amount from deals where id = $1", [deal.id])).fee_amount).toBe("4321.0000") };
       },
     },
     [`PUT ${c}/deals/:dealId/cut`]: {

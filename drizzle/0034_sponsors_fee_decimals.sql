@@ -1,0 +1,1 @@
+ALTER TABLE "deals" ALTER COLUMN "fee_amount" SET DATA TYPE numeric(16, 4);
