@@ -65,6 +65,8 @@ describe("the schemas", () => {
     expect(fee.parse(1800.5)).toBe("1800.5");
     expect(fee.parse(1800)).toBe("1800");
     expect(fee.parse(0.0001)).toBe("0.0001");
+    expect(fee.parse(999_999_999.1234)).toBe("999999999.1234");
+    expect(fee.parse(0.1 + 0.2)).toBe("0.3");
     expect(fee.parse("1,800.505")).toBe("1800.505");
     expect(fee.parse("1.800")).toBe("1.800");
     expect(fee.safeParse("1.80055").error?.issues[0]?.message).toBe("Use at most four decimals for the fee.");

@@ -109,9 +109,8 @@ export function amountDecimalTextSchema(noun: string, max: number, maxDecimals: 
 function numberReading(value: number, maxDecimals: number): AmountReading {
   if (!Number.isFinite(value)) return { ok: false, problem: "unreadable" };
   if (value < 0) return { ok: false, problem: "negative" };
-  const scale = 10 ** maxDecimals;
-  if (Math.abs(value * scale - Math.round(value * scale)) >= 1e-6) return { ok: false, problem: "decimals" };
-  // Written out in plain digits (never "1e-7"), with the decimals the number has.
+  // Written out in plain digits (never "1e-7"); a number that isn't that text within a rounding error has more decimals.
   const fixed = value.toFixed(maxDecimals);
+  if (Math.abs(Number(fixed) - value) > Math.abs(value) * 1e-15) return { ok: false, problem: "decimals" };
   return { ok: true, text: fixed.includes(".") ? fixed.replace(/0+$/, "").replace(/\.$/, "") : fixed, value };
 }
