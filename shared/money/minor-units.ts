@@ -4,7 +4,7 @@
  * "minor unit" column (ISO 4217:2015, Table A.1, current currency and funds code list); currencies
  * not listed below have two, as most do. Conversions go through decimal text, never a binary fraction.
  */
-const exponents: Readonly<Record<string, number>> = {
+export const minorUnitExceptions: Readonly<Record<string, number>> = {
   // ISO 4217 Table A.1, minor unit 0.
   BIF: 0, CLP: 0, DJF: 0, GNF: 0, ISK: 0, JPY: 0, KMF: 0, KRW: 0, PYG: 0, RWF: 0, UGX: 0, UYI: 0, VND: 0, VUV: 0, XAF: 0, XOF: 0, XPF: 0,
   // Minor unit 3.
@@ -17,7 +17,7 @@ const exponents: Readonly<Record<string, number>> = {
 export const MOST_MINOR_DIGITS = 4;
 
 export function minorUnitDigits(currency: string): number {
-  return exponents[currency.toUpperCase()] ?? 2;
+  return minorUnitExceptions[currency.toUpperCase()] ?? 2;
 }
 
 /** Decimals in a plain decimal text ("1800.50" has 2), counted as typed: trailing zeros too. */

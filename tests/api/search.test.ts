@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { SearchAnswer, SearchHit, SearchKind } from "../../shared/search/schemas";
 import { trigramSimilarity } from "../../shared/search/highlight";
+import { minorUnitDigits, minorUnitExceptions } from "../../shared/money/minor-units";
 import { clipMarks } from "../../server/db/schema/rushes";
 import { episodeComments } from "../../server/db/schema/slate";
 import { createCrewedChannel } from "../factories/accounts";
@@ -121,6 +122,12 @@ describe("typos, accents and partial words", () => {
 
   it("the start of a word finds it", async () => {
     expect(kindsOf(await search(await app.signedIn(world.owner), "pendul"))).toContain("clip");
+  });
+
+  it("the database's decimals of each currency, with which a fee is searched, are the ones the app uses", async () => {
+    const codes = [...Object.keys(minorUnitExceptions), "EUR", "USD", "GBP"];
+    const { rows } = await app.database.pool.query("select code, currency_minor_digits(code) as digits from unnest($1::text[]) as code", [codes]);
+    expect(Object.fromEntries(rows.map((row) => [row.code, row.digits]))).toEqual(Object.fromEntries(codes.map((code) => [code, minorUnitDigits(code)])));
   });
 
   it("the database's trigram figure is the one the highlighter uses", async () => {
