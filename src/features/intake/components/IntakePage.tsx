@@ -27,7 +27,7 @@ export function IntakePage() {
   const ideas = useIdeas(channel.channelId, status, sort);
   const runsPage = roleMay(channel.role, "intakePage", "W");
   return (
-    <div className="mx-auto flex max-w-5xl flex-col gap-6 p-4 sm:p-6">
+    <div className="mx-auto flex max-w-5xl flex-col gap-6">
       <PageHeader title="Viewer asks" subtitle={`What viewers ask ${channel.channelName} to try, grouped into ideas.`} />
       <div className="grid gap-4 md:grid-cols-2">
         <PagePanel channelId={channel.channelId} canChange={runsPage} />
