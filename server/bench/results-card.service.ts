@@ -103,7 +103,6 @@ export async function makeCard(ctx: CardContext, job: ResultsCardJob, retryCount
   }
 }
 
-/** The channel's card colours, and whether they are Kerf's own. */
 /**
  * A card job pg-boss gave up on. A run that failed has already failed the card; two that never
  * finished (the server stopped during each) left it queued or drawing, so it fails now, saying so,
@@ -120,6 +119,7 @@ export async function settleGivenUpCard(ctx: Pick<CardContext, "db"> & { jobs: P
   });
 }
 
+/** The channel's card colours, and whether they are Kerf's own. */
 export async function cardColours(db: Queryable, channelId: string): Promise<{ colours: CardColours; own: boolean }> {
   const { colours } = await repo.channelLook(db, channelId);
   return { colours: colours ?? defaultCardColours, own: colours === null };

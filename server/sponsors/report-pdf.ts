@@ -2,11 +2,11 @@ import { randomUUID } from "node:crypto";
 import { Readable } from "node:stream";
 import type PgBoss from "pg-boss";
 import { pdfPageCount } from "../../shared/sponsors/report";
+import { inTransaction } from "../db/transaction";
 import { sharedBrowser } from "../jobs/chromium";
+import type { Jobs } from "../jobs/queue";
 import * as repo from "./reports.repository";
 import { type ReportContext, reportUrl, SPONSOR_REPORT_GIVEN_UP_QUEUE, SPONSOR_REPORT_QUEUE } from "./reports.service";
-import { inTransaction } from "../db/transaction";
-import type { Jobs } from "../jobs/queue";
 import { makeQueue } from "../jobs/make-queue";
 
 /** The page the PDF is printed from may take this long to load and draw its charts. */
