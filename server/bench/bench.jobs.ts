@@ -9,7 +9,7 @@ import type { Jobs } from "../jobs/queue";
  * job's failure and the card says so. A job pg-boss gave up on is settled (`settleGivenUpCard`), so
  * a card whose server stopped twice while drawing it does not stay drawing.
  */
-export async function startResultsCardWorker(boss: PgBoss, ctx: CardContext & { jobs: Pick<Jobs, "enqueue" | "countLive"> }, options: { pollSeconds?: number } = {}): Promise<void> {
+export async function startResultsCardWorker(boss: PgBoss, ctx: CardContext & { jobs: Pick<Jobs, "countLive"> }, options: { pollSeconds?: number } = {}): Promise<void> {
   await makeQueue(boss, RESULTS_CARD_QUEUE);
   const polling = { batchSize: 1, pollingIntervalSeconds: options.pollSeconds ?? 2, includeMetadata: true as const };
   await boss.work<ResultsCardJob>(RESULTS_CARD_QUEUE, polling, async ([job]) => makeCard(ctx, job!.data, job!.retryCount));

@@ -9,6 +9,7 @@ import { inTransaction } from "../db/transaction";
 import { AppError } from "../http/app-error";
 import { parseBody } from "../http/validate";
 import type { Caller } from "../http/route-table";
+import { type LeftAlone, settleGivenUp } from "../jobs/given-up";
 import type { Jobs } from "../jobs/queue";
 import type { Storage } from "../storage/storage";
 import { viaStorage } from "../storage/storage";
@@ -109,13 +110,18 @@ export async function makeCard(ctx: CardContext, job: ResultsCardJob, retryCount
  * unless a new request has queued a job of its own since. The card's row is held while this looks,
  * as a request holds it while it queues.
  */
-export async function settleGivenUpCard(ctx: Pick<CardContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ResultsCardJob): Promise<{ outcome: "failed" } | { outcome: "skipped"; reason: string }> {
-  return inTransaction(ctx.db, async (tx, sql) => {
-    const state = await repo.lockCardState(tx, job.channelId, job.episodeId);
-    if (state !== "queued" && state !== "drawing") return { outcome: "skipped", reason: "a run settled the card, or it is gone" };
-    if ((await ctx.jobs.countLive(RESULTS_CARD_QUEUE, "episodeId", job.episodeId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the card" };
-    await repo.finishCard(tx, job.channelId, job.episodeId, { failure: STOPPED_REASON });
-    return { outcome: "failed" };
+export function settleGivenUpCard(ctx: Pick<CardContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ResultsCardJob): Promise<{ outcome: "failed" } | LeftAlone> {
+  return settleGivenUp(ctx.db, ctx.jobs, {
+    noun: "card",
+    queue: RESULTS_CARD_QUEUE,
+    key: "episodeId",
+    value: job.episodeId,
+    lock: (tx) => repo.lockCardState(tx, job.channelId, job.episodeId),
+    unfinished: ["queued", "drawing"],
+    settle: async (tx) => {
+      await repo.finishCard(tx, job.channelId, job.episodeId, { failure: STOPPED_REASON });
+      return { outcome: "failed" as const };
+    },
   });
 }
 

@@ -7,6 +7,7 @@ import { frameRateName, labelsDroppedPerMinute } from "../../shared/timecode/rat
 import { checkTimecode } from "../../shared/timecode/timecode";
 import { inTransaction, type SqlExecutor } from "../db/transaction";
 import { AppError, notFound } from "../http/app-error";
+import { type LeftAlone, settleGivenUp } from "../jobs/given-up";
 import type { Jobs } from "../jobs/queue";
 import type { Caller } from "../http/route-table";
 import { isStorageDown } from "../storage/storage";
@@ -55,7 +56,7 @@ export function queueClipMedia(ctx: Pick<RushesContext, "jobs">, job: { channelI
 }
 
 export type MediaOutcome = { outcome: "made"; poster: boolean; proxy: boolean; mismatches: number } | { outcome: "skipped"; reason: string };
-export type GivenUpOutcome = { outcome: "queued again" } | { outcome: "failed"; reason: string } | { outcome: "skipped"; reason: string };
+export type GivenUpOutcome = { outcome: "queued again" } | { outcome: "failed"; reason: string } | LeftAlone;
 
 /**
  * A media job pg-boss gave up on. A run that failed has already said why on the clip; one that never
@@ -64,15 +65,20 @@ export type GivenUpOutcome = { outcome: "queued again" } | { outcome: "failed"; 
  * its own still to run or running (a retry since) is left to that job; the clip's row is held while
  * this looks, as a retry holds it while it queues.
  */
-export async function settleGivenUpMedia(ctx: Pick<RushesContext, "db"> & { jobs: Pick<Jobs, "enqueue" | "countLive"> }, job: ClipMediaJob): Promise<GivenUpOutcome> {
-  return inTransaction(ctx.db, async (tx, sql) => {
-    const current = await repo.lockMediaState(tx, job.channelId, job.clipId);
-    if (current !== "waiting" && current !== "making") return { outcome: "skipped", reason: "a run settled the clip, or it is gone" };
-    if ((await ctx.jobs.countLive(CLIP_MEDIA_QUEUE, "clipId", job.clipId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the clip" };
-    const state = await repo.settleGivenUpClip(tx, job.channelId, job.clipId, RUNS_ALLOWED, STOPPED_REASON);
-    if (state === "failed") return { outcome: "failed", reason: STOPPED_REASON };
-    await queueClipMedia(ctx, job, sql);
-    return { outcome: "queued again" };
+export function settleGivenUpMedia(ctx: Pick<RushesContext, "db"> & { jobs: Pick<Jobs, "enqueue" | "countLive"> }, job: ClipMediaJob): Promise<GivenUpOutcome> {
+  return settleGivenUp(ctx.db, ctx.jobs, {
+    noun: "clip",
+    queue: CLIP_MEDIA_QUEUE,
+    key: "clipId",
+    value: job.clipId,
+    lock: (tx) => repo.lockMediaState(tx, job.channelId, job.clipId),
+    unfinished: ["waiting", "making"],
+    settle: async (tx, sql) => {
+      const state = await repo.settleGivenUpClip(tx, job.channelId, job.clipId, RUNS_ALLOWED, STOPPED_REASON);
+      if (state === "failed") return { outcome: "failed", reason: STOPPED_REASON };
+      await queueClipMedia(ctx, job, sql);
+      return { outcome: "queued again" };
+    },
   });
 }
 

@@ -2,8 +2,8 @@ import { randomUUID } from "node:crypto";
 import { Readable } from "node:stream";
 import type PgBoss from "pg-boss";
 import { pdfPageCount } from "../../shared/sponsors/report";
-import { inTransaction } from "../db/transaction";
 import { sharedBrowser } from "../jobs/chromium";
+import { type LeftAlone, settleGivenUp } from "../jobs/given-up";
 import type { Jobs } from "../jobs/queue";
 import * as repo from "./reports.repository";
 import { type ReportContext, reportUrl, SPONSOR_REPORT_GIVEN_UP_QUEUE, SPONSOR_REPORT_QUEUE } from "./reports.service";
@@ -66,7 +66,7 @@ export async function makeReportPdf(ctx: ReportContext & { chromiumPath: string 
   }
 }
 
-type ReportWorkerContext = ReportContext & { chromiumPath: string; jobs: Pick<Jobs, "enqueue" | "enqueueMail" | "countLive"> };
+type ReportWorkerContext = ReportContext & { chromiumPath: string; jobs: Pick<Jobs, "countLive"> };
 
 const STOPPED_REASON = "The server stopped twice before it finished the PDF; make it again, and tell whoever runs Kerf if it happens again.";
 
@@ -75,12 +75,18 @@ const STOPPED_REASON = "The server stopped twice before it finished the PDF; mak
  * finished (the server stopped during each) left it queued, so it fails now, saying so, unless a new
  * request has queued a job of its own since. The report's row is held while this looks.
  */
-export async function settleGivenUpReport(ctx: Pick<ReportContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ReportJob): Promise<{ outcome: "failed" } | { outcome: "skipped"; reason: string }> {
-  return inTransaction(ctx.db, async (tx, sql) => {
-    if ((await repo.lockReportState(tx, job.channelId, job.reportId)) !== "queued") return { outcome: "skipped", reason: "a run settled the report, or it is gone" };
-    if ((await ctx.jobs.countLive(SPONSOR_REPORT_QUEUE, "reportId", job.reportId, { db: sql })) > 0) return { outcome: "skipped", reason: "another job has the report" };
-    await repo.finishReport(tx, job.reportId, { state: "failed", failure: STOPPED_REASON });
-    return { outcome: "failed" };
+export function settleGivenUpReport(ctx: Pick<ReportContext, "db"> & { jobs: Pick<Jobs, "countLive"> }, job: ReportJob): Promise<{ outcome: "failed" } | LeftAlone> {
+  return settleGivenUp(ctx.db, ctx.jobs, {
+    noun: "report",
+    queue: SPONSOR_REPORT_QUEUE,
+    key: "reportId",
+    value: job.reportId,
+    lock: (tx) => repo.lockReportState(tx, job.channelId, job.reportId),
+    unfinished: ["queued"],
+    settle: async (tx) => {
+      await repo.finishReport(tx, job.reportId, { state: "failed", failure: STOPPED_REASON });
+      return { outcome: "failed" as const };
+    },
   });
 }
 
